@@ -1,6 +1,17 @@
 namespace SlotOpt.Bench;
 
+/// <summary>Benchmark console: `dotnet run -c Release --project tests/SlotOpt.Bench -- CASE [--json]`.</summary>
 public static class Program
 {
-    public static int Main(string[] args) => 0;
+    public static int Main(string[] args)
+    {
+        var benchCase = args.Length > 0 ? args[0] : "";
+        var rest = args.Skip(1).ToArray();
+        switch (benchCase)
+        {
+            default:
+                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets)");
+                return 2;
+        }
+    }
 }
