@@ -8,6 +8,9 @@ public static class SlotOptCommand
     public static RootCommand Build()
     {
         var root = new RootCommand("SlotOpt: lamination grade and gauge, and slot patterns for solid parts, against eddy-current loss, drag and cost.");
+        root.Subcommands.Add(MaterialsCommand.Build());
+        root.Subcommands.Add(CoreLossCommand.Build());
+        root.Subcommands.Add(FitCommand.Build());
         return root;
     }
 }

@@ -1,0 +1,91 @@
+using System.CommandLine;
+using System.Globalization;
+using SlotOpt.Lamination;
+using SlotOpt.Materials;
+using SlotOpt.Problems;
+using SlotOpt.Waveforms;
+
+namespace SlotOpt.Cli;
+
+/// <summary>`slotopt core-loss`: specific loss of one grade under one flux waveform, with its breakdown.</summary>
+public static class CoreLossCommand
+{
+    public static Command Build()
+    {
+        var grade = new Option<string>("--grade") { Description = "Lamination grade, e.g. M270-35A (see `slotopt materials`)", Required = true };
+        var peak = QuantityOption.Create("--peak", "Peak flux density in the steel, e.g. 1.5T (with --waveform: scales the file's shape to this peak)");
+        var frequency = QuantityOption.Create("--frequency", "Fundamental frequency, e.g. 50Hz", required: true);
+        var width = QuantityOption.Create("--width", "Width of the narrowest feature the flux runs along (tooth, strip), e.g. 3mm");
+        var temperature = QuantityOption.Create("--temperature", "Steel temperature, e.g. 80degC (default 20degC)");
+        var waveform = new Option<string>("--waveform") { Description = "CSV of one period of B: columns phase,b_t or t_s,b_t (straight lines between samples)" };
+        var json = new Option<bool>("--json") { Description = "Print one JSON object" };
+        var command = new Command("core-loss", "Specific loss of a lamination grade: hysteresis, classical eddy (skin and width corrected) and excess");
+        foreach (var o in new Option[] { grade, peak, frequency, width, temperature, waveform, json }) command.Options.Add(o);
+
+        command.SetAction(parseResult => CommandRunner.Run(() =>
+        {
+            var steel = MaterialLibrary.BuiltIn.GetSteel(parseResult.GetValue(grade)!, "--grade");
+            var f = QuantityOption.ReadPositive(parseResult, frequency, QuantityKind.Frequency)!.Value;
+            var bp = QuantityOption.Read(parseResult, peak, QuantityKind.FluxDensity);
+            if (bp is { } b && !(b >= 0)) throw new InputException($"--peak: must be zero or positive, got {parseResult.GetValue(peak)}");
+            var conditions = new LaminationConditions
+            {
+                TemperatureK = QuantityOption.Read(parseResult, temperature, QuantityKind.Temperature) ?? Conductor.RoomTemperatureK,
+                FeatureWidthM = QuantityOption.ReadPositive(parseResult, width, QuantityKind.Length) ?? double.PositiveInfinity,
+            };
+            if (!(conditions.TemperatureK > 0)) throw new InputException($"--temperature: below absolute zero ({parseResult.GetValue(temperature)})");
+
+            IFluxWaveform flux;
+            var file = parseResult.GetValue(waveform);
+            if (file is null)
+            {
+                flux = new SineWaveform(bp ?? throw new InputException("--peak: required unless --waveform gives the flux values"), f);
+            }
+            else
+            {
+                var shape = WaveformCsv.Read(file, f);
+                flux = bp is { } target
+                    ? (shape.PeakT > 0 ? shape.Scaled(target / shape.PeakT) : throw new InputException($"{file}: the waveform is zero everywhere; it cannot be scaled to --peak"))
+                    : shape;
+            }
+
+            var loss = LaminationLossModel.Evaluate(steel, flux, conditions);
+            if (parseResult.GetValue(json))
+            {
+                JsonOutput.Write(new
+                {
+                    grade = steel.Grade,
+                    thickness_mm = steel.ThicknessM * 1e3,
+                    peak_t = flux.PeakT,
+                    frequency_hz = f,
+                    temperature_k = conditions.TemperatureK,
+                    waveform = file is null ? "sine" : file,
+                    total_w_per_kg = loss.TotalWPerKg,
+                    hysteresis_w_per_kg = loss.HysteresisWPerKg,
+                    classical_w_per_kg = loss.ClassicalWPerKg,
+                    excess_w_per_kg = loss.ExcessWPerKg,
+                    total_w_per_m3 = loss.TotalWPerM3,
+                    skin_factor = loss.SkinFactor,
+                    width_factor = loss.WidthFactor,
+                    skin_depth_mm = loss.SkinDepthM * 1e3,
+                    thickness_over_skin_depth = loss.ThicknessOverSkinDepth,
+                    resistivity_uohm_m = loss.ResistivityOhmM * 1e6,
+                    flags = loss.Flags.Select(x => new { code = x.Code, message = x.Message }),
+                });
+                return ExitCodes.Success;
+            }
+            var o = Console.Out;
+            var ci = CultureInfo.InvariantCulture;
+            o.WriteLine(string.Create(ci, $"{steel.Grade} ({steel.ThicknessM * 1e3:0.00} mm) at {flux.PeakT:0.###} T peak, {f:0.##} Hz, {(file is null ? "sine" : "waveform " + file)}, {conditions.TemperatureK - 273.15:0.#} degC"));
+            o.WriteLine(string.Create(ci, $"  hysteresis   {loss.HysteresisWPerKg,10:0.0000} W/kg"));
+            o.WriteLine(string.Create(ci, $"  classical    {loss.ClassicalWPerKg,10:0.0000} W/kg   (skin factor {loss.SkinFactor:0.0000}, width factor {loss.WidthFactor:0.0000})"));
+            o.WriteLine(string.Create(ci, $"  excess       {loss.ExcessWPerKg,10:0.0000} W/kg"));
+            o.WriteLine(string.Create(ci, $"  total        {loss.TotalWPerKg,10:0.0000} W/kg   ({loss.TotalWPerM3 / 1e3:0.###} kW/m^3)"));
+            o.WriteLine(string.Create(ci, $"  skin depth   {loss.SkinDepthM * 1e3,10:0.000} mm    (thickness / skin depth {loss.ThicknessOverSkinDepth:0.###})"));
+            o.WriteLine(string.Create(ci, $"  standard limit of {steel.Grade}: {steel.SpecMaxLossWPerKg:0.00} W/kg at {steel.SpecPeakT:0.0} T {steel.SpecFrequencyHz:0} Hz"));
+            foreach (var flag in loss.Flags) o.WriteLine($"  warning [{flag.Code}]: {flag.Message}");
+            return ExitCodes.Success;
+        }));
+        return command;
+    }
+}

@@ -1,0 +1,56 @@
+using System.CommandLine;
+using System.Globalization;
+using SlotOpt.Lamination;
+using SlotOpt.Problems;
+
+namespace SlotOpt.Cli;
+
+/// <summary>`slotopt fit FILE`: hysteresis and excess coefficients from measured sine losses.</summary>
+public static class FitCommand
+{
+    public static Command Build()
+    {
+        var file = new Argument<string>("file") { Description = "CSV with columns b_t, f_hz, w_per_kg (sine excitation)" };
+        var thickness = QuantityOption.Create("--thickness", "Sheet thickness, e.g. 0.35mm", required: true);
+        var resistivity = QuantityOption.Create("--resistivity", "Resistivity, e.g. \"0.52 uOhm m\"", required: true);
+        var density = QuantityOption.Create("--density", "Density, e.g. \"7650 kg/m3\"", required: true);
+        var permeability = new Option<double?>("--permeability") { Description = "Relative permeability for the skin correction of the classical term (default: no correction)" };
+        var json = new Option<bool>("--json") { Description = "Print one JSON object" };
+        var command = new Command("fit", "Fit hysteresis (kh, alpha) and excess (ke) coefficients to measured losses; classical term from theory");
+        command.Arguments.Add(file);
+        foreach (var o in new Option[] { thickness, resistivity, density, permeability, json }) command.Options.Add(o);
+
+        command.SetAction(parseResult => CommandRunner.Run(() =>
+        {
+            var d = QuantityOption.ReadPositive(parseResult, thickness, QuantityKind.Length)!.Value;
+            var rho = QuantityOption.ReadPositive(parseResult, resistivity, QuantityKind.Resistivity)!.Value;
+            var rhoM = QuantityOption.ReadPositive(parseResult, density, QuantityKind.Density)!.Value;
+            var mu = parseResult.GetValue(permeability);
+            if (mu is { } m && !(m >= 1)) throw new InputException($"--permeability: must be 1 or more, got {m}");
+            var path = parseResult.GetValue(file)!;
+            var data = LossMeasurementCsv.Read(path);
+            var fit = LossCoefficientFit.Fit(data, d, rho, rhoM, mu);
+            if (parseResult.GetValue(json))
+            {
+                JsonOutput.Write(new
+                {
+                    kh = fit.HysteresisCoefficient, alpha = fit.HysteresisExponent, ke = fit.ExcessCoefficient,
+                    kh_standard_error = fit.HysteresisCoefficientError, alpha_standard_error = fit.HysteresisExponentError,
+                    ke_standard_error = fit.ExcessCoefficientError, kc = fit.ClassicalCoefficient,
+                    r_squared = fit.RSquared, worst_relative_error = fit.WorstRelativeError, points = data.Count,
+                });
+                return ExitCodes.Success;
+            }
+            var o = Console.Out;
+            var ci = CultureInfo.InvariantCulture;
+            o.WriteLine(string.Create(ci, $"Fit of P = kh f B^alpha + kc f^2 B^2 + ke (f B)^1.5 to {data.Count} points of {path}"));
+            o.WriteLine(string.Create(ci, $"  kh    = {fit.HysteresisCoefficient:0.000000} +/- {fit.HysteresisCoefficientError:0.000000} W/(kg Hz T^alpha)"));
+            o.WriteLine(string.Create(ci, $"  alpha = {fit.HysteresisExponent:0.0000} +/- {fit.HysteresisExponentError:0.0000}"));
+            o.WriteLine(string.Create(ci, $"  ke    = {fit.ExcessCoefficient:0.00000000} +/- {fit.ExcessCoefficientError:0.00000000} W/(kg (T/s)^1.5)"));
+            o.WriteLine(string.Create(ci, $"  kc    = {fit.ClassicalCoefficient:0.000e+00} W/(kg Hz^2 T^2) (from theory, fixed{(mu is null ? "" : $", skin corrected at mu_r {mu}")})"));
+            o.WriteLine(string.Create(ci, $"  R^2 = {fit.RSquared:0.00000}, worst relative error {fit.WorstRelativeError * 100:0.00} %"));
+            return ExitCodes.Success;
+        }));
+        return command;
+    }
+}
