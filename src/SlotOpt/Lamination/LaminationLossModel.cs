@@ -46,7 +46,7 @@ public static class LaminationLossModel
         }
         else
         {
-            hysteresis = HysteresisLoss.ImprovedGeneralisedSteinmetz(steel.HysteresisCoefficient, 1, steel.HysteresisExponent, waveform);
+            hysteresis = HysteresisLoss.LoopSplit(steel.HysteresisCoefficient, steel.HysteresisExponent, waveform);
             excess = ExcessLoss.FromMeanRate(steel.ExcessCoefficient, waveform.MeanAbsRatePower(1.5));
         }
 

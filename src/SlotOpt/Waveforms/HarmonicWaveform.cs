@@ -8,6 +8,7 @@ public sealed class HarmonicWaveform : IFluxWaveform
 
     private readonly Harmonic[] harmonics;
     private readonly double[] rateSamples;
+    private readonly double[] valueSamples;
     private readonly Dictionary<double, double> meanAbsRatePowers = new();
 
     public HarmonicWaveform(double fundamentalHz, IEnumerable<Harmonic> harmonics)
@@ -26,6 +27,7 @@ public sealed class HarmonicWaveform : IFluxWaveform
         var omega = 2 * Math.PI * fundamentalHz;
         var samples = SamplesPerOrder * this.harmonics.Max(h => h.Order);
         rateSamples = new double[samples];
+        valueSamples = new double[samples];
         var max = double.NegativeInfinity;
         var min = double.PositiveInfinity;
         for (var k = 0; k < samples; k++)
@@ -38,6 +40,7 @@ public sealed class HarmonicWaveform : IFluxWaveform
                 rate += h.Order * omega * h.AmplitudeT * Math.Cos(h.Order * theta + h.PhaseRad);
             }
             rateSamples[k] = rate;
+            valueSamples[k] = b;
             max = Math.Max(max, b);
             min = Math.Min(min, b);
         }
@@ -70,6 +73,8 @@ public sealed class HarmonicWaveform : IFluxWaveform
     }
 
     public IReadOnlyList<Harmonic> Spectrum(int maxOrder) => harmonics.Where(h => h.Order <= maxOrder).ToArray();
+
+    public IReadOnlyList<double> PeriodSamplesT => valueSamples;
 
     public double ValueAt(double timeS)
     {

@@ -26,6 +26,9 @@ public interface IFluxWaveform
     /// <summary>True for a single sine, for which the loss model has closed forms.</summary>
     bool IsSinusoidal { get; }
 
+    /// <summary>B through one period, sampled finely enough to hold every turning point (T).</summary>
+    IReadOnlyList<double> PeriodSamplesT { get; }
+
     /// <summary>B at a time (T).</summary>
     double ValueAt(double timeS);
 

@@ -100,6 +100,8 @@ public sealed class PiecewiseLinearWaveform : IFluxWaveform
         return result;
     }
 
+    public IReadOnlyList<double> PeriodSamplesT => valuesT;
+
     public double ValueAt(double timeS)
     {
         var phase = timeS * FundamentalHz;

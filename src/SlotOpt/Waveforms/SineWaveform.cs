@@ -26,6 +26,8 @@ public sealed class SineWaveform : IFluxWaveform
 
     public IReadOnlyList<Harmonic> Spectrum(int maxOrder) => [new Harmonic(1, PeakT, 0)];
 
+    public IReadOnlyList<double> PeriodSamplesT => [0, PeakT, 0, -PeakT];
+
     public double ValueAt(double timeS) => PeakT * Math.Sin(2 * Math.PI * FundamentalHz * timeS);
 
     public IFluxWaveform Scaled(double factor) => new SineWaveform(PeakT * factor, FundamentalHz);
