@@ -9,6 +9,7 @@ public sealed record Conductor(
     double RelativePermeability,
     bool IsMagnetic,
     TemperatureModel TemperatureModel,
+    double YoungsModulusPa,
     double PricePerKg,
     string Source)
 {

@@ -92,6 +92,7 @@ public sealed class MaterialLibrary
             "matthiessen-Al" => TemperatureModel.MatthiessenAluminium,
             var other => throw new InputException($"{row.SourceName}:{row.LineNumber}: temperature_model \"{other}\" is not linear, matthiessen-Cu or matthiessen-Al"),
         },
+        YoungsModulusPa: row.Number("youngs_modulus_gpa") * 1e9,
         PricePerKg: row.Number("price_per_kg"),
         Source: row.Text("source"));
 }

@@ -85,5 +85,5 @@ public class ResistivityTests
         Assert.False(steel.IsExtrapolatedAt(353.15));
     }
 
-    private static readonly Conductor PureCopper = new("pure Cu", 1.678e-8, 0.0039, 8960, 1, false, TemperatureModel.MatthiessenCopper, 0, "test: residual 0.002 uOhm cm");
+    private static readonly Conductor PureCopper = new("pure Cu", 1.678e-8, 0.0039, 8960, 1, false, TemperatureModel.MatthiessenCopper, 117e9, 0, "test: residual 0.002 uOhm cm");
 }
