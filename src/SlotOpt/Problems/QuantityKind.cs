@@ -14,4 +14,5 @@ public enum QuantityKind
     Area,
     Power,
     Force,
+    Pressure,
 }

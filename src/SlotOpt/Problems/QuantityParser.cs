@@ -23,6 +23,7 @@ public static partial class QuantityParser
         QuantityKind.Area => "m^2",
         QuantityKind.Power => "W",
         QuantityKind.Force => "N",
+        QuantityKind.Pressure => "Pa",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -39,6 +40,7 @@ public static partial class QuantityParser
         QuantityKind.Area => "\"0.01 m2\"",
         QuantityKind.Power => "\"150 W\"",
         QuantityKind.Force => "\"20 N\"",
+        QuantityKind.Pressure => "\"69 GPa\"",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -102,6 +104,7 @@ public static partial class QuantityParser
             case QuantityKind.Area when Area.TryParse(joined, culture, out var q): si = q.SquareMeters; return true;
             case QuantityKind.Power when Power.TryParse(joined, culture, out var q): si = (double)q.Watts; return true;
             case QuantityKind.Force when Force.TryParse(joined, culture, out var q): si = q.Newtons; return true;
+            case QuantityKind.Pressure when Pressure.TryParse(joined, culture, out var q): si = q.Pascals; return true;
             default: return false;
         }
     }

@@ -112,6 +112,22 @@ public sealed class TomlSection
         return list;
     }
 
+    /// <summary>A list of lists of strings, e.g. coil_groups = [["stator", "rotor"]].</summary>
+    public IReadOnlyList<IReadOnlyList<string>> GroupList(string key)
+    {
+        var node = Get(key);
+        if (node is null) return [];
+        if (node is not TomlArray outer) { Error(key, $"expected a list of lists of part names, found {node.Describe()}"); return []; }
+        var groups = new List<IReadOnlyList<string>>();
+        foreach (var item in outer.Items)
+        {
+            if (item is TomlArray inner && inner.Items.All(i => i is TomlScalar { Value: string }))
+                groups.Add(inner.Items.Select(i => (string)((TomlScalar)i).Value).ToList());
+            else Errors.Add(FileName, item.Line, KeyPath(key), $"expected a list of part names such as [\"a\", \"b\"], found {item.Describe()}");
+        }
+        return groups;
+    }
+
     public long? OptionalInteger(string key, long min, long max)
     {
         var node = Get(key);
@@ -171,6 +187,13 @@ public sealed class TomlSection
             else Errors.Add(FileName, array.Items[i].Line, $"{KeyPath(key)}[{i + 1}]", $"expected a table, found {array.Items[i].Describe()}");
         }
         return sections;
+    }
+
+    /// <summary>The keys written in this table, in order (all counted as known).</summary>
+    public IReadOnlyList<string> KeysWritten()
+    {
+        foreach (var key in table.Entries.Keys) known.Add(key);
+        return table.Entries.Keys.ToList();
     }
 
     /// <summary>Every key written in this table but never asked for is an error, with the nearest known key.</summary>

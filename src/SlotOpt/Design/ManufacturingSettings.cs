@@ -1,0 +1,11 @@
+namespace SlotOpt.Design;
+
+/// <summary>Shop-wide cost settings and the cutting processes available to the parts.</summary>
+public sealed record ManufacturingSettings(
+    IReadOnlyDictionary<string, CuttingProcess> Processes,
+    double ScrapFraction,
+    double StackingCostPerSheet)
+{
+    /// <summary>Defaults: 10 % scrap (common practice, no source), 0.003 per sheet stacked (invented demo price).</summary>
+    public static ManufacturingSettings Default => new(CuttingProcessLibrary.BuiltIn, 0.10, 0.003);
+}

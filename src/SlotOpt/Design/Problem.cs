@@ -1,0 +1,15 @@
+using SlotOpt.Materials;
+
+namespace SlotOpt.Design;
+
+/// <summary>A validated problem: the product's parts, their choice spaces, the shared limits and the economics, in SI units.</summary>
+public sealed record Problem(
+    string Name,
+    string SourcePath,
+    DesignGoal Goal,
+    Economics Economics,
+    SharedLimits Limits,
+    ManufacturingSettings Shop,
+    MaterialLibrary Library,
+    IReadOnlyList<Part> Parts,
+    IReadOnlyList<string> Warnings);
