@@ -2,8 +2,8 @@ namespace SlotOpt.Sheets;
 
 /// <summary>
 /// Multigrid V-cycle preconditioner for the sheet operator. Coarse lattices keep every other node
-/// in x and y (plus the last one); the prolongation P is bilinear in lattice index, except that a
-/// merged region (a hole, a slot, a cut) is carried to every coarser level as one unknown by
+/// in x and y (plus the last one); the prolongation P is operator-dependent (see
+/// <see cref="MultigridInterpolation"/>), except that a merged region (a hole, a slot, a cut) is carried to every coarser level as one unknown by
 /// injection, and any coarse node lying in such a region maps to it; nodes fixed at psi = 0 drop
 /// out. Coarse operators are Galerkin products A_c = P^T A P, so slots and holes survive
 /// coarsening and the V-cycle stays symmetric positive definite (W. L. Briggs, V. E. Henson,
@@ -126,50 +126,40 @@ public sealed class MultigridHierarchy : IPreconditioner
         var isMerged = new bool[next];
         for (int u = 0; u < mergedCount; u++) isMerged[u] = true;
 
-        // P rows: merged -> injection; plain node -> bilinear over the surrounding coarse nodes
         var plainNode = new int[f.Unknowns];
         for (int node = 0; node < f.NodeUnknown.Length; node++)
         {
             int u = f.NodeUnknown[node];
             if (u >= 0 && !f.IsMerged[u]) plainNode[u] = node;
         }
+        var ctx = new MultigridInterpolation(f, wx, wy, coarseNodeUnknown, ncx, mergedToCoarse, plainNode);
+        // stage 1: merged regions, coarse-coincident nodes and edge nodes (at most 2 entries each)
+        var firstCol = new int[2 * f.Unknowns];
+        var firstVal = new double[2 * f.Unknowns];
+        var firstCount = new byte[f.Unknowns];
+        for (int u = 0; u < f.Unknowns; u++)
+            if (!ctx.IsCentre(u)) firstCount[u] = (byte)ctx.FirstStage(u, firstCol.AsSpan(2 * u, 2), firstVal.AsSpan(2 * u, 2));
+        // stage 2: cell-centre nodes from their neighbours' rows; then write P
         var rowStart = new int[f.Unknowns + 1];
-        var col = new int[4 * f.Unknowns];
-        var val = new double[4 * f.Unknowns];
-        int write = 0;
-        Span<int> bc = stackalloc int[4];
-        Span<double> bw = stackalloc double[4];
+        var col = new List<int>(3 * f.Unknowns);
+        var val = new List<double>(3 * f.Unknowns);
+        Span<int> bc = stackalloc int[MultigridInterpolation.MaxEntries];
+        Span<double> bw = stackalloc double[MultigridInterpolation.MaxEntries];
         for (int u = 0; u < f.Unknowns; u++)
         {
-            if (f.IsMerged[u])
+            int count;
+            if (!ctx.IsCentre(u))
             {
-                col[write] = mergedToCoarse[u]; val[write] = 1; write++;
-                rowStart[u + 1] = write;
-                continue;
+                count = firstCount[u];
+                for (int q = 0; q < count; q++) { bc[q] = firstCol[2 * u + q]; bw[q] = firstVal[2 * u + q]; }
             }
-            int node = plainNode[u];
-            int i = node % f.NodesX, j = node / f.NodesX;
-            int count = 0;
-            foreach (var (I, wI) in wx[i])
-                foreach (var (J, wJ) in wy[j])
-                {
-                    int c = coarseNodeUnknown[J * ncx + I];
-                    if (c < 0) continue;
-                    double w = wI * wJ;
-                    int hit = -1;
-                    for (int q = 0; q < count; q++) if (bc[q] == c) hit = q;
-                    if (hit >= 0) bw[hit] += w;
-                    else { bc[count] = c; bw[count] = w; count++; }
-                }
-            // sort the (at most 4) entries by column
+            else count = ctx.Centre(u, firstCol, firstVal, firstCount, bc, bw);
             for (int a = 1; a < count; a++)
                 for (int b = a; b > 0 && bc[b - 1] > bc[b]; b--) { (bc[b - 1], bc[b]) = (bc[b], bc[b - 1]); (bw[b - 1], bw[b]) = (bw[b], bw[b - 1]); }
-            for (int q = 0; q < count; q++) { col[write] = bc[q]; val[write] = bw[q]; write++; }
-            rowStart[u + 1] = write;
+            for (int q = 0; q < count; q++) if (bw[q] != 0) { col.Add(bc[q]); val.Add(bw[q]); }
+            rowStart[u + 1] = col.Count;
         }
-        Array.Resize(ref col, write);
-        Array.Resize(ref val, write);
-        var p = new CsrMatrix(f.Unknowns, next, rowStart, col, val);
+        var p = new CsrMatrix(f.Unknowns, next, rowStart, col.ToArray(), val.ToArray());
         var r = p.Transpose();
         var ac = CsrMatrix.Multiply(r, CsrMatrix.Multiply(f.A, p));
         return new MultigridLevel { A = ac, NodesX = ncx, NodesY = ncy, NodeUnknown = coarseNodeUnknown, IsMerged = isMerged, P = p, R = r };

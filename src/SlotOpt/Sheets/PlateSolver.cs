@@ -20,8 +20,20 @@ public static class PlateSolver
         var psiRe = new double[model.Unknowns];
         var psiIm = new double[model.Unknowns];
         solution = null;
-        if (!model.TrySolve(bRe, psiRe, criterion, out var r1)) { failure = Describe(r1); return false; }
-        if (!model.TrySolve(bIm, psiIm, criterion, out var r2)) { failure = Describe(r2); return false; }
+        SolveReport r1, r2;
+        if (UniformPhase(bRe, bIm, out bool baseIsRe, out double ratio))
+        {
+            // one real solve: the other part is ratio times it (the operator is real)
+            var (b, psi, other) = baseIsRe ? (bRe, psiRe, psiIm) : (bIm, psiIm, psiRe);
+            if (!model.TrySolve(b, psi, criterion, out r1)) { failure = Describe(r1); return false; }
+            for (int i = 0; i < psi.Length; i++) other[i] = ratio * psi[i];
+            r2 = new SolveReport(true, 0, r1.RelativeResidual, "scaled from the other part");
+        }
+        else
+        {
+            if (!model.TrySolve(bRe, psiRe, criterion, out r1)) { failure = Describe(r1); return false; }
+            if (!model.TrySolve(bIm, psiIm, criterion, out r2)) { failure = Describe(r2); return false; }
+        }
         double loss = 0.5 * (model.LossPerSiemens(psiRe) + model.LossPerSiemens(psiIm));   // time average of |K̂|^2/G over a cycle
         if (!double.IsFinite(loss)) { failure = "the loss is not finite"; return false; }
         var notes = new List<string>();
@@ -82,6 +94,19 @@ public static class PlateSolver
 
     public static MovingSweepSolution SolveMoving(SheetModel model, MovingPoles source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion = null) =>
         TrySolveMoving(model, source, offsetsXM, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+
+    /// <summary>True when one part is a scalar multiple of the other to rounding (a source of uniform phase): other = ratio * base.</summary>
+    private static bool UniformPhase(double[] re, double[] im, out bool baseIsRe, out double ratio)
+    {
+        double rr = ConjugateGradient.Dot(re, re), ii = ConjugateGradient.Dot(im, im);
+        baseIsRe = rr >= ii;
+        var (b, o) = baseIsRe ? (re, im) : (im, re);
+        double bb = Math.Max(rr, ii);
+        ratio = bb > 0 ? ConjugateGradient.Dot(b, o) / bb : 0;
+        double misfit = 0;
+        for (int i = 0; i < b.Length; i++) { double d = o[i] - ratio * b[i]; misfit += d * d; }
+        return misfit <= 1e-24 * bb;
+    }
 
     private static string Describe(SolveReport r) => $"sheet solver: {r.Reason} (relative residual {r.RelativeResidual:E2} after {r.Iterations} iterations)";
 }
