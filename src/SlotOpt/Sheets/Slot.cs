@@ -1,0 +1,23 @@
+namespace SlotOpt.Sheets;
+
+/// <summary>
+/// A straight through-slot of a given width around its centre line (metres). The centre line is
+/// also a zero-width cut, so a slot narrower than a grid cell still breaks the current path
+/// (see <see cref="CutLine"/>); the slot's area is removed from the cells it covers.
+/// </summary>
+public sealed record Slot(Vec2 Start, Vec2 End, double WidthM)
+{
+    public double LengthM => (End - Start).Length;
+
+    public Polygon ToPolygon()
+    {
+        var d = End - Start;
+        double len = d.Length;
+        if (!(len > 0)) throw new InputException("a slot needs a positive length");
+        if (!(WidthM > 0)) throw new InputException($"a slot needs a positive width (got {WidthM} m)");
+        var n = new Vec2(-d.Y / len * WidthM / 2, d.X / len * WidthM / 2);
+        return new Polygon(new[] { Start - n, End - n, End + n, Start + n });
+    }
+
+    public CutLine CentreLine => new(Start, End);
+}
