@@ -11,7 +11,7 @@ public static class CommandRunner
         }
         catch (InputException e)
         {
-            Console.Error.WriteLine($"error: {e.Message}");
+            foreach (var line in e.Message.Split(Environment.NewLine)) Console.Error.WriteLine($"error: {line}");
             return ExitCodes.InvalidInput;
         }
         catch (NumericalFailureException e)

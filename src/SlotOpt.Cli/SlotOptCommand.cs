@@ -11,6 +11,8 @@ public static class SlotOptCommand
         root.Subcommands.Add(MaterialsCommand.Build());
         root.Subcommands.Add(CoreLossCommand.Build());
         root.Subcommands.Add(FitCommand.Build());
+        root.Subcommands.Add(CheckCommand.Build());
+        root.Subcommands.Add(EvaluateCommand.Build());
         return root;
     }
 }

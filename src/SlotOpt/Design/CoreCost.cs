@@ -21,6 +21,6 @@ public static class CoreCost
         // cutting: per sheet a fixed handling price plus the cut length at a price per metre and per mm of thickness
         var cutting = sheets * (process.CostPerSheet + part.CutLengthPerSheetM * process.CostPerMetrePerMmThickness * steel.ThicknessM * 1e3);
         var stacking = sheets * shop.StackingCostPerSheet;
-        return new Breakdown(mass, sheets, material, cutting, stacking, process.SetupCost);
+        return new Breakdown(mass, sheets, material, cutting, stacking, shop.SetupPerUnit(process));
     }
 }

@@ -4,7 +4,8 @@ using SlotOpt.Problems.Toml;
 namespace SlotOpt.Problems;
 
 /// <summary>
-/// Reads [manufacturing]: scrap fraction, stacking cost per sheet, and [manufacturing.processes.NAME]
+/// Reads [manufacturing]: scrap fraction, stacking cost per sheet, quantity built (set-up costs are
+/// shared by that many units), and [manufacturing.processes.NAME]
 /// tables that override any field of a built-in cutting process or add a new one.
 /// </summary>
 public static class ManufacturingReader
@@ -19,6 +20,7 @@ public static class ManufacturingReader
         if (scrap is < 0 or >= 1) section.Error("scrap_fraction", $"must lie in [0, 1), got {scrap}");
         var stacking = section.OptionalNumber("stacking_cost_per_sheet") ?? defaults.StackingCostPerSheet;
         if (stacking < 0) section.Error("stacking_cost_per_sheet", "must be zero or positive");
+        var quantity = section.OptionalInteger("quantity", 1, 100_000_000) ?? defaults.Quantity;
         var processes = new Dictionary<string, CuttingProcess>(defaults.Processes, StringComparer.Ordinal);
         var table = section.OptionalTable("processes");
         if (table is not null)
@@ -47,7 +49,7 @@ public static class ManufacturingReader
             }
         }
         section.RejectUnknownKeys();
-        return new ManufacturingSettings(processes, scrap, stacking);
+        return new ManufacturingSettings(processes, scrap, stacking, (int)quantity);
     }
 
     private static double? NonNegative(TomlSection section, string key)

@@ -50,6 +50,7 @@ public static class ProblemReader
             Part? part = kind switch
             {
                 "core" => CorePartReader.Read(section, library, shop, baseDirectory),
+                "plate" => PlatePartReader.Read(section, library, shop, baseDirectory),
                 null => null,
                 _ => Unknown(section, kind),
             };

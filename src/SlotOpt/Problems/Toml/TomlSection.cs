@@ -128,6 +128,24 @@ public sealed class TomlSection
         return groups;
     }
 
+    /// <summary>A list of [x, y] points, each coordinate a length ("120 mm" or metres).</summary>
+    public IReadOnlyList<(double X, double Y)>? PointList(string key)
+    {
+        var node = Get(key);
+        if (node is null) return null;
+        if (node is not TomlArray outer || outer.Items.Count < 3) { Error(key, "expected at least three [x, y] points"); return null; }
+        var points = new List<(double, double)>();
+        foreach (var item in outer.Items)
+        {
+            if (item is TomlArray { Items.Count: 2 } pair
+                && ReadQuantity(pair.Items[0], key, QuantityKind.Length) is { } x
+                && ReadQuantity(pair.Items[1], key, QuantityKind.Length) is { } y)
+                points.Add((x, y));
+            else { Errors.Add(FileName, item.Line, KeyPath(key), "each point must be [x, y] with lengths such as [\"0 mm\", \"120 mm\"]"); return null; }
+        }
+        return points;
+    }
+
     public long? OptionalInteger(string key, long min, long max)
     {
         var node = Get(key);

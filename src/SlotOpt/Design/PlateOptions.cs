@@ -1,0 +1,147 @@
+using System.Globalization;
+using SlotOpt.Materials;
+using SlotOpt.Sheets;
+
+namespace SlotOpt.Design;
+
+/// <summary>
+/// Enumerates and evaluates every option of a plate part. The thin-plate solve is resistance-limited,
+/// so loss and drag scale with the sheet conductance sigma t: one solve per slot geometry serves every
+/// thickness and material (Sheets/UnitConductanceSolution), and only the rules and the cost differ.
+/// </summary>
+public static class PlateOptions
+{
+    /// <summary>One solved slot geometry at unit sheet conductance.</summary>
+    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, string? Failure);
+
+    public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null)
+    {
+        var geometries = SlotChoices(part).ToList();
+        var solvedGeometries = new SolvedGeometry[geometries.Count];
+        Parallel.For(0, geometries.Count, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, i =>
+        {
+            solvedGeometries[i] = Solve(part, geometries[i]);
+            solved?.Report(1);
+        });
+        var options = new List<EvaluatedOption>();
+        for (var g = 0; g < geometries.Count; g++)
+        {
+            var solvedGeometry = solvedGeometries[g];
+            var processes = geometries[g] is null ? part.Processes : part.SlotFamilies.First(f => Belongs(f, geometries[g]!)).Processes;
+            foreach (var thickness in part.ThicknessesM)
+            foreach (var materialName in part.Materials)
+            foreach (var processName in processes)
+                options.Add(Scale(part, solvedGeometry, thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop));
+        }
+        return options;
+    }
+
+    /// <summary>The solid plate (null) and every distinct slot choice of every family, in file order.</summary>
+    public static IEnumerable<SlotChoice?> SlotChoices(PlatePart part)
+    {
+        yield return null;
+        var seen = new HashSet<SlotChoice>();
+        foreach (var family in part.SlotFamilies)
+        foreach (var pitch in family.PitchesM)
+        foreach (var depth in family.DepthsM)
+        foreach (var width in family.WidthsM)
+        {
+            var choice = new SlotChoice(family.Pattern, family.Edge, pitch, depth, width, family.RemainingThicknessFraction);
+            if (seen.Add(choice)) yield return choice;
+        }
+    }
+
+    /// <summary>Solves one slot geometry at unit sheet conductance; a pattern that does not fit is a failure in words.</summary>
+    public static SolvedGeometry Solve(PlatePart part, SlotChoice? slots)
+    {
+        PlateGeometry geometry;
+        SlotPattern? pattern;
+        try { (geometry, pattern) = PlateGeometryFactory.Build(part.Outline, slots); }
+        catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, e.Message); }
+        var model = SheetModel.Build(geometry, new GridOptions { CellSizeM = part.CellSizeM });
+        var excitation = part.Excitation;
+        if (excitation.Moving is { } poles)
+        {
+            var sweep = PlateSolver.SolveMoving(model, poles, excitation.OffsetsFor(slots, part.Outline, part.SlotFamilies));
+            return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
+        }
+        var ac = PlateSolver.SolveAc(model, excitation.Ac!);
+        return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
+    }
+
+    /// <summary>Evaluates one fixed design of the plate (which need not lie in the part's slot families).</summary>
+    public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop) =>
+        Scale(part, Solve(part, choice.Slots), choice.ThicknessM, library.GetConductor(choice.Material, part.Name), shop.Processes[choice.Process], shop);
+
+    /// <summary>Scales a unit-conductance solve to one thickness and material and prices it with one process.</summary>
+    public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Materials.Conductor material, CuttingProcess process, ManufacturingSettings shop)
+    {
+        var ci = CultureInfo.InvariantCulture;
+        var slots = solved.Slots;
+        var slotText = slots is null ? "solid" : Describe(slots);
+        var id = string.Create(ci, $"{part.Name}/{material.Name}/{thicknessM * 1e3:0.###}mm/{slotText}/{process.Name}");
+        var description = string.Create(ci, $"{material.Name} {thicknessM * 1e3:0.###} mm, {slotText}, {process.Name}");
+        var attributes = new Dictionary<string, string>
+        {
+            ["material"] = material.Name,
+            ["thickness_mm"] = (thicknessM * 1e3).ToString("0.###", ci),
+            ["process"] = process.Name,
+            ["slots"] = slotText,
+        };
+        if (slots is not null)
+        {
+            attributes["pattern"] = slots.Pattern.ToString();
+            attributes["edge"] = slots.Edge.ToString();
+            attributes["pitch_mm"] = (slots.PitchM * 1e3).ToString("0.###", ci);
+            attributes["depth_mm"] = (slots.DepthM * 1e3).ToString("0.###", ci);
+            attributes["width_mm"] = (slots.WidthM * 1e3).ToString("0.###", ci);
+        }
+        if (solved.Failure is not null)
+            return new EvaluatedOption(part.Name, id, description, attributes, 0, LossBreakdown.Zero, null, [], solved.Failure);
+
+        var slotCount = solved.Pattern is null ? 0 : solved.Pattern.Slots.Count + solved.Pattern.Grooves.Count;
+        attributes["slot_count"] = slotCount.ToString(ci);
+        var slotCut = solved.Pattern is null ? 0 : solved.Pattern.Slots.Sum(s => PlateCost.SlotCutLength(s.LengthM, s.WidthM, process))
+            + solved.Pattern.Grooves.Sum(g => PlateCost.Perimeter(g.Area));
+        var cost = PlateCost.Of(part.Outline, thicknessM, material, process, slotCut, slotCount, shop);
+
+        var sigma = material.ConductivityAt(part.TemperatureK);
+        var sheet = new Sheets.Conductor(sigma, thicknessM, material.RelativePermeability);
+        var lossW = solved.LossPerSiemensW * sheet.SheetConductanceS;
+        var moving = part.Excitation.IsMoving;
+        double? drag = moving ? lossW / part.Excitation.SpeedMPerS : null;
+        var loss = new LossBreakdown(0, 0, 0, lossW, moving ? lossW : 0);
+        var validity = moving
+            ? Validity.ForMoving(sheet, part.Excitation.SpeedMPerS)
+            : Validity.ForAc(sheet, part.Excitation.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
+        var flags = validity.Warnings.ToList();
+        if (material.IsMagnetic) flags.Add($"{material.Name} is magnetic: the thin-plate model assumes a non-magnetic plate, so its loss here is indicative only");
+        if (material.IsExtrapolatedAt(part.TemperatureK)) flags.Add($"{material.Name}: resistivity at {part.TemperatureK:0} K extrapolates the linear coefficient");
+        attributes["reynolds_number"] = validity.ReynoldsNumber.ToString("0.###", ci);
+
+        string? rejection = null;
+        if (slots is not null)
+            rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, moving ? null : part.Excitation.FrequencyHz);
+        if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
+            rejection = string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N");
+        if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
+            rejection = string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W");
+        return new EvaluatedOption(part.Name, id, description, attributes, cost.Total, loss, drag, flags, rejection);
+    }
+
+    public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,
+        $"{PatternWord(s.Pattern)} from {s.Edge.ToString().ToLowerInvariant()}, pitch {s.PitchM * 1e3:0.###} mm, depth {s.DepthM * 1e3:0.###} mm, width {s.WidthM * 1e3:0.###} mm{(s.Pattern == SlotPatternKind.Grooves ? $", {s.RemainingThicknessFraction:0.##} of thickness left" : "")}");
+
+    public static string PatternWord(SlotPatternKind kind) => kind switch
+    {
+        SlotPatternKind.Comb => "comb",
+        SlotPatternKind.Alternating => "alternating",
+        SlotPatternKind.EnclosedSlits => "enclosed slits",
+        SlotPatternKind.Grooves => "grooves",
+        _ => kind.ToString(),
+    };
+
+    private static bool Belongs(SlotFamily family, SlotChoice choice) =>
+        family.Pattern == choice.Pattern && family.Edge == choice.Edge && family.PitchesM.Contains(choice.PitchM)
+        && family.DepthsM.Contains(choice.DepthM) && family.WidthsM.Contains(choice.WidthM);
+}
