@@ -41,7 +41,7 @@ public static class CoreOptions
             ["steel_mass_kg"] = cost.SteelMassKg.ToString("0.###", CultureInfo.InvariantCulture),
         };
         var description = string.Create(CultureInfo.InvariantCulture, $"{steel.Grade} at {steel.ThicknessM * 1e3:0.00} mm, {cost.Sheets} sheets ({cost.SteelMassKg:0.##} kg), {process.Name}");
-        return new EvaluatedOption(part.Name, $"{part.Name}/{steel.Grade}/{process.Name}", description, attributes, cost.Total, loss, null,
+        return new EvaluatedOption(part.Name, $"{part.Name}/{steel.Grade}/{process.Name}", new CoreChoice(steel.Grade, process.Name), description, attributes, cost.Total, loss, null,
             specific.Flags.Select(f => $"{f.Code}: {f.Message}").ToList(), rejection);
     }
 }

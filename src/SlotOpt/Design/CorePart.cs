@@ -21,4 +21,4 @@ public sealed record CorePart(
     CoreChoice? Current) : Part(Name, Line, TemperatureK, MaxLossW);
 
 /// <summary>One fixed design of a core part: the grade and the process.</summary>
-public sealed record CoreChoice(string Grade, string Process);
+public sealed record CoreChoice(string Grade, string Process) : DesignChoice;

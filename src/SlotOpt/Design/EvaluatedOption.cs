@@ -7,6 +7,7 @@ namespace SlotOpt.Design;
 public sealed record EvaluatedOption(
     string PartName,
     string Id,
+    DesignChoice Choice,
     string Description,
     IReadOnlyDictionary<string, string> Attributes,
     double BuildCost,

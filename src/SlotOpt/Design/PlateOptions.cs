@@ -81,6 +81,7 @@ public static class PlateOptions
         var slotText = slots is null ? "solid" : Describe(slots);
         var id = string.Create(ci, $"{part.Name}/{material.Name}/{thicknessM * 1e3:0.###}mm/{slotText}/{process.Name}");
         var description = string.Create(ci, $"{material.Name} {thicknessM * 1e3:0.###} mm, {slotText}, {process.Name}");
+        var choice = new PlateChoice(thicknessM, material.Name, process.Name, slots);
         var attributes = new Dictionary<string, string>
         {
             ["material"] = material.Name,
@@ -97,7 +98,7 @@ public static class PlateOptions
             attributes["width_mm"] = (slots.WidthM * 1e3).ToString("0.###", ci);
         }
         if (solved.Failure is not null)
-            return new EvaluatedOption(part.Name, id, description, attributes, 0, LossBreakdown.Zero, null, [], solved.Failure);
+            return new EvaluatedOption(part.Name, id, choice, description, attributes, 0, LossBreakdown.Zero, null, [], solved.Failure);
 
         var slotCount = solved.Pattern is null ? 0 : solved.Pattern.Slots.Count + solved.Pattern.Grooves.Count;
         attributes["slot_count"] = slotCount.ToString(ci);
@@ -126,7 +127,7 @@ public static class PlateOptions
             rejection = string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N");
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W");
-        return new EvaluatedOption(part.Name, id, description, attributes, cost.Total, loss, drag, flags, rejection);
+        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection);
     }
 
     public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,

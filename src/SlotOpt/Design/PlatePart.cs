@@ -27,4 +27,4 @@ public sealed record PlatePart(
 }
 
 /// <summary>One fixed design of a plate: thickness, material, process, and its slots (null for a solid plate).</summary>
-public sealed record PlateChoice(double ThicknessM, string Material, string Process, SlotChoice? Slots);
+public sealed record PlateChoice(double ThicknessM, string Material, string Process, SlotChoice? Slots) : DesignChoice;
