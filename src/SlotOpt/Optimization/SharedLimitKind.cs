@@ -1,0 +1,10 @@
+namespace SlotOpt.Optimization;
+
+/// <summary>The shared limits an infeasibility diagnosis relaxes one at a time.</summary>
+public enum SharedLimitKind
+{
+    Budget,
+    TotalLossCap,
+    CoilGroup,
+    MaxDistinctProcesses,
+}
