@@ -13,6 +13,7 @@ public static class SlotOptCommand
         root.Subcommands.Add(FitCommand.Build());
         root.Subcommands.Add(CheckCommand.Build());
         root.Subcommands.Add(EvaluateCommand.Build());
+        root.Subcommands.Add(RunCommand.Build());
         return root;
     }
 }

@@ -1,0 +1,62 @@
+using System.Globalization;
+using SlotOpt.Optimization;
+
+namespace SlotOpt.Cli;
+
+/// <summary>The console form of a run: chosen design per part against the reference, totals, savings, limits, front.</summary>
+public static class RunText
+{
+    public static void Write(RunResult r, TextWriter o)
+    {
+        var ci = CultureInfo.InvariantCulture;
+        var economics = r.Problem.Economics;
+        var cur = economics.Currency;
+        o.WriteLine(r.Problem.Name);
+        o.WriteLine(string.Create(ci, $"  {r.Parts.Sum(p => p.Options.Count)} options evaluated ({r.Parts.Sum(p => p.Feasible.Count)} within the rules), {r.SheetSolves} plate solves in {r.EvaluationSeconds:0.0} s; CP-SAT {r.Outcome.Effort.SolverCalls} calls, {r.Outcome.Effort.WallSeconds:0.00} s"));
+        foreach (var p in r.Parts)
+            foreach (var (rule, count) in p.RejectionCounts)
+                o.WriteLine($"  {p.Part.Name}: {count} options dropped: {rule}");
+        if (r.Chosen is null)
+        {
+            o.WriteLine(r.Outcome.Status == SelectionStatus.Infeasible
+                ? "  No design meets every limit."
+                : "  The search ran out of its time budget before finding a design that meets every limit.");
+            foreach (var line in r.Outcome.Diagnosis?.Explain() ?? []) o.WriteLine($"  - {line}");
+            return;
+        }
+        if (r.Outcome.Status == SelectionStatus.FeasibleAtLimit)
+            o.WriteLine("  Note: the search hit its time budget; the design below meets every limit but is not proven best.");
+        o.WriteLine();
+        for (var i = 0; i < r.Chosen.Count; i++)
+        {
+            var chosen = r.Chosen[i];
+            var reference = r.Parts[i].Reference;
+            o.WriteLine($"  {chosen.PartName}");
+            o.WriteLine(string.Create(ci, $"    chosen:  {chosen.Description}"));
+            o.WriteLine(string.Create(ci, $"             loss {chosen.Loss.TotalW:0.###} W{Drag(chosen.DragN)}, build cost {chosen.BuildCost:0.00} {cur}"));
+            o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
+            o.WriteLine(string.Create(ci, $"             loss {reference.Loss.TotalW:0.###} W{Drag(reference.DragN)}, build cost {reference.BuildCost:0.00} {cur}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})")}"));
+            foreach (var flag in chosen.Flags) o.WriteLine($"    warning: {flag}");
+        }
+        o.WriteLine();
+        var vpw = economics.ValuePerWatt;
+        o.WriteLine(string.Create(ci, $"  total:     loss {r.TotalLossW:0.###} W, build cost {r.TotalBuildCost:0.00} {cur}, owning cost {r.OwningCost:0.00} {cur} (loss at {vpw:0.###} {cur}/W)"));
+        var refBase = r.Reference;
+        o.WriteLine(string.Create(ci, $"  {refBase.Name}: loss {refBase.LossW:0.###} W, build cost {refBase.BuildCost:0.00} {cur}, owning cost {refBase.OwningCost(vpw):0.00} {cur}"));
+        var savedW = refBase.LossW - r.TotalLossW;
+        var savedOwning = refBase.OwningCost(vpw) - r.OwningCost;
+        o.WriteLine(string.Create(ci, $"  saves {savedW:0.###} W{(economics.YearlyCostPerWatt is { } perYear ? $" = {savedW * perYear:0.00} {cur} a year" : "")} and {savedOwning:0.00} {cur} of owning cost over the life"));
+        if (r.Outcome.Front is { } front)
+        {
+            o.WriteLine();
+            o.WriteLine($"  trade-off curve ({front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? "" : ", not all proven")}):");
+            o.WriteLine($"    {"build cost",12} {"loss W",12} {"owning cost",12}");
+            foreach (var p in front.Points)
+                o.WriteLine(string.Create(ci, $"    {p.BuildCost,12:0.00} {p.LossW,12:0.###} {p.BuildCost + vpw * p.LossW,12:0.00}"));
+        }
+        o.WriteLine();
+        o.WriteLine("  These are engineering estimates to be confirmed by test; see the report's cautions.");
+    }
+
+    private static string Drag(double? dragN) => dragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "";
+}
