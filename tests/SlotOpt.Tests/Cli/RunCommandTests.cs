@@ -1,0 +1,47 @@
+using System.Text.Json;
+
+namespace SlotOpt.Tests.Cli;
+
+public class RunCommandTests
+{
+    private static string Demo(string name) => Path.Combine(AppContext.BaseDirectory, "problems", name);
+
+    // Issue 5: `run --json` prints one object with parts, total_loss_w, total_cost, owning_cost and the
+    // front as {cost, loss_w}; the totals are the sums of the parts and owning = cost + value x loss.
+    [Fact]
+    public void Run_json_has_the_promised_keys_and_consistent_totals()
+    {
+        var run = SlotOptProcess.Run("run", Demo("tie-plate-50hz.toml"), "--json");
+        Assert.Equal(0, run.ExitCode);
+        using var doc = JsonDocument.Parse(run.Stdout);
+        var root = doc.RootElement;
+        var parts = root.GetProperty("parts").EnumerateArray().ToList();
+        Assert.Equal(parts.Sum(p => p.GetProperty("loss_w").GetDouble()), root.GetProperty("total_loss_w").GetDouble(), 1e-9);
+        Assert.Equal(parts.Sum(p => p.GetProperty("build_cost").GetDouble()), root.GetProperty("total_cost").GetDouble(), 1e-9);
+        var owning = root.GetProperty("total_cost").GetDouble() + root.GetProperty("value_per_watt").GetDouble() * root.GetProperty("total_loss_w").GetDouble();
+        Assert.Equal(owning, root.GetProperty("owning_cost").GetDouble(), 1e-9);
+        var front = root.GetProperty("front").EnumerateArray().ToList();
+        Assert.NotEmpty(front);
+        for (var i = 1; i < front.Count; i++)
+        {
+            Assert.True(front[i].GetProperty("cost").GetDouble() > front[i - 1].GetProperty("cost").GetDouble());
+            Assert.True(front[i].GetProperty("loss_w").GetDouble() < front[i - 1].GetProperty("loss_w").GetDouble());
+        }
+    }
+
+    [Fact]
+    public void Infeasible_run_exits_3_and_names_the_binding_limit()
+    {
+        var dir = Directory.CreateTempSubdirectory("slotopt-run-").FullName;
+        try
+        {
+            var text = File.ReadAllText(Demo("actuator-product.toml")).Replace("budget = 30 ", "budget = 5 ");
+            File.WriteAllText(Path.Combine(dir, "tight.toml"), text);
+            var run = SlotOptProcess.RunIn(dir, "run", "tight.toml");
+            Assert.Equal(3, run.ExitCode);
+            Assert.Contains("No design meets every limit.", run.Stdout);
+            Assert.Contains("the budget", run.Stdout);
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+}
