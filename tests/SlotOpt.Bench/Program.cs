@@ -10,8 +10,9 @@ public static class Program
         switch (benchCase)
         {
             case "lamination": return LaminationBench.Run(rest);
+            case "demos": return DemoRunBench.Run(rest);
             default:
-                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets)");
+                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, demos)");
                 return 2;
         }
     }
