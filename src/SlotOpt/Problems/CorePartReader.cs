@@ -49,7 +49,7 @@ public static class CorePartReader
                 }
                 catch (InputException e) { s.Error("waveform", e.Message); }
             }
-            else if (flux is { } peak) wave = new SineWaveform(peak, f);
+            else if (flux is { } peak) wave = s.Guard("flux", () => new SineWaveform(peak, f));
             if (f > 20e3) s.Warn("frequency", "above 20 kHz: laminated steel is rarely used there; check the coefficients' range");
         }
         if (wave is not null)

@@ -58,12 +58,11 @@ public static class PlatePartReader
         {
             var points = s.PointList("outline");
             if (points is null) return null;
-            try { return new Polygon(points.Select(p => new Vec2(p.X, p.Y))); }
-            catch (InputException e) { s.Error("outline", e.Message); return null; }
+            return s.Guard("outline", () => new Polygon(points.Select(p => new Vec2(p.X, p.Y))));
         }
         var width = s.PositiveQuantity("width", QuantityKind.Length, required: true);
         var height = s.PositiveQuantity("height", QuantityKind.Length, required: true);
-        return width is { } w && height is { } h ? Polygon.Rectangle(0, 0, w, h) : null;
+        return width is { } w && height is { } h ? s.Guard("width", () => Polygon.Rectangle(0, 0, w, h)) : null;
     }
 
     private static List<string> ReadMaterials(TomlSection s, MaterialLibrary library)

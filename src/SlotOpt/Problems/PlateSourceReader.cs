@@ -35,7 +35,8 @@ public static class PlateSourceReader
         var frequency = s.PositiveQuantity("frequency", QuantityKind.Frequency, required: true);
         var phaseDeg = s.OptionalNumber("phase_deg") ?? 0;
         if (peak is null || frequency is null || peak < 0) return null;
-        return PlateExcitation.AcField(new UniformAcField(peak.Value, frequency.Value, phaseDeg * Math.PI / 180), frequency.Value);
+        var field = s.Guard("peak", () => new UniformAcField(peak.Value, frequency.Value, phaseDeg * Math.PI / 180));
+        return field is null ? null : PlateExcitation.AcField(field, frequency.Value);
     }
 
     private static PlateExcitation? FieldMapSource(TomlSection s, string baseDirectory)
@@ -62,13 +63,13 @@ public static class PlateSourceReader
         if (shape == "circle")
         {
             var r = s.PositiveQuantity("radius", QuantityKind.Length, required: true);
-            if (r is { } radius) face = PoleFace.Circle(radius);
+            if (r is { } radius) face = s.Guard("radius", () => PoleFace.Circle(radius));
         }
         else if (shape == "rectangle")
         {
             var w = s.PositiveQuantity("pole_width", QuantityKind.Length, required: true);
             var h = s.PositiveQuantity("pole_height", QuantityKind.Length, required: true);
-            if (w is { } width && h is { } height) face = PoleFace.Rectangle(width, height);
+            if (w is { } width && h is { } height) face = s.Guard("pole_width", () => PoleFace.Rectangle(width, height));
         }
         var flux = s.RequiredQuantity("flux_density", QuantityKind.FluxDensity);
         var speed = s.PositiveQuantity("speed", QuantityKind.Speed, required: true);
@@ -80,14 +81,17 @@ public static class PlateSourceReader
         var averageText = s.OptionalChoice("average", ["slot_pitch", "pass"]) ?? "slot_pitch";
         if (face is null || flux is null || speed is null || outline is null || (count > 1 && pitch is null)) return null;
         if (count > 1 && pitch < 2 * face.HalfWidthXM)
+        {
             s.Error("pole_pitch", "is smaller than the pole: neighbouring poles would overlap");
+            return null;
+        }
 
         var (min, max) = outline.Bounds;
         var rowLength = (count - 1) * (pitch ?? 0);
         var first = new Vec2(x ?? (min.X + max.X) / 2 - rowLength / 2, y ?? (min.Y + max.Y) / 2);
         if (first.Y - face.HalfHeightYM > max.Y || first.Y + face.HalfHeightYM < min.Y)
             s.Error("y", "puts the poles' path entirely off the plate");
-        var poles = MovingPoles.Row(face, first, count, pitch ?? 0, flux.Value, speed.Value);
-        return PlateExcitation.MovingSource(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
+        var poles = s.Guard("pole", () => MovingPoles.Row(face, first, count, pitch ?? 0, flux.Value, speed.Value));
+        return poles is null ? null : PlateExcitation.MovingSource(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
     }
 }

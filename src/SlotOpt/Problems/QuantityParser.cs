@@ -87,7 +87,7 @@ public static partial class QuantityParser
         si = double.NaN;
         var match = NumberThenUnit().Match(text);
         if (!match.Success) return false;
-        if (!double.TryParse(match.Groups[1].Value, NumberStyles.Float, CultureInfo.InvariantCulture, out var value)) return false;
+        if (!double.TryParse(match.Groups[1].Value, NumberStyles.Float, CultureInfo.InvariantCulture, out var value) || !double.IsFinite(value)) return false;
         var unit = NormaliseUnit(match.Groups[2].Value.Trim());
         var culture = CultureInfo.InvariantCulture;
         var joined = value.ToString("R", culture) + " " + unit;

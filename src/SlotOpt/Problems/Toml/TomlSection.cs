@@ -207,6 +207,17 @@ public sealed class TomlSection
         return sections;
     }
 
+    /// <summary>Builds an engine object from values already read; an <see cref="InputException"/> it throws is recorded against the key.</summary>
+    public T? Guard<T>(string key, Func<T> build) where T : class
+    {
+        try { return build(); }
+        catch (InputException e)
+        {
+            foreach (var line in e.Message.Split(Environment.NewLine)) Error(key, line);
+            return null;
+        }
+    }
+
     /// <summary>The keys written in this table, in order (all counted as known).</summary>
     public IReadOnlyList<string> KeysWritten()
     {
