@@ -8,6 +8,7 @@ public static class SlotOptCommand
     public static RootCommand Build()
     {
         var root = new RootCommand("SlotOpt: lamination grade and gauge, and slot patterns for solid parts, against eddy-current loss, drag and cost.");
+        root.Subcommands.Add(PlateCommand.Build());
         return root;
     }
 }

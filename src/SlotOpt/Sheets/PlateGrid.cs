@@ -69,7 +69,7 @@ public sealed class PlateGrid
                     k *= m;
                 }
                 double g = ft * k;
-                if (g < VoidThreshold) { if (g > 0) voided++; g = 0; }
+                if (g < VoidThreshold) { if (g > 1e-9) voided++; g = 0; }   // below 1e-9 is rounding of exact coverage
                 conductance[c] = g;
                 areaFraction[c] = g > 0 ? (float)f : 0f;
                 thickness[c] = f > 0 ? (float)Math.Clamp(ft / f, 0, 1) : 1f;

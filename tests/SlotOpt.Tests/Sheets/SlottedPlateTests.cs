@@ -53,7 +53,7 @@ public class SlottedPlateTests
     // (pitch - slot) whose loss per area falls as width^2 (REFERENCES §3: n strips give about 1/n^2 of the
     // loss). Halving the pitch must lower the loss, and every slotted plate loses less than the solid one.
     // Asserted: each halving of the pitch cuts the loss to below 0.6 of the previous (the 1/n^2 law gives
-    // about 0.25-0.3; the uncut 10 % root and the slot tips keep it above that).
+    // about 0.25; measured 0.19 (solid to 0.1 pitch), 0.30, 0.24).
     [Fact]
     public void Slotted_plate_loses_less_and_narrower_pitch_loses_less()
     {
@@ -72,7 +72,7 @@ public class SlottedPlateTests
 
     // Grooves leaving half the thickness: the loss lies strictly between the solid plate and the same
     // pattern cut through (a groove is a slot of conductance factor 0.5 instead of 0), common practice, no source.
-    // Asserted with 1 % margins on both sides (measured solid > grooved 0.87 x solid > slotted).
+    // Asserted with 1 % margins on both sides (measured: grooved 0.88, slotted 0.04 of solid).
     [Fact]
     public void Grooves_fall_between_solid_and_through_slots()
     {
