@@ -16,6 +16,22 @@ public class PlateCommandTests
         finally { Console.SetOut(oldOut); Console.SetError(oldErr); }
     }
 
+    /// <summary>
+    /// The example plate: in the output folder when the test project copies Sheets/Data there, else found
+    /// by walking up from the output folder to the source tree.
+    /// </summary>
+    private static string ExamplePlate()
+    {
+        var copied = Path.Combine(AppContext.BaseDirectory, "Sheets", "Data", "example-plate.toml");
+        if (File.Exists(copied)) return copied;
+        for (var d = new DirectoryInfo(AppContext.BaseDirectory); d is not null; d = d.Parent)
+        {
+            var source = Path.Combine(d.FullName, "tests", "SlotOpt.Tests", "Sheets", "Data", "example-plate.toml");
+            if (File.Exists(source)) return source;
+        }
+        throw new FileNotFoundException("example-plate.toml not found in the output folder or above it");
+    }
+
     private static string TempDir()
     {
         var d = Path.Combine(Path.GetTempPath(), "slotopt-sheets-" + Guid.NewGuid().ToString("N"));
@@ -64,7 +80,7 @@ public class PlateCommandTests
     {
         var dir = TempDir();
         var mapFile = Path.Combine(dir, "map.csv");
-        var example = Path.Combine(AppContext.BaseDirectory, "Sheets", "Data", "example-plate.toml");
+        var example = ExamplePlate();
         var (code, output, error) = Run("plate", example, "--json", "--map", mapFile);
         Assert.True(code == 0, error);
         using var doc = JsonDocument.Parse(output);
