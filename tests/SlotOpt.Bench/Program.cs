@@ -9,6 +9,7 @@ public static class Program
         var rest = args.Skip(1).ToArray();
         switch (benchCase)
         {
+            case "sheets": return SheetsBench.Run(rest);
             default:
                 Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets)");
                 return 2;
