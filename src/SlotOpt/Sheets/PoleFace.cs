@@ -34,8 +34,9 @@ public sealed record RectangularFace : PoleFace
     public override double HalfHeightYM => HeightYM / 2;
     public override double AreaM2 => WidthXM * HeightYM;
 
+    /// <remarks>Half-open in x, [-w/2, w/2): a face edge lying exactly on a dual-cell line then counts once on each side, keeping the width w.</remarks>
     public override double ChordLength(double dx, double dy0, double dy1) =>
-        Math.Abs(dx) > WidthXM / 2 ? 0 : Overlap(-HeightYM / 2, HeightYM / 2, dy0, dy1);
+        dx < -WidthXM / 2 || dx >= WidthXM / 2 ? 0 : Overlap(-HeightYM / 2, HeightYM / 2, dy0, dy1);
 }
 
 /// <summary>A circular pole face of radius RadiusM.</summary>
