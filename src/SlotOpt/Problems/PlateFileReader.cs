@@ -297,7 +297,7 @@ public static class PlateFileReader
             var (min, max) = geometry.Bounds;
             var (rowMin, rowMax) = poles.ExtentX;
             offsets = positions == 1 ? new[] { 0.0 } : MovingSweepSolution.OffsetsAcross(min.X - rowMax, max.X - rowMin, positions);
-            over = $"the pass over the plate ({positions} positions)";
+            over = positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({positions} positions)";
         }
         return (null, poles, offsets, over);
     }
