@@ -29,22 +29,22 @@ public static class SheetsBench
                 Console.WriteLine(JsonSerializer.Serialize(new
                 {
                     n = r.N, unknowns = r.Unknowns, seconds = r.SetupSeconds + r.SolveSeconds, setup_seconds = r.SetupSeconds,
-                    solve_seconds = r.SolveSeconds, iterations = r.Iterations, loss_w = r.LossW, retained_bytes_per_unknown = r.RetainedBytes / (double)r.Unknowns,
+                    solve_seconds = r.SolveSeconds, iterations = r.Iterations, loss_w = r.LossW, retained_bytes_per_unknown = r.RetainedBytes / (double)r.Unknowns, levels = r.Levels,
                     peak_working_set_growth_bytes = r.PeakGrowthBytes,
                 }));
             return 0;
         }
-        Console.WriteLine("| N | unknowns | setup s | solve s | iterations | residual | us per unknown (setup+solve) | retained B/unknown (GC heap) | peak working set growth MB | loss W (G = 1 S) |");
-        Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|");
+        Console.WriteLine("| N | unknowns | levels | setup s | solve s | iterations | residual | us per unknown (setup+solve) | retained B/unknown (GC heap) | of which operator + multigrid | peak working set growth MB | loss W (G = 1 S) |");
+        Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|---|---|");
         foreach (var r in rows)
             Console.WriteLine(string.Create(c,
-                $"| {r.N} | {r.Unknowns} | {r.SetupSeconds:F3} | {r.SolveSeconds:F3} | {r.Iterations} | {r.Residual:E1} | {(r.SetupSeconds + r.SolveSeconds) / r.Unknowns * 1e6:F2} | {r.RetainedBytes / (double)r.Unknowns:F0} | {r.PeakGrowthBytes / 1e6:F0} | {r.LossW:G6} |"));
+                $"| {r.N} | {r.Unknowns} | {r.Levels} | {r.SetupSeconds:F3} | {r.SolveSeconds:F3} | {r.Iterations} | {r.Residual:E1} | {(r.SetupSeconds + r.SolveSeconds) / r.Unknowns * 1e6:F2} | {r.RetainedBytes / (double)r.Unknowns:F0} | {r.OperatorAndMultigridBytes / (double)r.Unknowns:F0} | {r.PeakGrowthBytes / 1e6:F0} | {r.LossW:G6} |"));
         return 0;
     }
 
-    private sealed record Row(int N, int Unknowns, double SetupSeconds, double SolveSeconds, int Iterations, double Residual, long RetainedBytes, long PeakGrowthBytes, double LossW);
+    private sealed record Row(int N, int Unknowns, double SetupSeconds, double SolveSeconds, int Iterations, double Residual, long RetainedBytes, long OperatorAndMultigridBytes, int Levels, long PeakGrowthBytes, double LossW);
 
-    private sealed record Single(int Unknowns, double SetupSeconds, double SolveSeconds, int Iterations, double Residual, long RetainedBytes, double LossW);
+    private sealed record Single(int Unknowns, double SetupSeconds, double SolveSeconds, int Iterations, double Residual, long RetainedBytes, long OperatorAndMultigridBytes, int Levels, double LossW);
 
     /// <summary>One build and solve in its own frame, so nothing of an earlier run stays reachable when the heap is measured.</summary>
     [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.NoInlining)]
@@ -59,7 +59,8 @@ public static class SheetsBench
         double solve = clock.Elapsed.TotalSeconds;
         long retained = GC.GetTotalMemory(true) - before;
         GC.KeepAlive(solution);
-        return new Single(model.Unknowns, setup, solve, solution.Iterations, solution.RelativeResidual, retained, solution.LossW(1));
+        return new Single(model.Unknowns, setup, solve, solution.Iterations, solution.RelativeResidual, retained,
+            model.Operator.Matrix.Bytes + model.Multigrid.Bytes, model.Multigrid.LevelCount, solution.LossW(1));
     }
 
     private static PlateGeometry Plate()
@@ -84,6 +85,6 @@ public static class SheetsBench
             best = run;
         }
         process.Refresh();
-        return new Row(n, best!.Unknowns, bestSetup, bestSolve, best.Iterations, best.Residual, best.RetainedBytes, process.PeakWorkingSet64 - peakBefore, best.LossW);
+        return new Row(n, best!.Unknowns, bestSetup, bestSolve, best.Iterations, best.Residual, best.RetainedBytes, best.OperatorAndMultigridBytes, best.Levels, process.PeakWorkingSet64 - peakBefore, best.LossW);
     }
 }

@@ -63,16 +63,6 @@ public sealed class CsrMatrix
         }
     }
 
-    /// <summary>The diagonal entries (zero where a row has none).</summary>
-    public double[] Diagonal()
-    {
-        var d = new double[Rows];
-        for (int i = 0; i < Rows; i++)
-            for (int k = RowStart[i]; k < RowStart[i + 1]; k++)
-                if (ColumnIndex[k] == i) d[i] = Value[k];
-        return d;
-    }
-
     public CsrMatrix Transpose()
     {
         var count = new int[Columns + 1];
