@@ -88,6 +88,9 @@ public sealed class PlateGrid
         {
             if (!(requested > 0) || !double.IsFinite(requested)) throw new InputException($"the cell size must be a positive length (got {requested} m)");
             cell = requested;
+            double across = geometry.NarrowestFeatureM / cell;
+            if (across < options.MinCellsAcrossNarrowestFeature)
+                notes.Add($"the narrowest strip ({geometry.NarrowestFeatureM * 1e3:G4} mm) gets only {across:F1} cells across (at least {options.MinCellsAcrossNarrowestFeature} recommended): expect a larger grid error there");
             double count = Math.Ceiling(w / cell) * Math.Ceiling(h / cell);
             if (count > options.MaxCells)
                 throw new InputException(
