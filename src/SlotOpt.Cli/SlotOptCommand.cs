@@ -14,6 +14,7 @@ public static class SlotOptCommand
         root.Subcommands.Add(CheckCommand.Build());
         root.Subcommands.Add(EvaluateCommand.Build());
         root.Subcommands.Add(RunCommand.Build());
+        root.Subcommands.Add(PlateCommand.Build());
         return root;
     }
 }

@@ -11,6 +11,7 @@ public static class Program
         {
             case "lamination": return LaminationBench.Run(rest);
             case "demos": return DemoRunBench.Run(rest);
+            case "sheets": return SheetsBench.Run(rest);
             default:
                 Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, demos)");
                 return 2;

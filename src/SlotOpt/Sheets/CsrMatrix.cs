@@ -63,16 +63,6 @@ public sealed class CsrMatrix
         }
     }
 
-    /// <summary>The diagonal entries (zero where a row has none).</summary>
-    public double[] Diagonal()
-    {
-        var d = new double[Rows];
-        for (int i = 0; i < Rows; i++)
-            for (int k = RowStart[i]; k < RowStart[i + 1]; k++)
-                if (ColumnIndex[k] == i) d[i] = Value[k];
-        return d;
-    }
-
     public CsrMatrix Transpose()
     {
         var count = new int[Columns + 1];
@@ -92,48 +82,58 @@ public sealed class CsrMatrix
     }
 
     /// <summary>
-    /// C = A B by Gustavson's row-by-row algorithm with a dense marker (F. G. Gustavson,
-    /// "Two fast algorithms for sparse matrices: multiplication and permuted transposition",
-    /// ACM TOMS 4(3), 1978): a symbolic pass sizes C, a numeric pass fills it.
+    /// Galerkin product C = R A P in one sweep over the rows of R (no stored A P): row I of C is
+    /// sum over i in row I of R of R_Ii (row i of A) P, accumulated row by row with a dense marker
+    /// (F. G. Gustavson, "Two fast algorithms for sparse matrices: multiplication and permuted
+    /// transposition", ACM TOMS 4(3), 1978); a symbolic pass sizes C, a numeric pass fills it.
     /// </summary>
-    public static CsrMatrix Multiply(CsrMatrix a, CsrMatrix b)
+    public static CsrMatrix GalerkinProduct(CsrMatrix r, CsrMatrix a, CsrMatrix p)
     {
-        if (a.Columns != b.Rows) throw new ArgumentException("inner dimensions differ");
-        int n = a.Rows, m = b.Columns;
+        if (r.Columns != a.Rows || a.Columns != p.Rows) throw new ArgumentException("dimensions differ");
+        int n = r.Rows, m = p.Columns;
         var marker = new int[m];
         Array.Fill(marker, -1);
         var rowStart = new int[n + 1];
-        for (int i = 0; i < n; i++)
+        for (int row = 0; row < n; row++)
         {
             int count = 0;
-            for (int ka = a.RowStart[i]; ka < a.RowStart[i + 1]; ka++)
+            for (int kr = r.RowStart[row]; kr < r.RowStart[row + 1]; kr++)
             {
-                int j = a.ColumnIndex[ka];
-                for (int kb = b.RowStart[j]; kb < b.RowStart[j + 1]; kb++)
+                int i = r.ColumnIndex[kr];
+                for (int ka = a.RowStart[i]; ka < a.RowStart[i + 1]; ka++)
                 {
-                    int c = b.ColumnIndex[kb];
-                    if (marker[c] != i) { marker[c] = i; count++; }
+                    int k = a.ColumnIndex[ka];
+                    for (int kp = p.RowStart[k]; kp < p.RowStart[k + 1]; kp++)
+                    {
+                        int c = p.ColumnIndex[kp];
+                        if (marker[c] != row) { marker[c] = row; count++; }
+                    }
                 }
             }
-            rowStart[i + 1] = rowStart[i] + count;
+            rowStart[row + 1] = rowStart[row] + count;
         }
         var ci = new int[rowStart[n]];
         var v = new double[rowStart[n]];
-        var position = marker; // reuse: position of column c in the current row, valid when >= rowStart[i]
+        var position = marker;
         Array.Fill(position, -1);
-        for (int i = 0; i < n; i++)
+        for (int row = 0; row < n; row++)
         {
-            int begin = rowStart[i], end = begin;
-            for (int ka = a.RowStart[i]; ka < a.RowStart[i + 1]; ka++)
+            int begin = rowStart[row], end = begin;
+            for (int kr = r.RowStart[row]; kr < r.RowStart[row + 1]; kr++)
             {
-                int j = a.ColumnIndex[ka];
-                double av = a.Value[ka];
-                for (int kb = b.RowStart[j]; kb < b.RowStart[j + 1]; kb++)
+                int i = r.ColumnIndex[kr];
+                double rv = r.Value[kr];
+                for (int ka = a.RowStart[i]; ka < a.RowStart[i + 1]; ka++)
                 {
-                    int c = b.ColumnIndex[kb];
-                    int p = position[c];
-                    if (p < begin) { p = end++; position[c] = p; ci[p] = c; v[p] = 0; }
-                    v[p] += av * b.Value[kb];
+                    int k = a.ColumnIndex[ka];
+                    double ra = rv * a.Value[ka];
+                    for (int kp = p.RowStart[k]; kp < p.RowStart[k + 1]; kp++)
+                    {
+                        int c = p.ColumnIndex[kp];
+                        int q = position[c];
+                        if (q < begin) { q = end++; position[c] = q; ci[q] = c; v[q] = 0; }
+                        v[q] += ra * p.Value[kp];
+                    }
                 }
             }
             Array.Sort(ci, v, begin, end - begin);

@@ -27,7 +27,6 @@ public sealed class FieldMap : IAcFieldSource
     }
 
     public double FrequencyHz { get; }
-    public (Vec2 Min, Vec2 Max) Bounds => (new Vec2(_x[0], _y[0]), new Vec2(_x[^1], _y[^1]));
 
     /// <summary>Bilinear interpolation; zero outside the map.</summary>
     public Complex At(double x, double y)

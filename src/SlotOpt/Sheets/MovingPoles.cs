@@ -33,11 +33,10 @@ public sealed class MovingPoles
     /// <summary>Extent in x of the row at offset zero.</summary>
     public (double MinXM, double MaxXM) ExtentX => (Poles.Min(p => p.Centre.X - p.Face.HalfWidthXM), Poles.Max(p => p.Centre.X + p.Face.HalfWidthXM));
 
-    /// <summary>Writes the dual-cell integrals of dBz/dt (volts) with the poles displaced by offsetXM; returns false when no pole overlaps the lattice.</summary>
-    public bool Integrate(CellLattice lattice, double offsetXM, double[] node)
+    /// <summary>Writes the dual-cell integrals of dBz/dt (volts) with the poles displaced by offsetXM.</summary>
+    public void Integrate(CellLattice lattice, double offsetXM, double[] node)
     {
         Array.Clear(node);
-        bool any = false;
         double v = SpeedMPerS;
         foreach (var pole in Poles)
         {
@@ -49,17 +48,21 @@ public sealed class MovingPoles
             int j0 = Math.Max(0, (int)Math.Floor((cy - hh - lattice.Y0) / lattice.Hy - 0.5));
             int j1 = Math.Min(lattice.Ny, (int)Math.Ceiling((cy + hh - lattice.Y0) / lattice.Hy + 0.5));
             if (i1 < i0 || j1 < j0) continue;
+            // dual-cell boundary lines, computed once so neighbouring cells share them exactly and the
+            // line sources telescope (a face edge on a boundary line goes wholly to one side)
+            var xs = new double[i1 - i0 + 2];
+            for (int i = i0; i <= i1 + 1; i++) xs[i - i0] = lattice.NodeX(i) - lattice.Hx / 2 - cx;
+            var chord = new double[xs.Length];
             for (int j = j0; j <= j1; j++)
             {
-                double y0 = lattice.NodeY(j) - lattice.Hy / 2 - cy, y1 = y0 + lattice.Hy;
+                double y0 = lattice.NodeY(j) - lattice.Hy / 2 - cy, y1 = lattice.NodeY(j + 1) - lattice.Hy / 2 - cy;
+                for (int k = 0; k < xs.Length; k++) chord[k] = pole.Face.ChordLength(xs[k], y0, y1);
                 for (int i = i0; i <= i1; i++)
                 {
-                    double x0 = lattice.NodeX(i) - lattice.Hx / 2 - cx, x1 = x0 + lattice.Hx;
-                    double s = -v * pole.FluxDensityT * (pole.Face.ChordLength(x1, y0, y1) - pole.Face.ChordLength(x0, y0, y1));
-                    if (s != 0) { node[j * lattice.NodesX + i] += s; any = true; }
+                    double s = -v * pole.FluxDensityT * (chord[i - i0 + 1] - chord[i - i0]);
+                    node[j * lattice.NodesX + i] += s;
                 }
             }
         }
-        return any;
     }
 }

@@ -141,8 +141,8 @@ public sealed class MultigridHierarchy : IPreconditioner
             if (!ctx.IsCentre(u)) firstCount[u] = (byte)ctx.FirstStage(u, firstCol.AsSpan(2 * u, 2), firstVal.AsSpan(2 * u, 2));
         // stage 2: cell-centre nodes from their neighbours' rows; then write P
         var rowStart = new int[f.Unknowns + 1];
-        var col = new List<int>(3 * f.Unknowns);
-        var val = new List<double>(3 * f.Unknowns);
+        var col = new List<int>(f.Unknowns * 9 / 4 + 16);     // bilinear-like rows average 2.25 entries
+        var val = new List<double>(f.Unknowns * 9 / 4 + 16);
         Span<int> bc = stackalloc int[MultigridInterpolation.MaxEntries];
         Span<double> bw = stackalloc double[MultigridInterpolation.MaxEntries];
         for (int u = 0; u < f.Unknowns; u++)
@@ -161,7 +161,7 @@ public sealed class MultigridHierarchy : IPreconditioner
         }
         var p = new CsrMatrix(f.Unknowns, next, rowStart, col.ToArray(), val.ToArray());
         var r = p.Transpose();
-        var ac = CsrMatrix.Multiply(r, CsrMatrix.Multiply(f.A, p));
+        var ac = CsrMatrix.GalerkinProduct(r, f.A, p);
         return new MultigridLevel { A = ac, NodesX = ncx, NodesY = ncy, NodeUnknown = coarseNodeUnknown, IsMerged = isMerged, P = p, R = r };
     }
 

@@ -69,7 +69,7 @@ public sealed class PlateGrid
                     k *= m;
                 }
                 double g = ft * k;
-                if (g < VoidThreshold) { if (g > 0) voided++; g = 0; }
+                if (g < VoidThreshold) { if (g > 1e-9) voided++; g = 0; }   // below 1e-9 is rounding of exact coverage
                 conductance[c] = g;
                 areaFraction[c] = g > 0 ? (float)f : 0f;
                 thickness[c] = f > 0 ? (float)Math.Clamp(ft / f, 0, 1) : 1f;
@@ -88,6 +88,9 @@ public sealed class PlateGrid
         {
             if (!(requested > 0) || !double.IsFinite(requested)) throw new InputException($"the cell size must be a positive length (got {requested} m)");
             cell = requested;
+            double across = geometry.NarrowestFeatureM / cell;
+            if (across < options.MinCellsAcrossNarrowestFeature)
+                notes.Add($"the narrowest strip ({geometry.NarrowestFeatureM * 1e3:G4} mm) gets only {across:F1} cells across (at least {options.MinCellsAcrossNarrowestFeature} recommended): expect a larger grid error there");
             double count = Math.Ceiling(w / cell) * Math.Ceiling(h / cell);
             if (count > options.MaxCells)
                 throw new InputException(

@@ -9,7 +9,6 @@ public abstract record PoleFace
 {
     public abstract double HalfWidthXM { get; }
     public abstract double HalfHeightYM { get; }
-    public abstract double AreaM2 { get; }
     public abstract double ChordLength(double dx, double dy0, double dy1);
 
     public static PoleFace Rectangle(double widthXM, double heightYM) => new RectangularFace(widthXM, heightYM);
@@ -32,10 +31,10 @@ public sealed record RectangularFace : PoleFace
     public double HeightYM { get; }
     public override double HalfWidthXM => WidthXM / 2;
     public override double HalfHeightYM => HeightYM / 2;
-    public override double AreaM2 => WidthXM * HeightYM;
 
+    /// <remarks>Half-open in x, [-w/2, w/2): a face edge lying exactly on a dual-cell line then counts once on each side, keeping the width w.</remarks>
     public override double ChordLength(double dx, double dy0, double dy1) =>
-        Math.Abs(dx) > WidthXM / 2 ? 0 : Overlap(-HeightYM / 2, HeightYM / 2, dy0, dy1);
+        dx < -WidthXM / 2 || dx >= WidthXM / 2 ? 0 : Overlap(-HeightYM / 2, HeightYM / 2, dy0, dy1);
 }
 
 /// <summary>A circular pole face of radius RadiusM.</summary>
@@ -50,7 +49,6 @@ public sealed record CircularFace : PoleFace
     public double RadiusM { get; }
     public override double HalfWidthXM => RadiusM;
     public override double HalfHeightYM => RadiusM;
-    public override double AreaM2 => Math.PI * RadiusM * RadiusM;
 
     public override double ChordLength(double dx, double dy0, double dy1)
     {

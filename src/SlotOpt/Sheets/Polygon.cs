@@ -56,18 +56,6 @@ public sealed class Polygon
     public static Polygon EquilateralTriangle(double x0, double y0, double sideM) =>
         new(new[] { new Vec2(x0, y0), new Vec2(x0 + sideM, y0), new Vec2(x0 + sideM / 2, y0 + sideM * Math.Sqrt(3) / 2) });
 
-    /// <summary>True when p is inside (even-odd rule).</summary>
-    public bool Contains(Vec2 p)
-    {
-        bool inside = false;
-        for (int i = 0, j = Vertices.Count - 1; i < Vertices.Count; j = i++)
-        {
-            var a = Vertices[i]; var b = Vertices[j];
-            if ((a.Y > p.Y) != (b.Y > p.Y) && p.X < (b.X - a.X) * (p.Y - a.Y) / (b.Y - a.Y) + a.X) inside = !inside;
-        }
-        return inside;
-    }
-
     private static double SignedArea(IReadOnlyList<Vec2> v)
     {
         double s = 0;

@@ -1,14 +1,13 @@
 namespace SlotOpt.Sheets;
 
 /// <summary>
-/// A straight through-slot of a given width around its centre line (metres). The centre line is
-/// also a zero-width cut, so a slot narrower than a grid cell still breaks the current path
-/// (see <see cref="CutLine"/>); the slot's area is removed from the cells it covers.
+/// A straight through-slot of a given width around its centre line (metres). Its area is removed
+/// from the cells it covers; when it is narrower than two cells its centre line is also merged as a
+/// zero-width cut (see <see cref="CutLine"/>, <see cref="NodeRegions"/>), so a slot narrower than a
+/// cell still breaks the current path instead of leaving partly filled cells that would bridge it.
 /// </summary>
 public sealed record Slot(Vec2 Start, Vec2 End, double WidthM)
 {
-    public double LengthM => (End - Start).Length;
-
     public Polygon ToPolygon()
     {
         var d = End - Start;

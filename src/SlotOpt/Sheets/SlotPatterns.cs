@@ -13,7 +13,7 @@ public static class SlotPatterns
         var box = Box.Of(outline);
         Check(box, edge, pitchM, depthM, widthM);
         var slots = Positions(box.Along(edge), pitchM, widthM, offsetM).Select(s => box.SlotFrom(edge, s, depthM, widthM)).ToList();
-        return new SlotPattern(slots, Array.Empty<Groove>(), pitchM - widthM, box.Across(edge) - depthM);
+        return new SlotPattern(slots, Array.Empty<Groove>(), pitchM, pitchM - widthM, box.Across(edge) - depthM);
     }
 
     /// <summary>Slots from an edge and the opposite edge in turn (first from <paramref name="edge"/>), one pitch apart.</summary>
@@ -25,7 +25,7 @@ public static class SlotPatterns
         var slots = Positions(box.Along(edge), pitchM, widthM, offsetM)
             .Select((s, k) => box.SlotFrom(k % 2 == 0 ? edge : opposite, s, depthM, widthM)).ToList();
         // the current meanders between neighbours one pitch apart; beyond each slot end a ligament of (across - depth)
-        return new SlotPattern(slots, Array.Empty<Groove>(), pitchM - widthM, box.Across(edge) - depthM);
+        return new SlotPattern(slots, Array.Empty<Groove>(), pitchM, pitchM - widthM, box.Across(edge) - depthM);
     }
 
     /// <summary>
@@ -40,7 +40,7 @@ public static class SlotPatterns
         if (lengthM >= across) throw new InputException($"an enclosed slit ({lengthM} m) must be shorter than the plate across it ({across} m)");
         double start = (across - lengthM) / 2;
         var slots = Positions(box.Along(edge), pitchM, widthM, offsetM).Select(s => box.SlotInside(edge, s, start, start + lengthM, widthM)).ToList();
-        return new SlotPattern(slots, Array.Empty<Groove>(), pitchM - widthM, start);
+        return new SlotPattern(slots, Array.Empty<Groove>(), pitchM, pitchM - widthM, start);
     }
 
     /// <summary>Grooves from one edge that leave remainingThicknessFraction of the thickness under them.</summary>
@@ -52,7 +52,7 @@ public static class SlotPatterns
             throw new InputException($"a groove's remaining thickness fraction must lie between 0 and 1 (got {remainingThicknessFraction})");
         var grooves = Positions(box.Along(edge), pitchM, widthM, offsetM)
             .Select(s => new Groove(box.SlotFrom(edge, s, depthM, widthM).ToPolygon(), remainingThicknessFraction)).ToList();
-        return new SlotPattern(Array.Empty<Slot>(), grooves, pitchM - widthM, box.Across(edge) - depthM);
+        return new SlotPattern(Array.Empty<Slot>(), grooves, pitchM, pitchM - widthM, box.Across(edge) - depthM);
     }
 
     private static void Check(Box box, PlateEdge edge, double pitchM, double depthM, double widthM)

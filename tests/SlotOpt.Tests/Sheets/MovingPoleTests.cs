@@ -61,7 +61,7 @@ public class MovingPoleTests
     // Slots across the direction of motion cut the loops the moving pole drives: a comb-slotted plate has
     // less mean drag than the solid one (common practice, no source; REFERENCES §8 has no number).
     // The row of 4 alternating poles moves over the plate; the mean is over one slot pitch (4 offsets).
-    // Asserted: slotted/solid below 0.8 (measured 0.49), so the check fails if the slots stop cutting current.
+    // Asserted: slotted/solid below 0.8 (measured 0.48), so the check fails if the slots stop cutting current.
     [Fact]
     public void Slotted_plate_has_less_drag_than_solid_over_one_pitch()
     {

@@ -53,7 +53,7 @@ public class SlottedPlateTests
     // (pitch - slot) whose loss per area falls as width^2 (REFERENCES §3: n strips give about 1/n^2 of the
     // loss). Halving the pitch must lower the loss, and every slotted plate loses less than the solid one.
     // Asserted: each halving of the pitch cuts the loss to below 0.6 of the previous (the 1/n^2 law gives
-    // about 0.25-0.3; the uncut 10 % root and the slot tips keep it above that).
+    // about 0.25; measured 0.19 (solid to 0.1 pitch), 0.30, 0.24).
     [Fact]
     public void Slotted_plate_loses_less_and_narrower_pitch_loses_less()
     {
@@ -70,9 +70,28 @@ public class SlottedPlateTests
         }
     }
 
+    // Enclosed slits (not reaching an edge) leave the outer current loop intact; the same slits opened to the
+    // edge as a comb break it (DESIGN.md: a hole's psi floats, fixed by Faraday's law; an edge slot sits at the
+    // outside's psi = 0). Square 1 m plate, 5 slits 0.6 m long, 10 mm wide, 0.2 m pitch. Asserted: the enclosed
+    // slits remove less than a third of what the comb removes (measured: enclosed 0.921, comb 0.188 of solid).
+    [Fact]
+    public void Enclosed_slit_pattern_reduces_loss_far_less_than_a_comb()
+    {
+        var plate = () => PlateGeometry.Rectangle(1, 1);
+        double cell = 1.0 / 200;
+        double solid = AcLoss(plate(), cell);
+        var enclosed = plate();
+        enclosed.AddPattern(SlotPatterns.EnclosedSlits(enclosed.Outline, PlateEdge.Bottom, 0.2, 0.6, 0.01));
+        var comb = plate();
+        comb.AddPattern(SlotPatterns.Comb(comb.Outline, PlateEdge.Bottom, 0.2, 0.6, 0.01));
+        double e = AcLoss(enclosed, cell), c = AcLoss(comb, cell);
+        Assert.True(solid - e < (solid - c) / 3, $"enclosed {e / solid:F3}, comb {c / solid:F3} of solid");
+        Assert.True(e < solid, "enclosed slits must still lower the loss");
+    }
+
     // Grooves leaving half the thickness: the loss lies strictly between the solid plate and the same
     // pattern cut through (a groove is a slot of conductance factor 0.5 instead of 0), common practice, no source.
-    // Asserted with 1 % margins on both sides (measured solid > grooved 0.87 x solid > slotted).
+    // Asserted with 1 % margins on both sides (measured: grooved 0.88, slotted 0.04 of solid).
     [Fact]
     public void Grooves_fall_between_solid_and_through_slots()
     {
@@ -92,10 +111,11 @@ public class SlottedPlateTests
     // doubles sigma through a conductivity zone covering the whole plate (a separate assembly and solve,
     // not the scaling API). Tolerance 1e-6 relative: independent solves converged to 1e-8.
     [Theory]
-    [InlineData(2.0, 1.0, 1.0, 2.0)]   // G x2 -> loss x2
-    [InlineData(1.0, 3.0, 1.0, 9.0)]   // f x3 -> loss x9
-    [InlineData(1.0, 1.0, 0.5, 0.25)]  // B x0.5 -> loss x0.25
-    public void Loss_is_linear_in_conductance_and_quadratic_in_frequency_and_field(double conductanceFactor, double frequencyFactor, double fieldFactor, double expected)
+    [InlineData("zone", 2.0, 1.0, 1.0, 2.0)]   // G x2 -> loss x2 (conductivity zone over the plate)
+    [InlineData("map", 0.5, 1.0, 1.0, 0.5)]    // G x0.5 -> loss x0.5 (conductivity factor map, e.g. from temperature)
+    [InlineData("none", 1.0, 3.0, 1.0, 9.0)]   // f x3 -> loss x9
+    [InlineData("none", 1.0, 1.0, 0.5, 0.25)]  // B x0.5 -> loss x0.25
+    public void Loss_is_linear_in_conductance_and_quadratic_in_frequency_and_field(string conductanceBy, double conductanceFactor, double frequencyFactor, double fieldFactor, double expected)
     {
         PlateGeometry Plate()
         {
@@ -106,7 +126,8 @@ public class SlottedPlateTests
         double cell = 0.1 / 64;
         double baseLoss = AcLoss(Plate(), cell);
         var changed = Plate();
-        if (conductanceFactor != 1) changed.AddZone(new ConductivityZone(Polygon.Rectangle(-1, -1, 1, 1), conductanceFactor));
+        if (conductanceBy == "zone") changed.AddZone(new ConductivityZone(Polygon.Rectangle(-1, -1, 1, 1), conductanceFactor));
+        if (conductanceBy == "map") changed.ConductivityFactorAt = _ => conductanceFactor;
         double loss = AcLoss(changed, cell, fieldFactor, 50 * frequencyFactor);
         Assert.InRange(loss / baseLoss / expected - 1, -1e-6, 1e-6);
     }

@@ -1,0 +1,99 @@
+using System.CommandLine;
+using System.Globalization;
+using System.Text;
+using System.Text.Encodings.Web;
+using System.Text.Json;
+using System.Text.Json.Nodes;
+using SlotOpt.Problems;
+using SlotOpt.Sheets;
+
+namespace SlotOpt.Cli;
+
+/// <summary>`slotopt plate FILE [--json] [--map FILE.csv]`: eddy-current loss (and drag) of one plate described in TOML.</summary>
+public static class PlateCommand
+{
+    public static Command Build()
+    {
+        var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]]" };
+        var json = new Option<bool>("--json") { Description = "print one JSON object instead of text" };
+        var map = new Option<string?>("--map") { Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
+        var command = new Command("plate", "Eddy-current loss and drag of one thin conducting plate (resistance-limited, normal field).");
+        command.Arguments.Add(file);
+        command.Options.Add(json);
+        command.Options.Add(map);
+        command.SetAction(parseResult => CommandRunner.Run(() =>
+        {
+            var plate = PlateFileReader.Read(parseResult.GetValue(file)!);
+            var evaluation = PlateFileEvaluation.Evaluate(plate);
+            var mapPath = parseResult.GetValue(map);
+            if (!string.IsNullOrEmpty(mapPath)) WriteMap(evaluation.Result.Map, mapPath);
+            Console.Out.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
+            return ExitCodes.Success;
+        }));
+        return command;
+    }
+
+    private static string Json(PlateFileEvaluation e)
+    {
+        var r = e.Result;
+        var o = new JsonObject
+        {
+            ["file"] = e.File.Path,
+            ["loss_w"] = e.LossW,
+            ["drag_n"] = e.MeanDragN,
+            ["averaged_over"] = e.File.MovingSource is null ? null : e.File.AveragedOver,
+            ["positions_m"] = new JsonArray(e.OffsetsXM.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
+            ["drag_per_position_n"] = new JsonArray(e.DragPerOffsetN.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
+            ["loss_per_position_w"] = new JsonArray(e.LossPerOffsetW.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
+            ["peak_current_density_a_per_m2"] = r.PeakCurrentDensityAPerM2,
+            ["rms_current_density_a_per_m2"] = r.RmsCurrentDensityAPerM2,
+            ["reynolds_number"] = r.Validity.ReynoldsNumber,
+            ["thickness_to_skin_depth"] = r.Validity.ThicknessToSkinDepth,
+            ["sheet_conductance_s"] = e.File.Conductor.SheetConductanceS,
+            ["unknowns"] = r.Unknowns,
+            ["iterations"] = e.TotalIterations,
+            ["relative_residual"] = r.RelativeResidual,
+            ["setup_seconds"] = e.SetupSeconds,
+            ["solve_seconds"] = e.SolveSeconds,
+            ["warnings"] = new JsonArray(r.Validity.Warnings.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
+            ["notes"] = new JsonArray(r.Notes.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
+        };
+        return o.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + Environment.NewLine;
+    }
+
+    private static string Text(PlateFileEvaluation e)
+    {
+        var r = e.Result;
+        var c = CultureInfo.InvariantCulture;
+        var s = new StringBuilder();
+        s.AppendLine(c, $"plate {e.File.Path}: sheet conductance {e.File.Conductor.SheetConductanceS:G4} S");
+        s.AppendLine(c, $"  loss                 {e.LossW:G4} W{(e.File.MovingSource is null ? " (time average)" : $" (mean over {e.File.AveragedOver})")}");
+        if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {drag:G4} N (min {e.DragPerOffsetN.Min():G4}, max {e.DragPerOffsetN.Max():G4})");
+        s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");
+        s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
+        s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");
+        s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {r.RelativeResidual:E1}, {e.SetupSeconds + e.SolveSeconds:F2} s");
+        foreach (var w in r.Validity.Warnings) s.AppendLine($"  warning: {w}");
+        foreach (var n in r.Notes) s.AppendLine($"  note: {n}");
+        return s.ToString();
+    }
+
+    private static void WriteMap(CurrentDensityMap map, string path)
+    {
+        var c = CultureInfo.InvariantCulture;
+        var s = new StringBuilder("x_m,y_m,j_a_per_m2\n");
+        for (int j = 0; j < map.YM.Length; j++)
+            for (int i = 0; i < map.XM.Length; i++)
+                s.Append(c, $"{map.XM[i]:R},{map.YM[j]:R},{map.ValueAPerM2[j, i]:G6}\n");
+        string temp = path + ".tmp";
+        try
+        {
+            File.WriteAllText(temp, s.ToString());
+            File.Move(temp, path, overwrite: true);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            throw new InputException($"--map {path}: cannot write the map ({ex.Message})");
+        }
+    }
+}
