@@ -10,6 +10,7 @@ public static class Program
         switch (benchCase)
         {
             case "lamination": return LaminationBench.Run(rest);
+            case "selection": return SelectionBench.Run(rest);
             default:
                 Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets)");
                 return 2;

@@ -24,6 +24,19 @@ public class HandCheckedSelectionTests
         ],
         limits ?? new SharedLimits(), objective, ValuePerWatt: 5);
 
+    // The cap holds with equality: 10.5 W admits A+Q (10.5 W, 135.00); 10.499 W = 10499 mW does not, and the
+    // cheapest left is B+P (7 W, 150.00).
+    [Theory]
+    [InlineData("cp-sat", 10.5, 13_500L)]
+    [InlineData("cp-sat", 10.499, 15_000L)]
+    [InlineData("brute-force", 10.5, 13_500L)]
+    [InlineData("brute-force", 10.499, 15_000L)]
+    public void Loss_cap_is_met_with_equality(string selector, double capW, long cents)
+    {
+        var outcome = SelectorNamed(selector).Select(Problem(Objective.LowestCostWithinLossCap, new SharedLimits { TotalLossCapW = capW }));
+        Assert.Equal(cents, outcome.Design!.BuildCostCents);
+    }
+
     // A+P and B+P both own 185.00; the tie goes to the lower loss, B+P (7 W against 13 W).
     // 185.00 = 18_500_000_000 microcents; 150.00 = 15000 cents; 7 W = 7000 mW.
     [Theory]
