@@ -108,6 +108,24 @@ public class HandCheckedSelectionTests
         Assert.Equal("B+Q", string.Join("+", outcome.Front.Points[^1].CandidateIds));
     }
 
+    // The sweep starts from the dearest point, so progress hears the front in reverse: B+Q first, C+P last.
+    [Theory]
+    [MemberData(nameof(Selectors))]
+    public void Front_progress_hears_each_point_dearest_first(string selector)
+    {
+        var heard = new PointRecorder();
+        var outcome = SelectorNamed(selector).Select(Problem(Objective.TradeOffCurve), new SelectionOptions { FrontProgress = heard });
+        Assert.Equal(outcome.Front!.Points.Reverse().Select(p => p.CandidateIds), heard.Points.Select(p => p.CandidateIds));
+        Assert.Equal(["B", "Q"], heard.Points[0].CandidateIds);
+    }
+
+    /// <summary>Records reports synchronously (Progress&lt;T&gt; would post them to the thread pool).</summary>
+    private sealed class PointRecorder : IProgress<FrontPoint>
+    {
+        public List<FrontPoint> Points { get; } = [];
+        public void Report(FrontPoint value) => Points.Add(value);
+    }
+
     // Loss is ranked in whole milliwatts: 1.0002 W and 1.0001 W are both 1000 mW, so X and Y tie exactly
     // on owning cost and loss, and candidate order decides: X, although its unrounded loss is higher.
     [Theory]
