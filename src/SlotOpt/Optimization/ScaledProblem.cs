@@ -33,7 +33,8 @@ internal sealed record ScaledProblem
         foreach (var part in parts)
             largest += part.Count == 0 ? 0 : part.OwningMicrocents.Max();
         if (largest > LargestExactTotal)
-            throw new InputException($"costs and losses too large to rank exactly in integers: the dearest design would own {IntegerScale.MicrocentsToMoney((long)Int128.Min(largest, long.MaxValue))} in currency");
+            throw new InputException(FormattableString.Invariant(
+                $"costs and losses too large to rank exactly in integers: the highest owning cost of a design would be {(double)largest / (100.0 * IntegerScale.MicrocentsPerCent):0.###e0}, at most {(double)LargestExactTotal / (100.0 * IntegerScale.MicrocentsPerCent):0.###e0} can be ranked"));
 
         var partIndex = problem.Parts.Select((p, i) => (p.PartName, i)).ToDictionary(t => t.PartName, t => t.i);
         return new ScaledProblem
