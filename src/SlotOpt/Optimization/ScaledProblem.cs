@@ -15,10 +15,11 @@ internal sealed record ScaledProblem
     public required int[][] CoilGroups { get; init; }
 
     public int? MaxDistinctProcesses { get; init; }
-    public required int CoilValueCount { get; init; }
+
+    /// <summary>How many distinct process values the candidates name; Process indices run below it.</summary>
     public required int ProcessCount { get; init; }
 
-    /// <summary>Largest owning cost any design can reach; checked to leave the long range a safe margin.</summary>
+    /// <summary>Most the owning cost of any design may reach, leaving the long range a margin of four.</summary>
     private const long LargestExactTotal = long.MaxValue / 4;
 
     public static ScaledProblem From(SelectionProblem problem)
@@ -45,7 +46,6 @@ internal sealed record ScaledProblem
             LossCapMilliwatts = problem.Limits.TotalLossCapW is { } cap ? IntegerScale.ToMilliwatts(cap) : null,
             CoilGroups = problem.Limits.CoilGroups.Select(g => g.Select(name => partIndex[name]).Distinct().ToArray()).ToArray(),
             MaxDistinctProcesses = problem.Limits.MaxDistinctProcesses,
-            CoilValueCount = coilValues.Count,
             ProcessCount = processes.Count,
         };
     }
