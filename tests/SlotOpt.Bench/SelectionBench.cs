@@ -40,11 +40,11 @@ public static class SelectionBench
         Console.WriteLine("|---|---|---:|---:|---:|---:|---:|");
         foreach (var r in rows)
             Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"| {r.Case} | {r.Status} | {r.FrontPoints}{(r.Capped ? " (capped)" : "")} | {r.SolverCalls} | {r.WallSeconds:0.000} | {r.DeterministicSeconds:0.000} | {r.ElapsedSeconds:0.000} |"));
+                $"| {r.Case} | {r.Status} | {r.FrontPoints?.ToString(CultureInfo.InvariantCulture) ?? "-"}{(r.Capped ? " (capped)" : "")} | {r.SolverCalls} | {r.WallSeconds:0.000} | {r.DeterministicSeconds:0.000} | {r.ElapsedSeconds:0.000} |"));
         return 0;
     }
 
-    private sealed record Row(string Case, string Status, int FrontPoints, bool Capped, int SolverCalls, double WallSeconds, double DeterministicSeconds, double ElapsedSeconds);
+    private sealed record Row(string Case, string Status, int? FrontPoints, bool Capped, int SolverCalls, double WallSeconds, double DeterministicSeconds, double ElapsedSeconds);
 
     private static Row Measure(string name, Func<SelectionOutcome> select)
     {
@@ -52,7 +52,7 @@ public static class SelectionBench
         var outcome = select();
         var elapsed = watch.Elapsed.TotalSeconds;
         var status = outcome.Front is { } front ? $"{outcome.Status}, front {front.Status}" : outcome.Status.ToString();
-        return new Row(name, status, outcome.Front?.Points.Count ?? 0, outcome.Front?.IsCapped ?? false,
+        return new Row(name, status, outcome.Front?.Points.Count, outcome.Front?.IsCapped ?? false,
             outcome.Effort.SolverCalls, outcome.Effort.WallSeconds, outcome.Effort.DeterministicSeconds, elapsed);
     }
 
