@@ -12,8 +12,9 @@ public static class Program
             case "lamination": return LaminationBench.Run(rest);
             case "demos": return DemoRunBench.Run(rest);
             case "sheets": return SheetsBench.Run(rest);
+            case "selection": return SelectionBench.Run(rest);
             default:
-                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, demos)");
+                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, selection, demos)");
                 return 2;
         }
     }

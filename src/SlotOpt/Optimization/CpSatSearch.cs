@@ -4,9 +4,10 @@ namespace SlotOpt.Optimization;
 
 /// <summary>
 /// The ranked search as a CP-SAT model: one Boolean per (part, candidate), exactly one per part; the
-/// shared limits as linear constraints and implications; one solve per ranking level, each fixing
-/// the level's optimum before the next (lexicographic optimisation), then the candidate-order tie-break
-/// part by part. Built in the order Data, Variables, Constraints, Objective, Solve, Read.
+/// shared limits as linear constraints and implications. Lexicographic optimisation: the ranking's
+/// criteria and then candidate order are levels, minimised a group at a time (several levels merged into
+/// one mixed-radix objective where that stays exact), each group's optimum fixed before the next.
+/// Built in the order Data, Variables, Constraints, Objective, Solve, Read.
 /// </summary>
 internal sealed class CpSatSearch(CpSatSettings settings) : IDesignSearch
 {
@@ -55,40 +56,36 @@ internal sealed class CpSatSearch(CpSatSettings settings) : IDesignSearch
             if (problem.MaxDistinctProcesses is { } maxProcesses) model.Add(LinearExpr.Sum(processUsed) <= maxProcesses);
         }
 
-        // Objective and Solve, one level at a time; Read after each.
+        // Objective: the ranking's levels, then candidate order as a mixed-radix index over runs of parts.
+        var levels = ranking
+            .Select(criterion => criterion switch
+            {
+                Criterion.BuildCost => RankingLevel.PerCandidate(pick, parts, part => part.Cents),
+                Criterion.Loss => RankingLevel.PerCandidate(pick, parts, part => part.Milliwatts),
+                Criterion.OwningCost => RankingLevel.PerCandidate(pick, parts, part => part.OwningMicrocents),
+                Criterion.DistinctProcesses => RankingLevel.Count(processUsed),
+                _ => throw new ArgumentOutOfRangeException(nameof(ranking), criterion, null),
+            })
+            .Concat(TieBreakRuns(parts).Select(run => CandidateOrder(run, pick, parts)))
+            .ToArray();
+
+        // Solve and Read: levels merged into as few solves as stay exact; each group's values are fixed
+        // before the next. A group already at zero in the incumbent (its least value) needs no solve.
         using var solver = new CpSolver { StringParameters = CpSatParameters.Format(settings) };
         var effort = SolveEffort.None;
-        int[] choice = [];
-        foreach (var criterion in ranking)
+        int[]? choice = null;
+        foreach (var group in RankingLevel.MergeableGroups(levels))
         {
-            var objective = criterion switch
+            if (choice is null || group.Any(level => solver.Value(level.Expression) > 0))
             {
-                Criterion.BuildCost => buildCost,
-                Criterion.Loss => loss,
-                Criterion.OwningCost => Total(pick, part => part.OwningMicrocents, parts),
-                Criterion.DistinctProcesses => LinearExpr.Sum(processUsed),
-                _ => throw new ArgumentOutOfRangeException(nameof(ranking), criterion, null),
-            };
-            var level = SolveLevel(model, solver, objective, pick, choice.Length == 0 ? null : choice, ref effort);
-            if (level.Status != SelectionStatus.Optimal) return level with { Effort = effort };
-            choice = level.Choice!;
-            model.Add(objective <= problem.Totals(choice).Value(criterion));
-        }
-
-        // Tie-break: the earliest candidate of each part in turn among the designs still tied.
-        for (var p = 0; p < parts.Length; p++)
-        {
-            if (choice[p] > 0)
-            {
-                var index = LinearExpr.WeightedSum(pick[p], Enumerable.Range(0, parts[p].Count).Select(k => (long)k));
-                var level = SolveLevel(model, solver, index, pick, choice, ref effort);
-                if (level.Status != SelectionStatus.Optimal) return level with { Effort = effort };
-                choice = level.Choice!;
+                var result = SolveLevel(model, solver, RankingLevel.Merged(group), pick, choice, ref effort);
+                if (result.Status != SelectionStatus.Optimal) return result with { Effort = effort };
+                choice = result.Choice!;
             }
-            model.AddBoolAnd([pick[p][choice[p]]]);
+            foreach (var level in group) model.Add(level.Expression <= solver.Value(level.Expression));
         }
 
-        return new SearchResult(SelectionStatus.Optimal, choice, effort);
+        return new SearchResult(SelectionStatus.Optimal, choice!, effort);
     }
 
     /// <summary>
@@ -122,6 +119,47 @@ internal sealed class CpSatSearch(CpSatSettings settings) : IDesignSearch
             default:
                 throw new InvalidOperationException($"CP-SAT answered {status} on the selection model: {model.Validate()}");
         }
+    }
+
+    /// <summary>Consecutive parts whose joint index space stays within <see cref="RankingLevel.LargestMergedSpan"/>.</summary>
+    private static IEnumerable<int[]> TieBreakRuns(ScaledPart[] parts)
+    {
+        var run = new List<int>();
+        long space = 1;
+        for (var p = 0; p < parts.Length; p++)
+        {
+            if (run.Count > 0 && space > RankingLevel.LargestMergedSpan / parts[p].Count)
+            {
+                yield return run.ToArray();
+                run.Clear();
+                space = 1;
+            }
+            run.Add(p);
+            space *= parts[p].Count;
+        }
+        if (run.Count > 0) yield return run.ToArray();
+    }
+
+    /// <summary>
+    /// The candidate indices of a run of parts as one mixed-radix number (index_p times the product of the
+    /// later parts' counts): smaller means earlier in lexicographic candidate order.
+    /// </summary>
+    private static RankingLevel CandidateOrder(int[] run, BoolVar[][] pick, ScaledPart[] parts)
+    {
+        var variables = new List<BoolVar>();
+        var weights = new List<long>();
+        long placeValue = 1;
+        for (var i = run.Length - 1; i >= 0; i--)
+        {
+            var p = run[i];
+            for (var k = 0; k < parts[p].Count; k++)
+            {
+                variables.Add(pick[p][k]);
+                weights.Add(k * placeValue);
+            }
+            placeValue *= parts[p].Count;
+        }
+        return new RankingLevel(variables, weights, placeValue - 1);
     }
 
     /// <summary>The candidate index chosen per part; called only after an Optimal or Feasible status.</summary>

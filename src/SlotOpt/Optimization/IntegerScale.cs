@@ -15,6 +15,9 @@ public static class IntegerScale
 {
     public const long MicrocentsPerCent = 1_000_000;
 
+    /// <summary>Largest magnitude of money, loss or rate accepted: far inside the long range once scaled.</summary>
+    public const double LargestScalable = 1e12;
+
     /// <summary>Whole cents, half away from zero.</summary>
     public static long ToCents(double money) => RoundScaled(money, 100m, "money");
 
@@ -25,8 +28,14 @@ public static class IntegerScale
     public static long ToCentsPerKilowatt(double valuePerWatt) => RoundScaled(valuePerWatt, 100_000m, "value per watt");
 
     /// <summary>Owning cost in microcents: exact for whole cents, whole milliwatts and a whole cents-per-kW rate.</summary>
-    public static long OwningMicrocents(long cents, long milliwatts, long centsPerKilowatt) =>
-        checked(MicrocentsPerCent * cents + centsPerKilowatt * milliwatts);
+    public static long OwningMicrocents(long cents, long milliwatts, long centsPerKilowatt)
+    {
+        var microcents = (Int128)MicrocentsPerCent * cents + (Int128)centsPerKilowatt * milliwatts;
+        if (microcents > long.MaxValue || microcents < long.MinValue)
+            throw new InputException(FormattableString.Invariant(
+                $"an owning cost of {(double)microcents / (100.0 * MicrocentsPerCent):0.###e0} is too large to rank exactly in integers"));
+        return (long)microcents;
+    }
 
     public static double CentsToMoney(long cents) => cents / 100.0;
 
@@ -36,9 +45,8 @@ public static class IntegerScale
 
     private static long RoundScaled(double value, decimal factor, string what)
     {
-        // decimal holds about 7.9e28; far below that the long range (9.2e18) is the real bound.
-        if (!double.IsFinite(value) || Math.Abs(value) > 1e12)
-            throw new InputException($"{what} {value} cannot be scaled to an exact integer (finite and below 1e12 expected)");
+        if (!double.IsFinite(value) || Math.Abs(value) > LargestScalable)
+            throw new InputException($"{what} {value} cannot be scaled to an exact integer (finite, at most {LargestScalable:0e0} in size expected)");
         return (long)Math.Round((decimal)value * factor, MidpointRounding.AwayFromZero);
     }
 }

@@ -15,10 +15,11 @@ internal sealed record ScaledProblem
     public required int[][] CoilGroups { get; init; }
 
     public int? MaxDistinctProcesses { get; init; }
-    public required int CoilValueCount { get; init; }
+
+    /// <summary>How many distinct process values the candidates name; Process indices run below it.</summary>
     public required int ProcessCount { get; init; }
 
-    /// <summary>Largest owning cost any design can reach; checked to leave the long range a safe margin.</summary>
+    /// <summary>Most the owning cost of any design may reach, leaving the long range a margin of four.</summary>
     private const long LargestExactTotal = long.MaxValue / 4;
 
     public static ScaledProblem From(SelectionProblem problem)
@@ -33,7 +34,8 @@ internal sealed record ScaledProblem
         foreach (var part in parts)
             largest += part.Count == 0 ? 0 : part.OwningMicrocents.Max();
         if (largest > LargestExactTotal)
-            throw new InputException($"costs and losses too large to rank exactly in integers: the dearest design would own {IntegerScale.MicrocentsToMoney((long)Int128.Min(largest, long.MaxValue))} in currency");
+            throw new InputException(FormattableString.Invariant(
+                $"costs and losses too large to rank exactly in integers: the highest owning cost of a design would be {(double)largest / (100.0 * IntegerScale.MicrocentsPerCent):0.###e0}, at most {(double)LargestExactTotal / (100.0 * IntegerScale.MicrocentsPerCent):0.###e0} can be ranked"));
 
         var partIndex = problem.Parts.Select((p, i) => (p.PartName, i)).ToDictionary(t => t.PartName, t => t.i);
         return new ScaledProblem
@@ -44,7 +46,6 @@ internal sealed record ScaledProblem
             LossCapMilliwatts = problem.Limits.TotalLossCapW is { } cap ? IntegerScale.ToMilliwatts(cap) : null,
             CoilGroups = problem.Limits.CoilGroups.Select(g => g.Select(name => partIndex[name]).Distinct().ToArray()).ToArray(),
             MaxDistinctProcesses = problem.Limits.MaxDistinctProcesses,
-            CoilValueCount = coilValues.Count,
             ProcessCount = processes.Count,
         };
     }

@@ -19,19 +19,16 @@ internal static class SelectionProblemValidation
             {
                 var where = $"part '{part.PartName}', candidate '{candidate.Id}'";
                 if (!ids.Add(candidate.Id)) errors.Add($"{where}: the id appears twice in this part");
-                if (!double.IsFinite(candidate.BuildCost) || candidate.BuildCost < 0) errors.Add($"{where}: build cost {candidate.BuildCost} (finite, >= 0 expected)");
-                if (!double.IsFinite(candidate.LossW) || candidate.LossW < 0) errors.Add($"{where}: loss {candidate.LossW} W (finite, >= 0 expected)");
+                if (!IsScalable(candidate.BuildCost)) errors.Add($"{where}: build cost {candidate.BuildCost} ({Expected})");
+                if (!IsScalable(candidate.LossW)) errors.Add($"{where}: loss {candidate.LossW} W ({Expected})");
                 if (limits.MaxDistinctProcesses is not null && !candidate.Attributes.ContainsKey(Candidate.ProcessAttribute))
                     errors.Add($"{where}: no '{Candidate.ProcessAttribute}' attribute, needed by the distinct-process limit");
             }
         }
 
-        if (!double.IsFinite(problem.ValuePerWatt) || problem.ValuePerWatt < 0)
-            errors.Add($"value per watt {problem.ValuePerWatt} (finite, >= 0 expected)");
-        if (limits.Budget is { } budget && (!double.IsFinite(budget) || budget < 0))
-            errors.Add($"budget {budget} (finite, >= 0 expected)");
-        if (limits.TotalLossCapW is { } cap && (!double.IsFinite(cap) || cap < 0))
-            errors.Add($"total loss cap {cap} W (finite, >= 0 expected)");
+        if (!IsScalable(problem.ValuePerWatt)) errors.Add($"value per watt {problem.ValuePerWatt} ({Expected})");
+        if (limits.Budget is { } budget && !IsScalable(budget)) errors.Add($"budget {budget} ({Expected})");
+        if (limits.TotalLossCapW is { } cap && !IsScalable(cap)) errors.Add($"total loss cap {cap} W ({Expected})");
         if (limits.MaxDistinctProcesses is < 1)
             errors.Add($"at most {limits.MaxDistinctProcesses} distinct processes (1 or more expected)");
         if (problem.Objective == Objective.LowestLossWithinBudget && limits.Budget is null)
@@ -57,4 +54,8 @@ internal static class SelectionProblemValidation
 
         if (errors.Count > 0) throw new InputException(errors);
     }
+
+    private static readonly string Expected = FormattableString.Invariant($"0 to {IntegerScale.LargestScalable:0e0} expected");
+
+    private static bool IsScalable(double value) => double.IsFinite(value) && value >= 0 && value <= IntegerScale.LargestScalable;
 }

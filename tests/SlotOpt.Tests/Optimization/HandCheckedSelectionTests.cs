@@ -24,6 +24,19 @@ public class HandCheckedSelectionTests
         ],
         limits ?? new SharedLimits(), objective, ValuePerWatt: 5);
 
+    // The cap holds with equality: 10.5 W admits A+Q (10.5 W, 135.00); 10.499 W = 10499 mW does not, and the
+    // cheapest left is B+P (7 W, 150.00).
+    [Theory]
+    [InlineData("cp-sat", 10.5, 13_500L)]
+    [InlineData("cp-sat", 10.499, 15_000L)]
+    [InlineData("brute-force", 10.5, 13_500L)]
+    [InlineData("brute-force", 10.499, 15_000L)]
+    public void Loss_cap_is_met_with_equality(string selector, double capW, long cents)
+    {
+        var outcome = SelectorNamed(selector).Select(Problem(Objective.LowestCostWithinLossCap, new SharedLimits { TotalLossCapW = capW }));
+        Assert.Equal(cents, outcome.Design!.BuildCostCents);
+    }
+
     // A+P and B+P both own 185.00; the tie goes to the lower loss, B+P (7 W against 13 W).
     // 185.00 = 18_500_000_000 microcents; 150.00 = 15000 cents; 7 W = 7000 mW.
     [Theory]
@@ -93,6 +106,24 @@ public class HandCheckedSelectionTests
         Assert.Equal(capped, outcome.Front!.IsCapped);
         Assert.Equal(maxPoints, outcome.Front.Points.Count);
         Assert.Equal("B+Q", string.Join("+", outcome.Front.Points[^1].CandidateIds));
+    }
+
+    // The sweep starts from the dearest point, so progress hears the front in reverse: B+Q first, C+P last.
+    [Theory]
+    [MemberData(nameof(Selectors))]
+    public void Front_progress_hears_each_point_dearest_first(string selector)
+    {
+        var heard = new PointRecorder();
+        var outcome = SelectorNamed(selector).Select(Problem(Objective.TradeOffCurve), new SelectionOptions { FrontProgress = heard });
+        Assert.Equal(outcome.Front!.Points.Reverse().Select(p => p.CandidateIds), heard.Points.Select(p => p.CandidateIds));
+        Assert.Equal(["B", "Q"], heard.Points[0].CandidateIds);
+    }
+
+    /// <summary>Records reports synchronously (Progress&lt;T&gt; would post them to the thread pool).</summary>
+    private sealed class PointRecorder : IProgress<FrontPoint>
+    {
+        public List<FrontPoint> Points { get; } = [];
+        public void Report(FrontPoint value) => Points.Add(value);
     }
 
     // Loss is ranked in whole milliwatts: 1.0002 W and 1.0001 W are both 1000 mW, so X and Y tie exactly

@@ -47,4 +47,14 @@ public class IntegerScaleTests
         Assert.Throws<InputException>(() => IntegerScale.ToMilliwatts(double.PositiveInfinity));
         Assert.Throws<InputException>(() => IntegerScale.ToCents(1e13));
     }
+
+    // 1e11 currency is 1e13 cents, 1e19 microcents: past the long range (9.2e18), so the problem is refused
+    // as a user mistake rather than overflowing.
+    [Fact]
+    public void A_problem_whose_owning_cost_overflows_is_refused()
+    {
+        var problem = new SelectionProblem([Options.Part("hull", Options.Option("H", 1e11, 1))], new SharedLimits(), Objective.LowestOwningCost, ValuePerWatt: 1);
+        var error = Assert.Throws<InputException>(() => new CpSatSelector().Select(problem));
+        Assert.Contains("too large to rank exactly in integers", error.Message);
+    }
 }

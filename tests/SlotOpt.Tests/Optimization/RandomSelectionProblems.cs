@@ -51,9 +51,11 @@ internal static class RandomSelectionProblems
             parts.Add(new PartChoices($"part-{p}", candidates));
         }
 
-        // Limits placed between the smallest and the largest total, so some bind and some problems are infeasible.
+        // Limits placed between the smallest and the largest total, so some bind and some problems are
+        // infeasible; half of them exactly at the total of some design, to test the boundary (<=, not <).
         double Between(Func<Candidate, double> value)
         {
+            if (random.Next(2) == 0) return parts.Sum(p => value(p.Candidates[random.Next(p.Candidates.Count)]));
             var low = parts.Sum(p => p.Candidates.Min(value));
             var high = parts.Sum(p => p.Candidates.Max(value));
             return Math.Round(low + (0.2 + 0.5 * random.NextDouble()) * (high - low), 2);
