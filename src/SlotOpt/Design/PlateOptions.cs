@@ -102,7 +102,7 @@ public static class PlateOptions
 
         var slotCount = solved.Pattern is null ? 0 : solved.Pattern.Slots.Count + solved.Pattern.Grooves.Count;
         attributes["slot_count"] = slotCount.ToString(ci);
-        var slotCut = solved.Pattern is null ? 0 : solved.Pattern.Slots.Sum(s => PlateCost.SlotCutLength(s.LengthM, s.WidthM, process))
+        var slotCut = solved.Pattern is null ? 0 : solved.Pattern.Slots.Sum(s => PlateCost.SlotCutLength((s.End - s.Start).Length, s.WidthM, process))
             + solved.Pattern.Grooves.Sum(g => PlateCost.Perimeter(g.Area));
         var cost = PlateCost.Of(part.Outline, thicknessM, material, process, slotCut, slotCount, shop);
 
