@@ -25,11 +25,12 @@ public sealed record PlateExcitation(IAcFieldSource? Ac, double FrequencyHz, Mov
     public static PlateExcitation MovingSource(MovingPoles poles, TravelAverage average, int positions) => new(null, 0, poles, average, positions);
 
     /// <summary>
-    /// The travel offsets for one slot choice. A solid plate averaged "over a slot pitch" uses the widest
-    /// pitch among the part's families (or the pole's length of travel, with none): a long solid plate's
-    /// drag does not depend on the offset, so any window gives the same mean.
+    /// The travel offsets to evaluate: over one slot pitch (the window a slotted plate's drag repeats
+    /// over; for a solid plate, whose drag on a long plate does not depend on the offset, any window
+    /// serves and the caller passes the one its slotted options use, else the poles' own length), or
+    /// across the whole pass of the poles over the plate.
     /// </summary>
-    public IReadOnlyList<double> OffsetsFor(SlotChoice? slots, Polygon outline, IReadOnlyList<SlotFamily> families)
+    public IReadOnlyList<double> Offsets(Polygon outline, double? windowM)
     {
         var poles = Moving ?? throw new InvalidOperationException("offsets belong to moving sources");
         if (Average == TravelAverage.Pass)
@@ -38,8 +39,6 @@ public sealed record PlateExcitation(IAcFieldSource? Ac, double FrequencyHz, Mov
             var (rowMin, rowMax) = poles.ExtentX;
             return Positions == 1 ? [0.0] : MovingSweepSolution.OffsetsAcross(min.X - rowMax, max.X - rowMin, Positions);
         }
-        var window = slots?.PitchM
-            ?? (families.Count > 0 ? families.SelectMany(f => f.PitchesM).Max() : poles.ExtentX.MaxXM - poles.ExtentX.MinXM);
-        return MovingSweepSolution.OffsetsOverPitch(window, Positions);
+        return MovingSweepSolution.OffsetsOverPitch(windowM ?? poles.ExtentX.MaxXM - poles.ExtentX.MinXM, Positions);
     }
 }

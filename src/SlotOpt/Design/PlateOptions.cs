@@ -62,7 +62,8 @@ public static class PlateOptions
         var excitation = part.Excitation;
         if (excitation.Moving is { } poles)
         {
-            var sweep = PlateSolver.SolveMoving(model, poles, excitation.OffsetsFor(slots, part.Outline, part.SlotFamilies));
+            var window = slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : (double?)null);
+            var sweep = PlateSolver.SolveMoving(model, poles, excitation.Offsets(part.Outline, window));
             return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
         }
         var ac = PlateSolver.SolveAc(model, excitation.Ac!);

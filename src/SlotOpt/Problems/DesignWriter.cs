@@ -23,7 +23,7 @@ public static class DesignWriter
                 text.Append(ci, $"thickness = \"{Millimetres(plate.ThicknessM)}\"\nmaterial = \"{plate.Material}\"\nprocess = \"{plate.Process}\"\n");
                 if (plate.Slots is { } s)
                 {
-                    text.Append(ci, $"slots = {{ pattern = \"{PatternKey(s.Pattern)}\", edge = \"{s.Edge.ToString().ToLowerInvariant()}\", pitch = \"{Millimetres(s.PitchM)}\", depth = \"{Millimetres(s.DepthM)}\", width = \"{Millimetres(s.WidthM)}\"");
+                    text.Append(ci, $"slots = {{ pattern = \"{PatternKey(s.Pattern)}\", edge = \"{s.Edge.ToString().ToLowerInvariant()}\", pitch = \"{Millimetres(s.PitchM)}\", {(s.Pattern == SlotPatternKind.EnclosedSlits ? "length" : "depth")} = \"{Millimetres(s.DepthM)}\", width = \"{Millimetres(s.WidthM)}\"");
                     if (s.RemainingThicknessFraction is { } r) text.Append(ci, $", remaining_thickness = {r:R}");
                     text.Append(" }\n");
                 }

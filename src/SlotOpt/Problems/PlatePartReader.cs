@@ -8,7 +8,8 @@ namespace SlotOpt.Problems;
 /// <summary>
 /// Reads a [[parts]] table of kind "plate": the outline (width and height, or outline = [[x, y], ...]),
 /// candidate thicknesses and materials, processes for the outline, limits, [parts.source],
-/// [[parts.slots]] families and [parts.current]. Key names follow the single-plate file of `slotopt plate`.
+/// [[parts.slots]] families (pattern, edge, pitch, depth or, for enclosed slits, length, width, processes,
+/// remaining_thickness) and [parts.current]. Key names follow the single-plate file of `slotopt plate`.
 /// </summary>
 public static class PlatePartReader
 {
@@ -96,13 +97,14 @@ public static class PlatePartReader
         if (patternWord is null && !f.Has("pattern")) f.Error("pattern", $"missing: one of {string.Join(", ", PatternWords)}");
         var edgeWord = f.OptionalChoice("edge", EdgeWords) ?? "bottom";
         var pitches = f.QuantityList("pitch", QuantityKind.Length, required: true);
-        var depths = f.QuantityList("depth", QuantityKind.Length, required: true);
+        var depthKey = patternWord == "enclosed" ? "length" : "depth";   // an enclosed slit has a length, not a depth from an edge
+        var depths = f.QuantityList(depthKey, QuantityKind.Length, required: true);
         var widths = f.QuantityList("width", QuantityKind.Length, required: true);
         var remaining = f.OptionalNumber("remaining_thickness");
         var processes = ReadProcesses(f, "processes", shop) ?? partProcesses.ToList();
         f.RejectUnknownKeys();
 
-        foreach (var (list, key) in new[] { (pitches, "pitch"), (depths, "depth"), (widths, "width") })
+        foreach (var (list, key) in new[] { (pitches, "pitch"), (depths, depthKey), (widths, "width") })
             if (list is not null && list.Any(v => !(v > 0))) f.Error(key, "every value must be positive");
         if (pitches is not null && widths is not null && widths.Max() >= pitches.Min())
             f.Error("width", $"the widest slot ({widths.Max() * 1e3:0.###} mm) is not narrower than the smallest pitch ({pitches.Min() * 1e3:0.###} mm): nothing would be left between slots");
@@ -113,7 +115,7 @@ public static class PlatePartReader
         {
             var (min, max) = outline.Bounds;
             var across = edge is PlateEdge.Bottom or PlateEdge.Top ? max.Y - min.Y : max.X - min.X;
-            if (depths.Max() >= across) f.Error("depth", $"the deepest slot ({depths.Max() * 1e3:0.###} mm) cuts right through the plate ({across * 1e3:0.###} mm across): the plate would fall apart");
+            if (depths.Max() >= across) f.Error(depthKey, $"the deepest slot ({depths.Max() * 1e3:0.###} mm) cuts right through the plate ({across * 1e3:0.###} mm across): the plate would fall apart");
         }
         if (patternWord is null || pitches is null || depths is null || widths is null || processes.Count == 0) return null;
         var pattern = patternWord switch
@@ -142,7 +144,7 @@ public static class PlatePartReader
             var word = slotTable.OptionalChoice("pattern", PatternWords) ?? "comb";
             var edgeWord = slotTable.OptionalChoice("edge", EdgeWords) ?? "bottom";
             var pitch = slotTable.PositiveQuantity("pitch", QuantityKind.Length, required: true);
-            var depth = slotTable.PositiveQuantity("depth", QuantityKind.Length, required: true);
+            var depth = slotTable.PositiveQuantity(word == "enclosed" ? "length" : "depth", QuantityKind.Length, required: true);
             var width = slotTable.PositiveQuantity("width", QuantityKind.Length, required: true);
             var remaining = slotTable.OptionalNumber("remaining_thickness");
             slotTable.RejectUnknownKeys();

@@ -9,11 +9,12 @@ namespace SlotOpt.Problems;
 /// (file: CSV x_m,y_m,amplitude_t,phase_deg relative to the problem file; frequency) or "moving_poles"
 /// (pole = "circle" with radius | "rectangle" with pole_width, pole_height; flux_density, speed; x, y of
 /// the first pole centre at offset 0, default: the row centred on the plate; count, pole_pitch;
-/// positions (default 8); average = "slot_pitch" | "pass").
+/// positions (default 8); average = "slot_pitch" | "pass"). Shared by problem files and plate files.
 /// </summary>
 public static class PlateSourceReader
 {
-    public static PlateExcitation? Read(TomlSection s, Polygon? outline, string baseDirectory)
+    /// <param name="defaultAverage">The averaging when the file does not say (a single plate without slots has no pitch to average over).</param>
+    public static PlateExcitation? Read(TomlSection s, Polygon? outline, string baseDirectory, TravelAverage defaultAverage = TravelAverage.SlotPitch)
     {
         var kind = s.OptionalChoice("kind", ["uniform_ac", "field_map", "moving_poles"]);
         if (kind is null && !s.Has("kind")) s.Error("kind", "missing: \"uniform_ac\", \"field_map\" or \"moving_poles\"");
@@ -21,7 +22,7 @@ public static class PlateSourceReader
         {
             "uniform_ac" => UniformAc(s),
             "field_map" => FieldMapSource(s, baseDirectory),
-            "moving_poles" => Moving(s, outline),
+            "moving_poles" => Moving(s, outline, defaultAverage),
             _ => null,
         };
         s.RejectUnknownKeys();
@@ -55,7 +56,7 @@ public static class PlateSourceReader
         }
     }
 
-    private static PlateExcitation? Moving(TomlSection s, Polygon? outline)
+    private static PlateExcitation? Moving(TomlSection s, Polygon? outline, TravelAverage defaultAverage)
     {
         var shape = s.OptionalChoice("pole", ["circle", "rectangle"]);
         if (shape is null && !s.Has("pole")) s.Error("pole", "missing: \"circle\" or \"rectangle\"");
@@ -78,7 +79,7 @@ public static class PlateSourceReader
         var x = s.OptionalQuantity("x", QuantityKind.Length);
         var y = s.OptionalQuantity("y", QuantityKind.Length);
         var positions = (int)(s.OptionalInteger("positions", 1, 10_000) ?? 8);
-        var averageText = s.OptionalChoice("average", ["slot_pitch", "pass"]) ?? "slot_pitch";
+        var averageText = s.OptionalChoice("average", ["slot_pitch", "pass"]) ?? (defaultAverage == TravelAverage.Pass ? "pass" : "slot_pitch");
         if (face is null || flux is null || speed is null || outline is null || (count > 1 && pitch is null)) return null;
         if (count > 1 && pitch < 2 * face.HalfWidthXM)
         {

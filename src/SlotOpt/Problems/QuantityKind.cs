@@ -15,4 +15,5 @@ public enum QuantityKind
     Power,
     Force,
     Pressure,
+    Conductivity,
 }

@@ -24,6 +24,7 @@ public static partial class QuantityParser
         QuantityKind.Power => "W",
         QuantityKind.Force => "N",
         QuantityKind.Pressure => "Pa",
+        QuantityKind.Conductivity => "S/m",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -41,6 +42,7 @@ public static partial class QuantityParser
         QuantityKind.Power => "\"150 W\"",
         QuantityKind.Force => "\"20 N\"",
         QuantityKind.Pressure => "\"69 GPa\"",
+        QuantityKind.Conductivity => "\"24.9 MS/m\"",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -105,6 +107,7 @@ public static partial class QuantityParser
             case QuantityKind.Power when Power.TryParse(joined, culture, out var q): si = (double)q.Watts; return true;
             case QuantityKind.Force when Force.TryParse(joined, culture, out var q): si = q.Newtons; return true;
             case QuantityKind.Pressure when Pressure.TryParse(joined, culture, out var q): si = q.Pascals; return true;
+            case QuantityKind.Conductivity when ElectricConductivity.TryParse(joined, culture, out var q): si = q.SiemensPerMeter; return true;
             default: return false;
         }
     }

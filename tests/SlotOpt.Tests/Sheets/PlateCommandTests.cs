@@ -175,7 +175,7 @@ public class PlateCommandTests
         File.WriteAllText(file, "[plate]\nwidth = \"200 mm\"\nheight = \"100 mm\"\nthickness = \"0 mm\"\nconductivity = \"1e7\"\n[source]\nkind = \"uniform_ac\"\npeak = \"10 mT\"\nfrequency = \"50 Hz\"\n");
         var (code, _, error) = Run("plate", file, "--map", mapFile);
         Assert.Equal(ExitCodes.InvalidInput, code);
-        Assert.Contains("bad.toml:4: key 'plate.thickness'", error);
+        Assert.Contains("bad.toml:4: plate.thickness: ", error);
         Assert.False(File.Exists(mapFile));
     }
 }

@@ -146,6 +146,19 @@ public sealed class TomlSection
         return points;
     }
 
+    /// <summary>One required [x, y] point of lengths.</summary>
+    public (double X, double Y)? Point(string key)
+    {
+        var node = Get(key);
+        if (node is null) { Errors.Add(FileName, table.Line, KeyPath(key), "missing (required): an [x, y] point"); return null; }
+        if (node is TomlArray { Items.Count: 2 } pair
+            && ReadQuantity(pair.Items[0], key, QuantityKind.Length) is { } x
+            && ReadQuantity(pair.Items[1], key, QuantityKind.Length) is { } y)
+            return (x, y);
+        Error(key, "expected a point [x, y] with lengths such as [\"0 mm\", \"120 mm\"]");
+        return null;
+    }
+
     public long? OptionalInteger(string key, long min, long max)
     {
         var node = Get(key);
