@@ -14,6 +14,11 @@ public static class CommandRunner
             foreach (var line in e.Message.Split(Environment.NewLine)) Console.Error.WriteLine($"error: {line}");
             return ExitCodes.InvalidInput;
         }
+        catch (ResourceLimitException e)
+        {
+            Console.Error.WriteLine($"resource limit: {e.Message}");
+            return ExitCodes.ResourceLimit;
+        }
         catch (NumericalFailureException e)
         {
             Console.Error.WriteLine($"numerical failure: {e.Message}");

@@ -8,4 +8,5 @@ public static class ExitCodes
     public const int InvalidInput = 2;
     public const int Infeasible = 3;
     public const int NumericalFailure = 4;
+    public const int ResourceLimit = 5;
 }

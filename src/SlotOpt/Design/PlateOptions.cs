@@ -14,15 +14,32 @@ public static class PlateOptions
     /// <summary>One solved slot geometry at unit sheet conductance.</summary>
     public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, string? Failure);
 
-    public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null)
+    public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null)
     {
+        limits ??= EvaluationLimits.Default;
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM);
         var geometries = SlotChoices(part).ToList();
         var solvedGeometries = new SolvedGeometry[geometries.Count];
-        Parallel.For(0, geometries.Count, new ParallelOptions { MaxDegreeOfParallelism = Environment.ProcessorCount }, i =>
+        var clock = System.Diagnostics.Stopwatch.StartNew();
+        var done = 0;
+        var failures = new Exception?[geometries.Count];
+        Parallel.For(0, geometries.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(limits.Threads, 1) }, (i, loop) =>
         {
-            solvedGeometries[i] = Solve(part, geometries[i]);
-            solved?.Report(1);
+            try
+            {
+                limits.CheckTime(clock, Volatile.Read(ref done), geometries.Count);
+                solvedGeometries[i] = Solve(part, geometries[i], limits);
+                Interlocked.Increment(ref done);
+                solved?.Report(1);
+            }
+            catch (Exception e)
+            {
+                failures[i] = e;
+                if (e is ResourceLimitException) loop.Stop();
+            }
         });
+        // the first failure in geometry order, rethrown as itself (not wrapped), so the message and exit code are the same on every run
+        if (failures.FirstOrDefault(f => f is not null) is { } first) System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(first).Throw();
         var options = new List<EvaluatedOption>();
         for (var g = 0; g < geometries.Count; g++)
         {
@@ -52,13 +69,16 @@ public static class PlateOptions
     }
 
     /// <summary>Solves one slot geometry at unit sheet conductance; a pattern that does not fit is a failure in words.</summary>
-    public static SolvedGeometry Solve(PlatePart part, SlotChoice? slots)
+    public static SolvedGeometry Solve(PlatePart part, SlotChoice? slots, EvaluationLimits? limits = null)
     {
+        limits ??= EvaluationLimits.Default;
         PlateGeometry geometry;
         SlotPattern? pattern;
         try { (geometry, pattern) = PlateGeometryFactory.Build(part.Outline, slots); }
         catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, e.Message); }
-        var model = SheetModel.Build(geometry, new GridOptions { CellSizeM = part.CellSizeM });
+        var grid = new GridOptions { CellSizeM = part.CellSizeM };
+        grid = grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) };
+        var model = SheetModel.Build(geometry, grid);
         var excitation = part.Excitation;
         if (excitation.Moving is { } poles)
         {

@@ -13,7 +13,7 @@ public static class CandidateEvaluation
     public sealed record Evaluated(IReadOnlyList<PartEvaluation> Parts, int SheetSolves, double Seconds);
 
     /// <param name="geometrySolved">Told once per slot geometry solved (for a progress bar).</param>
-    public static Evaluated Evaluate(Problem problem, IProgress<int>? geometrySolved = null)
+    public static Evaluated Evaluate(Problem problem, IProgress<int>? geometrySolved = null, EvaluationLimits? limits = null)
     {
         var clock = Stopwatch.StartNew();
         var parts = new List<PartEvaluation>();
@@ -23,7 +23,7 @@ public static class CandidateEvaluation
             IReadOnlyList<EvaluatedOption> options = part switch
             {
                 CorePart core => CoreOptions.Evaluate(core, problem.Library, problem.Shop),
-                PlatePart plate => PlateOptions.Evaluate(plate, problem.Library, problem.Shop, geometrySolved),
+                PlatePart plate => PlateOptions.Evaluate(plate, problem.Library, problem.Shop, geometrySolved, limits),
                 _ => throw new ArgumentOutOfRangeException(nameof(problem), part.GetType().Name, "unknown part kind"),
             };
             if (part is PlatePart p) solves += PlateOptions.SlotChoices(p).Count();

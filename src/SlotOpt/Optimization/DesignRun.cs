@@ -5,9 +5,9 @@ namespace SlotOpt.Optimization;
 /// <summary>The main job: evaluate every option, select under the shared limits, trace the front, compare with the baselines.</summary>
 public static class DesignRun
 {
-    public static RunResult Execute(Problem problem, CpSatSettings? settings = null, IProgress<int>? geometrySolved = null)
+    public static RunResult Execute(Problem problem, CpSatSettings? settings = null, IProgress<int>? geometrySolved = null, EvaluationLimits? limits = null)
     {
-        var evaluated = CandidateEvaluation.Evaluate(problem, geometrySolved);
+        var evaluated = CandidateEvaluation.Evaluate(problem, geometrySolved, limits);
         var selection = CandidateEvaluation.ToSelectionProblem(problem, evaluated.Parts);
         var outcome = new CpSatSelector(settings).Select(selection, new SelectionOptions { IncludeFront = true });
         IReadOnlyList<EvaluatedOption>? chosen = null;
