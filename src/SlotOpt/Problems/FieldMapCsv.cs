@@ -11,12 +11,7 @@ public static class FieldMapCsv
 {
     public static FieldMap Read(string path, double frequencyHz)
     {
-        string text;
-        try { text = File.ReadAllText(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw new InputException($"{path}: cannot read the field map ({e.Message})");
-        }
+        var text = InputFile.ReadAllText(path, "field map");
         var table = CsvTable.Parse(text, path);
         table.RequireColumns("x_m", "y_m", "amplitude_t", "phase_deg");
         var values = new Dictionary<(double X, double Y), Complex>();

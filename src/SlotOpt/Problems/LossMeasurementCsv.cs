@@ -7,12 +7,7 @@ public static class LossMeasurementCsv
 {
     public static IReadOnlyList<LossMeasurement> Read(string path)
     {
-        string text;
-        try { text = File.ReadAllText(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw new InputException($"{path}: cannot read the measurement file ({e.Message})");
-        }
+        var text = InputFile.ReadAllText(path, "measurement file");
         var table = CsvTable.Parse(text, path);
         table.RequireColumns("b_t", "f_hz", "w_per_kg");
         var list = new List<LossMeasurement>();

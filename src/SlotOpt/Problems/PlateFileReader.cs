@@ -24,12 +24,7 @@ public static class PlateFileReader
 {
     public static PlateFile Read(string path)
     {
-        string text;
-        try { text = File.ReadAllText(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-        {
-            throw new InputException($"{path}: cannot read the plate file ({e.Message})");
-        }
+        var text = InputFile.ReadAllText(path, "plate file");
         return Parse(text, path);
     }
 

@@ -14,12 +14,7 @@ public static class ProblemReader
 
     public static Problem ReadFile(string path)
     {
-        string text;
-        try { text = File.ReadAllText(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-        {
-            throw new InputException($"{path}: cannot read the problem file ({e.Message})");
-        }
+        var text = InputFile.ReadAllText(path, "problem file");
         return Read(text, path);
     }
 

@@ -11,12 +11,7 @@ public static class WaveformCsv
 {
     public static PiecewiseLinearWaveform Read(string path, double frequencyHz)
     {
-        string text;
-        try { text = File.ReadAllText(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw new InputException($"{path}: cannot read the waveform file ({e.Message})");
-        }
+        var text = InputFile.ReadAllText(path, "waveform file");
         return Parse(text, path, frequencyHz);
     }
 
