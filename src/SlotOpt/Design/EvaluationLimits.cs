@@ -31,9 +31,11 @@ public sealed record EvaluationLimits
         var cells = Math.Ceiling((max.X - min.X) / h) * Math.Ceiling((max.Y - min.Y) / h);
         if (cells > MaxCellsPerSolve)
             throw new ResourceLimitException(
-                $"part {partName}: a {h * 1e3:G4} mm grid needs {cells:E2} cells, about {cells * GridOptions.BytesPerCellEstimate * Threads / 1e9:F1} GB for {Threads} solves at once; " +
-                $"the memory limit is {MaxMemoryBytes / 1e9:F1} GB (--max-memory): choose a larger cell, fewer threads or a higher limit");
+                $"part {partName}: a {h * 1e3:G4} mm grid needs {cells:E2} cells, about {Bytes(cells * GridOptions.BytesPerCellEstimate * Threads)} for {Threads} solves at once; " +
+                $"the memory limit is {Bytes(MaxMemoryBytes)} (--max-memory): choose a larger cell, fewer threads or a higher limit");
     }
+
+    private static string Bytes(double bytes) => bytes >= 1e9 ? $"{bytes / 1e9:F1} GB" : $"{bytes / 1e6:F1} MB";
 
     /// <summary>Throws when the evaluation has run past its wall-time limit.</summary>
     public void CheckTime(Stopwatch clock, int done, int total)

@@ -16,4 +16,6 @@ public enum QuantityKind
     Force,
     Pressure,
     Conductivity,
+    Duration,
+    Information,
 }

@@ -25,6 +25,8 @@ public static partial class QuantityParser
         QuantityKind.Force => "N",
         QuantityKind.Pressure => "Pa",
         QuantityKind.Conductivity => "S/m",
+        QuantityKind.Duration => "s",
+        QuantityKind.Information => "B",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -43,6 +45,8 @@ public static partial class QuantityParser
         QuantityKind.Force => "\"20 N\"",
         QuantityKind.Pressure => "\"69 GPa\"",
         QuantityKind.Conductivity => "\"24.9 MS/m\"",
+        QuantityKind.Duration => "\"10 min\"",
+        QuantityKind.Information => "\"4 GB\"",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -108,6 +112,8 @@ public static partial class QuantityParser
             case QuantityKind.Force when Force.TryParse(joined, culture, out var q): si = q.Newtons; return true;
             case QuantityKind.Pressure when Pressure.TryParse(joined, culture, out var q): si = q.Pascals; return true;
             case QuantityKind.Conductivity when ElectricConductivity.TryParse(joined, culture, out var q): si = q.SiemensPerMeter; return true;
+            case QuantityKind.Duration when Duration.TryParse(joined, culture, out var q): si = q.Seconds; return true;
+            case QuantityKind.Information when Information.TryParse(joined, culture, out var q): si = (double)q.Bytes; return true;
             default: return false;
         }
     }

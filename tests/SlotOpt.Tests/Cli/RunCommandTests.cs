@@ -45,3 +45,33 @@ public class RunCommandTests
         finally { Directory.Delete(dir, true); }
     }
 }
+
+public class RunLimitFlagTests
+{
+    private static string Demo(string name) => Path.Combine(AppContext.BaseDirectory, "problems", name);
+
+    // Issue 7: a run that would exceed its limits stops early with a clear message and its own exit code (5).
+    [Theory]
+    [InlineData("--max-memory", "1 MB", "--max-memory")]
+    [InlineData("--time-limit", "0.001 s", "--time-limit")]
+    public void Exceeding_a_resource_limit_exits_5_with_the_limit_named(string flag, string value, string named)
+    {
+        var run = SlotOptProcess.Run("run", Demo("tie-plate-50hz.toml"), flag, value);
+        Assert.Equal(5, run.ExitCode);
+        Assert.StartsWith("resource limit:", run.Stderr);
+        Assert.Contains(named, run.Stderr);
+        Assert.Equal("", run.Stdout);
+    }
+
+    [Theory]
+    [InlineData("--threads", "0")]
+    [InlineData("--max-memory", "lots")]
+    [InlineData("--time-limit", "-3 s")]
+    [InlineData("--search-budget", "0")]
+    public void Bad_limit_flags_are_input_errors(string flag, string value)
+    {
+        var run = SlotOptProcess.Run("run", Demo("tie-plate-50hz.toml"), flag, value);
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains(flag, run.Stderr);
+    }
+}

@@ -1,0 +1,43 @@
+using System.CommandLine;
+using SlotOpt.Design;
+using SlotOpt.Optimization;
+using SlotOpt.Problems;
+
+namespace SlotOpt.Cli;
+
+/// <summary>The flags that bound a run's use of the machine: threads, memory, wall time, and the search's deterministic budget.</summary>
+public sealed class RunLimitOptions
+{
+    private readonly Option<int?> threads = new("--threads") { Description = "Plate solves at once (default: the number of cores); results do not depend on it" };
+    private readonly Option<string> maxMemory = QuantityOption.Create("--max-memory", "Memory the plate solves may take, e.g. 4GB (default 4 GiB); a bigger grid is refused before it is built");
+    private readonly Option<string> timeLimit = QuantityOption.Create("--time-limit", "Wall time the evaluation may take, e.g. \"10 min\" (default 1 h); past it the run stops with exit code 5");
+    private readonly Option<double?> searchBudget = new("--search-budget") { Description = "Deterministic seconds each CP-SAT call may take (default 10); reproducible on any machine" };
+
+    public void AddTo(Command command)
+    {
+        command.Options.Add(threads);
+        command.Options.Add(maxMemory);
+        command.Options.Add(timeLimit);
+        command.Options.Add(searchBudget);
+    }
+
+    public EvaluationLimits Evaluation(ParseResult parseResult)
+    {
+        var limits = EvaluationLimits.Default;
+        if (parseResult.GetValue(threads) is { } n)
+            limits = n is >= 1 and <= 256 ? limits with { Threads = n } : throw new InputException($"--threads: must be between 1 and 256, got {n}");
+        if (QuantityOption.ReadPositive(parseResult, maxMemory, QuantityKind.Information) is { } bytes)
+            limits = limits with { MaxMemoryBytes = (long)Math.Min(bytes, long.MaxValue / 2) };
+        if (QuantityOption.ReadPositive(parseResult, timeLimit, QuantityKind.Duration) is { } seconds)
+            limits = limits with { MaxSeconds = seconds };
+        return limits;
+    }
+
+    public CpSatSettings Search(ParseResult parseResult)
+    {
+        var settings = new CpSatSettings();
+        if (parseResult.GetValue(searchBudget) is { } budget)
+            settings = budget is > 0 and <= 1e6 ? settings with { MaxDeterministicTimeSeconds = budget } : throw new InputException($"--search-budget: must be between 0 and 1e6 deterministic seconds, got {budget}");
+        return settings;
+    }
+}
