@@ -2,7 +2,7 @@ using SlotOpt.Optimization;
 
 namespace SlotOpt.Cli;
 
-/// <summary>The machine-readable form of a run: the same numbers the console prints.</summary>
+/// <summary>The machine-readable form of a run: the same numbers the console prints, and nothing that changes from run to run.</summary>
 public static class RunJson
 {
     public static object From(RunResult r)
@@ -48,10 +48,10 @@ public static class RunJson
             front = r.Outcome.Front?.Points.Select(p => new { cost = p.BuildCost, loss_w = p.LossW, designs = p.CandidateIds }),
             front_complete = r.Outcome.Front is { } f ? f.Status == SelectionStatus.Optimal && !f.IsCapped : (bool?)null,
             diagnosis = r.Outcome.Diagnosis?.Explain(),
+            // effort in reproducible units only (wall times differ run to run; the console prints them)
             sheet_solves = r.SheetSolves,
-            evaluation_seconds = r.EvaluationSeconds,
-            cp_sat_seconds = r.Outcome.Effort.WallSeconds,
             cp_sat_calls = r.Outcome.Effort.SolverCalls,
+            cp_sat_deterministic_seconds = r.Outcome.Effort.DeterministicSeconds,
         };
     }
 }

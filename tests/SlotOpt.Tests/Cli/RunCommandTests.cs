@@ -75,3 +75,20 @@ public class RunLimitFlagTests
         Assert.Contains(flag, run.Stderr);
     }
 }
+
+public class RunReproducibilityTests
+{
+    // Issue 7: the same input gives byte-identical JSON across two runs and across 1 and 2 threads
+    // (CP-SAT runs one worker with a fixed seed and a deterministic budget; plate solves are independent).
+    [Fact]
+    public void Same_problem_gives_byte_identical_json_across_runs_and_threads()
+    {
+        var demo = Path.Combine(AppContext.BaseDirectory, "problems", "conveyor-rail.toml");
+        var first = SlotOptProcess.Run("run", demo, "--json", "--threads", "1");
+        var second = SlotOptProcess.Run("run", demo, "--json", "--threads", "2");
+        var third = SlotOptProcess.Run("run", demo, "--json", "--threads", "2");
+        Assert.Equal(0, first.ExitCode);
+        Assert.Equal(first.Stdout, second.Stdout);
+        Assert.Equal(second.Stdout, third.Stdout);
+    }
+}
