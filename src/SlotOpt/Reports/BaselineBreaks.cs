@@ -1,0 +1,29 @@
+using System.Globalization;
+using SlotOpt.Optimization;
+
+namespace SlotOpt.Reports;
+
+/// <summary>What a baseline breaks: each part's rule or limit (from the engine), and the budget and loss cap, which the engine does not check for baselines.</summary>
+public static class BaselineBreaks
+{
+    public static IReadOnlyList<string> Of(RunResult r, Baseline b)
+    {
+        var broken = b.Breaks.ToList();
+        var cur = r.Problem.Economics.Currency;
+        if (r.Problem.Limits.Budget is { } budget && b.BuildCost > budget)
+            broken.Add(string.Create(CultureInfo.InvariantCulture, $"build cost {b.BuildCost:0.00} {cur} is over the budget of {budget:0.00} {cur}"));
+        if (r.Problem.Limits.TotalLossCapW is { } cap && b.LossW > cap)
+            broken.Add(string.Create(CultureInfo.InvariantCulture, $"loss {b.LossW:0.###} W is over the loss cap of {cap:0.###} W"));
+        return broken;
+    }
+
+    /// <summary>A legend's few words: "(breaks a part's limit, over budget)", or nothing.</summary>
+    public static string Short(RunResult r, Baseline b)
+    {
+        var words = new List<string>();
+        if (b.Breaks.Count > 0) words.Add("breaks a part's limit");
+        if (r.Problem.Limits.Budget is { } budget && b.BuildCost > budget) words.Add("over budget");
+        if (r.Problem.Limits.TotalLossCapW is { } cap && b.LossW > cap) words.Add("over the loss cap");
+        return words.Count == 0 ? "" : $" ({string.Join(", ", words)})";
+    }
+}

@@ -1,0 +1,88 @@
+using System.Globalization;
+using ScottPlot;
+using SlotOpt.Design;
+using SlotOpt.Optimization;
+using SlotOpt.Sheets;
+
+namespace SlotOpt.Reports;
+
+/// <summary>
+/// Drag against speed for a plate passed by moving poles: the chosen option, the solid plate of the same
+/// sheet and the reference. In the resistance-limited (low-speed) model drag is proportional to speed,
+/// F(v) = F(v0) v / v0, so each line comes from the option's drag at the run's speed; it holds while the
+/// magnetic Reynolds number mu0 sigma t v / 2 stays below <see cref="Validity.ReynoldsLimit"/>. Beyond
+/// the speed where it reaches that limit the line is dashed.
+/// </summary>
+public static class DragSpeedPlot
+{
+    public static string FileStemFor(int partIndex, PlatePart part) => $"drag-speed-{partIndex + 1}-{FileNames.Slug(part.Name)}";
+
+    public static Figure Build(int partIndex, PartEvaluation plate, EvaluatedOption chosen, Problem problem)
+    {
+        var part = (PlatePart)plate.Part;
+        var v0 = part.Excitation.SpeedMPerS;
+        var lines = new List<(EvaluatedOption Option, string Label)> { (chosen, "chosen") };
+        var solid = SolidCounterpart.Of(plate, chosen);
+        if (!ReferenceEquals(solid, chosen)) lines.Add((solid, "solid plate, same sheet"));
+        if (!lines.Any(l => l.Option.Id == plate.Reference.Id)) lines.Add((plate.Reference, plate.ReferenceIsCurrent ? "current design" : "baseline"));
+        var limitSpeeds = lines.Select(l => ReynoldsLimitSpeed(part, l.Option, problem)).ToList();
+        var vMax = Math.Max(2 * v0, Math.Min(1.25 * limitSpeeds.Max(), 4 * v0));
+
+        var plot = PlotStyle.NewPlot($"{part.Name}: drag against speed (low-speed model)", "speed (m/s)", "drag (N)");
+        var marked = new HashSet<double>();
+        for (var k = 0; k < lines.Count; k++)
+        {
+            var (option, label) = lines[k];
+            var slope = option.DragN!.Value / v0;
+            var vStar = limitSpeeds[k];
+            var colour = PlotStyle.Series[k % PlotStyle.Series.Count];
+            var vValid = Math.Min(vStar, vMax);
+            var valid = plot.Add.ScatterLine(new[] { 0, vValid }, new[] { 0, slope * vValid });
+            valid.Color = colour;
+            valid.LineWidth = 2.5f;
+            var sheet = (PlateChoice)option.Choice;
+            valid.LegendText = string.Create(CultureInfo.InvariantCulture, $"{label}: {sheet.ThicknessM * 1e3:0.###} mm {sheet.Material}, {(sheet.Slots is null ? "solid" : "slotted")}, {option.DragN:0.##} N at {v0:0.##} m/s");
+            if (vStar < vMax)
+            {
+                var beyond = plot.Add.ScatterLine(new[] { vStar, vMax }, new[] { slope * vStar, slope * vMax });
+                beyond.Color = colour;
+                beyond.LineWidth = 1.5f;
+                beyond.LinePattern = LinePattern.Dashed;
+            }
+            plot.Add.Marker(v0, option.DragN.Value, MarkerShape.FilledCircle, 9, colour);
+            if (vStar <= vMax && marked.Add(Math.Round(vStar, 6)))
+            {
+                var rm = plot.Add.VerticalLine(vStar, 1.2f, colour, LinePattern.Dotted);
+                rm.LegendText = string.Create(CultureInfo.InvariantCulture, $"Rm = {Validity.ReynoldsLimit} at {vStar:0.##} m/s ({((PlateChoice)option.Choice).ThicknessM * 1e3:0.###} mm {((PlateChoice)option.Choice).Material})");
+            }
+        }
+        var run = plot.Add.VerticalLine(v0, 1, PlotStyle.Grey, LinePattern.Solid);
+        run.LegendText = string.Create(CultureInfo.InvariantCulture, $"run speed {v0:0.##} m/s");
+        if (part.MaxDragN is { } maxDrag)
+        {
+            var limit = plot.Add.HorizontalLine(maxDrag, 1.5f, PlotStyle.Black, LinePattern.Dashed);
+            limit.LegendText = string.Create(CultureInfo.InvariantCulture, $"drag limit {maxDrag:0.##} N");
+        }
+        var beyondRange = limitSpeeds.Where(v => v > vMax).ToList();
+        var note = plot.Add.Annotation("Low-speed model: drag ∝ speed, valid while the magnetic\nReynolds number μ0σtv/2 stays below 0.3; dashed beyond."
+            + (beyondRange.Count > 0 ? string.Create(CultureInfo.InvariantCulture, $"\nRm reaches 0.3 only above {beyondRange.Min():0.#} m/s (off the plot).") : ""), Alignment.UpperRight);
+        note.LabelFontSize = 12;
+        note.LabelFontName = PlotStyle.FontName;
+        plot.Axes.SetLimits(0, vMax, 0, Math.Max(lines.Max(l => l.Option.DragN!.Value / v0) * vMax, part.MaxDragN ?? 0) * 1.5);   // headroom above the lines for the legend and the note
+        plot.Legend.Alignment = Alignment.UpperLeft;
+        plot.ShowLegend();
+        var caption = string.Create(CultureInfo.InvariantCulture,
+            $"Drag scaled from each option's drag at the run's {v0:0.##} m/s (dots); the designs are described in full above. The model neglects the eddy currents' own field; above Rm = {Validity.ReynoldsLimit} it overstates the drag (by about 6-9 % at 0.3, more above), and at high speed real drag passes a maximum and falls. Not a brake rating.");
+        return PlotStyle.Render(plot, FileStemFor(partIndex, part), $"Drag against speed: {part.Name}", caption);
+    }
+
+    /// <summary>The speed at which this option's sheet reaches the Reynolds-number limit: Rm is proportional to v.</summary>
+    public static double ReynoldsLimitSpeed(PlatePart part, EvaluatedOption option, Problem problem)
+    {
+        var choice = (PlateChoice)option.Choice;
+        var material = problem.Library.GetConductor(choice.Material, part.Name);
+        var sheet = new Sheets.Conductor(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
+        var v0 = part.Excitation.SpeedMPerS;
+        return v0 * Validity.ReynoldsLimit / Validity.ForMoving(sheet, v0).ReynoldsNumber;
+    }
+}

@@ -1,0 +1,300 @@
+using System.Globalization;
+using SlotOpt.Design;
+using SlotOpt.Optimization;
+
+namespace SlotOpt.Reports;
+
+/// <summary>
+/// What the report says, in order: the job and its inputs, the chosen design in workshop words, what it
+/// saves, which limits bind, the plots, the options the rules dropped, the validity flags, and the
+/// assumptions and cautions. Numbers are formatted as the console prints them (RunText), so the two agree.
+/// </summary>
+public static class ReportContent
+{
+    private static readonly CultureInfo Ci = CultureInfo.InvariantCulture;
+
+    public static ReportDocument Build(RunResult r, ReportFigures figures, string stampLine)
+    {
+        var blocks = new List<ReportBlock> { new StampLine(stampLine) };
+        Job(r, blocks);
+        Result(r, blocks);
+        Savings(r, blocks);
+        Limits(r, blocks);
+        Plots(r, figures, blocks);
+        Rejections(r, blocks);
+        Flags(r, blocks);
+        Cautions(r, blocks);
+        Files(figures, blocks);
+        return new ReportDocument(r.Problem.Name, blocks);
+    }
+
+    private static string F(FormattableString s) => s.ToString(Ci);
+    private static string Cur(RunResult r) => r.Problem.Economics.Currency;
+
+    private static void Job(RunResult r, List<ReportBlock> b)
+    {
+        var p = r.Problem;
+        var e = p.Economics;
+        b.Add(new Heading("The job"));
+        b.Add(new Paragraph(F($"Problem file {Path.GetFileName(p.SourcePath)}; goal: {GoalWords(p.Goal)}. Currency {e.Currency}.")));
+        var economics = F($"A watt of continuous loss is worth {e.ValuePerWatt:0.###} {e.Currency} over the life");
+        if (e.EnergyPricePerKWh is { } price && e.HoursPerYear is { } hours)
+            economics += F($" (energy at {price:0.###} {e.Currency}/kWh for {hours:0} h a year") + (e.Years is { } years ? F($", {years:0.#} years") : "")
+                + (e.DiscountRate is { } rate ? F($" discounted at {rate * 100:0.#} %") : "") + ")";
+        b.Add(new Paragraph(economics + "."));
+        var rows = r.Parts.Select(pe => (IReadOnlyList<string>)[pe.Part.Name, Inputs(pe.Part), pe.Options.Count.ToString(Ci), pe.Feasible.Count.ToString(Ci)]).ToList();
+        b.Add(new Table(["part", "inputs", "options evaluated", "within the rules"], rows, [false, false, true, true]));
+        var limits = SharedLimitLines(p).ToList();
+        b.Add(new Paragraph(limits.Count == 0 ? "No shared limits across the parts." : "Shared limits: " + string.Join("; ", limits) + "."));
+        if (p.Warnings.Count > 0) b.Add(new BulletList(p.Warnings.Select(w => "warning: " + w).ToList()));
+        b.Add(new Paragraph(F($"{r.Parts.Sum(pe => pe.Options.Count)} options evaluated ({r.Parts.Sum(pe => pe.Feasible.Count)} within the rules), {r.SheetSolves} plate solves; CP-SAT {r.Outcome.Effort.SolverCalls} calls.")));
+    }
+
+    private static string GoalWords(DesignGoal goal) => goal switch
+    {
+        DesignGoal.LowestOwningCost => "the lowest owning cost (build cost plus the capitalised loss)",
+        DesignGoal.LowestLossWithinBudget => "the lowest loss within the budget",
+        DesignGoal.LowestCostWithinLossCap => "the lowest build cost within the loss cap",
+        DesignGoal.TradeOffCurve => "the trade-off curve of loss against build cost, and on it the lowest owning cost",
+        _ => goal.ToString(),
+    };
+
+    private static string Inputs(Part part) => part switch
+    {
+        CorePart c => F($"laminated core: {c.LaminationAreaM2 * 1e4:0.##} cm² lamination area, {c.StackHeightM * 1e3:0.#} mm stack; {c.Flux.PeakT:0.###} T peak at {c.Flux.FundamentalHz:0.#} Hz, {(c.Flux.IsSinusoidal ? "sine" : "non-sinusoidal waveform")}; {c.TemperatureK - 273.15:0} °C")
+            + (double.IsFinite(c.FeatureWidthM) ? F($"; narrowest feature {c.FeatureWidthM * 1e3:0.##} mm") : "")
+            + $"; grades {string.Join(", ", c.Grades)}; processes {string.Join(", ", c.Processes)}"
+            + (c.MaxLossW is { } max ? F($"; loss limit {max:0.##} W") : ""),
+        PlatePart pl => PlateInputs(pl),
+        _ => throw new ArgumentOutOfRangeException(nameof(part), part.GetType().Name, "unknown part kind"),
+    };
+
+    private static string PlateInputs(PlatePart p)
+    {
+        var (min, max) = p.Outline.Bounds;
+        var source = p.Excitation.Moving is { } poles
+            ? F($"{poles.Poles.Count} poles passing at {poles.SpeedMPerS:0.##} m/s")
+            : F($"AC field at {p.Excitation.FrequencyHz:0.#} Hz");
+        return F($"plate {(max.X - min.X) * 1e3:0.#} x {(max.Y - min.Y) * 1e3:0.#} mm; {source}; {p.TemperatureK - 273.15:0} °C; thicknesses ")
+            + string.Join(", ", p.ThicknessesM.Select(t => F($"{t * 1e3:0.###} mm"))) + $"; materials {string.Join(", ", p.Materials)}; processes {string.Join(", ", p.Processes)}; "
+            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{PlateOptions.PatternWord(f.Pattern)} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
+            + F($"; uncut ligament at least {p.MinLigamentM * 1e3:0.#} mm")
+            + (p.MaxDragN is { } drag ? F($"; drag limit {drag:0.##} N") : "")
+            + (p.MaxLossW is { } loss ? F($"; loss limit {loss:0.##} W") : "");
+    }
+
+    private static IEnumerable<string> SharedLimitLines(Problem p)
+    {
+        if (p.Limits.Budget is { } budget) yield return F($"build budget {budget:0.00} {p.Economics.Currency}");
+        if (p.Limits.TotalLossCapW is { } cap) yield return F($"total loss cap {cap:0.###} W");
+        foreach (var group in p.Limits.CoilGroups) yield return $"{string.Join(" and ", group)} cut from one coil (same grade and gauge)";
+        if (p.Limits.MaxDistinctProcesses is { } n) yield return F($"at most {n} cutting processes");
+    }
+
+    private static void Result(RunResult r, List<ReportBlock> b)
+    {
+        b.Add(new Heading("The chosen design"));
+        if (r.Chosen is null)
+        {
+            b.Add(new Paragraph(r.Outcome.Status == SelectionStatus.Infeasible
+                ? "No design meets every limit. The diagnosis:"
+                : "The search ran out of its time budget before finding a design that meets every limit."));
+            if (r.Outcome.Diagnosis is { } d) b.Add(new BulletList(d.Explain()));
+            return;
+        }
+        b.Add(new Paragraph(r.Outcome.Status == SelectionStatus.FeasibleAtLimit
+            ? "The search hit its time budget: the design below meets every limit but is not proven best."
+            : "Proven best for the goal within every limit (CP-SAT, optimal)."));
+        var rows = new List<IReadOnlyList<string>>();
+        for (var i = 0; i < r.Chosen.Count; i++)
+        {
+            var c = r.Chosen[i];
+            var reference = r.Parts[i].Reference;
+            rows.Add([c.PartName, "chosen", WorkshopWords.Of(c), F($"{c.Loss.TotalW:0.###}"), Drag(c.DragN), F($"{c.BuildCost:0.00}")]);
+            rows.Add(["", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})"),
+                F($"{reference.Loss.TotalW:0.###}"), Drag(reference.DragN), F($"{reference.BuildCost:0.00}")]);
+        }
+        b.Add(new Table(["part", "", "design", "loss (W)", "drag (N)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true]));
+    }
+
+    private static string Drag(double? dragN) => dragN is { } d ? F($"{d:0.###}") : "";
+
+    private static void Savings(RunResult r, List<ReportBlock> b)
+    {
+        var vpw = r.Problem.Economics.ValuePerWatt;
+        var cur = Cur(r);
+        b.Add(new Heading("Against the reference and the baselines"));
+        if (r.HasDesign)
+        {
+            var reference = r.Reference;
+            var savedW = reference.LossW - r.TotalLossW;
+            var savedOwning = reference.OwningCost(vpw) - r.OwningCost;
+            var extraCost = r.TotalBuildCost - reference.BuildCost;
+            var text = F($"Against the {reference.Name}, the chosen design saves {savedW:0.###} W");
+            if (r.Problem.Economics.YearlyCostPerWatt is { } perYear)
+            {
+                text += F($" = {savedW * perYear:0.00} {cur} a year");
+                if (extraCost > 0 && savedW * perYear > 0) text += F($" (its extra build cost of {extraCost:0.00} {cur} is paid back in {extraCost / (savedW * perYear):0.#} years, undiscounted)");
+            }
+            else text += " (the energy price and hours are not given, so no figure per year)";
+            text += F($", and {savedOwning:0.00} {cur} of owning cost over the life (loss at {vpw:0.###} {cur}/W).");
+            b.Add(new Paragraph(text));
+        }
+        var rows = new List<IReadOnlyList<string>>();
+        if (r.HasDesign) rows.Add(["chosen design", F($"{r.TotalLossW:0.###}"), F($"{r.TotalBuildCost:0.00}"), F($"{r.OwningCost:0.00}"), "meets every limit"]);
+        foreach (var baseline in r.Baselines)
+            rows.Add([baseline.Name, F($"{baseline.LossW:0.###}"), F($"{baseline.BuildCost:0.00}"), F($"{baseline.OwningCost(vpw):0.00}"),
+                BaselineBreaks.Of(r, baseline) is { Count: > 0 } broken ? string.Join("\n", broken) : "meets every limit"]);
+        b.Add(new Table(["design", "loss (W)", $"build cost ({cur})", $"owning cost ({cur})", "limits it breaks"], rows, [false, true, true, true, false]));
+        b.Add(new Paragraph("The baselines are whole-product designs: the first is the design the file calls current (or solid plates and the first grade listed); then every core at its thickest and at its thinnest gauge with every plate solid. They are checked against the parts' rules and limits, the budget and the loss cap; not against the coil and process-count limits."));
+    }
+
+    private static void Limits(RunResult r, List<ReportBlock> b)
+    {
+        b.Add(new Heading("Which limits bind"));
+        var lines = new List<string>();
+        var limits = r.Problem.Limits;
+        if (r.Chosen is { } chosen)
+        {
+            if (limits.Budget is { } budget) lines.Add(Against("build budget", r.TotalBuildCost, budget, Cur(r), "0.00"));
+            if (limits.TotalLossCapW is { } cap) lines.Add(Against("total loss cap", r.TotalLossW, cap, "W", "0.###"));
+            foreach (var group in limits.CoilGroups)
+            {
+                var coils = chosen.Where(o => group.Contains(o.PartName)).Select(o => o.Attributes.TryGetValue("coil", out var c) ? c : "?").Distinct().ToList();
+                lines.Add($"one coil for {string.Join(" and ", group)}: {string.Join(", ", coils)}");
+            }
+            if (limits.MaxDistinctProcesses is { } n)
+            {
+                var used = chosen.Select(o => o.Attributes["process"]).Distinct().ToList();
+                lines.Add(F($"cutting processes: {used.Count} used ({string.Join(", ", used)}) of at most {n}") + (used.Count == n ? ": at the limit" : ""));
+            }
+            for (var i = 0; i < chosen.Count; i++)
+            {
+                var part = r.Parts[i].Part;
+                if (part is PlatePart { MaxDragN: { } maxDrag } && chosen[i].DragN is { } drag) lines.Add(Against($"{part.Name}: drag limit", drag, maxDrag, "N", "0.###"));
+                if (part.MaxLossW is { } maxLoss) lines.Add(Against($"{part.Name}: loss limit", chosen[i].Loss.TotalW, maxLoss, "W", "0.###"));
+            }
+            if (lines.Count == 0) lines.Add("The problem sets no limits: the goal alone picked the design.");
+        }
+        else
+        {
+            lines.AddRange(r.Outcome.Diagnosis?.Explain() ?? ["no diagnosis: the search ran out of its time budget"]);
+        }
+        b.Add(new BulletList(lines));
+        b.Add(new Paragraph(F($"A limit is said to bind when the design uses it to within {BindingFraction * 100:0.#} %; a limit with room left did not shape the choice.")));
+    }
+
+    /// <summary>A limit used to within this fraction of itself is reported as binding.</summary>
+    public const double BindingFraction = 0.01;
+
+    private static string Against(string name, double value, double limit, string unit, string format)
+    {
+        var v = value.ToString(format, Ci);
+        var l = limit.ToString(format, Ci);
+        return limit - value <= BindingFraction * Math.Abs(limit)
+            ? $"{name}: {v} of {l} {unit}: binds"
+            : $"{name}: {v} of {l} {unit}: {(limit - value).ToString(format, Ci)} {unit} of room";
+    }
+
+    private static void Plots(RunResult r, ReportFigures figures, List<ReportBlock> b)
+    {
+        if (figures.TradeOff is { } tradeOff)
+        {
+            b.Add(new Heading("Trade-off: loss against build cost"));
+            b.Add(new FigureBlock(tradeOff));
+            var vpw = r.Problem.Economics.ValuePerWatt;
+            var front = r.Outcome.Front!;
+            var rows = front.Points.Select(p => (IReadOnlyList<string>)[F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{p.BuildCost + vpw * p.LossW:0.00}"),
+                string.Join("\n", p.CandidateIds.Select(id => r.Option(id).Description))]).ToList();
+            b.Add(new Paragraph($"{front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? ", each proven" : ", not all proven")}:"));
+            b.Add(new Table([$"build cost ({Cur(r)})", "loss (W)", $"owning cost ({Cur(r)})", "design"], rows, [true, true, true, false]));
+        }
+        if (figures.LossBreakdown is { } breakdown)
+        {
+            b.Add(new Heading("Loss breakdown"));
+            b.Add(new FigureBlock(breakdown));
+        }
+        foreach (var (curves, figure) in figures.LossFrequency)
+        {
+            b.Add(new Heading($"Loss against frequency: {curves.Part.Name}"));
+            b.Add(new FigureBlock(figure));
+            b.Add(new BulletList(curves.Crossings.Count == 0
+                ? ["no gauge overtakes another between a tenth and ten times the operating frequency"]
+                : curves.Crossings.Select(c => F($"above {c.FrequencyHz:0.#} Hz {c.BetterAbove} loses less than {c.BetterBelow} ({c.LossW:0.##} W at the crossing)")).ToList()));
+        }
+        foreach (var (part, figure) in figures.CurrentDensity)
+        {
+            b.Add(new Heading($"Current density: {part.Name}"));
+            b.Add(new FigureBlock(figure));
+        }
+        foreach (var (part, figure) in figures.DragSpeed)
+        {
+            b.Add(new Heading($"Drag against speed: {part.Name}"));
+            b.Add(new FigureBlock(figure));
+        }
+    }
+
+    private static void Rejections(RunResult r, List<ReportBlock> b)
+    {
+        b.Add(new Heading("Options dropped by the rules"));
+        var rows = r.Parts.SelectMany(p => p.RejectionCounts.Select(kv => (IReadOnlyList<string>)[p.Part.Name, kv.Key, kv.Value.ToString(Ci)])).ToList();
+        if (rows.Count == 0) b.Add(new Paragraph("Every option passed the manufacturing rules and the parts' own limits."));
+        else b.Add(new Table(["part", "rule", "options dropped"], rows, [false, false, true]));
+        b.Add(new Paragraph("candidates.csv lists every option with the rule it broke."));
+    }
+
+    private static void Flags(RunResult r, List<ReportBlock> b)
+    {
+        b.Add(new Heading("Validity flags"));
+        var lines = new List<string>();
+        if (r.Chosen is { } chosen)
+        {
+            foreach (var o in chosen)
+            {
+                if (o.Attributes.TryGetValue("reynolds_number", out var rm)) lines.Add($"{o.PartName}: magnetic Reynolds number {rm} (limit of the low-speed, resistance-limited model: {Sheets.Validity.ReynoldsLimit})");
+                lines.AddRange(o.Flags.Select(f => $"{o.PartName}: {f}"));
+            }
+            if (!chosen.Any(o => o.Flags.Count > 0)) lines.Add("The chosen design raises no validity flag (flux below the knee, sheets thin against the skin depth, coefficients used near their data, Reynolds number below its limit).");
+        }
+        var all = r.Parts.SelectMany(p => p.Options).ToList();
+        lines.Add(F($"{all.Count(o => o.Flags.Count > 0)} of {all.Count} evaluated options carry at least one flag (see the flags column of candidates.csv)."));
+        b.Add(new BulletList(lines));
+    }
+
+    private static void Cautions(RunResult r, List<ReportBlock> b)
+    {
+        b.Add(new Heading("Assumptions and cautions"));
+        var items = new List<string>
+        {
+            "The figures are engineering estimates from published loss models and a thin-plate eddy-current model; confirm them by test on the real part before relying on them.",
+            "Core loss: loss separation (hysteresis, classical eddy with skin and finite-width corrections, excess) with coefficients derived from the grades' guaranteed limits, not measured on your steel; cutting damage, burrs and stacking pressure add loss not modelled here.",
+            "Plates: resistance-limited thin-plate model (the eddy currents' own field neglected), non-magnetic plates, uniform thickness; it overstates loss and drag where the Reynolds number or thickness over skin depth is flagged.",
+            "Prices in the built-in data are invented demo prices; the owning cost is only as good as the value per watt put on the loss.",
+            "Braking and load-holding uses (eddy-current brakes, rails or plates whose drag stops or holds a load) need a certified safety analysis; the drag here is not a brake rating.",
+            "Hot structural parts carry burn and fire hazards, and their resistivity, strength and loss change with temperature; check the temperature the loss itself causes.",
+            "Cryogenic cooling brings its own hazards (asphyxiation, cold burns, pressure build-up on boil-off, embrittlement) and resistivities far below room-temperature values.",
+            "High currents and strong fields need the usual electrical safety measures, and strong magnets pinch and attract tools.",
+            "Follow local codes and licensed engineering practice; this report does not replace them.",
+        };
+        if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.Excitation.IsMoving))
+            items.Insert(4, "This problem has a moving source: if that drag ever slows, stops or holds a load, the design is part of a safety function and needs that analysis before use.");
+        var temperatures = r.Problem.Parts.Select(p => p.TemperatureK).ToList();
+        if (temperatures.Any(t => t > 373.15)) items.Insert(items.Count - 1, "A part here runs above 100 °C: see the hot-part caution above.");
+        if (temperatures.Any(t => t < 123)) items.Insert(items.Count - 1, "A part here runs at a cryogenic temperature: see the cryogenic caution above.");
+        b.Add(new BulletList(items));
+    }
+
+    private static void Files(ReportFigures figures, List<ReportBlock> b)
+    {
+        b.Add(new Heading("Files in this folder"));
+        var items = new List<string>
+        {
+            "index.html: this report, self-contained (plots embedded)",
+            "summary.md: the same report as Markdown",
+            "candidates.csv: every evaluated option, its inputs, loss, drag, cost, owning cost and the rule it broke",
+            "result.json: the machine-readable result (as slotopt run --json prints it, without the wall-clock timings)",
+        };
+        items.AddRange(figures.All.Select(f => $"{f.PngFileName}, {f.SvgFileName}: {f.Title}"));
+        b.Add(new BulletList(items));
+    }
+}

@@ -1,0 +1,45 @@
+using SlotOpt.Design;
+using SlotOpt.Optimization;
+
+namespace SlotOpt.Reports;
+
+/// <summary>
+/// Every plot of one run: the trade-off curve and the loss breakdown (when there is a front and a design),
+/// loss against frequency for each core part, and for each plate the current-density map (and drag
+/// against speed where a source moves).
+/// </summary>
+public sealed record ReportFigures(
+    Figure? TradeOff,
+    Figure? LossBreakdown,
+    IReadOnlyList<(LossFrequencyCurves Curves, Figure Figure)> LossFrequency,
+    IReadOnlyList<(PlatePart Part, Figure Figure)> CurrentDensity,
+    IReadOnlyList<(PlatePart Part, Figure Figure)> DragSpeed)
+{
+    public IEnumerable<Figure> All =>
+        new[] { TradeOff, LossBreakdown }.OfType<Figure>()
+            .Concat(LossFrequency.Select(x => x.Figure)).Concat(CurrentDensity.Select(x => x.Figure)).Concat(DragSpeed.Select(x => x.Figure));
+
+    public static ReportFigures Of(RunResult r)
+    {
+        var lossFrequency = new List<(LossFrequencyCurves, Figure)>();
+        var currentDensity = new List<(PlatePart, Figure)>();
+        var dragSpeed = new List<(PlatePart, Figure)>();
+        for (var i = 0; i < r.Parts.Count; i++)
+        {
+            var evaluation = r.Parts[i];
+            var chosen = r.Chosen?[i];
+            switch (evaluation.Part)
+            {
+                case CorePart core:
+                    var curves = LossFrequencyCurves.Of(core, r.Problem);
+                    lossFrequency.Add((curves, LossFrequencyPlot.Build(i, curves, (chosen?.Choice as CoreChoice)?.Grade)));
+                    break;
+                case PlatePart plate when chosen is not null:
+                    currentDensity.Add((plate, CurrentDensityPlot.Build(i, evaluation, chosen, r.Problem)));
+                    if (plate.Excitation.IsMoving) dragSpeed.Add((plate, DragSpeedPlot.Build(i, evaluation, chosen, r.Problem)));
+                    break;
+            }
+        }
+        return new ReportFigures(TradeOffPlot.Build(r), LossBreakdownPlot.Build(r), lossFrequency, currentDensity, dragSpeed);
+    }
+}

@@ -1,0 +1,97 @@
+namespace SlotOpt.Reports;
+
+/// <summary>
+/// A report folder written atomically: every file goes into a hidden temporary sibling of the target,
+/// which is moved into place by <see cref="Commit"/> (a rename on the same file system). Until then the
+/// target does not exist (or, with overwrite, still holds the previous report). Disposing without a
+/// commit, or <see cref="Abandon"/> from a signal handler, deletes the temporary folder.
+/// </summary>
+public sealed class ReportFolder : IDisposable
+{
+    private readonly object gate = new();
+    private readonly bool overwrite;
+    private bool finished;
+
+    private ReportFolder(string targetPath, string temporaryPath, bool overwrite)
+    {
+        TargetPath = targetPath;
+        TemporaryPath = temporaryPath;
+        this.overwrite = overwrite;
+    }
+
+    public string TargetPath { get; }
+    public string TemporaryPath { get; }
+
+    /// <summary>Prefix of the temporary sibling of a target folder ("DIR" -> ".DIR.partial-").</summary>
+    public static string TemporaryPrefix(string targetPath) => $".{Path.GetFileName(Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath)))}.partial-";
+
+    /// <exception cref="InputException">The target exists and overwrite is false, or its parent folder is missing.</exception>
+    public static void CheckTarget(string targetPath, bool overwrite)
+    {
+        var full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath));
+        if (File.Exists(full)) throw new InputException($"--out {targetPath}: a file of that name exists; give a folder name");
+        if (Directory.Exists(full) && !overwrite) throw new InputException($"--out {targetPath}: the folder exists; pass --force to replace it");
+        var parent = Path.GetDirectoryName(full);
+        if (parent is null || !Directory.Exists(parent)) throw new InputException($"--out {targetPath}: the parent folder {parent} does not exist");
+    }
+
+    public static ReportFolder Begin(string targetPath, bool overwrite)
+    {
+        CheckTarget(targetPath, overwrite);
+        var full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath));
+        var temporary = Path.Combine(Path.GetDirectoryName(full)!, TemporaryPrefix(full) + Guid.NewGuid().ToString("N")[..12]);
+        Directory.CreateDirectory(temporary);
+        return new ReportFolder(full, temporary, overwrite);
+    }
+
+    public void WriteBytes(string fileName, byte[] bytes) => Write(fileName, path => File.WriteAllBytes(path, bytes));
+
+    public void WriteText(string fileName, string text) => Write(fileName, path => File.WriteAllText(path, text));
+
+    /// <summary>Moves the finished folder into place; an existing target (overwrite) is moved aside first and then deleted.</summary>
+    public void Commit()
+    {
+        lock (gate)
+        {
+            EnsureOpen();
+            CheckTarget(TargetPath, overwrite);
+            string? previous = null;
+            if (Directory.Exists(TargetPath))
+            {
+                previous = TemporaryPath + ".previous";
+                Directory.Move(TargetPath, previous);
+            }
+            Directory.Move(TemporaryPath, TargetPath);
+            finished = true;
+            if (previous is not null) Directory.Delete(previous, recursive: true);
+        }
+    }
+
+    /// <summary>Deletes the temporary folder and refuses any later write; safe to call from another thread (a signal handler).</summary>
+    public void Abandon()
+    {
+        lock (gate)
+        {
+            if (finished) return;
+            finished = true;
+            if (Directory.Exists(TemporaryPath)) Directory.Delete(TemporaryPath, recursive: true);
+        }
+    }
+
+    public void Dispose() => Abandon();
+
+    private void Write(string fileName, Action<string> write)
+    {
+        if (fileName != Path.GetFileName(fileName)) throw new ArgumentException($"'{fileName}' is not a plain file name", nameof(fileName));
+        lock (gate)
+        {
+            EnsureOpen();
+            write(Path.Combine(TemporaryPath, fileName));
+        }
+    }
+
+    private void EnsureOpen()
+    {
+        if (finished) throw new InvalidOperationException("the report folder was already committed or abandoned");
+    }
+}

@@ -1,0 +1,14 @@
+using System.Globalization;
+using SlotOpt.Optimization;
+
+namespace SlotOpt.Reports;
+
+/// <summary>
+/// The report's only line that changes from run to run: the time it was generated (from the caller's
+/// clock, so a test can fix it) and the wall time the run took. Everything else depends on the problem alone.
+/// </summary>
+public static class ReportStamp
+{
+    public static string Line(RunResult r, DateTimeOffset generatedAt) => string.Create(CultureInfo.InvariantCulture,
+        $"Generated {generatedAt.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC by slotopt run; evaluation took {r.EvaluationSeconds:0.0} s, CP-SAT {r.Outcome.Effort.WallSeconds:0.00} s.");
+}

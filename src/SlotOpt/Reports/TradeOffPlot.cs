@@ -1,0 +1,73 @@
+using System.Globalization;
+using ScottPlot;
+using SlotOpt.Optimization;
+
+namespace SlotOpt.Reports;
+
+/// <summary>
+/// Loss against build cost: the trade-off front as a staircase (at any cost the lowest loss reachable),
+/// the chosen design, the three baselines, the shared limits, and for a one-part problem every
+/// option within the rules as a grey cloud. The loss axis is logarithmic when the points span more than a decade.
+/// </summary>
+public static class TradeOffPlot
+{
+    public const string FileStem = "trade-off";
+
+    public static Figure? Build(RunResult r)
+    {
+        var front = r.Outcome.Front;
+        if (front is null || front.Points.Count == 0) return null;
+        var cur = r.Problem.Economics.Currency;
+        var cloud = r.Parts.Count == 1 ? r.Parts[0].Feasible : [];
+        var allLosses = front.Points.Select(p => p.LossW).Concat(r.Baselines.Select(b => b.LossW)).Concat(cloud.Select(o => o.Loss.TotalW)).ToList();
+        var log = LogAxis.SpansMoreThanADecade(allLosses) && allLosses.All(l => l > 0);
+        double Y(double lossW) => log ? Math.Log10(lossW) : lossW;
+
+        var plot = PlotStyle.NewPlot("Loss against build cost", $"build cost ({cur} per unit)", log ? "loss (W, log scale)" : "loss (W)");
+        if (cloud.Count > 0)
+        {
+            var options = plot.Add.ScatterPoints(cloud.Select(o => o.BuildCost).ToArray(), cloud.Select(o => Y(o.Loss.TotalW)).ToArray());
+            options.Color = PlotStyle.Grey.WithAlpha(0.45);
+            options.MarkerSize = 5;
+            options.LegendText = $"options within the rules ({cloud.Count})";
+        }
+        var staircase = plot.Add.Scatter(front.Points.Select(p => p.BuildCost).ToArray(), front.Points.Select(p => Y(p.LossW)).ToArray());
+        staircase.ConnectStyle = ConnectStyle.StepHorizontal;
+        staircase.Color = PlotStyle.Blue;
+        staircase.LineWidth = 2;
+        staircase.MarkerSize = 7;
+        staircase.LegendText = $"trade-off front ({front.Points.Count} designs{(front.Status == SelectionStatus.Optimal && !front.IsCapped ? "" : ", incomplete")})";
+
+        MarkerShape[] shapes = [MarkerShape.FilledSquare, MarkerShape.FilledTriangleUp, MarkerShape.FilledTriangleDown];
+        Color[] colours = [PlotStyle.Vermillion, PlotStyle.Orange, PlotStyle.Purple];
+        for (var i = 0; i < r.Baselines.Count; i++)
+        {
+            var b = r.Baselines[i];
+            var marker = plot.Add.Marker(b.BuildCost, Y(b.LossW), shapes[i % shapes.Length], 13, colours[i % colours.Length]);
+            marker.LegendText = string.Create(CultureInfo.InvariantCulture, $"{b.Name}: {b.LossW:0.##} W, {b.BuildCost:0.00} {cur}{BaselineBreaks.Short(r, b)}");
+        }
+        if (r.HasDesign)
+        {
+            var chosen = plot.Add.Marker(r.TotalBuildCost, Y(r.TotalLossW), MarkerShape.FilledDiamond, 17, PlotStyle.Green);
+            chosen.LegendText = string.Create(CultureInfo.InvariantCulture, $"chosen: {r.TotalLossW:0.##} W, {r.TotalBuildCost:0.00} {cur}");
+        }
+        if (r.Problem.Limits.Budget is { } budget)
+        {
+            var line = plot.Add.VerticalLine(budget, 1.5f, PlotStyle.Black, LinePattern.Dashed);
+            line.LegendText = string.Create(CultureInfo.InvariantCulture, $"budget {budget:0.##} {cur}");
+        }
+        if (r.Problem.Limits.TotalLossCapW is { } cap)
+        {
+            var line = plot.Add.HorizontalLine(Y(cap), 1.5f, PlotStyle.Black, LinePattern.Dotted);
+            line.LegendText = string.Create(CultureInfo.InvariantCulture, $"loss cap {cap:0.##} W");
+        }
+        if (log) LogAxis.Apply(plot.Axes.Left, allLosses);
+        plot.Legend.Alignment = Alignment.UpperRight;
+        plot.ShowLegend();
+        var caption = "Each step of the front is the lowest total loss reachable at that build cost or below. "
+            + "Markers show the chosen design and the baselines it is compared with; a baseline may break a part's limit or a shared limit"
+            + (cloud.Count > 0 ? "; grey dots are every option of the part that passes its rules." : ".")
+            + (log ? " The loss axis is logarithmic because the points span more than a decade." : "");
+        return PlotStyle.Render(plot, FileStem, "Trade-off: loss against build cost", caption);
+    }
+}
