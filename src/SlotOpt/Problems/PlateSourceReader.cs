@@ -90,7 +90,9 @@ public static class PlateSourceReader
         var (min, max) = outline.Bounds;
         var rowLength = (count - 1) * (pitch ?? 0);
         var first = new Vec2(x ?? (min.X + max.X) / 2 - rowLength / 2, y ?? (min.Y + max.Y) / 2);
-        if (first.Y - face.HalfHeightYM > max.Y || first.Y + face.HalfHeightYM < min.Y)
+        if (2 * face.HalfHeightYM > max.Y - min.Y)
+            s.Error(shape == "circle" ? "radius" : "pole_height", $"the pole ({2 * face.HalfHeightYM * 1e3:0.###} mm across the travel) is wider than the plate it moves over ({(max.Y - min.Y) * 1e3:0.###} mm): the path must carry the whole pole face");
+        else if (first.Y - face.HalfHeightYM > max.Y || first.Y + face.HalfHeightYM < min.Y)
             s.Error("y", "puts the poles' path entirely off the plate");
         var poles = s.Guard("pole", () => MovingPoles.Row(face, first, count, pitch ?? 0, flux.Value, speed.Value));
         return poles is null ? null : PlateExcitation.MovingSource(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);

@@ -127,6 +127,24 @@ public class ProblemFileTests
     }
 
     [Fact]
+    public void A_pole_wider_than_its_path_is_an_error()
+    {
+        var moving = ValidPlate.Replace("""
+            kind = "uniform_ac"
+            peak = "10 mT"
+            frequency = "50 Hz"
+            """, """
+            kind = "moving_poles"
+            pole = "rectangle"
+            pole_width = "20 mm"
+            pole_height = "80 mm"
+            flux_density = "0.3 T"
+            speed = "1 m/s"
+            """);
+        Assert.Contains("parts[1].source.pole_height: the pole (80 mm across the travel) is wider than the plate it moves over (60 mm)", ReadFails(moving).Message);
+    }
+
+    [Fact]
     public void A_pole_path_off_the_plate_is_an_error()
     {
         var moving = ValidPlate.Replace("""
