@@ -3,8 +3,9 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// A report folder written atomically: every file goes into a hidden temporary sibling of the target,
 /// which is moved into place by <see cref="Commit"/> (a rename on the same file system). Until then the
-/// target does not exist (or, with overwrite, still holds the previous report). Disposing without a
-/// commit, or <see cref="Abandon"/> from a signal handler, deletes the temporary folder.
+/// target does not exist (or, with overwrite, still holds the previous report). The temporary folder is
+/// made by the first write, so a caller can hook <see cref="Abandon"/> to its signal handlers between
+/// <see cref="Begin"/> and that write; disposing without a commit, or Abandon, deletes it.
 /// </summary>
 public sealed class ReportFolder : IDisposable
 {
@@ -40,7 +41,6 @@ public sealed class ReportFolder : IDisposable
         CheckTarget(targetPath, overwrite);
         var full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath));
         var temporary = Path.Combine(Path.GetDirectoryName(full)!, TemporaryPrefix(full) + Guid.NewGuid().ToString("N")[..12]);
-        Directory.CreateDirectory(temporary);
         return new ReportFolder(full, temporary, overwrite);
     }
 
@@ -54,6 +54,7 @@ public sealed class ReportFolder : IDisposable
         lock (gate)
         {
             EnsureOpen();
+            Directory.CreateDirectory(TemporaryPath);
             CheckTarget(TargetPath, overwrite);
             string? previous = null;
             if (Directory.Exists(TargetPath))
@@ -86,6 +87,7 @@ public sealed class ReportFolder : IDisposable
         lock (gate)
         {
             EnsureOpen();
+            Directory.CreateDirectory(TemporaryPath);
             write(Path.Combine(TemporaryPath, fileName));
         }
     }
