@@ -23,7 +23,7 @@ public static class LossFrequencyPlot
             line.LineWidth = c.Grade == chosenGrade ? 4 : 2;
             line.LegendText = string.Create(CultureInfo.InvariantCulture, $"{c.Grade} ({c.GaugeMm:0.00} mm){(c.Grade == chosenGrade ? ", chosen" : "")}");
         }
-        var operating = plot.Add.VerticalLine(Math.Log10(f0), 1.5f, PlotStyle.Black, LinePattern.Dashed);
+        var operating = plot.Add.VerticalLine(Math.Log10(f0), 1.5f, PlotStyle.Black);
         operating.LegendText = string.Create(CultureInfo.InvariantCulture, $"operating frequency {f0:0.#} Hz");
         if (curves.Crossings.Count > 0)
         {

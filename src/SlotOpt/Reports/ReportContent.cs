@@ -204,10 +204,11 @@ public static class ReportContent
             b.Add(new FigureBlock(tradeOff));
             var vpw = r.Problem.Economics.ValuePerWatt;
             var front = r.Outcome.Front!;
-            var rows = front.Points.Select(p => (IReadOnlyList<string>)[F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{p.BuildCost + vpw * p.LossW:0.00}"),
+            var chosenIds = r.Chosen?.Select(o => o.Id).ToList() ?? [];
+            var rows = front.Points.Select(p => (IReadOnlyList<string>)[p.CandidateIds.SequenceEqual(chosenIds) ? "chosen" : "", F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{p.BuildCost + vpw * p.LossW:0.00}"),
                 string.Join("\n", p.CandidateIds.Select(id => r.Option(id).Description))]).ToList();
             b.Add(new Paragraph($"{front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? ", each proven" : ", not all proven")}:"));
-            b.Add(new Table([$"build cost ({Cur(r)})", "loss (W)", $"owning cost ({Cur(r)})", "design"], rows, [true, true, true, false]));
+            b.Add(new Table(["", $"build cost ({Cur(r)})", "loss (W)", $"owning cost ({Cur(r)})", "design"], rows, [false, true, true, true, false]));
         }
         if (figures.LossBreakdown is { } breakdown)
         {

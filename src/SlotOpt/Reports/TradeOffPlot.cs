@@ -53,12 +53,12 @@ public static class TradeOffPlot
         }
         if (r.Problem.Limits.Budget is { } budget)
         {
-            var line = plot.Add.VerticalLine(budget, 1.5f, PlotStyle.Black, LinePattern.Dashed);
+            var line = plot.Add.VerticalLine(budget, 1.5f, PlotStyle.Black);
             line.LegendText = string.Create(CultureInfo.InvariantCulture, $"budget {budget:0.##} {cur}");
         }
         if (r.Problem.Limits.TotalLossCapW is { } cap)
         {
-            var line = plot.Add.HorizontalLine(Y(cap), 1.5f, PlotStyle.Black, LinePattern.Dotted);
+            var line = plot.Add.HorizontalLine(Y(cap), 1.5f, PlotStyle.Grey);
             line.LegendText = string.Create(CultureInfo.InvariantCulture, $"loss cap {cap:0.##} W");
         }
         if (log) LogAxis.Apply(plot.Axes.Left, allLosses);
