@@ -86,4 +86,19 @@ public sealed class ReportContentTests : IDisposable
             Assert.Equal(1, Loss(crossing.BetterAbove) / Loss(crossing.BetterBelow), 0.01);
         }
     }
+
+    [Fact]
+    public void An_infeasible_run_still_reports_the_inputs_the_diagnosis_and_the_cautions()
+    {
+        var file = Path.Combine(parent, "rail-1N.toml");
+        File.WriteAllText(file, File.ReadAllText(ReportRuns.ProblemPath(ReportRuns.Conveyor)).Replace("max_drag = \"60 N\"", "max_drag = \"1 N\""));
+        var r = DesignRun.Execute(ProblemReader.ReadFile(file));
+        Assert.Equal(SelectionStatus.Infeasible, r.Outcome.Status);
+        var dir = Write(r, "infeasible");
+        var summary = File.ReadAllText(Path.Combine(dir, ReportWriter.MarkdownFile));
+        foreach (var line in r.Outcome.Diagnosis!.Explain()) Assert.Contains("- " + line, summary);
+        Assert.Contains("exceeds the part's limit of 1 N", summary);   // the baselines' breaks
+        Assert.Contains("certified safety analysis", summary);
+        Assert.Equal(451, File.ReadAllLines(Path.Combine(dir, ReportWriter.CandidatesFile)).Length);   // header + every option
+    }
 }
