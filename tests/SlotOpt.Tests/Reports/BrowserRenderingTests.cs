@@ -4,7 +4,8 @@ using SlotOpt.Reports;
 namespace SlotOpt.Tests.Reports;
 
 /// <summary>index.html opened in headless Chromium: every plot image decodes, and the page asks for nothing beyond its own file.</summary>
-public sealed class BrowserRenderingTests(ReportRuns runs) : IClassFixture<ReportRuns>
+[Collection(ReportRunsCollection.Name)]
+public sealed class BrowserRenderingTests(ReportRuns runs)
 {
     [Fact]
     public async Task Every_plot_loads_and_no_request_leaves_the_machine()

@@ -6,7 +6,8 @@ using SlotOpt.Reports;
 namespace SlotOpt.Tests.Reports;
 
 /// <summary>The report's files say what the console says: result.json is `run --json` (timings aside), candidates.csv holds every option and the chosen ones with the printed numbers, and two runs give the same files.</summary>
-public sealed class ReportAgreementTests(ReportRuns runs) : IClassFixture<ReportRuns>
+[Collection(ReportRunsCollection.Name)]
+public sealed class ReportAgreementTests(ReportRuns runs)
 {
     public static TheoryData<string> Problems => new() { ReportRuns.Conveyor, ReportRuns.Actuator };
 

@@ -2,8 +2,15 @@ using SlotOpt.Tests.Cli;
 
 namespace SlotOpt.Tests.Reports;
 
+/// <summary>The test classes that read <see cref="ReportRuns"/> share one set of runs.</summary>
+[CollectionDefinition(Name)]
+public sealed class ReportRunsCollection : ICollectionFixture<ReportRuns>
+{
+    public const string Name = "report runs";
+}
+
 /// <summary>
-/// The runs the report tests read, made once per test class: each demo run twice with --out, once printing
+/// The runs the report tests read, made once for the test run: each demo run twice with --out, once printing
 /// text and once printing JSON, into a fresh temporary folder that is deleted afterwards.
 /// </summary>
 public sealed class ReportRuns : IDisposable
