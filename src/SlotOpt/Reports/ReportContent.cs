@@ -260,6 +260,8 @@ public static class ReportContent
             }
             if (!chosen.Any(o => o.Flags.Count > 0)) lines.Add("The chosen design raises no validity flag (flux below the knee, sheets thin against the skin depth, coefficients used near their data, Reynolds number below its limit).");
         }
+        foreach (var p in r.Parts.Where(p => r.Chosen is null || !r.Chosen.Any(o => o.Id == p.Reference.Id)))
+            lines.AddRange(p.Reference.Flags.Select(f => $"{p.Part.Name} ({(p.ReferenceIsCurrent ? "current" : "baseline")} design): {f}"));
         var all = r.Parts.SelectMany(p => p.Options).ToList();
         lines.Add(F($"{all.Count(o => o.Flags.Count > 0)} of {all.Count} evaluated options carry at least one flag (see the flags column of candidates.csv)."));
         b.Add(new BulletList(lines));

@@ -75,4 +75,22 @@ public sealed class ReportFolderTests : IDisposable
         Assert.Throws<InvalidOperationException>(folder.Commit);
         Assert.Empty(Directory.EnumerateFileSystemEntries(parent));
     }
+
+    [Fact]
+    public void A_leftover_of_a_killed_run_is_removed_once_stale_and_a_fresh_one_is_kept()
+    {
+        var stale = Path.Combine(parent, ReportFolder.TemporaryPrefix(Target) + "killedlongago");
+        var fresh = Path.Combine(parent, ReportFolder.TemporaryPrefix(Target) + "stillrunning");
+        Directory.CreateDirectory(stale);
+        Directory.CreateDirectory(fresh);
+        Directory.SetLastWriteTimeUtc(stale, DateTime.UtcNow - ReportFolder.StaleAfter - TimeSpan.FromMinutes(1));
+        using (var folder = ReportFolder.Begin(Target, overwrite: false))
+        {
+            folder.WriteText("a.txt", "A");
+            folder.Commit();
+        }
+        Assert.False(Directory.Exists(stale));
+        Assert.True(Directory.Exists(fresh));
+        Assert.True(File.Exists(Path.Combine(Target, "a.txt")));
+    }
 }
