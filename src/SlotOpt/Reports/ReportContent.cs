@@ -133,14 +133,16 @@ public static class ReportContent
             var savedW = reference.LossW - r.TotalLossW;
             var savedOwning = reference.OwningCost(vpw) - r.OwningCost;
             var extraCost = r.TotalBuildCost - reference.BuildCost;
-            var text = F($"Against the {reference.Name}, the chosen design saves {savedW:0.###} W");
+            var text = savedW >= 0
+                ? F($"Against the {reference.Name}, the chosen design saves {savedW:0.###} W")
+                : F($"Against the {reference.Name}, the chosen design loses {-savedW:0.###} W more (a negative saving: the goal traded loss for build cost)");
             if (r.Problem.Economics.YearlyCostPerWatt is { } perYear)
             {
                 text += F($" = {savedW * perYear:0.00} {cur} a year");
                 if (extraCost > 0 && savedW * perYear > 0) text += F($" (its extra build cost of {extraCost:0.00} {cur} is paid back in {extraCost / (savedW * perYear):0.#} years, undiscounted)");
             }
             else text += " (the energy price and hours are not given, so no figure per year)";
-            text += F($", and {savedOwning:0.00} {cur} of owning cost over the life (loss at {vpw:0.###} {cur}/W).");
+            text += F($", and {(savedOwning >= 0 ? "saves" : "adds")} {Math.Abs(savedOwning):0.00} {cur} of owning cost over the life (loss at {vpw:0.###} {cur}/W).");
             b.Add(new Paragraph(text));
         }
         var rows = new List<IReadOnlyList<string>>();
