@@ -39,7 +39,11 @@ public static class RunCommand
             else RunText.Write(result, Console.Out);
             if (reportDir is not null)
             {
-                WriteReport(result, reportDir, replace);
+                if (WriteReport(result, reportDir, replace) is { } signalExit)
+                {
+                    Console.Error.WriteLine("interrupted: the report was not written");
+                    return signalExit;
+                }
                 Console.Error.WriteLine($"report: {Path.Combine(reportDir, ReportWriter.HtmlFile)}");
             }
             return result.Outcome.Status switch
@@ -52,13 +56,34 @@ public static class RunCommand
         return command;
     }
 
-    /// <summary>Writes the report atomically; an interrupt or termination while it is written deletes the unfinished folder.</summary>
-    private static void WriteReport(RunResult result, string reportDir, bool replace)
+    /// <summary>Exit codes of a run stopped by a signal while it wrote the report: 128 + the signal's number, as shells report them.</summary>
+    private const int InterruptedExit = 130, TerminatedExit = 143;
+
+    /// <summary>
+    /// Writes the report atomically. SIGINT or SIGTERM while it is written deletes the unfinished folder
+    /// (the handlers are in place before the folder is made) and returns the exit code; null when written.
+    /// </summary>
+    private static int? WriteReport(RunResult result, string reportDir, bool replace)
     {
         using var folder = ReportFolder.Begin(reportDir, replace);
-        using var onInterrupt = PosixSignalRegistration.Create(PosixSignal.SIGINT, _ => folder.Abandon());
-        using var onTerminate = PosixSignalRegistration.Create(PosixSignal.SIGTERM, _ => folder.Abandon());
-        ReportWriter.Write(result, ReportJson(result), DateTimeOffset.UtcNow, folder);
+        int? signalExit = null;
+        void Stop(PosixSignalContext context, int exitCode)
+        {
+            context.Cancel = true;
+            signalExit = exitCode;
+            folder.Abandon();
+        }
+        using var onInterrupt = PosixSignalRegistration.Create(PosixSignal.SIGINT, c => Stop(c, InterruptedExit));
+        using var onTerminate = PosixSignalRegistration.Create(PosixSignal.SIGTERM, c => Stop(c, TerminatedExit));
+        try
+        {
+            ReportWriter.Write(result, ReportJson(result), DateTimeOffset.UtcNow, folder);
+            return null;
+        }
+        catch (InvalidOperationException) when (signalExit is not null)
+        {
+            return signalExit;   // the folder was abandoned under the writer
+        }
     }
 
     /// <summary>The object `run --json` prints (it holds no wall-clock times, so two runs give the same file).</summary>

@@ -55,7 +55,7 @@ public static class CurrentDensityPlot
         var caption = (moving
                 ? "The instantaneous current density at the travel position with the largest loss (the poles move along x). "
                 : "The amplitude of the current density in the AC field. ")
-            + "Both plates share the sheet (thickness and alloy) and one colour scale, so the colours compare directly; slots are drawn white with a black edge. "
+            + "Both plates share the sheet (thickness and alloy) and one colour scale, so the colours compare directly; slots are drawn white with a black edge, grooves with a grey edge. "
             + "Loss and drag are the means the search used.";
         // square units: the plot is as tall as the plates' stack at the scale the width sets (about 200 px go to the colour bar and the y axis, 110 to the title and the x axis)
         var heightPx = (int)Math.Clamp((PlotStyle.WidthPx - 200) * ((panels.Count * heightMm + (panels.Count - 0.2) * gapMm + 0.1 * heightMm) / (1.04 * widthMm)) + 110, 320, 1000);
@@ -104,8 +104,7 @@ public static class CurrentDensityPlot
         {
             var shape = plot.Add.Polygon(Points(groove.Area));
             shape.FillColor = Colors.Transparent;
-            shape.LineColor = PlotStyle.Black;
-            shape.LinePattern = LinePattern.Dashed;
+            shape.LineColor = PlotStyle.Grey;
             shape.LineWidth = 1;
         }
     }

@@ -11,7 +11,7 @@ namespace SlotOpt.Reports;
 /// sheet and the reference. In the resistance-limited (low-speed) model drag is proportional to speed,
 /// F(v) = F(v0) v / v0, so each line comes from the option's drag at the run's speed; it holds while the
 /// magnetic Reynolds number mu0 sigma t v / 2 stays below <see cref="Validity.ReynoldsLimit"/>. Beyond
-/// the speed where it reaches that limit the line is dashed.
+/// the speed where it reaches that limit the line is faded.
 /// </summary>
 public static class DragSpeedPlot
 {
@@ -45,29 +45,30 @@ public static class DragSpeedPlot
             if (vStar < vMax)
             {
                 var beyond = plot.Add.ScatterLine(new[] { vStar, vMax }, new[] { slope * vStar, slope * vMax });
-                beyond.Color = colour;
-                beyond.LineWidth = 1.5f;
-                beyond.LinePattern = LinePattern.Dashed;
+                beyond.Color = colour.WithAlpha(0.3);   // faded, not dashed: see PlotStyle
+                beyond.LineWidth = 2.5f;
             }
             plot.Add.Marker(v0, option.DragN.Value, MarkerShape.FilledCircle, 9, colour);
             if (vStar <= vMax && marked.Add(Math.Round(vStar, 6)))
             {
-                var rm = plot.Add.VerticalLine(vStar, 1.2f, colour, LinePattern.Dotted);
+                var rm = plot.Add.VerticalLine(vStar, 1, colour);
                 rm.LegendText = string.Create(CultureInfo.InvariantCulture, $"Rm = {Validity.ReynoldsLimit} at {vStar:0.##} m/s ({((PlateChoice)option.Choice).ThicknessM * 1e3:0.###} mm {((PlateChoice)option.Choice).Material})");
             }
         }
-        var run = plot.Add.VerticalLine(v0, 1, PlotStyle.Grey, LinePattern.Solid);
+        var run = plot.Add.VerticalLine(v0, 1, PlotStyle.Grey);
         run.LegendText = string.Create(CultureInfo.InvariantCulture, $"run speed {v0:0.##} m/s");
         if (part.MaxDragN is { } maxDrag)
         {
-            var limit = plot.Add.HorizontalLine(maxDrag, 1.5f, PlotStyle.Black, LinePattern.Dashed);
+            var limit = plot.Add.HorizontalLine(maxDrag, 2, PlotStyle.Black);
             limit.LegendText = string.Create(CultureInfo.InvariantCulture, $"drag limit {maxDrag:0.##} N");
         }
         var beyondRange = limitSpeeds.Where(v => v > vMax).ToList();
-        var note = plot.Add.Annotation("Low-speed model: drag ∝ speed, valid while the magnetic\nReynolds number μ0σtv/2 stays below 0.3; dashed beyond."
+        var note = plot.Add.Annotation("Low-speed model: drag ∝ speed, valid while the magnetic\nReynolds number μ0σtv/2 stays below 0.3; faded beyond."
             + (beyondRange.Count > 0 ? string.Create(CultureInfo.InvariantCulture, $"\nRm reaches 0.3 only above {beyondRange.Min():0.#} m/s (off the plot).") : ""), Alignment.UpperRight);
         note.LabelFontSize = 12;
         note.LabelFontName = PlotStyle.FontName;
+        note.LabelBackgroundColor = Colors.White;
+        note.LabelBorderColor = PlotStyle.Grey;
         plot.Axes.SetLimits(0, vMax, 0, Math.Max(lines.Max(l => l.Option.DragN!.Value / v0) * vMax, part.MaxDragN ?? 0) * 1.5);   // headroom above the lines for the legend and the note
         plot.Legend.Alignment = Alignment.UpperLeft;
         plot.ShowLegend();

@@ -82,7 +82,9 @@ public static class LossBreakdownPlot
             if (bars.Any(b => b.FillColor == colour))
                 plot.Legend.ManualItems.Add(new LegendItem { LabelText = name, FillColor = colour });
         plot.ShowLegend(Edge.Right);   // outside the axes: no bar can hide behind it
-        var caption = $"Each bar stacks the loss counted against the design; the number above it is the total. For a plate passed by moving poles the eddy loss is the drag power F v and is stacked once. The {referenceWord} design is the one the savings are measured against.";
+        var caption = "Each bar stacks the loss counted against the design; the number above it is the total. "
+            + (r.Parts.Any(p => IsMoving(p.Part)) ? "For a plate passed by moving poles the eddy loss is the drag power F v, stacked once. " : "")
+            + $"The {referenceWord} design is the one the savings are measured against.";
         return PlotStyle.Render(plot, FileStem, "Loss breakdown", caption);
     }
 

@@ -23,7 +23,7 @@ public static class LossFrequencyPlot
             line.LineWidth = c.Grade == chosenGrade ? 4 : 2;
             line.LegendText = string.Create(CultureInfo.InvariantCulture, $"{c.Grade} ({c.GaugeMm:0.00} mm){(c.Grade == chosenGrade ? ", chosen" : "")}");
         }
-        var operating = plot.Add.VerticalLine(Math.Log10(f0), 1.5f, PlotStyle.Black, LinePattern.Dashed);
+        var operating = plot.Add.VerticalLine(Math.Log10(f0), 1.5f, PlotStyle.Black);
         operating.LegendText = string.Create(CultureInfo.InvariantCulture, $"operating frequency {f0:0.#} Hz");
         if (curves.Crossings.Count > 0)
         {
@@ -36,7 +36,7 @@ public static class LossFrequencyPlot
         plot.ShowLegend();
         var caption = string.Create(CultureInfo.InvariantCulture,
             $"The part's own flux waveform (peak {part.Flux.PeakT:0.###} T, {(part.Flux.IsSinusoidal ? "sine" : "non-sinusoidal")}) moved to each frequency, times each grade's steel mass in the part; same temperature and feature width. ")
-            + (curves.Crossings.Count > 0 ? "Open circles mark where two curves cross: above that frequency the second grade named in the text loses less." : "No two curves cross in this range: the order of the grades holds from a tenth to ten times the operating frequency.");
+            + (curves.Crossings.Count > 0 ? "Open circles mark where two curves cross; the list below says which grade loses less above each crossing." : "No two curves cross in this range: the order of the grades holds from a tenth to ten times the operating frequency.");
         return PlotStyle.Render(plot, FileStemFor(partIndex, part), $"Loss against frequency: {part.Name}", caption);
     }
 }

@@ -45,5 +45,6 @@ public static class MarkdownRenderer
         return s.ToString();
     }
 
-    private static string Cell(string text) => Escape(text).Replace("\n", " ");
+    /// <summary>A table cell: Markdown tables cannot break a line inside a cell, so the lines of a cell are joined by "; ".</summary>
+    private static string Cell(string text) => Escape(text).Replace("\n", "; ");
 }

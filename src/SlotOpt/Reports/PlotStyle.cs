@@ -5,6 +5,8 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// The look every report plot shares: DejaVu Sans (ScottPlot's default resolves to a serif face here),
 /// one size, a colour-blind-safe palette (Okabe and Ito, 2008), and the rendering to a <see cref="Figure"/>.
+/// No plot uses dash patterns: SkiaSharp's SVG canvas cannot draw them (it prints "Unsupported path effect"
+/// and strokes solid), so lines are told apart by colour, width and opacity, the same in PNG and SVG.
 /// </summary>
 public static class PlotStyle
 {
@@ -40,5 +42,5 @@ public static class PlotStyle
     }
 
     public static Figure Render(Plot plot, string fileStem, string title, string caption, int widthPx = WidthPx, int heightPx = HeightPx) =>
-        new(fileStem, title, caption, plot.GetImageBytes(widthPx, heightPx, ImageFormat.Png), plot.GetSvgXml(widthPx, heightPx));
+        new(fileStem, title, caption, plot.GetImageBytes(widthPx, heightPx, ImageFormat.Png), SvgIds.Renumber(plot.GetSvgXml(widthPx, heightPx)));
 }

@@ -97,24 +97,27 @@ public static class ReportContent
         if (r.Chosen is null)
         {
             b.Add(new Paragraph(r.Outcome.Status == SelectionStatus.Infeasible
-                ? "No design meets every limit. The diagnosis:"
+                ? "No design meets every limit: the diagnosis is under \"Which limits bind\", and the baselines below show how far today's designs are from the limits."
                 : "The search ran out of its time budget before finding a design that meets every limit."));
-            if (r.Outcome.Diagnosis is { } d) b.Add(new BulletList(d.Explain()));
             return;
         }
         b.Add(new Paragraph(r.Outcome.Status == SelectionStatus.FeasibleAtLimit
             ? "The search hit its time budget: the design below meets every limit but is not proven best."
             : "Proven best for the goal within every limit (CP-SAT, optimal)."));
+        var withDrag = r.Chosen.Any(o => o.DragN is not null);
         var rows = new List<IReadOnlyList<string>>();
+        IReadOnlyList<string> Row(string part, string which, EvaluatedOption o, string design) =>
+            withDrag ? [part, which, design, F($"{o.Loss.TotalW:0.###}"), Drag(o.DragN), F($"{o.BuildCost:0.00}")] : [part, which, design, F($"{o.Loss.TotalW:0.###}"), F($"{o.BuildCost:0.00}")];
         for (var i = 0; i < r.Chosen.Count; i++)
         {
             var c = r.Chosen[i];
             var reference = r.Parts[i].Reference;
-            rows.Add([c.PartName, "chosen", WorkshopWords.Of(c), F($"{c.Loss.TotalW:0.###}"), Drag(c.DragN), F($"{c.BuildCost:0.00}")]);
-            rows.Add(["", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})"),
-                F($"{reference.Loss.TotalW:0.###}"), Drag(reference.DragN), F($"{reference.BuildCost:0.00}")]);
+            rows.Add(Row(c.PartName, "chosen", c, WorkshopWords.Of(c)));
+            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})")));
         }
-        b.Add(new Table(["part", "", "design", "loss (W)", "drag (N)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true]));
+        b.Add(withDrag
+            ? new Table(["part", "", "design", "loss (W)", "drag (N)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true])
+            : new Table(["part", "", "design", "loss (W)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true]));
     }
 
     private static string Drag(double? dragN) => dragN is { } d ? F($"{d:0.###}") : "";
@@ -130,14 +133,16 @@ public static class ReportContent
             var savedW = reference.LossW - r.TotalLossW;
             var savedOwning = reference.OwningCost(vpw) - r.OwningCost;
             var extraCost = r.TotalBuildCost - reference.BuildCost;
-            var text = F($"Against the {reference.Name}, the chosen design saves {savedW:0.###} W");
+            var text = savedW >= 0
+                ? F($"Against the {reference.Name}, the chosen design saves {savedW:0.###} W")
+                : F($"Against the {reference.Name}, the chosen design loses {-savedW:0.###} W more (a negative saving: the goal traded loss for build cost)");
             if (r.Problem.Economics.YearlyCostPerWatt is { } perYear)
             {
                 text += F($" = {savedW * perYear:0.00} {cur} a year");
                 if (extraCost > 0 && savedW * perYear > 0) text += F($" (its extra build cost of {extraCost:0.00} {cur} is paid back in {extraCost / (savedW * perYear):0.#} years, undiscounted)");
             }
             else text += " (the energy price and hours are not given, so no figure per year)";
-            text += F($", and {savedOwning:0.00} {cur} of owning cost over the life (loss at {vpw:0.###} {cur}/W).");
+            text += F($", and {(savedOwning >= 0 ? "saves" : "adds")} {Math.Abs(savedOwning):0.00} {cur} of owning cost over the life (loss at {vpw:0.###} {cur}/W).");
             b.Add(new Paragraph(text));
         }
         var rows = new List<IReadOnlyList<string>>();
@@ -181,7 +186,7 @@ public static class ReportContent
             lines.AddRange(r.Outcome.Diagnosis?.Explain() ?? ["no diagnosis: the search ran out of its time budget"]);
         }
         b.Add(new BulletList(lines));
-        b.Add(new Paragraph(F($"A limit is said to bind when the design uses it to within {BindingFraction * 100:0.#} %; a limit with room left did not shape the choice.")));
+        if (r.HasDesign) b.Add(new Paragraph(F($"A limit is said to bind when the design uses it to within {BindingFraction * 100:0.#} %; a limit with room left did not shape the choice.")));
     }
 
     /// <summary>A limit used to within this fraction of itself is reported as binding.</summary>
@@ -204,10 +209,11 @@ public static class ReportContent
             b.Add(new FigureBlock(tradeOff));
             var vpw = r.Problem.Economics.ValuePerWatt;
             var front = r.Outcome.Front!;
-            var rows = front.Points.Select(p => (IReadOnlyList<string>)[F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{p.BuildCost + vpw * p.LossW:0.00}"),
-                string.Join("\n", p.CandidateIds.Select(id => r.Option(id).Description))]).ToList();
+            var chosenIds = r.Chosen?.Select(o => o.Id).ToList() ?? [];
+            var rows = front.Points.Select(p => (IReadOnlyList<string>)[p.CandidateIds.SequenceEqual(chosenIds) ? "chosen" : "", F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{p.BuildCost + vpw * p.LossW:0.00}"),
+                string.Join("\n", p.CandidateIds.Select(id => r.Parts.Count == 1 ? r.Option(id).Description : $"{r.Option(id).PartName}: {r.Option(id).Description}"))]).ToList();
             b.Add(new Paragraph($"{front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? ", each proven" : ", not all proven")}:"));
-            b.Add(new Table([$"build cost ({Cur(r)})", "loss (W)", $"owning cost ({Cur(r)})", "design"], rows, [true, true, true, false]));
+            b.Add(new Table(["", $"build cost ({Cur(r)})", "loss (W)", $"owning cost ({Cur(r)})", "design"], rows, [false, true, true, true, false]));
         }
         if (figures.LossBreakdown is { } breakdown)
         {
@@ -256,6 +262,8 @@ public static class ReportContent
             }
             if (!chosen.Any(o => o.Flags.Count > 0)) lines.Add("The chosen design raises no validity flag (flux below the knee, sheets thin against the skin depth, coefficients used near their data, Reynolds number below its limit).");
         }
+        foreach (var p in r.Parts.Where(p => r.Chosen is null || !r.Chosen.Any(o => o.Id == p.Reference.Id)))
+            lines.AddRange(p.Reference.Flags.Select(f => $"{p.Part.Name} ({(p.ReferenceIsCurrent ? "current" : "baseline")} design): {f}"));
         var all = r.Parts.SelectMany(p => p.Options).ToList();
         lines.Add(F($"{all.Count(o => o.Flags.Count > 0)} of {all.Count} evaluated options carry at least one flag (see the flags column of candidates.csv)."));
         b.Add(new BulletList(lines));

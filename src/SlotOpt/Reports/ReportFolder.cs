@@ -3,8 +3,11 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// A report folder written atomically: every file goes into a hidden temporary sibling of the target,
 /// which is moved into place by <see cref="Commit"/> (a rename on the same file system). Until then the
-/// target does not exist (or, with overwrite, still holds the previous report). Disposing without a
-/// commit, or <see cref="Abandon"/> from a signal handler, deletes the temporary folder.
+/// target does not exist (or, with overwrite, still holds the previous report). The temporary folder is
+/// made by the first write, so a caller can hook <see cref="Abandon"/> to its signal handlers between
+/// <see cref="Begin"/> and that write; disposing without a commit, or Abandon, deletes it. Only a run
+/// killed outright (SIGKILL, power loss) can leave one behind; the next report to the same target removes
+/// such leftovers once they are <see cref="StaleAfter"/> old (a live run writes its files within seconds).
 /// </summary>
 public sealed class ReportFolder : IDisposable
 {
@@ -18,6 +21,9 @@ public sealed class ReportFolder : IDisposable
         TemporaryPath = temporaryPath;
         this.overwrite = overwrite;
     }
+
+    /// <summary>Age after which a temporary sibling counts as left by a killed run.</summary>
+    public static readonly TimeSpan StaleAfter = TimeSpan.FromMinutes(10);
 
     public string TargetPath { get; }
     public string TemporaryPath { get; }
@@ -39,8 +45,10 @@ public sealed class ReportFolder : IDisposable
     {
         CheckTarget(targetPath, overwrite);
         var full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath));
-        var temporary = Path.Combine(Path.GetDirectoryName(full)!, TemporaryPrefix(full) + Guid.NewGuid().ToString("N")[..12]);
-        Directory.CreateDirectory(temporary);
+        var parent = Path.GetDirectoryName(full)!;
+        foreach (var leftover in Directory.EnumerateDirectories(parent).Where(d => Path.GetFileName(d).StartsWith(TemporaryPrefix(full), StringComparison.Ordinal)))
+            if (DateTime.UtcNow - Directory.GetLastWriteTimeUtc(leftover) > StaleAfter) Directory.Delete(leftover, recursive: true);
+        var temporary = Path.Combine(parent, TemporaryPrefix(full) + Guid.NewGuid().ToString("N")[..12]);
         return new ReportFolder(full, temporary, overwrite);
     }
 
@@ -54,6 +62,7 @@ public sealed class ReportFolder : IDisposable
         lock (gate)
         {
             EnsureOpen();
+            Directory.CreateDirectory(TemporaryPath);
             CheckTarget(TargetPath, overwrite);
             string? previous = null;
             if (Directory.Exists(TargetPath))
@@ -86,6 +95,7 @@ public sealed class ReportFolder : IDisposable
         lock (gate)
         {
             EnsureOpen();
+            Directory.CreateDirectory(TemporaryPath);
             write(Path.Combine(TemporaryPath, fileName));
         }
     }

@@ -38,27 +38,33 @@ public static class TradeOffPlot
         staircase.MarkerSize = 7;
         staircase.LegendText = $"trade-off front ({front.Points.Count} designs{(front.Status == SelectionStatus.Optimal && !front.IsCapped ? "" : ", incomplete")})";
 
-        MarkerShape[] shapes = [MarkerShape.FilledSquare, MarkerShape.FilledTriangleUp, MarkerShape.FilledTriangleDown];
+        // the chosen design filled underneath, the baselines as open shapes of growing size on top: where two are the same design both stay visible
+        if (r.HasDesign)
+        {
+            var chosen = plot.Add.Marker(r.TotalBuildCost, Y(r.TotalLossW), MarkerShape.FilledDiamond, 15, PlotStyle.Green);
+            chosen.LegendText = string.Create(CultureInfo.InvariantCulture, $"chosen: {r.TotalLossW:0.##} W, {r.TotalBuildCost:0.00} {cur}");
+        }
+        MarkerShape[] shapes = [MarkerShape.OpenSquare, MarkerShape.OpenTriangleUp, MarkerShape.OpenTriangleDown];
         Color[] colours = [PlotStyle.Vermillion, PlotStyle.Orange, PlotStyle.Purple];
+        var chosenIds = r.Chosen?.Select(o => o.Id).ToList();
         for (var i = 0; i < r.Baselines.Count; i++)
         {
             var b = r.Baselines[i];
-            var marker = plot.Add.Marker(b.BuildCost, Y(b.LossW), shapes[i % shapes.Length], 13, colours[i % colours.Length]);
-            marker.LegendText = string.Create(CultureInfo.InvariantCulture, $"{b.Name}: {b.LossW:0.##} W, {b.BuildCost:0.00} {cur}{BaselineBreaks.Short(r, b)}");
-        }
-        if (r.HasDesign)
-        {
-            var chosen = plot.Add.Marker(r.TotalBuildCost, Y(r.TotalLossW), MarkerShape.FilledDiamond, 17, PlotStyle.Green);
-            chosen.LegendText = string.Create(CultureInfo.InvariantCulture, $"chosen: {r.TotalLossW:0.##} W, {r.TotalBuildCost:0.00} {cur}");
+            var ids = b.Options.Select(o => o.Id).ToList();
+            var same = r.Baselines.Take(i).Where(e => e.Options.Select(o => o.Id).SequenceEqual(ids)).Select(e => e.Name).ToList();
+            if (chosenIds is not null && chosenIds.SequenceEqual(ids)) same.Insert(0, "chosen");
+            var marker = plot.Add.Marker(b.BuildCost, Y(b.LossW), shapes[i % shapes.Length], 16 + 5 * i, colours[i % colours.Length]);
+            marker.MarkerLineWidth = 2.5f;
+            marker.LegendText = string.Create(CultureInfo.InvariantCulture, $"{b.Name}: {b.LossW:0.##} W, {b.BuildCost:0.00} {cur}{BaselineBreaks.Short(r, b)}{(same.Count > 0 ? $" = {string.Join(" = ", same)}" : "")}");
         }
         if (r.Problem.Limits.Budget is { } budget)
         {
-            var line = plot.Add.VerticalLine(budget, 1.5f, PlotStyle.Black, LinePattern.Dashed);
+            var line = plot.Add.VerticalLine(budget, 1.5f, PlotStyle.Black);
             line.LegendText = string.Create(CultureInfo.InvariantCulture, $"budget {budget:0.##} {cur}");
         }
         if (r.Problem.Limits.TotalLossCapW is { } cap)
         {
-            var line = plot.Add.HorizontalLine(Y(cap), 1.5f, PlotStyle.Black, LinePattern.Dotted);
+            var line = plot.Add.HorizontalLine(Y(cap), 1.5f, PlotStyle.Grey);
             line.LegendText = string.Create(CultureInfo.InvariantCulture, $"loss cap {cap:0.##} W");
         }
         if (log) LogAxis.Apply(plot.Axes.Left, allLosses);

@@ -1,0 +1,61 @@
+using System.Diagnostics;
+using System.Runtime.InteropServices;
+using SlotOpt.Reports;
+using SlotOpt.Tests.Cli;
+
+namespace SlotOpt.Tests.Reports;
+
+/// <summary>The command as a process: an existing folder needs --force, and a run stopped while it writes leaves nothing behind.</summary>
+public sealed class ReportInterruptionTests : IDisposable
+{
+    private readonly string parent = Path.Combine(Path.GetTempPath(), "slotopt-interrupt-tests-" + Guid.NewGuid().ToString("N")[..8]);
+
+    public ReportInterruptionTests() => Directory.CreateDirectory(parent);
+
+    public void Dispose() => Directory.Delete(parent, recursive: true);
+
+    [Fact]
+    public void An_existing_folder_is_not_overwritten_without_force()
+    {
+        var target = Path.Combine(parent, "report");
+        Directory.CreateDirectory(target);
+        File.WriteAllText(Path.Combine(target, "keep.txt"), "mine");
+        var outcome = SlotOptProcess.Run("run", ReportRuns.ProblemPath("motor-core-400hz"), "--out", target);
+        Assert.Equal(2, outcome.ExitCode);
+        Assert.Contains("pass --force to replace it", outcome.Stderr);
+        Assert.Equal("", outcome.Stdout);   // refused before the run, not after
+        Assert.Equal(["keep.txt"], Directory.GetFiles(target).Select(Path.GetFileName));
+    }
+
+    private const int SigTerm = 15;
+
+    [DllImport("libc", EntryPoint = "kill", SetLastError = true)]
+    private static extern int Kill(int pid, int signal);
+
+    [Fact]
+    public void Terminated_while_writing_the_report_leaves_no_folder_and_no_temporary_folder()
+    {
+        var target = Path.Combine(parent, "report");
+        var start = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        foreach (var a in new[] { Path.Combine(AppContext.BaseDirectory, "slotopt.dll"), "run", ReportRuns.ProblemPath(ReportRuns.Conveyor), "--out", target }) start.ArgumentList.Add(a);
+        using var process = Process.Start(start)!;
+        var stdout = process.StandardOutput.ReadToEndAsync();
+        var stderr = process.StandardError.ReadToEndAsync();
+        var prefix = ReportFolder.TemporaryPrefix(target);
+        var clock = Stopwatch.StartNew();
+        var sawTemporary = false;
+        while (!process.HasExited && clock.Elapsed < TimeSpan.FromSeconds(60))
+        {
+            if (Directory.EnumerateDirectories(parent).Any(d => Path.GetFileName(d).StartsWith(prefix, StringComparison.Ordinal))) { sawTemporary = true; break; }
+            Thread.Sleep(2);
+        }
+        if (!sawTemporary) Assert.Fail($"the run ended before its report folder appeared: {stderr.Result}");   // (reading stderr waits for the exit: only after the signal otherwise)
+        Assert.True(Kill(process.Id, SigTerm) == 0, $"kill failed: errno {Marshal.GetLastPInvokeError()}");
+        Assert.True(process.WaitForExit(30_000), "the run did not stop on SIGTERM");
+        _ = stdout.Result;
+        Assert.True(process.ExitCode == 143, $"exit {process.ExitCode}: {stderr.Result}");
+        Assert.Contains("interrupted: the report was not written", stderr.Result);
+        Assert.False(Directory.Exists(target), "a partial report folder was left");
+        Assert.Empty(Directory.EnumerateFileSystemEntries(parent));
+    }
+}
