@@ -31,14 +31,15 @@ public sealed class ReportFolder : IDisposable
     /// <summary>Prefix of the temporary sibling of a target folder ("DIR" -> ".DIR.partial-").</summary>
     public static string TemporaryPrefix(string targetPath) => $".{Path.GetFileName(Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath)))}.partial-";
 
-    /// <exception cref="InputException">The target exists and overwrite is false, or its parent folder is missing.</exception>
+    /// <exception cref="InputException">The target exists and overwrite is false, or a file stands where a parent folder should be.</exception>
     public static void CheckTarget(string targetPath, bool overwrite)
     {
         var full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath));
         if (File.Exists(full)) throw new InputException($"--out {targetPath}: a file of that name exists; give a folder name");
         if (Directory.Exists(full) && !overwrite) throw new InputException($"--out {targetPath}: the folder exists; pass --force to replace it");
-        var parent = Path.GetDirectoryName(full);
-        if (parent is null || !Directory.Exists(parent)) throw new InputException($"--out {targetPath}: the parent folder {parent} does not exist");
+        // a missing parent folder is made when the report is written (as `mkdir -p` would); a file in its way is a mistake
+        for (var parent = Path.GetDirectoryName(full); parent is not null && !Directory.Exists(parent); parent = Path.GetDirectoryName(parent))
+            if (File.Exists(parent)) throw new InputException($"--out {targetPath}: {parent} is a file, not a folder");
     }
 
     public static ReportFolder Begin(string targetPath, bool overwrite)
@@ -46,6 +47,7 @@ public sealed class ReportFolder : IDisposable
         CheckTarget(targetPath, overwrite);
         var full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath));
         var parent = Path.GetDirectoryName(full)!;
+        Directory.CreateDirectory(parent);
         foreach (var leftover in Directory.EnumerateDirectories(parent).Where(d => Path.GetFileName(d).StartsWith(TemporaryPrefix(full), StringComparison.Ordinal)))
             if (DateTime.UtcNow - Directory.GetLastWriteTimeUtc(leftover) > StaleAfter) Directory.Delete(leftover, recursive: true);
         var temporary = Path.Combine(parent, TemporaryPrefix(full) + Guid.NewGuid().ToString("N")[..12]);
