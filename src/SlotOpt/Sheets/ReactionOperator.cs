@@ -1,0 +1,134 @@
+using System.Numerics;
+using MathNet.Numerics.IntegralTransforms;
+
+namespace SlotOpt.Sheets;
+
+/// <summary>
+/// The eddy currents' own field as a linear operator on the stream-function unknowns of one
+/// <see cref="SheetModel"/>: (R psi)_m = flux (Wb) through basis function m of the field of the dipole
+/// layer psi (see <see cref="ReactionKernel"/> for the physics and the sign), and the convected form
+/// (Dx R psi)_m, the central x-difference of R psi (for a source moving along x).
+/// Applied by FFT on a lattice zero-padded to at least 2 x nodes - 1 in each direction, so the
+/// convolution is linear (the finite, slotted plate is exact up to discretisation), O(N log N).
+/// A merged region (hole, cut) is one unknown whose basis is the sum of its nodes' hats: its row
+/// is the flux through the hole. Not thread-safe (one work buffer); build one per thread.
+/// </summary>
+public sealed class ReactionOperator
+{
+    private readonly int[] _nodeUnknown;
+    private readonly Complex[] _spectrumR;
+    private Complex[]? _spectrumDxR;
+    private readonly Complex[] _work;
+
+    public SheetModel Model { get; }
+    public ReactionKernel Kernel { get; }
+    public int PaddedX { get; }
+    public int PaddedY { get; }
+    public double SetupSeconds { get; }
+
+    private ReactionOperator(SheetModel model, ReactionKernel kernel, int mx, int my, Complex[] spectrumR, double setupSeconds)
+    {
+        Model = model;
+        Kernel = kernel;
+        PaddedX = mx;
+        PaddedY = my;
+        _spectrumR = spectrumR;
+        _nodeUnknown = model.Regions.NodeUnknown;
+        _work = new Complex[mx * my];
+        SetupSeconds = setupSeconds;
+    }
+
+    public static ReactionOperator Build(SheetModel model)
+    {
+        var clock = System.Diagnostics.Stopwatch.StartNew();
+        var l = model.Lattice;
+        int mx = PaddedLength(l.NodesX), my = PaddedLength(l.NodesY);
+        // one extra offset in x for the central difference of the convected form
+        var kernel = ReactionKernel.Build(l.Hx, l.Hy, l.NodesX, l.NodesY - 1);
+        var spectrum = Spectrum(mx, my, l.NodesX - 1, l.NodesY - 1, (dx, dy) => kernel[dx, dy]);
+        return new ReactionOperator(model, kernel, mx, my, spectrum, clock.Elapsed.TotalSeconds);
+    }
+
+    /// <summary>The smallest power of two at least 2 n - 1 (linear, not circular, convolution of n samples with a kernel of 2 n - 1).</summary>
+    internal static int PaddedLength(int n)
+    {
+        int m = 1;
+        while (m < 2 * n - 1) m <<= 1;
+        return m;
+    }
+
+    /// <summary>y = R u (webers per ampere of psi times u): the flux of the layer u through each unknown's basis.</summary>
+    public void ApplyR(ReadOnlySpan<Complex> u, Span<Complex> y) => Apply(u, y, _spectrumR);
+
+    /// <summary>y = Dx R u: the central x-difference (per metre) of R u, the convected reaction flux of a source moving along x.</summary>
+    public void ApplyDxR(ReadOnlySpan<Complex> u, Span<Complex> y)
+    {
+        if (_spectrumDxR is null)
+        {
+            var l = Model.Lattice;
+            double h2 = 2 * l.Hx;
+            // (Dx R)(d) = (R(dx + 1, dy) - R(dx - 1, dy)) / (2 hx): odd in dx, so Dx R is skew-symmetric
+            _spectrumDxR = Spectrum(PaddedX, PaddedY, l.NodesX - 1, l.NodesY - 1, (dx, dy) => (Kernel[dx + 1, dy] - Kernel[dx - 1, dy]) / h2);
+        }
+        Apply(u, y, _spectrumDxR);
+    }
+
+    /// <summary>
+    /// R applied to a field given on every lattice node (not restricted to the plate), returned per unknown:
+    /// y_m = (mu0/2) &lt;phi_m, |k| b&gt; for b = sum_n b_n phi_n. Used for the lift of a source whose field is
+    /// given only in the sheet's plane: dBz/dz = |k| Bz for a source above the sheet.
+    /// </summary>
+    public void ApplyRToNodeField(ReadOnlySpan<double> nodeValues, Span<double> y)
+    {
+        var l = Model.Lattice;
+        Array.Clear(_work);
+        for (int j = 0; j < l.NodesY; j++)
+            for (int i = 0; i < l.NodesX; i++)
+                _work[j * PaddedX + i] = nodeValues[j * l.NodesX + i];
+        Convolve(_spectrumR);
+        y.Clear();
+        for (int n = 0; n < _nodeUnknown.Length; n++)
+        {
+            int u = _nodeUnknown[n];
+            if (u >= 0) y[u] += _work[(n / l.NodesX) * PaddedX + n % l.NodesX].Real;
+        }
+    }
+
+    private void Apply(ReadOnlySpan<Complex> u, Span<Complex> y, Complex[] spectrum)
+    {
+        var l = Model.Lattice;
+        int nx = l.NodesX;
+        Array.Clear(_work);
+        for (int n = 0; n < _nodeUnknown.Length; n++)
+        {
+            int k = _nodeUnknown[n];
+            if (k >= 0) _work[(n / nx) * PaddedX + n % nx] = u[k];
+        }
+        Convolve(spectrum);
+        y.Clear();
+        for (int n = 0; n < _nodeUnknown.Length; n++)
+        {
+            int k = _nodeUnknown[n];
+            if (k >= 0) y[k] += _work[(n / nx) * PaddedX + n % nx];   // transpose of the node replication: merged rows add up
+        }
+    }
+
+    /// <summary>Circular convolution of the work buffer with the kernel whose spectrum is given (Matlab convention: forward unscaled, inverse 1/N).</summary>
+    private void Convolve(Complex[] spectrum)
+    {
+        Fourier.Forward2D(_work, PaddedY, PaddedX, FourierOptions.Matlab);
+        for (int i = 0; i < _work.Length; i++) _work[i] *= spectrum[i];
+        Fourier.Inverse2D(_work, PaddedY, PaddedX, FourierOptions.Matlab);
+    }
+
+    /// <summary>DFT of the kernel placed with wrap-around at offsets |dx| &lt;= kx, |dy| &lt;= ky on the padded lattice.</summary>
+    private static Complex[] Spectrum(int mx, int my, int kx, int ky, Func<int, int, double> kernel)
+    {
+        var a = new Complex[mx * my];
+        for (int dy = -ky; dy <= ky; dy++)
+            for (int dx = -kx; dx <= kx; dx++)
+                a[((dy + my) % my) * mx + (dx + mx) % mx] = kernel(dx, dy);
+        Fourier.Forward2D(a, my, mx, FourierOptions.Matlab);
+        return a;
+    }
+}
