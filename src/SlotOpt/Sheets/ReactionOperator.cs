@@ -1,5 +1,4 @@
 using System.Numerics;
-using MathNet.Numerics.IntegralTransforms;
 
 namespace SlotOpt.Sheets;
 
@@ -19,6 +18,7 @@ public sealed class ReactionOperator
     private readonly Complex[] _spectrumR;
     private Complex[]? _spectrumDxR;
     private readonly Complex[] _work;
+    private readonly Fft2D _fft;
 
     public SheetModel Model { get; }
     public ReactionKernel Kernel { get; }
@@ -35,6 +35,7 @@ public sealed class ReactionOperator
         _spectrumR = spectrumR;
         _nodeUnknown = model.Regions.NodeUnknown;
         _work = new Complex[mx * my];
+        _fft = new Fft2D(my, mx);
         SetupSeconds = setupSeconds;
     }
 
@@ -116,9 +117,9 @@ public sealed class ReactionOperator
     /// <summary>Circular convolution of the work buffer with the kernel whose spectrum is given (Matlab convention: forward unscaled, inverse 1/N).</summary>
     private void Convolve(Complex[] spectrum)
     {
-        Fourier.Forward2D(_work, PaddedY, PaddedX, FourierOptions.Matlab);
+        _fft.Forward(_work);
         for (int i = 0; i < _work.Length; i++) _work[i] *= spectrum[i];
-        Fourier.Inverse2D(_work, PaddedY, PaddedX, FourierOptions.Matlab);
+        _fft.Inverse(_work);
     }
 
     /// <summary>DFT of the kernel placed with wrap-around at offsets |dx| &lt;= kx, |dy| &lt;= ky on the padded lattice.</summary>
@@ -128,7 +129,7 @@ public sealed class ReactionOperator
         for (int dy = -ky; dy <= ky; dy++)
             for (int dx = -kx; dx <= kx; dx++)
                 a[((dy + my) % my) * mx + (dx + mx) % mx] = kernel(dx, dy);
-        Fourier.Forward2D(a, my, mx, FourierOptions.Matlab);
+        new Fft2D(my, mx).Forward(a);
         return a;
     }
 }
