@@ -7,8 +7,9 @@ namespace SlotOpt.Sheets;
 /// <see cref="SheetModel"/>: (R psi)_m = flux (Wb) through basis function m of the field of the dipole
 /// layer psi (see <see cref="ReactionKernel"/> for the physics and the sign), and the convected form
 /// (Dx R psi)_m, the central x-difference of R psi (for a source moving along x).
-/// Applied by FFT on a lattice zero-padded to at least 2 x nodes - 1 in each direction, so the
-/// convolution is linear (the finite, slotted plate is exact up to discretisation), O(N log N).
+/// Applied by FFT on a lattice zero-padded to at least 2 n - 1 in each direction (n = interior nodes:
+/// the lattice's border nodes are always outside, psi = 0), so the convolution is linear, not circular
+/// (the finite, slotted plate is exact up to discretisation), O(N log N) per application.
 /// A merged region (hole, cut) is one unknown whose basis is the sum of its nodes' hats: its row
 /// is the flux through the hole. Not thread-safe (one work buffer); build one per thread.
 /// </summary>
@@ -43,14 +44,15 @@ public sealed class ReactionOperator
     {
         var clock = System.Diagnostics.Stopwatch.StartNew();
         var l = model.Lattice;
-        int mx = PaddedLength(l.NodesX), my = PaddedLength(l.NodesY);
+        int ix = l.NodesX - 2, iy = l.NodesY - 2;           // interior nodes: the border is outside (NodeRegions)
+        int mx = PaddedLength(ix), my = PaddedLength(iy);
         // one extra offset in x for the central difference of the convected form
-        var kernel = ReactionKernel.Build(l.Hx, l.Hy, l.NodesX, l.NodesY - 1);
-        var spectrum = Spectrum(mx, my, l.NodesX - 1, l.NodesY - 1, (dx, dy) => kernel[dx, dy]);
+        var kernel = ReactionKernel.Build(l.Hx, l.Hy, ix, iy - 1);
+        var spectrum = Spectrum(mx, my, ix - 1, iy - 1, (dx, dy) => kernel[dx, dy]);
         return new ReactionOperator(model, kernel, mx, my, spectrum, clock.Elapsed.TotalSeconds);
     }
 
-    /// <summary>The smallest power of two at least 2 n - 1 (linear, not circular, convolution of n samples with a kernel of 2 n - 1).</summary>
+    /// <summary>The smallest power of two at least 2 n - 1 (linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
     internal static int PaddedLength(int n)
     {
         int m = 1;
@@ -69,48 +71,53 @@ public sealed class ReactionOperator
             var l = Model.Lattice;
             double h2 = 2 * l.Hx;
             // (Dx R)(d) = (R(dx + 1, dy) - R(dx - 1, dy)) / (2 hx): odd in dx, so Dx R is skew-symmetric
-            _spectrumDxR = Spectrum(PaddedX, PaddedY, l.NodesX - 1, l.NodesY - 1, (dx, dy) => (Kernel[dx + 1, dy] - Kernel[dx - 1, dy]) / h2);
+            _spectrumDxR = Spectrum(PaddedX, PaddedY, l.NodesX - 3, l.NodesY - 3, (dx, dy) => (Kernel[dx + 1, dy] - Kernel[dx - 1, dy]) / h2);
         }
         Apply(u, y, _spectrumDxR);
     }
 
     /// <summary>
-    /// R applied to a field given on every lattice node (not restricted to the plate), returned per unknown:
-    /// y_m = (mu0/2) &lt;phi_m, |k| b&gt; for b = sum_n b_n phi_n. Used for the lift of a source whose field is
-    /// given only in the sheet's plane: dBz/dz = |k| Bz for a source above the sheet.
+    /// R applied to a field given on the lattice's interior nodes (not restricted to the plate), returned per
+    /// unknown: y_m = (mu0/2) &lt;phi_m, |k| b&gt; for b = sum_n b_n phi_n. Used for the lift of a source whose field
+    /// is given only in the sheet's plane (dBz/dz = |k| Bz for a source above the sheet); the field beyond the
+    /// lattice's interior is left out, so the source should lie over the plate's bounding box.
     /// </summary>
     public void ApplyRToNodeField(ReadOnlySpan<double> nodeValues, Span<double> y)
     {
-        var l = Model.Lattice;
         Array.Clear(_work);
-        for (int j = 0; j < l.NodesY; j++)
-            for (int i = 0; i < l.NodesX; i++)
-                _work[j * PaddedX + i] = nodeValues[j * l.NodesX + i];
+        for (int n = 0; n < nodeValues.Length; n++)
+            if (PaddedIndex(n) is var p && p >= 0) _work[p] = nodeValues[n];
         Convolve(_spectrumR);
         y.Clear();
         for (int n = 0; n < _nodeUnknown.Length; n++)
         {
             int u = _nodeUnknown[n];
-            if (u >= 0) y[u] += _work[(n / l.NodesX) * PaddedX + n % l.NodesX].Real;
+            if (u >= 0) y[u] += _work[PaddedIndex(n)].Real;
         }
+    }
+
+    /// <summary>Index on the padded lattice of lattice node n (interior node (i, j) at (i - 1, j - 1)); -1 on the border.</summary>
+    private int PaddedIndex(int n)
+    {
+        var l = Model.Lattice;
+        int i = n % l.NodesX, j = n / l.NodesX;
+        return i == 0 || j == 0 || i == l.NodesX - 1 || j == l.NodesY - 1 ? -1 : (j - 1) * PaddedX + i - 1;
     }
 
     private void Apply(ReadOnlySpan<Complex> u, Span<Complex> y, Complex[] spectrum)
     {
-        var l = Model.Lattice;
-        int nx = l.NodesX;
         Array.Clear(_work);
         for (int n = 0; n < _nodeUnknown.Length; n++)
         {
             int k = _nodeUnknown[n];
-            if (k >= 0) _work[(n / nx) * PaddedX + n % nx] = u[k];
+            if (k >= 0) _work[PaddedIndex(n)] = u[k];
         }
         Convolve(spectrum);
         y.Clear();
         for (int n = 0; n < _nodeUnknown.Length; n++)
         {
             int k = _nodeUnknown[n];
-            if (k >= 0) y[k] += _work[(n / nx) * PaddedX + n % nx];   // transpose of the node replication: merged rows add up
+            if (k >= 0) y[k] += _work[PaddedIndex(n)];   // transpose of the node replication: merged rows add up
         }
     }
 
