@@ -44,24 +44,31 @@ public sealed class ReactionKernel
     /// <summary>Kernel value R(dx, dy) in henry; even in dx and in dy.</summary>
     public double this[int dx, int dy] => _value[Math.Abs(dy) * (MaxOffsetX + 1) + Math.Abs(dx)];
 
-    /// <summary>Tabulates R for 0 &lt;= dx &lt;= maxOffsetX, 0 &lt;= dy &lt;= maxOffsetY on a lattice of hx x hy cells.</summary>
-    public static ReactionKernel Build(double hx, double hy, int maxOffsetX, int maxOffsetY)
+    /// <summary>Vertical distance between the two layers the kernel couples (0: one sheet with itself).</summary>
+    public double SeparationM { get; private init; }
+
+    /// <summary>
+    /// Tabulates R for 0 &lt;= dx &lt;= maxOffsetX, 0 &lt;= dy &lt;= maxOffsetY on a lattice of hx x hy cells, between two
+    /// parallel layers separationM apart (0 for a sheet with itself): the 1/|x - y| of Neumann's form becomes
+    /// 1/sqrt(|x - y|^2 + z^2), and the dipole form's in-plane field -1/r^3 becomes (3 z^2 - R^2)/R^5.
+    /// </summary>
+    public static ReactionKernel Build(double hx, double hy, int maxOffsetX, int maxOffsetY, double separationM = 0)
     {
         if (!(hx > 0) || !(hy > 0)) throw new ArgumentOutOfRangeException(nameof(hx), "cell sizes must be positive");
+        if (!(separationM >= 0)) throw new ArgumentOutOfRangeException(nameof(separationM), "the layer separation must be >= 0");
         var value = new double[(maxOffsetX + 1) * (maxOffsetY + 1)];
-        double hmax = Math.Max(hx, hy);
-        double far = FarFieldRadiusCells * hmax;
+        double far = FarFieldRadiusCells * Math.Max(hx, hy);
         for (int dy = 0; dy <= maxOffsetY; dy++)
             for (int dx = 0; dx <= maxOffsetX; dx++)
             {
-                double distance = Math.Sqrt(dx * hx * dx * hx + dy * hy * dy * hy);
-                value[dy * (maxOffsetX + 1) + dx] = distance >= far ? FarField(hx, hy, dx, dy) : NearField(hx, hy, dx, dy);
+                double distance = Math.Sqrt(dx * hx * dx * hx + dy * hy * dy * hy + separationM * separationM);
+                value[dy * (maxOffsetX + 1) + dx] = distance >= far ? FarField(hx, hy, dx, dy, separationM) : NearField(hx, hy, dx, dy, separationM);
             }
-        return new ReactionKernel(hx, hy, maxOffsetX, maxOffsetY, value);
+        return new ReactionKernel(hx, hy, maxOffsetX, maxOffsetY, value) { SeparationM = separationM };
     }
 
-    /// <summary>Neumann form: (mu0/4pi) hx hy sum over unit sub-squares of integral c(s) / |D - u(s)| ds.</summary>
-    internal static double NearField(double hx, double hy, int dx, int dy)
+    /// <summary>Neumann form: (mu0/4pi) hx hy sum over unit sub-squares of integral c(s) / sqrt(|D - u(s)|^2 + z^2) ds.</summary>
+    internal static double NearField(double hx, double hy, int dx, int dy, double z = 0)
     {
         var (nodes, weights) = Quadrature.GaussLegendre01(GaussPoints);
         double sum = 0;
@@ -75,52 +82,80 @@ public sealed class ReactionKernel
                         for (int q = 0; q < GaussPoints; q++)
                         {
                             double sx = a + nodes[p], sy = b + nodes[q];
-                            sum += weights[p] * weights[q] * Correlation(hx, hy, sx, sy) / Distance(hx, hy, dx - sx, dy - sy);
+                            double r = Distance(hx, hy, dx - sx, dy - sy);
+                            sum += weights[p] * weights[q] * Correlation(hx, hy, sx, sy) / Math.Sqrt(r * r + z * z);
                         }
                     continue;
                 }
-                // Duffy: two triangles with their apex at the singular corner P = (dx, dy); the edges not through P
+                // Duffy: two triangles with their apex at the (near-)singular corner P = (dx, dy); the edges not through P
                 double ox = dx == a ? a + 1 : a, oy = dy == b ? b + 1 : b;   // the corner opposite P
-                sum += DuffyTriangle(hx, hy, dx, dy, ox, dy, ox, oy, nodes, weights);
-                sum += DuffyTriangle(hx, hy, dx, dy, dx, oy, ox, oy, nodes, weights);
+                sum += DuffyTriangle(hx, hy, z, dx, dy, ox, dy, ox, oy, nodes, weights);
+                sum += DuffyTriangle(hx, hy, z, dx, dy, dx, oy, ox, oy, nodes, weights);
             }
         return Validity.Mu0 / (4 * Math.PI) * hx * hy * sum;
     }
 
-    /// <summary>Integral over the triangle (P, Q1, Q2) of c(s)/|P - s| with s = P + t (Q1 - P + sigma (Q2 - Q1)): the t of the Jacobian cancels the 1/r.</summary>
-    private static double DuffyTriangle(double hx, double hy, double px, double py, double q1x, double q1y, double q2x, double q2y, double[] nodes, double[] weights)
+    /// <summary>
+    /// Integral over the triangle (P, Q1, Q2) of c(s)/sqrt(|P - s|^2 + z^2) with s = P + t (Q1 - P + sigma (Q2 - Q1)):
+    /// the Jacobian's t makes the integrand t / sqrt(t^2 E^2 + z^2), bounded; for z &gt; 0 its knee at t = z/E is
+    /// resolved by Gauss panels graded geometrically (x4) from z/E up to 1.
+    /// </summary>
+    private static double DuffyTriangle(double hx, double hy, double z, double px, double py, double q1x, double q1y, double q2x, double q2y, double[] nodes, double[] weights)
     {
         double e1x = q1x - px, e1y = q1y - py, fx = q2x - q1x, fy = q2y - q1y;
         double jac = Math.Abs(e1x * fy - e1y * fx);
         double sum = 0;
+        Span<double> breaks = stackalloc double[32];
         for (int p = 0; p < nodes.Length; p++)
         {
             double ex = e1x + nodes[p] * fx, ey = e1y + nodes[p] * fy;
-            double inv = 1 / Distance(hx, hy, ex, ey);
-            for (int q = 0; q < nodes.Length; q++)
+            double e = Distance(hx, hy, ex, ey);
+            int count = 0;
+            breaks[count++] = 0;
+            for (double knee = z / e; knee > 0 && knee < 1 && count < breaks.Length - 1; knee *= 4) breaks[count++] = knee;
+            breaks[count++] = 1;
+            for (int panel = 0; panel + 1 < count; panel++)
             {
-                double t = nodes[q];
-                sum += weights[p] * weights[q] * Correlation(hx, hy, px + t * ex, py + t * ey) * inv;
+                double t0 = breaks[panel], dt = breaks[panel + 1] - t0;
+                for (int q = 0; q < nodes.Length; q++)
+                {
+                    double t = t0 + dt * nodes[q];
+                    sum += weights[p] * weights[q] * dt * Correlation(hx, hy, px + t * ex, py + t * ey) * t / Math.Sqrt(t * t * e * e + z * z);
+                }
             }
         }
         return jac * sum;
     }
 
-    /// <summary>Dipole form expanded in the moments of w = phi * phi = hx hy B3(sx) B3(sy): &lt;ux^2&gt; = hx^2/3, &lt;ux^4&gt; = 0.3 hx^4, &lt;ux^2 uy^2&gt; = hx^2 hy^2 / 9.</summary>
-    internal static double FarField(double hx, double hy, int dx, int dy)
+    /// <summary>
+    /// Dipole form R = (mu0/4pi) integral w(u) q(D - u) du, q = (3 z^2 - R^2)/R^5 = 3 z^2 R^-5 - R^-3 (the normal field
+    /// of a normal dipole, R^2 = x^2 + y^2 + z^2), expanded in the moments of w = phi * phi = hx hy B3(sx) B3(sy):
+    /// &lt;ux^2&gt; = hx^2/3, &lt;ux^4&gt; = 0.3 hx^4, &lt;ux^2 uy^2&gt; = hx^2 hy^2 / 9.
+    /// </summary>
+    internal static double FarField(double hx, double hy, int dx, int dy, double z = 0)
     {
         double x = dx * hx, y = dy * hy;
-        double r2 = x * x + y * y;
-        double r = Math.Sqrt(r2);
-        double r3 = r2 * r, r5 = r3 * r2, r7 = r5 * r2, r9 = r7 * r2, r11 = r9 * r2;
-        double f = 1 / r3;
-        double fxx = -3 / r5 + 15 * x * x / r7, fyy = -3 / r5 + 15 * y * y / r7;
-        double fxxxx = 45 / r7 - 630 * x * x / r9 + 945 * x * x * x * x / r11;
-        double fyyyy = 45 / r7 - 630 * y * y / r9 + 945 * y * y * y * y / r11;
-        double fxxyy = -90 / r7 + 945 * x * x * y * y / r11;
+        double moment = 3 * z * z * MomentSum(5, x, y, z, hx, hy) - MomentSum(3, x, y, z, hx, hy);
+        return Validity.Mu0 / (4 * Math.PI) * hx * hy * hx * hy * moment;
+    }
+
+    /// <summary>
+    /// f + (sx^2 fxx + sy^2 fyy)/2 + (mx4 fxxxx + 6 sx^2 sy^2 fxxyy + my4 fyyyy)/24 for f = R^-n, with
+    /// fxx = -n R^-(n+2) + n(n+2) x^2 R^-(n+4), fxxxx = 3n(n+2) R^-(n+4) - 6n(n+2)(n+4) x^2 R^-(n+6) + n(n+2)(n+4)(n+6) x^4 R^-(n+8),
+    /// fxxyy = n(n+2) R^-(n+4) - n(n+2)(n+4)(x^2 + y^2) R^-(n+6) + n(n+2)(n+4)(n+6) x^2 y^2 R^-(n+8) (derived here by repeated differentiation).
+    /// </summary>
+    private static double MomentSum(int n, double x, double y, double z, double hx, double hy)
+    {
+        double r2 = x * x + y * y + z * z;
+        double Pow(int m) => Math.Pow(r2, -m / 2.0);
+        double a = n, b = n * (n + 2.0), c = b * (n + 4), d = c * (n + 6);
+        double f = Pow(n);
+        double fxx = -a * Pow(n + 2) + b * x * x * Pow(n + 4), fyy = -a * Pow(n + 2) + b * y * y * Pow(n + 4);
+        double fxxxx = 3 * b * Pow(n + 4) - 6 * c * x * x * Pow(n + 6) + d * x * x * x * x * Pow(n + 8);
+        double fyyyy = 3 * b * Pow(n + 4) - 6 * c * y * y * Pow(n + 6) + d * y * y * y * y * Pow(n + 8);
+        double fxxyy = b * Pow(n + 4) - c * (x * x + y * y) * Pow(n + 6) + d * x * x * y * y * Pow(n + 8);
         double sx2 = hx * hx / 3, sy2 = hy * hy / 3, mx4 = 0.3 * hx * hx * hx * hx, my4 = 0.3 * hy * hy * hy * hy;
-        double moment = f + 0.5 * (sx2 * fxx + sy2 * fyy) + (mx4 * fxxxx + 6 * sx2 * sy2 * fxxyy + my4 * fyyyy) / 24;
-        return -Validity.Mu0 / (4 * Math.PI) * hx * hy * hx * hy * moment;   // the in-plane field of a dipole is -mu0 m / (4 pi r^3)
+        return f + 0.5 * (sx2 * fxx + sy2 * fyy) + (mx4 * fxxxx + 6 * sx2 * sy2 * fxxyy + my4 * fyyyy) / 24;
     }
 
     private static double Distance(double hx, double hy, double tx, double ty) => Math.Sqrt(tx * hx * tx * hx + ty * hy * ty * hy);
