@@ -97,7 +97,7 @@ public sealed class ReactionOperator
     }
 
     /// <summary>Index on the padded lattice of lattice node n (interior node (i, j) at (i - 1, j - 1)); -1 on the border.</summary>
-    private int PaddedIndex(int n)
+    internal int PaddedIndex(int n)
     {
         var l = Model.Lattice;
         int i = n % l.NodesX, j = n / l.NodesX;
@@ -130,7 +130,7 @@ public sealed class ReactionOperator
     }
 
     /// <summary>DFT of the kernel placed with wrap-around at offsets |dx| &lt;= kx, |dy| &lt;= ky on the padded lattice.</summary>
-    private static Complex[] Spectrum(int mx, int my, int kx, int ky, Func<int, int, double> kernel)
+    internal static Complex[] Spectrum(int mx, int my, int kx, int ky, Func<int, int, double> kernel)
     {
         var a = new Complex[mx * my];
         for (int dy = -ky; dy <= ky; dy++)
