@@ -5,8 +5,10 @@ namespace SlotOpt.Sheets;
 /// (<see cref="ReactionModelChoice"/>) and returns loss, drag and lift. The resistance-limited path
 /// solves at unit conductance and scales by G (cheap; cache the model per geometry); the reaction
 /// path builds (or reuses) a <see cref="ReactionOperator"/> and solves per conductor. Beyond the thin
-/// sheet (t/delta above the threshold) it still returns the thin-sheet reaction answer, with the
-/// choice's reason as a note: it overstates the loss there.
+/// sheet (t/delta above the threshold) an AC case goes to the layered thick-plate solver
+/// (<see cref="ThickPlateSolver.SolveAcConverged"/>) with the source's plane field used at every depth
+/// (exact for a uniform field; for a non-uniform field it leaves out the field's decay with depth);
+/// a moving case still returns the thin-sheet reaction answer with a warning (no layered moving solver).
 /// </summary>
 public static class CorrectedSheetSolver
 {
@@ -21,6 +23,12 @@ public static class CorrectedSheetSolver
             notes.AddRange(low.Notes);
             double p = low.LossW(conductor.SheetConductanceS);
             return new CorrectedSolution(choice, Array.Empty<double>(), new[] { p }, null, null, new[] { p }, notes);
+        }
+        if (choice.Kind == SheetModelKind.BeyondThinSheet)
+        {
+            var thick = ThickPlateSolver.SolveAcConverged(model, new DepthIndependentField(source), conductor, accuracy, criterion);
+            notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {thick.LayerError:P2}); the source's plane field is used at every depth");
+            return new CorrectedSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes);
         }
         var s = ReactionSolver.SolveAc(reaction ?? ReactionOperator.Build(model), source, conductor, criterion);
         notes.AddRange(s.Notes);
@@ -52,6 +60,7 @@ public static class CorrectedSheetSolver
         }
         var s = ReactionSolver.SolveMoving(reaction ?? ReactionOperator.Build(model), source, conductor, offsetsXM, criterion);
         notes.AddRange(s.Notes);
+        if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
         return new CorrectedSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes);
     }
 }

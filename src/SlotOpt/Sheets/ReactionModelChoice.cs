@@ -48,7 +48,7 @@ public static class ReactionModelChoice
         double rmLimit = ReynoldsThreshold(accuracy), tLimit = ThicknessThreshold(accuracy);
         if (thicknessToSkinDepth > tLimit)
             return new ModelChoice(SheetModelKind.BeyondThinSheet, reynoldsNumber, thicknessToSkinDepth, rmLimit, tLimit,
-                $"t/delta = {thicknessToSkinDepth:G3} > {tLimit:G3}: the field does not cross the thickness uniformly; the thin-sheet models overstate the loss (a layered thick-plate model is not implemented)");
+                $"t/delta = {thicknessToSkinDepth:G3} > {tLimit:G3}: the field does not cross the thickness uniformly and the thin-sheet models do not hold; AC cases need the layered thick-plate model");
         if (reynoldsNumber > rmLimit)
             return new ModelChoice(SheetModelKind.ThinSheetReaction, reynoldsNumber, thicknessToSkinDepth, rmLimit, tLimit,
                 $"Rm = {reynoldsNumber:G3} > {rmLimit:G3}: the eddy currents' own field changes loss and drag by more than {accuracy:P0}");

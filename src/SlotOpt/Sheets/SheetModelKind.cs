@@ -7,6 +7,6 @@ public enum SheetModelKind
     ResistanceLimited,
     /// <summary>The eddy currents push back on the field but the field still crosses the thickness: <see cref="ReactionSolver"/>, one solve per conductor.</summary>
     ThinSheetReaction,
-    /// <summary>The plate is thick against the skin depth: neither thin-sheet model holds (the reaction answer is reported with a warning).</summary>
+    /// <summary>The plate is thick against the skin depth: neither thin-sheet model holds; AC cases use the layered thick-plate solver (<see cref="ThickPlateSolver"/>).</summary>
     BeyondThinSheet,
 }
