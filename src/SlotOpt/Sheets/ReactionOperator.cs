@@ -64,7 +64,9 @@ public sealed class ReactionOperator
     public void ApplyR(ReadOnlySpan<Complex> u, Span<Complex> y) => Apply(u, y, _spectrumR);
 
     /// <summary>y = Dx R u: the central x-difference (per metre) of R u, the convected reaction flux of a source moving along x.</summary>
-    public void ApplyDxR(ReadOnlySpan<Complex> u, Span<Complex> y)
+    public void ApplyDxR(ReadOnlySpan<Complex> u, Span<Complex> y) => Apply(u, y, SpectrumDxR());
+
+    private Complex[] SpectrumDxR()
     {
         if (_spectrumDxR is null)
         {
@@ -73,8 +75,33 @@ public sealed class ReactionOperator
             // (Dx R)(d) = (R(dx + 1, dy) - R(dx - 1, dy)) / (2 hx): odd in dx, so Dx R is skew-symmetric
             _spectrumDxR = Spectrum(PaddedX, PaddedY, l.NodesX - 3, l.NodesY - 3, (dx, dy) => (Kernel[dx + 1, dy] - Kernel[dx - 1, dy]) / h2);
         }
-        Apply(u, y, _spectrumDxR);
+        return _spectrumDxR;
     }
+
+    /// <summary>
+    /// The free-lattice factor Phi = A^ / (A^ + c S^) of the coupled operator A + c R (or A + c Dx R when convected),
+    /// with A^ = 2 (hy/hx)(1 - cos theta_x) + 2 (hx/hy)(1 - cos theta_y) the 5-point symbol of A at unit conductance and
+    /// S^ the reaction spectrum: A^-1 Phi inverts the coupled operator exactly on an unbounded uniform sheet, so
+    /// it is the coupled preconditioner's spectral part (boundaries and holes are left to the Krylov method).
+    /// </summary>
+    internal Complex[] CoupledFactor(Complex coefficient, bool convected)
+    {
+        var l = Model.Lattice;
+        var spectrum = convected ? SpectrumDxR() : _spectrumR;
+        double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
+        var factor = new Complex[spectrum.Length];
+        for (int q = 0; q < PaddedY; q++)
+            for (int p = 0; p < PaddedX; p++)
+            {
+                double a = 2 * rx * (1 - Math.Cos(2 * Math.PI * p / PaddedX)) + 2 * ry * (1 - Math.Cos(2 * Math.PI * q / PaddedY));
+                int i = q * PaddedX + p;
+                factor[i] = a == 0 ? Complex.One : a / (a + coefficient * spectrum[i]);
+            }
+        return factor;
+    }
+
+    /// <summary>y = the padded-lattice multiplier applied to u (node values of the unknowns, results summed per unknown).</summary>
+    internal void ApplyMultiplier(ReadOnlySpan<Complex> u, Span<Complex> y, Complex[] multiplier) => Apply(u, y, multiplier);
 
     /// <summary>
     /// R applied to a field given on the lattice's interior nodes (not restricted to the plate), returned per
