@@ -15,6 +15,7 @@ public static class CorrectedSheetSolver
     public static CorrectedSolution SolveAc(SheetModel model, IAcFieldSource source, Conductor conductor,
         double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null)
     {
+        CheckOperator(model, reaction);
         var choice = ReactionModelChoice.ForAc(conductor, source.FrequencyHz, model.Grid.Geometry.CharacteristicWidthM, accuracy);
         var notes = new List<string> { choice.Reason };
         if (choice.Kind == SheetModelKind.ResistanceLimited)
@@ -39,6 +40,7 @@ public static class CorrectedSheetSolver
     public static CorrectedSolution SolveMoving(SheetModel model, IMovingSheetSource source, Conductor conductor, IReadOnlyList<double> offsetsXM, double sourceLengthM,
         double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null)
     {
+        CheckOperator(model, reaction);
         var choice = ReactionModelChoice.ForMoving(conductor, source.SpeedMPerS, sourceLengthM, accuracy);
         var notes = new List<string> { choice.Reason };
         double g = conductor.SheetConductanceS, v = source.SpeedMPerS;
@@ -62,5 +64,10 @@ public static class CorrectedSheetSolver
         notes.AddRange(s.Notes);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
         return new CorrectedSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes);
+    }
+
+    private static void CheckOperator(SheetModel model, ReactionOperator? reaction)
+    {
+        if (reaction is not null && !ReferenceEquals(reaction.Model, model)) throw new ArgumentException("the reaction operator was built for another sheet model", nameof(reaction));
     }
 }

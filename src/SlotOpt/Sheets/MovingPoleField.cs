@@ -33,10 +33,10 @@ public sealed class MovingPoleField : IMovingSheetSource
             for (int j = j0; j <= j1; j++)
                 for (int i = i0; i <= i1; i++)
                 {
-                    // dual-cell area inside the face: integral over x of the chord length (Gauss-Legendre in x)
-                    double x0 = l.NodeX(i) - l.Hx / 2 - cx, y0 = l.NodeY(j) - l.Hy / 2 - cy, area = 0;
-                    for (int q = 0; q < AreaPoints; q++) area += w[q] * pole.Face.ChordLength(x0 + t[q] * l.Hx, y0, y0 + l.Hy);
-                    mean[j * l.NodesX + i] += pole.FluxDensityT * area / l.Hy;
+                    // mean chord over the dual cell's x-range (Gauss-Legendre in x) = (area inside the face) / hx
+                    double x0 = l.NodeX(i) - l.Hx / 2 - cx, y0 = l.NodeY(j) - l.Hy / 2 - cy, chord = 0;
+                    for (int q = 0; q < AreaPoints; q++) chord += w[q] * pole.Face.ChordLength(x0 + t[q] * l.Hx, y0, y0 + l.Hy);
+                    mean[j * l.NodesX + i] += pole.FluxDensityT * chord / l.Hy;   // B x (area fraction of the dual cell)
                 }
         }
         reaction.ApplyRToNodeField(mean, perUnknown);

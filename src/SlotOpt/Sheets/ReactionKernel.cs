@@ -44,9 +44,6 @@ public sealed class ReactionKernel
     /// <summary>Kernel value R(dx, dy) in henry; even in dx and in dy.</summary>
     public double this[int dx, int dy] => _value[Math.Abs(dy) * (MaxOffsetX + 1) + Math.Abs(dx)];
 
-    /// <summary>Vertical distance between the two layers the kernel couples (0: one sheet with itself).</summary>
-    public double SeparationM { get; private init; }
-
     /// <summary>
     /// Tabulates R for 0 &lt;= dx &lt;= maxOffsetX, 0 &lt;= dy &lt;= maxOffsetY on a lattice of hx x hy cells, between two
     /// parallel layers separationM apart (0 for a sheet with itself): the 1/|x - y| of Neumann's form becomes
@@ -62,9 +59,11 @@ public sealed class ReactionKernel
             for (int dx = 0; dx <= maxOffsetX; dx++)
             {
                 double distance = Math.Sqrt(dx * hx * dx * hx + dy * hy * dy * hy + separationM * separationM);
-                value[dy * (maxOffsetX + 1) + dx] = distance >= far ? FarField(hx, hy, dx, dy, separationM) : NearField(hx, hy, dx, dy, separationM);
+                double r = distance >= far ? FarField(hx, hy, dx, dy, separationM) : NearField(hx, hy, dx, dy, separationM);
+                if (!double.IsFinite(r)) throw new NumericalFailureException($"reaction kernel is not finite at offset ({dx}, {dy}) (cells {hx} m x {hy} m, separation {separationM} m)");
+                value[dy * (maxOffsetX + 1) + dx] = r;
             }
-        return new ReactionKernel(hx, hy, maxOffsetX, maxOffsetY, value) { SeparationM = separationM };
+        return new ReactionKernel(hx, hy, maxOffsetX, maxOffsetY, value);
     }
 
     /// <summary>Neumann form: (mu0/4pi) hx hy sum over unit sub-squares of integral c(s) / sqrt(|D - u(s)|^2 + z^2) ds.</summary>

@@ -25,9 +25,8 @@ public sealed class ReactionOperator
     public ReactionKernel Kernel { get; }
     public int PaddedX { get; }
     public int PaddedY { get; }
-    public double SetupSeconds { get; }
 
-    private ReactionOperator(SheetModel model, ReactionKernel kernel, int mx, int my, Complex[] spectrumR, double setupSeconds)
+    private ReactionOperator(SheetModel model, ReactionKernel kernel, int mx, int my, Complex[] spectrumR)
     {
         Model = model;
         Kernel = kernel;
@@ -37,19 +36,17 @@ public sealed class ReactionOperator
         _nodeUnknown = model.Regions.NodeUnknown;
         _work = new Complex[mx * my];
         _fft = new Fft2D(my, mx);
-        SetupSeconds = setupSeconds;
     }
 
     public static ReactionOperator Build(SheetModel model)
     {
-        var clock = System.Diagnostics.Stopwatch.StartNew();
         var l = model.Lattice;
         int ix = l.NodesX - 2, iy = l.NodesY - 2;           // interior nodes: the border is outside (NodeRegions)
         int mx = PaddedLength(ix), my = PaddedLength(iy);
         // one extra offset in x for the central difference of the convected form
         var kernel = ReactionKernel.Build(l.Hx, l.Hy, ix, iy - 1);
         var spectrum = Spectrum(mx, my, ix - 1, iy - 1, (dx, dy) => kernel[dx, dy]);
-        return new ReactionOperator(model, kernel, mx, my, spectrum, clock.Elapsed.TotalSeconds);
+        return new ReactionOperator(model, kernel, mx, my, spectrum);
     }
 
     /// <summary>The smallest power of two at least 2 n - 1 (linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
