@@ -22,11 +22,12 @@ public class ReactionMovingDipoleTests(ITestOutputHelper output)
         return ReactionOperator.Build(SheetModel.Build(plate, new GridOptions { CellSizeM = HeightM / cellsPerHeight }));
     }
 
-    private static (double Lift, double Drag, double LowDrag) Forces(ReactionOperator op, double speedOverW)
+    private (double Lift, double Drag, double LowDrag) Forces(ReactionOperator op, double speedOverW)
     {
         var dipole = new MovingDipole(new Vec2(0, 0), HeightM, 1.0, speedOverW * W);
         var s = ReactionSolver.SolveMoving(op, dipole, Sheet, new[] { 0.0 });
         Assert.True(s.MaxRelativeResidual <= 1e-8);
+        output.WriteLine($"  v/w {speedOverW}, {op.Model.Unknowns} unknowns: {s.Iterations[0]} GMRES iterations, residual {s.MaxRelativeResidual:E1}");
         double f0 = dipole.ImageForceN;
         return (s.LiftN[0] / f0, s.DragN[0] / f0, s.ResistanceLimitedDragN[0] / f0);
     }
