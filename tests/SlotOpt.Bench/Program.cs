@@ -13,6 +13,7 @@ public static class Program
             case "demos": return DemoRunBench.Run(rest);
             case "sheets": return SheetsBench.Run(rest);
             case "selection": return SelectionBench.Run(rest);
+            case "reaction": return ReactionBench.Run(rest);
             default:
                 Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, selection, demos)");
                 return 2;
