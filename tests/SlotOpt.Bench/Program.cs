@@ -15,7 +15,7 @@ public static class Program
             case "selection": return SelectionBench.Run(rest);
             case "reaction": return ReactionBench.Run(rest);
             default:
-                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, selection, demos)");
+                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, selection, reaction, demos)");
                 return 2;
         }
     }
