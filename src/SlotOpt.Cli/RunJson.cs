@@ -37,6 +37,9 @@ public static class RunJson
                     build_cost = r.Parts[i].Reference.BuildCost,
                     breaks = r.Parts[i].Reference.Rejection,
                 },
+                confirmed = r.Confirmation(o.PartName) is { } c
+                    ? new { model = c.Model, reason = c.Reason, loss_w = c.LossW, drag_n = c.DragN, lift_n = c.LiftN, resistance_limited_loss_w = c.ResistanceLimitedLossW }
+                    : null,
                 options = r.Parts[i].Options.Count,
                 rejected = r.Parts[i].RejectionCounts,
             }),

@@ -11,12 +11,17 @@ public static class DesignRun
         var selection = CandidateEvaluation.ToSelectionProblem(problem, evaluated.Parts);
         var outcome = new CpSatSelector(settings).Select(selection, new SelectionOptions { IncludeFront = true });
         IReadOnlyList<EvaluatedOption>? chosen = null;
+        var confirmations = new List<PlateConfirmation>();
         if (outcome.Design is { } design)
         {
             var byId = evaluated.Parts.SelectMany(p => p.Options).ToDictionary(o => o.Id);
             chosen = design.Choices.Select(c => byId[c.Candidate.Id]).ToList();
+            // screen with the fast resistance-limited model, confirm the chosen plates with the model their validity calls for
+            foreach (var option in chosen)
+                if (problem.Parts.First(p => p.Name == option.PartName) is PlatePart plate && option.Choice is PlateChoice choice)
+                    confirmations.Add(PlateConfirmation.Confirm(plate, choice, problem.Library, limits));
         }
-        return new RunResult(problem, evaluated.Parts, outcome, chosen, Baselines(problem, evaluated.Parts), evaluated.SheetSolves, evaluated.Seconds);
+        return new RunResult(problem, evaluated.Parts, outcome, chosen, Baselines(problem, evaluated.Parts), evaluated.SheetSolves, evaluated.Seconds, confirmations);
     }
 
     /// <summary>

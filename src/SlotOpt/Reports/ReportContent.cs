@@ -118,7 +118,16 @@ public static class ReportContent
         b.Add(withDrag
             ? new Table(["part", "", "design", "loss (W)", "drag (N)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true])
             : new Table(["part", "", "design", "loss (W)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true]));
+        if (r.Confirmations.Count > 0)
+        {
+            b.Add(new Paragraph("The search screens plates with the resistance-limited model (fast: one solve per slot geometry). Each chosen plate is then solved again with the model its validity figures call for:"));
+            b.Add(new BulletList(r.Confirmations.Select(ConfirmationLine).ToList()));
+        }
     }
+
+    /// <summary>One chosen plate as confirmed: which model ran, and its loss, drag and lift against the screen.</summary>
+    public static string ConfirmationLine(PlateConfirmation c) =>
+        F($"{c.PartName}: {c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? F($", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? F($", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W). {c.Reason}");
 
     private static string Drag(double? dragN) => dragN is { } d ? F($"{d:0.###}") : "";
 
