@@ -285,7 +285,7 @@ public static class ReportContent
         {
             "The figures are engineering estimates from published loss models and a thin-plate eddy-current model; confirm them by test on the real part before relying on them.",
             "Core loss: loss separation (hysteresis, classical eddy with skin and finite-width corrections, excess) with coefficients derived from the grades' guaranteed limits, not measured on your steel; cutting damage, burrs and stacking pressure add loss not modelled here.",
-            "Plates: resistance-limited thin-plate model (the eddy currents' own field neglected), non-magnetic plates, uniform thickness; it overstates loss and drag where the Reynolds number or thickness over skin depth is flagged.",
+            "Plates: every option is screened with the resistance-limited thin-plate model (the eddy currents' own field neglected), which overstates loss and drag where the Reynolds number or thickness over skin depth is flagged; the chosen plates are then solved again with the model their validity figures call for (thin sheet with its own field, or layered thick plate), as \"The chosen design\" says. Plates are taken as non-magnetic and of uniform thickness.",
             "Prices in the built-in data are invented demo prices; the owning cost is only as good as the value per watt put on the loss.",
             "Braking and load-holding uses (eddy-current brakes, rails or plates whose drag stops or holds a load) need a certified safety analysis; the drag here is not a brake rating.",
             "Hot structural parts carry burn and fire hazards, and their resistivity, strength and loss change with temperature; check the temperature the loss itself causes.",
