@@ -37,6 +37,7 @@ public sealed record ReportFigures(
                 case PlatePart plate when chosen is not null:
                     currentDensity.Add((plate, CurrentDensityPlot.Build(i, evaluation, chosen, r.Problem)));
                     if (plate.Excitation.IsMoving) dragSpeed.Add((plate, DragSpeedPlot.Build(i, evaluation, chosen, r.Problem)));
+                    if (r.Confirmation(plate.Name) is { SpeedSweep: not null } confirmed) dragSpeed.Add((plate, CoupledSpeedPlot.Build(i, plate, confirmed)));
                     break;
             }
         }
