@@ -33,16 +33,14 @@ public sealed record PlateConfirmation(
     {
         limits ??= EvaluationLimits.Default;
         var (geometry, _) = PlateGeometryFactory.Build(part.Outline, choice.Slots);
-        var grid = new GridOptions { CellSizeM = part.CellSizeM };
-        grid = grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) };
-        var model = SheetModel.Build(geometry, grid);
+        var model = PlateOptions.BuildModel(part, geometry, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var conductor = new Sheets.Conductor(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         CorrectedSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
         if (part.Excitation.Moving is { } poles)
         {
-            var offsets = part.Excitation.Offsets(part.Outline, choice.Slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
+            var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
             // the moving skin depth's length scale: the pole's size along the travel
             var poleSize = 2 * poles.Poles.Min(p => p.Face.HalfWidthXM);
             var reaction = ReactionOperator.Build(model);

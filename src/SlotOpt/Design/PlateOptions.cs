@@ -76,19 +76,30 @@ public static class PlateOptions
         SlotPattern? pattern;
         try { (geometry, pattern) = PlateGeometryFactory.Build(part.Outline, slots); }
         catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, e.Message); }
-        var grid = new GridOptions { CellSizeM = part.CellSizeM };
-        grid = grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) };
-        var model = SheetModel.Build(geometry, grid);
+        var model = BuildModel(part, geometry, limits);
         var excitation = part.Excitation;
         if (excitation.Moving is { } poles)
         {
-            var window = slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : (double?)null);
-            var sweep = PlateSolver.SolveMoving(model, poles, excitation.Offsets(part.Outline, window));
+            var sweep = PlateSolver.SolveMoving(model, poles, TravelOffsets(part, slots));
             return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
         }
         var ac = PlateSolver.SolveAc(model, excitation.Ac!);
         return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
     }
+
+    /// <summary>The solver model of one slot geometry: the part's cell size, automatic grids capped by the memory limit.</summary>
+    public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits)
+    {
+        var grid = new GridOptions { CellSizeM = part.CellSizeM };
+        return SheetModel.Build(geometry, grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) });
+    }
+
+    /// <summary>
+    /// Travel offsets of a moving source for one slot choice: over its slot pitch; a solid plate uses the widest
+    /// pitch of the part's families (any window serves a long solid plate, see PlateExcitation.Offsets).
+    /// </summary>
+    public static IReadOnlyList<double> TravelOffsets(PlatePart part, SlotChoice? slots) =>
+        part.Excitation.Offsets(part.Outline, slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
 
     /// <summary>Evaluates one fixed design of the plate (which need not lie in the part's slot families).</summary>
     public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop) =>

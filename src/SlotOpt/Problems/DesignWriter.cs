@@ -23,7 +23,7 @@ public static class DesignWriter
                 text.Append(ci, $"thickness = \"{Millimetres(plate.ThicknessM)}\"\nmaterial = \"{plate.Material}\"\nprocess = \"{plate.Process}\"\n");
                 if (plate.Slots is { } s)
                 {
-                    text.Append(ci, $"slots = {{ pattern = \"{PatternKey(s.Pattern)}\", edge = \"{s.Edge.ToString().ToLowerInvariant()}\", pitch = \"{Millimetres(s.PitchM)}\", {(s.Pattern == SlotPatternKind.EnclosedSlits ? "length" : "depth")} = \"{Millimetres(s.DepthM)}\", width = \"{Millimetres(s.WidthM)}\"");
+                    text.Append(ci, $"slots = {{ pattern = \"{SlotWords.Word(s.Pattern)}\", edge = \"{SlotWords.Word(s.Edge)}\", pitch = \"{Millimetres(s.PitchM)}\", {SlotWords.ExtentKey(SlotWords.Word(s.Pattern))} = \"{Millimetres(s.DepthM)}\", width = \"{Millimetres(s.WidthM)}\"");
                     if (s.RemainingThicknessFraction is { } r) text.Append(ci, $", remaining_thickness = {r:R}");
                     text.Append(" }\n");
                 }
@@ -33,16 +33,6 @@ public static class DesignWriter
         }
         return text.ToString();
     }
-
-    /// <summary>The problem file's word for a slot pattern.</summary>
-    public static string PatternKey(SlotPatternKind kind) => kind switch
-    {
-        SlotPatternKind.Comb => "comb",
-        SlotPatternKind.Alternating => "alternating",
-        SlotPatternKind.EnclosedSlits => "enclosed",
-        SlotPatternKind.Grooves => "grooves",
-        _ => throw new ArgumentOutOfRangeException(nameof(kind)),
-    };
 
     /// <summary>Metres as "12.5 mm" with every significant digit kept (round-trip exact to 1e-12 m).</summary>
     private static string Millimetres(double metres) => (metres * 1e3).ToString("0.############", CultureInfo.InvariantCulture) + " mm";

@@ -144,19 +144,19 @@ public static class PlateFileReader
 
     private static void ReadSlots(TomlSection t, PlateGeometry geometry)
     {
-        var pattern = t.OptionalChoice("pattern", ["comb", "alternating", "enclosed", "grooves"]);
-        if (pattern is null && !t.Has("pattern")) t.Error("pattern", "missing: \"comb\", \"alternating\", \"enclosed\" or \"grooves\"");
-        var edgeText = t.OptionalChoice("edge", ["bottom", "top", "left", "right"]);
-        if (edgeText is null && !t.Has("edge")) t.Error("edge", "missing: \"bottom\", \"top\", \"left\" or \"right\"");
+        var pattern = t.OptionalChoice("pattern", SlotWords.Patterns.ToArray());
+        if (pattern is null && !t.Has("pattern")) t.Error("pattern", $"missing: one of {string.Join(", ", SlotWords.Patterns)}");
+        var edgeText = t.OptionalChoice("edge", SlotWords.Edges.ToArray());
+        if (edgeText is null && !t.Has("edge")) t.Error("edge", $"missing: one of {string.Join(", ", SlotWords.Edges)}");
         var pitch = t.PositiveQuantity("pitch", QuantityKind.Length, required: true);
-        var depthKey = pattern == "enclosed" ? "length" : "depth";
+        var depthKey = SlotWords.ExtentKey(pattern);
         var depth = t.PositiveQuantity(depthKey, QuantityKind.Length, required: true);
         var width = t.PositiveQuantity("width", QuantityKind.Length, required: true);
         var offset = t.OptionalQuantity("offset", QuantityKind.Length);
         var remaining = pattern == "grooves" ? t.OptionalNumber("remaining_thickness") : null;
         if (pattern == "grooves" && remaining is null && !t.Has("remaining_thickness")) t.Error("remaining_thickness", "missing: the fraction of thickness left under the groove, 0 to 1");
         t.RejectUnknownKeys();
-        var edge = edgeText switch { "top" => PlateEdge.Top, "left" => PlateEdge.Left, "right" => PlateEdge.Right, "bottom" => PlateEdge.Bottom, _ => (PlateEdge?)null };
+        PlateEdge? edge = edgeText is null ? null : SlotWords.Edge(edgeText);
         if (pattern is null || edge is null || pitch is not { } p || depth is not { } d || width is not { } w) return;
         var o = geometry.Outline;
         var made = t.Guard("pattern", () => pattern switch

@@ -13,9 +13,6 @@ namespace SlotOpt.Problems;
 /// </summary>
 public static class PlatePartReader
 {
-    private static readonly string[] PatternWords = ["comb", "alternating", "enclosed", "grooves"];
-    private static readonly string[] EdgeWords = ["bottom", "top", "left", "right"];
-
     public static PlatePart? Read(TomlSection s, MaterialLibrary library, ManufacturingSettings shop, string baseDirectory)
     {
         var name = s.RequiredString("name");
@@ -93,11 +90,11 @@ public static class PlatePartReader
 
     private static SlotFamily? ReadFamily(TomlSection f, ManufacturingSettings shop, IReadOnlyList<string> partProcesses, Polygon? outline)
     {
-        var patternWord = f.OptionalChoice("pattern", PatternWords);
-        if (patternWord is null && !f.Has("pattern")) f.Error("pattern", $"missing: one of {string.Join(", ", PatternWords)}");
-        var edgeWord = f.OptionalChoice("edge", EdgeWords) ?? "bottom";
+        var patternWord = f.OptionalChoice("pattern", SlotWords.Patterns.ToArray());
+        if (patternWord is null && !f.Has("pattern")) f.Error("pattern", $"missing: one of {string.Join(", ", SlotWords.Patterns)}");
+        var edgeWord = f.OptionalChoice("edge", SlotWords.Edges.ToArray()) ?? "bottom";
         var pitches = f.QuantityList("pitch", QuantityKind.Length, required: true);
-        var depthKey = patternWord == "enclosed" ? "length" : "depth";   // an enclosed slit has a length, not a depth from an edge
+        var depthKey = SlotWords.ExtentKey(patternWord);
         var depths = f.QuantityList(depthKey, QuantityKind.Length, required: true);
         var widths = f.QuantityList("width", QuantityKind.Length, required: true);
         var remaining = f.OptionalNumber("remaining_thickness");
@@ -110,7 +107,7 @@ public static class PlatePartReader
             f.Error("width", $"the widest slot ({widths.Max() * 1e3:0.###} mm) is not narrower than the smallest pitch ({pitches.Min() * 1e3:0.###} mm): nothing would be left between slots");
         if (patternWord == "grooves" && remaining is not (> 0 and < 1)) f.Error("remaining_thickness", "grooves need remaining_thickness between 0 and 1 (the fraction of thickness left under them)");
         if (patternWord != "grooves" && remaining is not null) f.Error("remaining_thickness", "only grooves take remaining_thickness");
-        var edge = edgeWord switch { "top" => PlateEdge.Top, "left" => PlateEdge.Left, "right" => PlateEdge.Right, _ => PlateEdge.Bottom };
+        var edge = SlotWords.Edge(edgeWord);
         if (outline is not null && depths is not null)
         {
             var (min, max) = outline.Bounds;
@@ -118,13 +115,7 @@ public static class PlatePartReader
             if (depths.Max() >= across) f.Error(depthKey, $"the deepest slot ({depths.Max() * 1e3:0.###} mm) cuts right through the plate ({across * 1e3:0.###} mm across): the plate would fall apart");
         }
         if (patternWord is null || pitches is null || depths is null || widths is null || processes.Count == 0) return null;
-        var pattern = patternWord switch
-        {
-            "alternating" => SlotPatternKind.Alternating,
-            "enclosed" => SlotPatternKind.EnclosedSlits,
-            "grooves" => SlotPatternKind.Grooves,
-            _ => SlotPatternKind.Comb,
-        };
+        var pattern = SlotWords.Pattern(patternWord);
         return new SlotFamily(pattern, edge, pitches, depths, widths, processes, pattern == SlotPatternKind.Grooves ? remaining : null);
     }
 
@@ -141,18 +132,15 @@ public static class PlatePartReader
         var slotTable = s.OptionalTable("slots");
         if (slotTable is not null)
         {
-            var word = slotTable.OptionalChoice("pattern", PatternWords) ?? "comb";
-            var edgeWord = slotTable.OptionalChoice("edge", EdgeWords) ?? "bottom";
+            var word = slotTable.OptionalChoice("pattern", SlotWords.Patterns.ToArray()) ?? "comb";
+            var edgeWord = slotTable.OptionalChoice("edge", SlotWords.Edges.ToArray()) ?? "bottom";
             var pitch = slotTable.PositiveQuantity("pitch", QuantityKind.Length, required: true);
-            var depth = slotTable.PositiveQuantity(word == "enclosed" ? "length" : "depth", QuantityKind.Length, required: true);
+            var depth = slotTable.PositiveQuantity(SlotWords.ExtentKey(word), QuantityKind.Length, required: true);
             var width = slotTable.PositiveQuantity("width", QuantityKind.Length, required: true);
             var remaining = slotTable.OptionalNumber("remaining_thickness");
             slotTable.RejectUnknownKeys();
             if (pitch is { } p && depth is { } d && width is { } w)
-                slots = new SlotChoice(
-                    word switch { "alternating" => SlotPatternKind.Alternating, "enclosed" => SlotPatternKind.EnclosedSlits, "grooves" => SlotPatternKind.Grooves, _ => SlotPatternKind.Comb },
-                    edgeWord switch { "top" => PlateEdge.Top, "left" => PlateEdge.Left, "right" => PlateEdge.Right, _ => PlateEdge.Bottom },
-                    p, d, w, word == "grooves" ? remaining ?? 0.5 : null);
+                slots = new SlotChoice(SlotWords.Pattern(word), SlotWords.Edge(edgeWord), p, d, w, word == "grooves" ? remaining ?? 0.5 : null);
         }
         s.RejectUnknownKeys();
         return thickness is null || material is null ? null : new PlateChoice(thickness.Value, library.TryGetConductor(material, out var c) ? c.Name : material, process, slots);
