@@ -1,6 +1,7 @@
 using System.CommandLine;
 using SlotOpt.Design;
-using SlotOpt.Problems;
+using SlotOpt.Input;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
 

@@ -1,8 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
+using SlotOpt.Input;
 using SlotOpt.Lamination;
 using SlotOpt.Materials;
-using SlotOpt.Problems;
 using SlotOpt.Waveforms;
 
 namespace SlotOpt.Cli;

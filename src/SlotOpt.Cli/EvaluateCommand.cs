@@ -1,7 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
 using SlotOpt.Design;
-using SlotOpt.Problems;
+using SlotOpt.Input;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
 

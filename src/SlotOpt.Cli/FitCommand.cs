@@ -1,7 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
+using SlotOpt.Input;
 using SlotOpt.Lamination;
-using SlotOpt.Problems;
 
 namespace SlotOpt.Cli;
 

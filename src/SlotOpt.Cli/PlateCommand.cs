@@ -4,8 +4,10 @@ using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Nodes;
-using SlotOpt.Problems;
-using SlotOpt.Sheets;
+using SlotOpt.Input;
+using SlotOpt.Plates;
+using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
 
@@ -49,7 +51,7 @@ public static class PlateCommand
             ["rms_current_density_a_per_m2"] = r.RmsCurrentDensityAPerM2,
             ["reynolds_number"] = r.Validity.ReynoldsNumber,
             ["thickness_to_skin_depth"] = r.Validity.ThicknessToSkinDepth,
-            ["sheet_conductance_s"] = e.File.Conductor.SheetConductanceS,
+            ["sheet_conductance_s"] = e.File.Sheet.SheetConductanceS,
             ["unknowns"] = r.Unknowns,
             ["iterations"] = e.TotalIterations,
             ["relative_residual"] = r.RelativeResidual,
@@ -66,7 +68,7 @@ public static class PlateCommand
         var r = e.Result;
         var c = CultureInfo.InvariantCulture;
         var s = new StringBuilder();
-        s.AppendLine(c, $"plate {e.File.Path}: sheet conductance {e.File.Conductor.SheetConductanceS:G4} S");
+        s.AppendLine(c, $"plate {e.File.Path}: sheet conductance {e.File.Sheet.SheetConductanceS:G4} S");
         s.AppendLine(c, $"  loss                 {e.LossW:G4} W{(e.File.MovingSource is null ? " (time average)" : $" (mean over {e.File.AveragedOver})")}");
         if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {drag:G4} N (min {e.DragPerOffsetN.Min():G4}, max {e.DragPerOffsetN.Max():G4})");
         s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");

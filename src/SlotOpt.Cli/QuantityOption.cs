@@ -1,5 +1,5 @@
 using System.CommandLine;
-using SlotOpt.Problems;
+using SlotOpt.Input;
 
 namespace SlotOpt.Cli;
 

@@ -1,9 +1,10 @@
 using System.CommandLine;
 using System.Runtime.InteropServices;
 using System.Text.Json;
-using SlotOpt.Optimization;
-using SlotOpt.Problems;
+using SlotOpt.Input;
 using SlotOpt.Reports;
+using SlotOpt.Runs;
+using SlotOpt.Selection;
 
 namespace SlotOpt.Cli;
 

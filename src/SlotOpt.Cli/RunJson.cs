@@ -1,4 +1,6 @@
-using SlotOpt.Optimization;
+using SlotOpt.Design;
+using SlotOpt.Runs;
+using SlotOpt.Selection;
 
 namespace SlotOpt.Cli;
 

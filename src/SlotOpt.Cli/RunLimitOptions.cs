@@ -1,7 +1,7 @@
 using System.CommandLine;
 using SlotOpt.Design;
-using SlotOpt.Optimization;
-using SlotOpt.Problems;
+using SlotOpt.Input;
+using SlotOpt.Selection;
 
 namespace SlotOpt.Cli;
 

@@ -1,5 +1,8 @@
 using System.Globalization;
-using SlotOpt.Optimization;
+using SlotOpt.Design;
+using SlotOpt.Reports;
+using SlotOpt.Runs;
+using SlotOpt.Selection;
 
 namespace SlotOpt.Cli;
 

@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using System.Text.Json;
-using SlotOpt.Optimization;
-using SlotOpt.Problems;
+using SlotOpt.Input;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Bench;
 

@@ -1,6 +1,12 @@
 using System.Diagnostics;
 using System.Globalization;
-using SlotOpt.Sheets;
+using SlotOpt.Plates;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.OwnField;
+using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Thick;
 
 namespace SlotOpt.Bench;
 
@@ -20,7 +26,7 @@ public static class ReactionBench
     public static int Run(string[] args)
     {
         var c = CultureInfo.InvariantCulture;
-        var conductor = new Conductor(35.38e6, 3e-3);
+        var conductor = new ConductingSheet(35.38e6, 3e-3);
         Console.WriteLine("| case | grid | unknowns | padded FFT | setup s | solve s | iterations | residual | loss or drag ratio (coupled / resistance-limited) |");
         Console.WriteLine("|---|---|---|---|---|---|---|---|---|");
         foreach (int n in new[] { 256, 512 })
@@ -54,7 +60,7 @@ public static class ReactionBench
             var model = SheetModel.Build(PlateGeometry.Rectangle(0.4, 0.2), new GridOptions { CellSizeM = 0.4 / 128 });
             double setup = clock.Elapsed.TotalSeconds;
             clock.Restart();
-            var s = ThickPlateSolver.SolveAcConverged(model, new DepthIndependentField(new UniformAcField(0.01, 50)), new Conductor(1 / 0.017241e-6, 0.02), 0.01);
+            var s = ThickPlateSolver.SolveAcConverged(model, new DepthIndependentField(new UniformAcField(0.01, 50)), new ConductingSheet(1 / 0.017241e-6, 0.02), 0.01);
             double solve = clock.Elapsed.TotalSeconds;
             Console.WriteLine(string.Create(c, $"| thick Cu 20 mm, 50 Hz, {s.Layers} layers (error {s.LayerError:P1}) | 128 x 64 x {s.Layers} | {model.Unknowns * s.Layers} | 256 x 128 | {setup:F2} | {solve:F2} (with kernels, L/2 and L) | {s.Iterations} | {s.RelativeResidual:E1} | {s.LossRatio:F4} |"));
         }

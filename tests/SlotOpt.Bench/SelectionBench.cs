@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using System.Text.Json;
-using SlotOpt.Optimization;
+using SlotOpt.Selection;
 
 namespace SlotOpt.Bench;
 

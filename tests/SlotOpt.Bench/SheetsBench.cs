@@ -1,7 +1,10 @@
 using System.Diagnostics;
 using System.Globalization;
 using System.Text.Json;
-using SlotOpt.Sheets;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources;
 
 namespace SlotOpt.Bench;
 

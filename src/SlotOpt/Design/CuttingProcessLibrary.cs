@@ -1,5 +1,5 @@
 using System.Reflection;
-using SlotOpt.Problems;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Design;
 

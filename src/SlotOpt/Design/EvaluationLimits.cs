@@ -1,5 +1,6 @@
 using System.Diagnostics;
-using SlotOpt.Sheets;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
 
 namespace SlotOpt.Design;
 

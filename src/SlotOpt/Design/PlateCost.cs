@@ -1,5 +1,5 @@
 using SlotOpt.Materials;
-using SlotOpt.Sheets;
+using SlotOpt.Plates.Geometry;
 
 namespace SlotOpt.Design;
 
@@ -12,7 +12,7 @@ public static class PlateCost
     }
 
     /// <param name="slotCutLengthM">Total length of cut the slots need (see <see cref="SlotCutLength"/>).</param>
-    public static Breakdown Of(Polygon outline, double thicknessM, Materials.Conductor material, CuttingProcess process, double slotCutLengthM, int slotCount, ManufacturingSettings shop)
+    public static Breakdown Of(Polygon outline, double thicknessM, Conductor material, CuttingProcess process, double slotCutLengthM, int slotCount, ManufacturingSettings shop)
     {
         // the slots' material is bought with the plate, so mass priced = outline area x t x density
         var mass = outline.Area * thicknessM * material.DensityKgPerM3;

@@ -1,4 +1,6 @@
-using SlotOpt.Sheets;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources;
 
 namespace SlotOpt.Design;
 

@@ -1,13 +1,16 @@
 using System.Globalization;
 using SlotOpt.Materials;
-using SlotOpt.Sheets;
+using SlotOpt.Plates;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.ResistanceLimited;
 
 namespace SlotOpt.Design;
 
 /// <summary>
 /// Enumerates and evaluates every option of a plate part. The thin-plate solve is resistance-limited,
 /// so loss and drag scale with the sheet conductance sigma t: one solve per slot geometry serves every
-/// thickness and material (Sheets/UnitConductanceSolution), and only the rules and the cost differ.
+/// thickness and material (Plates/ResistanceLimited/UnitConductanceSolution), and only the rules and the cost differ.
 /// </summary>
 public static class PlateOptions
 {
@@ -106,7 +109,7 @@ public static class PlateOptions
         Scale(part, Solve(part, choice.Slots), choice.ThicknessM, library.GetConductor(choice.Material, part.Name), shop.Processes[choice.Process], shop);
 
     /// <summary>Scales a unit-conductance solve to one thickness and material and prices it with one process.</summary>
-    public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Materials.Conductor material, CuttingProcess process, ManufacturingSettings shop)
+    public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, CuttingProcess process, ManufacturingSettings shop)
     {
         var ci = CultureInfo.InvariantCulture;
         var slots = solved.Slots;
@@ -139,7 +142,7 @@ public static class PlateOptions
         var cost = PlateCost.Of(part.Outline, thicknessM, material, process, slotCut, slotCount, shop);
 
         var sigma = material.ConductivityAt(part.TemperatureK);
-        var sheet = new Sheets.Conductor(sigma, thicknessM, material.RelativePermeability);
+        var sheet = new ConductingSheet(sigma, thicknessM, material.RelativePermeability);
         var lossW = solved.LossPerSiemensW * sheet.SheetConductanceS;
         var moving = part.Excitation.IsMoving;
         double? drag = moving ? lossW / part.Excitation.SpeedMPerS : null;

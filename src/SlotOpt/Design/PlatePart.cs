@@ -1,4 +1,4 @@
-using SlotOpt.Sheets;
+using SlotOpt.Plates.Geometry;
 
 namespace SlotOpt.Design;
 

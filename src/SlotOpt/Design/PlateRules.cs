@@ -1,5 +1,6 @@
 using System.Globalization;
-using SlotOpt.Sheets;
+using SlotOpt.Materials;
+using SlotOpt.Plates.Geometry;
 
 namespace SlotOpt.Design;
 
@@ -10,7 +11,7 @@ namespace SlotOpt.Design;
 /// </summary>
 public static class PlateRules
 {
-    public static string? FirstBroken(SlotChoice slots, SlotPattern pattern, double thicknessM, Materials.Conductor material,
+    public static string? FirstBroken(SlotChoice slots, SlotPattern pattern, double thicknessM, Conductor material,
         CuttingProcess process, double partMinLigamentM, double? acFrequencyHz)
     {
         var ci = CultureInfo.InvariantCulture;

@@ -1,8 +1,8 @@
-using SlotOpt.Sheets;
+using SlotOpt.Plates.Geometry;
 
 namespace SlotOpt.Design;
 
-/// <summary>The kinds of slot pattern a plate can be given (see Sheets/SlotPatterns).</summary>
+/// <summary>The kinds of slot pattern a plate can be given (see Plates/Geometry/SlotPatterns).</summary>
 public enum SlotPatternKind
 {
     Comb,

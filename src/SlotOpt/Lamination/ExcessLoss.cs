@@ -1,3 +1,5 @@
+using SlotOpt.Waveforms;
+
 namespace SlotOpt.Lamination;
 
 /// <summary>Excess (anomalous) loss of Bertotti's loss separation.</summary>

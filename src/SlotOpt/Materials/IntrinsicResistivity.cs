@@ -1,4 +1,5 @@
 using System.Globalization;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Materials;
 

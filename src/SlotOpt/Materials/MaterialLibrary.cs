@@ -1,4 +1,4 @@
-using SlotOpt.Problems;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Materials;
 

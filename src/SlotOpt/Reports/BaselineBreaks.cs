@@ -1,5 +1,6 @@
 using System.Globalization;
-using SlotOpt.Optimization;
+using SlotOpt.Design;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
-using SlotOpt.Optimization;
+using SlotOpt.Design;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 

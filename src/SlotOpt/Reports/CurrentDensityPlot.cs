@@ -1,8 +1,10 @@
 using System.Globalization;
 using ScottPlot;
 using SlotOpt.Design;
-using SlotOpt.Optimization;
-using SlotOpt.Sheets;
+using SlotOpt.Plates;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 
@@ -24,7 +26,7 @@ public static class CurrentDensityPlot
 
         var choice = (PlateChoice)chosen.Choice;
         var material = problem.Library.GetConductor(choice.Material, part.Name);
-        var sheet = new Sheets.Conductor(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
+        var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         var maps = panels.Select(p => Map(part, ((PlateChoice)p.Option.Choice).Slots, sheet)).ToList();
         var peakAPerMm2 = maps.Max(m => m.Result.PeakCurrentDensityAPerM2) / 1e6;
 
@@ -62,7 +64,7 @@ public static class CurrentDensityPlot
         return PlotStyle.Render(plot, FileStemFor(partIndex, part), $"Current density: {part.Name}", caption, heightPx: heightPx);
     }
 
-    private static (PlateResult Result, PlateGeometry Geometry) Map(PlatePart part, SlotChoice? slots, Sheets.Conductor sheet)
+    private static (PlateResult Result, PlateGeometry Geometry) Map(PlatePart part, SlotChoice? slots, ConductingSheet sheet)
     {
         var solved = PlateOptions.Solve(part, slots);
         if (solved.Peak is null || solved.Geometry is null) throw new InvalidOperationException($"{part.Name}: the geometry solved during the run no longer solves: {solved.Failure}");

@@ -1,8 +1,8 @@
 using System.Globalization;
 using ScottPlot;
 using SlotOpt.Design;
-using SlotOpt.Optimization;
-using SlotOpt.Sheets;
+using SlotOpt.Plates;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 
@@ -82,7 +82,7 @@ public static class DragSpeedPlot
     {
         var choice = (PlateChoice)option.Choice;
         var material = problem.Library.GetConductor(choice.Material, part.Name);
-        var sheet = new Sheets.Conductor(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
+        var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         var v0 = part.Excitation.SpeedMPerS;
         return v0 * Validity.ReynoldsLimit / Validity.ForMoving(sheet, v0).ReynoldsNumber;
     }

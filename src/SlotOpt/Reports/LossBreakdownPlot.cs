@@ -1,7 +1,7 @@
 using System.Globalization;
 using ScottPlot;
 using SlotOpt.Design;
-using SlotOpt.Optimization;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 

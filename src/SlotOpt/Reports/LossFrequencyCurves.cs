@@ -1,5 +1,6 @@
 using SlotOpt.Design;
 using SlotOpt.Lamination;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 

@@ -1,6 +1,8 @@
 using System.Globalization;
 using SlotOpt.Design;
-using SlotOpt.Optimization;
+using SlotOpt.Plates;
+using SlotOpt.Runs;
+using SlotOpt.Selection;
 
 namespace SlotOpt.Reports;
 
@@ -50,12 +52,12 @@ public static class ReportContent
         b.Add(new Paragraph(F($"{r.Parts.Sum(pe => pe.Options.Count)} options evaluated ({r.Parts.Sum(pe => pe.Feasible.Count)} within the rules), {r.SheetSolves} plate solves; CP-SAT {r.Outcome.Effort.SolverCalls} calls.")));
     }
 
-    private static string GoalWords(DesignGoal goal) => goal switch
+    private static string GoalWords(Objective goal) => goal switch
     {
-        DesignGoal.LowestOwningCost => "the lowest owning cost (build cost plus the capitalised loss)",
-        DesignGoal.LowestLossWithinBudget => "the lowest loss within the budget",
-        DesignGoal.LowestCostWithinLossCap => "the lowest build cost within the loss cap",
-        DesignGoal.TradeOffCurve => "the trade-off curve of loss against build cost, and on it the lowest owning cost",
+        Objective.LowestOwningCost => "the lowest owning cost (build cost plus the capitalised loss)",
+        Objective.LowestLossWithinBudget => "the lowest loss within the budget",
+        Objective.LowestCostWithinLossCap => "the lowest build cost within the loss cap",
+        Objective.TradeOffCurve => "the trade-off curve of loss against build cost, and on it the lowest owning cost",
         _ => goal.ToString(),
     };
 
@@ -266,7 +268,7 @@ public static class ReportContent
         {
             foreach (var o in chosen)
             {
-                if (o.Attributes.TryGetValue("reynolds_number", out var rm)) lines.Add($"{o.PartName}: magnetic Reynolds number {rm} (limit of the low-speed, resistance-limited model: {Sheets.Validity.ReynoldsLimit})");
+                if (o.Attributes.TryGetValue("reynolds_number", out var rm)) lines.Add($"{o.PartName}: magnetic Reynolds number {rm} (limit of the low-speed, resistance-limited model: {Validity.ReynoldsLimit})");
                 lines.AddRange(o.Flags.Select(f => $"{o.PartName}: {f}"));
             }
             if (!chosen.Any(o => o.Flags.Count > 0)) lines.Add("The chosen design raises no validity flag (flux below the knee, sheets thin against the skin depth, coefficients used near their data, Reynolds number below its limit).");

@@ -1,5 +1,5 @@
 using SlotOpt.Design;
-using SlotOpt.Optimization;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 

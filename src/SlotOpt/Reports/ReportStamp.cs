@@ -1,5 +1,5 @@
 using System.Globalization;
-using SlotOpt.Optimization;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 

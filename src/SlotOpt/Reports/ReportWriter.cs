@@ -1,4 +1,4 @@
-using SlotOpt.Optimization;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 

@@ -1,6 +1,8 @@
 using System.Globalization;
 using ScottPlot;
-using SlotOpt.Optimization;
+using SlotOpt.Design;
+using SlotOpt.Runs;
+using SlotOpt.Selection;
 
 namespace SlotOpt.Reports;
 

@@ -1,6 +1,9 @@
 using SlotOpt.Lamination;
 using SlotOpt.Materials;
-using SlotOpt.Sheets;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources;
 using SlotOpt.Waveforms;
 
 namespace SlotOpt.Tests.Hardening;

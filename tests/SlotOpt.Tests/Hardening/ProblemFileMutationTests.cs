@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using System.Text;
 using System.Text.RegularExpressions;
-using SlotOpt.Problems;
+using SlotOpt.Input;
 using Xunit.Abstractions;
 
 namespace SlotOpt.Tests.Hardening;

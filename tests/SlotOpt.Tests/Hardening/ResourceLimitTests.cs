@@ -1,6 +1,7 @@
 using SlotOpt.Design;
-using SlotOpt.Optimization;
-using SlotOpt.Problems;
+using SlotOpt.Input;
+using SlotOpt.Runs;
+using SlotOpt.Tests.Selection;
 
 namespace SlotOpt.Tests.Hardening;
 

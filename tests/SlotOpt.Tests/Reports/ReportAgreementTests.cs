@@ -1,6 +1,5 @@
 using System.Globalization;
 using System.Text.Json.Nodes;
-using SlotOpt.Cli;
 using SlotOpt.Reports;
 
 namespace SlotOpt.Tests.Reports;

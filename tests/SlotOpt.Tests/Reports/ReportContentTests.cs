@@ -1,9 +1,11 @@
 using System.Text.RegularExpressions;
 using SlotOpt.Design;
+using SlotOpt.Input;
 using SlotOpt.Lamination;
-using SlotOpt.Optimization;
-using SlotOpt.Problems;
 using SlotOpt.Reports;
+using SlotOpt.Runs;
+using SlotOpt.Selection;
+using SlotOpt.Tests.Selection;
 
 namespace SlotOpt.Tests.Reports;
 

@@ -1,3 +1,4 @@
+using SlotOpt.Runs;
 using SlotOpt.Tests.Cli;
 
 namespace SlotOpt.Tests.Reports;

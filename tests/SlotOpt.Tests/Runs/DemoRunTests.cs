@@ -1,6 +1,9 @@
 using SlotOpt.Design;
-using SlotOpt.Optimization;
-using SlotOpt.Problems;
+using SlotOpt.Input;
+using SlotOpt.Plates;
+using SlotOpt.Runs;
+using SlotOpt.Selection;
+using SlotOpt.Tests.Selection;
 
 namespace SlotOpt.Tests.Runs;
 
@@ -77,7 +80,7 @@ public class PlateConfirmationTests
         var result = DesignRun.Execute(ProblemReader.ReadFile(Path.Combine(AppContext.BaseDirectory, "problems", "conveyor-rail.toml")));
         var rail = result.Chosen![0];
         var confirmed = result.Confirmation(rail.PartName)!;
-        Assert.Equal(SlotOpt.Sheets.SheetModelKind.ThinSheetReaction, confirmed.Model);
+        Assert.Equal(SheetModelKind.ThinSheetReaction, confirmed.Model);
         Assert.InRange(confirmed.DragN!.Value / rail.DragN!.Value, 0.95, 1.0);
         Assert.True(confirmed.LiftN > 0);
         Assert.Equal(rail.Loss.PlateEddyW, confirmed.ResistanceLimitedLossW, rail.Loss.PlateEddyW * 1e-6);
@@ -85,7 +88,7 @@ public class PlateConfirmationTests
 
     // A solid aluminium carrier plate at 200 Hz has Rm = mu0 sigma t omega L / 2 ~ 5: the plate screens the field, so the
     // confirmed loss is well below the resistance-limited screen (the thin-disc check of the reaction solver,
-    // tests/Sheets/Reaction, shows the ratio falling to 0.68 at beta = 2).
+    // tests/Plates/OwnField, shows the ratio falling to 0.68 at beta = 2).
     [Fact]
     public void An_aluminium_plate_at_200_Hz_loses_less_than_the_screen_says()
     {
@@ -95,7 +98,7 @@ public class PlateConfirmationTests
 
         var result = DesignRun.Execute(ProblemReader.Read(text, path));
         var confirmed = Assert.Single(result.Confirmations);
-        Assert.NotEqual(SlotOpt.Sheets.SheetModelKind.ResistanceLimited, confirmed.Model);
+        Assert.NotEqual(SheetModelKind.ResistanceLimited, confirmed.Model);
         Assert.True(confirmed.LossW < 0.9 * confirmed.ResistanceLimitedLossW, $"{confirmed.LossW} W vs screen {confirmed.ResistanceLimitedLossW} W");
     }
 }

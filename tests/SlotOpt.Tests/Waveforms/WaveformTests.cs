@@ -1,5 +1,5 @@
+using SlotOpt.Input;
 using SlotOpt.Lamination;
-using SlotOpt.Problems;
 using SlotOpt.Waveforms;
 
 namespace SlotOpt.Tests.Waveforms;

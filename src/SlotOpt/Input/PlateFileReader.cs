@@ -1,0 +1,181 @@
+using SlotOpt.Design;
+using SlotOpt.Input.Toml;
+using SlotOpt.Plates;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
+
+namespace SlotOpt.Input;
+
+/// <summary>
+/// Reads a plate file (TOML) for `slotopt plate`: one plate, one material and thickness, one source.
+/// Every error names file:line and key; unknown keys and tables are errors; all are reported together.
+/// Schema (quantities as strings with units or plain SI; source keys as in problem files, see
+/// <see cref="PlateSourceReader"/>):
+/// <code>
+/// [plate]      width, height (rectangle from the origin) | outline = [[x, y], ...];
+///              thickness; resistivity | conductivity (S/m); relative_permeability (optional, skin depth only)
+/// [grid]       cell (optional); min_cells_across_strip (optional, default 8)
+/// [[cutout]]   shape = "rectangle" (x, y lower-left, width, height) | "circle" (x, y centre, radius) | "polygon" (points)
+/// [[slots]]    pattern = "comb" | "alternating" | "enclosed" | "grooves"; edge = "bottom" | "top" | "left" | "right";
+///              pitch, depth (length for "enclosed"), width, offset (optional), remaining_thickness (grooves, 0..1)
+/// [[cut]]      from = [x, y], to = [x, y]   (zero-width kerf)
+/// [source]     kind = "uniform_ac" | "field_map" | "moving_poles" (average defaults to "slot_pitch" with slots, else "pass")
+/// </code>
+/// </summary>
+public static class PlateFileReader
+{
+    public static PlateFile Read(string path)
+    {
+        var text = InputFile.ReadAllText(path, "plate file");
+        return Parse(text, path);
+    }
+
+    public static PlateFile Parse(string text, string path)
+    {
+        var errors = new InputErrors();
+        var root = new TomlSection(TomlDocumentReader.Read(text, path, errors), "", path, errors);
+        errors.ThrowIfAny();
+        var plate = root.RequiredTable("plate");
+        var (geometry, conductor) = plate is null ? (null, null) : ReadPlate(plate);
+        var gridSection = root.OptionalTable("grid");
+        var grid = gridSection is null ? new GridOptions() : ReadGrid(gridSection);
+        var cutouts = root.TableArray("cutout", required: false);
+        var slots = root.TableArray("slots", required: false);
+        var cuts = root.TableArray("cut", required: false);
+        if (geometry is not null)
+        {
+            foreach (var c in cutouts) ReadCutout(c, geometry);
+            foreach (var s in slots) ReadSlots(s, geometry);
+            foreach (var c in cuts) ReadCut(c, geometry);
+        }
+        var sourceSection = root.RequiredTable("source");
+        PlateExcitation? excitation = null;
+        if (sourceSection is not null && geometry is not null)
+        {
+            var baseDirectory = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
+            excitation = PlateSourceReader.Read(sourceSection, geometry.Outline, baseDirectory, geometry.Patterns.Count > 0 ? TravelAverage.SlotPitch : TravelAverage.Pass);
+            if (excitation is { Moving: not null, Average: TravelAverage.SlotPitch } && geometry.Patterns.Count == 0)
+                sourceSection.Error("average", "\"slot_pitch\" needs a [[slots]] pattern");
+        }
+        root.RejectUnknownKeys();
+        errors.ThrowIfAny();
+        if (geometry is null || conductor is null || excitation is null) throw new InputException($"{path}: the plate file is incomplete");
+
+        var offsets = excitation.Moving is null ? (IReadOnlyList<double>)[] : excitation.Offsets(geometry.Outline, geometry.Patterns.Count > 0 ? geometry.Patterns[0].PitchM : null);
+        var over = excitation.Moving is null ? ""
+            : excitation.Average == TravelAverage.SlotPitch
+                ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {excitation.Positions} positions)"
+                : excitation.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({excitation.Positions} positions)";
+        return new PlateFile(path, geometry, grid, conductor, excitation.Ac, excitation.Moving, offsets, over);
+    }
+
+    private static (PlateGeometry?, ConductingSheet?) ReadPlate(TomlSection t)
+    {
+        PlateGeometry? geometry = null;
+        if (t.Has("outline"))
+        {
+            if (t.Has("width") || t.Has("height")) t.Error("outline", "give either outline or width and height, not both");
+            var points = t.PointList("outline");
+            if (points is not null) geometry = t.Guard("outline", () => new PlateGeometry(new Polygon(points.Select(p => new Vec2(p.X, p.Y)))));
+        }
+        else
+        {
+            var w = t.PositiveQuantity("width", QuantityKind.Length, required: true);
+            var h = t.PositiveQuantity("height", QuantityKind.Length, required: true);
+            if (w is { } width && h is { } height) geometry = PlateGeometry.Rectangle(width, height);
+        }
+        var thickness = t.PositiveQuantity("thickness", QuantityKind.Length, required: true);
+        double? sigma = null;
+        if (t.Has("resistivity") && t.Has("conductivity")) t.Error("conductivity", "give either resistivity or conductivity, not both");
+        else if (t.Has("resistivity")) sigma = 1 / t.PositiveQuantity("resistivity", QuantityKind.Resistivity, required: true);
+        else if (t.Has("conductivity"))
+        {
+            sigma = t.PositiveQuantity("conductivity", QuantityKind.Conductivity, required: true);
+        }
+        else t.Error("resistivity", "missing: a resistivity such as \"0.0401 uOhm m\", or conductivity in S/m");
+        var mur = t.OptionalNumber("relative_permeability") ?? 1;
+        if (!(mur >= 1)) t.Error("relative_permeability", "must be 1 or more");
+        t.RejectUnknownKeys();
+        var conductor = thickness is { } d && sigma is { } s && mur >= 1 ? t.Guard("thickness", () => new ConductingSheet(s, d, mur)) : null;
+        return (geometry, conductor);
+    }
+
+    private static GridOptions ReadGrid(TomlSection t)
+    {
+        var cell = t.PositiveQuantity("cell", QuantityKind.Length, required: false);
+        var min = t.OptionalInteger("min_cells_across_strip", 2, 1000);
+        t.RejectUnknownKeys();
+        return new GridOptions { CellSizeM = cell, MinCellsAcrossNarrowestFeature = (int)(min ?? 8) };
+    }
+
+    private static void ReadCutout(TomlSection t, PlateGeometry geometry)
+    {
+        var shape = t.OptionalChoice("shape", ["rectangle", "circle", "polygon"]);
+        if (shape is null && !t.Has("shape")) t.Error("shape", "missing: \"rectangle\", \"circle\" or \"polygon\"");
+        Polygon? hole = null;
+        switch (shape)
+        {
+            case "rectangle":
+            {
+                var x = t.RequiredQuantity("x", QuantityKind.Length);
+                var y = t.RequiredQuantity("y", QuantityKind.Length);
+                var w = t.PositiveQuantity("width", QuantityKind.Length, required: true);
+                var h = t.PositiveQuantity("height", QuantityKind.Length, required: true);
+                if (x is { } x0 && y is { } y0 && w is { } width && h is { } height) hole = t.Guard("x", () => Polygon.Rectangle(x0, y0, x0 + width, y0 + height));
+                break;
+            }
+            case "circle":
+            {
+                var x = t.RequiredQuantity("x", QuantityKind.Length);
+                var y = t.RequiredQuantity("y", QuantityKind.Length);
+                var r = t.PositiveQuantity("radius", QuantityKind.Length, required: true);
+                if (x is { } cx && y is { } cy && r is { } radius) hole = t.Guard("radius", () => Polygon.Circle(new Vec2(cx, cy), radius));
+                break;
+            }
+            case "polygon":
+            {
+                var points = t.PointList("points");
+                if (points is null && !t.Has("points")) t.Error("points", "missing: at least three [x, y] points");
+                if (points is not null) hole = t.Guard("points", () => new Polygon(points.Select(p => new Vec2(p.X, p.Y))));
+                break;
+            }
+        }
+        t.RejectUnknownKeys();
+        if (hole is not null) geometry.AddCutout(hole);
+    }
+
+    private static void ReadSlots(TomlSection t, PlateGeometry geometry)
+    {
+        var pattern = t.OptionalChoice("pattern", SlotWords.Patterns.ToArray());
+        if (pattern is null && !t.Has("pattern")) t.Error("pattern", $"missing: one of {string.Join(", ", SlotWords.Patterns)}");
+        var edgeText = t.OptionalChoice("edge", SlotWords.Edges.ToArray());
+        if (edgeText is null && !t.Has("edge")) t.Error("edge", $"missing: one of {string.Join(", ", SlotWords.Edges)}");
+        var pitch = t.PositiveQuantity("pitch", QuantityKind.Length, required: true);
+        var depthKey = SlotWords.ExtentKey(pattern);
+        var depth = t.PositiveQuantity(depthKey, QuantityKind.Length, required: true);
+        var width = t.PositiveQuantity("width", QuantityKind.Length, required: true);
+        var offset = t.OptionalQuantity("offset", QuantityKind.Length);
+        var remaining = pattern == "grooves" ? t.OptionalNumber("remaining_thickness") : null;
+        if (pattern == "grooves" && remaining is null && !t.Has("remaining_thickness")) t.Error("remaining_thickness", "missing: the fraction of thickness left under the groove, 0 to 1");
+        t.RejectUnknownKeys();
+        PlateEdge? edge = edgeText is null ? null : SlotWords.Edge(edgeText);
+        if (pattern is null || edge is null || pitch is not { } p || depth is not { } d || width is not { } w) return;
+        var o = geometry.Outline;
+        var made = t.Guard("pattern", () => pattern switch
+        {
+            "comb" => SlotPatterns.Comb(o, edge.Value, p, d, w, offset),
+            "alternating" => SlotPatterns.Alternating(o, edge.Value, p, d, w, offset),
+            "enclosed" => SlotPatterns.EnclosedSlits(o, edge.Value, p, d, w, offset),
+            _ => SlotPatterns.GrooveComb(o, edge.Value, p, d, w, remaining ?? double.NaN, offset),
+        });
+        if (made is not null) geometry.AddPattern(made);
+    }
+
+    private static void ReadCut(TomlSection t, PlateGeometry geometry)
+    {
+        var from = t.Point("from");
+        var to = t.Point("to");
+        t.RejectUnknownKeys();
+        if (from is { } a && to is { } b) geometry.AddCut(new CutLine(new Vec2(a.X, a.Y), new Vec2(b.X, b.Y)));
+    }
+}

@@ -1,0 +1,149 @@
+using SlotOpt.Design;
+using SlotOpt.Input.Toml;
+using SlotOpt.Materials;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Tables;
+
+namespace SlotOpt.Input;
+
+/// <summary>
+/// Reads a [[parts]] table of kind "plate": the outline (width and height, or outline = [[x, y], ...]),
+/// candidate thicknesses and materials, processes for the outline, limits, [parts.source],
+/// [[parts.slots]] families (pattern, edge, pitch, depth or, for enclosed slits, length, width, processes,
+/// remaining_thickness) and [parts.current]. Key names follow the single-plate file of `slotopt plate`.
+/// </summary>
+public static class PlatePartReader
+{
+    public static PlatePart? Read(TomlSection s, MaterialLibrary library, ManufacturingSettings shop, string baseDirectory)
+    {
+        var name = s.RequiredString("name");
+        s.OptionalString("kind");
+        var outline = ReadOutline(s);
+        var thicknesses = s.QuantityList("thicknesses", QuantityKind.Length, required: true);
+        if (thicknesses is not null)
+            foreach (var t in thicknesses.Where(t => !(t > 0))) s.Error("thicknesses", $"a thickness must be positive, got {t} m");
+        var materials = ReadMaterials(s, library);
+        var processes = ReadProcesses(s, "processes", shop) ?? ["laser"];
+        var temperature = s.OptionalQuantity("temperature", QuantityKind.Temperature) ?? Conductor.RoomTemperatureK;
+        if (!(temperature > 0)) s.Error("temperature", "is below absolute zero");
+        var maxDrag = s.PositiveQuantity("max_drag", QuantityKind.Force, required: false);
+        var maxLoss = s.PositiveQuantity("max_loss", QuantityKind.Power, required: false);
+        var minLigament = s.PositiveQuantity("min_ligament", QuantityKind.Length, required: false) ?? 0;
+        var grid = s.OptionalTable("grid");
+        var cell = grid?.PositiveQuantity("cell", QuantityKind.Length, required: false);
+        grid?.RejectUnknownKeys();
+        var sourceSection = s.RequiredTable("source");
+        var excitation = sourceSection is null ? null : PlateSourceReader.Read(sourceSection, outline, baseDirectory);
+        var families = s.TableArray("slots", required: false).Select(f => ReadFamily(f, shop, processes, outline)).OfType<SlotFamily>().ToList();
+        var current = ReadCurrent(s.OptionalTable("current"), library, shop);
+        s.RejectUnknownKeys();
+
+        if (maxDrag is not null && excitation is { IsMoving: false }) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\")");
+        if (thicknesses is not null && outline is not null)
+        {
+            var (min, max) = outline.Bounds;
+            var smaller = Math.Min(max.X - min.X, max.Y - min.Y);
+            foreach (var t in thicknesses.Where(t => t > smaller / 5))
+                s.Warn("thicknesses", $"{t * 1e3:0.###} mm is not thin against the plate ({smaller * 1e3:0.#} mm across): the thin-plate model assumes thickness << width");
+        }
+        if (name is null || outline is null || thicknesses is null || materials.Count == 0 || excitation is null) return null;
+        return new PlatePart(name, s.Line, temperature, maxLoss, outline, thicknesses, materials, excitation, families, processes,
+            maxDrag, minLigament, cell, current);
+    }
+
+    private static Polygon? ReadOutline(TomlSection s)
+    {
+        if (s.Has("outline"))
+        {
+            var points = s.PointList("outline");
+            if (points is null) return null;
+            return s.Guard("outline", () => new Polygon(points.Select(p => new Vec2(p.X, p.Y))));
+        }
+        var width = s.PositiveQuantity("width", QuantityKind.Length, required: true);
+        var height = s.PositiveQuantity("height", QuantityKind.Length, required: true);
+        return width is { } w && height is { } h ? s.Guard("width", () => Polygon.Rectangle(0, 0, w, h)) : null;
+    }
+
+    private static List<string> ReadMaterials(TomlSection s, MaterialLibrary library)
+    {
+        var names = s.StringList("materials", required: true) ?? [];
+        var valid = new List<string>();
+        foreach (var m in names)
+        {
+            if (library.TryGetConductor(m, out var conductor)) valid.Add(conductor.Name);
+            else s.Error("materials", $"unknown conductor \"{m}\"{NameSuggestion.DidYouMean(m, library.Conductors.Select(c => c.Name))}; `slotopt materials` lists them");
+        }
+        return valid;
+    }
+
+    private static List<string>? ReadProcesses(TomlSection s, string key, ManufacturingSettings shop)
+    {
+        var names = s.StringList(key, required: false);
+        if (names is null) return null;
+        var valid = new List<string>();
+        foreach (var p in names)
+        {
+            if (shop.Processes.ContainsKey(p)) valid.Add(p);
+            else s.Error(key, $"unknown process \"{p}\"{NameSuggestion.DidYouMean(p, shop.Processes.Keys)}; known: {string.Join(", ", shop.Processes.Keys)}");
+        }
+        return valid;
+    }
+
+    private static SlotFamily? ReadFamily(TomlSection f, ManufacturingSettings shop, IReadOnlyList<string> partProcesses, Polygon? outline)
+    {
+        var patternWord = f.OptionalChoice("pattern", SlotWords.Patterns.ToArray());
+        if (patternWord is null && !f.Has("pattern")) f.Error("pattern", $"missing: one of {string.Join(", ", SlotWords.Patterns)}");
+        var edgeWord = f.OptionalChoice("edge", SlotWords.Edges.ToArray()) ?? "bottom";
+        var pitches = f.QuantityList("pitch", QuantityKind.Length, required: true);
+        var depthKey = SlotWords.ExtentKey(patternWord);
+        var depths = f.QuantityList(depthKey, QuantityKind.Length, required: true);
+        var widths = f.QuantityList("width", QuantityKind.Length, required: true);
+        var remaining = f.OptionalNumber("remaining_thickness");
+        var processes = ReadProcesses(f, "processes", shop) ?? partProcesses.ToList();
+        f.RejectUnknownKeys();
+
+        foreach (var (list, key) in new[] { (pitches, "pitch"), (depths, depthKey), (widths, "width") })
+            if (list is not null && list.Any(v => !(v > 0))) f.Error(key, "every value must be positive");
+        if (pitches is not null && widths is not null && widths.Max() >= pitches.Min())
+            f.Error("width", $"the widest slot ({widths.Max() * 1e3:0.###} mm) is not narrower than the smallest pitch ({pitches.Min() * 1e3:0.###} mm): nothing would be left between slots");
+        if (patternWord == "grooves" && remaining is not (> 0 and < 1)) f.Error("remaining_thickness", "grooves need remaining_thickness between 0 and 1 (the fraction of thickness left under them)");
+        if (patternWord != "grooves" && remaining is not null) f.Error("remaining_thickness", "only grooves take remaining_thickness");
+        var edge = SlotWords.Edge(edgeWord);
+        if (outline is not null && depths is not null)
+        {
+            var (min, max) = outline.Bounds;
+            var across = edge is PlateEdge.Bottom or PlateEdge.Top ? max.Y - min.Y : max.X - min.X;
+            if (depths.Max() >= across) f.Error(depthKey, $"the deepest slot ({depths.Max() * 1e3:0.###} mm) cuts right through the plate ({across * 1e3:0.###} mm across): the plate would fall apart");
+        }
+        if (patternWord is null || pitches is null || depths is null || widths is null || processes.Count == 0) return null;
+        var pattern = SlotWords.Pattern(patternWord);
+        return new SlotFamily(pattern, edge, pitches, depths, widths, processes, pattern == SlotPatternKind.Grooves ? remaining : null);
+    }
+
+    private static PlateChoice? ReadCurrent(TomlSection? s, MaterialLibrary library, ManufacturingSettings shop)
+    {
+        if (s is null) return null;
+        var thickness = s.PositiveQuantity("thickness", QuantityKind.Length, required: true);
+        var material = s.RequiredString("material");
+        if (material is not null && !library.TryGetConductor(material, out _))
+            s.Error("material", $"unknown conductor \"{material}\"{NameSuggestion.DidYouMean(material, library.Conductors.Select(c => c.Name))}");
+        var process = s.OptionalString("process") ?? "laser";
+        if (!shop.Processes.ContainsKey(process)) s.Error("process", $"unknown process \"{process}\"{NameSuggestion.DidYouMean(process, shop.Processes.Keys)}");
+        SlotChoice? slots = null;
+        var slotTable = s.OptionalTable("slots");
+        if (slotTable is not null)
+        {
+            var word = slotTable.OptionalChoice("pattern", SlotWords.Patterns.ToArray()) ?? "comb";
+            var edgeWord = slotTable.OptionalChoice("edge", SlotWords.Edges.ToArray()) ?? "bottom";
+            var pitch = slotTable.PositiveQuantity("pitch", QuantityKind.Length, required: true);
+            var depth = slotTable.PositiveQuantity(SlotWords.ExtentKey(word), QuantityKind.Length, required: true);
+            var width = slotTable.PositiveQuantity("width", QuantityKind.Length, required: true);
+            var remaining = slotTable.OptionalNumber("remaining_thickness");
+            slotTable.RejectUnknownKeys();
+            if (pitch is { } p && depth is { } d && width is { } w)
+                slots = new SlotChoice(SlotWords.Pattern(word), SlotWords.Edge(edgeWord), p, d, w, word == "grooves" ? remaining ?? 0.5 : null);
+        }
+        s.RejectUnknownKeys();
+        return thickness is null || material is null ? null : new PlateChoice(thickness.Value, library.TryGetConductor(material, out var c) ? c.Name : material, process, slots);
+    }
+}

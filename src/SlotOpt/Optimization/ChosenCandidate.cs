@@ -1,4 +1,0 @@
-namespace SlotOpt.Optimization;
-
-/// <summary>The candidate picked for one part; <paramref name="CandidateIndex"/> is its place in the part's list.</summary>
-public sealed record ChosenCandidate(string PartName, int CandidateIndex, Candidate Candidate);

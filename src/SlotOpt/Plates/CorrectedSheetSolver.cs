@@ -1,0 +1,80 @@
+using SlotOpt.Numerics;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.OwnField;
+using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Thick;
+
+namespace SlotOpt.Plates;
+
+/// <summary>
+/// The one call for the optimiser: chooses the model from the validity figures
+/// (<see cref="ReactionModelChoice"/>) and returns loss, drag and lift. The resistance-limited path
+/// solves at unit conductance and scales by G (cheap; cache the model per geometry); the reaction
+/// path builds (or reuses) a <see cref="ReactionOperator"/> and solves per conductor. Beyond the thin
+/// sheet (t/delta above the threshold) an AC case goes to the layered thick-plate solver
+/// (<see cref="ThickPlateSolver.SolveAcConverged"/>) with the source's plane field used at every depth
+/// (exact for a uniform field; for a non-uniform field it leaves out the field's decay with depth);
+/// a moving case still returns the thin-sheet reaction answer with a warning (no layered moving solver).
+/// </summary>
+public static class CorrectedSheetSolver
+{
+    public static CorrectedSolution SolveAc(SheetModel model, IAcFieldSource source, ConductingSheet conductor,
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null)
+    {
+        CheckOperator(model, reaction);
+        var choice = ReactionModelChoice.ForAc(conductor, source.FrequencyHz, model.Grid.Geometry.CharacteristicWidthM, accuracy);
+        var notes = new List<string> { choice.Reason };
+        if (choice.Kind == SheetModelKind.ResistanceLimited)
+        {
+            var low = PlateSolver.SolveAc(model, source, criterion);
+            notes.AddRange(low.Notes);
+            double p = low.LossW(conductor.SheetConductanceS);
+            return new CorrectedSolution(choice, Array.Empty<double>(), new[] { p }, null, null, new[] { p }, notes);
+        }
+        if (choice.Kind == SheetModelKind.BeyondThinSheet)
+        {
+            var thick = ThickPlateSolver.SolveAcConverged(model, new DepthIndependentField(source), conductor, accuracy, criterion);
+            notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {thick.LayerError:P2}); the source's plane field is used at every depth");
+            return new CorrectedSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes);
+        }
+        var s = ReactionSolver.SolveAc(reaction ?? ReactionOperator.Build(model), source, conductor, criterion);
+        notes.AddRange(s.Notes);
+        return new CorrectedSolution(choice, Array.Empty<double>(), new[] { s.LossW }, null, null, new[] { s.ResistanceLimitedLossW }, notes);
+    }
+
+    /// <param name="sourceLengthM">the source's length scale for the moving skin depth: its height above the sheet, or the pole size</param>
+    public static CorrectedSolution SolveMoving(SheetModel model, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM, double sourceLengthM,
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null)
+    {
+        CheckOperator(model, reaction);
+        var choice = ReactionModelChoice.ForMoving(conductor, source.SpeedMPerS, sourceLengthM, accuracy);
+        var notes = new List<string> { choice.Reason };
+        double g = conductor.SheetConductanceS, v = source.SpeedMPerS;
+        if (choice.Kind == SheetModelKind.ResistanceLimited)
+        {
+            criterion ??= ConvergenceCriterion.Default;
+            double w = 2 / (Validity.Mu0 * g);                                    // receding-image speed
+            var node = new double[model.Lattice.NodeCount];
+            var psi = new double[model.Unknowns];
+            var loss = new double[offsetsXM.Count];
+            for (int k = 0; k < offsetsXM.Count; k++)
+            {
+                source.IntegrateRate(model.Lattice, offsetsXM[k], node);
+                model.Solve(model.RightHandSide(node), psi, criterion);
+                loss[k] = g * model.LossPerSiemens(psi);                           // P = G P_unit (resistance-limited scaling)
+            }
+            var drag = loss.Select(p => p / v).ToArray();                          // F = P / v
+            return new CorrectedSolution(choice, offsetsXM.ToArray(), loss, drag, drag.Select(d => d * v / w).ToArray(), loss, notes);
+        }
+        var s = ReactionSolver.SolveMoving(reaction ?? ReactionOperator.Build(model), source, conductor, offsetsXM, criterion);
+        notes.AddRange(s.Notes);
+        if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
+        return new CorrectedSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes);
+    }
+
+    private static void CheckOperator(SheetModel model, ReactionOperator? reaction)
+    {
+        if (reaction is not null && !ReferenceEquals(reaction.Model, model)) throw new ArgumentException("the reaction operator was built for another sheet model", nameof(reaction));
+    }
+}

@@ -1,0 +1,18 @@
+namespace SlotOpt.Plates;
+
+/// <summary>
+/// Loss, drag and lift for one geometry, conductor and source from the model
+/// <see cref="ReactionModelChoice"/> picked (Choice says which and why). AC: one entry, DragN and
+/// LiftN null. Moving: one entry per travel offset; lift positive = repulsion of the source.
+/// ResistanceLimitedLossW is the low-speed/low-frequency answer of the same case, for comparison.
+/// In the resistance-limited model the lift is the leading-order estimate F_L = F_D v / w
+/// (thin-sheet lift/drag = v/w for any source shape, Saslow 1992 / Reitz 1970, REFERENCES §7).
+/// </summary>
+public sealed record CorrectedSolution(
+    ModelChoice Choice, double[] OffsetsXM, double[] LossW, double[]? DragN, double[]? LiftN, double[] ResistanceLimitedLossW,
+    IReadOnlyList<string> Notes)
+{
+    public double MeanLossW => LossW.Average();
+    public double? MeanDragN => DragN?.Average();
+    public double? MeanLiftN => LiftN?.Average();
+}

@@ -1,0 +1,132 @@
+using System.Numerics;
+using SlotOpt.Numerics;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.Sources;
+
+namespace SlotOpt.Plates.OwnField;
+
+/// <summary>
+/// Entry points of the coupled thin-sheet solver (the eddy currents' own field included; see
+/// <see cref="CoupledOperator"/> for the equations). Each solve is for one conductor G = sigma t, by
+/// right-preconditioned GMRES (<see cref="ComplexGmres"/>) with the resistance-limited multigrid as
+/// preconditioner, started from the resistance-limited solution. TrySolve returns false with the
+/// reason; Solve throws <see cref="NumericalFailureException"/>. Reuse one <see cref="ReactionOperator"/>
+/// per <see cref="SheetModel"/> (its kernel and FFT spectrum are the setup cost).
+/// </summary>
+public static class ReactionSolver
+{
+    public static bool TrySolveAc(ReactionOperator reaction, IAcFieldSource source, ConductingSheet conductor, ConvergenceCriterion? criterion,
+        out ReactionAcSolution? solution, out string failure)
+    {
+        criterion ??= ConvergenceCriterion.Default;
+        solution = null;
+        var model = reaction.Model;
+        var l = model.Lattice;
+        var re = new double[l.NodeCount];
+        var im = new double[l.NodeCount];
+        source.Integrate(l, re, im);
+        var bRe = model.RightHandSide(re);
+        var bIm = model.RightHandSide(im);
+        double g = conductor.SheetConductanceS;
+        // resistance-limited start: A u0 = -s (two real solves)
+        var u0Re = new double[model.Unknowns];
+        var u0Im = new double[model.Unknowns];
+        if (!model.TrySolve(bRe, u0Re, criterion, out var r0) || !model.TrySolve(bIm, u0Im, criterion, out r0))
+        {
+            failure = $"resistance-limited start: {r0.Reason} (relative residual {r0.RelativeResidual:E2})";
+            return false;
+        }
+        double lossLow = 0.5 * g * (model.LossPerSiemens(u0Re) + model.LossPerSiemens(u0Im));
+        var b = new Complex[model.Unknowns];
+        var u = new Complex[model.Unknowns];
+        for (int i = 0; i < b.Length; i++) { b[i] = new Complex(bRe[i], bIm[i]); u[i] = new Complex(u0Re[i], u0Im[i]); }
+        var op = CoupledOperator.Ac(model, reaction, 2 * Math.PI * source.FrequencyHz, g);
+        if (!ComplexGmres.TrySolve(op.Apply, op.Precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
+        {
+            failure = $"coupled AC solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+            return false;
+        }
+        double loss = 0.5 * g * HermitianForm(model, u);   // <P> = (1/2) Re(psi^H A psi) / G, psi = G u
+        if (!double.IsFinite(loss)) { failure = "the coupled loss is not finite"; return false; }
+        var notes = new List<string>();
+        if (lossLow == 0) notes.Add("the field does not reach the conducting part of the plate: zero loss");
+        solution = new ReactionAcSolution(model, u, g, source.FrequencyHz, loss, lossLow, report.Iterations, report.RelativeResidual, notes);
+        failure = "";
+        return true;
+    }
+
+    public static ReactionAcSolution SolveAc(ReactionOperator reaction, IAcFieldSource source, ConductingSheet conductor, ConvergenceCriterion? criterion = null) =>
+        TrySolveAc(reaction, source, conductor, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+
+    /// <summary>
+    /// Source-frame steady state at each offset (the plate long in x, psi = 0 at its ends: make the plate
+    /// reach well behind the source, where the wake trails). Each offset starts from the previous solution.
+    /// </summary>
+    public static bool TrySolveMoving(ReactionOperator reaction, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM,
+        ConvergenceCriterion? criterion, out ReactionMovingSolution? solution, out string failure)
+    {
+        criterion ??= ConvergenceCriterion.Default;
+        solution = null;
+        if (offsetsXM.Count == 0) throw new InputException("a moving source needs at least one position");
+        var model = reaction.Model;
+        var l = model.Lattice;
+        double g = conductor.SheetConductanceS, v = source.SpeedMPerS;
+        var op = CoupledOperator.Moving(model, reaction, v, g);
+        int n = model.Unknowns;
+        var node = new double[l.NodeCount];
+        var gradient = new double[n];
+        var low = new double[n];
+        var b = new Complex[n];
+        var u = new Complex[n];
+        var loss = new double[offsetsXM.Count];
+        var drag = new double[offsetsXM.Count];
+        var lift = new double[offsetsXM.Count];
+        var dragLow = new double[offsetsXM.Count];
+        var iterations = new int[offsetsXM.Count];
+        double worst = 0;
+        for (int k = 0; k < offsetsXM.Count; k++)
+        {
+            source.IntegrateRate(l, offsetsXM[k], node);
+            var rhs = model.RightHandSide(node);
+            if (!model.TrySolve(rhs, low, criterion, out var r0))
+            {
+                failure = $"at offset {offsetsXM[k]} m, resistance-limited start: {r0.Reason} (relative residual {r0.RelativeResidual:E2})";
+                return false;
+            }
+            dragLow[k] = g * model.LossPerSiemens(low) / v;
+            for (int i = 0; i < n; i++) { b[i] = rhs[i]; if (k == 0) u[i] = low[i]; }
+            if (!ComplexGmres.TrySolve(op.Apply, op.Precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
+            {
+                failure = $"at offset {offsetsXM[k]} m, coupled moving solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+                return false;
+            }
+            iterations[k] = report.Iterations;
+            worst = Math.Max(worst, report.RelativeResidual);
+            loss[k] = g * HermitianForm(model, u);                 // P = psi^T A psi / G
+            drag[k] = loss[k] / v;                                  // F_D v = P in the steady state
+            source.IntegrateNormalGradient(reaction, offsetsXM[k], gradient);
+            double f = 0;
+            for (int i = 0; i < n; i++) f += u[i].Real * gradient[i];
+            lift[k] = -g * f;                                       // lift on the source = -integral psi dBz/dz dA
+            if (!double.IsFinite(loss[k]) || !double.IsFinite(lift[k])) { failure = $"at offset {offsetsXM[k]} m: the force is not finite"; return false; }
+        }
+        var notes = new List<string>();
+        if (loss.All(p => p == 0)) notes.Add("the source does not reach the conducting part of the plate: zero drag and lift");
+        solution = new ReactionMovingSolution(model, g, v, offsetsXM.ToArray(), loss, drag, lift, dragLow, iterations, worst,
+            u.Select(c => c.Real).ToArray(), notes);
+        failure = "";
+        return true;
+    }
+
+    public static ReactionMovingSolution SolveMoving(ReactionOperator reaction, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM,
+        ConvergenceCriterion? criterion = null) =>
+        TrySolveMoving(reaction, source, conductor, offsetsXM, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+
+    /// <summary>Re(u^H A u) for the real SPD resistance operator A.</summary>
+    private static double HermitianForm(SheetModel model, Complex[] u)
+    {
+        var re = u.Select(c => c.Real).ToArray();
+        var im = u.Select(c => c.Imaginary).ToArray();
+        return model.LossPerSiemens(re) + model.LossPerSiemens(im);
+    }
+}

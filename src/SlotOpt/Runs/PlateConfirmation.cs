@@ -1,0 +1,84 @@
+using SlotOpt.Design;
+using SlotOpt.Materials;
+using SlotOpt.Plates;
+using SlotOpt.Plates.OwnField;
+using SlotOpt.Plates.Sources;
+
+namespace SlotOpt.Runs;
+
+/// <summary>
+/// A chosen plate design confirmed with the model its validity figures call for: the resistance-limited
+/// screen (one solve per geometry, scaled by sigma t) overstates loss and drag once the plate's own eddy
+/// currents push back on the field, so the finalists are solved again with the thin-sheet reaction field or
+/// the layered thick-plate model (Plates/CorrectedSheetSolver), and the output says which model ran.
+/// </summary>
+public sealed record PlateConfirmation(
+    string PartName,
+    SheetModelKind Model,
+    string Reason,
+    double LossW,
+    double? DragN,
+    double? LiftN,
+    double ResistanceLimitedLossW,
+    IReadOnlyList<string> Notes,
+    IReadOnlyList<SpeedPoint>? SpeedSweep)
+{
+    /// <summary>
+    /// Speeds of the sweep, as multiples of the receding-image speed w = 2/(mu0 sigma t): a solid sheet's drag peaks
+    /// near 1.27 w (REFERENCES §7); slots push the peak higher. Beyond about 5 w the coupled solve converges slowly.
+    /// </summary>
+    public static readonly double[] SweepOverW = [0.05, 0.1, 0.2, 0.4, 0.7, 1.0, 1.5, 2.2, 3.3, 5.0];
+
+    /// <summary>Travel positions each sweep speed averages (a window of the run's offsets; the sweep shows the trend, the run's offsets give the figures).</summary>
+    public const int SweepPositions = 2;
+    /// <summary>Solves the choice with the model its validity figures call for (accuracy 1 %, ReactionModelChoice).</summary>
+    public static PlateConfirmation Confirm(PlatePart part, PlateChoice choice, MaterialLibrary library, EvaluationLimits? limits = null)
+    {
+        limits ??= EvaluationLimits.Default;
+        var (geometry, _) = PlateGeometryFactory.Build(part.Outline, choice.Slots);
+        var model = PlateOptions.BuildModel(part, geometry, limits);
+        var material = library.GetConductor(choice.Material, part.Name);
+        var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
+        CorrectedSolution solution;
+        IReadOnlyList<SpeedPoint>? sweep = null;
+        if (part.Excitation.Moving is { } poles)
+        {
+            var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
+            // the moving skin depth's length scale: the pole's size along the travel
+            var poleSize = 2 * poles.Poles.Min(p => p.Face.HalfWidthXM);
+            var reaction = ReactionOperator.Build(model);
+            solution = CorrectedSheetSolver.SolveMoving(model, new MovingPoleField(poles), conductor, offsets, poleSize, reaction: reaction);
+            sweep = Sweep(reaction, poles, conductor, offsets);
+        }
+        else
+        {
+            solution = CorrectedSheetSolver.SolveAc(model, part.Excitation.Ac!, conductor);
+        }
+        return new PlateConfirmation(part.Name, solution.Choice.Kind, solution.Choice.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
+            solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep);
+    }
+
+    /// <summary>Drag and lift against speed with the plate's own field, over SweepOverW multiples of w.</summary>
+    private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, MovingPoles poles, ConductingSheet conductor, IReadOnlyList<double> offsets)
+    {
+        var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow 1992, REFERENCES §7)
+        var window = offsets.Take(SweepPositions).ToList();
+        var points = new List<SpeedPoint>();
+        foreach (var m in SweepOverW)
+        {
+            var moving = new MovingPoles(poles.Poles, m * w);
+            // the sweep illustrates the trend: it ends at the first speed the coupled solve does not converge at, never with a guessed number
+            if (!ReactionSolver.TrySolveMoving(reaction, new MovingPoleField(moving), conductor, window, null, out var s, out _)) break;
+            points.Add(new SpeedPoint(m * w, s!.MeanDragN, s.MeanLiftN, s.ResistanceLimitedDragN.Average()));
+        }
+        return points;
+    }
+
+    /// <summary>The model in words for the console and the report.</summary>
+    public string ModelWords => Model switch
+    {
+        SheetModelKind.ResistanceLimited => "resistance-limited (the plate's own field is negligible)",
+        SheetModelKind.ThinSheetReaction => "thin sheet with its own field",
+        _ => "layered thick plate",
+    };
+}

@@ -1,0 +1,7 @@
+namespace SlotOpt.Selection;
+
+/// <summary>
+/// The candidates left for one part after its manufacturing rules. An empty list is allowed: the
+/// selection then reports this part as the cause of infeasibility.
+/// </summary>
+public sealed record PartChoices(string PartName, IReadOnlyList<Candidate> Candidates);

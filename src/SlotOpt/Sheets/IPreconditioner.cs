@@ -1,7 +1,0 @@
-namespace SlotOpt.Sheets;
-
-/// <summary>z = M^-1 r for a symmetric positive definite M.</summary>
-public interface IPreconditioner
-{
-    void Apply(ReadOnlySpan<double> r, Span<double> z);
-}

@@ -1,8 +1,0 @@
-namespace SlotOpt.Sheets;
-
-/// <summary>AC (complex amplitudes, time-averaged loss) or a moving source (instantaneous, drag = loss / speed).</summary>
-public enum SourceKind
-{
-    Ac,
-    Moving,
-}
