@@ -1,3 +1,4 @@
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -22,7 +23,7 @@ public class CurrentDensityTests
     {
         double a = 0.05, b = 20 * a, h = a / 64;
         var model = SheetModel.Build(PlateGeometry.Rectangle(b, a), new GridOptions { CellSizeM = h });
-        var result = PlateSolver.SolveAc(model, new UniformAcField(PeakT, FrequencyHz)).ScaleTo(new ConductingSheet(ConductivitySPerM, ThicknessM));
+        var result = ResistanceLimitedSolver.SolveAc(model, new UniformAcField(PeakT, FrequencyHz)).ScaleTo(new ConductingSheet(ConductivitySPerM, ThicknessM));
         double omega = 2 * Math.PI * FrequencyHz;
         double sampledPeak = ConductivitySPerM * omega * PeakT * (a - h) / 2;
         Assert.InRange(result.PeakCurrentDensityAPerM2 / sampledPeak - 1, -0.01, 0.01);
@@ -47,7 +48,7 @@ public class CurrentDensityTests
             var model = SheetModel.Build(PlateGeometry.Rectangle(0.15, 0.15), new GridOptions { CellSizeM = cell });
             var poles = new MovingPoles(new[] { new Pole(PoleFace.Rectangle(0.0123, 0.02), new Vec2(0.075, 0.075), 0.4) }, 1);
             var offsets = Enumerable.Range(0, 8).Select(k => k * cell / 8).ToArray();
-            var drag = PlateSolver.SolveMoving(model, poles, offsets).DragN(1);
+            var drag = ResistanceLimitedSolver.SolveMoving(model, poles, offsets).DragN(1);
             spread.Add(drag.Max() / drag.Min() - 1);
             mean.Add(drag.Average());
         }

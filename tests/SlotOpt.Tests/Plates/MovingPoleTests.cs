@@ -26,7 +26,7 @@ public class MovingPoleTests
     {
         double a = 10 * RadiusM;
         var model = SheetModel.Build(new PlateGeometry(Polygon.Circle(new Vec2(0, 0), a, 2048)), new GridOptions { CellSizeM = RadiusM / 20 });
-        var sweep = PlateSolver.SolveMoving(model, SinglePole(), new[] { 0.0 });
+        var sweep = ResistanceLimitedSolver.SolveMoving(model, SinglePole(), new[] { 0.0 });
         double drag = sweep.DragN(ConductivitySPerM * ThicknessM)[0];
         double heald = 0.5 * ConductivitySPerM * ThicknessM * SpeedMPerS * FluxDensityT * FluxDensityT * Math.PI * RadiusM * RadiusM;
         Assert.InRange(drag / heald - 1, -0.03, 0.03);
@@ -43,8 +43,8 @@ public class MovingPoleTests
     {
         var model = SheetModel.Build(PlateGeometry.Rectangle(0.1, 0.1), new GridOptions { CellSizeM = RadiusM / 8 });
         var offsets = new[] { 0.05, 0.06 };
-        var baseSweep = PlateSolver.SolveMoving(model, SinglePoleAt(0, 0.05, SpeedMPerS, FluxDensityT), offsets);
-        var scaled = PlateSolver.SolveMoving(model, SinglePoleAt(0, 0.05, speedFactor * SpeedMPerS, fieldFactor * FluxDensityT), offsets);
+        var baseSweep = ResistanceLimitedSolver.SolveMoving(model, SinglePoleAt(0, 0.05, SpeedMPerS, FluxDensityT), offsets);
+        var scaled = ResistanceLimitedSolver.SolveMoving(model, SinglePoleAt(0, 0.05, speedFactor * SpeedMPerS, fieldFactor * FluxDensityT), offsets);
         double expected = speedFactor * speedFactor * fieldFactor * fieldFactor;
         Assert.InRange(scaled.MeanLossPerSiemensW / baseSweep.MeanLossPerSiemensW / expected - 1, -1e-6, 1e-6);
         Assert.InRange(scaled.MeanDragN(1) / baseSweep.MeanDragN(1) / (speedFactor * fieldFactor * fieldFactor) - 1, -1e-6, 1e-6);
@@ -56,7 +56,7 @@ public class MovingPoleTests
     public void Pole_entirely_off_the_plate_gives_zero_with_a_note()
     {
         var model = SheetModel.Build(PlateGeometry.Rectangle(0.1, 0.1), new GridOptions { CellSizeM = 0.005 });
-        var sweep = PlateSolver.SolveMoving(model, SinglePoleAt(0.5, 0.05, SpeedMPerS, FluxDensityT), new[] { 0.0, 0.01 });
+        var sweep = ResistanceLimitedSolver.SolveMoving(model, SinglePoleAt(0.5, 0.05, SpeedMPerS, FluxDensityT), new[] { 0.0, 0.01 });
         Assert.Equal(0.0, sweep.MeanDragN(1));
         Assert.Contains(sweep.Notes, n => n.Contains("no pole overlaps"));
     }
@@ -76,8 +76,8 @@ public class MovingPoleTests
         slotted.AddPattern(SlotPatterns.Comb(slotted.Outline, PlateEdge.Bottom, pitch, 0.05, 0.002));
         var options = new GridOptions { CellSizeM = 0.0005 };
         double g = ConductivitySPerM * ThicknessM;
-        double solidDrag = PlateSolver.SolveMoving(SheetModel.Build(solid, options), poles, offsets).MeanDragN(g);
-        double slottedDrag = PlateSolver.SolveMoving(SheetModel.Build(slotted, options), poles, offsets).MeanDragN(g);
+        double solidDrag = ResistanceLimitedSolver.SolveMoving(SheetModel.Build(solid, options), poles, offsets).MeanDragN(g);
+        double slottedDrag = ResistanceLimitedSolver.SolveMoving(SheetModel.Build(slotted, options), poles, offsets).MeanDragN(g);
         Assert.True(slottedDrag / solidDrag < 0.8, $"slotted/solid drag = {slottedDrag / solidDrag:F3}");
     }
 

@@ -12,7 +12,7 @@ public class SlottedPlateTests
     private static double AcLoss(PlateGeometry g, double cellM, double peakT = 1, double frequencyHz = 50)
     {
         var model = SheetModel.Build(g, new GridOptions { CellSizeM = cellM });
-        return PlateSolver.SolveAc(model, new UniformAcField(peakT, frequencyHz)).LossW(1);
+        return ResistanceLimitedSolver.SolveAc(model, new UniformAcField(peakT, frequencyHz)).LossW(1);
     }
 
     private static PlateGeometry Strip() => PlateGeometry.Rectangle(LengthM, WidthM);

@@ -16,7 +16,7 @@ public class TorsionAnalogyTests
     internal static double SolveLoss(PlateGeometry geometry, double cellM)
     {
         var model = SheetModel.Build(geometry, new GridOptions { CellSizeM = cellM });
-        var solution = PlateSolver.SolveAc(model, new UniformAcField(PeakT, FrequencyHz));
+        var solution = ResistanceLimitedSolver.SolveAc(model, new UniformAcField(PeakT, FrequencyHz));
         Assert.True(solution.RelativeResidual <= 1e-8, $"residual {solution.RelativeResidual}");
         return solution.LossW(Conductance);
     }

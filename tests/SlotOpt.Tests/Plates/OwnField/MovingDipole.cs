@@ -1,4 +1,5 @@
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -70,24 +71,20 @@ public sealed class MovingDipole : IMovingSheetSource
         }
     }
 
-    /// <summary>Dual-cell integral of dBz/dz, 4 x 4 Gauss-Legendre points, summed over each unknown's nodes.</summary>
-    public void IntegrateNormalGradient(ReactionOperator reaction, double offsetXM, double[] perUnknown)
+    /// <summary>Dual-cell integral of dBz/dz per node, 4 x 4 Gauss-Legendre points: the source knows its gradient.</summary>
+    public LiftField IntegrateLiftField(CellLattice l, double offsetXM, double[] node)
     {
-        var l = reaction.Model.Lattice;
-        var map = reaction.Model.Regions.NodeUnknown;
         var (t, w) = Quadrature.GaussLegendre01(4);
         double cx = Position.X + offsetXM, cy = Position.Y;
-        Array.Clear(perUnknown);
         for (int j = 0; j < l.NodesY; j++)
             for (int i = 0; i < l.NodesX; i++)
             {
-                int u = map[j * l.NodesX + i];
-                if (u < 0) continue;
                 double x0 = l.NodeX(i) - l.Hx / 2 - cx, y0 = l.NodeY(j) - l.Hy / 2 - cy, s = 0;
                 for (int a = 0; a < 4; a++)
                     for (int b = 0; b < 4; b++)
                         s += w[a] * w[b] * FieldGradientZ(x0 + t[a] * l.Hx, y0 + t[b] * l.Hy);
-                perUnknown[u] += s * l.CellAreaM2;
+                node[j * l.NodesX + i] = s * l.CellAreaM2;
             }
+        return LiftField.NormalGradient;
     }
 }

@@ -1,3 +1,4 @@
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -55,7 +56,7 @@ public class ReactionModelChoiceTests
 public class ReactionFacadeAcTests(Xunit.Abstractions.ITestOutputHelper output)
 {
     // The AC switch over the three models on one 100 mm x 50 mm copper plate in a uniform 50 Hz field:
-    // 0.1 mm (Rm 0.09): resistance-limited, equal to PlateSolver (tolerance 1e-9: the same solve);
+    // 0.1 mm (Rm 0.09): resistance-limited, equal to ResistanceLimitedSolver (tolerance 1e-9: the same solve);
     // 3 mm (Rm 2.7, t/delta 0.32): thin-sheet reaction, below the resistance-limited loss;
     // 20 mm (t/delta 2.1, REFERENCES §2: delta = 9.35 mm): the layered thick-plate model, the same answer as
     // ThickPlateSolver called directly (tolerance 1e-9), its layer count checked to the wanted 1 %, and its loss
@@ -69,14 +70,14 @@ public class ReactionFacadeAcTests(Xunit.Abstractions.ITestOutputHelper output)
         var model = SheetModel.Build(PlateGeometry.Rectangle(0.1, 0.05), new GridOptions { CellSizeM = 0.0025 });
         var field = new UniformAcField(0.01, 50);
         var thin = new ConductingSheet(copper, 1e-4);
-        var low = CorrectedSheetSolver.SolveAc(model, field, thin);
+        var low = PlateModels.SolveAc(model, field, thin);
         Assert.Equal(SheetModelKind.ResistanceLimited, low.Choice.Kind);
-        Assert.InRange(low.MeanLossW / PlateSolver.SolveAc(model, field).LossW(thin.SheetConductanceS) - 1, -1e-9, 1e-9);
-        var mid = CorrectedSheetSolver.SolveAc(model, field, new ConductingSheet(copper, 3e-3));
+        Assert.InRange(low.MeanLossW / ResistanceLimitedSolver.SolveAc(model, field).LossW(thin.SheetConductanceS) - 1, -1e-9, 1e-9);
+        var mid = PlateModels.SolveAc(model, field, new ConductingSheet(copper, 3e-3));
         Assert.Equal(SheetModelKind.ThinSheetReaction, mid.Choice.Kind);
         Assert.True(mid.MeanLossW < mid.ResistanceLimitedLossW[0]);
         var thickConductor = new ConductingSheet(copper, 20e-3);
-        var thick = CorrectedSheetSolver.SolveAc(model, field, thickConductor);
+        var thick = PlateModels.SolveAc(model, field, thickConductor);
         var direct = ThickPlateSolver.SolveAcConverged(model, new DepthIndependentField(field), thickConductor, 0.01);
         output.WriteLine($"thick {thick.MeanLossW:E4} W ({direct.Layers} layers, layer error {direct.LayerError:P2}), resistance-limited {thick.ResistanceLimitedLossW[0]:E4} W");
         Assert.Equal(SheetModelKind.BeyondThinSheet, thick.Choice.Kind);

@@ -1,4 +1,4 @@
-namespace SlotOpt.Plates;
+namespace SlotOpt.Plates.Conductors;
 
 /// <summary>
 /// How far the resistance-limited thin-plate answer can be trusted. The magnetic Reynolds number

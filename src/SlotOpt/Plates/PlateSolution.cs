@@ -1,3 +1,5 @@
+using SlotOpt.Plates.ResistanceLimited;
+
 namespace SlotOpt.Plates;
 
 /// <summary>
@@ -7,10 +9,13 @@ namespace SlotOpt.Plates;
 /// ResistanceLimitedLossW is the low-speed/low-frequency answer of the same case, for comparison.
 /// In the resistance-limited model the lift is the leading-order estimate F_L = F_D v / w
 /// (thin-sheet lift/drag = v/w for any source shape, Saslow 1992 / Reitz 1970, REFERENCES §7).
+/// Iterations counts the linear-solver iterations of the model that ran. ResistanceLimited is that
+/// model's unit-conductance solution (AC; moving: the offset with the largest loss) when it ran, for the
+/// current-density map; null otherwise.
 /// </summary>
-public sealed record CorrectedSolution(
+public sealed record PlateSolution(
     ModelChoice Choice, double[] OffsetsXM, double[] LossW, double[]? DragN, double[]? LiftN, double[] ResistanceLimitedLossW,
-    IReadOnlyList<string> Notes)
+    IReadOnlyList<string> Notes, int Iterations, UnitConductanceSolution? ResistanceLimited)
 {
     public double MeanLossW => LossW.Average();
     public double? MeanDragN => DragN?.Average();
