@@ -8,7 +8,7 @@ namespace SlotOpt.Plates;
 /// LiftN null. Moving: one entry per travel offset; lift positive = repulsion of the source.
 /// ResistanceLimitedLossW is the low-speed/low-frequency answer of the same case, for comparison.
 /// In the resistance-limited model the lift is the leading-order estimate F_L = F_D v / w
-/// (thin-sheet lift/drag = v/w for any source shape, Saslow 1992 / Reitz 1970, REFERENCES §7).
+/// (thin-sheet lift/drag = v/w for any source shape, W. M. Saslow, Am. J. Phys. 60(8):693-711, 1992; J. R. Reitz, J. Appl. Phys. 41:2067, 1970).
 /// Iterations counts the linear-solver iterations of the model that ran. ResistanceLimited is that
 /// model's unit-conductance solution (AC; moving: the offset with the largest loss) when it ran, for the
 /// current-density map; null otherwise.

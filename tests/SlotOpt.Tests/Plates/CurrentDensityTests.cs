@@ -13,7 +13,7 @@ public class CurrentDensityTests
 
     // Long strip a x b, b/a = 20, in a uniform AC field. Away from its ends the current is the infinite
     // slab's: J(y) = sigma omega Bp y (y from the centre line), peak at the edges sigma omega Bp a/2
-    // (REFERENCES §1 derivation, E = z dB/dt, applied across the width [D]). The map samples cell centres,
+    // (the classical thin-lamination field E = z dB/dt, G. Bertotti, Hysteresis in Magnetism, 1998, ch. on eddy currents, applied across the width). The map samples cell centres,
     // h/2 inside the edge, so the largest value is sigma omega Bp (a - h)/2: with 64 cells, 1.6 % low.
     // Tolerance 1 % against that sampled value (measured 0.000 %: psi is quadratic across the strip, which the scheme holds exactly).
     // RMS: by definition P = integral of <J^2>/sigma dV, so J_rms = sqrt(P sigma / V); the map's RMS

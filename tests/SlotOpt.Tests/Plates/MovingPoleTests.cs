@@ -12,13 +12,13 @@ public class MovingPoleTests
     private static MovingPoles SinglePole(double speed = SpeedMPerS, double b = FluxDensityT) =>
         new(new[] { new Pole(PoleFace.Circle(RadiusM), new Vec2(0, 0), b) }, speed);
 
-    // Heald, "Magnetic braking: improved theory", Am. J. Phys. 56(6):521-522, 1988 (REFERENCES §7):
+    // Heald, "Magnetic braking: improved theory", Am. J. Phys. 56(6):521-522, 1988:
     // uniform B in a circle of radius R on an infinite sheet, low speed: F = 1/2 sigma t v B^2 pi R^2.
     // Finite plate: a disc of radius a = 10 R with the pole at its centre. The image of the boundary
     // (J_r = 0 at r = a) lowers the field inside the pole to (vB/2)(1 - R^2/a^2), so
     // F = 1/2 sigma t v B^2 pi R^2 (1 - R^2/a^2) [D, derived here]; this is the m -> 0 limit of the
     // Smythe/Schieber disc-brake formula T = 1/2 sigma d omega pi r^2 m^2 B^2 [1 - (r/a)^2 / (1 - (m/a)^2)^2]
-    // quoted in REFERENCES §7, with F = T/m and v = omega m. The 1 % correction is what a 10 R plate changes.
+    // (W. R. Smythe, Trans. AIEE 61:681-684, 1942; D. Schieber, Proc. IEE 121(2):117-122, 1974), with F = T/m and v = omega m. The 1 % correction is what a 10 R plate changes.
     // Tolerances: 3 % against Heald (the brief), 1.5 % against the finite-disc form (measured -0.74 % at
     // 20 cells per radius: first-order cut-cell error on the pole's and plate's circles).
     [Fact]
@@ -34,7 +34,7 @@ public class MovingPoleTests
     }
 
     // Resistance-limited regime: psi is linear in dB/dt = -v dB/dx, so loss ~ v^2 B^2 and drag = P/v ~ v B^2
-    // (DESIGN.md "Thin conducting plate"; Heald 1988's F is linear in v and quadratic in B). Each case is a
+    // (the resistance-limited sheet equation is linear in dB/dt = -v dB/dx; Heald 1988's F is linear in v and quadratic in B). Each case is a
     // separate solve (not the scaling API). Tolerance 1e-6 relative: two solves converged to 1e-8 residual.
     [Theory]
     [InlineData(3.0, 1.0)]   // speed x3 -> loss x9
@@ -62,7 +62,7 @@ public class MovingPoleTests
     }
 
     // Slots across the direction of motion cut the loops the moving pole drives: a comb-slotted plate has
-    // less mean drag than the solid one (common practice, no source; REFERENCES §8 has no number).
+    // less mean drag than the solid one (common practice, no source).
     // The row of 4 alternating poles moves over the plate; the mean is over one slot pitch (4 offsets).
     // Asserted: slotted/solid below 0.8 (measured 0.48), so the check fails if the slots stop cutting current.
     [Fact]

@@ -36,7 +36,6 @@ public sealed class PlateGeometry
     public Func<Vec2, double>? ConductivityFactorAt { get; set; }
 
     public PlateGeometry AddCutout(Polygon hole) { _cutouts.Add(hole); return this; }
-    public PlateGeometry AddSlot(Slot slot) { _slots.Add(slot); return this; }
     public PlateGeometry AddCut(CutLine cut) { _cuts.Add(cut); return this; }
     public PlateGeometry AddZone(ConductivityZone zone)
     {

@@ -5,7 +5,7 @@ namespace SlotOpt.Plates.Sources;
 /// <summary>
 /// A field source moving along +x at SpeedMPerS over a stationary plate, for every solver.
 /// IntegrateRate writes, per lattice node, the dual-cell integral of dBz/dt = -v dBz/dx (volts) with
-/// the source displaced by offsetXM (DESIGN.md, "Thin conducting plate"). IntegrateLiftField writes,
+/// the source displaced by offsetXM (a field pattern translating at v: Faraday's law in the plate's frame). IntegrateLiftField writes,
 /// per lattice node, what the source knows of its normal field at the sheet, for the lift
 /// (the force on the sheet is F = integral psi grad(Bz) dA, a dipole layer psi z in the field, so the
 /// lift on the source is -integral psi dBz/dz dA), and says which of the two it wrote

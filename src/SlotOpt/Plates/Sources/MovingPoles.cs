@@ -6,7 +6,7 @@ namespace SlotOpt.Plates.Sources;
 
 /// <summary>
 /// Poles moving along +x at SpeedMPerS over a stationary plate. In the plate's frame, with the
-/// poles displaced by X, dBz/dt = -v dB/dx (DESIGN.md, "Thin conducting plate"). A uniform pole
+/// poles displaced by X, dBz/dt = -v dB/dx (a field pattern translating at v: Faraday's law in the plate's frame). A uniform pole
 /// makes dB/dx a line source on the face's edge, integrated exactly over each dual cell:
 /// the integral of -v dB/dx over [x0, x1] x [y0, y1] is -v B (c(x1) - c(x0)), with c(x) the length of
 /// the line x, y0..y1 inside the face (no smoothing). For the lift the poles give their field in the

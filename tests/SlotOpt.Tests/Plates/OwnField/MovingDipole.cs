@@ -14,7 +14,7 @@ namespace SlotOpt.Tests.Plates.OwnField;
 /// sheet (z = 0, source at z = h, dz = -h, r^2 = rho^2 + h^2):
 /// Bz = (mu0 m / 4 pi)(3 dz^2 - r^2) / r^5 and dBz/dz = (mu0 m / 4 pi)(9 dz / r^5 - 15 dz^3 / r^7)
 /// (the point-dipole field, e.g. J. D. Jackson, "Classical Electrodynamics", 3rd ed., eq. 5.56).
-/// This is the source of the Reitz (1970) thin-sheet results in REFERENCES §7.
+/// This is the source of the Reitz (1970) thin-sheet results (J. R. Reitz, J. Appl. Phys. 41:2067, 1970).
 /// </summary>
 public sealed class MovingDipole : IMovingSheetSource
 {
@@ -36,7 +36,7 @@ public sealed class MovingDipole : IMovingSheetSource
     public double MomentAm2 { get; }
     public double SpeedMPerS { get; }
 
-    /// <summary>Perfect-image force F0 = 3 mu0 m^2 / (32 pi h^4) (REFERENCES §7): the lift as v -> infinity over a wide thin sheet.</summary>
+    /// <summary>Perfect-image force F0 = 3 mu0 m^2 / (32 pi h^4) (J. R. Reitz, J. Appl. Phys. 41:2067, 1970): the lift as v -> infinity over a wide thin sheet.</summary>
     public double ImageForceN => 3 * Validity.Mu0 * MomentAm2 * MomentAm2 / (32 * Math.PI * Math.Pow(HeightM, 4));
 
     public double FieldZ(double dx, double dy)

@@ -23,7 +23,7 @@ public class ReactionPoleTests(ITestOutputHelper output)
 
     // Low-speed limit against the resistance-limited solver's public API (ResistanceLimitedSolver.SolveMoving, scaled by G):
     // the same pole, plate and grid. Reitz's axisymmetric form puts the coupled/low ratio at 1 - 0.75 (v/w)^2
-    // = 0.99992 at v = 0.01 w (REFERENCES §7); asserted within 1 %.
+    // = 0.99992 at v = 0.01 w (J. R. Reitz, J. Appl. Phys. 41:2067, 1970); asserted within 1 %.
     [Fact]
     public void Pole_drag_tends_to_the_resistance_limited_solver()
     {
@@ -35,7 +35,7 @@ public class ReactionPoleTests(ITestOutputHelper output)
         Assert.InRange(coupled.DragN[0] / low - 1, -0.01, 0.01);
     }
 
-    // Davis's result (Saslow 1992, REFERENCES §7): over a thin sheet, lift/drag = v/w for any magnet shape.
+    // Davis's result (W. M. Saslow, Am. J. Phys. 60(8):693-711, 1992): over a thin sheet, lift/drag = v/w for any magnet shape.
     // A uniform circular pole at v = w and 2 w: lift from the in-plane field through |k| (MovingPoles, LiftField.PlaneField),
     // drag from the power balance, two independent routes. The pole's field is discontinuous at the sheet
     // (a source at zero height), so both converge only at first order: lift/drag at v = w measured 0.847,
