@@ -57,7 +57,7 @@ public static class PlateCommand
             ["sheet_conductance_s"] = e.Case.Sheet.SheetConductanceS,
             ["unknowns"] = r.Unknowns,
             ["iterations"] = e.TotalIterations,
-            ["relative_residual"] = r.RelativeResidual,
+            ["relative_residual"] = e.RelativeResidual,
             ["setup_seconds"] = e.SetupSeconds,
             ["solve_seconds"] = e.SolveSeconds,
             ["warnings"] = new JsonArray(r.Validity.Warnings.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
@@ -78,7 +78,7 @@ public static class PlateCommand
         s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
         s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");
-        s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {r.RelativeResidual:E1}, {e.SetupSeconds + e.SolveSeconds:F2} s");
+        s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {e.RelativeResidual:E1}, {e.SetupSeconds + e.SolveSeconds:F2} s");
         foreach (var w in r.Validity.Warnings) s.AppendLine($"  warning: {w}");
         foreach (var n in r.Notes) s.AppendLine($"  note: {n}");
         return s.ToString();

@@ -31,7 +31,7 @@ public static class PlateModels
             var low = ResistanceLimitedSolver.SolveAc(model, source, criterion);
             notes.AddRange(low.Notes);
             double p = low.LossW(conductor.SheetConductanceS);
-            return new PlateSolution(choice, Array.Empty<double>(), new[] { p }, null, null, new[] { p }, notes, low.Iterations, low);
+            return new PlateSolution(choice, Array.Empty<double>(), new[] { p }, null, null, new[] { p }, notes, low.Iterations, low.RelativeResidual, low);
         }
         if (choice.Kind == SheetModelKind.BeyondThinSheet)
         {
@@ -39,11 +39,11 @@ public static class PlateModels
             var thick = ThickPlateSolver.SolveAcConverged(model, depthSource, conductor, accuracy, criterion);
             notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {thick.LayerError:P2}); " +
                 (source is IDepthAcFieldSource ? "the source's field at each layer's depth" : "the source's plane field is used at every depth"));
-            return new PlateSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes, thick.Iterations, null);
+            return new PlateSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes, thick.Iterations, thick.RelativeResidual, null);
         }
         var s = ReactionSolver.SolveAc(reaction ?? ReactionOperator.Build(model), source, conductor, criterion);
         notes.AddRange(s.Notes);
-        return new PlateSolution(choice, Array.Empty<double>(), new[] { s.LossW }, null, null, new[] { s.ResistanceLimitedLossW }, notes, s.Iterations, null);
+        return new PlateSolution(choice, Array.Empty<double>(), new[] { s.LossW }, null, null, new[] { s.ResistanceLimitedLossW }, notes, s.Iterations, s.RelativeResidual, null);
     }
 
     /// <param name="sourceLengthM">the source's length scale for the moving skin depth: its height above the sheet, or the pole size</param>
@@ -61,12 +61,12 @@ public static class PlateModels
             double w = 2 / (Validity.Mu0 * g);                                    // receding-image speed
             var loss = sweep.LossPerSiemensW.Select(p => g * p).ToArray();         // P = G P_unit (resistance-limited scaling)
             var drag = loss.Select(p => p / v).ToArray();                          // F = P / v
-            return new PlateSolution(choice, offsetsXM.ToArray(), loss, drag, drag.Select(d => d * v / w).ToArray(), loss, notes, sweep.IterationsPerOffset.Sum(), sweep.Peak);
+            return new PlateSolution(choice, offsetsXM.ToArray(), loss, drag, drag.Select(d => d * v / w).ToArray(), loss, notes, sweep.IterationsPerOffset.Sum(), sweep.Peak.RelativeResidual, sweep.Peak);
         }
         var s = ReactionSolver.SolveMoving(reaction ?? ReactionOperator.Build(model), source, conductor, offsetsXM, criterion);
         notes.AddRange(s.Notes);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
-        return new PlateSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes, s.Iterations.Sum(), null);
+        return new PlateSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes, s.Iterations.Sum(), s.MaxRelativeResidual, null);
     }
 
     private static void CheckOperator(SheetModel model, ReactionOperator? reaction)

@@ -12,7 +12,7 @@ namespace SlotOpt.Runs;
 /// from the model the validity figures call for, with Choice saying which and why. Result (map, peak
 /// and RMS current density, validity) is the resistance-limited solution scaled to the case's material
 /// and thickness (moving poles: the offset with the largest loss); when another model ran it is solved
-/// for the map alone, and a note says so.
+/// for the map alone, and a note says so. TotalIterations and RelativeResidual are those of the model that ran.
 /// </summary>
 public sealed record PlateFileEvaluation(
     PlateCase Case,
@@ -24,6 +24,7 @@ public sealed record PlateFileEvaluation(
     IReadOnlyList<double> DragPerOffsetN,
     IReadOnlyList<double> LossPerOffsetW,
     int TotalIterations,
+    double RelativeResidual,
     double SetupSeconds,
     double SolveSeconds)
 {
@@ -36,13 +37,13 @@ public sealed record PlateFileEvaluation(
             var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion);
             var result = MapSolution(solution, () => ResistanceLimitedSolver.SolveAc(model, ac, criterion)).ScaleTo(plate.Sheet);
             return new PlateFileEvaluation(plate, solution.Choice, WithMapNote(result, solution), solution.MeanLossW, null,
-                Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, model.SetupSeconds, clock.Elapsed.TotalSeconds);
+                Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds);
         }
         var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
         var moving = PlateModels.SolveMoving(model, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion);
         var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, poles, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
         return new PlateFileEvaluation(plate, moving.Choice, WithMapNote(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
-            moving.LossW, moving.Iterations, model.SetupSeconds, clock.Elapsed.TotalSeconds);
+            moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds);
     }
 
     private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>
