@@ -5,6 +5,7 @@ using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using SlotOpt.Input;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Runs;
@@ -19,7 +20,7 @@ public static class PlateCommand
         var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]]" };
         var json = new Option<bool>("--json") { Description = "print one JSON object instead of text" };
         var map = new Option<string?>("--map") { Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
-        var command = new Command("plate", "Eddy-current loss and drag of one thin conducting plate (resistance-limited, normal field).");
+        var command = new Command("plate", "Eddy-current loss and drag of one conducting plate in a normal field, with the model its validity figures call for.");
         command.Arguments.Add(file);
         command.Options.Add(json);
         command.Options.Add(map);
@@ -40,10 +41,12 @@ public static class PlateCommand
         var r = e.Result;
         var o = new JsonObject
         {
-            ["file"] = e.File.Path,
+            ["file"] = e.Case.Path,
+            ["model"] = JsonNamingPolicy.KebabCaseLower.ConvertName(e.Choice.Kind.ToString()),
+            ["model_reason"] = e.Choice.Reason,
             ["loss_w"] = e.LossW,
             ["drag_n"] = e.MeanDragN,
-            ["averaged_over"] = e.File.MovingSource is null ? null : e.File.AveragedOver,
+            ["averaged_over"] = e.Case.MovingSource is null ? null : e.Case.AveragedOver,
             ["positions_m"] = new JsonArray(e.OffsetsXM.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
             ["drag_per_position_n"] = new JsonArray(e.DragPerOffsetN.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
             ["loss_per_position_w"] = new JsonArray(e.LossPerOffsetW.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
@@ -51,10 +54,10 @@ public static class PlateCommand
             ["rms_current_density_a_per_m2"] = r.RmsCurrentDensityAPerM2,
             ["reynolds_number"] = r.Validity.ReynoldsNumber,
             ["thickness_to_skin_depth"] = r.Validity.ThicknessToSkinDepth,
-            ["sheet_conductance_s"] = e.File.Sheet.SheetConductanceS,
+            ["sheet_conductance_s"] = e.Case.Sheet.SheetConductanceS,
             ["unknowns"] = r.Unknowns,
             ["iterations"] = e.TotalIterations,
-            ["relative_residual"] = r.RelativeResidual,
+            ["relative_residual"] = e.RelativeResidual,
             ["setup_seconds"] = e.SetupSeconds,
             ["solve_seconds"] = e.SolveSeconds,
             ["warnings"] = new JsonArray(r.Validity.Warnings.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
@@ -68,13 +71,14 @@ public static class PlateCommand
         var r = e.Result;
         var c = CultureInfo.InvariantCulture;
         var s = new StringBuilder();
-        s.AppendLine(c, $"plate {e.File.Path}: sheet conductance {e.File.Sheet.SheetConductanceS:G4} S");
-        s.AppendLine(c, $"  loss                 {e.LossW:G4} W{(e.File.MovingSource is null ? " (time average)" : $" (mean over {e.File.AveragedOver})")}");
+        s.AppendLine(c, $"plate {e.Case.Path}: sheet conductance {e.Case.Sheet.SheetConductanceS:G4} S");
+        s.AppendLine(c, $"  model                {JsonNamingPolicy.KebabCaseLower.ConvertName(e.Choice.Kind.ToString())}: {e.Choice.Reason}");
+        s.AppendLine(c, $"  loss                 {e.LossW:G4} W{(e.Case.MovingSource is null ? " (time average)" : $" (mean over {e.Case.AveragedOver})")}");
         if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {drag:G4} N (min {e.DragPerOffsetN.Min():G4}, max {e.DragPerOffsetN.Max():G4})");
         s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
         s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");
-        s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {r.RelativeResidual:E1}, {e.SetupSeconds + e.SolveSeconds:F2} s");
+        s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {e.RelativeResidual:E1}, {e.SetupSeconds + e.SolveSeconds:F2} s");
         foreach (var w in r.Validity.Warnings) s.AppendLine($"  warning: {w}");
         foreach (var n in r.Notes) s.AppendLine($"  note: {n}");
         return s.ToString();

@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -51,7 +52,7 @@ public static class ReactionBench
             var poles = new MovingPoles(new[] { new Pole(PoleFace.Circle(0.02), new Vec2(0, 0), 0.5) }, w);
             var offsets = MovingSweepSolution.OffsetsAcross(-0.05, 0.05, 50);
             clock.Restart();
-            var s = ReactionSolver.SolveMoving(reaction, new MovingPoleField(poles), conductor, offsets);
+            var s = ReactionSolver.SolveMoving(reaction, poles, conductor, offsets);
             double solve = clock.Elapsed.TotalSeconds;
             Console.WriteLine(string.Create(c, $"| moving pole at v = w ({w:F1} m/s), 50 offsets | {model.Lattice.Nx} x {model.Lattice.Ny} | {model.Unknowns} | {reaction.PaddedX} x {reaction.PaddedY} | {setup:F2} | {solve:F2} ({solve / 50:F3} per offset) | {s.Iterations.Sum()} ({s.Iterations.Average():F1} per offset) | {s.MaxRelativeResidual:E1} | {s.DragRatio:F4} |"));
         }

@@ -58,7 +58,7 @@ public static class SheetsBench
         var model = SheetModel.Build(Plate(), new GridOptions { CellSizeM = 1.0 / n });
         double setup = clock.Elapsed.TotalSeconds;
         clock.Restart();
-        var solution = PlateSolver.SolveAc(model, new UniformAcField(1, 50));
+        var solution = ResistanceLimitedSolver.SolveAc(model, new UniformAcField(1, 50));
         double solve = clock.Elapsed.TotalSeconds;
         long retained = GC.GetTotalMemory(true) - before;
         GC.KeepAlive(solution);

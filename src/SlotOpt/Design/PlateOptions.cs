@@ -1,5 +1,6 @@
 using System.Globalization;
 using SlotOpt.Materials;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -83,10 +84,10 @@ public static class PlateOptions
         var excitation = part.Excitation;
         if (excitation.Moving is { } poles)
         {
-            var sweep = PlateSolver.SolveMoving(model, poles, TravelOffsets(part, slots));
+            var sweep = ResistanceLimitedSolver.SolveMoving(model, poles, TravelOffsets(part, slots));
             return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
         }
-        var ac = PlateSolver.SolveAc(model, excitation.Ac!);
+        var ac = ResistanceLimitedSolver.SolveAc(model, excitation.Ac!);
         return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
     }
 

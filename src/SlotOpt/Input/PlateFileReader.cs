@@ -1,8 +1,10 @@
 using SlotOpt.Design;
 using SlotOpt.Input.Toml;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
+using SlotOpt.Runs;
 
 namespace SlotOpt.Input;
 
@@ -24,13 +26,13 @@ namespace SlotOpt.Input;
 /// </summary>
 public static class PlateFileReader
 {
-    public static PlateFile Read(string path)
+    public static PlateCase Read(string path)
     {
         var text = InputFile.ReadAllText(path, "plate file");
         return Parse(text, path);
     }
 
-    public static PlateFile Parse(string text, string path)
+    public static PlateCase Parse(string text, string path)
     {
         var errors = new InputErrors();
         var root = new TomlSection(TomlDocumentReader.Read(text, path, errors), "", path, errors);
@@ -66,7 +68,7 @@ public static class PlateFileReader
             : excitation.Average == TravelAverage.SlotPitch
                 ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {excitation.Positions} positions)"
                 : excitation.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({excitation.Positions} positions)";
-        return new PlateFile(path, geometry, grid, conductor, excitation.Ac, excitation.Moving, offsets, over);
+        return new PlateCase(path, geometry, grid, conductor, excitation.Ac, excitation.Moving, offsets, over);
     }
 
     private static (PlateGeometry?, ConductingSheet?) ReadPlate(TomlSection t)

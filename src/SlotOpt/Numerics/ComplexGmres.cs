@@ -22,8 +22,8 @@ public static class ComplexGmres
     {
         int n = b.Length;
         double normB = Norm(b);
-        if (normB == 0) { Array.Clear(x); report = new SolveReport(true, 0, 0, "zero right-hand side"); return true; }
-        if (!double.IsFinite(normB)) { report = new SolveReport(false, 0, double.NaN, "right-hand side is not finite"); return false; }
+        if (normB == 0) { Array.Clear(x); report = new SolveReport(SolveStatus.Converged, 0, 0); return true; }
+        if (!double.IsFinite(normB)) { report = new SolveReport(SolveStatus.NonFinite, 0, double.NaN); return false; }
         restart = Math.Max(1, restart);
         double target = criterion.RelativeResidual * normB;
         var v = new Complex[restart + 1][];
@@ -39,11 +39,11 @@ public static class ComplexGmres
         {
             Residual(a, b, x, v[0], w);
             double beta = Norm(v[0]);
-            if (!double.IsFinite(beta)) { report = new SolveReport(false, iterations, double.NaN, "the residual became NaN or infinite"); return false; }
-            if (beta <= target) { report = new SolveReport(true, iterations, beta / normB, "converged"); return true; }
+            if (!double.IsFinite(beta)) { report = new SolveReport(SolveStatus.NonFinite, iterations, double.NaN); return false; }
+            if (beta <= target) { report = new SolveReport(SolveStatus.Converged, iterations, beta / normB); return true; }
             if (iterations >= criterion.MaxIterations)
             {
-                report = new SolveReport(false, iterations, beta / normB, $"no convergence to {criterion.RelativeResidual:E1} in {criterion.MaxIterations} GMRES iterations (restart {restart})");
+                report = new SolveReport(SolveStatus.IterationLimit, iterations, beta / normB);
                 return false;
             }
             Scale(v[0], 1 / beta);
@@ -61,7 +61,7 @@ public static class ComplexGmres
                     Axpy(-hij, v[i], w);
                 }
                 double hnext = Norm(w);
-                if (!double.IsFinite(hnext)) { report = new SolveReport(false, iterations, double.NaN, "the Arnoldi vector became NaN or infinite"); return false; }
+                if (!double.IsFinite(hnext)) { report = new SolveReport(SolveStatus.NonFinite, iterations, double.NaN); return false; }
                 h[j + 1, j] = hnext;
                 if (hnext > 0) { Array.Copy(w, v[j + 1], n); Scale(v[j + 1], 1 / hnext); }
                 for (int i = 0; i < j; i++) Rotate(ref h[i, j], ref h[i + 1, j], cs[i], sn[i]);

@@ -16,10 +16,10 @@ public static class ConjugateGradient
         if (normB == 0)
         {
             x.Clear();
-            report = new SolveReport(true, 0, 0, "zero right-hand side");
+            report = new SolveReport(SolveStatus.Converged, 0, 0);
             return true;
         }
-        if (!double.IsFinite(normB)) { report = new SolveReport(false, 0, double.NaN, "right-hand side is not finite"); return false; }
+        if (!double.IsFinite(normB)) { report = new SolveReport(SolveStatus.NonFinite, 0, double.NaN); return false; }
         var r = new double[n];
         var z = new double[n];
         var p = new double[n];
@@ -35,12 +35,12 @@ public static class ConjugateGradient
             {
                 a.Residual(b, x, r);
                 double trueNorm = Norm(r);
-                if (trueNorm <= target) { report = new SolveReport(true, iterations, trueNorm / normB, "converged"); return true; }
+                if (trueNorm <= target) { report = new SolveReport(SolveStatus.Converged, iterations, trueNorm / normB); return true; }
             }
             if (iterations >= criterion.MaxIterations)
             {
                 a.Residual(b, x, r);
-                report = new SolveReport(false, iterations, Norm(r) / normB, $"no convergence to {criterion.RelativeResidual:E1} in {criterion.MaxIterations} iterations");
+                report = new SolveReport(SolveStatus.IterationLimit, iterations, Norm(r) / normB);
                 return false;
             }
             // (re)start: p = z = M^-1 r
@@ -51,9 +51,14 @@ public static class ConjugateGradient
             {
                 a.Multiply(p, q);
                 double pq = Dot(p, q);
-                if (!(pq > 0) || !double.IsFinite(pq) || !double.IsFinite(rz))
+                if (!double.IsFinite(pq) || !double.IsFinite(rz))
                 {
-                    report = new SolveReport(false, iterations, Norm(r) / normB, "the operator or preconditioner is not positive definite (p.Ap <= 0 or not finite)");
+                    report = new SolveReport(SolveStatus.NonFinite, iterations, Norm(r) / normB);
+                    return false;
+                }
+                if (!(pq > 0))
+                {
+                    report = new SolveReport(SolveStatus.NotPositiveDefinite, iterations, Norm(r) / normB);
                     return false;
                 }
                 double alpha = rz / pq;
@@ -62,7 +67,7 @@ public static class ConjugateGradient
                 double rn = Norm(r);
                 if (!double.IsFinite(rn) || rn > criterion.DivergenceFactor * Math.Max(start, normB))
                 {
-                    report = new SolveReport(false, iterations, rn / normB, "the residual diverged or became NaN");
+                    report = new SolveReport(double.IsFinite(rn) ? SolveStatus.Diverged : SolveStatus.NonFinite, iterations, rn / normB);
                     return false;
                 }
                 if (rn <= target) break;

@@ -2,8 +2,9 @@ namespace SlotOpt.Numerics;
 
 /// <summary>
 /// When the linear solve stops: converged when the true relative residual |b - A x| / |b| is at
-/// most RelativeResidual; failed after MaxIterations, on NaN/Inf, or when the residual grows
-/// beyond DivergenceFactor times its start (loss of positive definiteness or a broken preconditioner).
+/// most RelativeResidual; otherwise it stops with the <see cref="SolveStatus"/> that says why: after
+/// MaxIterations (IterationLimit), on NaN/Inf (NonFinite), when the residual grows beyond
+/// DivergenceFactor times its start (Diverged), or on loss of positive definiteness (NotPositiveDefinite).
 /// </summary>
 public sealed record ConvergenceCriterion
 {

@@ -1,3 +1,5 @@
+using SlotOpt.Plates.Conductors;
+
 namespace SlotOpt.Plates;
 
 /// <summary>
@@ -6,15 +8,15 @@ namespace SlotOpt.Plates;
 /// <list type="bullet">
 /// <item>Resistance-limited while Rm &lt;= sqrt(eps). The low-speed answer overstates drag by the
 /// factor 1/(F/F_low): for a 2-D line current F/F_low = 1/(1 + Rm^2) = 1 - Rm^2 + ..., for an
-/// axisymmetric source (2/Rm^2)(1 - 1/sqrt(1 + Rm^2)) = 1 - (3/4) Rm^2 + ... (Reitz 1970 as re-derived in
-/// REFERENCES §7, expanded here); the line current is the more sensitive, so Rm^2 &lt;= eps bounds both
+/// axisymmetric source (2/Rm^2)(1 - 1/sqrt(1 + Rm^2)) = 1 - (3/4) Rm^2 + ... (J. R. Reitz, J. Appl. Phys. 41:2067, 1970,
+/// closed forms re-derived from the thin-sheet reflection coefficient and expanded here); the line current is the more sensitive, so Rm^2 &lt;= eps bounds both
 /// (Rm &lt;= 0.1 at 1 %). The thin disc in an AC field (ring reference in the tests) is gentler still:
 /// 1 - 0.12 beta^2 with beta = omega mu0 G a / 2.</item>
 /// <item>Thin sheet while t/delta &lt;= (630 eps)^(1/4). The 1-D skin-effect factor of a lamination is
-/// F(x) = 1 - x^4/630 + ... (REFERENCES §2), so the field's variation across the thickness costs less
+/// F(x) = 1 - x^4/630 + ... (Lammeraner & Stafl, Eddy Currents, 1964; Stoll, The Analysis of Eddy Currents, 1974; the expansion of (3/x)(sinh x - sin x)/(cosh x - cos x)), so the field's variation across the thickness costs less
 /// than eps below that ratio (1.58 at 1 %: F(1.5) = 0.992). For a moving source the skin depth is
 /// delta_c = sqrt(2 L / (mu0 sigma v)) with L the source's length scale (height above the sheet, or
-/// pole size): the thin-sheet results hold for t &lt;&lt; delta_c (Saslow 1992, REFERENCES §7).</item>
+/// pole size): the thin-sheet results hold for t &lt;&lt; delta_c (W. M. Saslow, Am. J. Phys. 60(8):693-711, 1992).</item>
 /// </list>
 /// </summary>
 public static class ReactionModelChoice

@@ -3,7 +3,7 @@ namespace SlotOpt.Plates;
 /// <summary>Which thin-plate model a case needs (see <see cref="ReactionModelChoice"/>).</summary>
 public enum SheetModelKind
 {
-    /// <summary>The eddy currents' own field is negligible: <see cref="PlateSolver"/>, one solve per geometry, scaled by G.</summary>
+    /// <summary>The eddy currents' own field is negligible: <see cref="ResistanceLimitedSolver"/>, one solve per geometry, scaled by G.</summary>
     ResistanceLimited,
     /// <summary>The eddy currents push back on the field but the field still crosses the thickness: <see cref="ReactionSolver"/>, one solve per conductor.</summary>
     ThinSheetReaction,

@@ -1,6 +1,7 @@
 using System.Globalization;
 using ScottPlot;
 using SlotOpt.Design;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Runs;
 

@@ -1,5 +1,6 @@
 using SlotOpt.Design;
 using SlotOpt.Materials;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.Sources;
@@ -10,7 +11,7 @@ namespace SlotOpt.Runs;
 /// A chosen plate design confirmed with the model its validity figures call for: the resistance-limited
 /// screen (one solve per geometry, scaled by sigma t) overstates loss and drag once the plate's own eddy
 /// currents push back on the field, so the finalists are solved again with the thin-sheet reaction field or
-/// the layered thick-plate model (Plates/CorrectedSheetSolver), and the output says which model ran.
+/// the layered thick-plate model (Plates/PlateModels), and the output says which model ran.
 /// </summary>
 public sealed record PlateConfirmation(
     string PartName,
@@ -39,20 +40,18 @@ public sealed record PlateConfirmation(
         var model = PlateOptions.BuildModel(part, geometry, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
-        CorrectedSolution solution;
+        PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
         if (part.Excitation.Moving is { } poles)
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
-            // the moving skin depth's length scale: the pole's size along the travel
-            var poleSize = 2 * poles.Poles.Min(p => p.Face.HalfWidthXM);
             var reaction = ReactionOperator.Build(model);
-            solution = CorrectedSheetSolver.SolveMoving(model, new MovingPoleField(poles), conductor, offsets, poleSize, reaction: reaction);
+            solution = PlateModels.SolveMoving(model, poles, conductor, offsets, poles.PoleSizeXM, reaction: reaction);
             sweep = Sweep(reaction, poles, conductor, offsets);
         }
         else
         {
-            solution = CorrectedSheetSolver.SolveAc(model, part.Excitation.Ac!, conductor);
+            solution = PlateModels.SolveAc(model, part.Excitation.Ac!, conductor);
         }
         return new PlateConfirmation(part.Name, solution.Choice.Kind, solution.Choice.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
             solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep);
@@ -68,7 +67,7 @@ public sealed record PlateConfirmation(
         {
             var moving = new MovingPoles(poles.Poles, m * w);
             // the sweep illustrates the trend: it ends at the first speed the coupled solve does not converge at, never with a guessed number
-            if (!ReactionSolver.TrySolveMoving(reaction, new MovingPoleField(moving), conductor, window, null, out var s, out _)) break;
+            if (!ReactionSolver.TrySolveMoving(reaction, moving, conductor, window, null, out var s, out _)) break;
             points.Add(new SpeedPoint(m * w, s!.MeanDragN, s.MeanLiftN, s.ResistanceLimitedDragN.Average()));
         }
         return points;

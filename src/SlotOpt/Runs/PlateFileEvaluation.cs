@@ -1,18 +1,22 @@
 using System.Diagnostics;
-using SlotOpt.Input;
 using SlotOpt.Numerics;
+using SlotOpt.Plates;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
 
 namespace SlotOpt.Runs;
 
 /// <summary>
-/// Evaluates one plate file: builds the model once, solves at unit reference sheet conductance and
-/// scales to the file's material and thickness. For moving poles: loss and drag at every travel
-/// offset and their means; the result (map, peak current density) is that of the offset with the largest loss.
+/// Evaluates one plate case through the same model choice as the run's confirmation
+/// (<see cref="PlateModels"/>): loss (and for moving poles drag at every travel offset and their means)
+/// from the model the validity figures call for, with Choice saying which and why. Result (map, peak
+/// and RMS current density, validity) is the resistance-limited solution scaled to the case's material
+/// and thickness (moving poles: the offset with the largest loss); when another model ran it is solved
+/// for the map alone, and a note says so. TotalIterations and RelativeResidual are those of the model that ran.
 /// </summary>
 public sealed record PlateFileEvaluation(
-    PlateFile File,
+    PlateCase Case,
+    ModelChoice Choice,
     PlateResult Result,
     double LossW,
     double? MeanDragN,
@@ -20,25 +24,32 @@ public sealed record PlateFileEvaluation(
     IReadOnlyList<double> DragPerOffsetN,
     IReadOnlyList<double> LossPerOffsetW,
     int TotalIterations,
+    double RelativeResidual,
     double SetupSeconds,
     double SolveSeconds)
 {
-    public static PlateFileEvaluation Evaluate(PlateFile file, ConvergenceCriterion? criterion = null)
+    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null)
     {
-        var model = SheetModel.Build(file.Geometry, file.Grid);
+        var model = SheetModel.Build(plate.Geometry, plate.Grid);
         var clock = Stopwatch.StartNew();
-        double g = file.Sheet.SheetConductanceS;
-        if (file.AcSource is { } ac)
+        if (plate.AcSource is { } ac)
         {
-            var solution = PlateSolver.SolveAc(model, ac, criterion);
-            var result = solution.ScaleTo(file.Sheet);
-            return new PlateFileEvaluation(file, result, result.LossW, null, Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(),
-                solution.Iterations, model.SetupSeconds, clock.Elapsed.TotalSeconds);
+            var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion);
+            var result = MapSolution(solution, () => ResistanceLimitedSolver.SolveAc(model, ac, criterion)).ScaleTo(plate.Sheet);
+            return new PlateFileEvaluation(plate, solution.Choice, WithMapNote(result, solution), solution.MeanLossW, null,
+                Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds);
         }
-        var poles = file.MovingSource ?? throw new InputException($"{file.Path}: [source] defines neither an AC field nor moving poles");
-        var sweep = PlateSolver.SolveMoving(model, poles, file.OffsetsXM, criterion);
-        var peak = sweep.Peak.ScaleTo(file.Sheet);
-        return new PlateFileEvaluation(file, peak, sweep.MeanLossW(g), sweep.MeanDragN(g), sweep.OffsetsXM, sweep.DragN(g),
-            sweep.LossPerSiemensW.Select(p => p * g).ToArray(), sweep.IterationsPerOffset.Sum(), model.SetupSeconds, clock.Elapsed.TotalSeconds);
+        var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
+        var moving = PlateModels.SolveMoving(model, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion);
+        var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, poles, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
+        return new PlateFileEvaluation(plate, moving.Choice, WithMapNote(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
+            moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds);
     }
+
+    private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>
+        solution.ResistanceLimited ?? resistanceLimited();
+
+    private static PlateResult WithMapNote(PlateResult result, PlateSolution solution) =>
+        solution.ResistanceLimited is not null ? result
+            : result with { Notes = result.Notes.Append("the current-density map and its peak and RMS are from the resistance-limited model, which overstates them here; loss and drag are from the model that ran").ToList() };
 }

@@ -12,7 +12,7 @@ namespace SlotOpt.Tests.Hardening;
 public class NumericalEdgeCaseTests
 {
     private static UnitConductanceSolution SolveUniform(PlateGeometry geometry, double cellM, double peakT = 0.01) =>
-        PlateSolver.SolveAc(SheetModel.Build(geometry, new GridOptions { CellSizeM = cellM }), new UniformAcField(peakT, 50));
+        ResistanceLimitedSolver.SolveAc(SheetModel.Build(geometry, new GridOptions { CellSizeM = cellM }), new UniformAcField(peakT, 50));
 
     [Fact]
     public void Zero_field_gives_exactly_zero_loss()

@@ -1,4 +1,5 @@
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -74,9 +75,9 @@ public class DegenerateInputTests
     {
         var model = SheetModel.Build(PlateGeometry.Rectangle(0.2, 0.1), new GridOptions { CellSizeM = 0.002 });
         var strict = new ConvergenceCriterion { RelativeResidual = 1e-15, MaxIterations = 1 };
-        Assert.False(PlateSolver.TrySolveAc(model, new UniformAcField(0.1, 50), strict, out var solution, out var failure));
+        Assert.False(ResistanceLimitedSolver.TrySolveAc(model, new UniformAcField(0.1, 50), strict, out var solution, out var failure));
         Assert.Null(solution);
         Assert.Contains("no convergence", failure);
-        Assert.Throws<NumericalFailureException>(() => PlateSolver.SolveAc(model, new UniformAcField(0.1, 50), strict));
+        Assert.Throws<NumericalFailureException>(() => ResistanceLimitedSolver.SolveAc(model, new UniformAcField(0.1, 50), strict));
     }
 }

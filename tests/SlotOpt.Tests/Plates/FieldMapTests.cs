@@ -15,7 +15,7 @@ public class FieldMapTests
         var ys = new[] { -0.01, 0.11 };
         var map = new FieldMap(xs, ys, values, 50);
         var model = SheetModel.Build(PlateGeometry.Rectangle(0.2, 0.1), new GridOptions { CellSizeM = 0.002 });
-        return PlateSolver.SolveAc(model, map).LossW(1);
+        return ResistanceLimitedSolver.SolveAc(model, map).LossW(1);
     }
 
     // Field amplitude 1 on the left half and j (same amplitude, 90 degrees later) on the right half: the real

@@ -40,7 +40,7 @@ public class PlateCommandTests
     }
 
     // A plain 200 x 100 mm plate, G = sigma t = 1e7 S/m x 1 mm = 1e4 S, in 10 mT at 50 Hz:
-    // P = G omega^2 Bp^2 k1 a^3 b / 8 with k1(b/a = 2) from the T&G series (REFERENCES §3; see TorsionReference).
+    // P = G omega^2 Bp^2 k1 a^3 b / 8 with k1(b/a = 2) from the T&G series (Timoshenko & Goodier 1970, ch. 10; see TorsionReference).
     // Tolerance 1 %: 100 cells across the short side (grid error ~2e-4, see TorsionAnalogyTests).
     [Fact]
     public void Plate_json_loss_matches_torsion_closed_form()
@@ -72,7 +72,7 @@ public class PlateCommandTests
         Assert.Equal(0.19739, doc.RootElement.GetProperty("reynolds_number").GetDouble(), 4e-5);
     }
 
-    // Heald, Am. J. Phys. 56(6):521-522, 1988 (REFERENCES §7): F = 1/2 sigma t v B^2 pi R^2 for a circular
+    // Heald, Am. J. Phys. 56(6):521-522, 1988: F = 1/2 sigma t v B^2 pi R^2 for a circular
     // pole of radius R on a large sheet at low speed. Here R = 10 mm at the centre of a 200 mm square plate
     // (half-side 10 R; the finite plate lowers F by about (R/a)^2 = 1 %, see MovingPoleTests), 20 cells per R.
     // Tolerance 3 % (the brief): measured -1.6 % (finite plate plus first-order cut cells on the pole's circle).
@@ -108,10 +108,51 @@ public class PlateCommandTests
         Assert.InRange(drag / heald - 1, -0.03, 0.03);
         // Rm = mu0 sigma t v / 2 = 1.2566e-6 * 3.5e7 * 1e-3 * 1 / 2 = 0.021991 [D]
         Assert.Equal(0.021991, doc.RootElement.GetProperty("reynolds_number").GetDouble(), 2e-6);
+        // Rm = 0.022 <= sqrt(0.01) = 0.1: the command ran the same model choice as `run` and kept the low-speed model
+        Assert.Equal("resistance-limited", doc.RootElement.GetProperty("model").GetString());
+    }
+
+    // The same pole at 20 m/s (Rm = mu0 sigma t v / 2 = 0.44 > 0.1): the command must switch to the thin sheet with its
+    // own field, as `run` does, and the drag must fall below the low-speed value of Heald (1988), F = 1/2 sigma t v B^2 pi R^2:
+    // the eddy currents' own field screens the pole (Reitz, J. Appl. Phys. 41:2067, 1970: F/F_low < 1 for every Rm > 0;
+    // about 1 - (3/4) Rm^2 = 0.85 for an axisymmetric source). Bound: below 0.97 F_low, above the 3 % discretisation
+    // tolerance of the low-speed check and far from the expected 10-20 % reduction; and above 0.5 F_low (not screened away).
+    [Fact]
+    public void Fast_pole_runs_the_thin_sheet_model_with_its_own_field()
+    {
+        var dir = TempDir();
+        var file = Path.Combine(dir, "fast.toml");
+        File.WriteAllText(file, """
+            [plate]
+            width = "320 mm"
+            height = "160 mm"
+            thickness = "1 mm"
+            conductivity = "3.5e7"
+            [grid]
+            cell = "2 mm"
+            [source]
+            kind = "moving_poles"
+            pole = "circle"
+            radius = "20 mm"
+            flux_density = "0.5 T"
+            speed = "20 m/s"
+            x = "220 mm"
+            y = "80 mm"
+            positions = 1
+            average = "pass"
+            """);
+        var (code, output, error) = Run("plate", file, "--json");
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        Assert.Equal("thin-sheet-reaction", doc.RootElement.GetProperty("model").GetString());
+        Assert.Contains("Rm = ", doc.RootElement.GetProperty("model_reason").GetString());
+        double drag = doc.RootElement.GetProperty("drag_n").GetDouble();
+        double low = 0.5 * 3.5e7 * 1e-3 * 20 * 0.25 * Math.PI * 0.02 * 0.02;
+        Assert.InRange(drag / low, 0.5, 0.97);
     }
 
     // A field map that is uniform over the plate (10 mT at any phase, here 30 degrees) must give the uniform-field
-    // loss: P = G omega^2 Bp^2 k1 a^3 b / 8 (T&G rectangle series, REFERENCES §3). Tolerance 1 % as above.
+    // loss: P = G omega^2 Bp^2 k1 a^3 b / 8 (Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10, rectangle series). Tolerance 1 % as above.
     [Fact]
     public void Uniform_field_map_matches_torsion_closed_form()
     {

@@ -46,7 +46,7 @@ public class PlateFileReaderTests
         Assert.Equal(-0.3, plate.MovingSource!.Poles[1].FluxDensityT, 1e-15);   // alternating polarity
     }
 
-    // Every error names file:line and the key (DESIGN.md, "The problem file"); all are reported together.
+    // Every error names file:line and the key; all are reported together.
     [Theory]
     [InlineData("thickness = \"6 mm\"", "thickness = \"6 T\"", "bad.toml:4: plate.thickness: ")]          // wrong unit
     [InlineData("thickness = \"6 mm\"", "thickness = \"6 mm\"\ncolour = \"red\"", "bad.toml:5: plate.colour: unknown key")]

@@ -12,20 +12,20 @@ public class SlottedPlateTests
     private static double AcLoss(PlateGeometry g, double cellM, double peakT = 1, double frequencyHz = 50)
     {
         var model = SheetModel.Build(g, new GridOptions { CellSizeM = cellM });
-        return PlateSolver.SolveAc(model, new UniformAcField(peakT, frequencyHz)).LossW(1);
+        return ResistanceLimitedSolver.SolveAc(model, new UniformAcField(peakT, frequencyHz)).LossW(1);
     }
 
     private static PlateGeometry Strip() => PlateGeometry.Rectangle(LengthM, WidthM);
 
     // A strip w = 0.1 by L = 1 cut lengthwise into n equal strips (zero-width cuts), loss relative to the
-    // uncut strip: exact series values of REFERENCES §3 ("Slotted long plate", from the T&G rectangle series).
+    // uncut strip: exact values of the Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10 rectangle series, computed.
     // Grid: 120 cells across the width, so every cut lies on a node line. Tolerance 1 %: the series values
     // are given to 3-4 digits (0.0165 is +-0.3 %) and the grid error is below 0.3 % (measured, n = 5: -0.28 %).
     [Theory]
-    [InlineData(2, 0.2584)]  // REFERENCES §3, n = 2
-    [InlineData(3, 0.1161)]  // REFERENCES §3, n = 3
-    [InlineData(5, 0.0422)]  // REFERENCES §3, n = 5
-    [InlineData(8, 0.0165)]  // REFERENCES §3, n = 8
+    [InlineData(2, 0.2584)]  // T&G rectangle series, n = 2
+    [InlineData(3, 0.1161)]  // T&G rectangle series, n = 3
+    [InlineData(5, 0.0422)]  // T&G rectangle series, n = 5
+    [InlineData(8, 0.0165)]  // T&G rectangle series, n = 8
     public void Strip_cut_into_n_strips_matches_series(int n, double ratio)
     {
         double cell = WidthM / 120;
@@ -38,8 +38,8 @@ public class SlottedPlateTests
     // An enclosed slit along the strip's centre line lies on a level line of the solid strip's stream
     // function (far from the ends psi depends on y only), so it changes almost nothing: a cut along a
     // level line leaves the solution unchanged (the principle behind the exact hollow-circle result,
-    // T&G ch. 10 / REFERENCES §3) [D]. Opened to one end, the same slit forces the current round its tip
-    // and the loss falls towards the two-strip value 0.2584 (REFERENCES §3).
+    // T&G ch. 10) [D]. Opened to one end, the same slit forces the current round its tip
+    // and the loss falls towards the two-strip value 0.2584 (T&G rectangle series).
     // Asserted: enclosed within 1 % of solid (measured -0.01 %), open below 0.35 (measured 0.294).
     [Fact]
     public void Enclosed_slit_reduces_loss_far_less_than_the_same_slit_opened_to_the_edge()
@@ -53,7 +53,7 @@ public class SlottedPlateTests
     }
 
     // Comb slots from one edge, deep (90 % of the plate): the teeth approach separate strips of width
-    // (pitch - slot) whose loss per area falls as width^2 (REFERENCES §3: n strips give about 1/n^2 of the
+    // (pitch - slot) whose loss per area falls as width^2 (T&G rectangle series: n strips give about 1/n^2 of the
     // loss). Halving the pitch must lower the loss, and every slotted plate loses less than the solid one.
     // Asserted: each halving of the pitch cuts the loss to below 0.6 of the previous (the 1/n^2 law gives
     // about 0.25; measured 0.19 (solid to 0.1 pitch), 0.30, 0.24).
@@ -74,7 +74,7 @@ public class SlottedPlateTests
     }
 
     // Enclosed slits (not reaching an edge) leave the outer current loop intact; the same slits opened to the
-    // edge as a comb break it (DESIGN.md: a hole's psi floats, fixed by Faraday's law; an edge slot sits at the
+    // edge as a comb break it (a hole's psi floats, fixed by Faraday's law; an edge slot sits at the
     // outside's psi = 0). Square 1 m plate, 5 slits 0.6 m long, 10 mm wide, 0.2 m pitch. Asserted: the enclosed
     // slits remove less than a third of what the comb removes (measured: enclosed 0.921, comb 0.188 of solid).
     [Fact]
@@ -110,7 +110,7 @@ public class SlottedPlateTests
     }
 
     // Resistance-limited loss is linear in sheet conductance and quadratic in frequency and field
-    // (DESIGN.md; P = G omega^2 Bp^2 J / 8 from the torsion analogy, REFERENCES §3). The conductance case
+    // (P = G omega^2 Bp^2 J / 8 from the torsion analogy, Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10). The conductance case
     // doubles sigma through a conductivity zone covering the whole plate (a separate assembly and solve,
     // not the scaling API). Tolerance 1e-6 relative: independent solves converged to 1e-8.
     [Theory]

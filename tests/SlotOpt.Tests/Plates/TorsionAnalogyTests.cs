@@ -16,14 +16,14 @@ public class TorsionAnalogyTests
     internal static double SolveLoss(PlateGeometry geometry, double cellM)
     {
         var model = SheetModel.Build(geometry, new GridOptions { CellSizeM = cellM });
-        var solution = PlateSolver.SolveAc(model, new UniformAcField(PeakT, FrequencyHz));
+        var solution = ResistanceLimitedSolver.SolveAc(model, new UniformAcField(PeakT, FrequencyHz));
         Assert.True(solution.RelativeResidual <= 1e-8, $"residual {solution.RelativeResidual}");
         return solution.LossW(Conductance);
     }
 
     private static double TorsionConstantFromLoss(double lossW) => lossW / TorsionReference.AcLossW(Conductance, PeakT, FrequencyHz, 1);
 
-    // k1 table: Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10 (REFERENCES §3, 4 decimals).
+    // k1 table: Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10 (4 decimals).
     // Tolerance 1 %: the brief's target on a fine grid (64 cells across the short side; the 5-point
     // scheme's error there is below 1e-3, measured -0.10 % (square) to -0.02 % (b/a = 10) against the table).
     [Theory]
@@ -42,9 +42,9 @@ public class TorsionAnalogyTests
     // weighting moves the effective edge by O(h) (first order, see the order test), measured errors
     // -0.44 % (circle), -0.49 % (ellipse), -0.72 % (triangle) on these grids.
     [Theory]
-    [InlineData("circle")]    // r = 1: J = pi r^4 / 2 (T&G ch. 10; REFERENCES §3); 256 cells across the diameter
-    [InlineData("ellipse")]   // a = 2, b = 1: J = pi a^3 b^3 / (a^2 + b^2) (T&G ch. 10; REFERENCES §3); 128 cells across the minor axis
-    [InlineData("triangle")]  // side s = 1: J = sqrt(3) s^4 / 80 (T&G ch. 10; REFERENCES §3); 256 cells along a side
+    [InlineData("circle")]    // r = 1: J = pi r^4 / 2 (T&G ch. 10); 256 cells across the diameter
+    [InlineData("ellipse")]   // a = 2, b = 1: J = pi a^3 b^3 / (a^2 + b^2) (T&G ch. 10); 128 cells across the minor axis
+    [InlineData("triangle")]  // side s = 1: J = sqrt(3) s^4 / 80 (T&G ch. 10); 256 cells along a side
     public void Curved_and_slanted_outlines_match_closed_form_torsion_constants(string shape)
     {
         var (geometry, cellM, exactJ) = shape switch
@@ -58,7 +58,7 @@ public class TorsionAnalogyTests
     }
 
     // Hollow circle ro = 1, ri = 0.5 whose hole carries the same dB/dt: J = pi (ro^4 - ri^4)/2 exactly
-    // (T&G ch. 10; REFERENCES §3 notes it is exact for the eddy analogue). The hole is one merged unknown
+    // (T&G ch. 10; exact for the eddy analogue when the hole carries the same dB/dt). The hole is one merged unknown
     // fixed by Faraday's law. Tolerance 1 %: cut cells on both circles, measured -0.5 % at 256 cells across.
     [Fact]
     public void Hollow_circle_matches_exact_torsion_constant()
@@ -86,7 +86,7 @@ public class TorsionAnalogyTests
     }
 
     // Observed order of convergence from a log-log fit of |error| against h over 4 grids.
-    // Rectangle b/a = 2 against the exact series (REFERENCES §3): the 5-point finite-volume scheme on a
+    // Rectangle b/a = 2 against the exact series (Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10): the 5-point finite-volume scheme on a
     // grid-aligned outline is second order; asserted 2 +- 0.2 (measured 1.997).
     // Circle against pi r^4/2: cut cells move the effective edge by O(h), so first order; asserted 1 +- 0.2 (measured 0.984).
     [Theory]

@@ -1,7 +1,7 @@
 namespace SlotOpt.Tests.Plates;
 
 /// <summary>
-/// Closed forms of the Saint-Venant torsion analogy used as references (REFERENCES.md §3).
+/// Closed forms of the Saint-Venant torsion analogy used as references (Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10; Roark's Formulas for Stress and Strain, 6th ed., Table 20).
 /// Thin plate of sheet conductance G in a uniform normal field of rate dB/dt: psi solves
 /// laplacian psi = G dB/dt, psi = 0 on the outline; with Prandtl's Phi (laplacian Phi = -2, J = 2 ∫ Phi dA)
 /// psi = -G (dB/dt) Phi / 2, so P = ∫ |grad psi|^2 / G dA = G (dB/dt)^2 J / 4; for a sine of peak Bp the
@@ -18,7 +18,7 @@ internal static class TorsionReference
 
     /// <summary>
     /// Rectangle a (short) x b (long): J = k1 a^3 b, k1 = (1/3)[1 - (192/pi^5)(a/b) sum_{n odd} tanh(n pi b/(2a))/n^5]
-    /// (Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10, rectangular bars; REFERENCES §3 series).
+    /// (Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10, rectangular bars, series).
     /// </summary>
     public static double RectangleK1(double bOverA)
     {

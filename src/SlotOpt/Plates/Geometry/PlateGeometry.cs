@@ -36,15 +36,7 @@ public sealed class PlateGeometry
     public Func<Vec2, double>? ConductivityFactorAt { get; set; }
 
     public PlateGeometry AddCutout(Polygon hole) { _cutouts.Add(hole); return this; }
-    public PlateGeometry AddSlot(Slot slot) { _slots.Add(slot); return this; }
     public PlateGeometry AddCut(CutLine cut) { _cuts.Add(cut); return this; }
-    public PlateGeometry AddGroove(Groove groove)
-    {
-        if (!(groove.RemainingThicknessFraction > 0 && groove.RemainingThicknessFraction < 1))
-            throw new InputException($"a groove's remaining thickness fraction must lie between 0 and 1 (got {groove.RemainingThicknessFraction})");
-        _grooves.Add(groove);
-        return this;
-    }
     public PlateGeometry AddZone(ConductivityZone zone)
     {
         if (!(zone.Factor >= 0) || !double.IsFinite(zone.Factor)) throw new InputException($"a conductivity factor must be a finite number >= 0 (got {zone.Factor})");

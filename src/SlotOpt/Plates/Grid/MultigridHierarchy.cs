@@ -1,3 +1,5 @@
+using MathNet.Numerics.LinearAlgebra;
+using MathNet.Numerics.LinearAlgebra.Factorization;
 using SlotOpt.Numerics;
 
 namespace SlotOpt.Plates.Grid;
@@ -11,7 +13,7 @@ namespace SlotOpt.Plates.Grid;
 /// coarsening and the V-cycle stays symmetric positive definite (W. L. Briggs, V. E. Henson,
 /// S. F. McCormick, "A Multigrid Tutorial", 2nd ed., SIAM, 2000, ch. 8 on variational coarsening).
 /// Smoothing: one forward Gauss–Seidel sweep before and one backward after the coarse correction
-/// (symmetric, as CG needs); the coarsest level is solved by dense Cholesky.
+/// (symmetric, as CG needs); the coarsest level is solved by MathNet.Numerics' dense Cholesky factorisation.
 /// Built once per geometry and reused for every source and source position.
 /// </summary>
 public sealed class MultigridHierarchy : IPreconditioner
@@ -19,18 +21,21 @@ public sealed class MultigridHierarchy : IPreconditioner
     /// <summary>Stop coarsening at this many unknowns (dense Cholesky below).</summary>
     public const int CoarsestUnknowns = 400;
     private readonly List<MultigridLevel> _levels;
-    private readonly DenseCholesky _coarsest;
+    private readonly Cholesky<double> _coarsest;
+    private readonly Vector<double> _coarseB;
+    private readonly Vector<double> _coarseX;
 
-    private MultigridHierarchy(List<MultigridLevel> levels, DenseCholesky coarsest)
+    private MultigridHierarchy(List<MultigridLevel> levels, Cholesky<double> coarsest)
     {
         _levels = levels;
         _coarsest = coarsest;
+        _coarseB = Vector<double>.Build.Dense(levels[^1].Unknowns);
+        _coarseX = Vector<double>.Build.Dense(levels[^1].Unknowns);
     }
 
     public int LevelCount => _levels.Count;
     /// <summary>Bytes held beyond the fine operator itself (coarse operators, transfers, vectors, coarse factor).</summary>
-    public long Bytes => _levels.Sum(l => l.Bytes) - _levels[0].A.Bytes + _coarsest.Bytes + _levels.Skip(1).Sum(l => 4L * l.NodeUnknown.Length);
-    public IReadOnlyList<int> UnknownsPerLevel => _levels.Select(l => l.Unknowns).ToList();
+    public long Bytes => _levels.Sum(l => l.Bytes) - _levels[0].A.Bytes + 8L * _coarsest.Factor.RowCount * _coarsest.Factor.ColumnCount + _levels.Skip(1).Sum(l => 4L * l.NodeUnknown.Length);
 
     public static MultigridHierarchy Build(SheetOperator op)
     {
@@ -60,7 +65,24 @@ public sealed class MultigridHierarchy : IPreconditioner
         }
         if (current.Unknowns > 6000)
             throw new NumericalFailureException($"multigrid coarsening stalled at {current.Unknowns} unknowns (too many separate holes or cuts for the coarse solver)");
-        return new MultigridHierarchy(levels, new DenseCholesky(current.A));
+        return new MultigridHierarchy(levels, CoarseFactor(current.A));
+    }
+
+    /// <summary>Cholesky factor A = L L^T of the coarsest operator, dense (at most a few thousand unknowns).</summary>
+    private static Cholesky<double> CoarseFactor(CsrMatrix a)
+    {
+        var dense = Matrix<double>.Build.Dense(a.Rows, a.Rows);
+        for (int i = 0; i < a.Rows; i++)
+            for (int k = a.RowStart[i]; k < a.RowStart[i + 1]; k++)
+                dense[i, a.ColumnIndex[k]] = a.Value[k];
+        try
+        {
+            return dense.Cholesky();
+        }
+        catch (ArgumentException)
+        {
+            throw new NumericalFailureException($"coarse sheet operator is not positive definite ({a.Rows} unknowns)");
+        }
     }
 
     public void Apply(ReadOnlySpan<double> r, Span<double> z)
@@ -76,7 +98,9 @@ public sealed class MultigridHierarchy : IPreconditioner
         var level = _levels[k];
         if (k == _levels.Count - 1)
         {
-            _coarsest.Solve(level.B, level.X);
+            level.B.AsSpan().CopyTo(_coarseB.AsArray());
+            _coarsest.Solve(_coarseB, _coarseX);
+            _coarseX.AsArray().AsSpan().CopyTo(level.X);
             return;
         }
         Array.Clear(level.X);

@@ -1,4 +1,5 @@
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 
 namespace SlotOpt.Plates.OwnField;
 

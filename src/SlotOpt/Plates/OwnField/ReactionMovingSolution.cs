@@ -7,7 +7,7 @@ namespace SlotOpt.Plates.OwnField;
 /// eddy currents' own field, for one conductor, at each travel offset. Per offset: LossW = G u^T A u,
 /// DragN = P / v (steady state: the mechanical power all goes into heat), LiftN = -integral psi dBz/dz dA
 /// on the source (positive = repulsion, away from the sheet), and the resistance-limited drag of the
-/// same source (<see cref="PlateSolver.SolveMoving"/>'s model) for the ratio. U keeps u = psi / G of the last offset.
+/// same source (<see cref="ResistanceLimitedSolver.SolveMoving"/>'s model) for the ratio. U keeps u = psi / G of the last offset.
 /// </summary>
 public sealed record ReactionMovingSolution(
     SheetModel Model, double SheetConductanceS, double SpeedMPerS, double[] OffsetsXM,

@@ -1,5 +1,6 @@
 using System.Numerics;
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.Sources;
 
@@ -74,6 +75,7 @@ public static class ReactionSolver
         var op = CoupledOperator.Moving(model, reaction, v, g);
         int n = model.Unknowns;
         var node = new double[l.NodeCount];
+        var liftNode = new double[l.NodeCount];
         var gradient = new double[n];
         var low = new double[n];
         var b = new Complex[n];
@@ -104,7 +106,7 @@ public static class ReactionSolver
             worst = Math.Max(worst, report.RelativeResidual);
             loss[k] = g * HermitianForm(model, u);                 // P = psi^T A psi / G
             drag[k] = loss[k] / v;                                  // F_D v = P in the steady state
-            source.IntegrateNormalGradient(reaction, offsetsXM[k], gradient);
+            NormalGradient(reaction, source.IntegrateLiftField(l, offsetsXM[k], liftNode), liftNode, gradient);
             double f = 0;
             for (int i = 0; i < n; i++) f += u[i].Real * gradient[i];
             lift[k] = -g * f;                                       // lift on the source = -integral psi dBz/dz dA
@@ -121,6 +123,26 @@ public static class ReactionSolver
     public static ReactionMovingSolution SolveMoving(ReactionOperator reaction, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM,
         ConvergenceCriterion? criterion = null) =>
         TrySolveMoving(reaction, source, conductor, offsetsXM, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+
+    /// <summary>
+    /// Integral of dBz/dz at the sheet over each unknown's basis (Wb/m) from what the source wrote per node:
+    /// node integrals are summed per unknown; a plane field b (dual-cell means of Bz, source above the sheet)
+    /// gives dBz/dz = |k| Bz, whose integral over basis m is (2/mu0)(R b)_m, R's kernel being (mu0/2) &lt;phi_m, |k| phi_n&gt;.
+    /// </summary>
+    private static void NormalGradient(ReactionOperator reaction, LiftField kind, double[] node, double[] perUnknown)
+    {
+        if (kind == LiftField.PlaneField)
+        {
+            reaction.ApplyRToNodeField(node, perUnknown);
+            double f = 2 / Validity.Mu0;
+            for (int u = 0; u < perUnknown.Length; u++) perUnknown[u] *= f;
+            return;
+        }
+        var map = reaction.Model.Regions.NodeUnknown;
+        Array.Clear(perUnknown);
+        for (int i = 0; i < map.Length; i++)
+            if (map[i] >= 0) perUnknown[map[i]] += node[i];
+    }
 
     /// <summary>Re(u^H A u) for the real SPD resistance operator A.</summary>
     private static double HermitianForm(SheetModel model, Complex[] u)

@@ -1,3 +1,5 @@
+using SlotOpt.Plates.Conductors;
+
 namespace SlotOpt.Plates.ResistanceLimited;
 
 /// <summary>

@@ -1,3 +1,4 @@
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.Sources;
 

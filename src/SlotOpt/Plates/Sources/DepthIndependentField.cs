@@ -2,7 +2,10 @@ using SlotOpt.Plates.Grid;
 
 namespace SlotOpt.Plates.Sources;
 
-/// <summary>A plane field used unchanged at every depth: exact for a uniform field (<see cref="UniformAcField"/>), an approximation otherwise.</summary>
+/// <summary>
+/// A field known only in the sheet's plane (e.g. a <see cref="FieldMap"/>) used unchanged at every depth,
+/// so the thick-plate solver can take it: it leaves out the field's decay with depth.
+/// </summary>
 public sealed record DepthIndependentField(IAcFieldSource Field) : IDepthAcFieldSource
 {
     public double FrequencyHz => Field.FrequencyHz;

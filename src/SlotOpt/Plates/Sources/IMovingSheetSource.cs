@@ -1,20 +1,31 @@
 using SlotOpt.Plates.Grid;
-using SlotOpt.Plates.OwnField;
 
 namespace SlotOpt.Plates.Sources;
 
 /// <summary>
-/// A field source moving along +x at SpeedMPerS over the plate, for the coupled (reaction-field)
-/// solver. IntegrateRate writes, per lattice node, the dual-cell integral of dBz/dt = -v dBz/dx
-/// (volts) with the source displaced by offsetXM (the same quantity <see cref="MovingPoles.Integrate"/>
-/// gives). IntegrateNormalGradient writes, per stream-function unknown, the integral of dBz/dz of the
-/// source at the sheet over the unknown's basis (T m = Wb/m), from which the lift follows:
-/// the force on the sheet is F = integral psi grad(Bz) dA (a dipole layer psi z in the field), so the lift on
-/// the source is -integral psi dBz/dz dA.
+/// A field source moving along +x at SpeedMPerS over a stationary plate, for every solver.
+/// IntegrateRate writes, per lattice node, the dual-cell integral of dBz/dt = -v dBz/dx (volts) with
+/// the source displaced by offsetXM (a field pattern translating at v: Faraday's law in the plate's frame). IntegrateLiftField writes,
+/// per lattice node, what the source knows of its normal field at the sheet, for the lift
+/// (the force on the sheet is F = integral psi grad(Bz) dA, a dipole layer psi z in the field, so the
+/// lift on the source is -integral psi dBz/dz dA), and says which of the two it wrote
+/// (<see cref="LiftField"/>).
 /// </summary>
 public interface IMovingSheetSource
 {
     double SpeedMPerS { get; }
     void IntegrateRate(CellLattice lattice, double offsetXM, double[] node);
-    void IntegrateNormalGradient(ReactionOperator reaction, double offsetXM, double[] perUnknown);
+    LiftField IntegrateLiftField(CellLattice lattice, double offsetXM, double[] node);
+}
+
+/// <summary>What <see cref="IMovingSheetSource.IntegrateLiftField"/> wrote per lattice node.</summary>
+public enum LiftField
+{
+    /// <summary>The dual-cell integral of dBz/dz at the sheet (T m^2 per metre = Wb/m).</summary>
+    NormalGradient,
+    /// <summary>
+    /// The dual-cell mean of Bz in the sheet's plane (T), for a source whose field is given only there and
+    /// lies above the sheet: the coupled solver derives dBz/dz = |k| Bz from it (Bz(k, z) = Bz(k, 0) e^{|k| z} below the sources).
+    /// </summary>
+    PlaneField,
 }

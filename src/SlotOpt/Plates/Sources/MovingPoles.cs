@@ -1,3 +1,4 @@
+using SlotOpt.Numerics;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 
@@ -5,13 +6,16 @@ namespace SlotOpt.Plates.Sources;
 
 /// <summary>
 /// Poles moving along +x at SpeedMPerS over a stationary plate. In the plate's frame, with the
-/// poles displaced by X, dBz/dt = -v dB/dx (DESIGN.md, "Thin conducting plate"). A uniform pole
+/// poles displaced by X, dBz/dt = -v dB/dx (a field pattern translating at v: Faraday's law in the plate's frame). A uniform pole
 /// makes dB/dx a line source on the face's edge, integrated exactly over each dual cell:
 /// the integral of -v dB/dx over [x0, x1] x [y0, y1] is -v B (c(x1) - c(x0)), with c(x) the length of
-/// the line x, y0..y1 inside the face (no smoothing).
+/// the line x, y0..y1 inside the face (no smoothing). For the lift the poles give their field in the
+/// sheet's plane (uniform Bz inside each face, zero outside): <see cref="LiftField.PlaneField"/>.
 /// </summary>
-public sealed class MovingPoles
+public sealed class MovingPoles : IMovingSheetSource
 {
+    private const int AreaPoints = 8;
+
     public MovingPoles(IEnumerable<Pole> poles, double speedMPerS)
     {
         Poles = poles.ToList();
@@ -33,11 +37,14 @@ public sealed class MovingPoles
             new Pole(face, new Vec2(firstCentre.X + k * polePitchM, firstCentre.Y), k % 2 == 0 ? fluxDensityT : -fluxDensityT)), speedMPerS);
     }
 
+    /// <summary>The smallest pole's size along the travel: the length scale of the moving skin depth.</summary>
+    public double PoleSizeXM => 2 * Poles.Min(p => p.Face.HalfWidthXM);
+
     /// <summary>Extent in x of the row at offset zero.</summary>
     public (double MinXM, double MaxXM) ExtentX => (Poles.Min(p => p.Centre.X - p.Face.HalfWidthXM), Poles.Max(p => p.Centre.X + p.Face.HalfWidthXM));
 
     /// <summary>Writes the dual-cell integrals of dBz/dt (volts) with the poles displaced by offsetXM.</summary>
-    public void Integrate(CellLattice lattice, double offsetXM, double[] node)
+    public void IntegrateRate(CellLattice lattice, double offsetXM, double[] node)
     {
         Array.Clear(node);
         double v = SpeedMPerS;
@@ -67,5 +74,29 @@ public sealed class MovingPoles
                 }
             }
         }
+    }
+
+    /// <summary>Writes the dual-cell means of Bz (tesla) with the poles displaced by offsetXM: B times the area fraction of the dual cell inside each face.</summary>
+    public LiftField IntegrateLiftField(CellLattice lattice, double offsetXM, double[] node)
+    {
+        Array.Clear(node);
+        var l = lattice;
+        var (t, w) = Quadrature.GaussLegendre01(AreaPoints);
+        foreach (var pole in Poles)
+        {
+            double cx = pole.Centre.X + offsetXM, cy = pole.Centre.Y;
+            double hw = pole.Face.HalfWidthXM, hh = pole.Face.HalfHeightYM;
+            int i0 = Math.Max(0, (int)Math.Floor((cx - hw - l.X0) / l.Hx - 1)), i1 = Math.Min(l.Nx, (int)Math.Ceiling((cx + hw - l.X0) / l.Hx + 1));
+            int j0 = Math.Max(0, (int)Math.Floor((cy - hh - l.Y0) / l.Hy - 1)), j1 = Math.Min(l.Ny, (int)Math.Ceiling((cy + hh - l.Y0) / l.Hy + 1));
+            for (int j = j0; j <= j1; j++)
+                for (int i = i0; i <= i1; i++)
+                {
+                    // mean chord over the dual cell's x-range (Gauss-Legendre in x) = (area inside the face) / hx
+                    double x0 = l.NodeX(i) - l.Hx / 2 - cx, y0 = l.NodeY(j) - l.Hy / 2 - cy, chord = 0;
+                    for (int q = 0; q < AreaPoints; q++) chord += w[q] * pole.Face.ChordLength(x0 + t[q] * l.Hx, y0, y0 + l.Hy);
+                    node[j * l.NodesX + i] += pole.FluxDensityT * chord / l.Hy;   // B x (area fraction of the dual cell)
+                }
+        }
+        return LiftField.PlaneField;
     }
 }

@@ -1,5 +1,6 @@
 using System.Numerics;
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.Sources;

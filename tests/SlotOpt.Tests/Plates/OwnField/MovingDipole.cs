@@ -1,4 +1,5 @@
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -13,7 +14,7 @@ namespace SlotOpt.Tests.Plates.OwnField;
 /// sheet (z = 0, source at z = h, dz = -h, r^2 = rho^2 + h^2):
 /// Bz = (mu0 m / 4 pi)(3 dz^2 - r^2) / r^5 and dBz/dz = (mu0 m / 4 pi)(9 dz / r^5 - 15 dz^3 / r^7)
 /// (the point-dipole field, e.g. J. D. Jackson, "Classical Electrodynamics", 3rd ed., eq. 5.56).
-/// This is the source of the Reitz (1970) thin-sheet results in REFERENCES §7.
+/// This is the source of the Reitz (1970) thin-sheet results (J. R. Reitz, J. Appl. Phys. 41:2067, 1970).
 /// </summary>
 public sealed class MovingDipole : IMovingSheetSource
 {
@@ -35,7 +36,7 @@ public sealed class MovingDipole : IMovingSheetSource
     public double MomentAm2 { get; }
     public double SpeedMPerS { get; }
 
-    /// <summary>Perfect-image force F0 = 3 mu0 m^2 / (32 pi h^4) (REFERENCES §7): the lift as v -> infinity over a wide thin sheet.</summary>
+    /// <summary>Perfect-image force F0 = 3 mu0 m^2 / (32 pi h^4) (J. R. Reitz, J. Appl. Phys. 41:2067, 1970): the lift as v -> infinity over a wide thin sheet.</summary>
     public double ImageForceN => 3 * Validity.Mu0 * MomentAm2 * MomentAm2 / (32 * Math.PI * Math.Pow(HeightM, 4));
 
     public double FieldZ(double dx, double dy)
@@ -70,24 +71,20 @@ public sealed class MovingDipole : IMovingSheetSource
         }
     }
 
-    /// <summary>Dual-cell integral of dBz/dz, 4 x 4 Gauss-Legendre points, summed over each unknown's nodes.</summary>
-    public void IntegrateNormalGradient(ReactionOperator reaction, double offsetXM, double[] perUnknown)
+    /// <summary>Dual-cell integral of dBz/dz per node, 4 x 4 Gauss-Legendre points: the source knows its gradient.</summary>
+    public LiftField IntegrateLiftField(CellLattice l, double offsetXM, double[] node)
     {
-        var l = reaction.Model.Lattice;
-        var map = reaction.Model.Regions.NodeUnknown;
         var (t, w) = Quadrature.GaussLegendre01(4);
         double cx = Position.X + offsetXM, cy = Position.Y;
-        Array.Clear(perUnknown);
         for (int j = 0; j < l.NodesY; j++)
             for (int i = 0; i < l.NodesX; i++)
             {
-                int u = map[j * l.NodesX + i];
-                if (u < 0) continue;
                 double x0 = l.NodeX(i) - l.Hx / 2 - cx, y0 = l.NodeY(j) - l.Hy / 2 - cy, s = 0;
                 for (int a = 0; a < 4; a++)
                     for (int b = 0; b < 4; b++)
                         s += w[a] * w[b] * FieldGradientZ(x0 + t[a] * l.Hx, y0 + t[b] * l.Hy);
-                perUnknown[u] += s * l.CellAreaM2;
+                node[j * l.NodesX + i] = s * l.CellAreaM2;
             }
+        return LiftField.NormalGradient;
     }
 }

@@ -1,3 +1,4 @@
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -19,7 +20,7 @@ public class ReactionAcDiscTests(ITestOutputHelper output)
     private static readonly double Tau = Validity.Mu0 * SheetConductanceS * RadiusM / 2;   // beta = omega tau
 
     // Reference check of the reference: at low frequency the ring model must give the resistance-limited
-    // disc loss P = G omega^2 B0^2 pi a^4 / 16 (REFERENCES §3: circle, J_t = pi r^4/2, P' = sigma (dB/dt)^2 J_t/4,
+    // disc loss P = G omega^2 B0^2 pi a^4 / 16 (Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10: circle, J_t = pi r^4/2, P' = sigma (dB/dt)^2 J_t/4,
     // time-averaged, per unit thickness) — tolerance 1e-4 (measured 1.3e-5 with 400 rings); and 400 against
     // 800 rings differ by < 1e-4 in every ratio used below (measured 1e-5), so the reference is converged.
     [Fact]

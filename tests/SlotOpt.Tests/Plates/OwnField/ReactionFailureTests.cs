@@ -1,4 +1,5 @@
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -35,7 +36,7 @@ public class ReactionFailureTests
     {
         var model = SheetModel.Build(PlateGeometry.Rectangle(0.1, 0.1), new GridOptions { CellSizeM = 0.005 });
         var poles = new MovingPoles(new[] { new Pole(PoleFace.Circle(0.01), new Vec2(0.5, 0.05), 0.5) }, 10);
-        var s = ReactionSolver.SolveMoving(ReactionOperator.Build(model), new MovingPoleField(poles), new ConductingSheet(1e7, 1e-3), new[] { 0.0 });
+        var s = ReactionSolver.SolveMoving(ReactionOperator.Build(model), poles, new ConductingSheet(1e7, 1e-3), new[] { 0.0 });
         Assert.Equal(0.0, s.DragN[0]);
         Assert.Equal(0.0, s.LiftN[0]);
         Assert.Contains(s.Notes, n => n.Contains("does not reach"));

@@ -1,3 +1,4 @@
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -8,7 +9,7 @@ namespace SlotOpt.Tests.Plates.OwnField;
 
 /// <summary>
 /// A normal magnetic dipole moving at height h over a wide thin sheet, steady state, against the
-/// thin-sheet closed forms of Reitz (J. Appl. Phys. 41:2067, 1970) as re-derived in REFERENCES §7:
+/// thin-sheet closed forms of Reitz (J. Appl. Phys. 41:2067, 1970), re-derived from the thin-sheet reflection coefficient R = i s / (1 + i s), s = (v/w) cos phi:
 /// w = 2/(mu0 sigma t), F_L = F0 [1 - w/sqrt(v^2 + w^2)], F_D = (w/v) F_L, F0 = 3 mu0 m^2/(32 pi h^4),
 /// drag peak at v = 1.27202 w with F_D,max = 0.30028 F0.
 /// The plate reaches 20 h behind the source (the wake), 8 h ahead and 8 h to each side.
@@ -35,7 +36,7 @@ public class ReactionMovingDipoleTests(ITestOutputHelper output)
         return (s.LiftN[0] / f0, s.DragN[0] / f0, s.ResistanceLimitedDragN[0] / f0);
     }
 
-    // Lift and drag at v/w = 0.5, 1, 2, 5 (REFERENCES §7 ratio table: 3-D lift 0.10557, 0.29289, 0.55279,
+    // Lift and drag at v/w = 0.5, 1, 2, 5 (Reitz 1970 closed forms F_L = F0 (1 - w / sqrt(v^2 + w^2)), F_D = (w/v) F_L: 3-D lift 0.10557, 0.29289, 0.55279,
     // 0.80388; drag 0.21115, 0.29289, 0.27639, 0.16078). The grid error is second order (measured: the
     // drag error at v/w = 5 falls from 7.2 % at 5 cells per h to 2.8 % at 8, ratio 2.56 = (8/5)^2), so the
     // values are Richardson-extrapolated from 4 and 8 cells per height, (4 F_8 - F_4)/3.
@@ -93,7 +94,7 @@ public class ReactionMovingDipoleTests(ITestOutputHelper output)
     }
 
     // Low-speed limit: the coupled drag tends to the resistance-limited drag of the same source and grid.
-    // Reitz's form gives F_D / F_D,low = (2/e^2)(1 - 1/sqrt(1 + e^2)) = 1 - 3 e^2/4 + ..., e = v/w (REFERENCES §7,
+    // Reitz's form gives F_D / F_D,low = (2/e^2)(1 - 1/sqrt(1 + e^2)) = 1 - 3 e^2/4 + ..., e = v/w (Reitz 1970,
     // expanded here). Asserted: below 1 % difference at e = 0.01 (theory 7.5e-5), and at e = 0.1 the
     // shortfall 1 - F/F_low within 20 % of the theory's 0.0074 (a second-order effect: the grid and the
     // 1e-8 solver residual are far below it).

@@ -1,3 +1,4 @@
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -9,12 +10,12 @@ namespace SlotOpt.Tests.Plates.OwnField;
 
 public class ReactionSlottedPlateTests(ITestOutputHelper output)
 {
-    // REFERENCES §3 (end): cutting a strip lengthwise into n strips multiplies the resistance-limited loss by
+    // Timoshenko & Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10, rectangle series: cutting a strip lengthwise into n strips multiplies the resistance-limited loss by
     // about 1/n^2, "valid only when the plate thickness and the strip width are both << delta"; inductance-limited
     // plates gain much less from slotting. Here a 200 mm x 50 mm plate cut into 4 strips by 3 lengthwise cuts, in a
     // uniform AC field, at beta = omega mu0 G w / 2 = 0.05 (w = 50 mm, resistance-limited) and 20 (screened).
     // At beta = 0.05 the slotted/solid ratio is the torsion-series value F_w(1/16) / (n^2 F_w(1/4)) = 0.07127 with
-    // F_w(a/b) = 1 - 0.630249 a/b (REFERENCES §3, J_t = F_w a^3 b / 3); tolerance 3 % (the cut lines are merged node
+    // F_w(a/b) = 1 - 0.630249 a/b (the asymptote of the T&G rectangle series, J_t = F_w a^3 b / 3); tolerance 3 % (the cut lines are merged node
     // chains, measured -1.5 %; the reaction field at beta = 0.05 changes the loss by 1e-4). At beta = 20 the ratio is
     // more than 3 times larger (slotting helps much less; measured 0.70), the solid plate's loss is screened below
     // 1/3 of its resistance-limited value, and each strip is screened less than the solid plate.

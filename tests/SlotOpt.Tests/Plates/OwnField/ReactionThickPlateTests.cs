@@ -1,5 +1,6 @@
 using System.Numerics;
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -17,7 +18,7 @@ namespace SlotOpt.Tests.Plates.OwnField;
 /// at z = 0). So a = P e^{gamma z} + Q e^{-gamma z}, Q = P e^{-2 gamma t} (gamma - k)/(gamma + k),
 /// P (gamma + k) + Q (k - gamma) = 2 k alpha. The loss over the resistance-limited loss (J = -j omega sigma a with
 /// and without the plate's own field) is integral |a|^2 dz / integral |alpha e^{k z}|^2 dz. For k -> 0 this is the
-/// 1-D skin-effect diffusion of REFERENCES §2 (same equation a'' = j omega mu0 sigma a, here with one face driven).
+/// 1-D skin-effect diffusion of a lamination (Lammeraner & Stafl, Eddy Currents, 1964; Stoll, The Analysis of Eddy Currents, 1974) (same equation a'' = j omega mu0 sigma a, here with one face driven).
 /// The lattice plate spans 4 wavelengths each way (psi = 0 on its edges matches sin(k x) at x = 0 and 4 lambda);
 /// the loss is summed over the central 2 x 2 wavelengths, away from the edges.
 /// </summary>

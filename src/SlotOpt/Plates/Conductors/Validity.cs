@@ -1,14 +1,14 @@
-namespace SlotOpt.Plates;
+namespace SlotOpt.Plates.Conductors;
 
 /// <summary>
 /// How far the resistance-limited thin-plate answer can be trusted. The magnetic Reynolds number
-/// is mu0 sigma t v / 2 for a moving source (= v / w with w = 2/(mu0 sigma t), Saslow 1992, REFERENCES §7)
+/// is mu0 sigma t v / 2 for a moving source (= v / w with w = 2/(mu0 sigma t), W. M. Saslow, Am. J. Phys. 60(8):693-711, 1992)
 /// or mu0 sigma t omega L / 2 for an AC field (L the widest current loop); t/delta with
 /// delta = sqrt(2 / (omega mu0 mu_r sigma)).
 /// Thresholds: Rm &gt; 0.3 — the thin-sheet drag of a line current is F/F_low = 1/(1 + Rm^2) and of an
-/// axisymmetric source (2/Rm)(1 - 1/sqrt(1 + Rm^2)) (Reitz 1970 as re-derived in REFERENCES §7), so at
+/// axisymmetric source (2/Rm)(1 - 1/sqrt(1 + Rm^2)) (J. R. Reitz, J. Appl. Phys. 41:2067, 1970, closed forms re-derived from the thin-sheet reflection coefficient), so at
 /// Rm = 0.3 the low-speed answer overstates drag by 6–9 %. t/delta &gt; 1 — beyond it the field no
-/// longer crosses the thickness uniformly: the 1-D lamination correction F(t/delta) (REFERENCES §2)
+/// longer crosses the thickness uniformly: the 1-D lamination correction F(t/delta) = (3/x)(sinh x - sin x)/(cosh x - cos x) (Lammeraner & Stafl, Eddy Currents, 1964; Stoll, The Analysis of Eddy Currents, 1974)
 /// falls from 0.998 at 1 to 0.976 at 2 and 0.61 at 5.
 /// </summary>
 public sealed record Validity(double ReynoldsNumber, double? ThicknessToSkinDepth, IReadOnlyList<string> Warnings)

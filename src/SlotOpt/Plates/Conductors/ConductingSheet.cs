@@ -1,4 +1,4 @@
-namespace SlotOpt.Plates;
+namespace SlotOpt.Plates.Conductors;
 
 /// <summary>The plate's material and thickness: sheet conductance G = sigma t (siemens).</summary>
 public sealed record ConductingSheet

@@ -9,7 +9,7 @@ namespace SlotOpt.Plates.ResistanceLimited;
 /// returns a solution that scales to any thickness and material. Each comes as TrySolve (false
 /// with the reason on non-convergence) and Solve (throws <see cref="NumericalFailureException"/>).
 /// </summary>
-public static class PlateSolver
+public static class ResistanceLimitedSolver
 {
     /// <summary>AC source: the operator is real, so the real and imaginary parts are two real solves sharing the hierarchy.</summary>
     public static bool TrySolveAc(SheetModel model, IAcFieldSource source, ConvergenceCriterion? criterion, out UnitConductanceSolution? solution, out string failure)
@@ -31,7 +31,7 @@ public static class PlateSolver
             var (b, psi, other) = baseIsRe ? (bRe, psiRe, psiIm) : (bIm, psiIm, psiRe);
             if (!model.TrySolve(b, psi, criterion, out r1)) { failure = Describe(r1); return false; }
             for (int i = 0; i < psi.Length; i++) other[i] = ratio * psi[i];
-            r2 = new SolveReport(true, 0, r1.RelativeResidual, "scaled from the other part");
+            r2 = new SolveReport(SolveStatus.Converged, 0, r1.RelativeResidual);   // scaled from the other part
         }
         else
         {
@@ -55,7 +55,7 @@ public static class PlateSolver
     /// Moving source at each travel offset. The hierarchy is reused and each solve starts from the
     /// previous offset's solution (warm start).
     /// </summary>
-    public static bool TrySolveMoving(SheetModel model, MovingPoles source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion,
+    public static bool TrySolveMoving(SheetModel model, IMovingSheetSource source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion,
         out MovingSweepSolution? sweep, out string failure)
     {
         criterion ??= ConvergenceCriterion.Default;
@@ -72,7 +72,7 @@ public static class PlateSolver
         int offPlate = 0;
         for (int k = 0; k < offsetsXM.Count; k++)
         {
-            source.Integrate(l, offsetsXM[k], node);
+            source.IntegrateRate(l, offsetsXM[k], node);
             var b = model.RightHandSide(node);
             if (!model.TrySolve(b, psi, criterion, out var report)) { failure = $"at offset {offsetsXM[k]} m: {Describe(report)}"; return false; }
             losses[k] = model.LossPerSiemens(psi);
@@ -96,7 +96,7 @@ public static class PlateSolver
         return true;
     }
 
-    public static MovingSweepSolution SolveMoving(SheetModel model, MovingPoles source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion = null) =>
+    public static MovingSweepSolution SolveMoving(SheetModel model, IMovingSheetSource source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion = null) =>
         TrySolveMoving(model, source, offsetsXM, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
 
     /// <summary>True when one part is a scalar multiple of the other to rounding (a source of uniform phase): other = ratio * base.</summary>

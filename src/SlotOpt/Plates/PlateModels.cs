@@ -1,4 +1,5 @@
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.ResistanceLimited;
@@ -8,7 +9,7 @@ using SlotOpt.Plates.Thick;
 namespace SlotOpt.Plates;
 
 /// <summary>
-/// The one call for the optimiser: chooses the model from the validity figures
+/// The plate's models behind one call, for the run's confirmation and the `plate` command alike: chooses the model from the validity figures
 /// (<see cref="ReactionModelChoice"/>) and returns loss, drag and lift. The resistance-limited path
 /// solves at unit conductance and scales by G (cheap; cache the model per geometry); the reaction
 /// path builds (or reuses) a <see cref="ReactionOperator"/> and solves per conductor. Beyond the thin
@@ -17,9 +18,9 @@ namespace SlotOpt.Plates;
 /// (exact for a uniform field; for a non-uniform field it leaves out the field's decay with depth);
 /// a moving case still returns the thin-sheet reaction answer with a warning (no layered moving solver).
 /// </summary>
-public static class CorrectedSheetSolver
+public static class PlateModels
 {
-    public static CorrectedSolution SolveAc(SheetModel model, IAcFieldSource source, ConductingSheet conductor,
+    public static PlateSolution SolveAc(SheetModel model, IAcFieldSource source, ConductingSheet conductor,
         double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null)
     {
         CheckOperator(model, reaction);
@@ -27,24 +28,26 @@ public static class CorrectedSheetSolver
         var notes = new List<string> { choice.Reason };
         if (choice.Kind == SheetModelKind.ResistanceLimited)
         {
-            var low = PlateSolver.SolveAc(model, source, criterion);
+            var low = ResistanceLimitedSolver.SolveAc(model, source, criterion);
             notes.AddRange(low.Notes);
             double p = low.LossW(conductor.SheetConductanceS);
-            return new CorrectedSolution(choice, Array.Empty<double>(), new[] { p }, null, null, new[] { p }, notes);
+            return new PlateSolution(choice, Array.Empty<double>(), new[] { p }, null, null, new[] { p }, notes, low.Iterations, low.RelativeResidual, low);
         }
         if (choice.Kind == SheetModelKind.BeyondThinSheet)
         {
-            var thick = ThickPlateSolver.SolveAcConverged(model, new DepthIndependentField(source), conductor, accuracy, criterion);
-            notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {thick.LayerError:P2}); the source's plane field is used at every depth");
-            return new CorrectedSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes);
+            var depthSource = source as IDepthAcFieldSource ?? new DepthIndependentField(source);
+            var thick = ThickPlateSolver.SolveAcConverged(model, depthSource, conductor, accuracy, criterion);
+            notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {thick.LayerError:P2}); " +
+                (source is IDepthAcFieldSource ? "the source's field at each layer's depth" : "the source's plane field is used at every depth"));
+            return new PlateSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes, thick.Iterations, thick.RelativeResidual, null);
         }
         var s = ReactionSolver.SolveAc(reaction ?? ReactionOperator.Build(model), source, conductor, criterion);
         notes.AddRange(s.Notes);
-        return new CorrectedSolution(choice, Array.Empty<double>(), new[] { s.LossW }, null, null, new[] { s.ResistanceLimitedLossW }, notes);
+        return new PlateSolution(choice, Array.Empty<double>(), new[] { s.LossW }, null, null, new[] { s.ResistanceLimitedLossW }, notes, s.Iterations, s.RelativeResidual, null);
     }
 
     /// <param name="sourceLengthM">the source's length scale for the moving skin depth: its height above the sheet, or the pole size</param>
-    public static CorrectedSolution SolveMoving(SheetModel model, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM, double sourceLengthM,
+    public static PlateSolution SolveMoving(SheetModel model, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM, double sourceLengthM,
         double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null)
     {
         CheckOperator(model, reaction);
@@ -53,24 +56,17 @@ public static class CorrectedSheetSolver
         double g = conductor.SheetConductanceS, v = source.SpeedMPerS;
         if (choice.Kind == SheetModelKind.ResistanceLimited)
         {
-            criterion ??= ConvergenceCriterion.Default;
+            var sweep = ResistanceLimitedSolver.SolveMoving(model, source, offsetsXM, criterion);
+            notes.AddRange(sweep.Notes);
             double w = 2 / (Validity.Mu0 * g);                                    // receding-image speed
-            var node = new double[model.Lattice.NodeCount];
-            var psi = new double[model.Unknowns];
-            var loss = new double[offsetsXM.Count];
-            for (int k = 0; k < offsetsXM.Count; k++)
-            {
-                source.IntegrateRate(model.Lattice, offsetsXM[k], node);
-                model.Solve(model.RightHandSide(node), psi, criterion);
-                loss[k] = g * model.LossPerSiemens(psi);                           // P = G P_unit (resistance-limited scaling)
-            }
+            var loss = sweep.LossPerSiemensW.Select(p => g * p).ToArray();         // P = G P_unit (resistance-limited scaling)
             var drag = loss.Select(p => p / v).ToArray();                          // F = P / v
-            return new CorrectedSolution(choice, offsetsXM.ToArray(), loss, drag, drag.Select(d => d * v / w).ToArray(), loss, notes);
+            return new PlateSolution(choice, offsetsXM.ToArray(), loss, drag, drag.Select(d => d * v / w).ToArray(), loss, notes, sweep.IterationsPerOffset.Sum(), sweep.Peak.RelativeResidual, sweep.Peak);
         }
         var s = ReactionSolver.SolveMoving(reaction ?? ReactionOperator.Build(model), source, conductor, offsetsXM, criterion);
         notes.AddRange(s.Notes);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
-        return new CorrectedSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes);
+        return new PlateSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes, s.Iterations.Sum(), s.MaxRelativeResidual, null);
     }
 
     private static void CheckOperator(SheetModel model, ReactionOperator? reaction)

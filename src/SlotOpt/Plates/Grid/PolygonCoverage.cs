@@ -1,6 +1,6 @@
-using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.Geometry;
 
-namespace SlotOpt.Plates.Geometry;
+namespace SlotOpt.Plates.Grid;
 
 /// <summary>
 /// Exact area of a polygon inside each cell of a uniform grid. Per row of cells the polygon is

@@ -1,0 +1,21 @@
+using SlotOpt.Plates.Conductors;
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.Sources;
+
+namespace SlotOpt.Runs;
+
+/// <summary>
+/// The case one plate file describes (read by the input layer's PlateFileReader), validated and in SI:
+/// where it came from, geometry, grid choice, material and thickness, and either an AC source or moving
+/// poles with the travel offsets to evaluate. <see cref="PlateFileEvaluation"/> solves it.
+/// </summary>
+public sealed record PlateCase(
+    string Path,
+    PlateGeometry Geometry,
+    GridOptions Grid,
+    ConductingSheet Sheet,
+    IAcFieldSource? AcSource,
+    MovingPoles? MovingSource,
+    IReadOnlyList<double> OffsetsXM,
+    string AveragedOver);
