@@ -6,7 +6,6 @@ using System.Text.Json;
 using System.Text.Json.Nodes;
 using SlotOpt.Input;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Runs;
 

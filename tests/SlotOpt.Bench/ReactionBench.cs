@@ -1,7 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.OwnField;

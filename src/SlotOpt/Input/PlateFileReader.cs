@@ -1,7 +1,6 @@
 using SlotOpt.Design;
 using SlotOpt.Input.Toml;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Runs;

@@ -2,7 +2,6 @@ using System.Globalization;
 using ScottPlot;
 using SlotOpt.Design;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;

@@ -1,7 +1,6 @@
 using System.Globalization;
 using SlotOpt.Design;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 

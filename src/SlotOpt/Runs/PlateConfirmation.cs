@@ -1,7 +1,7 @@
 using SlotOpt.Design;
 using SlotOpt.Materials;
-using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.Sources;
 

@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// The lexicographic ranking each objective stands for; candidate order breaks what ties remain.

@@ -1,6 +1,6 @@
 using System.Globalization;
 
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// Builds the <see cref="InfeasibilityDiagnosis"/> of a problem with no feasible design: names the parts

@@ -1,6 +1,6 @@
 using Google.OrTools.Sat;
 
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// One quantity of a lexicographic ranking in a CP-SAT model: a weighted sum of Booleans whose value

@@ -1,6 +1,6 @@
 using System.Diagnostics;
 
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// Exact search by visiting every design: the reference the CP-SAT search is tested against.

@@ -1,6 +1,6 @@
 using Google.OrTools.Sat;
 
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// The ranked search as a CP-SAT model: one Boolean per (part, candidate), exactly one per part; the

@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// One part in integer units, arrays indexed like its candidate list. CoilValue and Process hold an

@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// One selection run over any search: the chosen design by the objective's ranking, the trade-off

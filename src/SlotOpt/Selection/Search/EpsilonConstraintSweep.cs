@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// The trade-off front by the epsilon-constraint method (Haimes, Lasdon and Wismer, IEEE Trans. Syst.

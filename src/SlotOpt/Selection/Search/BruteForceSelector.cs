@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// Exact selection by enumerating every design: the reference for tests and for tiny problems.

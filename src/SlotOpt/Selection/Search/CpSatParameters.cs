@@ -1,6 +1,6 @@
 using System.Globalization;
 
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// The CP-SAT parameter text. A misspelt parameter name aborts the process natively (no exception to

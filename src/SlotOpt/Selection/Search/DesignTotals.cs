@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>The integer totals of one design, the values every criterion and limit is judged on.</summary>
 internal readonly record struct DesignTotals(long Cents, long Milliwatts, long OwningMicrocents, int DistinctProcesses)

@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// Finds the best design of a scaled problem under a lexicographic ranking: minimise the first

@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>Picks one candidate per part of a <see cref="SelectionProblem"/>.</summary>
 public interface ISelector

@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>A quantity a search minimises, one level of a lexicographic ranking.</summary>
 internal enum Criterion

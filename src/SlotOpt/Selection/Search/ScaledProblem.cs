@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// A validated selection problem in the exact integer units of <see cref="IntegerScale"/>: the one

@@ -1,4 +1,4 @@
-namespace SlotOpt.Selection;
+namespace SlotOpt.Selection.Search;
 
 /// <summary>
 /// The selection engine: CP-SAT, one worker, a fixed seed and a deterministic-time budget per solver
