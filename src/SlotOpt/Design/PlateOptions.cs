@@ -15,7 +15,7 @@ namespace SlotOpt.Design;
 public static class PlateOptions
 {
     /// <summary>One solved slot geometry at unit sheet conductance.</summary>
-    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, string? Failure);
+    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, RuleBreak? Failure);
 
     public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null)
     {
@@ -78,7 +78,7 @@ public static class PlateOptions
         PlateGeometry geometry;
         SlotPattern? pattern;
         try { (geometry, pattern) = PlateGeometryFactory.Build(part.Outline, slots); }
-        catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, e.Message); }
+        catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, new RuleBreak(RuleKind.PatternDoesNotFit, e.Message)); }
         var model = BuildModel(part, geometry, limits);
         var excitation = part.Excitation;
         if (excitation.Moving is { } poles)
@@ -155,13 +155,13 @@ public static class PlateOptions
         if (material.IsExtrapolatedAt(part.TemperatureK)) flags.Add($"{material.Name}: resistivity at {part.TemperatureK:0} K extrapolates the linear coefficient");
         attributes["reynolds_number"] = validity.ReynoldsNumber.ToString("0.###", ci);
 
-        string? rejection = null;
+        RuleBreak? rejection = null;
         if (slots is not null)
             rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, moving ? null : part.Excitation.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
-            rejection = string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N");
+            rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
-            rejection = string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W");
+            rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
         return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection);
     }
 

@@ -115,7 +115,7 @@ public static class ReportContent
             var c = r.Chosen[i];
             var reference = r.Parts[i].Reference;
             rows.Add(Row(c.PartName, "chosen", c, WorkshopWords.Of(c)));
-            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})")));
+            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")));
         }
         b.Add(withDrag
             ? new Table(["part", "", "design", "loss (W)", "drag (N)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true])
