@@ -186,8 +186,8 @@ public class ProblemFileTests
     }
 
     // Issue 4: on the conveyor demo a hand-slotted rail has less drag than the solid one. The physics
-    // reason: slots across the rail cut the eddy-current loops under each pole (REFERENCES §3, the
-    // n-strip series: loss falls roughly as 1/n^2 when a strip is cut into n).
+    // reason: slots across the rail cut the eddy-current loops under each pole (the Saint-Venant torsion
+    // series for rectangles, S. P. Timoshenko and J. N. Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10, applied to n strips: loss falls roughly as 1/n^2 when a strip is cut into n).
     [Fact]
     public void Hand_slotted_rail_has_less_drag_than_the_solid_rail()
     {
