@@ -80,14 +80,17 @@ public static class PlateOptions
         try { (geometry, pattern) = PlateGeometryFactory.Build(part.Outline, slots); }
         catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, new RuleBreak(RuleKind.PatternDoesNotFit, e.Message)); }
         var model = BuildModel(part, geometry, limits);
-        var excitation = part.Excitation;
-        if (excitation.Moving is { } poles)
+        switch (part.Excitation)
         {
-            var sweep = PlateSolver.SolveMoving(model, poles, TravelOffsets(part, slots));
-            return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
+            case PlateExcitation.Moving moving:
+                var sweep = PlateSolver.SolveMoving(model, moving.Poles, TravelOffsets(part, slots));
+                return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
+            case PlateExcitation.AcField field:
+                var ac = PlateSolver.SolveAc(model, field.Source);
+                return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
+            default:
+                throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         }
-        var ac = PlateSolver.SolveAc(model, excitation.Ac!);
-        return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
     }
 
     /// <summary>The solver model of one slot geometry: the part's cell size, automatic grids capped by the memory limit.</summary>
@@ -102,7 +105,8 @@ public static class PlateOptions
     /// pitch of the part's families (any window serves a long solid plate, see PlateExcitation.Offsets).
     /// </summary>
     public static IReadOnlyList<double> TravelOffsets(PlatePart part, SlotChoice? slots) =>
-        part.Excitation.Offsets(part.Outline, slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
+        (part.Excitation as PlateExcitation.Moving ?? throw new InvalidOperationException("travel offsets belong to moving sources"))
+            .Offsets(part.Outline, slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
 
     /// <summary>Evaluates one fixed design of the plate (which need not lie in the part's slot families).</summary>
     public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop) =>
@@ -144,12 +148,13 @@ public static class PlateOptions
         var sigma = material.ConductivityAt(part.TemperatureK);
         var sheet = new ConductingSheet(sigma, thicknessM, material.RelativePermeability);
         var lossW = solved.LossPerSiemensW * sheet.SheetConductanceS;
-        var moving = part.Excitation.IsMoving;
-        double? drag = moving ? lossW / part.Excitation.SpeedMPerS : null;
-        var loss = new LossBreakdown(0, 0, 0, lossW, moving ? lossW : 0);
-        var validity = moving
-            ? Validity.ForMoving(sheet, part.Excitation.SpeedMPerS)
-            : Validity.ForAc(sheet, part.Excitation.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
+        var moving = part.Excitation as PlateExcitation.Moving;
+        var acField = part.Excitation as PlateExcitation.AcField;
+        double? drag = moving is null ? null : lossW / moving.SpeedMPerS;
+        var loss = new LossBreakdown(0, 0, 0, lossW, moving is null ? 0 : lossW);
+        var validity = moving is not null
+            ? Validity.ForMoving(sheet, moving.SpeedMPerS)
+            : Validity.ForAc(sheet, acField!.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
         var flags = validity.Warnings.ToList();
         if (material.IsMagnetic) flags.Add($"{material.Name} is magnetic: the thin-plate model assumes a non-magnetic plate, so its loss here is indicative only");
         if (material.IsExtrapolatedAt(part.TemperatureK)) flags.Add($"{material.Name}: resistivity at {part.TemperatureK:0} K extrapolates the linear coefficient");
@@ -157,7 +162,7 @@ public static class PlateOptions
 
         RuleBreak? rejection = null;
         if (slots is not null)
-            rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, moving ? null : part.Excitation.FrequencyHz);
+            rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, acField?.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)

@@ -54,19 +54,20 @@ public static class PlateFileReader
         {
             var baseDirectory = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
             excitation = PlateSourceReader.Read(sourceSection, geometry.Outline, baseDirectory, geometry.Patterns.Count > 0 ? TravelAverage.SlotPitch : TravelAverage.Pass);
-            if (excitation is { Moving: not null, Average: TravelAverage.SlotPitch } && geometry.Patterns.Count == 0)
+            if (excitation is PlateExcitation.Moving { Average: TravelAverage.SlotPitch } && geometry.Patterns.Count == 0)
                 sourceSection.Error("average", "\"slot_pitch\" needs a [[slots]] pattern");
         }
         root.RejectUnknownKeys();
         errors.ThrowIfAny();
         if (geometry is null || conductor is null || excitation is null) throw new InputException($"{path}: the plate file is incomplete");
 
-        var offsets = excitation.Moving is null ? (IReadOnlyList<double>)[] : excitation.Offsets(geometry.Outline, geometry.Patterns.Count > 0 ? geometry.Patterns[0].PitchM : null);
-        var over = excitation.Moving is null ? ""
-            : excitation.Average == TravelAverage.SlotPitch
-                ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {excitation.Positions} positions)"
-                : excitation.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({excitation.Positions} positions)";
-        return new PlateFile(path, geometry, grid, conductor, excitation.Ac, excitation.Moving, offsets, over);
+        var moving = excitation as PlateExcitation.Moving;
+        var offsets = moving is null ? (IReadOnlyList<double>)[] : moving.Offsets(geometry.Outline, geometry.Patterns.Count > 0 ? geometry.Patterns[0].PitchM : null);
+        var over = moving is null ? ""
+            : moving.Average == TravelAverage.SlotPitch
+                ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {moving.Positions} positions)"
+                : moving.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({moving.Positions} positions)";
+        return new PlateFile(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Poles, offsets, over);
     }
 
     private static (PlateGeometry?, ConductingSheet?) ReadPlate(TomlSection t)

@@ -41,7 +41,7 @@ public sealed record PlateConfirmation(
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         CorrectedSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
-        if (part.Excitation.Moving is { } poles)
+        if (part.Excitation is PlateExcitation.Moving { Poles: var poles })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
             // the moving skin depth's length scale: the pole's size along the travel
@@ -50,10 +50,11 @@ public sealed record PlateConfirmation(
             solution = CorrectedSheetSolver.SolveMoving(model, new MovingPoleField(poles), conductor, offsets, poleSize, reaction: reaction);
             sweep = Sweep(reaction, poles, conductor, offsets);
         }
-        else
+        else if (part.Excitation is PlateExcitation.AcField field)
         {
-            solution = CorrectedSheetSolver.SolveAc(model, part.Excitation.Ac!, conductor);
+            solution = CorrectedSheetSolver.SolveAc(model, field.Source, conductor);
         }
+        else throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         return new PlateConfirmation(part.Name, solution.Choice.Kind, solution.Choice.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
             solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep);
     }

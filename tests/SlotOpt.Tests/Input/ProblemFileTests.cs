@@ -37,7 +37,7 @@ public class ProblemFileTests
         Assert.Contains(problems, p => p.Parts.Count >= 3 && p.Limits.Budget is not null && p.Limits.CoilGroups.Count > 0);
         Assert.Contains(problems, p => p.Parts.OfType<PlatePart>().Any(x => x.Excitation.IsMoving && x.MaxDragN is not null));
         Assert.Contains(problems, p => p.Parts.OfType<CorePart>().Any(x => !x.Flux.IsSinusoidal && x.Flux.FundamentalHz == 400));
-        Assert.Contains(problems, p => p.Parts.OfType<PlatePart>().Any(x => x.Excitation is { IsMoving: false, FrequencyHz: 50 }));
+        Assert.Contains(problems, p => p.Parts.OfType<PlatePart>().Any(x => x.Excitation is PlateExcitation.AcField { FrequencyHz: 50 }));
     }
 
     private static InputException ReadFails(string text) =>
