@@ -171,16 +171,7 @@ public static class PlateOptions
     }
 
     public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,
-        $"{PatternWord(s.Pattern)} from {s.Edge.ToString().ToLowerInvariant()}, pitch {s.PitchM * 1e3:0.###} mm, depth {s.DepthM * 1e3:0.###} mm, width {s.WidthM * 1e3:0.###} mm{(s.Pattern == SlotPatternKind.Grooves ? $", {s.RemainingThicknessFraction:0.##} of thickness left" : "")}");
-
-    public static string PatternWord(SlotPatternKind kind) => kind switch
-    {
-        SlotPatternKind.Comb => "comb",
-        SlotPatternKind.Alternating => "alternating",
-        SlotPatternKind.EnclosedSlits => "enclosed slits",
-        SlotPatternKind.Grooves => "grooves",
-        _ => kind.ToString(),
-    };
+        $"{SlotPatternCatalog.Of(s.Pattern).Words} from {SlotPatternCatalog.Word(s.Edge)}, pitch {s.PitchM * 1e3:0.###} mm, depth {s.DepthM * 1e3:0.###} mm, width {s.WidthM * 1e3:0.###} mm{(s.Pattern == SlotPatternKind.Grooves ? $", {s.RemainingThicknessFraction:0.##} of thickness left" : "")}");
 
     private static bool Belongs(SlotFamily family, SlotChoice choice) =>
         family.Pattern == choice.Pattern && family.Edge == choice.Edge && family.PitchesM.Contains(choice.PitchM)

@@ -82,7 +82,7 @@ public static class ReportContent
         };
         return F($"plate {(max.X - min.X) * 1e3:0.#} x {(max.Y - min.Y) * 1e3:0.#} mm; {source}; {p.TemperatureK - 273.15:0} °C; thicknesses ")
             + string.Join(", ", p.ThicknessesM.Select(t => F($"{t * 1e3:0.###} mm"))) + $"; materials {string.Join(", ", p.Materials)}; processes {string.Join(", ", p.Processes)}; "
-            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{PlateOptions.PatternWord(f.Pattern)} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
+            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{SlotPatternCatalog.Of(f.Pattern).Words} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
             + F($"; uncut ligament at least {p.MinLigamentM * 1e3:0.#} mm")
             + (p.MaxDragN is { } drag ? F($"; drag limit {drag:0.##} N") : "")
             + (p.MaxLossW is { } loss ? F($"; loss limit {loss:0.##} W") : "");

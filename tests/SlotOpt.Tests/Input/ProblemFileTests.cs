@@ -164,7 +164,7 @@ public class ProblemFileTests
         Assert.Contains("parts[1].source.y: puts the poles' path entirely off the plate", ReadFails(moving).Message);
     }
 
-    // Round trip: a fixed design written as [parts.current] and read back is the same choice and
+    // Round trip: a fixed design written as a [parts.current] table and read back is the same choice and
     // evaluates to the same numbers (exact: same inputs, same code path).
     [Fact]
     public void A_fixed_design_round_trips_through_the_file()
@@ -176,7 +176,15 @@ public class ProblemFileTests
 
         var text = File.ReadAllText(Path.Combine(ProblemsFolder, "conveyor-rail.toml"));
         var start = text.IndexOf("[parts.current]", StringComparison.Ordinal);
-        var rewritten = text[..start] + DesignWriter.CurrentTable(slotted);
+        const string current = """
+            [parts.current]
+            thickness = "8 mm"
+            material = "Al-6061-T6"
+            process = "laser"
+            slots = { pattern = "comb", edge = "bottom", pitch = "15 mm", depth = "55 mm", width = "2 mm" }
+
+            """;
+        var rewritten = text[..start] + current;
         var reread = ProblemReader.Read(rewritten, Path.Combine(ProblemsFolder, "conveyor-rail.toml"));
         var rereadRail = Assert.IsType<PlatePart>(reread.Parts[0]);
         Assert.Equal(slotted, rereadRail.Current);
