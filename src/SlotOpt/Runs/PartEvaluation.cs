@@ -7,8 +7,9 @@ public sealed record PartEvaluation(Part Part, IReadOnlyList<EvaluatedOption> Op
 {
     public IReadOnlyList<EvaluatedOption> Feasible => Options.Where(o => o.IsFeasible).ToList();
 
-    /// <summary>How many options each kind of broken rule removed, by the rule's short name.</summary>
+    /// <summary>How many options each kind of broken rule removed, named by the kind's short name, in name order.</summary>
     public IReadOnlyDictionary<string, int> RejectionCounts =>
-        Options.Where(o => !o.IsFeasible).GroupBy(o => o.Rejection!.ShortName).OrderBy(g => g.Key, StringComparer.Ordinal)
-            .ToDictionary(g => g.Key, g => g.Count());
+        Options.Where(o => !o.IsFeasible).GroupBy(o => o.Rejection!.Kind)
+            .Select(g => (Name: RuleBreak.ShortNameOf(g.Key), Count: g.Count())).OrderBy(c => c.Name, StringComparer.Ordinal)
+            .ToDictionary(c => c.Name, c => c.Count);
 }
