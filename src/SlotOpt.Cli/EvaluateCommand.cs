@@ -42,7 +42,7 @@ public static class EvaluateCommand
                         plate_eddy_w = r.Option.Loss.PlateEddyW,
                         drag_n = r.Option.DragN,
                         build_cost = r.Option.BuildCost,
-                        breaks_rule = r.Option.Rejection,
+                        breaks_rule = r.Option.Rejection?.Message,
                         flags = r.Option.Flags,
                     }),
                     total_loss_w = totalLoss,
@@ -59,7 +59,7 @@ public static class EvaluateCommand
             {
                 Console.WriteLine(string.Create(ci, $"  {r.Part.Name} ({(r.IsCurrent ? "current design" : "baseline")}): {r.Option.Description}"));
                 Console.WriteLine(string.Create(ci, $"      loss {r.Option.Loss.TotalW,10:0.###} W{(r.Option.DragN is { } d ? $"   drag {d:0.####} N" : "")}   build cost {r.Option.BuildCost,10:0.00} {cur}"));
-                if (r.Option.Rejection is { } broken) Console.WriteLine($"      breaks a rule: {broken}");
+                if (r.Option.Rejection is { } broken) Console.WriteLine($"      breaks a rule: {broken.Message}");
                 foreach (var flag in r.Option.Flags) Console.WriteLine($"      warning: {flag}");
             }
             Console.WriteLine(string.Create(ci, $"  total: loss {totalLoss:0.###} W, build cost {totalCost:0.00} {cur}, owning cost {owning:0.00} {cur} (at {problem.Economics.ValuePerWatt:0.###} {cur}/W)"));

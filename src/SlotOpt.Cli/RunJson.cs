@@ -37,7 +37,7 @@ public static class RunJson
                     loss_w = r.Parts[i].Reference.Loss.TotalW,
                     drag_n = r.Parts[i].Reference.DragN,
                     build_cost = r.Parts[i].Reference.BuildCost,
-                    breaks = r.Parts[i].Reference.Rejection,
+                    breaks = r.Parts[i].Reference.Rejection?.Message,
                 },
                 confirmed = r.Confirmation(o.PartName) is { } c
                     ? new { model = c.Model, reason = c.Reason, loss_w = c.LossW, drag_n = c.DragN, lift_n = c.LiftN, resistance_limited_loss_w = c.ResistanceLimitedLossW }

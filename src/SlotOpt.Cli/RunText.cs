@@ -38,7 +38,7 @@ public static class RunText
             o.WriteLine(string.Create(ci, $"    chosen:  {chosen.Description}"));
             o.WriteLine(string.Create(ci, $"             loss {chosen.Loss.TotalW:0.###} W{Drag(chosen.DragN)}, build cost {chosen.BuildCost:0.00} {cur}"));
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
-            o.WriteLine(string.Create(ci, $"             loss {reference.Loss.TotalW:0.###} W{Drag(reference.DragN)}, build cost {reference.BuildCost:0.00} {cur}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})")}"));
+            o.WriteLine(string.Create(ci, $"             loss {reference.Loss.TotalW:0.###} W{Drag(reference.DragN)}, build cost {reference.BuildCost:0.00} {cur}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}"));
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Reports.ReportContent.ConfirmationLine(confirmed)[(chosen.PartName.Length + 2)..]}");
             foreach (var flag in chosen.Flags) o.WriteLine($"    warning: {flag}");
         }

@@ -34,7 +34,7 @@ public static class CoupledSpeedPlot
         low.Color = PlotStyle.Grey;
         low.LineWidth = 1.5f;
         low.LegendText = "drag, low-speed model (grows without bound)";
-        var v0 = part.Excitation.SpeedMPerS;
+        var v0 = ((PlateExcitation.Moving)part.Excitation).SpeedMPerS;
         var run = plot.Add.VerticalLine(Math.Log10(v0), 1, PlotStyle.Black);
         run.LegendText = string.Create(CultureInfo.InvariantCulture, $"run speed {v0:0.##} m/s");
         LogAxis.Apply(plot.Axes.Bottom, sweep.Select(p => p.SpeedMPerS));

@@ -67,7 +67,7 @@ public static class CurrentDensityPlot
     private static (PlateResult Result, PlateGeometry Geometry) Map(PlatePart part, SlotChoice? slots, ConductingSheet sheet)
     {
         var solved = PlateOptions.Solve(part, slots);
-        if (solved.Peak is null || solved.Geometry is null) throw new InvalidOperationException($"{part.Name}: the geometry solved during the run no longer solves: {solved.Failure}");
+        if (solved.Peak is null || solved.Geometry is null) throw new InvalidOperationException($"{part.Name}: the geometry solved during the run no longer solves: {solved.Failure?.Message}");
         return (solved.Peak.ScaleTo(sheet), solved.Geometry);
     }
 

@@ -20,7 +20,7 @@ public static class DragSpeedPlot
     public static Figure Build(int partIndex, PartEvaluation plate, EvaluatedOption chosen, Problem problem)
     {
         var part = (PlatePart)plate.Part;
-        var v0 = part.Excitation.SpeedMPerS;
+        var v0 = ((PlateExcitation.Moving)part.Excitation).SpeedMPerS;
         var lines = new List<(EvaluatedOption Option, string Label)> { (chosen, "chosen") };
         var solid = SolidCounterpart.Of(plate, chosen);
         if (!ReferenceEquals(solid, chosen)) lines.Add((solid, "solid plate, same sheet"));
@@ -83,7 +83,7 @@ public static class DragSpeedPlot
         var choice = (PlateChoice)option.Choice;
         var material = problem.Library.GetConductor(choice.Material, part.Name);
         var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
-        var v0 = part.Excitation.SpeedMPerS;
+        var v0 = ((PlateExcitation.Moving)part.Excitation).SpeedMPerS;
         return v0 * Validity.ReynoldsLimit / Validity.ForMoving(sheet, v0).ReynoldsNumber;
     }
 }

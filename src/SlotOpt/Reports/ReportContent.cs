@@ -74,12 +74,15 @@ public static class ReportContent
     private static string PlateInputs(PlatePart p)
     {
         var (min, max) = p.Outline.Bounds;
-        var source = p.Excitation.Moving is { } poles
-            ? F($"{poles.Poles.Count} poles passing at {poles.SpeedMPerS:0.##} m/s")
-            : F($"AC field at {p.Excitation.FrequencyHz:0.#} Hz");
+        var source = p.Excitation switch
+        {
+            PlateExcitation.Moving { Poles: var poles } => F($"{poles.Poles.Count} poles passing at {poles.SpeedMPerS:0.##} m/s"),
+            PlateExcitation.AcField field => F($"AC field at {field.FrequencyHz:0.#} Hz"),
+            _ => throw new ArgumentOutOfRangeException(nameof(p), p.Excitation.GetType().Name, "unknown plate excitation"),
+        };
         return F($"plate {(max.X - min.X) * 1e3:0.#} x {(max.Y - min.Y) * 1e3:0.#} mm; {source}; {p.TemperatureK - 273.15:0} °C; thicknesses ")
             + string.Join(", ", p.ThicknessesM.Select(t => F($"{t * 1e3:0.###} mm"))) + $"; materials {string.Join(", ", p.Materials)}; processes {string.Join(", ", p.Processes)}; "
-            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{PlateOptions.PatternWord(f.Pattern)} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
+            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{SlotPatternCatalog.Of(f.Pattern).Words} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
             + F($"; uncut ligament at least {p.MinLigamentM * 1e3:0.#} mm")
             + (p.MaxDragN is { } drag ? F($"; drag limit {drag:0.##} N") : "")
             + (p.MaxLossW is { } loss ? F($"; loss limit {loss:0.##} W") : "");
@@ -115,7 +118,7 @@ public static class ReportContent
             var c = r.Chosen[i];
             var reference = r.Parts[i].Reference;
             rows.Add(Row(c.PartName, "chosen", c, WorkshopWords.Of(c)));
-            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})")));
+            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")));
         }
         b.Add(withDrag
             ? new Table(["part", "", "design", "loss (W)", "drag (N)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true])

@@ -42,17 +42,18 @@ public sealed record PlateConfirmation(
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
-        if (part.Excitation.Moving is { } poles)
+        if (part.Excitation is PlateExcitation.Moving { Poles: var poles })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
             var reaction = ReactionOperator.Build(model);
             solution = PlateModels.SolveMoving(model, poles, conductor, offsets, poles.PoleSizeXM, reaction: reaction);
             sweep = Sweep(reaction, poles, conductor, offsets);
         }
-        else
+        else if (part.Excitation is PlateExcitation.AcField field)
         {
-            solution = PlateModels.SolveAc(model, part.Excitation.Ac!, conductor);
+            solution = PlateModels.SolveAc(model, field.Source, conductor);
         }
+        else throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         return new PlateConfirmation(part.Name, solution.Choice.Kind, solution.Choice.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
             solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep);
     }
