@@ -26,7 +26,7 @@ public sealed record PlateConfirmation(
 {
     /// <summary>
     /// Speeds of the sweep, as multiples of the receding-image speed w = 2/(mu0 sigma t): a solid sheet's drag peaks
-    /// near 1.27 w (REFERENCES §7); slots push the peak higher. Beyond about 5 w the coupled solve converges slowly.
+    /// near 1.27 w (Reitz, "Forces on moving magnets due to eddy currents", J. Appl. Phys. 41, 1970, axisymmetric source); slots push the peak higher. Beyond about 5 w the coupled solve converges slowly.
     /// </summary>
     public static readonly double[] SweepOverW = [0.05, 0.1, 0.2, 0.4, 0.7, 1.0, 1.5, 2.2, 3.3, 5.0];
 
@@ -61,7 +61,7 @@ public sealed record PlateConfirmation(
     /// <summary>Drag and lift against speed with the plate's own field, over SweepOverW multiples of w.</summary>
     private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, MovingPoles poles, ConductingSheet conductor, IReadOnlyList<double> offsets)
     {
-        var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow 1992, REFERENCES §7)
+        var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow, Am. J. Phys. 60, 1992)
         var window = offsets.Take(SweepPositions).ToList();
         var points = new List<SpeedPoint>();
         foreach (var m in SweepOverW)
