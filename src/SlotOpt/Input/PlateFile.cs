@@ -8,7 +8,7 @@ namespace SlotOpt.Input;
 /// <summary>
 /// One plate described in a plate file (TOML, see <see cref="PlateFileReader"/>), validated and in SI:
 /// geometry, grid choice, material and thickness, and either an AC source or moving poles with the
-/// travel offsets to evaluate.
+/// travel offsets to evaluate; optionally the [thermal] section.
 /// </summary>
 public sealed record PlateFile(
     string Path,
@@ -18,4 +18,5 @@ public sealed record PlateFile(
     IAcFieldSource? AcSource,
     MovingPoles? MovingSource,
     IReadOnlyList<double> OffsetsXM,
-    string AveragedOver);
+    string AveragedOver,
+    PlateThermalInput? Thermal = null);

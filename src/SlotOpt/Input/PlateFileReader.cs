@@ -20,6 +20,7 @@ namespace SlotOpt.Input;
 ///              pitch, depth (length for "enclosed"), width, offset (optional), remaining_thickness (grooves, 0..1)
 /// [[cut]]      from = [x, y], to = [x, y]   (zero-width kerf)
 /// [source]     kind = "uniform_ac" | "field_map" | "moving_poles" (average defaults to "slot_pitch" with slots, else "pass")
+/// [thermal]    optional: plate temperature with the resistivity at the local temperature (see <see cref="ThermalReader"/>)
 /// </code>
 /// </summary>
 public static class PlateFileReader
@@ -57,6 +58,9 @@ public static class PlateFileReader
             if (excitation is { Moving: not null, Average: TravelAverage.SlotPitch } && geometry.Patterns.Count == 0)
                 sourceSection.Error("average", "\"slot_pitch\" needs a [[slots]] pattern");
         }
+        var thermalSection = root.OptionalTable("thermal");
+        var thermal = thermalSection is null || geometry is null ? null
+            : ThermalReader.Read(thermalSection, geometry.Bounds.Max.X - geometry.Bounds.Min.X, geometry.Bounds.Max.Y - geometry.Bounds.Min.Y);
         root.RejectUnknownKeys();
         errors.ThrowIfAny();
         if (geometry is null || conductor is null || excitation is null) throw new InputException($"{path}: the plate file is incomplete");
@@ -66,7 +70,7 @@ public static class PlateFileReader
             : excitation.Average == TravelAverage.SlotPitch
                 ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {excitation.Positions} positions)"
                 : excitation.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({excitation.Positions} positions)";
-        return new PlateFile(path, geometry, grid, conductor, excitation.Ac, excitation.Moving, offsets, over);
+        return new PlateFile(path, geometry, grid, conductor, excitation.Ac, excitation.Moving, offsets, over, thermal);
     }
 
     private static (PlateGeometry?, ConductingSheet?) ReadPlate(TomlSection t)
