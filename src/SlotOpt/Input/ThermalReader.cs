@@ -2,6 +2,7 @@ using System.Globalization;
 using SlotOpt.Input.Toml;
 using SlotOpt.Materials;
 using SlotOpt.Plates.Thermal;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Input;
 
@@ -63,7 +64,8 @@ public static class ThermalReader
             if (t.Has("temperature_coefficient")) t.Error("temperature_coefficient", "give either material or temperature_coefficient, not both");
             if (!MaterialLibrary.BuiltIn.TryGetConductor(name, out var conductor))
             {
-                t.Guard("material", () => MaterialLibrary.BuiltIn.GetConductor(name, "material"));
+                var names = MaterialLibrary.BuiltIn.Conductors.Select(x => x.Name).ToList();
+                t.Error("material", $"unknown conductor \"{name}\"{NameSuggestion.DidYouMean(name, names)}; `slotopt materials` lists them");
                 return null;
             }
             double thermal;

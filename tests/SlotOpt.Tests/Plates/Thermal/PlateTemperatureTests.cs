@@ -23,21 +23,21 @@ public class PlateTemperatureTests
     // Infinite plate: with insulated edges and a uniform loss q per unit face area, no heat flows in the
     // plane and each face sheds h (T - T_inf) (Newton's law of cooling, Incropera, DeWitt, Bergman, Lavine,
     // Fundamentals of Heat and Mass Transfer, 6th ed., 2007, eq. 1.3a), so the rise is q / (2 h) everywhere.
-    // The discrete scheme reproduces this exactly; tolerance 1e-8 relative: the linear solve stops at 1e-10.
+    // The discrete scheme reproduces this exactly; tolerance 1e-7 relative: the linear solve stops at a relative residual of 1e-9.
     [Fact]
     public void Infinite_plate_rises_by_q_over_2h()
     {
         var grid = Grid(0.3, 0.2, 0.005);
         double q = 800, h = 12;
         var t = PlateTemperatureSolver.Solve(grid, Uniform(grid, q), 16, 0.01, Fixed(h, ThermalEdge.Insulated));
-        Assert.Equal(q / (2 * h), t.MaxRiseK, q / (2 * h) * 1e-8);
-        Assert.Equal(q / (2 * h), t.MeanRiseK, q / (2 * h) * 1e-8);
-        Assert.Equal(q * 0.3 * 0.2, t.ConvectedW, q * 0.06 * 1e-8);
+        Assert.Equal(q / (2 * h), t.MaxRiseK, q / (2 * h) * 1e-7);
+        Assert.Equal(q / (2 * h), t.MeanRiseK, q / (2 * h) * 1e-7);
+        Assert.Equal(q * 0.3 * 0.2, t.ConvectedW, q * 0.06 * 1e-7);
     }
 
     // The same plate with grey-body radiation as well: the rise solves q = 2 h r + 2 eps sigma ((T_inf + r)^4 - T_inf^4)
     // (Incropera et al. 2007, eqs. 1.3a and 1.7), found here by Brent's method (MathNet.Numerics) as the reference.
-    // Tolerance 1e-6 relative: the Picard iteration on the linearised radiation stops at 1e-7 of the rise.
+    // Tolerance 1e-6 relative: the Newton iteration on the radiation stops when a step moves less than 1e-6 of the rise.
     [Fact]
     public void Infinite_plate_with_radiation_matches_the_scalar_balance()
     {
@@ -89,7 +89,7 @@ public class PlateTemperatureTests
 
     // Second order: halving the cell divides the centre error by 4 (observed order log2(e_h / e_h/2) = 2 for the
     // 5-point finite-volume scheme on a smooth solution). Tolerance +-0.1 on the order: the errors are far
-    // above the solver's 1e-10 and the end effect's 1e-6, so the ratio is the scheme's own.
+    // (2e-3 to 1e-4 of the rise) far above the solver's 1e-9 and the end effect's 1e-6, so the ratio is the scheme's own.
     [Fact]
     public void Fin_converges_at_second_order()
     {
