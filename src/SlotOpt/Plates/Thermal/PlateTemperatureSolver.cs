@@ -60,7 +60,7 @@ public static class PlateTemperatureSolver
         double residual = 0, lastChange = double.PositiveInfinity, lastLargest = 0;
         bool dependsOnRise = fluid is not null || cooling.Emissivity > 0;
         var previous = new double[unknowns];
-        while (true)
+        while (unknowns > 0)   // none when every metal node is held at ambient (a plate a cell or two wide)
         {
             iterations++;
             hConv = fluid is null ? cooling.FixedCoefficientWPerM2K!.Value : NaturalConvection.AverageCoefficient(fluid, cooling.AmbientK, meanRise, cooling.VerticalLengthM);
