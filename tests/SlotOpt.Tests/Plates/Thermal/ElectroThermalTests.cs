@@ -108,6 +108,21 @@ public class ElectroThermalTests
         Assert.Equal(LossAt(heated.LossWeightedTemperatureK), heated.LossW, heated.LossW * 1e-3);
     }
 
+    // Moving poles: the plate is heated by the mean of the offsets' loss maps, so the heat out equals the mean
+    // loss over the offsets within 0.5 % (the tolerance), and the coupling closes on the sweep's mean loss.
+    [Fact]
+    public void Moving_poles_heat_the_plate_with_their_mean_loss()
+    {
+        var poles = MovingPoles.Row(PoleFace.Rectangle(0.04, 0.06), new Vec2(0.1, 0.1), 2, 0.1, 0.3, 2);
+        var offsets = MovingSweepSolution.OffsetsOverPitch(0.05, 4);
+        var cooling = new PlateCooling(CoolingMedium.Fixed, AmbientK, 0.3, ThermalEdge.Insulated, 15);
+        var heated = PlateHeating.SolveMoving(SlottedPlate(), Cells, poles, offsets, Steel, SteelHeat, cooling);
+        var sweep = Assert.IsType<MovingSweepSolution>(heated.Sweep);
+        Assert.Equal(sweep.MeanLossW(Steel.SheetConductanceS), heated.LossW, heated.LossW * 1e-12);
+        Assert.True(heated.Temperature.MaxRiseK > 5, $"the case should heat noticeably (rise {heated.Temperature.MaxRiseK} K)");
+        Assert.Equal(heated.LossW, heated.Temperature.ConvectedW + heated.Temperature.RadiatedW, heated.LossW * 0.005);
+    }
+
     // Thermal runaway is a reported failure: a made-up material whose conductivity rises steeply with temperature
     // (resistivity falling 0.4 %/K) feeds the loss back until the resistivity law leaves its range.
     [Fact]
