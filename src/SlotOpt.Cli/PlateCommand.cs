@@ -16,7 +16,7 @@ public static class PlateCommand
 {
     public static Command Build()
     {
-        var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]]" };
+        var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]], [thermal]" };
         var json = new Option<bool>("--json") { Description = "print one JSON object instead of text" };
         var map = new Option<string?>("--map") { Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
         var command = new Command("plate", "Eddy-current loss and drag of one conducting plate in a normal field, with the model its validity figures call for.");
@@ -62,6 +62,7 @@ public static class PlateCommand
             ["warnings"] = new JsonArray(r.Validity.Warnings.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
             ["notes"] = new JsonArray(r.Notes.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
         };
+        PlateTemperatureOutput.AddJson(o, e);
         return o.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + Environment.NewLine;
     }
 
@@ -77,6 +78,7 @@ public static class PlateCommand
         s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
         s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");
+        PlateTemperatureOutput.AppendText(s, e);
         s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {e.RelativeResidual:E1}, {e.SetupSeconds + e.SolveSeconds:F2} s");
         foreach (var w in r.Validity.Warnings) s.AppendLine($"  warning: {w}");
         foreach (var n in r.Notes) s.AppendLine($"  note: {n}");

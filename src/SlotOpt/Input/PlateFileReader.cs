@@ -21,6 +21,7 @@ namespace SlotOpt.Input;
 ///              and offset (optional: the first slot's centre from the low end of the edge)
 /// [[cut]]      from = [x, y], to = [x, y]   (zero-width kerf)
 /// [source]     kind = "uniform_ac" | "field_map" | "moving_poles" (average defaults to "slot_pitch" with slots, else "pass")
+/// [thermal]    optional: plate temperature with the resistivity at the local temperature (see <see cref="ThermalReader"/>)
 /// </code>
 /// </summary>
 public static class PlateFileReader
@@ -58,6 +59,9 @@ public static class PlateFileReader
             if (excitation is PlateExcitation.Moving { Average: TravelAverage.SlotPitch } && geometry.Patterns.Count == 0)
                 sourceSection.Error("average", "\"slot_pitch\" needs a [[slots]] pattern");
         }
+        var thermalSection = root.OptionalTable("thermal");
+        var thermal = thermalSection is null || geometry is null ? null
+            : ThermalReader.Read(thermalSection, geometry.Bounds.Max.X - geometry.Bounds.Min.X, geometry.Bounds.Max.Y - geometry.Bounds.Min.Y);
         root.RejectUnknownKeys();
         errors.ThrowIfAny();
         if (geometry is null || conductor is null || excitation is null) throw new InputException($"{path}: the plate file is incomplete");
@@ -68,7 +72,7 @@ public static class PlateFileReader
             : moving.Average == TravelAverage.SlotPitch
                 ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {moving.Positions} positions)"
                 : moving.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({moving.Positions} positions)";
-        return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Poles, offsets, over);
+        return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Poles, offsets, over, thermal);
     }
 
     private static (PlateGeometry?, ConductingSheet?) ReadPlate(TomlSection t)
