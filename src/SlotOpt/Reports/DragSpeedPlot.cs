@@ -16,11 +16,11 @@ public static class DragSpeedPlot
 {
     public static string FileStemFor(int partIndex, PlatePart part) => $"drag-speed-{partIndex + 1}-{FileNames.Slug(part.Name)}";
 
-    public static Figure Build(int partIndex, PartEvaluation plate, DragSpeedLines speedLines)
+    /// <param name="reynoldsLimit">The low-speed model's limit on the magnetic Reynolds number (<see cref="RunFigures.LowSpeedReynoldsLimit"/>).</param>
+    public static Figure Build(int partIndex, PartEvaluation plate, DragSpeedLines speedLines, double reynoldsLimit)
     {
         var part = (PlatePart)plate.Part;
         var v0 = speedLines.RunSpeedMPerS;
-        var reynoldsLimit = speedLines.ReynoldsLimit;
         var lines = speedLines.Lines.Select(l => (l.Option, Label: Label(l.Role, plate.ReferenceIsCurrent))).ToList();
         var limitSpeeds = speedLines.Lines.Select(l => l.ReynoldsLimitSpeedMPerS).ToList();
         var vMax = Math.Max(2 * v0, Math.Min(1.25 * limitSpeeds.Max(), 4 * v0));

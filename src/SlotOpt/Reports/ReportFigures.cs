@@ -36,7 +36,7 @@ public sealed record ReportFigures(
                     break;
                 case PlatePart plate when chosen is not null:
                     currentDensity.Add((plate, CurrentDensityPlot.Build(i, plate, r.Figures.CurrentDensityOf(plate.Name))));
-                    if (plate.Excitation.IsMoving) dragSpeed.Add((plate, DragSpeedPlot.Build(i, evaluation, r.Figures.DragSpeedOf(plate.Name))));
+                    if (plate.Excitation.IsMoving) dragSpeed.Add((plate, DragSpeedPlot.Build(i, evaluation, r.Figures.DragSpeedOf(plate.Name), r.Figures.LowSpeedReynoldsLimit)));
                     if (r.Confirmation(plate.Name) is { SpeedSweep: not null } confirmed) dragSpeed.Add((plate, CoupledSpeedPlot.Build(i, plate, confirmed)));
                     break;
             }

@@ -9,7 +9,7 @@ namespace SlotOpt.Runs;
 /// Drag is proportional to speed, F(v) = F(v0) v / v0, while the magnetic Reynolds number mu0 sigma t v / 2 stays
 /// below <see cref="Validity.ReynoldsLimit"/>; each line carries the speed at which its sheet reaches that limit.
 /// </summary>
-public sealed record DragSpeedLines(string PartName, double RunSpeedMPerS, double ReynoldsLimit, IReadOnlyList<DragSpeedLines.Line> Lines)
+public sealed record DragSpeedLines(string PartName, double RunSpeedMPerS, IReadOnlyList<DragSpeedLines.Line> Lines)
 {
     /// <summary>One design's drag at the run's speed (in its option) and the speed where Rm reaches the limit.</summary>
     public sealed record Line(EvaluatedOption Option, DesignRole Role, double ReynoldsLimitSpeedMPerS);
@@ -21,7 +21,7 @@ public sealed record DragSpeedLines(string PartName, double RunSpeedMPerS, doubl
         var solid = SolidCounterpart.Of(plate, chosen);
         if (!ReferenceEquals(solid, chosen)) designs.Add((solid, DesignRole.SolidCounterpart));
         if (!designs.Any(d => d.Option.Id == plate.Reference.Id)) designs.Add((plate.Reference, DesignRole.Reference));
-        return new DragSpeedLines(part.Name, part.Excitation.SpeedMPerS, Validity.ReynoldsLimit,
+        return new DragSpeedLines(part.Name, part.Excitation.SpeedMPerS,
             designs.Select(d => new Line(d.Option, d.Role, ReynoldsLimitSpeed(part, d.Option, problem))).ToList());
     }
 

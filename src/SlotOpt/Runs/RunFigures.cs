@@ -6,7 +6,8 @@ namespace SlotOpt.Runs;
 /// <summary>
 /// The numbers behind the report's plots that the selection itself does not give, computed once by the run:
 /// loss against frequency for each core part, and for each chosen plate the current-density maps (and, under
-/// moving poles, drag against speed in the low-speed model). The coupled speed sweep is in the plate's confirmation.
+/// moving poles, drag against speed in the low-speed model, valid below <see cref="LowSpeedReynoldsLimit"/>). The
+/// coupled speed sweep is in the plate's confirmation.
 /// </summary>
 public sealed record RunFigures(
     IReadOnlyList<LossFrequencyCurves> LossFrequency,
