@@ -23,13 +23,13 @@ public static class PlateCommand
         command.Arguments.Add(file);
         command.Options.Add(json);
         command.Options.Add(map);
-        command.SetAction(parseResult => CommandRunner.Run(() =>
+        command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var plate = PlateFileReader.Read(parseResult.GetValue(file)!);
             var evaluation = PlateFileEvaluation.Evaluate(plate);
             var mapPath = parseResult.GetValue(map);
             if (!string.IsNullOrEmpty(mapPath)) WriteMap(evaluation.Result.Map, mapPath);
-            Console.Out.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
+            output.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
             return ExitCodes.Success;
         }));
         return command;

@@ -8,7 +8,7 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// Drag and lift of the chosen plate against speed with the plate's own field (PlateConfirmation's sweep):
 /// drag rises, peaks near 1.27 w and falls, lift rises towards the image-force limit (Reitz 1970, Saslow
-/// 1992; Reitz, J. Appl. Phys. 41, 1970), beside the low-speed drag that grows without bound. Speed on a log axis, since the
+/// 1992: J. Appl. Phys. 41:2067 and Am. J. Phys. 60(8):693-711), beside the low-speed drag that grows without bound. Speed on a log axis, since the
 /// sweep spans two decades of v / w.
 /// </summary>
 public static class CoupledSpeedPlot

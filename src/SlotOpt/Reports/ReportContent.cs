@@ -1,6 +1,5 @@
 using System.Globalization;
 using SlotOpt.Design;
-using SlotOpt.Plates.Conductors;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 
@@ -9,7 +8,7 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// What the report says, in order: the job and its inputs, the chosen design in workshop words, what it
 /// saves, which limits bind, the plots, the options the rules dropped, the validity flags, and the
-/// assumptions and cautions. Numbers are formatted as the console prints them (RunText), so the two agree.
+/// assumptions and cautions. Numbers are formatted as the console prints them, so the two agree.
 /// </summary>
 public static class ReportContent
 {
@@ -131,7 +130,7 @@ public static class ReportContent
     }
 
     /// <summary>One chosen plate as confirmed: which model ran, and its loss, drag and lift against the screen.</summary>
-    public static string ConfirmationLine(PlateConfirmation c) =>
+    private static string ConfirmationLine(PlateConfirmation c) =>
         F($"{c.PartName}: {c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? F($", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? F($", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W). {c.Reason}");
 
     private static string Drag(double? dragN) => dragN is { } d ? F($"{d:0.###}") : "";
@@ -271,7 +270,7 @@ public static class ReportContent
         {
             foreach (var o in chosen)
             {
-                if (o.Attributes.TryGetValue("reynolds_number", out var rm)) lines.Add($"{o.PartName}: magnetic Reynolds number {rm} (limit of the low-speed, resistance-limited model: {Validity.ReynoldsLimit})");
+                if (o.Attributes.TryGetValue("reynolds_number", out var rm)) lines.Add(F($"{o.PartName}: magnetic Reynolds number {rm} (limit of the low-speed, resistance-limited model: {r.Figures.LowSpeedReynoldsLimit})"));
                 lines.AddRange(o.Flags.Select(f => $"{o.PartName}: {f}"));
             }
             if (!chosen.Any(o => o.Flags.Count > 0)) lines.Add("The chosen design raises no validity flag (flux below the knee, sheets thin against the skin depth, coefficients used near their data, Reynolds number below its limit).");

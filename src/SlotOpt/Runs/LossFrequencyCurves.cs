@@ -1,8 +1,7 @@
 using SlotOpt.Design;
 using SlotOpt.Lamination;
-using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Runs;
 
 /// <summary>
 /// Loss of one core part against frequency for every grade (gauge) it may be cut from: the part's own

@@ -1,7 +1,6 @@
 using SlotOpt.Design;
-using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Runs;
 
 /// <summary>The solid (unslotted) option of a plate cut from the same sheet as a given option: same thickness and material, the same process where the solid plate may use it.</summary>
 public static class SolidCounterpart

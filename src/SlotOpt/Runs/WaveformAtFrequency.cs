@@ -1,6 +1,6 @@
 using SlotOpt.Waveforms;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Runs;
 
 /// <summary>The same flux waveform (shape and peak) with its period stretched to another fundamental frequency.</summary>
 public static class WaveformAtFrequency

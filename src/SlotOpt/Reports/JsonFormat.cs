@@ -2,10 +2,10 @@ using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Serialization;
 
-namespace SlotOpt.Cli;
+namespace SlotOpt.Reports;
 
-/// <summary>One place for how the CLI prints JSON: snake_case keys, indented, invariant numbers.</summary>
-public static class JsonOutput
+/// <summary>The one JSON configuration of slotopt (result.json and every command's --json): snake_case keys, kebab-case enum values, indented, nulls left out, invariant numbers.</summary>
+public static class JsonFormat
 {
     public static readonly JsonSerializerOptions Options = new()
     {
@@ -16,5 +16,6 @@ public static class JsonOutput
         Converters = { new JsonStringEnumConverter(JsonNamingPolicy.KebabCaseLower) },
     };
 
-    public static void Write<T>(T value) => Console.Out.WriteLine(JsonSerializer.Serialize(value, Options));
+    /// <summary>The value as one JSON document ending in a newline.</summary>
+    public static string Serialize<T>(T value) => JsonSerializer.Serialize(value, Options) + Environment.NewLine;
 }
