@@ -1,8 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
 using System.Text;
-using System.Text.Encodings.Web;
-using System.Text.Json;
 using System.Text.Json.Nodes;
 using SlotOpt.Input;
 using SlotOpt.Plates;
@@ -60,7 +58,7 @@ public static class PlateCommand
             ["warnings"] = new JsonArray(r.Validity.Warnings.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
             ["notes"] = new JsonArray(r.Notes.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
         };
-        return o.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + Environment.NewLine;
+        return JsonOutput.Serialize(o) + Environment.NewLine;
     }
 
     private static string Text(PlateFileEvaluation e)
