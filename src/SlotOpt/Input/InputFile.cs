@@ -58,28 +58,33 @@ public static class InputFile
         _ => "a special file",
     };
 
-    /// <summary>What the path names, following symbolic links: statx(2) on Linux; elsewhere only file or folder.</summary>
+    /// <summary>What the path names, following symbolic links: statx(2) on Linux; elsewhere (or without statx) only file or folder.</summary>
     private static FileKind KindOf(string path)
     {
-        if (OperatingSystem.IsLinux())
-        {
-            // struct statx (Linux uapi <linux/stat.h>): stx_mode is the 16-bit field at byte offset 28; the file type is mode & S_IFMT
-            var buffer = new byte[256];
-            if (Statx(AtFdCwd, path, 0, StatxType, buffer) != 0)
-                return Marshal.GetLastPInvokeError() == ENoEnt ? FileKind.Missing : FileKind.Regular;   // let the open report other failures in its own words
-            return (BitConverter.ToUInt16(buffer, 28) & 0xF000) switch
-            {
-                0x8000 => FileKind.Regular,
-                0x4000 => FileKind.Directory,
-                0x1000 => FileKind.Fifo,
-                0x2000 => FileKind.CharacterDevice,
-                0x6000 => FileKind.BlockDevice,
-                0xC000 => FileKind.Socket,
-                _ => FileKind.Other,
-            };
-        }
+        if (OperatingSystem.IsLinux() && LinuxKindOf(path) is { } kind) return kind;
         if (Directory.Exists(path)) return FileKind.Directory;
         return File.Exists(path) ? FileKind.Regular : FileKind.Missing;
+    }
+
+    /// <summary>The file type from statx(2); null where the C library has no statx (glibc before 2.28).</summary>
+    private static FileKind? LinuxKindOf(string path)
+    {
+        // struct statx (Linux uapi <linux/stat.h>): stx_mode is the 16-bit field at byte offset 28; the file type is mode & S_IFMT
+        var buffer = new byte[256];
+        int result;
+        try { result = Statx(AtFdCwd, path, 0, StatxType, buffer); }
+        catch (Exception e) when (e is EntryPointNotFoundException or DllNotFoundException) { return null; }
+        if (result != 0) return Marshal.GetLastPInvokeError() == ENoEnt ? FileKind.Missing : FileKind.Regular;   // let the open report other failures in its own words
+        return (BitConverter.ToUInt16(buffer, 28) & 0xF000) switch
+        {
+            0x8000 => FileKind.Regular,
+            0x4000 => FileKind.Directory,
+            0x1000 => FileKind.Fifo,
+            0x2000 => FileKind.CharacterDevice,
+            0x6000 => FileKind.BlockDevice,
+            0xC000 => FileKind.Socket,
+            _ => FileKind.Other,
+        };
     }
 
     private const int AtFdCwd = -100, ENoEnt = 2;
