@@ -1,12 +1,12 @@
 using System.CommandLine;
 using System.Globalization;
 using System.Text;
-using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using SlotOpt.Input;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Reports;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
@@ -63,7 +63,7 @@ public static class PlateCommand
             ["notes"] = new JsonArray(r.Notes.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
         };
         PlateTemperatureOutput.AddJson(o, e);
-        return o.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + Environment.NewLine;
+        return JsonFormat.Serialize(o);
     }
 
     private static string Text(PlateFileEvaluation e)

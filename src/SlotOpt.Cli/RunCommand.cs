@@ -29,7 +29,7 @@ public static class RunCommand
             var reportDir = parseResult.GetValue(outDir);
             var replace = parseResult.GetValue(force);
             if (replace && reportDir is null) throw new InputException("--force only applies with --out DIR");
-            if (reportDir is not null) ReportFolder.CheckTarget(reportDir, replace);
+            if (reportDir is not null) ReportFolder.CheckTarget(reportDir, replace, parseResult.GetValue(file)!);
             var problem = ProblemReader.ReadFile(parseResult.GetValue(file)!);
             foreach (var w in problem.Warnings) error.WriteLine($"warning: {w}");
             RunResult result;
