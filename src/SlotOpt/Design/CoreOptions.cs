@@ -19,7 +19,9 @@ public static class CoreOptions
     public static EvaluatedOption EvaluateOne(CorePart part, ElectricalSteel steel, CuttingProcess process, ManufacturingSettings shop)
     {
         var conditions = new LaminationConditions { TemperatureK = part.TemperatureK, FeatureWidthM = part.FeatureWidthM };
-        var specific = LaminationLossModel.Evaluate(steel, part.Flux, conditions);
+        // the part's flux is over the gross section (lamination area x stack height); the steel alone carries it
+        var steelFlux = LaminationStack.SteelWaveform(part.Flux, steel.StackingFactor);
+        var specific = LaminationLossModel.Evaluate(steel, steelFlux, conditions);
         var cost = CoreCost.Of(part, steel, process, shop);
         var loss = new LossBreakdown(
             specific.HysteresisWPerKg * cost.SteelMassKg,
@@ -39,8 +41,9 @@ public static class CoreOptions
             ["coil"] = $"{steel.Grade} {(steel.ThicknessM * 1e3).ToString("0.00", CultureInfo.InvariantCulture)} mm",
             ["sheets"] = cost.Sheets.ToString(CultureInfo.InvariantCulture),
             ["steel_mass_kg"] = cost.SteelMassKg.ToString("0.###", CultureInfo.InvariantCulture),
+            ["steel_flux_t"] = steelFlux.PeakT.ToString("0.###", CultureInfo.InvariantCulture),
         };
-        var description = string.Create(CultureInfo.InvariantCulture, $"{steel.Grade} at {steel.ThicknessM * 1e3:0.00} mm, {cost.Sheets} sheets ({cost.SteelMassKg:0.##} kg), {process.Name}");
+        var description = string.Create(CultureInfo.InvariantCulture, $"{steel.Grade} at {steel.ThicknessM * 1e3:0.00} mm, {cost.Sheets} sheets ({cost.SteelMassKg:0.##} kg, {steelFlux.PeakT:0.###} T in the steel), {process.Name}");
         return new EvaluatedOption(part.Name, $"{part.Name}/{steel.Grade}/{process.Name}", new CoreChoice(steel.Grade, process.Name), description, attributes, cost.Total, loss, null,
             specific.Flags.Select(f => $"{f.Code}: {f.Message}").ToList(), rejection);
     }

@@ -57,10 +57,11 @@ public static class CorePartReader
             foreach (var g in validGrades)
             {
                 var steel = library.GetSteel(g, s.KeyPath("grades"));
-                if (wave.PeakT > steel.MaxFluxT)
-                    s.Error("flux", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T is beyond what {g} carries ({steel.MaxFluxT:0.##} T at 10 kA/m): the steel saturates; lower the flux or drop the grade"));
-                else if (wave.PeakT > steel.KneeFluxT)
-                    s.Warn("flux", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T is above the knee of {g} ({steel.KneeFluxT:0.##} T): magnetising current rises steeply"));
+                var inSteel = wave.PeakT / steel.StackingFactor; // flux is over the gross section
+                if (inSteel > steel.MaxFluxT)
+                    s.Error("flux", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T over the gross section is {inSteel:0.###} T in the steel (stacking factor {steel.StackingFactor:0.###}), beyond what {g} carries ({steel.MaxFluxT:0.##} T at 10 kA/m): the steel saturates; lower the flux or drop the grade"));
+                else if (inSteel > steel.KneeFluxT)
+                    s.Warn("flux", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T over the gross section is {inSteel:0.###} T in {g}, above its knee ({steel.KneeFluxT:0.##} T): magnetising current rises steeply"));
             }
         if (temperature > 473.15) s.Warn("temperature", "above 200 degC: insulation coatings and the resistivity data may not hold");
         if (current is not null && !validGrades.Contains(current.Grade))
