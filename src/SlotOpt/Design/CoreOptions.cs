@@ -7,6 +7,15 @@ namespace SlotOpt.Design;
 /// <summary>Enumerates and evaluates every grade x process option of a core part.</summary>
 public static class CoreOptions
 {
+    /// <summary>First words of the rejection of a grain-oriented grade where flux crosses its rolling direction.</summary>
+    public const string GrainOrientedAcrossRollingDirection = "grain-oriented steel across its rolling direction";
+
+    /// <summary>The part's own building factor, else the table's for its construction and the steel's family, else 1 (no construction given).</summary>
+    public static double BuildingFactorOf(CorePart part, ElectricalSteel steel) =>
+        part.BuildingFactorOverride
+        ?? (part.Construction is { } c ? BuildingFactors.Default(c, steel.Family)?.Factor : null)
+        ?? 1.0;
+
     public static IReadOnlyList<EvaluatedOption> Evaluate(CorePart part, MaterialLibrary library, ManufacturingSettings shop)
     {
         var options = new List<EvaluatedOption>();
@@ -23,13 +32,17 @@ public static class CoreOptions
         var steelFlux = LaminationStack.SteelWaveform(part.Flux, steel.StackingFactor);
         var specific = LaminationLossModel.Evaluate(steel, steelFlux, conditions);
         var cost = CoreCost.Of(part, steel, process, shop);
+        var buildingFactor = BuildingFactorOf(part, steel);
+        // P_core = BF x P_specific x m (S. Zurek, "Building factor", Encyclopedia Magnetica)
         var loss = new LossBreakdown(
-            specific.HysteresisWPerKg * cost.SteelMassKg,
-            specific.ClassicalWPerKg * cost.SteelMassKg,
-            specific.ExcessWPerKg * cost.SteelMassKg,
+            buildingFactor * specific.HysteresisWPerKg * cost.SteelMassKg,
+            buildingFactor * specific.ClassicalWPerKg * cost.SteelMassKg,
+            buildingFactor * specific.ExcessWPerKg * cost.SteelMassKg,
             0, 0);
         string? rejection = null;
-        if (specific.Flags.Any(f => f.Code == "flux-beyond-grade"))
+        if (part.Construction is { } construction && steel.Family == SteelFamily.GrainOriented && CoreConstructionWords.FluxCrossesRollingDirection(construction))
+            rejection = $"{GrainOrientedAcrossRollingDirection}: in a {CoreConstructionWords.Word(construction)} construction part of the flux runs at up to 90 degrees to the rolling direction of {steel.Grade}, where grain-oriented steel loses several times its rated loss; choose a non-oriented grade";
+        else if (specific.Flags.Any(f => f.Code == "flux-beyond-grade"))
             rejection = specific.Flags.First(f => f.Code == "flux-beyond-grade").Message;
         else if (part.MaxLossW is { } cap && loss.TotalW > cap)
             rejection = string.Create(CultureInfo.InvariantCulture, $"loss {loss.TotalW:0.##} W exceeds the part's limit of {cap:0.##} W");
@@ -42,6 +55,7 @@ public static class CoreOptions
             ["sheets"] = cost.Sheets.ToString(CultureInfo.InvariantCulture),
             ["steel_mass_kg"] = cost.SteelMassKg.ToString("0.###", CultureInfo.InvariantCulture),
             ["steel_flux_t"] = steelFlux.PeakT.ToString("0.###", CultureInfo.InvariantCulture),
+            ["building_factor"] = buildingFactor.ToString("0.###", CultureInfo.InvariantCulture),
         };
         var description = string.Create(CultureInfo.InvariantCulture, $"{steel.Grade} at {steel.ThicknessM * 1e3:0.00} mm, {cost.Sheets} sheets ({cost.SteelMassKg:0.##} kg, {steelFlux.PeakT:0.###} T in the steel), {process.Name}");
         return new EvaluatedOption(part.Name, $"{part.Name}/{steel.Grade}/{process.Name}", new CoreChoice(steel.Grade, process.Name), description, attributes, cost.Total, loss, null,

@@ -35,6 +35,15 @@ public static class CorePartReader
         var temperature = s.OptionalQuantity("temperature", QuantityKind.Temperature) ?? Conductor.RoomTemperatureK;
         if (!(temperature > 0)) s.Error("temperature", "is below absolute zero");
         var maxLoss = s.PositiveQuantity("max_loss", QuantityKind.Power, required: false);
+        var constructionWord = s.OptionalString("construction");
+        CoreConstruction? construction = null;
+        if (constructionWord is not null)
+        {
+            if (CoreConstructionWords.TryParse(constructionWord, out var c)) construction = c;
+            else s.Error("construction", $"\"{constructionWord}\" is not a construction{NameSuggestion.DidYouMean(constructionWord, CoreConstructionWords.All)}; use {string.Join(", ", CoreConstructionWords.All)}");
+        }
+        var buildingFactor = s.OptionalNumber("building_factor");
+        if (buildingFactor is { } bf && !(bf >= 1 && bf <= 3)) s.Error("building_factor", "must be between 1 and 3 (core loss over the loss of the steel's own test)");
         var current = ReadCurrent(s.OptionalTable("current"), library, shop);
         s.RejectUnknownKeys();
 
@@ -71,7 +80,11 @@ public static class CorePartReader
 
         if (name is null || area is null || height is null || wave is null || validGrades.Count == 0 || processes.Count == 0) return null;
         return new CorePart(name, s.Line, temperature, maxLoss, validGrades, processes, area.Value, height.Value,
-            cutLength ?? 4 * Math.Sqrt(area.Value), wave, width ?? double.PositiveInfinity, current);
+            cutLength ?? 4 * Math.Sqrt(area.Value), wave, width ?? double.PositiveInfinity, current)
+        {
+            Construction = construction,
+            BuildingFactorOverride = buildingFactor,
+        };
     }
 
     private static List<string> ReadProcesses(TomlSection s, ManufacturingSettings shop)

@@ -23,6 +23,7 @@ public sealed record PartEvaluation(Part Part, IReadOnlyList<EvaluatedOption> Op
         if (rejection.StartsWith("drag", StringComparison.Ordinal)) return "drag above the part's limit";
         if (rejection.StartsWith("loss", StringComparison.Ordinal)) return "loss above the part's limit";
         if (rejection.StartsWith("peak", StringComparison.Ordinal)) return "flux beyond the grade";
+        if (rejection.StartsWith(CoreOptions.GrainOrientedAcrossRollingDirection, StringComparison.Ordinal)) return CoreOptions.GrainOrientedAcrossRollingDirection;
         return "slot pattern does not fit the plate";
     }
 }
