@@ -7,7 +7,7 @@ namespace SlotOpt.Lamination;
 /// Loss separation for a lamination (G. Bertotti, IEEE Trans. Magn. 24(1):621, 1988):
 /// P = hysteresis + classical x skin factor x width factor + excess, per kg of steel.
 /// Assumptions: flux along the sheet, uniform across its width, linear permeability for the skin
-/// correction, hysteresis and excess coefficients independent of temperature.
+/// correction, hysteresis coefficients independent of temperature, the excess coefficient scaling with sqrt(conductivity).
 /// </summary>
 public static class LaminationLossModel
 {
@@ -48,6 +48,8 @@ public static class LaminationLossModel
             hysteresis = HysteresisLoss.LoopSplit(steel.HysteresisCoefficient, steel.HysteresisExponent, waveform);
             excess = ExcessLoss.FromMeanRate(steel.ExcessCoefficient, waveform.MeanAbsRatePower(1.5));
         }
+        // ke = 8 sqrt(sigma G S V0) (Bertotti 1988): the coefficient, known at room temperature, scales with sqrt(sigma)
+        excess *= Math.Sqrt(steel.Resistivity20COhmM / resistivity);
 
         var peak = waveform.PeakT;
         if (peak > steel.MaxFluxT)
