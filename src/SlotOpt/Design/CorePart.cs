@@ -25,6 +25,8 @@ public sealed record CorePart(
 
     /// <summary>A building factor given in the problem file, replacing the table's default for every grade.</summary>
     public double? BuildingFactorOverride { get; init; }
+
+    protected override LossKind DefaultLossKind => LossKind.NoLoad;
 }
 
 /// <summary>One fixed design of a core part: the grade and the process.</summary>

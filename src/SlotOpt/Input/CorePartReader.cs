@@ -42,6 +42,7 @@ public static class CorePartReader
             if (CoreConstructionWords.TryParse(constructionWord, out var c)) construction = c;
             else s.Error("construction", $"\"{constructionWord}\" is not a construction{NameSuggestion.DidYouMean(constructionWord, CoreConstructionWords.All)}; use {string.Join(", ", CoreConstructionWords.All)}");
         }
+        var lossKind = LossKindWords.Read(s);
         var buildingFactor = s.OptionalNumber("building_factor");
         if (buildingFactor is { } bf && !(bf >= 1 && bf <= 3)) s.Error("building_factor", "must be between 1 and 3 (core loss over the loss of the steel's own test)");
         var current = ReadCurrent(s.OptionalTable("current"), library, shop);
@@ -84,6 +85,7 @@ public static class CorePartReader
         {
             Construction = construction,
             BuildingFactorOverride = buildingFactor,
+            DeclaredLossKind = lossKind,
         };
     }
 
