@@ -33,11 +33,13 @@ public static class CoreOptions
         var specific = LaminationLossModel.Evaluate(steel, steelFlux, conditions);
         var cost = CoreCost.Of(part, steel, process, shop);
         var buildingFactor = BuildingFactorOf(part, steel);
-        // P_core = BF x P_specific x m (S. Zurek, "Building factor", Encyclopedia Magnetica)
+        var cutDamage = CutEdgeDamage.LossFactor(part.CutLengthPerSheetM, part.LaminationAreaM2, process);
+        // P_core = BF x P_specific x m (S. Zurek, "Building factor", Encyclopedia Magnetica), raised by the cut edges' degraded band
+        var factor = buildingFactor * cutDamage;
         var loss = new LossBreakdown(
-            buildingFactor * specific.HysteresisWPerKg * cost.SteelMassKg,
-            buildingFactor * specific.ClassicalWPerKg * cost.SteelMassKg,
-            buildingFactor * specific.ExcessWPerKg * cost.SteelMassKg,
+            factor * specific.HysteresisWPerKg * cost.SteelMassKg,
+            factor * specific.ClassicalWPerKg * cost.SteelMassKg,
+            factor * specific.ExcessWPerKg * cost.SteelMassKg,
             0, 0);
         string? rejection = null;
         if (part.Construction is { } construction && steel.Family == SteelFamily.GrainOriented && CoreConstructionWords.FluxCrossesRollingDirection(construction))
@@ -56,6 +58,7 @@ public static class CoreOptions
             ["steel_mass_kg"] = cost.SteelMassKg.ToString("0.###", CultureInfo.InvariantCulture),
             ["steel_flux_t"] = steelFlux.PeakT.ToString("0.###", CultureInfo.InvariantCulture),
             ["building_factor"] = buildingFactor.ToString("0.###", CultureInfo.InvariantCulture),
+            ["cut_edge_loss_factor"] = cutDamage.ToString("0.###", CultureInfo.InvariantCulture),
         };
         var description = string.Create(CultureInfo.InvariantCulture, $"{steel.Grade} at {steel.ThicknessM * 1e3:0.00} mm, {cost.Sheets} sheets ({cost.SteelMassKg:0.##} kg, {steelFlux.PeakT:0.###} T in the steel), {process.Name}");
         return new EvaluatedOption(part.Name, $"{part.Name}/{steel.Grade}/{process.Name}", new CoreChoice(steel.Grade, process.Name), description, attributes, cost.Total, loss, null,

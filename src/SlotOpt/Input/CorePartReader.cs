@@ -11,7 +11,7 @@ namespace SlotOpt.Input;
 public static class CorePartReader
 {
     /// <summary>Processes that cut laminations (milling does not).</summary>
-    public static readonly IReadOnlyList<string> LaminationProcesses = ["punching", "laser", "waterjet"];
+    public static readonly IReadOnlyList<string> LaminationProcesses = ["punching", "laser", "waterjet", "guillotine", "wire-edm"];
 
     public static CorePart? Read(TomlSection s, MaterialLibrary library, ManufacturingSettings shop, string baseDirectory)
     {
