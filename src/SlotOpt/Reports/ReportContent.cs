@@ -33,10 +33,12 @@ public static class ReportContent
     private static string F(FormattableString s) => s.ToString(Ci);
     private static string Cur(RunResult r) => r.Problem.Economics.Currency;
 
-    private static string NoLoadParts(Problem p) => PartsOfKind(p, LossKind.NoLoad);
-    private static string LoadParts(Problem p) => PartsOfKind(p, LossKind.Load);
-    private static string PartsOfKind(Problem p, LossKind kind) =>
-        p.Parts.Where(x => x.LossKind == kind).Select(x => x.Name).DefaultIfEmpty("none").Aggregate((a, c) => a + ", " + c);
+    /// <summary>" (tie plate, clamp)" naming the parts whose loss is of this kind, or "" when none is.</summary>
+    private static string PartsOfKind(Problem p, LossKind kind)
+    {
+        var names = p.Parts.Where(x => x.LossKind == kind).Select(x => x.Name).ToList();
+        return names.Count == 0 ? "" : $" ({string.Join(", ", names)})";
+    }
 
     private static void Job(RunResult r, List<ReportBlock> b)
     {
@@ -45,7 +47,7 @@ public static class ReportContent
         b.Add(new Heading("The job"));
         b.Add(new Paragraph(F($"Problem file {Path.GetFileName(p.SourcePath)}; goal: {GoalWords(p.Goal)}. Currency {e.Currency}.")));
         var economics = e.SeparatesLoadLoss
-            ? F($"A watt of no-load loss (cores: {NoLoadParts(p)}) is worth {e.ValuePerWatt:0.###} {e.Currency} over the life, a watt of load loss (plates beside the windings: {LoadParts(p)}) {e.LoadValuePerWatt:0.###} {e.Currency}")
+            ? F($"A watt of no-load loss{PartsOfKind(p, LossKind.NoLoad)} is worth {e.ValuePerWatt:0.###} {e.Currency} over the life, a watt of load loss{PartsOfKind(p, LossKind.Load)} {e.LoadValuePerWatt:0.###} {e.Currency}")
               + (e.LoadEnergyShare is { } share ? F($", since load loss is paid at (per-unit load)^2 x loss factor = {share:0.###} of the energised hours (IEEE C57.120 A and B factors)") : "")
             : F($"A watt of continuous loss is worth {e.ValuePerWatt:0.###} {e.Currency} over the life");
         if (e.EnergyPricePerKWh is { } price && e.HoursPerYear is { } hours)
@@ -223,6 +225,11 @@ public static class ReportContent
             : $"{name}: {v} of {l} {unit}: {(limit - value).ToString(format, Ci)} {unit} of room";
     }
 
+    /// <summary>A front point's owning cost: its totals at one value per watt, or each part's loss at its own kind's value.</summary>
+    private static double FrontOwningCost(RunResult r, FrontPoint p) => r.Problem.Economics.SeparatesLoadLoss
+        ? r.Problem.OwningCost(p.CandidateIds.Select(r.Option))
+        : p.BuildCost + r.Problem.Economics.ValuePerWatt * p.LossW;
+
     private static void Plots(RunResult r, ReportFigures figures, List<ReportBlock> b)
     {
         if (figures.TradeOff is { } tradeOff)
@@ -232,7 +239,7 @@ public static class ReportContent
             
             var front = r.Outcome.Front!;
             var chosenIds = r.Chosen?.Select(o => o.Id).ToList() ?? [];
-            var rows = front.Points.Select(p => (IReadOnlyList<string>)[p.CandidateIds.SequenceEqual(chosenIds) ? "chosen" : "", F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{r.Problem.OwningCost(p.CandidateIds.Select(r.Option)):0.00}"),
+            var rows = front.Points.Select(p => (IReadOnlyList<string>)[p.CandidateIds.SequenceEqual(chosenIds) ? "chosen" : "", F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{FrontOwningCost(r, p):0.00}"),
                 string.Join("\n", p.CandidateIds.Select(id => r.Parts.Count == 1 ? r.Option(id).Description : $"{r.Option(id).PartName}: {r.Option(id).Description}"))]).ToList();
             b.Add(new Paragraph($"{front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? ", each proven" : ", not all proven")}:"));
             b.Add(new Table(["", $"build cost ({Cur(r)})", "loss (W)", $"owning cost ({Cur(r)})", "design"], rows, [false, true, true, true, false]));
@@ -297,7 +304,7 @@ public static class ReportContent
         var items = new List<string>
         {
             "The figures are engineering estimates from published loss models and a thin-plate eddy-current model; confirm them by test on the real part before relying on them.",
-            "Core loss: loss separation (hysteresis, classical eddy with skin and finite-width corrections, excess) with coefficients derived from the grades' guaranteed limits, not measured on your steel; cutting damage, burrs and stacking pressure add loss not modelled here.",
+            "Core loss: loss separation (hysteresis, classical eddy with skin and finite-width corrections, excess) with coefficients derived from the grades' guaranteed limits, not measured on your steel, times the construction's building factor and the cut edges' degraded band (per process); burrs and stacking pressure add loss not modelled here.",
             "Plates: every option is screened with the resistance-limited thin-plate model (the eddy currents' own field neglected), which overstates loss and drag where the Reynolds number or thickness over skin depth is flagged; the chosen plates are then solved again with the model their validity figures call for (thin sheet with its own field, or layered thick plate), as \"The chosen design\" says. Plates are taken as non-magnetic and of uniform thickness.",
             "Prices in the built-in data are invented demo prices; the owning cost is only as good as the value per watt put on the loss.",
             "Braking and load-holding uses (eddy-current brakes, rails or plates whose drag stops or holds a load) need a certified safety analysis; the drag here is not a brake rating.",
