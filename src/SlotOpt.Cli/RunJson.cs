@@ -29,6 +29,7 @@ public static class RunJson
                 plate_eddy_w = o.Loss.PlateEddyW,
                 drag_n = o.DragN,
                 build_cost = o.BuildCost,
+                value_per_watt = r.Problem.ValuePerWattOf(o.PartName),
                 flags = o.Flags,
                 reference = new
                 {

@@ -68,11 +68,11 @@ public static class LossCoefficientFit
 
         var exceeding = Enumerable.Range(0, data.Count).Where(i => classical[i] >= data[i].LossWPerKg).ToList();
         if (exceeding.Count * 2 > data.Count)
-            throw new NumericalFailureException(F($"the model cannot explain the table: the classical term alone (from thickness {thicknessM * 1e3:0.###} mm and resistivity {resistivityOhmM * 1e6:0.###} uOhm m) reaches or exceeds the measured loss at {exceeding.Count} of {data.Count} points; check the resistivity and the thickness"));
+            throw new NumericalFailureException(F($"the model cannot explain the table: the classical term alone (from thickness {thicknessM * 1e3:G4} mm and resistivity {resistivityOhmM * 1e6:G4} uOhm m) reaches or exceeds the measured loss at {exceeding.Count} of {data.Count} points; check the resistivity and the thickness") + Also(warnings));
         if (exceeding.Count > 0)
         {
             var worst = exceeding.MaxBy(i => classical[i] / data[i].LossWPerKg);
-            warnings.Add(F($"the classical term alone (from thickness {thicknessM * 1e3:0.###} mm and resistivity {resistivityOhmM * 1e6:0.###} uOhm m) reaches or exceeds the measured loss at {exceeding.Count} of {data.Count} points (by {(classical[worst] / data[worst].LossWPerKg - 1) * 100:0.#} % at {data[worst].PeakT} T, {data[worst].FrequencyHz} Hz): the resistivity or the thickness is likely wrong, and kh, ke are held at zero or above"));
+            warnings.Add(F($"the classical term alone (from thickness {thicknessM * 1e3:G4} mm and resistivity {resistivityOhmM * 1e6:G4} uOhm m) reaches or exceeds the measured loss at {exceeding.Count} of {data.Count} points (by {(classical[worst] / data[worst].LossWPerKg - 1) * 100:0.#} % at {data[worst].PeakT} T, {data[worst].FrequencyHz} Hz): the resistivity or the thickness is likely wrong, and kh, ke are held at zero or above"));
         }
         if (data.Select(m => m.FrequencyHz).Distinct().Count() < 2)
             warnings.Add("all measurements are at one frequency: hysteresis (per cycle) and excess (rising as f^1.5) cannot be separated, so kh and ke are not determined individually; add a second frequency");
@@ -97,7 +97,7 @@ public static class LossCoefficientFit
         var predicted = Enumerable.Range(0, data.Count).Select(i => Model(data[i], classical[i], solution.Kh, exponent, solution.Ke)).ToArray();
         var worstRelative = Enumerable.Range(0, data.Count).Max(i => Math.Abs(predicted[i] - data[i].LossWPerKg) / data[i].LossWPerKg);
         if (worstRelative > UnexplainedRelativeError)
-            throw new NumericalFailureException(F($"the model cannot explain the table: the best fit misses a point by {worstRelative * 100:0} %; check the resistivity, the thickness and the units of the columns"));
+            throw new NumericalFailureException(F($"the model cannot explain the table: the best fit misses a point by {worstRelative * 100:0} %; check the resistivity, the thickness and the units of the columns") + Also(warnings));
         var mean = data.Average(m => m.LossWPerKg);
         var ssRes = Enumerable.Range(0, data.Count).Sum(i => Math.Pow(predicted[i] - data[i].LossWPerKg, 2));
         var ssTot = data.Sum(m => Math.Pow(m.LossWPerKg - mean, 2));
@@ -178,4 +178,7 @@ public static class LossCoefficientFit
     }
 
     private static string F(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
+
+    /// <summary>The plausibility warnings, appended to a refusal since they often name its cause.</summary>
+    private static string Also(IReadOnlyList<string> warnings) => warnings.Count == 0 ? "" : "; also: " + string.Join("; ", warnings);
 }
