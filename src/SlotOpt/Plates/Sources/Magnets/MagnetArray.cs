@@ -18,8 +18,10 @@ namespace SlotOpt.Plates.Sources.Magnets;
 /// </summary>
 public sealed class MagnetArray
 {
-    public MagnetArray(IEnumerable<MagnetPlacement> magnets, double gapM)
+    public MagnetArray(IEnumerable<MagnetPlacement> magnets, double gapM, int lineQuadratureOrder = 4)
     {
+        if (lineQuadratureOrder < 1) throw new ArgumentOutOfRangeException(nameof(lineQuadratureOrder), "at least one Gauss point per edge");
+        LineQuadratureOrder = lineQuadratureOrder;
         Magnets = magnets.ToList();
         if (Magnets.Count == 0) throw new InputException("a magnet source needs at least one magnet");
         if (!(gapM > 0) || !double.IsFinite(gapM)) throw new InputException($"the gap between the magnets and the plate must be positive (got {gapM} m)");
@@ -30,7 +32,10 @@ public sealed class MagnetArray
     /// <summary>From each magnet's near face to the plate's top surface (metres).</summary>
     public double GapM { get; }
     /// <summary>Gauss-Legendre points per dual-cell edge (see the class comment for the error).</summary>
-    public int LineQuadratureOrder { get; init; } = 4;
+    public int LineQuadratureOrder { get; }
+
+    /// <summary>The same magnets with another number of Gauss points per dual-cell edge.</summary>
+    public MagnetArray WithLineQuadratureOrder(int order) => new(Magnets, GapM, order);
 
     /// <summary>
     /// A row of count equal magnets along x, pitch apart (centre to centre), the first centred at firstCentre,
