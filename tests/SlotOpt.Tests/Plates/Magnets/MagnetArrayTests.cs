@@ -106,6 +106,7 @@ public class MagnetArrayTests(Xunit.Abstractions.ITestOutputHelper output)
         Assert.Throws<InputException>(() => MagnetArray.Row(magnet, new Vec2(0, 0), 2, 0.015, MagnetPolarity.Same, GapM));
         Assert.Throws<InputException>(() => MagnetArray.Row(magnet, new Vec2(0, 0), 2, 0.03, MagnetPolarity.Same, 0));
         Assert.Throws<InputException>(() => new CylinderMagnet(-0.01, 0.005, Br));
+        Assert.Throws<InputException>(() => new MagnetPlacement(magnet, new Vec2(0, 0), 0));
         Assert.Throws<InputException>(() => new SlidingMagnets(MagnetArray.Row(magnet, new Vec2(0, 0), 1, 0, MagnetPolarity.Same, GapM), 0));
     }
 
