@@ -66,7 +66,7 @@ public static class SheetsBench
             model.Operator.Matrix.Bytes + model.Multigrid.Bytes, model.Multigrid.LevelCount, solution.LossW(1));
     }
 
-    private static PlateGeometry Plate()
+    internal static PlateGeometry Plate()
     {
         var g = PlateGeometry.Rectangle(1, 1);
         g.AddPattern(SlotPatterns.Comb(g.Outline, PlateEdge.Bottom, 0.1, 0.7, 0.02));
