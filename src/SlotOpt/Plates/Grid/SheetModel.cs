@@ -6,7 +6,7 @@ namespace SlotOpt.Plates.Grid;
 
 /// <summary>
 /// One plate geometry made ready to solve: grid, merged regions, operator at unit reference sheet
-/// conductance (1 S), and the multigrid hierarchy. Build it once per slot geometry; every source,
+/// conductance (1 S), and the structured multigrid preconditioner. Build it once per slot geometry; every source,
 /// source position, thickness and material reuses it (loss and drag scale linearly with the
 /// reference sheet conductance, see <see cref="UnitConductanceSolution"/>).
 /// </summary>
@@ -15,12 +15,12 @@ public sealed class SheetModel
     public PlateGrid Grid { get; }
     public NodeRegions Regions { get; }
     public SheetOperator Operator { get; }
-    public MultigridHierarchy Multigrid { get; }
+    public StructuredMultigrid Multigrid { get; }
     public double SetupSeconds { get; }
     public int Unknowns => Regions.UnknownCount;
     public CellLattice Lattice => Grid.Lattice;
 
-    private SheetModel(PlateGrid grid, NodeRegions regions, SheetOperator op, MultigridHierarchy mg, double setupSeconds)
+    private SheetModel(PlateGrid grid, NodeRegions regions, SheetOperator op, StructuredMultigrid mg, double setupSeconds)
     {
         Grid = grid;
         Regions = regions;
@@ -35,7 +35,7 @@ public sealed class SheetModel
         var grid = PlateGrid.Build(geometry, options);
         var regions = NodeRegions.Build(grid);
         var op = SheetOperator.Assemble(grid, regions);
-        var mg = MultigridHierarchy.Build(op);
+        var mg = StructuredMultigrid.Build(grid, regions);
         return new SheetModel(grid, regions, op, mg, clock.Elapsed.TotalSeconds);
     }
 

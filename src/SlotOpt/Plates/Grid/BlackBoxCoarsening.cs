@@ -1,0 +1,155 @@
+namespace SlotOpt.Plates.Grid;
+
+/// <summary>
+/// One coarsening step of black-box multigrid (J. E. Dendy, "Black box multigrid", J. Comput.
+/// Phys. 48 (1982) 366–386): coarse nodes are the fine nodes with even indices; the prolongation
+/// is operator-dependent and the coarse operator is the Galerkin product A_c = P^T A P, a 9-point
+/// stencil again. With fine matrix entries a (diagonal a_C, neighbours a_W ... a_NE, off-diagonals
+/// negative) the prolongation weights are (Dendy 1982, section 3):
+///   fine node between coarse nodes in x:  d = a_C + a_S + a_N  (the stencil collapsed onto the x line),
+///       w_low = -(a_W + a_SW + a_NW) / d,  w_high = -(a_E + a_SE + a_NE) / d;
+///   between coarse nodes in y: d = a_C + a_W + a_E,  w_low = -(a_S + a_SW + a_SE) / d,  w_high = -(a_N + a_NW + a_NE) / d;
+///   at a coarse cell's centre: x_centre = -(sum over its 8 neighbours of a_k P_k) / a_C, the
+///       neighbours' prolongation taken from the two rules above (coarse nodes: 1).
+/// Where a slot, a hole's edge or a conductivity jump cuts a line the couplings across it are
+/// small, so the weight across falls with them and the coarse operator keeps the cut.
+/// </summary>
+internal static class BlackBoxCoarsening
+{
+    public static StencilLevel Coarsen(StencilLevel f)
+    {
+        int ncx = (f.Nx + 1) / 2, ncy = (f.Ny + 1) / 2;
+        var c = new StencilLevel(ncx, ncy, ninePoint: true);
+        BuildProlongation(f, c);
+        GalerkinOperator(f, c);
+        return c;
+    }
+
+    private static double Ratio(double numerator, double denominator) => denominator > 0 ? -numerator / denominator : 0;
+
+    private static void BuildProlongation(StencilLevel f, StencilLevel c)
+    {
+        int ncx = c.Nx, ncy = c.Ny, nc = ncx * ncy;
+        var xLow = new double[nc]; var xHigh = new double[nc]; var yLow = new double[nc]; var yHigh = new double[nc];
+        var cSW = new double[nc]; var cSE = new double[nc]; var cNW = new double[nc]; var cNE = new double[nc];
+        for (int J = 0; J < ncy; J++)
+            for (int I = 0; I < ncx; I++)
+            {
+                int k = J * ncx + I;
+                int i = 2 * I + 1, j = 2 * J;
+                if (i < f.Nx)
+                {
+                    double d = f.Entry(i, j, 0, 0) + f.Entry(i, j, 0, -1) + f.Entry(i, j, 0, 1);
+                    xLow[k] = Ratio(f.Entry(i, j, -1, 0) + f.Entry(i, j, -1, -1) + f.Entry(i, j, -1, 1), d);
+                    xHigh[k] = I + 1 < ncx ? Ratio(f.Entry(i, j, 1, 0) + f.Entry(i, j, 1, -1) + f.Entry(i, j, 1, 1), d) : 0;
+                }
+                i = 2 * I; j = 2 * J + 1;
+                if (j < f.Ny)
+                {
+                    double d = f.Entry(i, j, 0, 0) + f.Entry(i, j, -1, 0) + f.Entry(i, j, 1, 0);
+                    yLow[k] = Ratio(f.Entry(i, j, 0, -1) + f.Entry(i, j, -1, -1) + f.Entry(i, j, 1, -1), d);
+                    yHigh[k] = J + 1 < ncy ? Ratio(f.Entry(i, j, 0, 1) + f.Entry(i, j, -1, 1) + f.Entry(i, j, 1, 1), d) : 0;
+                }
+            }
+        for (int J = 0; J < ncy; J++)
+            for (int I = 0; I < ncx; I++)
+            {
+                int i = 2 * I + 1, j = 2 * J + 1;
+                if (i >= f.Nx || j >= f.Ny) continue;
+                int k = J * ncx + I;
+                bool east = I + 1 < ncx, north = J + 1 < ncy;
+                double d = f.Entry(i, j, 0, 0);
+                double aW = f.Entry(i, j, -1, 0), aE = f.Entry(i, j, 1, 0), aS = f.Entry(i, j, 0, -1), aN = f.Entry(i, j, 0, 1);
+                // the x/y-line neighbours' weights towards each corner (0 where that line node or corner is off the lattice)
+                double wSouthLine = yLow[k], nWestLine = yHigh[k];                               // west neighbour (2I, 2J+1)
+                double eSouthLine = east ? yLow[k + 1] : 0, eNorthLine = east ? yHigh[k + 1] : 0; // east neighbour (2I+2, 2J+1)
+                double sWestLine = xLow[k], sEastLine = xHigh[k];                                // south neighbour (2I+1, 2J)
+                double nWest = north ? xLow[k + ncx] : 0, nEast = north ? xHigh[k + ncx] : 0;    // north neighbour (2I+1, 2J+2)
+                cSW[k] = Ratio(f.Entry(i, j, -1, -1) + aW * wSouthLine + aS * sWestLine, d);
+                cSE[k] = east ? Ratio(f.Entry(i, j, 1, -1) + aE * eSouthLine + aS * sEastLine, d) : 0;
+                cNW[k] = north ? Ratio(f.Entry(i, j, -1, 1) + aW * nWestLine + aN * nWest, d) : 0;
+                cNE[k] = east && north ? Ratio(f.Entry(i, j, 1, 1) + aE * eNorthLine + aN * nEast, d) : 0;
+            }
+        c.XLow = xLow; c.XHigh = xHigh; c.YLow = yLow; c.YHigh = yHigh;
+        c.CentreSW = cSW; c.CentreSE = cSE; c.CentreNW = cNW; c.CentreNE = cNE;
+    }
+
+    /// <summary>Prolongation weight of coarse node (I, J) at fine node (2I + di, 2J + dj), |di|, |dj| &lt;= 1.</summary>
+    private static double Weight(StencilLevel c, int I, int J, int di, int dj)
+    {
+        int ncx = c.Nx;
+        switch (dj * 3 + di)
+        {
+            case 0: return 1;
+            case 1: return c.XLow![J * ncx + I];
+            case -1: return I > 0 ? c.XHigh![J * ncx + I - 1] : 0;
+            case 3: return c.YLow![J * ncx + I];
+            case -3: return J > 0 ? c.YHigh![(J - 1) * ncx + I] : 0;
+            case 4: return c.CentreSW![J * ncx + I];
+            case 2: return I > 0 ? c.CentreSE![J * ncx + I - 1] : 0;
+            case -2: return J > 0 ? c.CentreNW![(J - 1) * ncx + I] : 0;
+            case -4: return I > 0 && J > 0 ? c.CentreNE![(J - 1) * ncx + I - 1] : 0;
+            default: throw new ArgumentOutOfRangeException(nameof(di));
+        }
+    }
+
+    /// <summary>
+    /// A_c(K, L) = phi_K^T A phi_L with phi_K coarse node K's prolongation (support: the 3 x 3 fine
+    /// nodes around it); per coarse node A phi_K is formed on the 5 x 5 patch around it and dotted
+    /// with the basis functions of K and its west, south, south-west and south-east neighbours.
+    /// </summary>
+    private static void GalerkinOperator(StencilLevel f, StencilLevel c)
+    {
+        int ncx = c.Nx, ncy = c.Ny;
+        Span<double> phi = stackalloc double[9];
+        Span<double> aPhi = stackalloc double[25];
+        for (int J = 0; J < ncy; J++)
+            for (int I = 0; I < ncx; I++)
+            {
+                int k = J * ncx + I;
+                int fi = 2 * I, fj = 2 * J;
+                for (int dj = -1; dj <= 1; dj++)
+                    for (int di = -1; di <= 1; di++)
+                    {
+                        int i = fi + di, j = fj + dj;
+                        phi[(dj + 1) * 3 + di + 1] = i >= 0 && j >= 0 && i < f.Nx && j < f.Ny ? Weight(c, I, J, di, dj) : 0;
+                    }
+                aPhi.Clear();
+                for (int mj = -1; mj <= 1; mj++)
+                    for (int mi = -1; mi <= 1; mi++)
+                    {
+                        double v = phi[(mj + 1) * 3 + mi + 1];
+                        if (v == 0) continue;
+                        int i = fi + mi, j = fj + mj;
+                        for (int sj = -1; sj <= 1; sj++)
+                            for (int si = -1; si <= 1; si++)
+                            {
+                                double a = f.Entry(i, j, si, sj);
+                                if (a != 0) aPhi[(mj + sj + 2) * 5 + mi + si + 2] += a * v;
+                            }
+                    }
+                c.Centre[k] = Dot(c, f, aPhi, I, J, 0, 0);
+                c.West[k] = I > 0 ? Dot(c, f, aPhi, I, J, -1, 0) : 0;
+                c.South[k] = J > 0 ? Dot(c, f, aPhi, I, J, 0, -1) : 0;
+                c.SouthWest![k] = I > 0 && J > 0 ? Dot(c, f, aPhi, I, J, -1, -1) : 0;
+                c.SouthEast![k] = I + 1 < ncx && J > 0 ? Dot(c, f, aPhi, I, J, 1, -1) : 0;
+            }
+    }
+
+    /// <summary>phi_L^T (A phi_K) for L = K + (dI, dJ), over the fine nodes both supports share.</summary>
+    private static double Dot(StencilLevel c, StencilLevel f, ReadOnlySpan<double> aPhi, int I, int J, int dI, int dJ)
+    {
+        int LI = I + dI, LJ = J + dJ;
+        double s = 0;
+        for (int dj = -1; dj <= 1; dj++)
+            for (int di = -1; di <= 1; di++)
+            {
+                int i = 2 * LI + di, j = 2 * LJ + dj;                       // fine node in L's support
+                int pi = i - 2 * I + 2, pj = j - 2 * J + 2;                 // its place in K's 5 x 5 patch
+                if (pi < 0 || pj < 0 || pi > 4 || pj > 4 || i < 0 || j < 0 || i >= f.Nx || j >= f.Ny) continue;
+                double a = aPhi[pj * 5 + pi];
+                if (a != 0) s += Weight(c, LI, LJ, di, dj) * a;
+            }
+        return s;
+    }
+}
