@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace SlotOpt.Plates.Grid;
 
 /// <summary>
@@ -27,6 +29,7 @@ internal static class BlackBoxCoarsening
 
     private static double Ratio(double numerator, double denominator) => denominator > 0 ? -numerator / denominator : 0;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void BuildProlongation(StencilLevel f, StencilLevel c)
     {
         int ncx = c.Nx, ncy = c.Ny, nc = ncx * ncy;
@@ -98,58 +101,69 @@ internal static class BlackBoxCoarsening
     /// nodes around it); per coarse node A phi_K is formed on the 5 x 5 patch around it and dotted
     /// with the basis functions of K and its west, south, south-west and south-east neighbours.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void GalerkinOperator(StencilLevel f, StencilLevel c)
     {
-        int ncx = c.Nx, ncy = c.Ny;
-        Span<double> phi = stackalloc double[9];
+        int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx, fny = f.Ny;
+        // phi[9 k + t]: coarse node k's weight at fine offset t = (dj + 1) 3 + di + 1; 0 off the lattice
+        var phi = new double[9 * ncx * ncy];
+        for (int J = 0; J < ncy; J++)
+            for (int I = 0; I < ncx; I++)
+                for (int dj = -1; dj <= 1; dj++)
+                    for (int di = -1; di <= 1; di++)
+                    {
+                        int i = 2 * I + di, j = 2 * J + dj;
+                        if (i >= 0 && j >= 0 && i < fnx && j < fny) phi[9 * (J * ncx + I) + (dj + 1) * 3 + di + 1] = Weight(c, I, J, di, dj);
+                    }
+        var cw = f.West; var cs = f.South; var cc = f.Centre; var csw = f.SouthWest; var cse = f.SouthEast;
         Span<double> aPhi = stackalloc double[25];
         for (int J = 0; J < ncy; J++)
             for (int I = 0; I < ncx; I++)
             {
                 int k = J * ncx + I;
-                int fi = 2 * I, fj = 2 * J;
-                for (int dj = -1; dj <= 1; dj++)
-                    for (int di = -1; di <= 1; di++)
-                    {
-                        int i = fi + di, j = fj + dj;
-                        phi[(dj + 1) * 3 + di + 1] = i >= 0 && j >= 0 && i < f.Nx && j < f.Ny ? Weight(c, I, J, di, dj) : 0;
-                    }
+                int p0 = 2 * J * fnx + 2 * I;
                 aPhi.Clear();
-                for (int mj = -1; mj <= 1; mj++)
-                    for (int mi = -1; mi <= 1; mi++)
-                    {
-                        double v = phi[(mj + 1) * 3 + mi + 1];
-                        if (v == 0) continue;
-                        int i = fi + mi, j = fj + mj;
-                        for (int sj = -1; sj <= 1; sj++)
-                            for (int si = -1; si <= 1; si++)
-                            {
-                                double a = f.Entry(i, j, si, sj);
-                                if (a != 0) aPhi[(mj + sj + 2) * 5 + mi + si + 2] += a * v;
-                            }
-                    }
-                c.Centre[k] = Dot(c, f, aPhi, I, J, 0, 0);
-                c.West[k] = I > 0 ? Dot(c, f, aPhi, I, J, -1, 0) : 0;
-                c.South[k] = J > 0 ? Dot(c, f, aPhi, I, J, 0, -1) : 0;
-                c.SouthWest![k] = I > 0 && J > 0 ? Dot(c, f, aPhi, I, J, -1, -1) : 0;
-                c.SouthEast![k] = I + 1 < ncx && J > 0 ? Dot(c, f, aPhi, I, J, 1, -1) : 0;
+                for (int t = 0; t < 9; t++)
+                {
+                    double v = phi[9 * k + t];
+                    if (v == 0) continue;
+                    int mi = t % 3 - 1, mj = t / 3 - 1;
+                    int pm = p0 + mj * fnx + mi;
+                    int centre = (mj + 2) * 5 + mi + 2;   // the support node's place in the 5 x 5 patch
+                    aPhi[centre] += cc[pm] * v;
+                    aPhi[centre - 1] += cw[pm] * v;
+                    aPhi[centre + 1] += cw[pm + 1] * v;
+                    aPhi[centre - 5] += cs[pm] * v;
+                    aPhi[centre + 5] += cs[pm + fnx] * v;
+                    if (csw is null) continue;
+                    aPhi[centre - 6] += csw[pm] * v;
+                    aPhi[centre + 6] += csw[pm + fnx + 1] * v;
+                    aPhi[centre - 4] += cse![pm] * v;
+                    aPhi[centre + 4] += cse[pm + fnx - 1] * v;
+                }
+                c.Centre[k] = Project(phi, 9 * k, aPhi, 0, 0);
+                c.West[k] = I > 0 ? Project(phi, 9 * (k - 1), aPhi, -1, 0) : 0;
+                c.South[k] = J > 0 ? Project(phi, 9 * (k - ncx), aPhi, 0, -1) : 0;
+                c.SouthWest![k] = I > 0 && J > 0 ? Project(phi, 9 * (k - ncx - 1), aPhi, -1, -1) : 0;
+                c.SouthEast![k] = I + 1 < ncx && J > 0 ? Project(phi, 9 * (k - ncx + 1), aPhi, 1, -1) : 0;
             }
     }
 
-    /// <summary>phi_L^T (A phi_K) for L = K + (dI, dJ), over the fine nodes both supports share.</summary>
-    private static double Dot(StencilLevel c, StencilLevel f, ReadOnlySpan<double> aPhi, int I, int J, int dI, int dJ)
+    /// <summary>phi_L^T (A phi_K) for L = K + (dI, dJ) whose weights start at phi[at], over the fine nodes in K's 5 x 5 patch.</summary>
+    private static double Project(double[] phi, int at, ReadOnlySpan<double> aPhi, int dI, int dJ)
     {
-        int LI = I + dI, LJ = J + dJ;
         double s = 0;
         for (int dj = -1; dj <= 1; dj++)
+        {
+            int pj = 2 * dJ + dj + 2;
+            if (pj < 0 || pj > 4) continue;
             for (int di = -1; di <= 1; di++)
             {
-                int i = 2 * LI + di, j = 2 * LJ + dj;                       // fine node in L's support
-                int pi = i - 2 * I + 2, pj = j - 2 * J + 2;                 // its place in K's 5 x 5 patch
-                if (pi < 0 || pj < 0 || pi > 4 || pj > 4 || i < 0 || j < 0 || i >= f.Nx || j >= f.Ny) continue;
-                double a = aPhi[pj * 5 + pi];
-                if (a != 0) s += Weight(c, LI, LJ, di, dj) * a;
+                int pi = 2 * dI + di + 2;
+                if (pi < 0 || pi > 4) continue;
+                s += phi[at + (dj + 1) * 3 + di + 1] * aPhi[pj * 5 + pi];
             }
+        }
         return s;
     }
 }

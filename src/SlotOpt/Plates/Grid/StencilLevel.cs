@@ -1,3 +1,6 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+
 namespace SlotOpt.Plates.Grid;
 
 /// <summary>
@@ -19,6 +22,8 @@ internal sealed class StencilLevel
     public int Nodes => Nx * Ny;
     public int Pad => Nx + 1;
     public double[] Centre { get; }
+    /// <summary>1 / Centre, set by <see cref="Complete"/> once the stencil is filled (the smoother multiplies instead of dividing).</summary>
+    public double[] InverseCentre { get; private set; } = Array.Empty<double>();
     public double[] West { get; }
     public double[] South { get; }
     public double[]? SouthWest { get; }
@@ -46,11 +51,18 @@ internal sealed class StencilLevel
 
     public bool IsNinePoint => SouthWest is not null;
 
+    /// <summary>Call once the stencil is filled.</summary>
+    public void Complete()
+    {
+        InverseCentre = new double[Nodes];
+        for (int p = 0; p < Nodes; p++) InverseCentre[p] = 1 / Centre[p];
+    }
+
     public long Bytes
     {
         get
         {
-            long b = 8L * (Centre.Length * (IsNinePoint ? 5 : 3) + X.Length + B.Length + R.Length);
+            long b = 8L * (Centre.Length * (IsNinePoint ? 5 : 3) + InverseCentre.Length + X.Length + B.Length + R.Length);
             foreach (var p in new[] { XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE }) b += 8L * (p?.Length ?? 0);
             return b;
         }
@@ -77,63 +89,123 @@ internal sealed class StencilLevel
         }
     }
 
-    /// <summary>One Gauss–Seidel sweep on A x = b, forward or backward in lexicographic order.</summary>
-    public void Smooth(bool forward)
+    /// <summary>One backward Gauss–Seidel sweep on A x = b (lexicographic order reversed): the post-smoother, the transpose of the forward pre-smoother.</summary>
+    public void SmoothBackward()
     {
-        if (IsNinePoint) SmoothNine(forward); else SmoothFive(forward);
+        if (IsNinePoint) SmoothNineBackward(); else SmoothFiveBackward();
     }
 
-    private void SmoothFive(bool forward)
+    /// <summary>
+    /// The forward sweep from x = 0, followed row by row (one row behind, while the rows are in cache)
+    /// by the residual R = B - A X. The neighbours ahead of the sweep are still 0 when a node is
+    /// updated, so only those behind it are read and X need not be cleared first; and since the sweep
+    /// solves (D + L) X = B, the residual is R = -U X, the couplings to the neighbours ahead.
+    /// </summary>
+    public void SmoothFromZeroThenResidual()
     {
-        var c = Centre; var w = West; var s = South; var x = X; var b = B;
-        int nx = Nx, n = Nodes, o = Pad;
-        if (forward)
-            for (int p = 0; p < n; p++)
-            {
-                int q = o + p;
-                x[q] = (b[q] - w[p] * x[q - 1] - w[p + 1] * x[q + 1] - s[p] * x[q - nx] - s[p + nx] * x[q + nx]) / c[p];
-            }
-        else
-            for (int p = n - 1; p >= 0; p--)
-            {
-                int q = o + p;
-                x[q] = (b[q] - w[p] * x[q - 1] - w[p + 1] * x[q + 1] - s[p] * x[q - nx] - s[p + nx] * x[q + nx]) / c[p];
-            }
+        if (IsNinePoint) NineFromZeroThenResidual(); else FiveFromZeroThenResidual();
     }
 
-    private void SmoothNine(bool forward)
+    // Rows past the last read zeros from the padding of X and of the stencil arrays.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void FiveFromZeroThenResidual()
     {
-        var c = Centre; var w = West; var s = South; var sw = SouthWest!; var se = SouthEast!; var x = X; var b = B;
-        int nx = Nx, n = Nodes, o = Pad;
-        for (int t = 0; t < n; t++)
+        ref double c = ref MemoryMarshal.GetArrayDataReference(InverseCentre);
+        ref double w = ref MemoryMarshal.GetArrayDataReference(West);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(South);
+        ref double x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref double b = ref MemoryMarshal.GetArrayDataReference(B);
+        ref double r = ref MemoryMarshal.GetArrayDataReference(R);
+        int nx = Nx, ny = Ny, o = Pad;
+        for (int j = 0; j <= ny; j++)
         {
-            int p = forward ? t : n - 1 - t;
-            int q = o + p;
-            x[q] = (b[q] - w[p] * x[q - 1] - w[p + 1] * x[q + 1] - s[p] * x[q - nx] - s[p + nx] * x[q + nx]
-                    - sw[p] * x[q - nx - 1] - sw[p + nx + 1] * x[q + nx + 1] - se[p] * x[q - nx + 1] - se[p + nx - 1] * x[q + nx - 1]) / c[p];
+            if (j < ny)
+                for (int p = j * nx, end = p + nx; p < end; p++)
+                {
+                    int q = o + p;
+                    double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx);
+                    Unsafe.Add(ref x, q) = (rest - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)) * Unsafe.Add(ref c, p);
+                }
+            if (j > 0)
+                for (int p = (j - 1) * nx, end = p + nx; p < end; p++)
+                {
+                    int q = o + p;
+                    Unsafe.Add(ref r, q) = -Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx);
+                }
         }
     }
 
-    /// <summary>R = B - A X.</summary>
-    public void Residual()
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void NineFromZeroThenResidual()
     {
-        var c = Centre; var w = West; var s = South; var x = X; var b = B; var r = R;
-        int nx = Nx, n = Nodes, o = Pad;
-        if (!IsNinePoint)
+        ref double c = ref MemoryMarshal.GetArrayDataReference(InverseCentre);
+        ref double w = ref MemoryMarshal.GetArrayDataReference(West);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(South);
+        ref double sw = ref MemoryMarshal.GetArrayDataReference(SouthWest!);
+        ref double se = ref MemoryMarshal.GetArrayDataReference(SouthEast!);
+        ref double x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref double b = ref MemoryMarshal.GetArrayDataReference(B);
+        ref double r = ref MemoryMarshal.GetArrayDataReference(R);
+        int nx = Nx, ny = Ny, o = Pad;
+        for (int j = 0; j <= ny; j++)
         {
-            for (int p = 0; p < n; p++)
-            {
-                int q = o + p;
-                r[q] = b[q] - c[p] * x[q] - w[p] * x[q - 1] - w[p + 1] * x[q + 1] - s[p] * x[q - nx] - s[p + nx] * x[q + nx];
-            }
-            return;
+            if (j < ny)
+                for (int p = j * nx, end = p + nx; p < end; p++)
+                {
+                    int q = o + p;
+                    double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx)
+                                  - Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1) - Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
+                    Unsafe.Add(ref x, q) = (rest - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)) * Unsafe.Add(ref c, p);
+                }
+            if (j > 0)
+                for (int p = (j - 1) * nx, end = p + nx; p < end; p++)
+                {
+                    int q = o + p;
+                    Unsafe.Add(ref r, q) = -Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx)
+                        - Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1) - Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
+                }
         }
-        var sw = SouthWest!; var se = SouthEast!;
-        for (int p = 0; p < n; p++)
+    }
+
+    // The neighbour the sweep has just updated is subtracted last, so the independent terms overlap
+    // with the previous node's update instead of waiting for it.
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void SmoothFiveBackward()
+    {
+        ref double c = ref MemoryMarshal.GetArrayDataReference(InverseCentre);
+        ref double w = ref MemoryMarshal.GetArrayDataReference(West);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(South);
+        ref double x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref double b = ref MemoryMarshal.GetArrayDataReference(B);
+        int nx = Nx, n = Nodes, o = Pad;
+        for (int p = n - 1; p >= 0; p--)
         {
             int q = o + p;
-            r[q] = b[q] - c[p] * x[q] - w[p] * x[q - 1] - w[p + 1] * x[q + 1] - s[p] * x[q - nx] - s[p + nx] * x[q + nx]
-                   - sw[p] * x[q - nx - 1] - sw[p + nx + 1] * x[q + nx + 1] - se[p] * x[q - nx + 1] - se[p + nx - 1] * x[q + nx - 1];
+            double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)
+                          - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx);
+            Unsafe.Add(ref x, q) = (rest - Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1)) * Unsafe.Add(ref c, p);
+        }
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void SmoothNineBackward()
+    {
+        ref double c = ref MemoryMarshal.GetArrayDataReference(InverseCentre);
+        ref double w = ref MemoryMarshal.GetArrayDataReference(West);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(South);
+        ref double sw = ref MemoryMarshal.GetArrayDataReference(SouthWest!);
+        ref double se = ref MemoryMarshal.GetArrayDataReference(SouthEast!);
+        ref double x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref double b = ref MemoryMarshal.GetArrayDataReference(B);
+        int nx = Nx, n = Nodes, o = Pad;
+        for (int p = n - 1; p >= 0; p--)
+        {
+            int q = o + p;
+            double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)
+                          - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx)
+                          - Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1) - Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1)
+                          - Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1) - Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
+            Unsafe.Add(ref x, q) = (rest - Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1)) * Unsafe.Add(ref c, p);
         }
     }
 }

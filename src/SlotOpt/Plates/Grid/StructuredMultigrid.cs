@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using SlotOpt.Numerics;
 
 namespace SlotOpt.Plates.Grid;
@@ -63,11 +64,13 @@ public sealed class StructuredMultigrid : IPreconditioner
     public static StructuredMultigrid Build(PlateGrid grid, NodeRegions regions)
     {
         var fine = FineLevel(grid, regions);
+        fine.Complete();
         var levels = new List<StencilLevel> { fine };
         var current = fine;
         while (current.Nx >= MinimumSide && current.Ny >= MinimumSide && current.Nodes > CoarsestNodes)
         {
             current = BlackBoxCoarsening.Coarsen(current);
+            current.Complete();
             levels.Add(current);
         }
         // coarsest: numbered with the shorter side fastest, so the half-bandwidth is that side + 1
@@ -113,6 +116,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// The finest level: edge conductances as in <see cref="SheetOperator"/> (same resistances, the
     /// same node lattice), outside nodes as identity rows, merged regions glued.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static StencilLevel FineLevel(PlateGrid grid, NodeRegions regions)
     {
         var l = grid.Lattice;
@@ -152,6 +156,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Apply(ReadOnlySpan<double> r, Span<double> z)
     {
         var top = _levels[0];
@@ -183,14 +188,12 @@ public sealed class StructuredMultigrid : IPreconditioner
             SolveCoarsest(level);
             return;
         }
-        Array.Clear(level.X);
-        level.Smooth(forward: true);
-        level.Residual();
+        level.SmoothFromZeroThenResidual();
         var coarse = _levels[k + 1];
         Restrict(level, coarse);
         Cycle(k + 1);
         ProlongAdd(coarse, level);
-        level.Smooth(forward: false);
+        level.SmoothBackward();
     }
 
     private void SolveCoarsest(StencilLevel level)
@@ -211,6 +214,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     }
 
     /// <summary>b_c = P^T r_f: each coarse node gathers the residual of the up to 9 fine nodes its basis function covers.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Restrict(StencilLevel f, StencilLevel c)
     {
         var r = f.R; var b = c.B;
@@ -246,32 +250,38 @@ public sealed class StructuredMultigrid : IPreconditioner
     }
 
     /// <summary>x_f += P x_c, row by row of the fine lattice.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void ProlongAdd(StencilLevel c, StencilLevel f)
     {
         var xc = c.X; var xf = f.X;
         int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, fo = f.Pad, co = c.Pad;
         var xl = c.XLow!; var xh = c.XHigh!; var yl = c.YLow!; var yh = c.YHigh!;
         var sw = c.CentreSW!; var se = c.CentreSE!; var nw = c.CentreNW!; var ne = c.CentreNE!;
+        int pairs = fnx / 2;                       // fine columns 2I, 2I + 1 for I < pairs; a last even column when fnx is odd
         for (int j = 0; j < fny; j++)
         {
-            int J = j / 2, row = fo + j * fnx;
+            int row = fo + j * fnx, k0 = (j / 2) * ncx;
             if ((j & 1) == 0)
             {
-                for (int i = 0; i < fnx; i++)
+                for (int I = 0; I < pairs; I++)
                 {
-                    int I = i / 2, k = J * ncx + I;
-                    xf[row + i] += (i & 1) == 0 ? xc[co + k] : xl[k] * xc[co + k] + xh[k] * xc[co + k + 1];
+                    int k = k0 + I;
+                    double low = xc[co + k], high = xc[co + k + 1];
+                    xf[row + 2 * I] += low;
+                    xf[row + 2 * I + 1] += xl[k] * low + xh[k] * high;
                 }
+                if ((fnx & 1) == 1) xf[row + fnx - 1] += xc[co + k0 + pairs];
             }
             else
             {
-                for (int i = 0; i < fnx; i++)
+                for (int I = 0; I < pairs; I++)
                 {
-                    int I = i / 2, k = J * ncx + I;
-                    xf[row + i] += (i & 1) == 0
-                        ? yl[k] * xc[co + k] + yh[k] * xc[co + k + ncx]
-                        : sw[k] * xc[co + k] + se[k] * xc[co + k + 1] + nw[k] * xc[co + k + ncx] + ne[k] * xc[co + k + ncx + 1];
+                    int k = k0 + I;
+                    double a = xc[co + k], b = xc[co + k + 1], d = xc[co + k + ncx], e = xc[co + k + ncx + 1];
+                    xf[row + 2 * I] += yl[k] * a + yh[k] * d;
+                    xf[row + 2 * I + 1] += sw[k] * a + se[k] * b + nw[k] * d + ne[k] * e;
                 }
+                if ((fnx & 1) == 1) { int k = k0 + pairs; xf[row + fnx - 1] += yl[k] * xc[co + k] + yh[k] * xc[co + k + ncx]; }
             }
         }
     }
