@@ -4,7 +4,7 @@ namespace SlotOpt.Numerics;
 /// Compressed sparse row matrix on raw arrays: the storage of the sheet operator. Column indices
 /// are sorted within each row.
 /// </summary>
-public sealed class CsrMatrix
+public sealed class CsrMatrix : ILinearOperator
 {
     public int Rows { get; }
     public int Columns { get; }

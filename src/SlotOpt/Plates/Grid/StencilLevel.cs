@@ -21,7 +21,8 @@ internal sealed class StencilLevel
     public int Ny { get; }
     public int Nodes => Nx * Ny;
     public int Pad => Nx + 1;
-    public double[] Centre { get; }
+    /// <summary>The diagonal; released (empty) once the level below is built, see <see cref="ReleaseCentre"/>.</summary>
+    public double[] Centre { get; private set; }
     /// <summary>1 / Centre, set by <see cref="Complete"/> once the stencil is filled (the smoother multiplies instead of dividing).</summary>
     public double[] InverseCentre { get; private set; } = Array.Empty<double>();
     public double[] West { get; }
@@ -51,6 +52,9 @@ internal sealed class StencilLevel
 
     public bool IsNinePoint => SouthWest is not null;
 
+    /// <summary>Drops the diagonal once only the smoother (which uses <see cref="InverseCentre"/>) needs the level.</summary>
+    public void ReleaseCentre() => Centre = Array.Empty<double>();
+
     /// <summary>Call once the stencil is filled.</summary>
     public void Complete()
     {
@@ -62,7 +66,7 @@ internal sealed class StencilLevel
     {
         get
         {
-            long b = 8L * (Centre.Length * (IsNinePoint ? 5 : 3) + InverseCentre.Length + X.Length + B.Length + R.Length);
+            long b = 8L * (Centre.Length + West.Length * (IsNinePoint ? 4 : 2) + InverseCentre.Length + X.Length + B.Length + R.Length);
             foreach (var p in new[] { XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE }) b += 8L * (p?.Length ?? 0);
             return b;
         }

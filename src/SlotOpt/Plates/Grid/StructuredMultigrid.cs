@@ -44,8 +44,9 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// <summary>Nodes of merged regions, grouped by region: MergedNodes[MergedStart[m] .. MergedStart[m + 1]), region m is unknown MergedUnknown[m].</summary>
     private readonly int[] _mergedNodes, _mergedStart, _mergedUnknown;
 
-    private StructuredMultigrid(StencilLevel[] levels, BandCholesky coarsest, bool coarsestColumnsFirst, int[] nodeUnknown, int[] mergedNodes, int[] mergedStart, int[] mergedUnknown)
+    private StructuredMultigrid(StencilLevel[] levels, BandCholesky coarsest, bool coarsestColumnsFirst, int[] nodeUnknown, int[] mergedNodes, int[] mergedStart, int[] mergedUnknown, LatticeSheetOperator op)
     {
+        Operator = op;
         _levels = levels;
         _coarsest = coarsest;
         _coarsestColumnsFirst = coarsestColumnsFirst;
@@ -58,18 +59,23 @@ public sealed class StructuredMultigrid : IPreconditioner
 
     public int LevelCount => _levels.Length;
 
+    /// <summary>The sheet operator on this preconditioner's finest level (shares its node vectors: apply the two in turn).</summary>
+    public LatticeSheetOperator Operator { get; }
+
     /// <summary>Bytes held: stencils, transfer weights, level vectors, the coarsest factor and the region lists.</summary>
-    public long Bytes => _levels.Sum(l => l.Bytes) + _coarsest.Bytes + 8L * _coarsestVector.Length + 4L * (_mergedNodes.Length + _mergedStart.Length + _mergedUnknown.Length);
+    public long Bytes => _levels.Sum(l => l.Bytes) + Operator.Bytes + _coarsest.Bytes + 8L * _coarsestVector.Length + 4L * (_mergedNodes.Length + _mergedStart.Length + _mergedUnknown.Length);
 
     public static StructuredMultigrid Build(PlateGrid grid, NodeRegions regions)
     {
-        var fine = FineLevel(grid, regions);
+        var (fine, outsideWeight) = FineLevel(grid, regions);
         fine.Complete();
         var levels = new List<StencilLevel> { fine };
         var current = fine;
         while (current.Nx >= MinimumSide && current.Ny >= MinimumSide && current.Nodes > CoarsestNodes)
         {
-            current = BlackBoxCoarsening.Coarsen(current);
+            var next = BlackBoxCoarsening.Coarsen(current);
+            current.ReleaseCentre();   // the smoother needs only 1 / Centre once the next level is built
+            current = next;
             current.Complete();
             levels.Add(current);
         }
@@ -84,6 +90,7 @@ public sealed class StructuredMultigrid : IPreconditioner
             int di = ib - ia, dj = jb - ja;
             return Math.Abs(di) <= 1 && Math.Abs(dj) <= 1 ? last.Entry(ia, ja, di, dj) : 0;
         });
+        last.ReleaseCentre();
 
         // merged regions: their nodes, grouped
         var map = regions.NodeUnknown;
@@ -106,18 +113,21 @@ public sealed class StructuredMultigrid : IPreconditioner
             int u = map[p];
             if (u >= 0 && regions.IsMerged[u]) nodes[fill[regionOf[u]]++] = p;
         }
-        return new StructuredMultigrid(levels.ToArray(), coarsest, columnsFirst, map, nodes, start, mergedUnknown.ToArray());
+        var merged = mergedUnknown.ToArray();
+        var op = new LatticeSheetOperator(fine, outsideWeight, regions.UnknownCount, map, nodes, start, merged);
+        return new StructuredMultigrid(levels.ToArray(), coarsest, columnsFirst, map, nodes, start, merged, op);
     }
 
     private static (int I, int J) Position(int index, int fast, bool columnsFirst) =>
         columnsFirst ? (index / fast, index % fast) : (index % fast, index / fast);
 
     /// <summary>
-    /// The finest level: edge conductances as in <see cref="SheetOperator"/> (same resistances, the
-    /// same node lattice), outside nodes as identity rows, merged regions glued.
+    /// The finest level: edge weights as in <see cref="SheetOperator"/> (same resistances, the
+    /// same node lattice), outside nodes as identity rows, merged regions glued; and each node's
+    /// weight of edges to the outside (the diagonal part of A that no coupling carries).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static StencilLevel FineLevel(PlateGrid grid, NodeRegions regions)
+    private static (StencilLevel Level, double[] OutsideWeight) FineLevel(PlateGrid grid, NodeRegions regions)
     {
         var l = grid.Lattice;
         int nx = l.NodesX, ny = l.NodesY;
@@ -133,6 +143,9 @@ public sealed class StructuredMultigrid : IPreconditioner
             }
         double glue = GlueFactor * largest;
         var c = level.Centre; var w = level.West; var s = level.South;
+        var outside = new double[nx * ny];
+        if (regions.UnknownCount == 0) throw SheetOperator.NoFreeNode();
+        var diagonal = new double[regions.UnknownCount];   // A's diagonal, to refuse an unknown with no conducting cell beside it
         for (int j = 0; j < ny; j++)
             for (int i = 0; i < nx; i++)
             {
@@ -141,7 +154,8 @@ public sealed class StructuredMultigrid : IPreconditioner
                 if (i > 0) Couple(p - 1, p, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i - 1, j, rx), w);
                 if (j > 0) Couple(p - nx, p, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i, j - 1, ry), s);
             }
-        return level;
+        for (int u = 0; u < diagonal.Length; u++) if (!(diagonal[u] > 0)) throw SheetOperator.NoConductingCellBeside(u);
+        return (level, outside);
 
         // the edge between nodes a and p (p the stored side) with conductance r in the sheet operator
         void Couple(int a, int p, double r, double[] store)
@@ -150,9 +164,11 @@ public sealed class StructuredMultigrid : IPreconditioner
             if (ua < 0 && up < 0) return;
             if (ua == up) { store[p] = -glue; c[a] += glue; c[p] += glue; return; }
             if (r == 0) return;
-            if (ua >= 0) c[a] += r;
-            if (up >= 0) c[p] += r;
+            if (ua >= 0) { c[a] += r; diagonal[ua] += r; }
+            if (up >= 0) { c[p] += r; diagonal[up] += r; }
             if (ua >= 0 && up >= 0) store[p] = -r;
+            else if (ua >= 0) outside[a] += r;
+            else outside[p] += r;
         }
     }
 
