@@ -9,7 +9,8 @@ namespace SlotOpt.Plates.Grid;
 /// preconditioner and the sheet operator at unit reference sheet conductance (1 S) on its lattice;
 /// the operator as a stored CSR matrix only when a caller asks for it (the plate's own field). Build it once per slot geometry; every source,
 /// source position, thickness and material reuses it (loss and drag scale linearly with the
-/// reference sheet conductance, see <see cref="UnitConductanceSolution"/>).
+/// reference sheet conductance, see <see cref="UnitConductanceSolution"/>). A model serves one thread at a
+/// time: its solves share the multigrid's buffers (parallel runs build one model per geometry and thread).
 /// </summary>
 public sealed class SheetModel
 {
