@@ -27,14 +27,14 @@ internal static class BlackBoxCoarsening
         return c;
     }
 
-    private static double Ratio(double numerator, double denominator) => denominator > 0 ? -numerator / denominator : 0;
+    private static float Ratio(double numerator, double denominator) => denominator > 0 ? (float)(-numerator / denominator) : 0f;
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void BuildProlongation(StencilLevel f, StencilLevel c)
     {
         int ncx = c.Nx, ncy = c.Ny, nc = ncx * ncy;
-        var xLow = new double[nc]; var xHigh = new double[nc]; var yLow = new double[nc]; var yHigh = new double[nc];
-        var cSW = new double[nc]; var cSE = new double[nc]; var cNW = new double[nc]; var cNE = new double[nc];
+        var xLow = new float[nc]; var xHigh = new float[nc]; var yLow = new float[nc]; var yHigh = new float[nc];
+        var cSW = new float[nc]; var cSE = new float[nc]; var cNW = new float[nc]; var cNE = new float[nc];
         for (int J = 0; J < ncy; J++)
             for (int I = 0; I < ncx; I++)
             {

@@ -34,7 +34,8 @@ internal sealed class StencilLevel
     public double[] B { get; }
     public double[] R { get; }
 
-    public double[]? XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE;
+    /// <summary>Prolongation weights in single precision (they lie in [0, 1]; the Galerkin product uses these same values, so the cycle stays symmetric).</summary>
+    public float[]? XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE;
 
     public StencilLevel(int nx, int ny, bool ninePoint)
     {
@@ -67,7 +68,7 @@ internal sealed class StencilLevel
         get
         {
             long b = 8L * (Centre.Length + West.Length * (IsNinePoint ? 4 : 2) + InverseCentre.Length + X.Length + B.Length + R.Length);
-            foreach (var p in new[] { XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE }) b += 8L * (p?.Length ?? 0);
+            foreach (var p in new[] { XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE }) b += 4L * (p?.Length ?? 0);
             return b;
         }
     }
