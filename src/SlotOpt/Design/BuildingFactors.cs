@@ -1,4 +1,5 @@
 using SlotOpt.Materials;
+using SlotOpt.Reports;
 using SlotOpt.Tables;
 
 namespace SlotOpt.Design;
