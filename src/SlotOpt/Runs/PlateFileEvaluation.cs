@@ -30,7 +30,8 @@ public sealed record PlateFileEvaluation(
 {
     public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null)
     {
-        var model = SheetModel.Build(plate.Geometry, plate.Grid);
+        var grid = plate.MovingSource is { } source ? plate.Grid with { SourceFeatures = source.GridFeatures } : plate.Grid;
+        var model = SheetModel.Build(plate.Geometry, grid);
         var clock = Stopwatch.StartNew();
         if (plate.AcSource is { } ac)
         {

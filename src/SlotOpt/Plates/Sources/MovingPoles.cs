@@ -40,6 +40,30 @@ public sealed class MovingPoles : IMovingSheetSource
     /// <summary>The smallest pole's size along the travel: the length scale of the moving skin depth.</summary>
     public double PoleSizeXM => 2 * Poles.Min(p => p.Face.HalfWidthXM);
 
+    /// <summary>The widths the grid must resolve: the smallest pole's width along and across the travel, and the narrowest gap between poles side by side along x.</summary>
+    public IReadOnlyList<GridFeature> GridFeatures
+    {
+        get
+        {
+            var features = new List<GridFeature>
+            {
+                new(GridFeatureKind.Pole, "the pole's width along the travel", 2 * Poles.Min(p => p.Face.HalfWidthXM)),
+                new(GridFeatureKind.Pole, "the pole's width across the travel", 2 * Poles.Min(p => p.Face.HalfHeightYM)),
+            };
+            double gap = double.MaxValue;
+            for (int i = 0; i < Poles.Count; i++)
+                for (int j = i + 1; j < Poles.Count; j++)
+                {
+                    Pole a = Poles[i], b = Poles[j];
+                    bool sideBySide = Math.Abs(a.Centre.Y - b.Centre.Y) < a.Face.HalfHeightYM + b.Face.HalfHeightYM;
+                    double g = Math.Abs(a.Centre.X - b.Centre.X) - a.Face.HalfWidthXM - b.Face.HalfWidthXM;
+                    if (sideBySide && g > 0) gap = Math.Min(gap, g);
+                }
+            if (gap < double.MaxValue) features.Add(new GridFeature(GridFeatureKind.PoleGap, "the gap between poles", gap));
+            return features;
+        }
+    }
+
     /// <summary>Extent in x of the row at offset zero.</summary>
     public (double MinXM, double MaxXM) ExtentX => (Poles.Min(p => p.Centre.X - p.Face.HalfWidthXM), Poles.Max(p => p.Centre.X + p.Face.HalfWidthXM));
 
