@@ -1,6 +1,7 @@
 using System.CommandLine;
 using SlotOpt.Design;
 using SlotOpt.Input;
+using SlotOpt.Reports;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
@@ -15,10 +16,10 @@ public static class CheckCommand
         var command = new Command("check", "Validate a problem file (every mistake at once, with line and key) and summarise its design space");
         command.Arguments.Add(file);
         command.Options.Add(json);
-        command.SetAction(parseResult => CommandRunner.Run(() =>
+        command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var problem = ProblemReader.ReadFile(parseResult.GetValue(file)!);
-            foreach (var w in problem.Warnings) Console.Error.WriteLine($"warning: {w}");
+            foreach (var w in problem.Warnings) error.WriteLine($"warning: {w}");
             var parts = problem.Parts.Select(p => new
             {
                 name = p.Name,
@@ -29,13 +30,13 @@ public static class CheckCommand
             var combinations = ChoiceSpace.Combinations(problem.Parts);
             if (parseResult.GetValue(json))
             {
-                JsonOutput.Write(new { problem = problem.Name, objective = problem.Goal, parts, combinations, warnings = problem.Warnings });
+                output.Write(JsonFormat.Serialize(new { problem = problem.Name, objective = problem.Goal, parts, combinations, warnings = problem.Warnings }));
                 return ExitCodes.Success;
             }
-            Console.WriteLine($"{problem.SourcePath}: \"{problem.Name}\" is valid; objective {problem.Goal}");
+            output.WriteLine($"{problem.SourcePath}: \"{problem.Name}\" is valid; objective {problem.Goal}");
             foreach (var p in parts)
-                Console.WriteLine($"  {p.kind,-5} {p.name,-24} {p.options,8} options{(p.current ? "  (current design given)" : "")}");
-            Console.WriteLine($"  combinations: {(combinations == long.MaxValue ? "more than 9.2e18" : combinations.ToString("N0", System.Globalization.CultureInfo.InvariantCulture))}");
+                output.WriteLine($"  {p.kind,-5} {p.name,-24} {p.options,8} options{(p.current ? "  (current design given)" : "")}");
+            output.WriteLine($"  combinations: {(combinations == long.MaxValue ? "more than 9.2e18" : combinations.ToString("N0", System.Globalization.CultureInfo.InvariantCulture))}");
             return ExitCodes.Success;
         }));
         return command;

@@ -1,33 +1,41 @@
+using System.CommandLine;
+
 namespace SlotOpt.Cli;
 
-/// <summary>Runs a command body and turns the engine's exceptions into a one-line message and an exit code.</summary>
+/// <summary>
+/// Runs a command body with the invocation's output and error writers (the console, or a test's writers) and
+/// turns the engine's exceptions into a one-line message on the error writer and an exit code.
+/// </summary>
 public static class CommandRunner
 {
-    public static int Run(Func<int> body)
+    /// <param name="body">Given the output and the error writer; returns the exit code.</param>
+    public static int Run(ParseResult parseResult, Func<TextWriter, TextWriter, int> body)
     {
+        var output = parseResult.InvocationConfiguration.Output;
+        var error = parseResult.InvocationConfiguration.Error;
         try
         {
-            return body();
+            return body(output, error);
         }
         catch (InputException e)
         {
-            foreach (var line in e.Message.Split(Environment.NewLine)) Console.Error.WriteLine($"error: {line}");
+            foreach (var line in e.Message.Split(Environment.NewLine)) error.WriteLine($"error: {line}");
             return ExitCodes.InvalidInput;
         }
         catch (ResourceLimitException e)
         {
-            Console.Error.WriteLine($"resource limit: {e.Message}");
+            error.WriteLine($"resource limit: {e.Message}");
             return ExitCodes.ResourceLimit;
         }
         catch (NumericalFailureException e)
         {
-            Console.Error.WriteLine($"numerical failure: {e.Message}");
+            error.WriteLine($"numerical failure: {e.Message}");
             return ExitCodes.NumericalFailure;
         }
         catch (Exception e)
         {
-            Console.Error.WriteLine($"internal error (please report): {e.GetType().Name}: {e.Message}");
-            Console.Error.WriteLine(e.StackTrace);
+            error.WriteLine($"internal error (please report): {e.GetType().Name}: {e.Message}");
+            error.WriteLine(e.StackTrace);
             return ExitCodes.InternalError;
         }
     }

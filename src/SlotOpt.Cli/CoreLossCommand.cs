@@ -3,6 +3,7 @@ using System.Globalization;
 using SlotOpt.Input;
 using SlotOpt.Lamination;
 using SlotOpt.Materials;
+using SlotOpt.Reports;
 using SlotOpt.Waveforms;
 
 namespace SlotOpt.Cli;
@@ -22,7 +23,7 @@ public static class CoreLossCommand
         var command = new Command("core-loss", "Specific loss of a lamination grade: hysteresis, classical eddy (skin and width corrected) and excess");
         foreach (var o in new Option[] { grade, peak, frequency, width, temperature, waveform, json }) command.Options.Add(o);
 
-        command.SetAction(parseResult => CommandRunner.Run(() =>
+        command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var steel = MaterialLibrary.BuiltIn.GetSteel(parseResult.GetValue(grade)!, "--grade");
             var f = QuantityOption.ReadPositive(parseResult, frequency, QuantityKind.Frequency)!.Value;
@@ -52,7 +53,7 @@ public static class CoreLossCommand
             var loss = LaminationLossModel.Evaluate(steel, flux, conditions);
             if (parseResult.GetValue(json))
             {
-                JsonOutput.Write(new
+                output.Write(JsonFormat.Serialize(new
                 {
                     grade = steel.Grade,
                     thickness_mm = steel.ThicknessM * 1e3,
@@ -71,10 +72,10 @@ public static class CoreLossCommand
                     thickness_over_skin_depth = loss.ThicknessOverSkinDepth,
                     resistivity_uohm_m = loss.ResistivityOhmM * 1e6,
                     flags = loss.Flags.Select(x => new { code = x.Code, message = x.Message }),
-                });
+                }));
                 return ExitCodes.Success;
             }
-            var o = Console.Out;
+            var o = output;
             var ci = CultureInfo.InvariantCulture;
             o.WriteLine(string.Create(ci, $"{steel.Grade} ({steel.ThicknessM * 1e3:0.00} mm) at {flux.PeakT:0.###} T peak, {f:0.##} Hz, {(file is null ? "sine" : "waveform " + file)}, {conditions.TemperatureK - 273.15:0.#} degC"));
             o.WriteLine(string.Create(ci, $"  hysteresis   {loss.HysteresisWPerKg,10:0.0000} W/kg"));

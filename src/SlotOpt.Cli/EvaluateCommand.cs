@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using SlotOpt.Design;
 using SlotOpt.Input;
+using SlotOpt.Reports;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
@@ -16,17 +17,17 @@ public static class EvaluateCommand
         var command = new Command("evaluate", "Evaluate the current design of every part (or the baseline: solid plates, the first grade): loss, drag, cost");
         command.Arguments.Add(file);
         command.Options.Add(json);
-        command.SetAction(parseResult => CommandRunner.Run(() =>
+        command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var problem = ProblemReader.ReadFile(parseResult.GetValue(file)!);
-            foreach (var w in problem.Warnings) Console.Error.WriteLine($"warning: {w}");
+            foreach (var w in problem.Warnings) error.WriteLine($"warning: {w}");
             var rows = problem.Parts.Select(p => (Part: p, Option: ReferenceDesigns.CurrentOrBaseline(p, problem), IsCurrent: ReferenceDesigns.IsCurrent(p))).ToList();
             var totalLoss = rows.Sum(r => r.Option.Loss.TotalW);
             var totalCost = rows.Sum(r => r.Option.BuildCost);
             var owning = totalCost + problem.Economics.ValuePerWatt * totalLoss;
             if (parseResult.GetValue(json))
             {
-                JsonOutput.Write(new
+                output.Write(JsonFormat.Serialize(new
                 {
                     problem = problem.Name,
                     currency = problem.Economics.Currency,
@@ -42,27 +43,27 @@ public static class EvaluateCommand
                         plate_eddy_w = r.Option.Loss.PlateEddyW,
                         drag_n = r.Option.DragN,
                         build_cost = r.Option.BuildCost,
-                        breaks_rule = r.Option.Rejection,
+                        breaks_rule = r.Option.Rejection?.Message,
                         flags = r.Option.Flags,
                     }),
                     total_loss_w = totalLoss,
                     total_cost = totalCost,
                     value_per_watt = problem.Economics.ValuePerWatt,
                     owning_cost = owning,
-                });
+                }));
                 return ExitCodes.Success;
             }
             var ci = CultureInfo.InvariantCulture;
             var cur = problem.Economics.Currency;
-            Console.WriteLine($"{problem.Name}");
+            output.WriteLine($"{problem.Name}");
             foreach (var r in rows)
             {
-                Console.WriteLine(string.Create(ci, $"  {r.Part.Name} ({(r.IsCurrent ? "current design" : "baseline")}): {r.Option.Description}"));
-                Console.WriteLine(string.Create(ci, $"      loss {r.Option.Loss.TotalW,10:0.###} W{(r.Option.DragN is { } d ? $"   drag {d:0.####} N" : "")}   build cost {r.Option.BuildCost,10:0.00} {cur}"));
-                if (r.Option.Rejection is { } broken) Console.WriteLine($"      breaks a rule: {broken}");
-                foreach (var flag in r.Option.Flags) Console.WriteLine($"      warning: {flag}");
+                output.WriteLine(string.Create(ci, $"  {r.Part.Name} ({(r.IsCurrent ? "current design" : "baseline")}): {r.Option.Description}"));
+                output.WriteLine(string.Create(ci, $"      loss {r.Option.Loss.TotalW,10:0.###} W{(r.Option.DragN is { } d ? $"   drag {d:0.####} N" : "")}   build cost {r.Option.BuildCost,10:0.00} {cur}"));
+                if (r.Option.Rejection is { } broken) output.WriteLine($"      breaks a rule: {broken.Message}");
+                foreach (var flag in r.Option.Flags) output.WriteLine($"      warning: {flag}");
             }
-            Console.WriteLine(string.Create(ci, $"  total: loss {totalLoss:0.###} W, build cost {totalCost:0.00} {cur}, owning cost {owning:0.00} {cur} (at {problem.Economics.ValuePerWatt:0.###} {cur}/W)"));
+            output.WriteLine(string.Create(ci, $"  total: loss {totalLoss:0.###} W, build cost {totalCost:0.00} {cur}, owning cost {owning:0.00} {cur} (at {problem.Economics.ValuePerWatt:0.###} {cur}/W)"));
             return ExitCodes.Success;
         }));
         return command;

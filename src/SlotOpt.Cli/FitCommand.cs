@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using SlotOpt.Input;
 using SlotOpt.Lamination;
+using SlotOpt.Reports;
 
 namespace SlotOpt.Cli;
 
@@ -20,7 +21,7 @@ public static class FitCommand
         command.Arguments.Add(file);
         foreach (var o in new Option[] { thickness, resistivity, density, permeability, json }) command.Options.Add(o);
 
-        command.SetAction(parseResult => CommandRunner.Run(() =>
+        command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var d = QuantityOption.ReadPositive(parseResult, thickness, QuantityKind.Length)!.Value;
             var rho = QuantityOption.ReadPositive(parseResult, resistivity, QuantityKind.Resistivity)!.Value;
@@ -32,16 +33,16 @@ public static class FitCommand
             var fit = LossCoefficientFit.Fit(data, d, rho, rhoM, mu);
             if (parseResult.GetValue(json))
             {
-                JsonOutput.Write(new
+                output.Write(JsonFormat.Serialize(new
                 {
                     kh = fit.HysteresisCoefficient, alpha = fit.HysteresisExponent, ke = fit.ExcessCoefficient,
                     kh_standard_error = fit.HysteresisCoefficientError, alpha_standard_error = fit.HysteresisExponentError,
                     ke_standard_error = fit.ExcessCoefficientError, kc = fit.ClassicalCoefficient,
                     r_squared = fit.RSquared, worst_relative_error = fit.WorstRelativeError, points = data.Count,
-                });
+                }));
                 return ExitCodes.Success;
             }
-            var o = Console.Out;
+            var o = output;
             var ci = CultureInfo.InvariantCulture;
             o.WriteLine(string.Create(ci, $"Fit of P = kh f B^alpha + kc f^2 B^2 + ke (f B)^1.5 to {data.Count} points of {path}"));
             o.WriteLine(string.Create(ci, $"  kh    = {fit.HysteresisCoefficient:0.000000} +/- {fit.HysteresisCoefficientError:0.000000} W/(kg Hz T^alpha)"));

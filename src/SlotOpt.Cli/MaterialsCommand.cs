@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using SlotOpt.Materials;
+using SlotOpt.Reports;
 
 namespace SlotOpt.Cli;
 
@@ -12,14 +13,14 @@ public static class MaterialsCommand
         var json = new Option<bool>("--json") { Description = "Print one JSON object" };
         var command = new Command("materials", "List the built-in lamination grades and plate conductors with their data and sources");
         command.Options.Add(json);
-        command.SetAction(parseResult => CommandRunner.Run(() =>
+        command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var library = MaterialLibrary.BuiltIn;
             var steels = library.Steels.OrderBy(s => s.Family).ThenBy(s => s.ThicknessM).ThenBy(s => s.SpecMaxLossWPerKg).ToList();
             var conductors = library.Conductors.OrderBy(c => c.Name, StringComparer.Ordinal).ToList();
             if (parseResult.GetValue(json))
             {
-                JsonOutput.Write(new
+                output.Write(JsonFormat.Serialize(new
                 {
                     grades = steels.Select(s => new
                     {
@@ -36,10 +37,10 @@ public static class MaterialsCommand
                         density_kg_m3 = c.DensityKgPerM3, relative_permeability = c.RelativePermeability, magnetic = c.IsMagnetic,
                         temperature_model = c.TemperatureModel, price_per_kg = c.PricePerKg, source = c.Source,
                     }),
-                });
+                }));
                 return ExitCodes.Success;
             }
-            var o = Console.Out;
+            var o = output;
             var ci = CultureInfo.InvariantCulture;
             o.WriteLine("Lamination grades (limit = the standard's maximum specific loss at its specification point)");
             o.WriteLine($"{"grade",-10} {"family",-16} {"t mm",5} {"rho uOhm m",10} {"limit W/kg",10} {"at",12} {"SF",5} {"kh",8} {"alpha",6} {"ke",9} {"price/kg",8}");

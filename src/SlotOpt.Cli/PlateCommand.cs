@@ -1,13 +1,12 @@
 using System.CommandLine;
 using System.Globalization;
 using System.Text;
-using System.Text.Encodings.Web;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using SlotOpt.Input;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Reports;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
@@ -17,20 +16,20 @@ public static class PlateCommand
 {
     public static Command Build()
     {
-        var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]]" };
+        var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]], [thermal]" };
         var json = new Option<bool>("--json") { Description = "print one JSON object instead of text" };
         var map = new Option<string?>("--map") { Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
         var command = new Command("plate", "Eddy-current loss and drag of one conducting plate in a normal field, with the model its validity figures call for.");
         command.Arguments.Add(file);
         command.Options.Add(json);
         command.Options.Add(map);
-        command.SetAction(parseResult => CommandRunner.Run(() =>
+        command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var plate = PlateFileReader.Read(parseResult.GetValue(file)!);
             var evaluation = PlateFileEvaluation.Evaluate(plate);
             var mapPath = parseResult.GetValue(map);
             if (!string.IsNullOrEmpty(mapPath)) WriteMap(evaluation.Result.Map, mapPath);
-            Console.Out.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
+            output.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
             return ExitCodes.Success;
         }));
         return command;
@@ -63,7 +62,8 @@ public static class PlateCommand
             ["warnings"] = new JsonArray(r.Validity.Warnings.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
             ["notes"] = new JsonArray(r.Notes.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
         };
-        return o.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + Environment.NewLine;
+        PlateTemperatureOutput.AddJson(o, e);
+        return JsonFormat.Serialize(o);
     }
 
     private static string Text(PlateFileEvaluation e)
@@ -78,6 +78,7 @@ public static class PlateCommand
         s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
         s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");
+        PlateTemperatureOutput.AppendText(s, e);
         s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {e.RelativeResidual:E1}, {e.SetupSeconds + e.SolveSeconds:F2} s");
         foreach (var w in r.Validity.Warnings) s.AppendLine($"  warning: {w}");
         foreach (var n in r.Notes) s.AppendLine($"  note: {n}");

@@ -4,16 +4,19 @@ namespace SlotOpt.Cli;
 
 public static class Program
 {
-    public static int Main(string[] args)
+    public static int Main(string[] args) => Invoke(args, Console.Out, Console.Error);
+
+    /// <summary>Parses and runs one command line, writing to the given output and error writers; returns the exit code.</summary>
+    public static int Invoke(string[] args, TextWriter output, TextWriter error)
     {
         var parseResult = SlotOptCommand.Build().Parse(args);
         if (parseResult.Errors.Count > 0 && !HelpRequested(args))
         {
-            foreach (var error in parseResult.Errors) Console.Error.WriteLine($"error: {error.Message}");
-            Console.Error.WriteLine("(run with --help for usage)");
+            foreach (var e in parseResult.Errors) error.WriteLine($"error: {e.Message}");
+            error.WriteLine("(run with --help for usage)");
             return ExitCodes.InvalidInput;
         }
-        return parseResult.Invoke();
+        return parseResult.Invoke(new InvocationConfiguration { Output = output, Error = error });
     }
 
     private static bool HelpRequested(string[] args) => args.Any(a => a is "--help" or "-h" or "-?");

@@ -1,6 +1,5 @@
 using System.CommandLine;
 using System.Runtime.InteropServices;
-using System.Text.Json;
 using SlotOpt.Input;
 using SlotOpt.Reports;
 using SlotOpt.Runs;
@@ -24,28 +23,28 @@ public static class RunCommand
         command.Options.Add(force);
         var limits = new RunLimitOptions();
         limits.AddTo(command);
-        command.SetAction(parseResult => CommandRunner.Run(() =>
+        command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var evaluationLimits = limits.Evaluation(parseResult);   // flags first: a bad flag is reported before any work
             var reportDir = parseResult.GetValue(outDir);
             var replace = parseResult.GetValue(force);
             if (replace && reportDir is null) throw new InputException("--force only applies with --out DIR");
-            if (reportDir is not null) ReportFolder.CheckTarget(reportDir, replace);
+            if (reportDir is not null) ReportFolder.CheckTarget(reportDir, replace, parseResult.GetValue(file)!);
             var problem = ProblemReader.ReadFile(parseResult.GetValue(file)!);
-            foreach (var w in problem.Warnings) Console.Error.WriteLine($"warning: {w}");
+            foreach (var w in problem.Warnings) error.WriteLine($"warning: {w}");
             RunResult result;
-            using (var bar = new ProgressBar("solving slot geometries", CandidateEvaluation.GeometryCount(problem)))
+            using (var bar = new ProgressBar("solving slot geometries", CandidateEvaluation.GeometryCount(problem), error))
                 result = DesignRun.Execute(problem, limits.Search(parseResult), bar, evaluationLimits);
-            if (parseResult.GetValue(json)) JsonOutput.Write(RunJson.From(result));
-            else RunText.Write(result, Console.Out);
+            if (parseResult.GetValue(json)) output.Write(ResultJson.From(result).Serialize());
+            else RunText.Write(result, output);
             if (reportDir is not null)
             {
                 if (WriteReport(result, reportDir, replace) is { } signalExit)
                 {
-                    Console.Error.WriteLine("interrupted: the report was not written");
+                    error.WriteLine("interrupted: the report was not written");
                     return signalExit;
                 }
-                Console.Error.WriteLine($"report: {Path.Combine(reportDir, ReportWriter.HtmlFile)}");
+                error.WriteLine($"report: {Path.Combine(reportDir, ReportWriter.HtmlFile)}");
             }
             return result.Outcome.Status switch
             {
@@ -78,7 +77,7 @@ public static class RunCommand
         using var onTerminate = PosixSignalRegistration.Create(PosixSignal.SIGTERM, c => Stop(c, TerminatedExit));
         try
         {
-            ReportWriter.Write(result, ReportJson(result), DateTimeOffset.UtcNow, folder);
+            ReportWriter.Write(result, DateTimeOffset.UtcNow, folder);
             return null;
         }
         catch (InvalidOperationException) when (signalExit is not null)
@@ -86,8 +85,4 @@ public static class RunCommand
             return signalExit;   // the folder was abandoned under the writer
         }
     }
-
-    /// <summary>The object `run --json` prints (it holds no wall-clock times, so two runs give the same file).</summary>
-    public static string ReportJson(RunResult result) =>
-        JsonSerializer.Serialize(RunJson.From(result), JsonOutput.Options) + Environment.NewLine;
 }

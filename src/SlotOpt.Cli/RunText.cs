@@ -1,12 +1,11 @@
 using System.Globalization;
 using SlotOpt.Design;
-using SlotOpt.Reports;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 
 namespace SlotOpt.Cli;
 
-/// <summary>The console form of a run: chosen design per part against the reference, totals, savings, limits, front.</summary>
+/// <summary>The console form of a run, formatted from the result itself: chosen design per part against the reference, its confirmation, totals, savings, limits, front.</summary>
 public static class RunText
 {
     public static void Write(RunResult r, TextWriter o)
@@ -38,8 +37,8 @@ public static class RunText
             o.WriteLine(string.Create(ci, $"    chosen:  {chosen.Description}"));
             o.WriteLine(string.Create(ci, $"             loss {chosen.Loss.TotalW:0.###} W{Drag(chosen.DragN)}, build cost {chosen.BuildCost:0.00} {cur}"));
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
-            o.WriteLine(string.Create(ci, $"             loss {reference.Loss.TotalW:0.###} W{Drag(reference.DragN)}, build cost {reference.BuildCost:0.00} {cur}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})")}"));
-            if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Reports.ReportContent.ConfirmationLine(confirmed)[(chosen.PartName.Length + 2)..]}");
+            o.WriteLine(string.Create(ci, $"             loss {reference.Loss.TotalW:0.###} W{Drag(reference.DragN)}, build cost {reference.BuildCost:0.00} {cur}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}"));
+            if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Confirmed(confirmed)}");
             foreach (var flag in chosen.Flags) o.WriteLine($"    warning: {flag}");
         }
         o.WriteLine();
@@ -61,6 +60,10 @@ public static class RunText
         o.WriteLine();
         o.WriteLine("  These are engineering estimates to be confirmed by test; see the report's cautions.");
     }
+
+    /// <summary>A chosen plate as confirmed: which model ran, its loss, drag and lift, the resistance-limited screen's loss, and why that model.</summary>
+    private static string Confirmed(PlateConfirmation c) => string.Create(CultureInfo.InvariantCulture,
+        $"{c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? string.Create(CultureInfo.InvariantCulture, $", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W). {c.Reason}");
 
     private static string Drag(double? dragN) => dragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "";
 }

@@ -14,8 +14,9 @@ public static class Program
             case "sheets": return SheetsBench.Run(rest);
             case "selection": return SelectionBench.Run(rest);
             case "reaction": return ReactionBench.Run(rest);
+            case "thermal": return ThermalBench.Run(rest);
             default:
-                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, selection, reaction, demos)");
+                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, selection, reaction, thermal, demos)");
                 return 2;
         }
     }

@@ -2,6 +2,7 @@ using System.Diagnostics;
 using System.Globalization;
 using System.Text.Json;
 using SlotOpt.Selection;
+using SlotOpt.Selection.Search;
 
 namespace SlotOpt.Bench;
 

@@ -26,11 +26,11 @@ public static class CoreOptions
             specific.ClassicalWPerKg * cost.SteelMassKg,
             specific.ExcessWPerKg * cost.SteelMassKg,
             0, 0);
-        string? rejection = null;
-        if (specific.Flags.Any(f => f.Code == "flux-beyond-grade"))
-            rejection = specific.Flags.First(f => f.Code == "flux-beyond-grade").Message;
+        RuleBreak? rejection = null;
+        if (specific.Flags.FirstOrDefault(f => f.Code == "flux-beyond-grade") is { } beyond)
+            rejection = new RuleBreak(RuleKind.FluxBeyondGrade, beyond.Message);
         else if (part.MaxLossW is { } cap && loss.TotalW > cap)
-            rejection = string.Create(CultureInfo.InvariantCulture, $"loss {loss.TotalW:0.##} W exceeds the part's limit of {cap:0.##} W");
+            rejection = new RuleBreak(RuleKind.LossAboveLimit, string.Create(CultureInfo.InvariantCulture, $"loss {loss.TotalW:0.##} W exceeds the part's limit of {cap:0.##} W"));
         var attributes = new Dictionary<string, string>
         {
             ["grade"] = steel.Grade,

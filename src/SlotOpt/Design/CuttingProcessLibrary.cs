@@ -1,4 +1,3 @@
-using System.Reflection;
 using SlotOpt.Tables;
 
 namespace SlotOpt.Design;
@@ -12,11 +11,7 @@ public static class CuttingProcessLibrary
 
     private static IReadOnlyDictionary<string, CuttingProcess> Load()
     {
-        const string resource = "SlotOpt.Design.cutting-processes.csv";
-        using var stream = Assembly.GetExecutingAssembly().GetManifestResourceStream(resource)
-            ?? throw new InvalidOperationException($"embedded data file {resource} is missing from the build");
-        using var reader = new StreamReader(stream);
-        var table = CsvTable.Parse(reader.ReadToEnd(), "built-in cutting-processes.csv");
+        var table = EmbeddedData.ReadCsv("Design", "cutting-processes.csv");
         return table.Rows.Select(r => new CuttingProcess(
                 r.Text("process"),
                 r.Number("min_slot_width_mm") * 1e-3,

@@ -14,7 +14,7 @@ public sealed record EvaluatedOption(
     LossBreakdown Loss,
     double? DragN,
     IReadOnlyList<string> Flags,
-    string? Rejection)
+    RuleBreak? Rejection)
 {
     public bool IsFeasible => Rejection is null;
 }

@@ -24,10 +24,8 @@ public static class FingerStiffness
     /// <summary>The longest finger of this width whose first mode stays FrequencyMargin above 2 f.</summary>
     public static double LongestFingerM(double widthM, double supplyFrequencyHz, double youngsModulusPa, double densityKgPerM3)
     {
-        const double beta1L = 1.87510407;
         var target = FrequencyMargin * 2 * supplyFrequencyHz;
-        // invert f1 = c / L^2 for L
-        var c = beta1L * beta1L / (2 * Math.PI) * Math.Sqrt(youngsModulusPa * widthM * widthM / (12 * densityKgPerM3));
-        return Math.Sqrt(c / target);
+        // f1 = c / L^2, so c is the first mode of a 1 m finger and L = sqrt(c / target)
+        return Math.Sqrt(FirstModeHz(1, widthM, youngsModulusPa, densityKgPerM3) / target);
     }
 }

@@ -18,7 +18,8 @@ public static class LossCapitalisation
 
     /// <summary>
     /// A = energy price x hours per year / 1000 x PVF: money per watt of loss running all those hours
-    /// (REFERENCES §10: A = (C_energy x 8760 h) x PVF, no demand charge).
+    /// (IEEE Std C57.120-1991, IEEE Loss Evaluation Guide for Power Transformers and Reactors: A = (C_energy x 8760 h) x PVF,
+    /// PVF = ((1 + i)^n - 1) / (i (1 + i)^n), here with no demand charge).
     /// </summary>
     public static double ValuePerWatt(double energyPricePerKWh, double hoursPerYear, double discountRate, double years) =>
         energyPricePerKWh * hoursPerYear / 1000 * PresentWorthFactor(discountRate, years);

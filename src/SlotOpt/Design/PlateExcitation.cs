@@ -14,33 +14,38 @@ public enum TravelAverage
 }
 
 /// <summary>
-/// What drives the eddy currents in a plate: an AC field (uniform or mapped), or poles moving past it
-/// at a speed, evaluated at several travel offsets whose mean gives the drag.
+/// What drives the eddy currents in a plate: exactly one of an AC field (uniform or mapped) or poles moving
+/// past it at a speed. A closed family: the private constructor admits only the two cases below.
 /// </summary>
-public sealed record PlateExcitation(IAcFieldSource? Ac, double FrequencyHz, MovingPoles? Moving, TravelAverage Average, int Positions)
+public abstract record PlateExcitation
 {
-    public bool IsMoving => Moving is not null;
-    public double SpeedMPerS => Moving?.SpeedMPerS ?? 0;
+    private PlateExcitation() { }
 
-    public static PlateExcitation AcField(IAcFieldSource source, double frequencyHz) => new(source, frequencyHz, null, TravelAverage.SlotPitch, 0);
+    public bool IsMoving => this is Moving;
 
-    public static PlateExcitation MovingSource(MovingPoles poles, TravelAverage average, int positions) => new(null, 0, poles, average, positions);
+    /// <summary>An AC field of one frequency over the plate.</summary>
+    public sealed record AcField(IAcFieldSource Source, double FrequencyHz) : PlateExcitation;
 
-    /// <summary>
-    /// The travel offsets to evaluate: over one slot pitch (the window a slotted plate's drag repeats
-    /// over; for a solid plate, whose drag on a long plate does not depend on the offset, any window
-    /// serves and the caller passes the one its slotted options use, else the poles' own length), or
-    /// across the whole pass of the poles over the plate.
-    /// </summary>
-    public IReadOnlyList<double> Offsets(Polygon outline, double? windowM)
+    /// <summary>Poles moving past the plate, evaluated at several travel offsets whose mean gives the drag.</summary>
+    public sealed record Moving(MovingPoles Poles, TravelAverage Average, int Positions) : PlateExcitation
     {
-        var poles = Moving ?? throw new InvalidOperationException("offsets belong to moving sources");
-        if (Average == TravelAverage.Pass)
+        public double SpeedMPerS => Poles.SpeedMPerS;
+
+        /// <summary>
+        /// The travel offsets to evaluate: over one slot pitch (the window a slotted plate's drag repeats
+        /// over; for a solid plate, whose drag on a long plate does not depend on the offset, any window
+        /// serves and the caller passes the one its slotted options use, else the poles' own length), or
+        /// across the whole pass of the poles over the plate.
+        /// </summary>
+        public IReadOnlyList<double> Offsets(Polygon outline, double? windowM)
         {
-            var (min, max) = outline.Bounds;
-            var (rowMin, rowMax) = poles.ExtentX;
-            return Positions == 1 ? [0.0] : MovingSweepSolution.OffsetsAcross(min.X - rowMax, max.X - rowMin, Positions);
+            if (Average == TravelAverage.Pass)
+            {
+                var (min, max) = outline.Bounds;
+                var (rowMin, rowMax) = Poles.ExtentX;
+                return Positions == 1 ? [0.0] : MovingSweepSolution.OffsetsAcross(min.X - rowMax, max.X - rowMin, Positions);
+            }
+            return MovingSweepSolution.OffsetsOverPitch(windowM ?? Poles.ExtentX.MaxXM - Poles.ExtentX.MinXM, Positions);
         }
-        return MovingSweepSolution.OffsetsOverPitch(windowM ?? poles.ExtentX.MaxXM - poles.ExtentX.MinXM, Positions);
     }
 }

@@ -10,14 +10,7 @@ public static class PlateGeometryFactory
     {
         var geometry = new PlateGeometry(outline);
         if (slots is null) return (geometry, null);
-        var pattern = slots.Pattern switch
-        {
-            SlotPatternKind.Comb => SlotPatterns.Comb(outline, slots.Edge, slots.PitchM, slots.DepthM, slots.WidthM),
-            SlotPatternKind.Alternating => SlotPatterns.Alternating(outline, slots.Edge, slots.PitchM, slots.DepthM, slots.WidthM),
-            SlotPatternKind.EnclosedSlits => SlotPatterns.EnclosedSlits(outline, slots.Edge, slots.PitchM, slots.DepthM, slots.WidthM),
-            SlotPatternKind.Grooves => SlotPatterns.GrooveComb(outline, slots.Edge, slots.PitchM, slots.DepthM, slots.WidthM, slots.RemainingThicknessFraction ?? 0.5),
-            _ => throw new ArgumentOutOfRangeException(nameof(slots), slots.Pattern, "unknown slot pattern"),
-        };
+        var pattern = SlotPatternCatalog.Cut(outline, slots);
         geometry.AddPattern(pattern);
         return (geometry, pattern);
     }

@@ -1,7 +1,6 @@
 using System.Globalization;
 using SlotOpt.Materials;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
@@ -16,7 +15,7 @@ namespace SlotOpt.Design;
 public static class PlateOptions
 {
     /// <summary>One solved slot geometry at unit sheet conductance.</summary>
-    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, string? Failure);
+    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, RuleBreak? Failure);
 
     public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null)
     {
@@ -79,16 +78,19 @@ public static class PlateOptions
         PlateGeometry geometry;
         SlotPattern? pattern;
         try { (geometry, pattern) = PlateGeometryFactory.Build(part.Outline, slots); }
-        catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, e.Message); }
+        catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, new RuleBreak(RuleKind.PatternDoesNotFit, e.Message)); }
         var model = BuildModel(part, geometry, limits);
-        var excitation = part.Excitation;
-        if (excitation.Moving is { } poles)
+        switch (part.Excitation)
         {
-            var sweep = ResistanceLimitedSolver.SolveMoving(model, poles, TravelOffsets(part, slots));
-            return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
+            case PlateExcitation.Moving moving:
+                var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Poles, TravelOffsets(part, slots));
+                return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
+            case PlateExcitation.AcField field:
+                var ac = ResistanceLimitedSolver.SolveAc(model, field.Source);
+                return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
+            default:
+                throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         }
-        var ac = ResistanceLimitedSolver.SolveAc(model, excitation.Ac!);
-        return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
     }
 
     /// <summary>The solver model of one slot geometry: the part's cell size, automatic grids capped by the memory limit.</summary>
@@ -103,7 +105,8 @@ public static class PlateOptions
     /// pitch of the part's families (any window serves a long solid plate, see PlateExcitation.Offsets).
     /// </summary>
     public static IReadOnlyList<double> TravelOffsets(PlatePart part, SlotChoice? slots) =>
-        part.Excitation.Offsets(part.Outline, slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
+        (part.Excitation as PlateExcitation.Moving ?? throw new InvalidOperationException("travel offsets belong to moving sources"))
+            .Offsets(part.Outline, slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
 
     /// <summary>Evaluates one fixed design of the plate (which need not lie in the part's slot families).</summary>
     public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop) =>
@@ -145,38 +148,30 @@ public static class PlateOptions
         var sigma = material.ConductivityAt(part.TemperatureK);
         var sheet = new ConductingSheet(sigma, thicknessM, material.RelativePermeability);
         var lossW = solved.LossPerSiemensW * sheet.SheetConductanceS;
-        var moving = part.Excitation.IsMoving;
-        double? drag = moving ? lossW / part.Excitation.SpeedMPerS : null;
-        var loss = new LossBreakdown(0, 0, 0, lossW, moving ? lossW : 0);
-        var validity = moving
-            ? Validity.ForMoving(sheet, part.Excitation.SpeedMPerS)
-            : Validity.ForAc(sheet, part.Excitation.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
+        var moving = part.Excitation as PlateExcitation.Moving;
+        var acField = part.Excitation as PlateExcitation.AcField;
+        double? drag = moving is null ? null : lossW / moving.SpeedMPerS;
+        var loss = new LossBreakdown(0, 0, 0, lossW, moving is null ? 0 : lossW);
+        var validity = moving is not null
+            ? Validity.ForMoving(sheet, moving.SpeedMPerS)
+            : Validity.ForAc(sheet, acField!.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
         var flags = validity.Warnings.ToList();
         if (material.IsMagnetic) flags.Add($"{material.Name} is magnetic: the thin-plate model assumes a non-magnetic plate, so its loss here is indicative only");
         if (material.IsExtrapolatedAt(part.TemperatureK)) flags.Add($"{material.Name}: resistivity at {part.TemperatureK:0} K extrapolates the linear coefficient");
         attributes["reynolds_number"] = validity.ReynoldsNumber.ToString("0.###", ci);
 
-        string? rejection = null;
+        RuleBreak? rejection = null;
         if (slots is not null)
-            rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, moving ? null : part.Excitation.FrequencyHz);
+            rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, acField?.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
-            rejection = string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N");
+            rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
-            rejection = string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W");
+            rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
         return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection);
     }
 
     public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,
-        $"{PatternWord(s.Pattern)} from {s.Edge.ToString().ToLowerInvariant()}, pitch {s.PitchM * 1e3:0.###} mm, depth {s.DepthM * 1e3:0.###} mm, width {s.WidthM * 1e3:0.###} mm{(s.Pattern == SlotPatternKind.Grooves ? $", {s.RemainingThicknessFraction:0.##} of thickness left" : "")}");
-
-    public static string PatternWord(SlotPatternKind kind) => kind switch
-    {
-        SlotPatternKind.Comb => "comb",
-        SlotPatternKind.Alternating => "alternating",
-        SlotPatternKind.EnclosedSlits => "enclosed slits",
-        SlotPatternKind.Grooves => "grooves",
-        _ => kind.ToString(),
-    };
+        $"{SlotPatternCatalog.Of(s.Pattern).Words} from {SlotPatternCatalog.Word(s.Edge)}, pitch {s.PitchM * 1e3:0.###} mm, depth {s.DepthM * 1e3:0.###} mm, width {s.WidthM * 1e3:0.###} mm{(s.Pattern == SlotPatternKind.Grooves ? $", {s.RemainingThicknessFraction:0.##} of thickness left" : "")}");
 
     private static bool Belongs(SlotFamily family, SlotChoice choice) =>
         family.Pattern == choice.Pattern && family.Edge == choice.Edge && family.PitchesM.Contains(choice.PitchM)

@@ -10,10 +10,13 @@ namespace SlotOpt.Input;
 /// </summary>
 public static class FieldMapCsv
 {
+    /// <summary>Most grid points read (1000 x 1000; the plate solver interpolates the map onto its own grid).</summary>
+    public const int MaxPoints = 1_000_000;
+
     public static FieldMap Read(string path, double frequencyHz)
     {
-        var text = InputFile.ReadAllText(path, "field map");
-        var table = CsvTable.Parse(text, path);
+        var text = InputFile.ReadAllText(path, "field map", InputFile.MaxCsvBytes);
+        var table = CsvTable.Parse(text, path, MaxPoints);
         table.RequireColumns("x_m", "y_m", "amplitude_t", "phase_deg");
         var values = new Dictionary<(double X, double Y), Complex>();
         foreach (var row in table.Rows)

@@ -1,7 +1,6 @@
 using SlotOpt.Design;
 using SlotOpt.Input.Toml;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Runs;
@@ -18,10 +17,11 @@ namespace SlotOpt.Input;
 ///              thickness; resistivity | conductivity (S/m); relative_permeability (optional, skin depth only)
 /// [grid]       cell (optional); min_cells_across_strip (optional, default 8)
 /// [[cutout]]   shape = "rectangle" (x, y lower-left, width, height) | "circle" (x, y centre, radius) | "polygon" (points)
-/// [[slots]]    pattern = "comb" | "alternating" | "enclosed" | "grooves"; edge = "bottom" | "top" | "left" | "right";
-///              pitch, depth (length for "enclosed"), width, offset (optional), remaining_thickness (grooves, 0..1)
+/// [[slots]]    the keys of <see cref="SlotTableReader"/> (as in problem files; edge defaults to "bottom"), one value each,
+///              and offset (optional: the first slot's centre from the low end of the edge)
 /// [[cut]]      from = [x, y], to = [x, y]   (zero-width kerf)
 /// [source]     kind = "uniform_ac" | "field_map" | "moving_poles" (average defaults to "slot_pitch" with slots, else "pass")
+/// [thermal]    optional: plate temperature with the resistivity at the local temperature (see <see cref="ThermalReader"/>)
 /// </code>
 /// </summary>
 public static class PlateFileReader
@@ -56,19 +56,23 @@ public static class PlateFileReader
         {
             var baseDirectory = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
             excitation = PlateSourceReader.Read(sourceSection, geometry.Outline, baseDirectory, geometry.Patterns.Count > 0 ? TravelAverage.SlotPitch : TravelAverage.Pass);
-            if (excitation is { Moving: not null, Average: TravelAverage.SlotPitch } && geometry.Patterns.Count == 0)
+            if (excitation is PlateExcitation.Moving { Average: TravelAverage.SlotPitch } && geometry.Patterns.Count == 0)
                 sourceSection.Error("average", "\"slot_pitch\" needs a [[slots]] pattern");
         }
+        var thermalSection = root.OptionalTable("thermal");
+        var thermal = thermalSection is null || geometry is null ? null
+            : ThermalReader.Read(thermalSection, geometry.Bounds.Max.X - geometry.Bounds.Min.X, geometry.Bounds.Max.Y - geometry.Bounds.Min.Y);
         root.RejectUnknownKeys();
         errors.ThrowIfAny();
         if (geometry is null || conductor is null || excitation is null) throw new InputException($"{path}: the plate file is incomplete");
 
-        var offsets = excitation.Moving is null ? (IReadOnlyList<double>)[] : excitation.Offsets(geometry.Outline, geometry.Patterns.Count > 0 ? geometry.Patterns[0].PitchM : null);
-        var over = excitation.Moving is null ? ""
-            : excitation.Average == TravelAverage.SlotPitch
-                ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {excitation.Positions} positions)"
-                : excitation.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({excitation.Positions} positions)";
-        return new PlateCase(path, geometry, grid, conductor, excitation.Ac, excitation.Moving, offsets, over);
+        var moving = excitation as PlateExcitation.Moving;
+        var offsets = moving is null ? (IReadOnlyList<double>)[] : moving.Offsets(geometry.Outline, geometry.Patterns.Count > 0 ? geometry.Patterns[0].PitchM : null);
+        var over = moving is null ? ""
+            : moving.Average == TravelAverage.SlotPitch
+                ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {moving.Positions} positions)"
+                : moving.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({moving.Positions} positions)";
+        return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Poles, offsets, over, thermal);
     }
 
     private static (PlateGeometry?, ConductingSheet?) ReadPlate(TomlSection t)
@@ -148,28 +152,11 @@ public static class PlateFileReader
 
     private static void ReadSlots(TomlSection t, PlateGeometry geometry)
     {
-        var pattern = t.OptionalChoice("pattern", SlotWords.Patterns.ToArray());
-        if (pattern is null && !t.Has("pattern")) t.Error("pattern", $"missing: one of {string.Join(", ", SlotWords.Patterns)}");
-        var edgeText = t.OptionalChoice("edge", SlotWords.Edges.ToArray());
-        if (edgeText is null && !t.Has("edge")) t.Error("edge", $"missing: one of {string.Join(", ", SlotWords.Edges)}");
-        var pitch = t.PositiveQuantity("pitch", QuantityKind.Length, required: true);
-        var depthKey = SlotWords.ExtentKey(pattern);
-        var depth = t.PositiveQuantity(depthKey, QuantityKind.Length, required: true);
-        var width = t.PositiveQuantity("width", QuantityKind.Length, required: true);
+        var table = SlotTableReader.Read(t, geometry.Outline, oneValueEach: true);
         var offset = t.OptionalQuantity("offset", QuantityKind.Length);
-        var remaining = pattern == "grooves" ? t.OptionalNumber("remaining_thickness") : null;
-        if (pattern == "grooves" && remaining is null && !t.Has("remaining_thickness")) t.Error("remaining_thickness", "missing: the fraction of thickness left under the groove, 0 to 1");
         t.RejectUnknownKeys();
-        PlateEdge? edge = edgeText is null ? null : SlotWords.Edge(edgeText);
-        if (pattern is null || edge is null || pitch is not { } p || depth is not { } d || width is not { } w) return;
-        var o = geometry.Outline;
-        var made = t.Guard("pattern", () => pattern switch
-        {
-            "comb" => SlotPatterns.Comb(o, edge.Value, p, d, w, offset),
-            "alternating" => SlotPatterns.Alternating(o, edge.Value, p, d, w, offset),
-            "enclosed" => SlotPatterns.EnclosedSlits(o, edge.Value, p, d, w, offset),
-            _ => SlotPatterns.GrooveComb(o, edge.Value, p, d, w, remaining ?? double.NaN, offset),
-        });
+        if (table is null) return;
+        var made = t.Guard("pattern", () => SlotPatternCatalog.Cut(geometry.Outline, table.Single, offset));
         if (made is not null) geometry.AddPattern(made);
     }
 

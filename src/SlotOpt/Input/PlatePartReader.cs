@@ -9,8 +9,8 @@ namespace SlotOpt.Input;
 /// <summary>
 /// Reads a [[parts]] table of kind "plate": the outline (width and height, or outline = [[x, y], ...]),
 /// candidate thicknesses and materials, processes for the outline, limits, [parts.source],
-/// [[parts.slots]] families (pattern, edge, pitch, depth or, for enclosed slits, length, width, processes,
-/// remaining_thickness) and [parts.current]. Key names follow the single-plate file of `slotopt plate`.
+/// [[parts.slots]] families (the keys of <see cref="SlotTableReader"/>, lists allowed, plus processes) and
+/// [parts.current] (its slots table one value each). Key names follow the single-plate file of `slotopt plate`.
 /// </summary>
 public static class PlatePartReader
 {
@@ -35,7 +35,7 @@ public static class PlatePartReader
         var sourceSection = s.RequiredTable("source");
         var excitation = sourceSection is null ? null : PlateSourceReader.Read(sourceSection, outline, baseDirectory);
         var families = s.TableArray("slots", required: false).Select(f => ReadFamily(f, shop, processes, outline)).OfType<SlotFamily>().ToList();
-        var current = ReadCurrent(s.OptionalTable("current"), library, shop);
+        var current = ReadCurrent(s.OptionalTable("current"), library, shop, outline);
         s.RejectUnknownKeys();
 
         if (maxDrag is not null && excitation is { IsMoving: false }) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\")");
@@ -91,36 +91,14 @@ public static class PlatePartReader
 
     private static SlotFamily? ReadFamily(TomlSection f, ManufacturingSettings shop, IReadOnlyList<string> partProcesses, Polygon? outline)
     {
-        var patternWord = f.OptionalChoice("pattern", SlotWords.Patterns.ToArray());
-        if (patternWord is null && !f.Has("pattern")) f.Error("pattern", $"missing: one of {string.Join(", ", SlotWords.Patterns)}");
-        var edgeWord = f.OptionalChoice("edge", SlotWords.Edges.ToArray()) ?? "bottom";
-        var pitches = f.QuantityList("pitch", QuantityKind.Length, required: true);
-        var depthKey = SlotWords.ExtentKey(patternWord);
-        var depths = f.QuantityList(depthKey, QuantityKind.Length, required: true);
-        var widths = f.QuantityList("width", QuantityKind.Length, required: true);
-        var remaining = f.OptionalNumber("remaining_thickness");
+        var table = SlotTableReader.Read(f, outline, oneValueEach: false);
         var processes = ReadProcesses(f, "processes", shop) ?? partProcesses.ToList();
         f.RejectUnknownKeys();
-
-        foreach (var (list, key) in new[] { (pitches, "pitch"), (depths, depthKey), (widths, "width") })
-            if (list is not null && list.Any(v => !(v > 0))) f.Error(key, "every value must be positive");
-        if (pitches is not null && widths is not null && widths.Max() >= pitches.Min())
-            f.Error("width", $"the widest slot ({widths.Max() * 1e3:0.###} mm) is not narrower than the smallest pitch ({pitches.Min() * 1e3:0.###} mm): nothing would be left between slots");
-        if (patternWord == "grooves" && remaining is not (> 0 and < 1)) f.Error("remaining_thickness", "grooves need remaining_thickness between 0 and 1 (the fraction of thickness left under them)");
-        if (patternWord != "grooves" && remaining is not null) f.Error("remaining_thickness", "only grooves take remaining_thickness");
-        var edge = SlotWords.Edge(edgeWord);
-        if (outline is not null && depths is not null)
-        {
-            var (min, max) = outline.Bounds;
-            var across = edge is PlateEdge.Bottom or PlateEdge.Top ? max.Y - min.Y : max.X - min.X;
-            if (depths.Max() >= across) f.Error(depthKey, $"the deepest slot ({depths.Max() * 1e3:0.###} mm) cuts right through the plate ({across * 1e3:0.###} mm across): the plate would fall apart");
-        }
-        if (patternWord is null || pitches is null || depths is null || widths is null || processes.Count == 0) return null;
-        var pattern = SlotWords.Pattern(patternWord);
-        return new SlotFamily(pattern, edge, pitches, depths, widths, processes, pattern == SlotPatternKind.Grooves ? remaining : null);
+        if (table is null || processes.Count == 0) return null;
+        return new SlotFamily(table.Pattern, table.Edge, table.PitchesM, table.ExtentsM, table.WidthsM, processes, table.RemainingThicknessFraction);
     }
 
-    private static PlateChoice? ReadCurrent(TomlSection? s, MaterialLibrary library, ManufacturingSettings shop)
+    private static PlateChoice? ReadCurrent(TomlSection? s, MaterialLibrary library, ManufacturingSettings shop, Polygon? outline)
     {
         if (s is null) return null;
         var thickness = s.PositiveQuantity("thickness", QuantityKind.Length, required: true);
@@ -130,18 +108,10 @@ public static class PlatePartReader
         var process = s.OptionalString("process") ?? "laser";
         if (!shop.Processes.ContainsKey(process)) s.Error("process", $"unknown process \"{process}\"{NameSuggestion.DidYouMean(process, shop.Processes.Keys)}");
         SlotChoice? slots = null;
-        var slotTable = s.OptionalTable("slots");
-        if (slotTable is not null)
+        if (s.OptionalTable("slots") is { } slotTable)
         {
-            var word = slotTable.OptionalChoice("pattern", SlotWords.Patterns.ToArray()) ?? "comb";
-            var edgeWord = slotTable.OptionalChoice("edge", SlotWords.Edges.ToArray()) ?? "bottom";
-            var pitch = slotTable.PositiveQuantity("pitch", QuantityKind.Length, required: true);
-            var depth = slotTable.PositiveQuantity(SlotWords.ExtentKey(word), QuantityKind.Length, required: true);
-            var width = slotTable.PositiveQuantity("width", QuantityKind.Length, required: true);
-            var remaining = slotTable.OptionalNumber("remaining_thickness");
+            slots = SlotTableReader.Read(slotTable, outline, oneValueEach: true)?.Single;
             slotTable.RejectUnknownKeys();
-            if (pitch is { } p && depth is { } d && width is { } w)
-                slots = new SlotChoice(SlotWords.Pattern(word), SlotWords.Edge(edgeWord), p, d, w, word == "grooves" ? remaining ?? 0.5 : null);
         }
         s.RejectUnknownKeys();
         return thickness is null || material is null ? null : new PlateChoice(thickness.Value, library.TryGetConductor(material, out var c) ? c.Name : material, process, slots);

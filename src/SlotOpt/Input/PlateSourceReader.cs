@@ -38,7 +38,7 @@ public static class PlateSourceReader
         var phaseDeg = s.OptionalNumber("phase_deg") ?? 0;
         if (peak is null || frequency is null || peak < 0) return null;
         var field = s.Guard("peak", () => new UniformAcField(peak.Value, frequency.Value, phaseDeg * Math.PI / 180));
-        return field is null ? null : PlateExcitation.AcField(field, frequency.Value);
+        return field is null ? null : new PlateExcitation.AcField(field, frequency.Value);
     }
 
     private static PlateExcitation? FieldMapSource(TomlSection s, string baseDirectory)
@@ -48,7 +48,7 @@ public static class PlateSourceReader
         if (file is null || frequency is null) return null;
         try
         {
-            return PlateExcitation.AcField(FieldMapCsv.Read(Path.Combine(baseDirectory, file), frequency.Value), frequency.Value);
+            return new PlateExcitation.AcField(FieldMapCsv.Read(Path.Combine(baseDirectory, file), frequency.Value), frequency.Value);
         }
         catch (InputException e)
         {
@@ -96,6 +96,6 @@ public static class PlateSourceReader
         else if (first.Y - face.HalfHeightYM > max.Y || first.Y + face.HalfHeightYM < min.Y)
             s.Error("y", "puts the poles' path entirely off the plate");
         var poles = s.Guard("pole", () => MovingPoles.Row(face, first, count, pitch ?? 0, flux.Value, speed.Value));
-        return poles is null ? null : PlateExcitation.MovingSource(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
+        return poles is null ? null : new PlateExcitation.Moving(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
     }
 }

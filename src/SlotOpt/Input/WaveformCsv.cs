@@ -10,15 +10,18 @@ namespace SlotOpt.Input;
 /// </summary>
 public static class WaveformCsv
 {
+    /// <summary>Most samples read for one period (at 50 Hz, 100,000 samples are 5 million a second: far finer than any measured waveform).</summary>
+    public const int MaxSamples = 100_000;
+
     public static PiecewiseLinearWaveform Read(string path, double frequencyHz)
     {
-        var text = InputFile.ReadAllText(path, "waveform file");
+        var text = InputFile.ReadAllText(path, "waveform file", InputFile.MaxCsvBytes);
         return Parse(text, path, frequencyHz);
     }
 
     public static PiecewiseLinearWaveform Parse(string text, string sourceName, double frequencyHz)
     {
-        var table = CsvTable.Parse(text, sourceName);
+        var table = CsvTable.Parse(text, sourceName, MaxSamples + 1);   // + the closing sample that repeats the first
         var byPhase = table.Columns.Contains("phase");
         if (!byPhase && !table.Columns.Contains("t_s"))
             throw new InputException($"{sourceName}:1: the header must name phase,b_t or t_s,b_t");

@@ -17,7 +17,7 @@ public static class LaminationLossModel
     /// <summary>Coefficients are trusted within this factor of the frequency they came from (common practice, no source).</summary>
     public const double CoefficientFrequencyRange = 4;
 
-    /// <summary>Thickness over skin depth above which the skin correction is flagged (F(1) = 0.9984; REFERENCES §9 rule x &lt;~ 1).</summary>
+    /// <summary>Thickness over skin depth above which the skin correction is flagged (F(1) = 0.9984; F(x) = (3/x)(sinh x - sin x)/(cosh x - cos x), R. L. Stoll, The Analysis of Eddy Currents, Clarendon Press, 1974; keeping x &lt;~ 1 is common practice, no source).</summary>
     public const double SkinFlagRatio = 1;
 
     public static LaminationLoss Evaluate(ElectricalSteel steel, IFluxWaveform waveform, LaminationConditions? conditions = null)

@@ -1,11 +1,8 @@
 namespace SlotOpt.Lamination;
 
-/// <summary>A stack of laminations: the steel fraction of its volume sets the flux in the steel and the steel mass.</summary>
+/// <summary>A stack of laminations: the steel fraction of its volume sets the steel mass and the sheet count.</summary>
 public static class LaminationStack
 {
-    /// <summary>B_steel = B_stack / stacking factor: the flux through the gross section is carried by the steel alone.</summary>
-    public static double SteelFluxDensity(double stackFluxDensityT, double stackingFactor) => stackFluxDensityT / stackingFactor;
-
     /// <summary>m = V_gross x stacking factor x density (IEC 60404-13 definition of the stacking factor).</summary>
     public static double SteelMassKg(double grossVolumeM3, double stackingFactor, double densityKgPerM3) =>
         grossVolumeM3 * stackingFactor * densityKgPerM3;

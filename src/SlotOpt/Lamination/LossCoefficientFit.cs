@@ -32,7 +32,7 @@ public static class LossCoefficientFit
             if (!(m.PeakT > 0 && m.FrequencyHz > 0 && m.LossWPerKg > 0))
                 throw new InputException($"measurement (B {m.PeakT} T, f {m.FrequencyHz} Hz, {m.LossWPerKg} W/kg): all three must be positive");
 
-        // kc = pi^2 d^2 / (6 rho rho_m) per kg (REFERENCES: classical loss of a sine, Bertotti 1988)
+        // kc = pi^2 d^2 / (6 rho rho_m) per kg (classical loss of a sine: G. Bertotti, "General properties of power losses in soft ferromagnetic materials", IEEE Trans. Magn. 24(1):621-630, 1988, classical term)
         var kc = Math.PI * Math.PI * thicknessM * thicknessM / (6 * resistivityOhmM * densityKgPerM3);
         var classical = data.Select(m =>
         {

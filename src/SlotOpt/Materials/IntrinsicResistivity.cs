@@ -48,7 +48,7 @@ public sealed class IntrinsicResistivity
 
     private static Dictionary<string, IntrinsicResistivity> LoadBuiltIn()
     {
-        var table = EmbeddedData.ReadCsv("intrinsic-resistivity.csv");
+        var table = EmbeddedData.ReadCsv("Materials", "intrinsic-resistivity.csv");
         return table.Rows
             .GroupBy(r => r.Text("metal"))
             .ToDictionary(

@@ -49,8 +49,8 @@ public sealed class MaterialLibrary
 
     private static readonly Lazy<MaterialLibrary> BuiltInLibrary = new(() =>
         new MaterialLibrary(
-            EmbeddedData.ReadCsv("electrical-steels.csv").Rows.Select(ReadSteel).ToDictionary(s => s.Grade, StringComparer.OrdinalIgnoreCase),
-            EmbeddedData.ReadCsv("conductors.csv").Rows.Select(ReadConductor).ToDictionary(c => c.Name, StringComparer.OrdinalIgnoreCase)));
+            EmbeddedData.ReadCsv("Materials", "electrical-steels.csv").Rows.Select(ReadSteel).ToDictionary(s => s.Grade, StringComparer.OrdinalIgnoreCase),
+            EmbeddedData.ReadCsv("Materials", "conductors.csv").Rows.Select(ReadConductor).ToDictionary(c => c.Name, StringComparer.OrdinalIgnoreCase)));
 
     private static ElectricalSteel ReadSteel(CsvRow row) => new(
         Grade: row.Text("grade"),

@@ -35,7 +35,7 @@ public static class CandidatesCsv
                 .Concat([
                     N(o.Loss.TotalW), N(o.Loss.HysteresisW), N(o.Loss.ClassicalW), N(o.Loss.ExcessW), N(o.Loss.PlateEddyW), N(o.Loss.DragPowerW),
                     o.DragN is { } d ? N(d) : "", N(o.BuildCost), N(o.BuildCost + vpw * o.Loss.TotalW),
-                    o.IsFeasible ? "yes" : "no", o.Rejection ?? "", chosenIds.Contains(o.Id) ? "yes" : "no", string.Join("; ", o.Flags),
+                    o.IsFeasible ? "yes" : "no", o.Rejection?.Message ?? "", chosenIds.Contains(o.Id) ? "yes" : "no", string.Join("; ", o.Flags),
                 ]));
         }
         return s.ToString();

@@ -8,7 +8,7 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// Drag and lift of the chosen plate against speed with the plate's own field (PlateConfirmation's sweep):
 /// drag rises, peaks near 1.27 w and falls, lift rises towards the image-force limit (Reitz 1970, Saslow
-/// 1992; REFERENCES §7), beside the low-speed drag that grows without bound. Speed on a log axis, since the
+/// 1992: J. Appl. Phys. 41:2067 and Am. J. Phys. 60(8):693-711), beside the low-speed drag that grows without bound. Speed on a log axis, since the
 /// sweep spans two decades of v / w.
 /// </summary>
 public static class CoupledSpeedPlot
@@ -34,7 +34,7 @@ public static class CoupledSpeedPlot
         low.Color = PlotStyle.Grey;
         low.LineWidth = 1.5f;
         low.LegendText = "drag, low-speed model (grows without bound)";
-        var v0 = part.Excitation.SpeedMPerS;
+        var v0 = ((PlateExcitation.Moving)part.Excitation).SpeedMPerS;
         var run = plot.Add.VerticalLine(Math.Log10(v0), 1, PlotStyle.Black);
         run.LegendText = string.Create(CultureInfo.InvariantCulture, $"run speed {v0:0.##} m/s");
         LogAxis.Apply(plot.Axes.Bottom, sweep.Select(p => p.SpeedMPerS));

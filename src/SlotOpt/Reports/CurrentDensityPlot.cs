@@ -1,8 +1,6 @@
 using System.Globalization;
 using ScottPlot;
 using SlotOpt.Design;
-using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Runs;
@@ -11,25 +9,16 @@ namespace SlotOpt.Reports;
 
 /// <summary>
 /// Current density in the chosen plate beside (above) the solid plate cut from the same sheet, on one colour
-/// scale, with the outline and the slots drawn. The maps come from re-solving the two geometries with the
-/// engine (<see cref="PlateOptions.Solve"/>) and scaling the unit-conductance solution to the sheet.
+/// scale, with the outline and the slots drawn, from the maps the run computed (<see cref="CurrentDensityMaps"/>).
 /// </summary>
 public static class CurrentDensityPlot
 {
     public static string FileStemFor(int partIndex, PlatePart part) => $"current-density-{partIndex + 1}-{FileNames.Slug(part.Name)}";
 
-    public static Figure Build(int partIndex, PartEvaluation plate, EvaluatedOption chosen, Problem problem)
+    public static Figure Build(int partIndex, PlatePart part, CurrentDensityMaps maps)
     {
-        var part = (PlatePart)plate.Part;
-        var solid = SolidCounterpart.Of(plate, chosen);
-        var panels = new List<(EvaluatedOption Option, string Label)> { (solid, "solid plate, same sheet") };
-        if (!ReferenceEquals(solid, chosen)) panels.Add((chosen, "chosen"));
-
-        var choice = (PlateChoice)chosen.Choice;
-        var material = problem.Library.GetConductor(choice.Material, part.Name);
-        var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
-        var maps = panels.Select(p => Map(part, ((PlateChoice)p.Option.Choice).Slots, sheet)).ToList();
-        var peakAPerMm2 = maps.Max(m => m.Result.PeakCurrentDensityAPerM2) / 1e6;
+        var panels = maps.Panels;
+        var peakAPerMm2 = panels.Max(p => p.PeakAPerM2) / 1e6;
 
         var (min, max) = part.Outline.Bounds;
         double widthMm = (max.X - min.X) * 1e3, heightMm = (max.Y - min.Y) * 1e3, gapMm = Math.Max(heightMm * 0.6, widthMm * 0.08);
@@ -38,12 +27,12 @@ public static class CurrentDensityPlot
         for (var k = 0; k < panels.Count; k++)
         {
             var shiftMm = (panels.Count - 1 - k) * (heightMm + gapMm);   // the solid plate on top
-            var (map, geometry) = (maps[k].Result.Map, maps[k].Geometry);
-            last = AddMap(plot, map, shiftMm, peakAPerMm2);
-            DrawGeometry(plot, geometry, shiftMm);
-            var option = panels[k].Option;
+            var panel = panels[k];
+            last = AddMap(plot, panel.Map, shiftMm, peakAPerMm2);
+            DrawGeometry(plot, panel.Drawing, shiftMm);
+            var option = panel.Option;
             var text = plot.Add.Text(string.Create(CultureInfo.InvariantCulture,
-                $"{panels[k].Label}: {option.Description}\nloss {option.Loss.TotalW:0.##} W{(option.DragN is { } d ? $", drag {d:0.##} N" : "")}, peak {maps[k].Result.PeakCurrentDensityAPerM2 / 1e6:0.##} A/mm²"),
+                $"{Label(panel.Role)}: {option.Description}\nloss {option.Loss.TotalW:0.##} W{(option.DragN is { } d ? $", drag {d:0.##} N" : "")}, peak {panel.PeakAPerM2 / 1e6:0.##} A/mm²"),
                 min.X * 1e3, max.Y * 1e3 + shiftMm + gapMm * 0.08);
             text.LabelFontSize = 13;
             text.LabelFontName = PlotStyle.FontName;
@@ -65,12 +54,7 @@ public static class CurrentDensityPlot
         return PlotStyle.Render(plot, FileStemFor(partIndex, part), $"Current density: {part.Name}", caption, heightPx: heightPx);
     }
 
-    private static (PlateResult Result, PlateGeometry Geometry) Map(PlatePart part, SlotChoice? slots, ConductingSheet sheet)
-    {
-        var solved = PlateOptions.Solve(part, slots);
-        if (solved.Peak is null || solved.Geometry is null) throw new InvalidOperationException($"{part.Name}: the geometry solved during the run no longer solves: {solved.Failure}");
-        return (solved.Peak.ScaleTo(sheet), solved.Geometry);
-    }
+    private static string Label(DesignRole role) => role == DesignRole.Chosen ? "chosen" : "solid plate, same sheet";
 
     private static ScottPlot.Plottables.Heatmap AddMap(Plot plot, CurrentDensityMap map, double shiftMm, double peakAPerMm2)
     {
@@ -89,27 +73,26 @@ public static class CurrentDensityPlot
         return heatmap;
     }
 
-    private static void DrawGeometry(Plot plot, PlateGeometry geometry, double shiftMm)
+    private static void DrawGeometry(Plot plot, PlateDrawing drawing, double shiftMm)
     {
-        Coordinates[] Points(Polygon p) => p.Vertices.Select(v => new Coordinates(v.X * 1e3, v.Y * 1e3 + shiftMm)).ToArray();
-        var outline = plot.Add.Polygon(Points(geometry.Outline));
+        Coordinates[] Points(IReadOnlyList<Vec2> vertices) => vertices.Select(v => new Coordinates(v.X * 1e3, v.Y * 1e3 + shiftMm)).ToArray();
+        var outline = plot.Add.Polygon(Points(drawing.Outline));
         outline.FillColor = Colors.Transparent;
         outline.LineColor = PlotStyle.Black;
         outline.LineWidth = 1.5f;
-        foreach (var slot in geometry.Slots)
+        foreach (var slot in drawing.Slots)
         {
-            var shape = plot.Add.Polygon(Points(slot.ToPolygon()));
+            var shape = plot.Add.Polygon(Points(slot));
             shape.FillColor = Colors.White;
             shape.LineColor = PlotStyle.Black;
             shape.LineWidth = 0.6f;
         }
-        foreach (var groove in geometry.Grooves)
+        foreach (var groove in drawing.Grooves)
         {
-            var shape = plot.Add.Polygon(Points(groove.Area));
+            var shape = plot.Add.Polygon(Points(groove));
             shape.FillColor = Colors.Transparent;
             shape.LineColor = PlotStyle.Grey;
             shape.LineWidth = 1;
         }
     }
-
 }

@@ -1,32 +1,28 @@
 using System.Globalization;
 using ScottPlot;
 using SlotOpt.Design;
-using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
 
 /// <summary>
 /// Drag against speed for a plate passed by moving poles: the chosen option, the solid plate of the same
-/// sheet and the reference. In the resistance-limited (low-speed) model drag is proportional to speed,
-/// F(v) = F(v0) v / v0, so each line comes from the option's drag at the run's speed; it holds while the
-/// magnetic Reynolds number mu0 sigma t v / 2 stays below <see cref="Validity.ReynoldsLimit"/>. Beyond
-/// the speed where it reaches that limit the line is faded.
+/// sheet and the reference (<see cref="DragSpeedLines"/>, from the run). In the resistance-limited (low-speed)
+/// model drag is proportional to speed, F(v) = F(v0) v / v0, so each line comes from the option's drag at the
+/// run's speed; it holds while the magnetic Reynolds number mu0 sigma t v / 2 stays below the model's limit.
+/// Beyond the speed where it reaches that limit the line is faded.
 /// </summary>
 public static class DragSpeedPlot
 {
     public static string FileStemFor(int partIndex, PlatePart part) => $"drag-speed-{partIndex + 1}-{FileNames.Slug(part.Name)}";
 
-    public static Figure Build(int partIndex, PartEvaluation plate, EvaluatedOption chosen, Problem problem)
+    /// <param name="reynoldsLimit">The low-speed model's limit on the magnetic Reynolds number (<see cref="RunFigures.LowSpeedReynoldsLimit"/>).</param>
+    public static Figure Build(int partIndex, PartEvaluation plate, DragSpeedLines speedLines, double reynoldsLimit)
     {
         var part = (PlatePart)plate.Part;
-        var v0 = part.Excitation.SpeedMPerS;
-        var lines = new List<(EvaluatedOption Option, string Label)> { (chosen, "chosen") };
-        var solid = SolidCounterpart.Of(plate, chosen);
-        if (!ReferenceEquals(solid, chosen)) lines.Add((solid, "solid plate, same sheet"));
-        if (!lines.Any(l => l.Option.Id == plate.Reference.Id)) lines.Add((plate.Reference, plate.ReferenceIsCurrent ? "current design" : "baseline"));
-        var limitSpeeds = lines.Select(l => ReynoldsLimitSpeed(part, l.Option, problem)).ToList();
+        var v0 = speedLines.RunSpeedMPerS;
+        var lines = speedLines.Lines.Select(l => (l.Option, Label: Label(l.Role, plate.ReferenceIsCurrent))).ToList();
+        var limitSpeeds = speedLines.Lines.Select(l => l.ReynoldsLimitSpeedMPerS).ToList();
         var vMax = Math.Max(2 * v0, Math.Min(1.25 * limitSpeeds.Max(), 4 * v0));
 
         var plot = PlotStyle.NewPlot($"{part.Name}: drag against speed (low-speed model)", "speed (m/s)", "drag (N)");
@@ -53,7 +49,7 @@ public static class DragSpeedPlot
             if (vStar <= vMax && marked.Add(Math.Round(vStar, 6)))
             {
                 var rm = plot.Add.VerticalLine(vStar, 1, colour);
-                rm.LegendText = string.Create(CultureInfo.InvariantCulture, $"Rm = {Validity.ReynoldsLimit} at {vStar:0.##} m/s ({((PlateChoice)option.Choice).ThicknessM * 1e3:0.###} mm {((PlateChoice)option.Choice).Material})");
+                rm.LegendText = string.Create(CultureInfo.InvariantCulture, $"Rm = {reynoldsLimit} at {vStar:0.##} m/s ({((PlateChoice)option.Choice).ThicknessM * 1e3:0.###} mm {((PlateChoice)option.Choice).Material})");
             }
         }
         var run = plot.Add.VerticalLine(v0, 1, PlotStyle.Grey);
@@ -64,8 +60,8 @@ public static class DragSpeedPlot
             limit.LegendText = string.Create(CultureInfo.InvariantCulture, $"drag limit {maxDrag:0.##} N");
         }
         var beyondRange = limitSpeeds.Where(v => v > vMax).ToList();
-        var note = plot.Add.Annotation("Low-speed model: drag ∝ speed, valid while the magnetic\nReynolds number μ0σtv/2 stays below 0.3; faded beyond."
-            + (beyondRange.Count > 0 ? string.Create(CultureInfo.InvariantCulture, $"\nRm reaches 0.3 only above {beyondRange.Min():0.#} m/s (off the plot).") : ""), Alignment.UpperRight);
+        var note = plot.Add.Annotation(string.Create(CultureInfo.InvariantCulture, $"Low-speed model: drag ∝ speed, valid while the magnetic\nReynolds number μ0σtv/2 stays below {reynoldsLimit}; faded beyond.")
+            + (beyondRange.Count > 0 ? string.Create(CultureInfo.InvariantCulture, $"\nRm reaches {reynoldsLimit} only above {beyondRange.Min():0.#} m/s (off the plot).") : ""), Alignment.UpperRight);
         note.LabelFontSize = 12;
         note.LabelFontName = PlotStyle.FontName;
         note.LabelBackgroundColor = Colors.White;
@@ -74,17 +70,14 @@ public static class DragSpeedPlot
         plot.Legend.Alignment = Alignment.UpperLeft;
         plot.ShowLegend();
         var caption = string.Create(CultureInfo.InvariantCulture,
-            $"Drag scaled from each option's drag at the run's {v0:0.##} m/s (dots); the designs are described in full above. The model neglects the eddy currents' own field; above Rm = {Validity.ReynoldsLimit} it overstates the drag (by about 6-9 % at 0.3, more above), and at high speed real drag passes a maximum and falls. Not a brake rating.");
+            $"Drag scaled from each option's drag at the run's {v0:0.##} m/s (dots); the designs are described in full above. The model neglects the eddy currents' own field; above Rm = {reynoldsLimit} it overstates the drag (by about 6-9 % at 0.3, more above), and at high speed real drag passes a maximum and falls. Not a brake rating.");
         return PlotStyle.Render(plot, FileStemFor(partIndex, part), $"Drag against speed: {part.Name}", caption);
     }
 
-    /// <summary>The speed at which this option's sheet reaches the Reynolds-number limit: Rm is proportional to v.</summary>
-    public static double ReynoldsLimitSpeed(PlatePart part, EvaluatedOption option, Problem problem)
+    private static string Label(DesignRole role, bool referenceIsCurrent) => role switch
     {
-        var choice = (PlateChoice)option.Choice;
-        var material = problem.Library.GetConductor(choice.Material, part.Name);
-        var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
-        var v0 = part.Excitation.SpeedMPerS;
-        return v0 * Validity.ReynoldsLimit / Validity.ForMoving(sheet, v0).ReynoldsNumber;
-    }
+        DesignRole.Chosen => "chosen",
+        DesignRole.SolidCounterpart => "solid plate, same sheet",
+        _ => referenceIsCurrent ? "current design" : "baseline",
+    };
 }

@@ -1,7 +1,5 @@
 using System.Globalization;
 using SlotOpt.Design;
-using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 
@@ -10,7 +8,7 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// What the report says, in order: the job and its inputs, the chosen design in workshop words, what it
 /// saves, which limits bind, the plots, the options the rules dropped, the validity flags, and the
-/// assumptions and cautions. Numbers are formatted as the console prints them (RunText), so the two agree.
+/// assumptions and cautions. Numbers are formatted as the console prints them, so the two agree.
 /// </summary>
 public static class ReportContent
 {
@@ -75,12 +73,15 @@ public static class ReportContent
     private static string PlateInputs(PlatePart p)
     {
         var (min, max) = p.Outline.Bounds;
-        var source = p.Excitation.Moving is { } poles
-            ? F($"{poles.Poles.Count} poles passing at {poles.SpeedMPerS:0.##} m/s")
-            : F($"AC field at {p.Excitation.FrequencyHz:0.#} Hz");
+        var source = p.Excitation switch
+        {
+            PlateExcitation.Moving { Poles: var poles } => F($"{poles.Poles.Count} poles passing at {poles.SpeedMPerS:0.##} m/s"),
+            PlateExcitation.AcField field => F($"AC field at {field.FrequencyHz:0.#} Hz"),
+            _ => throw new ArgumentOutOfRangeException(nameof(p), p.Excitation.GetType().Name, "unknown plate excitation"),
+        };
         return F($"plate {(max.X - min.X) * 1e3:0.#} x {(max.Y - min.Y) * 1e3:0.#} mm; {source}; {p.TemperatureK - 273.15:0} °C; thicknesses ")
             + string.Join(", ", p.ThicknessesM.Select(t => F($"{t * 1e3:0.###} mm"))) + $"; materials {string.Join(", ", p.Materials)}; processes {string.Join(", ", p.Processes)}; "
-            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{PlateOptions.PatternWord(f.Pattern)} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
+            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{SlotPatternCatalog.Of(f.Pattern).Words} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
             + F($"; uncut ligament at least {p.MinLigamentM * 1e3:0.#} mm")
             + (p.MaxDragN is { } drag ? F($"; drag limit {drag:0.##} N") : "")
             + (p.MaxLossW is { } loss ? F($"; loss limit {loss:0.##} W") : "");
@@ -116,7 +117,7 @@ public static class ReportContent
             var c = r.Chosen[i];
             var reference = r.Parts[i].Reference;
             rows.Add(Row(c.PartName, "chosen", c, WorkshopWords.Of(c)));
-            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection})")));
+            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")));
         }
         b.Add(withDrag
             ? new Table(["part", "", "design", "loss (W)", "drag (N)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true])
@@ -129,7 +130,7 @@ public static class ReportContent
     }
 
     /// <summary>One chosen plate as confirmed: which model ran, and its loss, drag and lift against the screen.</summary>
-    public static string ConfirmationLine(PlateConfirmation c) =>
+    private static string ConfirmationLine(PlateConfirmation c) =>
         F($"{c.PartName}: {c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? F($", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? F($", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W). {c.Reason}");
 
     private static string Drag(double? dragN) => dragN is { } d ? F($"{d:0.###}") : "";
@@ -269,7 +270,7 @@ public static class ReportContent
         {
             foreach (var o in chosen)
             {
-                if (o.Attributes.TryGetValue("reynolds_number", out var rm)) lines.Add($"{o.PartName}: magnetic Reynolds number {rm} (limit of the low-speed, resistance-limited model: {Validity.ReynoldsLimit})");
+                if (o.Attributes.TryGetValue("reynolds_number", out var rm)) lines.Add(F($"{o.PartName}: magnetic Reynolds number {rm} (limit of the low-speed, resistance-limited model: {r.Figures.LowSpeedReynoldsLimit})"));
                 lines.AddRange(o.Flags.Select(f => $"{o.PartName}: {f}"));
             }
             if (!chosen.Any(o => o.Flags.Count > 0)) lines.Add("The chosen design raises no validity flag (flux below the knee, sheets thin against the skin depth, coefficients used near their data, Reynolds number below its limit).");

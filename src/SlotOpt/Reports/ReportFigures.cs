@@ -6,7 +6,7 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// Every plot of one run: the trade-off curve and the loss breakdown (when there is a front and a design),
 /// loss against frequency for each core part, and for each plate the current-density map (and drag
-/// against speed where a source moves).
+/// against speed where a source moves), drawn from the numbers the run computed (<see cref="RunFigures"/>).
 /// </summary>
 public sealed record ReportFigures(
     Figure? TradeOff,
@@ -31,12 +31,12 @@ public sealed record ReportFigures(
             switch (evaluation.Part)
             {
                 case CorePart core:
-                    var curves = LossFrequencyCurves.Of(core, r.Problem);
+                    var curves = r.Figures.LossFrequencyOf(core.Name);
                     lossFrequency.Add((curves, LossFrequencyPlot.Build(i, curves, (chosen?.Choice as CoreChoice)?.Grade)));
                     break;
                 case PlatePart plate when chosen is not null:
-                    currentDensity.Add((plate, CurrentDensityPlot.Build(i, evaluation, chosen, r.Problem)));
-                    if (plate.Excitation.IsMoving) dragSpeed.Add((plate, DragSpeedPlot.Build(i, evaluation, chosen, r.Problem)));
+                    currentDensity.Add((plate, CurrentDensityPlot.Build(i, plate, r.Figures.CurrentDensityOf(plate.Name))));
+                    if (plate.Excitation.IsMoving) dragSpeed.Add((plate, DragSpeedPlot.Build(i, evaluation, r.Figures.DragSpeedOf(plate.Name), r.Figures.LowSpeedReynoldsLimit)));
                     if (r.Confirmation(plate.Name) is { SpeedSweep: not null } confirmed) dragSpeed.Add((plate, CoupledSpeedPlot.Build(i, plate, confirmed)));
                     break;
             }

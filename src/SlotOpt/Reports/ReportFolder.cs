@@ -31,15 +31,65 @@ public sealed class ReportFolder : IDisposable
     /// <summary>Prefix of the temporary sibling of a target folder ("DIR" -> ".DIR.partial-").</summary>
     public static string TemporaryPrefix(string targetPath) => $".{Path.GetFileName(Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath)))}.partial-";
 
-    /// <exception cref="InputException">The target exists and overwrite is false, or a file stands where a parent folder should be.</exception>
-    public static void CheckTarget(string targetPath, bool overwrite)
+    /// <summary>The file every report folder holds; only a folder holding it is ever replaced (--force).</summary>
+    public const string MarkerFile = ".slotopt-report";
+
+    private const string MarkerText = "This folder is a report written by slotopt; `slotopt run ... --out THIS --force` may replace it whole.\n";
+
+    /// <summary>
+    /// Checks a report target before any work, so that a run never ends by failing to write: the name is not
+    /// empty; it names no file; it is not a folder holding one of the inputs (the input's own folder, or
+    /// above it); an existing folder is replaced only with overwrite and only when it holds <see cref="MarkerFile"/>
+    /// (a previous report of ours); the nearest existing parent is a folder that can be written in.
+    /// </summary>
+    /// <param name="inputFiles">The files the run reads; the report may not replace a folder holding one.</param>
+    /// <exception cref="InputException">Any of these fails; the message names --out and what to do.</exception>
+    public static void CheckTarget(string? targetPath, bool overwrite, params IReadOnlyList<string> inputFiles)
     {
-        var full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath));
-        if (File.Exists(full)) throw new InputException($"--out {targetPath}: a file of that name exists; give a folder name");
-        if (Directory.Exists(full) && !overwrite) throw new InputException($"--out {targetPath}: the folder exists; pass --force to replace it");
+        if (string.IsNullOrWhiteSpace(targetPath)) throw new InputException("--out: the folder name is empty; give one, e.g. --out report");
+        var flag = $"--out {targetPath}";
+        string full;
+        try { full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(targetPath)); }
+        catch (Exception e) when (e is ArgumentException or NotSupportedException or PathTooLongException)
+        {
+            throw new InputException($"{flag}: not a usable folder name ({e.Message})");
+        }
+        var parent = Path.GetDirectoryName(full) ?? throw new InputException($"{flag}: is the root of the file system; give a folder of its own");
+        foreach (var input in inputFiles)
+            if (IsInside(Path.GetFullPath(input), full))
+                throw new InputException($"{flag}: the folder holds the input {input}; write the report to a folder of its own, e.g. --out {Path.GetFileNameWithoutExtension(input)}-report");
+        if (File.Exists(full)) throw new InputException($"{flag}: a file of that name exists; give a folder name");
+        if (Directory.Exists(full))
+        {
+            if (!overwrite) throw new InputException($"{flag}: the folder exists; pass --force to replace it");
+            if (!File.Exists(Path.Combine(full, MarkerFile)))
+                throw new InputException($"{flag}: the folder exists and is not a report written by slotopt (it holds no {MarkerFile}); --force replaces only a previous report: choose another folder or empty this one yourself");
+        }
         // a missing parent folder is made when the report is written (as `mkdir -p` would); a file in its way is a mistake
-        for (var parent = Path.GetDirectoryName(full); parent is not null && !Directory.Exists(parent); parent = Path.GetDirectoryName(parent))
-            if (File.Exists(parent)) throw new InputException($"--out {targetPath}: {parent} is a file, not a folder");
+        var existing = parent;
+        while (!Directory.Exists(existing))
+        {
+            if (File.Exists(existing)) throw new InputException($"{flag}: {existing} is a file, not a folder");
+            existing = Path.GetDirectoryName(existing) ?? throw new InputException($"{flag}: no part of the path exists");
+        }
+        if (!CanWriteIn(existing)) throw new InputException($"{flag}: cannot write in {existing}");
+    }
+
+    /// <summary>True when path lies inside folder (at any depth).</summary>
+    private static bool IsInside(string path, string folder) =>
+        path.StartsWith(Path.EndsInDirectorySeparator(folder) ? folder : folder + Path.DirectorySeparatorChar, StringComparison.Ordinal);
+
+    /// <summary>Makes and removes an empty hidden folder: the one sure test that a folder can be written in (permissions, read-only mounts, /proc).</summary>
+    private static bool CanWriteIn(string folder)
+    {
+        var probe = Path.Combine(folder, $".slotopt-probe-{Guid.NewGuid():N}");
+        try
+        {
+            Directory.CreateDirectory(probe);
+            Directory.Delete(probe);
+            return true;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException) { return false; }
     }
 
     public static ReportFolder Begin(string targetPath, bool overwrite)
@@ -49,7 +99,7 @@ public sealed class ReportFolder : IDisposable
         var parent = Path.GetDirectoryName(full)!;
         Directory.CreateDirectory(parent);
         foreach (var leftover in Directory.EnumerateDirectories(parent).Where(d => Path.GetFileName(d).StartsWith(TemporaryPrefix(full), StringComparison.Ordinal)))
-            if (DateTime.UtcNow - Directory.GetLastWriteTimeUtc(leftover) > StaleAfter) Directory.Delete(leftover, recursive: true);
+            if (DateTime.UtcNow - Directory.GetLastWriteTimeUtc(leftover) > StaleAfter) DeleteIfPossible(leftover);
         var temporary = Path.Combine(parent, TemporaryPrefix(full) + Guid.NewGuid().ToString("N")[..12]);
         return new ReportFolder(full, temporary, overwrite);
     }
@@ -58,13 +108,18 @@ public sealed class ReportFolder : IDisposable
 
     public void WriteText(string fileName, string text) => Write(fileName, path => File.WriteAllText(path, text));
 
-    /// <summary>Moves the finished folder into place; an existing target (overwrite) is moved aside first and then deleted.</summary>
+    /// <summary>
+    /// Writes <see cref="MarkerFile"/> and moves the finished folder into place; an existing target (overwrite)
+    /// is moved aside first and then deleted.
+    /// </summary>
+    /// <exception cref="InputException">The previous report could not be deleted completely (the new one is in place; the message says where the rest is).</exception>
     public void Commit()
     {
         lock (gate)
         {
             EnsureOpen();
             Directory.CreateDirectory(TemporaryPath);
+            File.WriteAllText(Path.Combine(TemporaryPath, MarkerFile), MarkerText);
             CheckTarget(TargetPath, overwrite);
             string? previous = null;
             if (Directory.Exists(TargetPath))
@@ -74,8 +129,20 @@ public sealed class ReportFolder : IDisposable
             }
             Directory.Move(TemporaryPath, TargetPath);
             finished = true;
-            if (previous is not null) Directory.Delete(previous, recursive: true);
+            if (previous is not null && !DeleteIfPossible(previous))
+                throw new InputException($"--out {TargetPath}: the new report is in place, but the previous one could not be deleted completely; what is left of it is in {previous}");
         }
+    }
+
+    /// <summary>Deletes a folder of ours; false when some entry cannot be deleted (a permission, an immutable file).</summary>
+    private static bool DeleteIfPossible(string folder)
+    {
+        try
+        {
+            Directory.Delete(folder, recursive: true);
+            return true;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException) { return false; }
     }
 
     /// <summary>Deletes the temporary folder and refuses any later write; safe to call from another thread (a signal handler).</summary>

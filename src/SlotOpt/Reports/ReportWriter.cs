@@ -4,8 +4,8 @@ namespace SlotOpt.Reports;
 
 /// <summary>
 /// Writes the report of a finished run into a folder, atomically: index.html, summary.md, candidates.csv,
-/// result.json (given as text: the CLI's own JSON of the run) and every plot as PNG and SVG. Reads the
-/// run only; the one line that changes between runs is <see cref="ReportStamp"/>.
+/// result.json (<see cref="ResultJson"/>, the document `run --json` prints) and every plot as PNG and SVG.
+/// Reads the run only; the one line that changes between runs is <see cref="ReportStamp"/>.
 /// </summary>
 public static class ReportWriter
 {
@@ -14,9 +14,9 @@ public static class ReportWriter
     public const string CandidatesFile = "candidates.csv";
     public const string JsonFile = "result.json";
 
-    public static void Write(RunResult r, string resultJson, DateTimeOffset generatedAt, ReportFolder folder)
+    public static void Write(RunResult r, DateTimeOffset generatedAt, ReportFolder folder)
     {
-        folder.WriteText(JsonFile, resultJson);
+        folder.WriteText(JsonFile, ResultJson.From(r).Serialize());
         folder.WriteText(CandidatesFile, CandidatesCsv.Write(r));
         var figures = ReportFigures.Of(r);
         foreach (var figure in figures.All)

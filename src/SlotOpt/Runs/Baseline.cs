@@ -10,5 +10,5 @@ public sealed record Baseline(string Name, IReadOnlyList<EvaluatedOption> Option
     public double OwningCost(double valuePerWatt) => BuildCost + valuePerWatt * LossW;
 
     /// <summary>Rules or limits this design breaks, one line each.</summary>
-    public IReadOnlyList<string> Breaks => Options.Where(o => !o.IsFeasible).Select(o => $"{o.PartName}: {o.Rejection}").ToList();
+    public IReadOnlyList<string> Breaks => Options.Where(o => !o.IsFeasible).Select(o => $"{o.PartName}: {o.Rejection!.Message}").ToList();
 }

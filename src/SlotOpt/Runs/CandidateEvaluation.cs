@@ -46,12 +46,6 @@ public static class CandidateEvaluation
             CoilGroups = problem.Limits.CoilGroups,
             MaxDistinctProcesses = problem.Limits.MaxDistinctProcesses,
         },
-        problem.Goal switch
-        {
-            Objective.LowestLossWithinBudget => Objective.LowestLossWithinBudget,
-            Objective.LowestCostWithinLossCap => Objective.LowestCostWithinLossCap,
-            Objective.TradeOffCurve => Objective.TradeOffCurve,
-            _ => Objective.LowestOwningCost,
-        },
+        problem.Goal,
         problem.Economics.ValuePerWatt);
 }

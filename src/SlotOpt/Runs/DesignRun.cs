@@ -1,9 +1,13 @@
 using SlotOpt.Design;
 using SlotOpt.Selection;
+using SlotOpt.Selection.Search;
 
 namespace SlotOpt.Runs;
 
-/// <summary>The main job: evaluate every option, select under the shared limits, trace the front, compare with the baselines.</summary>
+/// <summary>
+/// The main job: evaluate every option, select under the shared limits, trace the front, compare with the
+/// baselines, confirm the chosen plates, and compute the numbers the report plots.
+/// </summary>
 public static class DesignRun
 {
     public static RunResult Execute(Problem problem, CpSatSettings? settings = null, IProgress<int>? geometrySolved = null, EvaluationLimits? limits = null)
@@ -22,7 +26,8 @@ public static class DesignRun
                 if (problem.Parts.First(p => p.Name == option.PartName) is PlatePart plate && option.Choice is PlateChoice choice)
                     confirmations.Add(PlateConfirmation.Confirm(plate, choice, problem.Library, limits));
         }
-        return new RunResult(problem, evaluated.Parts, outcome, chosen, Baselines(problem, evaluated.Parts), evaluated.SheetSolves, evaluated.Seconds, confirmations);
+        var figures = RunFigures.Compute(problem, evaluated.Parts, chosen, limits);
+        return new RunResult(problem, evaluated.Parts, outcome, chosen, Baselines(problem, evaluated.Parts), evaluated.SheetSolves, evaluated.Seconds, confirmations, figures);
     }
 
     /// <summary>

@@ -8,7 +8,8 @@ namespace SlotOpt.Runs;
 /// <summary>
 /// The case one plate file describes (read by the input layer's PlateFileReader), validated and in SI:
 /// where it came from, geometry, grid choice, material and thickness, and either an AC source or moving
-/// poles with the travel offsets to evaluate. <see cref="PlateFileEvaluation"/> solves it.
+/// poles with the travel offsets to evaluate; optionally its cooling and temperature limit ([thermal]).
+/// <see cref="PlateFileEvaluation"/> solves it.
 /// </summary>
 public sealed record PlateCase(
     string Path,
@@ -18,4 +19,5 @@ public sealed record PlateCase(
     IAcFieldSource? AcSource,
     MovingPoles? MovingSource,
     IReadOnlyList<double> OffsetsXM,
-    string AveragedOver);
+    string AveragedOver,
+    PlateThermalInput? Thermal = null);

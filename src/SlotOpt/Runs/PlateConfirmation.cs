@@ -1,7 +1,7 @@
 using SlotOpt.Design;
 using SlotOpt.Materials;
-using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates;
+using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.Sources;
 
@@ -26,7 +26,8 @@ public sealed record PlateConfirmation(
 {
     /// <summary>
     /// Speeds of the sweep, as multiples of the receding-image speed w = 2/(mu0 sigma t): a solid sheet's drag peaks
-    /// near 1.27 w (REFERENCES §7); slots push the peak higher. Beyond about 5 w the coupled solve converges slowly.
+    /// near 1.27 w (for a source symmetric about the sheet normal, F_D = (w/v) F0 [1 - w/sqrt(v^2 + w^2)] peaks at v = w sqrt(golden ratio):
+    /// Reitz, "Forces on moving magnets due to eddy currents", J. Appl. Phys. 41:2067, 1970, re-derived); slots push the peak higher. Beyond about 5 w the coupled solve converges slowly.
     /// </summary>
     public static readonly double[] SweepOverW = [0.05, 0.1, 0.2, 0.4, 0.7, 1.0, 1.5, 2.2, 3.3, 5.0];
 
@@ -42,17 +43,18 @@ public sealed record PlateConfirmation(
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
-        if (part.Excitation.Moving is { } poles)
+        if (part.Excitation is PlateExcitation.Moving { Poles: var poles })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
             var reaction = ReactionOperator.Build(model);
             solution = PlateModels.SolveMoving(model, poles, conductor, offsets, poles.PoleSizeXM, reaction: reaction);
             sweep = Sweep(reaction, poles, conductor, offsets);
         }
-        else
+        else if (part.Excitation is PlateExcitation.AcField field)
         {
-            solution = PlateModels.SolveAc(model, part.Excitation.Ac!, conductor);
+            solution = PlateModels.SolveAc(model, field.Source, conductor);
         }
+        else throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         return new PlateConfirmation(part.Name, solution.Choice.Kind, solution.Choice.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
             solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep);
     }
@@ -60,7 +62,7 @@ public sealed record PlateConfirmation(
     /// <summary>Drag and lift against speed with the plate's own field, over SweepOverW multiples of w.</summary>
     private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, MovingPoles poles, ConductingSheet conductor, IReadOnlyList<double> offsets)
     {
-        var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow 1992, REFERENCES §7)
+        var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow, "Maxwell's theory of eddy currents in thin conducting sheets...", Am. J. Phys. 60(8):693-711, 1992)
         var window = offsets.Take(SweepPositions).ToList();
         var points = new List<SpeedPoint>();
         foreach (var m in SweepOverW)

@@ -3,6 +3,7 @@ using SlotOpt.Numerics;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Thermal;
 
 namespace SlotOpt.Runs;
 
@@ -13,6 +14,7 @@ namespace SlotOpt.Runs;
 /// and RMS current density, validity) is the resistance-limited solution scaled to the case's material
 /// and thickness (moving poles: the offset with the largest loss); when another model ran it is solved
 /// for the map alone, and a note says so. TotalIterations and RelativeResidual are those of the model that ran.
+/// With [thermal] the plate is solved with its resistivity at its own temperature (<see cref="PlateHeating"/>).
 /// </summary>
 public sealed record PlateFileEvaluation(
     PlateCase Case,
@@ -26,12 +28,13 @@ public sealed record PlateFileEvaluation(
     int TotalIterations,
     double RelativeResidual,
     double SetupSeconds,
-    double SolveSeconds)
+    double SolveSeconds,
+    HeatedPlate? Heating = null)
 {
     public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null)
     {
-        var grid = plate.MovingSource is { } source ? plate.Grid with { SourceFeatures = source.GridFeatures } : plate.Grid;
-        var model = SheetModel.Build(plate.Geometry, grid);
+        if (plate.Thermal is not null) return EvaluateHeated(plate, criterion);
+        var model = SheetModel.Build(plate.Geometry, GridFor(plate));
         var clock = Stopwatch.StartNew();
         if (plate.AcSource is { } ac)
         {
@@ -50,7 +53,39 @@ public sealed record PlateFileEvaluation(
     private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>
         solution.ResistanceLimited ?? resistanceLimited();
 
+    /// <summary>The file's grid choice with the moving poles' widths and gaps to resolve (GridOptions.SourceFeatures).</summary>
+    private static GridOptions GridFor(PlateCase plate) =>
+        plate.MovingSource is { } poles ? plate.Grid with { SourceFeatures = poles.GridFeatures } : plate.Grid;
+
     private static PlateResult WithMapNote(PlateResult result, PlateSolution solution) =>
         solution.ResistanceLimited is not null ? result
             : result with { Notes = result.Notes.Append("the current-density map and its peak and RMS are from the resistance-limited model, which overstates them here; loss and drag are from the model that ran").ToList() };
+
+    /// <summary>With [thermal]: loss and temperature solved together, the resistivity at each cell's temperature.</summary>
+    private static PlateFileEvaluation EvaluateHeated(PlateCase plate, ConvergenceCriterion? criterion)
+    {
+        var thermal = plate.Thermal!;
+        var clock = Stopwatch.StartNew();
+        double g = plate.Sheet.SheetConductanceS;
+        if (plate.AcSource is { } ac)
+        {
+            var choice = ReactionModelChoice.ForAc(plate.Sheet, ac.FrequencyHz, plate.Geometry.CharacteristicWidthM);
+            var heated = PlateHeating.SolveAc(plate.Geometry, GridFor(plate), ac, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
+            var result = heated.Ac!.ScaleTo(plate.Sheet);
+            return new PlateFileEvaluation(plate, choice, WithHeatingNote(result, choice), result.LossW, null, Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(),
+                heated.Ac.Iterations, heated.Ac.RelativeResidual, heated.Model.SetupSeconds, clock.Elapsed.TotalSeconds - heated.Model.SetupSeconds, heated);
+        }
+        var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
+        var movingChoice = ReactionModelChoice.ForMoving(plate.Sheet, poles.SpeedMPerS, poles.PoleSizeXM);
+        var hot = PlateHeating.SolveMoving(plate.Geometry, GridFor(plate), poles, plate.OffsetsXM, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
+        var sweep = hot.Sweep!;
+        var peak = sweep.Peak.ScaleTo(plate.Sheet);
+        return new PlateFileEvaluation(plate, movingChoice, WithHeatingNote(peak, movingChoice), sweep.MeanLossW(g), sweep.MeanDragN(g), sweep.OffsetsXM, sweep.DragN(g),
+            sweep.LossPerSiemensW.Select(p => p * g).ToArray(), sweep.IterationsPerOffset.Sum(), sweep.Peak.RelativeResidual, hot.Model.SetupSeconds, clock.Elapsed.TotalSeconds - hot.Model.SetupSeconds, hot);
+    }
+
+    /// <summary>The temperature coupling runs the resistance-limited model; where the validity figures call for another, say so.</summary>
+    private static PlateResult WithHeatingNote(PlateResult result, ModelChoice choice) =>
+        choice.Kind == SheetModelKind.ResistanceLimited ? result
+            : result with { Notes = result.Notes.Append($"loss and temperature are coupled through the resistance-limited model, but this plate's validity calls for another ({choice.Reason}): both are overstated").ToList() };
 }

@@ -5,7 +5,8 @@ namespace SlotOpt.Runs;
 
 /// <summary>
 /// Everything a run found, for the console and the reports: every evaluated option, the selection
-/// (design, front, diagnosis), the baselines, and the effort spent.
+/// (design, front, diagnosis), the baselines, the chosen plates confirmed, the numbers behind the plots,
+/// and the effort spent. Reports render it; they compute nothing of their own.
 /// </summary>
 public sealed record RunResult(
     Problem Problem,
@@ -15,7 +16,8 @@ public sealed record RunResult(
     IReadOnlyList<Baseline> Baselines,
     int SheetSolves,
     double EvaluationSeconds,
-    IReadOnlyList<PlateConfirmation> Confirmations)
+    IReadOnlyList<PlateConfirmation> Confirmations,
+    RunFigures Figures)
 {
     /// <summary>The design the user has today (or the baseline where the file gives none).</summary>
     public Baseline Reference => Baselines[0];

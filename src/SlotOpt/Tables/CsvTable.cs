@@ -21,21 +21,27 @@ public sealed class CsvTable
     }
 
     /// <summary>Parses CSV text; lines that are blank or start with '#' are skipped.</summary>
-    /// <exception cref="InputException">No header, or a row with the wrong number of cells.</exception>
-    public static CsvTable Parse(string text, string sourceName)
+    /// <param name="maxRows">The most data rows accepted; one more is an error naming the line, found before the rest is read.</param>
+    /// <exception cref="InputException">No header, a row with the wrong number of cells, or more than maxRows rows.</exception>
+    public static CsvTable Parse(string text, string sourceName, int maxRows = int.MaxValue)
     {
-        var lines = text.Replace("\r\n", "\n").Split('\n');
         List<string>? header = null;
         var rows = new List<CsvRow>();
         var errors = new List<string>();
-        for (var i = 0; i < lines.Length; i++)
+        var errorCount = 0;
+        void Error(string message)
         {
-            var line = lines[i];
+            if (++errorCount <= MaxErrorsListed) errors.Add(message);
+        }
+        var lineNumber = 0;
+        using var reader = new StringReader(text);
+        while (reader.ReadLine() is { } line)
+        {
+            lineNumber++;
             if (string.IsNullOrWhiteSpace(line) || line.TrimStart().StartsWith('#')) continue;
-            var lineNumber = i + 1;
             if (!TrySplit(line, out var cells))
             {
-                errors.Add($"{sourceName}:{lineNumber}: unbalanced quotes");
+                Error($"{sourceName}:{lineNumber}: unbalanced quotes");
                 continue;
             }
             if (header is null)
@@ -45,15 +51,24 @@ public sealed class CsvTable
             }
             if (cells.Count != header.Count)
             {
-                errors.Add($"{sourceName}:{lineNumber}: expected {header.Count} values ({string.Join(", ", header)}), found {cells.Count}");
+                Error($"{sourceName}:{lineNumber}: expected {header.Count} values ({string.Join(", ", header)}), found {cells.Count}");
                 continue;
+            }
+            if (rows.Count == maxRows)
+            {
+                Error($"{sourceName}:{lineNumber}: more than {maxRows:N0} data rows, the most this table may hold");
+                break;
             }
             rows.Add(new CsvRow(sourceName, lineNumber, header, cells));
         }
-        if (header is null) errors.Add($"{sourceName}: no header row");
-        if (errors.Count > 0) throw new InputException(errors);
+        if (header is null) Error($"{sourceName}: no header row");
+        if (errorCount > MaxErrorsListed) errors.Add($"{sourceName}:{lineNumber}: ... and {errorCount - MaxErrorsListed:N0} more errors");
+        if (errorCount > 0) throw new InputException(errors);
         return new CsvTable(sourceName, header!, rows);
     }
+
+    /// <summary>Errors listed at most for one table (a wrong file would otherwise print one per line).</summary>
+    private const int MaxErrorsListed = 20;
 
     /// <summary>Throws unless every named column is present.</summary>
     public void RequireColumns(params string[] names)

@@ -10,7 +10,7 @@ public class LaminationCommandTests
     [Fact]
     public void Core_loss_of_M270_35A_at_its_specification_point()
     {
-        var run = SlotOptProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--json");
+        var run = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--json");
         Assert.Equal(0, run.ExitCode);
         using var doc = JsonDocument.Parse(run.Stdout);
         var root = doc.RootElement;
@@ -30,7 +30,7 @@ public class LaminationCommandTests
     [InlineData("--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--waveform", "no-such-file.csv")]
     public void Bad_flags_give_one_clear_line_and_exit_code_2(params string[] flags)
     {
-        var run = SlotOptProcess.Run(["core-loss", .. flags]);
+        var run = SlotOptInProcess.Run(["core-loss", .. flags]);
         Assert.Equal(2, run.ExitCode);
         Assert.StartsWith("error:", run.Stderr);
         Assert.DoesNotContain("   at ", run.Stderr);   // no stack trace
@@ -45,13 +45,13 @@ public class LaminationCommandTests
         {
             // a trapezoid: ramps of a quarter period each, flat tops (an invented demo shape)
             File.WriteAllText(Path.Combine(dir, "trap.csv"), "phase,b_t\n0,-1\n0.25,1\n0.5,1\n0.75,-1\n");
-            var run = SlotOptProcess.RunIn(dir, "core-loss", "--grade", "M270-35A", "--peak", "1.2T", "--frequency", "400Hz", "--waveform", "trap.csv", "--json");
+            var run = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.2T", "--frequency", "400Hz", "--waveform", Path.Combine(dir, "trap.csv"), "--json");
             Assert.Equal(0, run.ExitCode);
             using var doc = JsonDocument.Parse(run.Stdout);
             Assert.Equal(1.2, doc.RootElement.GetProperty("peak_t").GetDouble(), 1e-12);
             // the classical term of this trapezoid: <(dB/dt)^2> = (2 Bp / (T/4))^2 / 2 = 32 Bp^2 f^2 (derived),
             // i.e. 16/pi^2 of the sine's; the skin factor multiplies it
-            var sine = SlotOptProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.2T", "--frequency", "400Hz", "--json");
+            var sine = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.2T", "--frequency", "400Hz", "--json");
             using var sineDoc = JsonDocument.Parse(sine.Stdout);
             var ratio = doc.RootElement.GetProperty("classical_w_per_kg").GetDouble() / doc.RootElement.GetProperty("skin_factor").GetDouble()
                         / (sineDoc.RootElement.GetProperty("classical_w_per_kg").GetDouble() / sineDoc.RootElement.GetProperty("skin_factor").GetDouble());
@@ -63,7 +63,7 @@ public class LaminationCommandTests
     [Fact]
     public void Materials_lists_grades_and_conductors()
     {
-        var run = SlotOptProcess.Run("materials", "--json");
+        var run = SlotOptInProcess.Run("materials", "--json");
         Assert.Equal(0, run.ExitCode);
         using var doc = JsonDocument.Parse(run.Stdout);
         Assert.True(doc.RootElement.GetProperty("grades").GetArrayLength() >= 17);
@@ -84,12 +84,12 @@ public class LaminationCommandTests
             foreach (var b in new[] { 0.5, 1.0, 1.5 })
                 lines.Add(string.Create(CultureInfo.InvariantCulture, $"{b},{f},{kh * f * Math.Pow(b, alpha) + kc * f * f * b * b + ke * Math.Pow(f * b, 1.5):R}"));
             File.WriteAllLines(Path.Combine(dir, "m.csv"), lines);
-            var run = SlotOptProcess.RunIn(dir, "fit", "m.csv", "--thickness", "0.5mm", "--resistivity", "0.42 uOhm m", "--density", "7700 kg/m3", "--json");
+            var run = SlotOptInProcess.Run("fit", Path.Combine(dir, "m.csv"), "--thickness", "0.5mm", "--resistivity", "0.42 uOhm m", "--density", "7700 kg/m3", "--json");
             Assert.Equal(0, run.ExitCode);
             using var doc = JsonDocument.Parse(run.Stdout);
             Assert.Equal(kh, doc.RootElement.GetProperty("kh").GetDouble(), kh * 1e-6);
             Assert.Equal(alpha, doc.RootElement.GetProperty("alpha").GetDouble(), 1e-6);
-            var bad = SlotOptProcess.RunIn(dir, "fit", "m.csv", "--thickness", "0.5", "--resistivity", "fast", "--density", "7700");
+            var bad = SlotOptInProcess.Run("fit", Path.Combine(dir, "m.csv"), "--thickness", "0.5", "--resistivity", "fast", "--density", "7700");
             Assert.Equal(2, bad.ExitCode);
             Assert.Contains("--resistivity", bad.Stderr);
         }

@@ -9,7 +9,7 @@ public class ProblemCommandTests
     [Fact]
     public void Check_summarises_the_design_space()
     {
-        var run = SlotOptProcess.Run("check", Demo("actuator-product.toml"), "--json");
+        var run = SlotOptInProcess.Run("check", Demo("actuator-product.toml"), "--json");
         Assert.Equal(0, run.ExitCode);
         using var doc = JsonDocument.Parse(run.Stdout);
         var parts = doc.RootElement.GetProperty("parts");
@@ -38,13 +38,14 @@ public class ProblemCommandTests
                 flux = "1.2 T"
                 frequency = "50 Hz"
                 """);
-            var run = SlotOptProcess.RunIn(dir, "check", "bad.toml");
+            var file = Path.Combine(dir, "bad.toml");
+            var run = SlotOptInProcess.Run("check", file);
             Assert.Equal(2, run.ExitCode);
             var lines = run.Stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries);
             Assert.Equal(3, lines.Length);
-            Assert.StartsWith("error: bad.toml:3: problem.objectve", lines[0]);
-            Assert.StartsWith("error: bad.toml:8: parts[1].grades", lines[1]);
-            Assert.StartsWith("error: bad.toml:10: parts[1].stack_height", lines[2]);
+            Assert.StartsWith($"error: {file}:3: problem.objectve", lines[0]);
+            Assert.StartsWith($"error: {file}:8: parts[1].grades", lines[1]);
+            Assert.StartsWith($"error: {file}:10: parts[1].stack_height", lines[2]);
             Assert.Equal("", run.Stdout);
         }
         finally { Directory.Delete(dir, true); }
@@ -53,7 +54,7 @@ public class ProblemCommandTests
     [Fact]
     public void Evaluate_prints_totals_that_add_up()
     {
-        var run = SlotOptProcess.Run("evaluate", Demo("actuator-product.toml"), "--json");
+        var run = SlotOptInProcess.Run("evaluate", Demo("actuator-product.toml"), "--json");
         Assert.Equal(0, run.ExitCode);
         using var doc = JsonDocument.Parse(run.Stdout);
         var root = doc.RootElement;
@@ -67,7 +68,7 @@ public class ProblemCommandTests
     [Fact]
     public void Missing_problem_file_is_a_clear_error()
     {
-        var run = SlotOptProcess.Run("evaluate", "no-such-problem.toml");
+        var run = SlotOptInProcess.Run("evaluate", "no-such-problem.toml");
         Assert.Equal(2, run.ExitCode);
         Assert.StartsWith("error: no-such-problem.toml: cannot read", run.Stderr);
     }

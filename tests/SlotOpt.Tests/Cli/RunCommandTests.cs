@@ -11,7 +11,7 @@ public class RunCommandTests
     [Fact]
     public void Run_json_has_the_promised_keys_and_consistent_totals()
     {
-        var run = SlotOptProcess.Run("run", Demo("tie-plate-50hz.toml"), "--json");
+        var run = SlotOptInProcess.Run("run", Demo("tie-plate-50hz.toml"), "--json");
         Assert.Equal(0, run.ExitCode);
         using var doc = JsonDocument.Parse(run.Stdout);
         var root = doc.RootElement;
@@ -37,7 +37,7 @@ public class RunCommandTests
         {
             var text = File.ReadAllText(Demo("actuator-product.toml")).Replace("budget = 30 ", "budget = 5 ");
             File.WriteAllText(Path.Combine(dir, "tight.toml"), text);
-            var run = SlotOptProcess.RunIn(dir, "run", "tight.toml");
+            var run = SlotOptInProcess.Run("run", Path.Combine(dir, "tight.toml"));
             Assert.Equal(3, run.ExitCode);
             Assert.Contains("No design meets every limit.", run.Stdout);
             Assert.Contains("the budget", run.Stdout);
@@ -56,7 +56,7 @@ public class RunLimitFlagTests
     [InlineData("--time-limit", "0.001 s", "--time-limit")]
     public void Exceeding_a_resource_limit_exits_5_with_the_limit_named(string flag, string value, string named)
     {
-        var run = SlotOptProcess.Run("run", Demo("tie-plate-50hz.toml"), flag, value);
+        var run = SlotOptInProcess.Run("run", Demo("tie-plate-50hz.toml"), flag, value);
         Assert.Equal(5, run.ExitCode);
         Assert.StartsWith("resource limit:", run.Stderr);
         Assert.Contains(named, run.Stderr);
@@ -70,7 +70,7 @@ public class RunLimitFlagTests
     [InlineData("--search-budget", "0")]
     public void Bad_limit_flags_are_input_errors(string flag, string value)
     {
-        var run = SlotOptProcess.Run("run", Demo("tie-plate-50hz.toml"), flag, value);
+        var run = SlotOptInProcess.Run("run", Demo("tie-plate-50hz.toml"), flag, value);
         Assert.Equal(2, run.ExitCode);
         Assert.Contains(flag, run.Stderr);
     }
@@ -84,9 +84,9 @@ public class RunReproducibilityTests
     public void Same_problem_gives_byte_identical_json_across_runs_and_threads()
     {
         var demo = Path.Combine(AppContext.BaseDirectory, "problems", "conveyor-rail.toml");
-        var first = SlotOptProcess.Run("run", demo, "--json", "--threads", "1");
-        var second = SlotOptProcess.Run("run", demo, "--json", "--threads", "2");
-        var third = SlotOptProcess.Run("run", demo, "--json", "--threads", "2");
+        var first = SlotOptInProcess.Run("run", demo, "--json", "--threads", "1");
+        var second = SlotOptInProcess.Run("run", demo, "--json", "--threads", "2");
+        var third = SlotOptInProcess.Run("run", demo, "--json", "--threads", "2");
         Assert.Equal(0, first.ExitCode);
         Assert.Equal(first.Stdout, second.Stdout);
         Assert.Equal(second.Stdout, third.Stdout);

@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Reflection;
+using SlotOpt.Cli;
 
 namespace SlotOpt.Tests.Cli;
 

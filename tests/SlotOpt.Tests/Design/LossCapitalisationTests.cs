@@ -4,7 +4,8 @@ namespace SlotOpt.Tests.Design;
 
 public class LossCapitalisationTests
 {
-    // REFERENCES §10 worked example (derived, on the construction of IEEE Std C57.120-1991): 0.10 $/kWh,
+    // Worked example computed on the construction of IEEE Std C57.120-1991, IEEE Loss Evaluation Guide for
+    // Power Transformers and Reactors (A = C_energy x 8760 h x PVF, PVF = ((1+i)^n - 1)/(i (1+i)^n)): 0.10 $/kWh,
     // 8760 h, 8 %, 30 years: PVF = 11.258 and A = 9.86 $/W; 0.08 $/kWh, 5 %, 25 years: A = 9.88 $/W.
     // Tolerances: half a unit of the last printed digit.
     [Fact]

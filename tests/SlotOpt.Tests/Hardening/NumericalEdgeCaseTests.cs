@@ -29,7 +29,7 @@ public class NumericalEdgeCaseTests
     }
 
     // A cut across the whole plate makes two separate conductors. Square 1 x 1 cut into two 1 x 0.5 halves:
-    // by the torsion analogy (Timoshenko and Goodier, Theory of Elasticity, 1970, ch. 10, k1 table; REFERENCES §3)
+    // by the torsion analogy (Timoshenko and Goodier, Theory of Elasticity, 1970, ch. 10, k1 table)
     // loss goes with J = k1 a^3 b: 2 k1(2) 0.5^3 1 against k1(1) 1^4, ratio 2 x 0.22868 x 0.125 / 0.14058 = 0.4067.
     // Tolerance 1.5 %: 64 cells across, discretisation error well under 1 % for each shape.
     [Fact]
@@ -56,7 +56,7 @@ public class NumericalEdgeCaseTests
         Assert.True(double.IsFinite(loss) && loss > 0 && loss < solid, $"{loss} vs solid {solid}");
     }
 
-    // Extreme aspect ratio 100:1: the strip is nearly the infinite slab, F_w(0.01) = 0.99370 (REFERENCES §3, derived
+    // Extreme aspect ratio 100:1: the strip is nearly the infinite slab, F_w(0.01) = 0.99370 (torsion of a thin rectangle, Timoshenko and Goodier 1970 ch. 10, derived
     // from the T&G series), so loss per length = G (dB/dt)^2 J/4 with J = k1 a^3 b. Tolerance 1 %.
     [Fact]
     public void A_100_to_1_strip_matches_the_slab_within_a_percent()
@@ -68,7 +68,7 @@ public class NumericalEdgeCaseTests
         Assert.Equal(expected, solution.LossPerSiemensW, expected * 0.01);
     }
 
-    // A lamination ten skin depths thick: the classical term carries F = 3/x (REFERENCES §2, F(10) = 0.299992)
+    // A lamination ten skin depths thick: the classical term carries F = 3/x (Lammeraner and Stafl, Eddy Currents, 1964; Stoll 1974: F(x) = (3/x)(sinh x - sin x)/(cosh x - cos x), F(10) = 0.299992)
     // and the result is flagged; nothing overflows.
     [Fact]
     public void A_lamination_much_thicker_than_the_skin_depth_is_corrected_and_flagged()

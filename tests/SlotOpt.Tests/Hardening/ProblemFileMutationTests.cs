@@ -2,6 +2,7 @@ using System.Diagnostics;
 using System.Text;
 using System.Text.RegularExpressions;
 using SlotOpt.Input;
+using SlotOpt.Input.Toml;
 using Xunit.Abstractions;
 
 namespace SlotOpt.Tests.Hardening;
@@ -9,7 +10,11 @@ namespace SlotOpt.Tests.Hardening;
 /// <summary>
 /// Mutation test of the problem-file reader: thousands of damaged copies of every demo problem must each
 /// end in a valid problem or a clean <see cref="InputException"/> whose every line names file:line;
-/// never another exception, never a hang. The seed is fixed so that a failure reproduces.
+/// never another exception, never a hang. The mutations cover each class of the hardening issue: lines
+/// deleted, duplicated, swapped, truncated; numbers changed; units swapped, their prefixes' case flipped
+/// ("mm" to "Mm" or "MM"), values that overflow once their unit is applied ("1e308 km"); wrong types; inf
+/// and nan; arrays and inline tables nested beyond the reader's limit; random bytes; long and empty strings.
+/// The seed is fixed so that a failure reproduces.
 /// </summary>
 public class ProblemFileMutationTests(ITestOutputHelper output)
 {
@@ -33,6 +38,7 @@ public class ProblemFileMutationTests(ITestOutputHelper output)
                 try
                 {
                     ProblemReader.Read(text, demo);
+                    Assert.False(MustBeRefused.Contains(kind), $"mutant {tried} ({kind}) of {Path.GetFileName(demo)} was accepted\n--- file ---\n{text}");
                     accepted++;
                 }
                 catch (InputException e)
@@ -64,7 +70,7 @@ public class ProblemFileMutationTests(ITestOutputHelper output)
     {
         var lines = text.Split('\n').ToList();
         var n = lines.Count;
-        switch (random.Next(11))
+        switch (random.Next(14))
         {
             case 0:
                 lines.RemoveAt(random.Next(n));
@@ -112,10 +118,42 @@ public class ProblemFileMutationTests(ITestOutputHelper output)
                 lines[index] = line[..(line.IndexOf(" = ", StringComparison.Ordinal) + 3)] + (random.Next(2) == 0 ? "\"1e300 mm\"" : "1e-300");
                 return ("huge or tiny value", string.Join('\n', lines));
             }
+            case 11:
+                return ("prefix case", Regex.Replace(text, @"(?<=\d ?)(mm|mT|kHz|MS/m|uOhm|kg|GPa)(?="")", m => random.Next(3) == 0 ? FlipFirstCase(m.Value, random) : m.Value));
+            case 12:
+            {
+                var depth = random.Next(TomlDocumentReader.MaxDepth - 2, 3 * TomlDocumentReader.MaxDepth);
+                var (open, close) = random.Next(2) == 0 ? ("[", "]") : ("{ k = ", " }");
+                var value = string.Concat(Enumerable.Repeat(open, depth)) + "1" + string.Concat(Enumerable.Repeat(close, depth));
+                var values = lines.Select((l, i) => (l, i)).Where(x => x.l.Contains(" = ")).ToList();
+                if (values.Count == 0) return ("none", text);
+                var (line, index) = values[random.Next(values.Count)];
+                lines[index] = line[..(line.IndexOf(" = ", StringComparison.Ordinal) + 3)] + value;
+                return (depth > TomlDocumentReader.MaxDepth ? "deep nesting" : "nesting within the limit", string.Join('\n', lines));
+            }
+            case 13:
+            {
+                var quantities = Regex.Matches(text, @"(?<=^\w+ = )""\d+(\.\d+)? ?(mm|T|mT|Hz|kHz|m/s|N|W|m2)""", RegexOptions.Multiline);   // values, not comments
+                if (quantities.Count == 0) return ("none", text);
+                var chosen = quantities[random.Next(quantities.Count)];
+                return ("overflowing unit", text[..chosen.Index] + $"\"1e308 {Overflowing[random.Next(Overflowing.Length)]}\"" + text[(chosen.Index + chosen.Length)..]);
+            }
             default:
                 return ("empty string", Regex.Replace(text, "\"[^\"\n]*\"", m => random.Next(5) == 0 ? "\"\"" : m.Value));
         }
     }
+
+    /// <summary>Mutations that always make the file wrong: accepting one would be a silently wrong value.</summary>
+    private static readonly HashSet<string> MustBeRefused = ["deep nesting", "overflowing unit"];
+
+    private static readonly string[] Overflowing = ["km", "Mm", "GT", "EHz", "Ym/s", "kN", "YW", "km2", "MS/m", "YOhm m"];
+
+    private static string FlipFirstCase(string unit, Random random) => random.Next(3) switch
+    {
+        0 => unit.ToUpperInvariant(),
+        1 => unit.ToLowerInvariant(),
+        _ => (char.IsUpper(unit[0]) ? char.ToLowerInvariant(unit[0]) : char.ToUpperInvariant(unit[0])) + unit[1..],
+    };
 
     private static string Scale(string number, Random random) => random.Next(5) switch
     {

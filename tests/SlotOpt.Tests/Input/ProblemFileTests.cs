@@ -37,7 +37,7 @@ public class ProblemFileTests
         Assert.Contains(problems, p => p.Parts.Count >= 3 && p.Limits.Budget is not null && p.Limits.CoilGroups.Count > 0);
         Assert.Contains(problems, p => p.Parts.OfType<PlatePart>().Any(x => x.Excitation.IsMoving && x.MaxDragN is not null));
         Assert.Contains(problems, p => p.Parts.OfType<CorePart>().Any(x => !x.Flux.IsSinusoidal && x.Flux.FundamentalHz == 400));
-        Assert.Contains(problems, p => p.Parts.OfType<PlatePart>().Any(x => x.Excitation is { IsMoving: false, FrequencyHz: 50 }));
+        Assert.Contains(problems, p => p.Parts.OfType<PlatePart>().Any(x => x.Excitation is PlateExcitation.AcField { FrequencyHz: 50 }));
     }
 
     private static InputException ReadFails(string text) =>
@@ -164,7 +164,7 @@ public class ProblemFileTests
         Assert.Contains("parts[1].source.y: puts the poles' path entirely off the plate", ReadFails(moving).Message);
     }
 
-    // Round trip: a fixed design written as [parts.current] and read back is the same choice and
+    // Round trip: a fixed design written as a [parts.current] table and read back is the same choice and
     // evaluates to the same numbers (exact: same inputs, same code path).
     [Fact]
     public void A_fixed_design_round_trips_through_the_file()
@@ -176,7 +176,15 @@ public class ProblemFileTests
 
         var text = File.ReadAllText(Path.Combine(ProblemsFolder, "conveyor-rail.toml"));
         var start = text.IndexOf("[parts.current]", StringComparison.Ordinal);
-        var rewritten = text[..start] + DesignWriter.CurrentTable(slotted);
+        const string current = """
+            [parts.current]
+            thickness = "8 mm"
+            material = "Al-6061-T6"
+            process = "laser"
+            slots = { pattern = "comb", edge = "bottom", pitch = "15 mm", depth = "55 mm", width = "2 mm" }
+
+            """;
+        var rewritten = text[..start] + current;
         var reread = ProblemReader.Read(rewritten, Path.Combine(ProblemsFolder, "conveyor-rail.toml"));
         var rereadRail = Assert.IsType<PlatePart>(reread.Parts[0]);
         Assert.Equal(slotted, rereadRail.Current);
@@ -186,8 +194,8 @@ public class ProblemFileTests
     }
 
     // Issue 4: on the conveyor demo a hand-slotted rail has less drag than the solid one. The physics
-    // reason: slots across the rail cut the eddy-current loops under each pole (REFERENCES §3, the
-    // n-strip series: loss falls roughly as 1/n^2 when a strip is cut into n).
+    // reason: slots across the rail cut the eddy-current loops under each pole (the Saint-Venant torsion
+    // series for rectangles, S. P. Timoshenko and J. N. Goodier, Theory of Elasticity, 3rd ed., 1970, ch. 10, applied to n strips: loss falls roughly as 1/n^2 when a strip is cut into n).
     [Fact]
     public void Hand_slotted_rail_has_less_drag_than_the_solid_rail()
     {

@@ -22,8 +22,8 @@ public class FiniteWidthTests
         Assert.Equal(k1, FiniteWidth.TorsionCoefficient(1, longOverShort), 6e-4);
     }
 
-    // Roark's Formulas for Stress and Strain, 6th ed., Table 20, case 4 (REFERENCES §3, secondary
-    // reproduction): K = a b^3 [16/3 - 3.36 (b/a)(1 - b^4/(12 a^4))] with half-sides a >= b.
+    // Roark's Formulas for Stress and Strain, 6th ed., Table 20, case 4 (as seen in a secondary
+    // reproduction of the table): K = a b^3 [16/3 - 3.36 (b/a)(1 - b^4/(12 a^4))] with half-sides a >= b.
     // Roark's approximation is stated good to about 0.2 %; tolerance 0.3 %.
     [Theory]
     [InlineData(1.0)]
@@ -38,7 +38,8 @@ public class FiniteWidthTests
         Assert.Equal(roark, series, roark * 3e-3);
     }
 
-    // REFERENCES §3 eddy factor F_w = 3 k1 (derived from the series, 5 decimals): w/d = 10 -> 0.93698,
+    // Eddy factor F_w = 3 k1, k1 the torsion coefficient of S. P. Timoshenko and J. N. Goodier, Theory of
+    // Elasticity, 3rd ed., McGraw-Hill, 1970, ch. 10 "Torsion of rectangular bars" (computed from its series, 5 decimals): w/d = 10 -> 0.93698,
     // 2 -> 0.68605, square -> 0.42173; a sheet far wider than thick -> 1. Tolerance 1e-5.
     [Theory]
     [InlineData(10, 0.93698)]

@@ -7,7 +7,7 @@ public class SkinEffectTests
 {
     /// <summary>
     /// Independent exact 1-D solution: a lamination with mean flux imposed has complex permeability
-    /// mu_eff = mu tanh(g)/g, g = (1+j) x/2 (R. L. Stoll, The Analysis of Eddy Currents, 1974; REFERENCES §2),
+    /// mu_eff = mu tanh(g)/g, g = (1+j) x/2 (R. L. Stoll, The Analysis of Eddy Currents, Clarendon Press, Oxford, 1974),
     /// so P = (omega Bp^2 / 2 mu) Im(g coth g) and P / P_classical = 6 Im(g coth g) / x^2.
     /// </summary>
     private static double ComplexPermeabilityFactor(double x)
@@ -31,7 +31,8 @@ public class SkinEffectTests
         Assert.Equal(ComplexPermeabilityFactor(x), SkinEffect.Factor(x), 1e-10);
     }
 
-    // REFERENCES.md §2 table of F(x) (derived, verified two ways there). Tolerance 1e-6: 6-decimal table.
+    // F(x) = (3/x)(sinh x - sin x)/(cosh x - cos x) (J. Lammeraner and M. Stafl, Eddy Currents, Iliffe, 1964;
+    // R. L. Stoll, The Analysis of Eddy Currents, 1974), values computed from it to 6 decimals. Tolerance 1e-6.
     [Theory]
     [InlineData(0.5, 0.999901)]
     [InlineData(1, 0.998417)]
@@ -48,7 +49,7 @@ public class SkinEffectTests
         Assert.Equal(expected, SkinEffect.Factor(x), 1e-6);
     }
 
-    // Limits, REFERENCES.md §2: F -> 1 - x^4/630 (x -> 0), F -> 3/x (x -> infinity).
+    // Limits of the same F(x) (Stoll 1974): F -> 1 - x^4/630 (x -> 0), F -> 3/x (x -> infinity).
     [Fact]
     public void Has_the_published_limits()
     {

@@ -11,7 +11,7 @@ public class GradeLibraryTests
     private static readonly MaterialLibrary Library = MaterialLibrary.BuiltIn;
 
     // Scope of IEC 60404-8-4 (0.35/0.50/0.65 mm NO), IEC 60404-8-8 (thin NO) and IEC 60404-8-7 (GO
-    // 0.23/0.27/0.30 mm), REFERENCES §5: the library covers each.
+    // 0.23/0.27/0.30 mm), as the standards' scopes state them: the library covers each.
     [Fact]
     public void Covers_the_standard_gauges()
     {
@@ -22,7 +22,7 @@ public class GradeLibraryTests
         foreach (var t in new[] { 0.23e-3, 0.27e-3, 0.30e-3 }) Assert.Contains(Library.Steels, s => s.Family == SteelFamily.GrainOriented && Math.Abs(s.ThicknessM - t) < 1e-9);
     }
 
-    // IEC 60404-8-4 designation (REFERENCES §5): M270-35A = at most 2.70 W/kg at 1.5 T 50 Hz, 0.35 mm, NO
+    // IEC 60404-8-4:2013 grade designation: M270-35A = at most 2.70 W/kg at 1.5 T 50 Hz, 0.35 mm, NO
     // fully processed. The data columns must say what the name says. Exact.
     [Fact]
     public void Non_oriented_rows_agree_with_their_designation()
@@ -52,8 +52,8 @@ public class GradeLibraryTests
         Assert.InRange(loss.TotalWPerKg, 0.80 * steel.SpecMaxLossWPerKg, steel.SpecMaxLossWPerKg);
     }
 
-    // The classical term needs no fitting: at the NO specification point it is the REFERENCES §1 value
-    // for the grade's resistivity and thickness (M400-50A-like row: 0.715 W/kg at rho 0.42, d 0.50, 7700).
+    // The classical term needs no fitting: at the NO specification point it is pi^2 d^2 f^2 Bp^2 / (6 rho rho_m)
+    // (Bertotti, IEEE Trans. Magn. 24(1):621-630, 1988) for the grade's resistivity and thickness (computed: 0.715 W/kg at rho 0.42, d 0.50, 7700).
     // Tolerance 0.2 %: 3-digit reference; the skin factor there is 0.99996.
     [Fact]
     public void Classical_share_of_M400_50A_matches_the_reference_row()
@@ -63,7 +63,7 @@ public class GradeLibraryTests
         Assert.Equal(0.715, loss.ClassicalWPerKg, 0.715 * 2e-3);
     }
 
-    // Rule of thumb (REFERENCES §9, common practice): at 400 Hz a thinner gauge of similar silicon
+    // Rule of thumb (common practice, no source): at 400 Hz a thinner gauge of similar silicon
     // content loses less. M270-35A and M270-50A share a loss class (similar Si); the thin 0.20 mm grade less still.
     [Fact]
     public void Thinner_gauge_loses_less_at_400_Hz()

@@ -16,8 +16,8 @@ public class ResistivityTests
 
     // R. A. Matula, J. Phys. Chem. Ref. Data 8(4):1147, 1979: intrinsic rho of pure Cu 1.676 uOhm cm at 293 K,
     // 0.346 at 100 K, 0.213 at 80 K; plus the residual of well-annealed high-purity Cu, 0.002 uOhm cm
-    // (REFERENCES §6, from memory). 77 K: between the 70 and 80 K rows (0.152, 0.213), 0.19-0.20 uOhm cm
-    // intrinsic (REFERENCES §6, derived), so 0.192-0.202 with the residual.
+    // (from memory). 77 K: between the 70 and 80 K rows (0.152, 0.213), 0.19-0.20 uOhm cm
+    // intrinsic (interpolated in Matula's table), so 0.192-0.202 with the residual.
     [Theory]
     [InlineData(293.15, 1.678e-8, 1e-12)]
     [InlineData(100, 0.348e-8, 1e-12)]
@@ -32,7 +32,7 @@ public class ResistivityTests
     {
         var rho = PureCopper.ResistivityAt(77);
         Assert.InRange(rho, 0.192e-8, 0.202e-8);
-        // so rho(293)/rho(77) ~ 8.5 for pure copper (REFERENCES §6, derived): band 8.3..8.8
+        // so rho(293)/rho(77) ~ 8.5 for pure copper (from Matula 1979's rows as above): band 8.3..8.8
         Assert.InRange(PureCopper.ResistivityAt(293.15) / rho, 8.3, 8.8);
     }
 
@@ -58,7 +58,7 @@ public class ResistivityTests
     }
 
     // Copper skin depth, mu_r = 1, 20 degC: 9.35 mm at 50 Hz, 8.53 mm at 60 Hz, 2.09 mm at 1 kHz
-    // (REFERENCES §2, from the IEC 60028 resistivity; the handbook figures usually quoted are 9.3 mm and
+    // (computed as delta = sqrt(2 rho / (omega mu0)) from the IEC 60028:1925 resistivity 1/58 ohm mm^2/m; the handbook figures usually quoted are 9.3 mm and
     // 8.5 mm: common practice, no source). Tolerance 0.1 %: the reference has 3 digits.
     [Theory]
     [InlineData(50, 9.35e-3)]

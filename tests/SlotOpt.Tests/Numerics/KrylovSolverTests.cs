@@ -1,8 +1,8 @@
 using System.Numerics;
+using ComplexVector = MathNet.Numerics.LinearAlgebra.Vector<System.Numerics.Complex>;
 using MathNet.Numerics.LinearAlgebra;
 using SlotOpt.Numerics;
 using Vector = MathNet.Numerics.LinearAlgebra.Vector<double>;
-using ComplexVector = MathNet.Numerics.LinearAlgebra.Vector<System.Numerics.Complex>;
 
 namespace SlotOpt.Tests.Numerics;
 

@@ -1,5 +1,4 @@
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 
 namespace SlotOpt.Tests.Plates;
 

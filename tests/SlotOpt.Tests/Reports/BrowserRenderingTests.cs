@@ -1,5 +1,6 @@
 using System.Text.Json.Nodes;
 using SlotOpt.Reports;
+using SlotOpt.Tests.Cli;
 
 namespace SlotOpt.Tests.Reports;
 
@@ -16,9 +17,9 @@ public sealed class BrowserRenderingTests(ReportRuns runs)
         var pageUrl = new Uri(index).AbsoluteUri;
         var plots = Directory.GetFiles(run.TextDir, "*.png").Length;
 
-        await using var browser = await HeadlessChromium.StartAsync(TimeSpan.FromSeconds(30));
+        await using var browser = await HeadlessChromium.StartAsync(SlotOptProcess.HangGuard);
         await browser.OpenTabAsync(1280, 3000);
-        await browser.NavigateAsync(pageUrl, TimeSpan.FromSeconds(30));
+        await browser.NavigateAsync(pageUrl, SlotOptProcess.HangGuard);
         var images = (await browser.EvaluateAsync("Array.from(document.images).map(i => ({ alt: i.alt, complete: i.complete, width: i.naturalWidth, height: i.naturalHeight }))"))!.AsArray();
         var screenshot = await browser.ScreenshotAsync();
 

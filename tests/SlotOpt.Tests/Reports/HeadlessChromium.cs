@@ -4,6 +4,7 @@ using System.Net.WebSockets;
 using System.Text;
 using System.Text.Json;
 using System.Text.Json.Nodes;
+using SlotOpt.Tests.Cli;
 
 namespace SlotOpt.Tests.Reports;
 
@@ -124,7 +125,7 @@ public sealed class HeadlessChromium : IAsyncDisposable
         var reply = new TaskCompletionSource<JsonNode>(TaskCreationOptions.RunContinuationsAsynchronously);
         pending[id] = reply;
         await socket.SendAsync(Encoding.UTF8.GetBytes(message.ToJsonString()), WebSocketMessageType.Text, true, CancellationToken.None);
-        var done = await Task.WhenAny(reply.Task, Task.Delay(TimeSpan.FromSeconds(30)));
+        var done = await Task.WhenAny(reply.Task, Task.Delay(SlotOptProcess.HangGuard));   // a hang guard only
         if (done != reply.Task) throw new TimeoutException($"Chromium did not answer {method}");
         var answer = await reply.Task;
         if (answer["error"] is { } error) throw new InvalidOperationException($"{method}: {error.ToJsonString()}");

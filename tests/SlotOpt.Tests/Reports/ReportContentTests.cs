@@ -27,7 +27,7 @@ public sealed class ReportContentTests : IDisposable
     {
         var target = Path.Combine(parent, name);
         using var folder = ReportFolder.Begin(target, overwrite: false);
-        ReportWriter.Write(r, "{}\n", FixedClock, folder);
+        ReportWriter.Write(r, FixedClock, folder);
         return target;
     }
 
@@ -66,7 +66,7 @@ public sealed class ReportContentTests : IDisposable
         var r = MotorCore();
         var evaluation = r.Parts.Single();
         var core = (CorePart)evaluation.Part;
-        var curves = LossFrequencyCurves.Of(core, r.Problem);
+        var curves = r.Figures.LossFrequencyOf(core.Name);
         var k = Array.IndexOf(curves.FrequenciesHz.ToArray(), curves.FrequenciesHz.MinBy(f => Math.Abs(f - core.Flux.FundamentalHz)));
         Assert.Equal(core.Flux.FundamentalHz, curves.FrequenciesHz[k], 1e-9 * core.Flux.FundamentalHz);
         Assert.Equal(core.Grades.Count, curves.Curves.Count);

@@ -48,20 +48,21 @@ public sealed class ReportFolderTests : IDisposable
     {
         Directory.CreateDirectory(Target);
         File.WriteAllText(Path.Combine(Target, "old.txt"), "old report");
+        File.WriteAllText(Path.Combine(Target, ReportFolder.MarkerFile), "");   // a report of ours: --force may replace it
         var refused = Assert.Throws<InputException>(() => ReportFolder.Begin(Target, overwrite: false));
         Assert.Contains("--force", refused.Message);
         Assert.True(File.Exists(Path.Combine(Target, "old.txt")));
 
         using (var failed = ReportFolder.Begin(Target, overwrite: true))
             failed.WriteText("new.txt", "half a report");   // disposed without a commit: the old report stays
-        Assert.Equal(["old.txt"], Directory.GetFiles(Target).Select(Path.GetFileName));
+        Assert.Equal([ReportFolder.MarkerFile, "old.txt"], Directory.GetFiles(Target).Select(Path.GetFileName).Order(StringComparer.Ordinal));
 
         using (var folder = ReportFolder.Begin(Target, overwrite: true))
         {
             folder.WriteText("new.txt", "new report");
             folder.Commit();
         }
-        Assert.Equal(["new.txt"], Directory.GetFiles(Target).Select(Path.GetFileName));
+        Assert.Equal([ReportFolder.MarkerFile, "new.txt"], Directory.GetFiles(Target).Select(Path.GetFileName).Order(StringComparer.Ordinal));
         Assert.Equal(["report"], Directory.EnumerateFileSystemEntries(parent).Select(Path.GetFileName));
     }
 

@@ -5,7 +5,7 @@ using SlotOpt.Tests.Cli;
 
 namespace SlotOpt.Tests.Reports;
 
-/// <summary>The command as a process: an existing folder needs --force, and a run stopped while it writes leaves nothing behind.</summary>
+/// <summary>An existing folder needs --force (in-process), and a run stopped by a signal while it writes leaves nothing behind (a real process: the signal is its subject).</summary>
 public sealed class ReportInterruptionTests : IDisposable
 {
     private readonly string parent = Path.Combine(Path.GetTempPath(), "slotopt-interrupt-tests-" + Guid.NewGuid().ToString("N")[..8]);
@@ -20,7 +20,7 @@ public sealed class ReportInterruptionTests : IDisposable
         var target = Path.Combine(parent, "report");
         Directory.CreateDirectory(target);
         File.WriteAllText(Path.Combine(target, "keep.txt"), "mine");
-        var outcome = SlotOptProcess.Run("run", ReportRuns.ProblemPath("motor-core-400hz"), "--out", target);
+        var outcome = SlotOptInProcess.Run("run", ReportRuns.ProblemPath("motor-core-400hz"), "--out", target);
         Assert.Equal(2, outcome.ExitCode);
         Assert.Contains("pass --force to replace it", outcome.Stderr);
         Assert.Equal("", outcome.Stdout);   // refused before the run, not after
@@ -36,22 +36,21 @@ public sealed class ReportInterruptionTests : IDisposable
     public void Terminated_while_writing_the_report_leaves_no_folder_and_no_temporary_folder()
     {
         var target = Path.Combine(parent, "report");
-        var start = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
-        foreach (var a in new[] { Path.Combine(AppContext.BaseDirectory, "slotopt.dll"), "run", ReportRuns.ProblemPath(ReportRuns.Conveyor), "--out", target }) start.ArgumentList.Add(a);
-        using var process = Process.Start(start)!;
+        using var process = SlotOptProcess.Start("run", ReportRuns.ProblemPath(ReportRuns.Conveyor), "--out", target);
         var stdout = process.StandardOutput.ReadToEndAsync();
         var stderr = process.StandardError.ReadToEndAsync();
         var prefix = ReportFolder.TemporaryPrefix(target);
         var clock = Stopwatch.StartNew();
         var sawTemporary = false;
-        while (!process.HasExited && clock.Elapsed < TimeSpan.FromSeconds(60))
+        while (!process.HasExited && clock.Elapsed < SlotOptProcess.HangGuard)   // ends when the folder appears or the run ends; the guard only stops a hung run
         {
             if (Directory.EnumerateDirectories(parent).Any(d => Path.GetFileName(d).StartsWith(prefix, StringComparison.Ordinal))) { sawTemporary = true; break; }
             Thread.Sleep(2);
         }
+        if (!sawTemporary && !process.HasExited) process.Kill(entireProcessTree: true);   // hung: stopped by the guard
         if (!sawTemporary) Assert.Fail($"the run ended before its report folder appeared: {stderr.Result}");   // (reading stderr waits for the exit: only after the signal otherwise)
         Assert.True(Kill(process.Id, SigTerm) == 0, $"kill failed: errno {Marshal.GetLastPInvokeError()}");
-        Assert.True(process.WaitForExit(30_000), "the run did not stop on SIGTERM");
+        Assert.True(process.WaitForExit(SlotOptProcess.HangGuard), "the run did not stop on SIGTERM");
         _ = stdout.Result;
         Assert.True(process.ExitCode == 143, $"exit {process.ExitCode}: {stderr.Result}");
         Assert.Contains("interrupted: the report was not written", stderr.Result);

@@ -12,7 +12,8 @@ public sealed class ReportRunsCollection : ICollectionFixture<ReportRuns>
 
 /// <summary>
 /// The runs the report tests read, made once for the test run: each demo run twice with --out, once printing
-/// text and once printing JSON, into a fresh temporary folder that is deleted afterwards.
+/// text and once printing JSON, in-process through the command's entry point, into a fresh temporary folder
+/// that is deleted afterwards.
 /// </summary>
 public sealed class ReportRuns : IDisposable
 {
@@ -29,8 +30,8 @@ public sealed class ReportRuns : IDisposable
         {
             var textDir = Path.Combine(Root, p + "-text");
             var jsonDir = Path.Combine(Root, p + "-json");
-            var text = SlotOptProcess.Run("run", ProblemPath(p), "--out", textDir);
-            var json = SlotOptProcess.Run("run", ProblemPath(p), "--out", jsonDir, "--json");
+            var text = SlotOptInProcess.Run("run", ProblemPath(p), "--out", textDir);
+            var json = SlotOptInProcess.Run("run", ProblemPath(p), "--out", jsonDir, "--json");
             return new Run(p, textDir, jsonDir, text, json);
         });
     }

@@ -29,7 +29,7 @@ public class DemoRunTests
     }
 
     // Issue 5: at 400 Hz a thinner gauge than the 50 Hz habit (M400-50A, 0.50 mm) wins on owning cost
-    // (REFERENCES §9 rule of thumb: 400 Hz - 1 kHz wants 0.10-0.20 mm).
+    // (400 Hz - 1 kHz wants 0.10-0.20 mm: common practice, no source; IEC 60404-8-8 specifies its thin grades at 400 Hz and above).
     [Fact]
     public void Motor_core_at_400_Hz_takes_a_thinner_gauge_than_the_50_Hz_habit()
     {
@@ -72,7 +72,8 @@ public class PlateConfirmationTests
 {
     // Issue 8, item 3: the chosen rail is confirmed with the model its validity figures call for. At Rm = 0.14
     // the thin-sheet reaction model runs (ReactionModelChoice: Rm > sqrt(0.01)), and by Reitz 1970 / Saslow 1992
-    // (REFERENCES §7: drag/drag_low = 1/(1 + Rm^2) for a line source, (2/Rm)(1 - 1/sqrt(1+Rm^2)) axisymmetric) the
+    // (Reitz, J. Appl. Phys. 41:2067, 1970, and Saslow, Am. J. Phys. 60(8):693-711, 1992, re-derived for a thin sheet:
+    // drag/drag_low = 1/(1 + Rm^2) for a line source, (2/Rm)(1 - 1/sqrt(1+Rm^2)) axisymmetric) the
     // drag falls by 1-2 %: confirmed drag within 5 % below the screen, and lift = drag Rm > 0.
     [Fact]
     public void Conveyor_rail_is_confirmed_with_its_own_field()

@@ -1,6 +1,7 @@
 using SlotOpt.Design;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
+using SlotOpt.Selection.Search;
 using static SlotOpt.Tests.Selection.Options;
 
 namespace SlotOpt.Tests.Selection;

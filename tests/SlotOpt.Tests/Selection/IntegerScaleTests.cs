@@ -1,5 +1,6 @@
 using SlotOpt.Design;
 using SlotOpt.Selection;
+using SlotOpt.Selection.Search;
 
 namespace SlotOpt.Tests.Selection;
 

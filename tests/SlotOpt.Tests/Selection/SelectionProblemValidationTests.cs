@@ -1,5 +1,6 @@
 using SlotOpt.Design;
 using SlotOpt.Selection;
+using SlotOpt.Selection.Search;
 using static SlotOpt.Tests.Selection.Options;
 
 namespace SlotOpt.Tests.Selection;

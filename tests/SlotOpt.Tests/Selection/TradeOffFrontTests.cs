@@ -1,4 +1,5 @@
 using SlotOpt.Selection;
+using SlotOpt.Selection.Search;
 
 namespace SlotOpt.Tests.Selection;
 

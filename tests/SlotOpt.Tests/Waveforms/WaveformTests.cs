@@ -46,14 +46,14 @@ public class WaveformTests
         Assert.Equal(omega * omega / 2 * (1 + 1), wave.MeanSquareRate, 1e-6);
     }
 
-    // C_e = (2 pi)^1.5 <|cos|^1.5> = 8.7634 (REFERENCES §4, derived). Tolerance 1e-4: 5-digit value.
+    // C_e = (2 pi)^1.5 <|cos|^1.5> = 8.7634 (Bertotti, IEEE Trans. Magn. 24, 1988, sinusoidal average of the excess term, derived). Tolerance 1e-4: 5-digit value.
     [Fact]
     public void Excess_form_factor_is_8_7634()
     {
         Assert.Equal(8.7634, ExcessLoss.SineFormFactor, 1e-4);
     }
 
-    // iGSE checks, REFERENCES §4 (derived from Venkatachalam et al., COMPEL 2002): a sine returns
+    // iGSE checks (derived from Venkatachalam, Sullivan, Abdallah and Tacca, COMPEL 2002): a sine returns
     // k f^alpha Bp^beta exactly; a symmetric triangle with alpha 1.5, beta 2.5 gives 0.9129 of the sine.
     // Tolerances 1e-12 (identity) and 1e-4 (4-digit reference).
     [Fact]

@@ -4,19 +4,36 @@ namespace SlotOpt.Input.Toml;
 
 /// <summary>
 /// Turns TOML text into a tree of <see cref="TomlNode"/>s that keep their line numbers, using Tomlyn's
-/// syntax parser. Syntax errors and duplicate keys are collected, not thrown one at a time.
+/// syntax parser. Syntax errors, duplicate keys, values nested deeper than <see cref="MaxDepth"/>, numbers
+/// that are not finite ("inf", "nan", "1e400") and any exception of the parser are collected as errors with
+/// file and line, not thrown one at a time.
 /// </summary>
 public static class TomlDocumentReader
 {
+    /// <summary>Arrays and inline tables nested deeper than this are refused (a problem file needs three or four; the parser's own limit is 64).</summary>
+    public const int MaxDepth = 32;
+
     public static TomlTable Read(string text, string fileName, InputErrors errors)
     {
-        var document = Tomlyn.Parsing.SyntaxParser.Parse(text, fileName, true);
+        var root = new TomlTable(1);
+        if (TomlNesting.FirstLineDeeperThan(text, MaxDepth) is { } deepLine)
+        {
+            errors.Add(fileName, deepLine, "", $"arrays or inline tables nested deeper than {MaxDepth} levels");
+            return root;
+        }
+        DocumentSyntax document;
+        try { document = Tomlyn.Parsing.SyntaxParser.Parse(text, fileName, true); }
+        catch (Exception e) when (e is not OutOfMemoryException)
+        {
+            var line = (e as Tomlyn.TomlException)?.Span is { } span ? span.Start.Line + 1 : 1;
+            errors.Add(fileName, line, "", $"cannot be read as TOML ({e.Message})");
+            return root;
+        }
         foreach (var diagnostic in document.Diagnostics)
             errors.Add(fileName, diagnostic.Span.Start.Line + 1, "", diagnostic.Message);
-        var root = new TomlTable(1);
         if (document.HasErrors) return root;
 
-        foreach (var keyValue in document.KeyValues) AddKeyValue(root, keyValue, fileName, errors);
+        foreach (var keyValue in document.KeyValues) AddKeyValue(root, "", keyValue, fileName, errors);
         foreach (var header in document.Tables)
         {
             var path = KeyPath(header.Name);
@@ -26,12 +43,13 @@ public static class TomlDocumentReader
                 ? AppendTableArrayItem(root, path, line, fileName, errors)
                 : OpenTable(root, path, line, fileName, errors);
             if (table is null) continue;
-            foreach (var keyValue in header.Items) AddKeyValue(table, keyValue, fileName, errors);
+            foreach (var keyValue in header.Items) AddKeyValue(table, string.Join('.', path), keyValue, fileName, errors);
         }
         return root;
     }
 
-    private static void AddKeyValue(TomlTable table, KeyValueSyntax keyValue, string fileName, InputErrors errors)
+    /// <param name="tablePath">The dotted path of the table the key is written in, for messages ("" at the top).</param>
+    private static void AddKeyValue(TomlTable table, string tablePath, KeyValueSyntax keyValue, string fileName, InputErrors errors)
     {
         var line = keyValue.Span.Start.Line + 1;
         var path = KeyPath(keyValue.Key);
@@ -48,18 +66,22 @@ public static class TomlDocumentReader
             errors.Add(fileName, line, string.Join('.', path), $"written twice (first on line {parent.Entries[name].Line})");
             return;
         }
-        var value = ReadValue(keyValue.Value, fileName, errors);
+        var keyPath = tablePath.Length == 0 ? string.Join('.', path) : $"{tablePath}.{string.Join('.', path)}";
+        var value = ReadValue(keyValue.Value, keyPath, fileName, errors);
         if (value is not null) parent.Entries[name] = value;
     }
 
-    private static TomlNode? ReadValue(ValueSyntax value, string fileName, InputErrors errors)
+    private static TomlNode? ReadValue(ValueSyntax value, string keyPath, string fileName, InputErrors errors)
     {
         var line = value.Span.Start.Line + 1;
         switch (value)
         {
             case StringValueSyntax s: return new TomlScalar(s.Value ?? "", line);
             case IntegerValueSyntax i: return new TomlScalar(i.Value, line);
-            case FloatValueSyntax f: return new TomlScalar(f.Value, line);
+            case FloatValueSyntax f when double.IsFinite(f.Value): return new TomlScalar(f.Value, line);
+            case FloatValueSyntax f:
+                errors.Add(fileName, line, keyPath, $"{f.Token?.Text ?? f.Value.ToString(System.Globalization.CultureInfo.InvariantCulture)} is not a finite number");
+                return null;
             case BooleanValueSyntax b: return new TomlScalar(b.Value, line);
             case ArraySyntax a:
             {
@@ -67,7 +89,7 @@ public static class TomlDocumentReader
                 foreach (var item in a.Items)
                 {
                     if (item.Value is null) continue;
-                    var node = ReadValue(item.Value, fileName, errors);
+                    var node = ReadValue(item.Value, $"{keyPath}[{array.Items.Count + 1}]", fileName, errors);
                     if (node is not null) array.Items.Add(node);
                 }
                 return array;
@@ -76,7 +98,7 @@ public static class TomlDocumentReader
             {
                 var table = new TomlTable(line);
                 foreach (var item in t.Items)
-                    if (item.KeyValue is not null) AddKeyValue(table, item.KeyValue, fileName, errors);
+                    if (item.KeyValue is not null) AddKeyValue(table, keyPath, item.KeyValue, fileName, errors);
                 return table;
             }
             default:

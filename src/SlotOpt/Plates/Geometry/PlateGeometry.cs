@@ -52,6 +52,24 @@ public sealed class PlateGeometry
         return this;
     }
 
+    /// <summary>
+    /// A copy with every feature of this plate whose conductivity factor is this plate's times factorAt
+    /// (say, from a temperature map); this plate is left as it is.
+    /// </summary>
+    public PlateGeometry WithConductivityFactor(Func<Vec2, double> factorAt)
+    {
+        var copy = new PlateGeometry(Outline);
+        copy._cutouts.AddRange(_cutouts);
+        copy._cuts.AddRange(_cuts);
+        copy._zones.AddRange(_zones);
+        copy._patterns.AddRange(_patterns);
+        copy._slots.AddRange(_slots);
+        copy._grooves.AddRange(_grooves);
+        var own = ConductivityFactorAt;
+        copy.ConductivityFactorAt = own is null ? factorAt : p => own(p) * factorAt(p);
+        return copy;
+    }
+
     public (Vec2 Min, Vec2 Max) Bounds => Outline.Bounds;
 
     /// <summary>

@@ -37,16 +37,23 @@ public sealed class MultigridHierarchy : IPreconditioner
     /// <summary>Bytes held beyond the fine operator itself (coarse operators, transfers, vectors, coarse factor).</summary>
     public long Bytes => _levels.Sum(l => l.Bytes) - _levels[0].A.Bytes + 8L * _coarsest.Factor.RowCount * _coarsest.Factor.ColumnCount + _levels.Skip(1).Sum(l => 4L * l.NodeUnknown.Length);
 
-    public static MultigridHierarchy Build(SheetOperator op)
+    public static MultigridHierarchy Build(SheetOperator op) =>
+        Build(op.Matrix, op.Grid.Lattice, op.Regions.NodeUnknown, op.Regions.IsMerged);
+
+    /// <summary>
+    /// The hierarchy for any symmetric positive definite operator whose unknowns sit on the nodes of the
+    /// lattice (nodeUnknown: unknown per node, -1 where the value is fixed or absent), such as the plate's
+    /// temperature operator; isMerged marks unknowns that stand for several nodes (none for temperature).
+    /// </summary>
+    public static MultigridHierarchy Build(CsrMatrix matrix, CellLattice lattice, int[] nodeUnknown, bool[] isMerged)
     {
-        var l = op.Grid.Lattice;
         var fine = new MultigridLevel
         {
-            A = op.Matrix,
-            NodesX = l.NodesX,
-            NodesY = l.NodesY,
-            NodeUnknown = op.Regions.NodeUnknown,
-            IsMerged = op.Regions.IsMerged,
+            A = matrix,
+            NodesX = lattice.NodesX,
+            NodesY = lattice.NodesY,
+            NodeUnknown = nodeUnknown,
+            IsMerged = isMerged,
         };
         var levels = new List<MultigridLevel> { fine };
         var current = fine;

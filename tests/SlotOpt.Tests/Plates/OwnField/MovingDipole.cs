@@ -1,9 +1,7 @@
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
-using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.Sources;
 
 namespace SlotOpt.Tests.Plates.OwnField;

@@ -1,7 +1,6 @@
 using System.Numerics;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
-using SlotOpt.Plates;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.Sources;

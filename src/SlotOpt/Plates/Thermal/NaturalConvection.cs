@@ -1,0 +1,37 @@
+using SlotOpt.Materials;
+
+namespace SlotOpt.Plates.Thermal;
+
+/// <summary>
+/// Average natural-convection coefficient of a vertical plate from the correlation of
+/// S. W. Churchill and H. H. S. Chu, "Correlating equations for laminar and turbulent free
+/// convection from a vertical plate", Int. J. Heat Mass Transfer 18 (1975) 1323-1329, the equation
+/// for the whole range of Rayleigh numbers (also eq. 9.26 of Incropera, DeWitt, Bergman, Lavine,
+/// Fundamentals of Heat and Mass Transfer, 6th ed., 2007). Properties at the film temperature.
+/// </summary>
+public static class NaturalConvection
+{
+    /// <summary>Standard acceleration of gravity (m/s^2), 3rd CGPM 1901.</summary>
+    public const double GravityMPerS2 = 9.80665;
+
+    /// <summary>Nu_L = {0.825 + 0.387 Ra_L^(1/6) / [1 + (0.492/Pr)^(9/16)]^(8/27)}^2 (Churchill and Chu 1975, all Ra_L).</summary>
+    public static double AverageNusselt(double rayleigh, double prandtl)
+    {
+        if (!(rayleigh >= 0) || !(prandtl > 0)) throw new ArgumentOutOfRangeException(nameof(rayleigh), $"Ra = {rayleigh}, Pr = {prandtl}");
+        double f = Math.Pow(1 + Math.Pow(0.492 / prandtl, 9.0 / 16), 8.0 / 27);
+        double root = 0.825 + 0.387 * Math.Pow(rayleigh, 1.0 / 6) / f;
+        return root * root;
+    }
+
+    /// <summary>Ra_L = g beta (T_s - T_inf) L^3 / (nu alpha), alpha = nu / Pr (Incropera et al. 2007, eq. 9.25).</summary>
+    public static double Rayleigh(FluidProperties p, double riseK, double lengthM) =>
+        GravityMPerS2 * p.ExpansionPerK * riseK * lengthM * lengthM * lengthM * p.PrandtlNumber / (p.KinematicViscosityM2PerS * p.KinematicViscosityM2PerS);
+
+    /// <summary>h = Nu_L k / L (W/m^2K) for a plate of height L at a mean surface rise above ambient; film temperature (T_s + T_inf)/2.</summary>
+    public static double AverageCoefficient(CoolingFluid fluid, double ambientK, double riseK, double lengthM)
+    {
+        double rise = Math.Max(riseK, 0);
+        var p = fluid.At(ambientK + rise / 2);
+        return AverageNusselt(Rayleigh(p, rise, lengthM), p.PrandtlNumber) * p.ThermalConductivityWPerMK / lengthM;
+    }
+}

@@ -1,0 +1,94 @@
+using SlotOpt.Design;
+using SlotOpt.Plates;
+using SlotOpt.Runs;
+using SlotOpt.Selection;
+
+namespace SlotOpt.Reports;
+
+/// <summary>
+/// result.json, the machine-readable form of a run (`slotopt run --json` prints the same document): the numbers
+/// the console prints, and nothing that changes from run to run. Keys are the property names in snake_case
+/// (<see cref="JsonFormat"/>); absent values (null) are left out.
+/// </summary>
+public sealed record ResultJson(
+    string Problem,
+    string Currency,
+    Objective Objective,
+    SelectionStatus Status,
+    IReadOnlyList<ResultJson.ChosenPart>? Parts,
+    double? TotalLossW,
+    double? TotalCost,
+    double? OwningCost,
+    double ValuePerWatt,
+    IReadOnlyList<ResultJson.BaselineTotals> Baselines,
+    IReadOnlyList<ResultJson.FrontDesign>? Front,
+    bool? FrontComplete,
+    IReadOnlyList<string>? Diagnosis,
+    int SheetSolves,
+    int CpSatCalls,
+    double CpSatDeterministicSeconds)
+{
+    /// <summary>One part's chosen option, its loss by origin, the reference it is measured against, the confirmation of a plate, and how many options the rules dropped.</summary>
+    public sealed record ChosenPart(
+        string Name,
+        string Design,
+        string Id,
+        IReadOnlyDictionary<string, string> Attributes,
+        double LossW,
+        double HysteresisW,
+        double ClassicalW,
+        double ExcessW,
+        double PlateEddyW,
+        double? DragN,
+        double BuildCost,
+        IReadOnlyList<string> Flags,
+        ReferenceDesign Reference,
+        Confirmation? Confirmed,
+        int Options,
+        IReadOnlyDictionary<string, int> Rejected);
+
+    /// <summary>The part's current design, or its baseline; <see cref="Breaks"/> is the rule or limit it breaks.</summary>
+    public sealed record ReferenceDesign(string Kind, string Design, double LossW, double? DragN, double BuildCost, string? Breaks);
+
+    /// <summary>A chosen plate solved again with the model its validity calls for.</summary>
+    public sealed record Confirmation(SheetModelKind Model, string Reason, double LossW, double? DragN, double? LiftN, double ResistanceLimitedLossW);
+
+    public sealed record BaselineTotals(string Name, double Cost, double LossW, double OwningCost, IReadOnlyList<string> Breaks);
+
+    /// <summary>One point of the trade-off front: its build cost, loss and the candidate ids of its design.</summary>
+    public sealed record FrontDesign(double Cost, double LossW, IReadOnlyList<string> Designs);
+
+    public static ResultJson From(RunResult r)
+    {
+        var economics = r.Problem.Economics;
+        return new ResultJson(
+            r.Problem.Name,
+            economics.Currency,
+            r.Problem.Goal,
+            r.Outcome.Status,
+            r.Chosen?.Select((o, i) => Chosen(r, o, r.Parts[i])).ToList(),
+            r.HasDesign ? r.TotalLossW : null,
+            r.HasDesign ? r.TotalBuildCost : null,
+            r.HasDesign ? r.OwningCost : null,
+            economics.ValuePerWatt,
+            r.Baselines.Select(b => new BaselineTotals(b.Name, b.BuildCost, b.LossW, b.OwningCost(economics.ValuePerWatt), b.Breaks)).ToList(),
+            r.Outcome.Front?.Points.Select(p => new FrontDesign(p.BuildCost, p.LossW, p.CandidateIds)).ToList(),
+            r.Outcome.Front is { } f ? f.Status == SelectionStatus.Optimal && !f.IsCapped : null,
+            r.Outcome.Diagnosis?.Explain(),
+            // effort in reproducible units only (wall times differ run to run; the console prints them)
+            r.SheetSolves,
+            r.Outcome.Effort.SolverCalls,
+            r.Outcome.Effort.DeterministicSeconds);
+    }
+
+    /// <summary>The document as text, one newline at the end.</summary>
+    public string Serialize() => JsonFormat.Serialize(this);
+
+    private static ChosenPart Chosen(RunResult r, EvaluatedOption o, PartEvaluation part) => new(
+        o.PartName, o.Description, o.Id, o.Attributes,
+        o.Loss.TotalW, o.Loss.HysteresisW, o.Loss.ClassicalW, o.Loss.ExcessW, o.Loss.PlateEddyW, o.DragN, o.BuildCost, o.Flags,
+        new ReferenceDesign(part.ReferenceIsCurrent ? "current" : "baseline", part.Reference.Description, part.Reference.Loss.TotalW, part.Reference.DragN, part.Reference.BuildCost, part.Reference.Rejection?.Message),
+        r.Confirmation(o.PartName) is { } c ? new Confirmation(c.Model, c.Reason, c.LossW, c.DragN, c.LiftN, c.ResistanceLimitedLossW) : null,
+        part.Options.Count,
+        part.RejectionCounts);
+}
