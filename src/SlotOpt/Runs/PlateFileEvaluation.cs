@@ -31,23 +31,48 @@ public sealed record PlateFileEvaluation(
     double SolveSeconds,
     HeatedPlate? Heating = null)
 {
-    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null)
+    /// <summary>The grid-error estimate of the loss and mean drag (Richardson against cells twice as large); null with [thermal].</summary>
+    public DiscretisationError? GridError { get; init; }
+
+    /// <param name="forcedKind">the model asked for (--model); null lets the validity figures choose</param>
+    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
     {
-        if (plate.Thermal is not null) return EvaluateHeated(plate, criterion);
+        if (plate.Thermal is not null)
+        {
+            if (forcedKind is { } k && k != SheetModelKind.ResistanceLimited)
+                throw new InputException($"{plate.Path}: [thermal] couples loss and temperature through the resistance-limited model only; --model {ReactionModelChoice.Name(k)} cannot be used with it");
+            return EvaluateHeated(plate, criterion);
+        }
         var model = SheetModel.Build(plate.Geometry, GridFor(plate));
         var clock = Stopwatch.StartNew();
         if (plate.AcSource is { } ac)
         {
-            var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion);
+            var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion, forcedKind: forcedKind);
+            solution = PlateModels.WithGridError(solution, model, m => PlateModels.SolveAc(m, ac, plate.Sheet, criterion: criterion, forcedKind: solution.Choice.Kind));
             var result = MapSolution(solution, () => ResistanceLimitedSolver.SolveAc(model, ac, criterion)).ScaleTo(plate.Sheet);
-            return new PlateFileEvaluation(plate, solution.Choice, WithMapNote(result, solution), solution.MeanLossW, null,
-                Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds);
+            return new PlateFileEvaluation(plate, solution.Choice, WithSolutionNotes(result, solution), solution.MeanLossW, null,
+                Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
+                { GridError = solution.GridError };
         }
         var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
-        var moving = PlateModels.SolveMoving(model, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion);
+        var moving = PlateModels.SolveMoving(model, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion, forcedKind: forcedKind);
+        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion, forcedKind: moving.Choice.Kind));
         var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, poles, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
-        return new PlateFileEvaluation(plate, moving.Choice, WithMapNote(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
-            moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds);
+        return new PlateFileEvaluation(plate, moving.Choice, WithSolutionNotes(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
+            moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
+            { GridError = moving.GridError };
+    }
+
+    /// <summary>The map's notes, the grid-error warning (or that there is no estimate), and, when another model ran, that the map is the resistance-limited one.</summary>
+    private static PlateResult WithSolutionNotes(PlateResult result, PlateSolution solution)
+    {
+        string? grid = solution.GridError switch
+        {
+            null => "no grid error estimate: the grid cannot be coarsened to twice its cell",
+            { IsLarge: true } e => e.Warning,
+            _ => null,
+        };
+        return WithMapNote(grid is null ? result : result with { Notes = result.Notes.Append(grid).ToList() }, solution);
     }
 
     private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>

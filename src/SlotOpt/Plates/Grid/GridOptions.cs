@@ -14,8 +14,11 @@ public sealed record GridOptions
     public double? CellSizeM { get; init; }
     /// <summary>Cells across a conducting strip or ligament: the 5-point scheme's error there is a few per cent at 8 (common practice, no source; measured in SlottedPlateTests).</summary>
     public int MinCellsAcrossNarrowestFeature { get; init; } = 8;
-    /// <summary>Cells across a cut-out: with 2 at least one whole cell column lies inside it, so it cuts the current path instead of being bridged by partly covered cells.</summary>
-    public int MinCellsAcrossCutout { get; init; } = 2;
+    /// <summary>
+    /// Cells across a cut-out: with 2 at least one whole cell column lies inside it, so it cuts the current path instead of being
+    /// bridged by partly covered cells; 4, so that the grid-error estimate's grid of twice the cell (DiscretisationError) still has 2.
+    /// </summary>
+    public int MinCellsAcrossCutout { get; init; } = 4;
     /// <summary>Cells across a pole's face (its edges carry the moving source's line sources; see MovingPoleTests for the measured error).</summary>
     public int MinCellsAcrossPole { get; init; } = 8;
     /// <summary>Cells across the gap between neighbouring poles, so the opposite edges' line sources do not share a cell.</summary>

@@ -16,8 +16,11 @@ public interface IMovingSheetSource
     double SpeedMPerS { get; }
     void IntegrateRate(CellLattice lattice, double offsetXM, double[] node);
     LiftField IntegrateLiftField(CellLattice lattice, double offsetXM, double[] node);
-    /// <summary>Loss (W per S of reference conductance) the grid misses at sharp source edges, added to psi^T A psi; 0 for a smooth source.</summary>
-    double SubCellEdgeLossPerSiemens(PlateGrid grid, double offsetXM) => 0;
+    /// <summary>
+    /// Loss (W per S of reference conductance) the grid misses at sharp source edges, added to psi^T A psi; 0 for a smooth source.
+    /// perCell, when given, receives each cell's share (for the loss map).
+    /// </summary>
+    double SubCellEdgeLossPerSiemens(PlateGrid grid, double offsetXM, double[]? perCell = null) => 0;
 }
 
 /// <summary>What <see cref="IMovingSheetSource.IntegrateLiftField"/> wrote per lattice node.</summary>

@@ -101,7 +101,7 @@ public sealed class MovingPoles : IMovingSheetSource
     /// theta_x (1 - theta_x) h_x G q^2 |n_x|^3 + theta_y (1 - theta_y) h_y G q^2 |n_y|^3 per unit length (our
     /// dimension-by-dimension estimate; its effect on the order is measured in MovingPoleTests).
     /// </summary>
-    public double SubCellEdgeLossPerSiemens(PlateGrid grid, double offsetXM)
+    public double SubCellEdgeLossPerSiemens(PlateGrid grid, double offsetXM, double[]? perCell = null)
     {
         var lattice = grid.Lattice;
         double loss = 0;
@@ -110,9 +110,12 @@ public sealed class MovingPoles : IMovingSheetSource
             {
                 double q = SpeedMPerS * pole.FluxDensityT * e.NormalX;
                 if (q == 0 || !Locate(lattice, e.Point, out int i, out int j, out double tx, out double ty)) continue;
-                double g = grid.Conductance[Math.Min(j, lattice.Ny - 1) * lattice.Nx + Math.Min(i, lattice.Nx - 1)];
+                int cell = j * lattice.Nx + i;
+                double g = grid.Conductance[cell];
                 double ax = Math.Abs(e.NormalX), ay = Math.Abs(e.NormalY);
-                loss += e.LengthM * g * q * q * (tx * (1 - tx) * lattice.Hx * ax * ax * ax + ty * (1 - ty) * lattice.Hy * ay * ay * ay);
+                double share = e.LengthM * g * q * q * (tx * (1 - tx) * lattice.Hx * ax * ax * ax + ty * (1 - ty) * lattice.Hy * ay * ay * ay);
+                loss += share;
+                if (perCell is not null) perCell[cell] += share;
             }
         return loss;
     }
