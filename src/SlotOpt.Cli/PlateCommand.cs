@@ -4,6 +4,7 @@ using System.Text;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using SlotOpt.Input;
+using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Reports;
@@ -19,14 +20,21 @@ public static class PlateCommand
         var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]], [thermal]" };
         var json = new Option<bool>("--json") { Description = "print one JSON object instead of text" };
         var map = new Option<string?>("--map") { Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
+        var model = new Option<string>("--model")
+        {
+            Description = "the plate model: auto (the validity figures choose), resistance-limited, own-field (thin sheet with its own field) or thick (layered, AC only)",
+            DefaultValueFactory = _ => "auto",
+        };
+        model.AcceptOnlyFromAmong("auto", "resistance-limited", "own-field", "thick");
         var command = new Command("plate", "Eddy-current loss and drag of one conducting plate in a normal field, with the model its validity figures call for.");
         command.Arguments.Add(file);
         command.Options.Add(json);
         command.Options.Add(map);
+        command.Options.Add(model);
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var plate = PlateFileReader.Read(parseResult.GetValue(file)!);
-            var evaluation = PlateFileEvaluation.Evaluate(plate);
+            var evaluation = PlateFileEvaluation.Evaluate(plate, forcedKind: ModelKind(parseResult.GetValue(model)!));
             var mapPath = parseResult.GetValue(map);
             if (!string.IsNullOrEmpty(mapPath)) WriteMap(evaluation.Result.Map, mapPath);
             output.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
@@ -35,16 +43,26 @@ public static class PlateCommand
         return command;
     }
 
+    /// <summary>The --model word as a model kind; null for auto.</summary>
+    private static SheetModelKind? ModelKind(string word) => word switch
+    {
+        "resistance-limited" => SheetModelKind.ResistanceLimited,
+        "own-field" => SheetModelKind.ThinSheetReaction,
+        "thick" => SheetModelKind.BeyondThinSheet,
+        _ => null,
+    };
+
     private static string Json(PlateFileEvaluation e)
     {
         var r = e.Result;
         var o = new JsonObject
         {
             ["file"] = e.Case.Path,
-            ["model"] = JsonNamingPolicy.KebabCaseLower.ConvertName(e.Choice.Kind.ToString()),
+            ["model"] = ReactionModelChoice.Name(e.Choice.Kind),
             ["model_reason"] = e.Choice.Reason,
             ["loss_w"] = e.LossW,
             ["drag_n"] = e.MeanDragN,
+            ["discretisation_error"] = e.GridError?.Relative,
             ["averaged_over"] = e.Case.MovingSource is null ? null : e.Case.AveragedOver,
             ["positions_m"] = new JsonArray(e.OffsetsXM.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
             ["drag_per_position_n"] = new JsonArray(e.DragPerOffsetN.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
@@ -72,9 +90,10 @@ public static class PlateCommand
         var c = CultureInfo.InvariantCulture;
         var s = new StringBuilder();
         s.AppendLine(c, $"plate {e.Case.Path}: sheet conductance {e.Case.Sheet.SheetConductanceS:G4} S");
-        s.AppendLine(c, $"  model                {JsonNamingPolicy.KebabCaseLower.ConvertName(e.Choice.Kind.ToString())}: {e.Choice.Reason}");
+        s.AppendLine(c, $"  model                {ReactionModelChoice.Name(e.Choice.Kind)}: {e.Choice.Reason}");
         s.AppendLine(c, $"  loss                 {e.LossW:G4} W{(e.Case.MovingSource is null ? " (time average)" : $" (mean over {e.Case.AveragedOver})")}");
         if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {drag:G4} N (min {e.DragPerOffsetN.Min():G4}, max {e.DragPerOffsetN.Max():G4})");
+        if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {grid.Relative:P2} of loss{(e.MeanDragN is null ? "" : " and drag")} (Richardson, {grid.CellM * 1e3:G3} mm against {grid.CoarseCellM * 1e3:G3} mm cells)");
         s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
         s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");

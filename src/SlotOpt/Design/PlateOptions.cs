@@ -93,10 +93,10 @@ public static class PlateOptions
         }
     }
 
-    /// <summary>The solver model of one slot geometry: the part's cell size, automatic grids capped by the memory limit.</summary>
+    /// <summary>The solver model of one slot geometry: the part's cell size (automatic: resolving the plate's and the poles' features), automatic grids capped by the memory limit.</summary>
     public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits)
     {
-        var grid = new GridOptions { CellSizeM = part.CellSizeM };
+        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Poles.GridFeatures : [] };
         return SheetModel.Build(geometry, grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) });
     }
 

@@ -20,11 +20,12 @@ namespace SlotOpt.Plates;
 /// </summary>
 public static class PlateModels
 {
+    /// <param name="forcedKind">a model asked for by the user instead of the automatic choice (the reason then says what the figures call for)</param>
     public static PlateSolution SolveAc(SheetModel model, IAcFieldSource source, ConductingSheet conductor,
-        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null)
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
     {
         CheckOperator(model, reaction);
-        var choice = ReactionModelChoice.ForAc(conductor, source.FrequencyHz, model.Grid.Geometry.CharacteristicWidthM, accuracy);
+        var choice = ReactionModelChoice.Forced(ReactionModelChoice.ForAc(conductor, source.FrequencyHz, model.Grid.Geometry.CharacteristicWidthM, accuracy), forcedKind);
         var notes = new List<string> { choice.Reason };
         if (choice.Kind == SheetModelKind.ResistanceLimited)
         {
@@ -48,10 +49,11 @@ public static class PlateModels
 
     /// <param name="sourceLengthM">the source's length scale for the moving skin depth: its height above the sheet, or the pole size</param>
     public static PlateSolution SolveMoving(SheetModel model, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM, double sourceLengthM,
-        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null)
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
     {
         CheckOperator(model, reaction);
-        var choice = ReactionModelChoice.ForMoving(conductor, source.SpeedMPerS, sourceLengthM, accuracy);
+        if (forcedKind == SheetModelKind.BeyondThinSheet) throw new InputException("the layered thick-plate model is for AC fields only: there is no layered moving solver (use auto, resistance-limited or own-field)");
+        var choice = ReactionModelChoice.Forced(ReactionModelChoice.ForMoving(conductor, source.SpeedMPerS, sourceLengthM, accuracy), forcedKind);
         var notes = new List<string> { choice.Reason };
         double g = conductor.SheetConductanceS, v = source.SpeedMPerS;
         if (choice.Kind == SheetModelKind.ResistanceLimited)
@@ -67,6 +69,20 @@ public static class PlateModels
         notes.AddRange(s.Notes);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
         return new PlateSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes, s.Iterations.Sum(), s.MaxRelativeResidual, null);
+    }
+
+    /// <summary>
+    /// The solution with its grid-error estimate (<see cref="DiscretisationError"/>): the same model solved again
+    /// on cells twice as large (solveOn gets that coarser model); the caller shows <see cref="DiscretisationError.Warning"/>
+    /// when it exceeds 1 %. Where no coarser grid exists (fewer than 2 cells across, or nothing conducting left) GridError stays null.
+    /// </summary>
+    public static PlateSolution WithGridError(PlateSolution fine, SheetModel model, Func<SheetModel, PlateSolution> solveOn)
+    {
+        double h = Math.Max(model.Lattice.Hx, model.Lattice.Hy);
+        SheetModel coarse;
+        try { coarse = SheetModel.Build(model.Grid.Geometry, new GridOptions { CellSizeM = 2 * h }); }
+        catch (InputException) { return fine; }
+        return fine with { GridError = DiscretisationError.FromTwoGrids(fine.MeanLossW, solveOn(coarse).MeanLossW, h, Math.Max(coarse.Lattice.Hx, coarse.Lattice.Hy)) };
     }
 
     private static void CheckOperator(SheetModel model, ReactionOperator? reaction)

@@ -18,6 +18,9 @@ public sealed record PlateSolution(
     ModelChoice Choice, double[] OffsetsXM, double[] LossW, double[]? DragN, double[]? LiftN, double[] ResistanceLimitedLossW,
     IReadOnlyList<string> Notes, int Iterations, double RelativeResidual, UnitConductanceSolution? ResistanceLimited)
 {
+    /// <summary>The grid-error estimate of MeanLossW (and of the mean drag, which scales with it), when one was asked for (<see cref="PlateModels.WithGridError"/>).</summary>
+    public DiscretisationError? GridError { get; init; }
+
     public double MeanLossW => LossW.Average();
     public double? MeanDragN => DragN?.Average();
     public double? MeanLiftN => LiftN?.Average();

@@ -42,6 +42,19 @@ public static class ReactionModelChoice
         return Choose(v.ReynoldsNumber, conductor.ThicknessM / deltaC, accuracy);
     }
 
+    /// <summary>The automatic choice, or the model the user asked for with what the validity figures call for in its reason.</summary>
+    public static ModelChoice Forced(ModelChoice automatic, SheetModelKind? asked) =>
+        asked is not { } kind || kind == automatic.Kind ? automatic
+            : automatic with { Kind = kind, Reason = $"asked for; the validity figures call for {Name(automatic.Kind)} ({automatic.Reason})" };
+
+    /// <summary>The model's name as the command line and the outputs spell it.</summary>
+    public static string Name(SheetModelKind kind) => kind switch
+    {
+        SheetModelKind.ResistanceLimited => "resistance-limited",
+        SheetModelKind.ThinSheetReaction => "own-field",
+        _ => "thick",
+    };
+
     public static ModelChoice Choose(double reynoldsNumber, double thicknessToSkinDepth, double accuracy = DefaultAccuracy)
     {
         if (!(accuracy > 0 && accuracy < 1)) throw new InputException($"the wanted accuracy must lie between 0 and 1 (got {accuracy})");

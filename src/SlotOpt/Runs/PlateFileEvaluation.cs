@@ -31,27 +31,56 @@ public sealed record PlateFileEvaluation(
     double SolveSeconds,
     HeatedPlate? Heating = null)
 {
-    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null)
+    /// <summary>The grid-error estimate of the loss and mean drag (Richardson against cells twice as large); null with [thermal].</summary>
+    public DiscretisationError? GridError { get; init; }
+
+    /// <param name="forcedKind">the model asked for (--model); null lets the validity figures choose</param>
+    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
     {
-        if (plate.Thermal is not null) return EvaluateHeated(plate, criterion);
-        var model = SheetModel.Build(plate.Geometry, plate.Grid);
+        if (plate.Thermal is not null)
+        {
+            if (forcedKind is { } k && k != SheetModelKind.ResistanceLimited)
+                throw new InputException($"{plate.Path}: [thermal] couples loss and temperature through the resistance-limited model only; --model {ReactionModelChoice.Name(k)} cannot be used with it");
+            return EvaluateHeated(plate, criterion);
+        }
+        var model = SheetModel.Build(plate.Geometry, GridFor(plate));
         var clock = Stopwatch.StartNew();
         if (plate.AcSource is { } ac)
         {
-            var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion);
+            var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion, forcedKind: forcedKind);
+            solution = PlateModels.WithGridError(solution, model, m => PlateModels.SolveAc(m, ac, plate.Sheet, criterion: criterion, forcedKind: solution.Choice.Kind));
             var result = MapSolution(solution, () => ResistanceLimitedSolver.SolveAc(model, ac, criterion)).ScaleTo(plate.Sheet);
-            return new PlateFileEvaluation(plate, solution.Choice, WithMapNote(result, solution), solution.MeanLossW, null,
-                Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds);
+            return new PlateFileEvaluation(plate, solution.Choice, WithSolutionNotes(result, solution), solution.MeanLossW, null,
+                Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
+                { GridError = solution.GridError };
         }
         var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
-        var moving = PlateModels.SolveMoving(model, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion);
+        var moving = PlateModels.SolveMoving(model, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion, forcedKind: forcedKind);
+        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion, forcedKind: moving.Choice.Kind));
         var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, poles, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
-        return new PlateFileEvaluation(plate, moving.Choice, WithMapNote(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
-            moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds);
+        return new PlateFileEvaluation(plate, moving.Choice, WithSolutionNotes(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
+            moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
+            { GridError = moving.GridError };
+    }
+
+    /// <summary>The map's notes, the grid-error warning (or that there is no estimate), and, when another model ran, that the map is the resistance-limited one.</summary>
+    private static PlateResult WithSolutionNotes(PlateResult result, PlateSolution solution)
+    {
+        string? grid = solution.GridError switch
+        {
+            null => "no grid error estimate: the grid cannot be coarsened to twice its cell",
+            { IsLarge: true } e => e.Warning,
+            _ => null,
+        };
+        return WithMapNote(grid is null ? result : result with { Notes = result.Notes.Append(grid).ToList() }, solution);
     }
 
     private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>
         solution.ResistanceLimited ?? resistanceLimited();
+
+    /// <summary>The file's grid choice with the moving poles' widths and gaps to resolve (GridOptions.SourceFeatures).</summary>
+    private static GridOptions GridFor(PlateCase plate) =>
+        plate.MovingSource is { } poles ? plate.Grid with { SourceFeatures = poles.GridFeatures } : plate.Grid;
 
     private static PlateResult WithMapNote(PlateResult result, PlateSolution solution) =>
         solution.ResistanceLimited is not null ? result
@@ -66,14 +95,14 @@ public sealed record PlateFileEvaluation(
         if (plate.AcSource is { } ac)
         {
             var choice = ReactionModelChoice.ForAc(plate.Sheet, ac.FrequencyHz, plate.Geometry.CharacteristicWidthM);
-            var heated = PlateHeating.SolveAc(plate.Geometry, plate.Grid, ac, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
+            var heated = PlateHeating.SolveAc(plate.Geometry, GridFor(plate), ac, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
             var result = heated.Ac!.ScaleTo(plate.Sheet);
             return new PlateFileEvaluation(plate, choice, WithHeatingNote(result, choice), result.LossW, null, Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(),
                 heated.Ac.Iterations, heated.Ac.RelativeResidual, heated.Model.SetupSeconds, clock.Elapsed.TotalSeconds - heated.Model.SetupSeconds, heated);
         }
         var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
         var movingChoice = ReactionModelChoice.ForMoving(plate.Sheet, poles.SpeedMPerS, poles.PoleSizeXM);
-        var hot = PlateHeating.SolveMoving(plate.Geometry, plate.Grid, poles, plate.OffsetsXM, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
+        var hot = PlateHeating.SolveMoving(plate.Geometry, GridFor(plate), poles, plate.OffsetsXM, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
         var sweep = hot.Sweep!;
         var peak = sweep.Peak.ScaleTo(plate.Sheet);
         return new PlateFileEvaluation(plate, movingChoice, WithHeatingNote(peak, movingChoice), sweep.MeanLossW(g), sweep.MeanDragN(g), sweep.OffsetsXM, sweep.DragN(g),

@@ -32,13 +32,13 @@ public class CurrentDensityTests
 
     // A pole far from the plate's edges sees a translation-invariant plate (common practice, no source:
     // invariance of a plate large against the pole), so the exact drag does not depend on its position
-    // within a cell. The source is the exact integral over each node's control volume, which lumps a face
-    // edge's line source onto the node whose dual cell holds it: the computed drag steps when an edge crosses
-    // a dual-cell line, by O(h / pole width). Asserted: the spread over 8 sub-cell offsets halves when h
-    // halves (first order: ratio 0.5 +- 0.15; measured 5.25 % -> 2.66 % -> 1.30 % at 12, 25, 49 cells per
-    // pole width), and the mean over the offsets moves by less than 0.2 % (measured 0.01 %).
+    // within a cell. The edges' line sources are spread to the nodes by their sub-cell position and the energy
+    // the grid misses is added back (MovingPoles.SubCellEdgeLossPerSiemens), so what remains of the spread over
+    // 8 sub-cell offsets is an O(h^2) end effect of the edges. Asserted: the spread falls to less than 0.35 of itself
+    // when h halves (first order would give 0.5; measured 0.164, it was 0.51 with nearest-node edges), below 0.5 % at 12 cells
+    // per pole width (measured 0.24 %, it was 5.25 %), and the mean over the offsets moves by less than 0.2 % (measured 0.07 %).
     [Fact]
-    public void Drag_over_sub_cell_offsets_is_first_order_and_its_mean_is_stable()
+    public void Drag_over_sub_cell_offsets_converges_faster_than_first_order_and_its_mean_is_stable()
     {
         var spread = new List<double>();
         var mean = new List<double>();
@@ -51,7 +51,8 @@ public class CurrentDensityTests
             spread.Add(drag.Max() / drag.Min() - 1);
             mean.Add(drag.Average());
         }
-        Assert.InRange(spread[1] / spread[0], 0.35, 0.65);
+        Assert.InRange(spread[1] / spread[0], 0, 0.35);
+        Assert.InRange(spread[0], 0, 0.005);
         Assert.InRange(mean[1] / mean[0] - 1, -0.002, 0.002);
     }
 }

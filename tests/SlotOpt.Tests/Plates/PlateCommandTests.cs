@@ -144,7 +144,7 @@ public class PlateCommandTests
         var (code, output, error) = Run("plate", file, "--json");
         Assert.True(code == 0, error);
         using var doc = JsonDocument.Parse(output);
-        Assert.Equal("thin-sheet-reaction", doc.RootElement.GetProperty("model").GetString());
+        Assert.Equal("own-field", doc.RootElement.GetProperty("model").GetString());
         Assert.Contains("Rm = ", doc.RootElement.GetProperty("model_reason").GetString());
         double drag = doc.RootElement.GetProperty("drag_n").GetDouble();
         double low = 0.5 * 3.5e7 * 1e-3 * 20 * 0.25 * Math.PI * 0.02 * 0.02;

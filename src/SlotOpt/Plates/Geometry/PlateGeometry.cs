@@ -72,18 +72,6 @@ public sealed class PlateGeometry
 
     public (Vec2 Min, Vec2 Max) Bounds => Outline.Bounds;
 
-    /// <summary>The narrowest conducting width the grid must resolve: the outline's smaller side or any pattern's strip or ligament.</summary>
-    public double NarrowestFeatureM
-    {
-        get
-        {
-            var (a, b) = Bounds;
-            double w = Math.Min(b.X - a.X, b.Y - a.Y);
-            foreach (var p in _patterns) w = Math.Min(w, Math.Min(p.StripWidthM, p.LigamentM));
-            return w;
-        }
-    }
-
     /// <summary>
     /// Width L of the widest current loop, for the AC magnetic Reynolds number mu0 sigma t omega L / 2:
     /// the outline's smaller side, or, when slot patterns are present, the widest strip they leave

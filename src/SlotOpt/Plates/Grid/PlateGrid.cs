@@ -85,14 +85,22 @@ public sealed class PlateGrid
     {
         var (min, max) = geometry.Bounds;
         double w = max.X - min.X, h = max.Y - min.Y;
+        var features = GeometryFeatures.Of(geometry).Concat(options.SourceFeatures).ToList();
+        foreach (var f in features)
+            if (!(f.WidthM > 0)) throw new InputException($"{f.Name} has no width left ({f.WidthM * 1e3:G4} mm): check the outline, cut-outs, cuts, slots and poles");
         double cell;
         if (options.CellSizeM is { } requested)
         {
             if (!(requested > 0) || !double.IsFinite(requested)) throw new InputException($"the cell size must be a positive length (got {requested} m)");
             cell = requested;
-            double across = geometry.NarrowestFeatureM / cell;
-            if (across < options.MinCellsAcrossNarrowestFeature)
-                notes.Add($"the narrowest strip ({geometry.NarrowestFeatureM * 1e3:G4} mm) gets only {across:F1} cells across (at least {options.MinCellsAcrossNarrowestFeature} recommended): expect a larger grid error there");
+            foreach (var kind in features.Where(f => f.WidthM / cell < options.CellsAcross(f.Kind)).GroupBy(f => f.Kind))
+            {
+                var worst = kind.MinBy(f => f.WidthM)!;
+                int others = kind.Count() - 1;
+                notes.Add($"{worst.Name} ({worst.WidthM * 1e3:G4} mm) gets only {worst.WidthM / cell:F1} cells across (at least {options.CellsAcross(kind.Key)} recommended)" +
+                    (others > 0 ? $", and {others} more of its kind too few" : "") +
+                    ": expect a larger grid error there");
+            }
             double count = Math.Ceiling(w / cell) * Math.Ceiling(h / cell);
             if (count > options.MaxCells)
                 throw new InputException(
@@ -101,15 +109,14 @@ public sealed class PlateGrid
         }
         else
         {
-            double narrow = geometry.NarrowestFeatureM;
-            if (!(narrow > 0)) throw new InputException("the plate has no conducting width left (a strip or ligament is zero or negative)");
-            cell = narrow / options.MinCellsAcrossNarrowestFeature;
+            var finest = features.MinBy(f => f.WidthM / options.CellsAcross(f.Kind))!;
+            cell = finest.WidthM / options.CellsAcross(finest.Kind);
             double count = Math.Ceiling(w / cell) * Math.Ceiling(h / cell);
             if (count > options.MaxAutoCells)
             {
                 cell = Math.Sqrt(w * h / options.MaxAutoCells);
                 while (Math.Ceiling(w / cell) * Math.Ceiling(h / cell) > options.MaxAutoCells) cell *= 1.01;
-                notes.Add($"grid capped at {options.MaxAutoCells:N0} cells: the narrowest strip ({narrow * 1e3:G4} mm) gets only {narrow / cell:F1} cells across; give a cell size to refine");
+                notes.Add($"grid capped at {options.MaxAutoCells:N0} cells: {finest.Name} ({finest.WidthM * 1e3:G4} mm) gets only {finest.WidthM / cell:F1} cells across; give a cell size to refine");
             }
         }
         int nx = Math.Max(1, (int)Math.Ceiling(w / cell - 1e-9));

@@ -95,7 +95,9 @@ public static class ReactionSolver
                 failure = $"at offset {offsetsXM[k]} m, resistance-limited start: {r0.Reason} (relative residual {r0.RelativeResidual:E2})";
                 return false;
             }
-            dragLow[k] = g * model.LossPerSiemens(low) / v;
+            // the edges' sub-cell loss (a kink of the same strength G q: the eddy currents' own field is smooth at a pole edge)
+            double edgeLoss = source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]);
+            dragLow[k] = g * (model.LossPerSiemens(low) + edgeLoss) / v;
             for (int i = 0; i < n; i++) { b[i] = rhs[i]; if (k == 0) u[i] = low[i]; }
             if (!ComplexGmres.TrySolve(op.Apply, op.Precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
             {
@@ -104,7 +106,7 @@ public static class ReactionSolver
             }
             iterations[k] = report.Iterations;
             worst = Math.Max(worst, report.RelativeResidual);
-            loss[k] = g * HermitianForm(model, u);                 // P = psi^T A psi / G
+            loss[k] = g * (HermitianForm(model, u) + edgeLoss);    // P = psi^T A psi / G
             drag[k] = loss[k] / v;                                  // F_D v = P in the steady state
             NormalGradient(reaction, source.IntegrateLiftField(l, offsetsXM[k], liftNode), liftNode, gradient);
             double f = 0;

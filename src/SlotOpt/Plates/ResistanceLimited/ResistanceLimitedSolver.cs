@@ -75,7 +75,7 @@ public static class ResistanceLimitedSolver
             source.IntegrateRate(l, offsetsXM[k], node);
             var b = model.RightHandSide(node);
             if (!model.TrySolve(b, psi, criterion, out var report)) { failure = $"at offset {offsetsXM[k]} m: {Describe(report)}"; return false; }
-            losses[k] = model.LossPerSiemens(psi);
+            losses[k] = model.LossPerSiemens(psi) + source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]);
             if (!double.IsFinite(losses[k])) { failure = $"at offset {offsetsXM[k]} m: the loss is not finite"; return false; }
             if (losses[k] == 0) offPlate++;
             iterations[k] = report.Iterations;

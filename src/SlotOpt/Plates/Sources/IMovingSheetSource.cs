@@ -4,7 +4,7 @@ namespace SlotOpt.Plates.Sources;
 
 /// <summary>
 /// A field source moving along +x at SpeedMPerS over a stationary plate, for every solver.
-/// IntegrateRate writes, per lattice node, the dual-cell integral of dBz/dt = -v dBz/dx (volts) with
+/// IntegrateRate writes, per lattice node, the dual-cell (or bilinear-hat) integral of dBz/dt = -v dBz/dx (volts) with
 /// the source displaced by offsetXM (a field pattern translating at v: Faraday's law in the plate's frame). IntegrateLiftField writes,
 /// per lattice node, what the source knows of its normal field at the sheet, for the lift
 /// (the force on the sheet is F = integral psi grad(Bz) dA, a dipole layer psi z in the field, so the
@@ -16,6 +16,11 @@ public interface IMovingSheetSource
     double SpeedMPerS { get; }
     void IntegrateRate(CellLattice lattice, double offsetXM, double[] node);
     LiftField IntegrateLiftField(CellLattice lattice, double offsetXM, double[] node);
+    /// <summary>
+    /// Loss (W per S of reference conductance) the grid misses at sharp source edges, added to psi^T A psi; 0 for a smooth source.
+    /// perCell, when given, receives each cell's share (for the loss map).
+    /// </summary>
+    double SubCellEdgeLossPerSiemens(PlateGrid grid, double offsetXM, double[]? perCell = null) => 0;
 }
 
 /// <summary>What <see cref="IMovingSheetSource.IntegrateLiftField"/> wrote per lattice node.</summary>

@@ -47,6 +47,9 @@ public static class PlateHeating
             {
                 var one = ResistanceLimitedSolver.SolveMoving(model, poles, [offsetsXM[k]], criterion);
                 var cells = CellLossMap.Of(one.Peak, g);
+                var edges = new double[cells.Length];
+                poles.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k], edges);    // the pole edges' sub-cell loss, in the cells that hold them
+                for (int c = 0; c < cells.Length; c++) cells[c] += g * edges[c];
                 for (int c = 0; c < mean.Length; c++) mean[c] += cells[c] / offsetsXM.Count;
                 losses[k] = one.LossPerSiemensW[0];
                 iterations[k] = one.IterationsPerOffset[0];

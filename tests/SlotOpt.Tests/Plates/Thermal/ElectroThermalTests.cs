@@ -119,7 +119,7 @@ public class ElectroThermalTests
         var heated = PlateHeating.SolveMoving(SlottedPlate(), Cells, poles, offsets, Steel, SteelHeat, cooling);
         var sweep = Assert.IsType<MovingSweepSolution>(heated.Sweep);
         Assert.Equal(sweep.MeanLossW(Steel.SheetConductanceS), heated.LossW, heated.LossW * 1e-12);
-        Assert.True(heated.Temperature.MaxRiseK > 5, $"the case should heat noticeably (rise {heated.Temperature.MaxRiseK} K)");
+        Assert.True(heated.Temperature.MaxRiseK > 3, $"the case should heat noticeably (rise {heated.Temperature.MaxRiseK} K)");   // 4.4 K since the pole edges' sub-cell placement (the old nearest-node edges overstated the loss)
         Assert.Equal(heated.LossW, heated.Temperature.ConvectedW + heated.Temperature.RadiatedW, heated.LossW * 0.005);
     }
 
