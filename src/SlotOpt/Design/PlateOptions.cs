@@ -4,6 +4,7 @@ using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Thermal;
 
 namespace SlotOpt.Design;
 
@@ -15,7 +16,9 @@ namespace SlotOpt.Design;
 public static class PlateOptions
 {
     /// <summary>One solved slot geometry at unit sheet conductance.</summary>
-    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, RuleBreak? Failure);
+    /// <param name="UnitCellLossW">With [parts.thermal]: the loss per cell at 1 S (moving poles: the mean over the travel offsets), else null.</param>
+    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, RuleBreak? Failure,
+        double[]? UnitCellLossW = null);
 
     public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null)
     {
@@ -23,6 +26,7 @@ public static class PlateOptions
         limits.CheckGrid(part.Name, part.Outline, part.CellSizeM);
         var geometries = SlotChoices(part).ToList();
         var solvedGeometries = new SolvedGeometry[geometries.Count];
+        var heat = new Dictionary<(double, string), PlateTemperatureScreen.Verdict>[geometries.Count];
         var clock = System.Diagnostics.Stopwatch.StartNew();
         var done = 0;
         var failures = new Exception?[geometries.Count];
@@ -32,6 +36,7 @@ public static class PlateOptions
             {
                 limits.CheckTime(clock, Volatile.Read(ref done), geometries.Count);
                 solvedGeometries[i] = Solve(part, geometries[i], limits);
+                heat[i] = Heat(part, solvedGeometries[i], library, limits);
                 Interlocked.Increment(ref done);
                 solved?.Report(1);
             }
@@ -51,9 +56,21 @@ public static class PlateOptions
             foreach (var thickness in part.ThicknessesM)
             foreach (var materialName in part.Materials)
             foreach (var processName in processes)
-                options.Add(Scale(part, solvedGeometry, thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop));
+                options.Add(Scale(part, solvedGeometry, thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop,
+                    heat[g].GetValueOrDefault((thickness, materialName))));
         }
         return options;
+    }
+
+    /// <summary>With [parts.thermal]: the temperature verdict of every thickness and material of one solved geometry (the process does not heat the plate).</summary>
+    private static Dictionary<(double, string), PlateTemperatureScreen.Verdict> Heat(PlatePart part, SolvedGeometry solved, MaterialLibrary library, EvaluationLimits limits)
+    {
+        var verdicts = new Dictionary<(double, string), PlateTemperatureScreen.Verdict>();
+        if (part.Thermal is null || solved.Failure is not null) return verdicts;
+        foreach (var thickness in part.ThicknessesM)
+        foreach (var materialName in part.Materials)
+            verdicts[(thickness, materialName)] = PlateTemperatureScreen.Check(part, solved, thickness, library.GetConductor(materialName, part.Name), limits);
+        return verdicts;
     }
 
     /// <summary>The solid plate (null) and every distinct slot choice of every family, in file order.</summary>
@@ -82,22 +99,28 @@ public static class PlateOptions
         var model = BuildModel(part, geometry, limits);
         switch (part.Excitation)
         {
+            case PlateExcitation.Moving moving when part.Thermal is not null:
+                var (unitMap, mapped) = PlateHeating.MeanCellLoss(model, moving.Poles, TravelOffsets(part, slots));
+                return new SolvedGeometry(slots, pattern, geometry, mapped.MeanLossPerSiemensW, mapped.Peak, mapped.IterationsPerOffset.Sum(), model.Unknowns, null, unitMap);
             case PlateExcitation.Moving moving:
                 var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Poles, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
             case PlateExcitation.AcField field:
                 var ac = ResistanceLimitedSolver.SolveAc(model, field.Source);
-                return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
+                return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null, part.Thermal is null ? null : CellLossMap.Of(ac, 1.0));
             default:
                 throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         }
     }
 
     /// <summary>The solver model of one slot geometry: the part's cell size, automatic grids capped by the memory limit.</summary>
-    public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits)
+    public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits) => SheetModel.Build(geometry, GridOf(part, limits));
+
+    /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped by the memory limit.</summary>
+    public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
         var grid = new GridOptions { CellSizeM = part.CellSizeM };
-        return SheetModel.Build(geometry, grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) });
+        return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) };
     }
 
     /// <summary>
@@ -109,11 +132,19 @@ public static class PlateOptions
             .Offsets(part.Outline, slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
 
     /// <summary>Evaluates one fixed design of the plate (which need not lie in the part's slot families).</summary>
-    public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop) =>
-        Scale(part, Solve(part, choice.Slots), choice.ThicknessM, library.GetConductor(choice.Material, part.Name), shop.Processes[choice.Process], shop);
+    public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop, EvaluationLimits? limits = null)
+    {
+        limits ??= EvaluationLimits.Default;
+        var solved = Solve(part, choice.Slots, limits);
+        var material = library.GetConductor(choice.Material, part.Name);
+        var heat = part.Thermal is not null && solved.Failure is null ? PlateTemperatureScreen.Check(part, solved, choice.ThicknessM, material, limits) : null;
+        return Scale(part, solved, choice.ThicknessM, material, shop.Processes[choice.Process], shop, heat);
+    }
 
     /// <summary>Scales a unit-conductance solve to one thickness and material and prices it with one process.</summary>
-    public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, CuttingProcess process, ManufacturingSettings shop)
+    /// <param name="heat">With [parts.thermal]: the option's temperature and whether it breaks the part's limit.</param>
+    public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, CuttingProcess process, ManufacturingSettings shop,
+        PlateTemperatureScreen.Verdict? heat = null)
     {
         var ci = CultureInfo.InvariantCulture;
         var slots = solved.Slots;
@@ -167,7 +198,9 @@ public static class PlateOptions
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
-        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection);
+        if (heat?.Flag is { } heatFlag) flags.Add(heatFlag);
+        rejection ??= heat?.Breach;
+        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection, heat?.Temperature);
     }
 
     public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,

@@ -20,7 +20,8 @@ public sealed record PlatePart(
     double? MaxDragN,
     double MinLigamentM,
     double? CellSizeM,
-    PlateChoice? Current) : Part(Name, Line, TemperatureK, MaxLossW)
+    PlateChoice? Current,
+    PartThermal? Thermal = null) : Part(Name, Line, TemperatureK, MaxLossW)
 {
     /// <summary>thickness x material x (solid x processes + every slot option).</summary>
     public long OptionCount => (long)ThicknessesM.Count * Materials.Count * (Processes.Count + SlotFamilies.Sum(f => f.OptionCount));
