@@ -1,3 +1,5 @@
+using SlotOpt.Plates.Thermal;
+
 namespace SlotOpt.Design;
 
 /// <summary>
@@ -18,4 +20,14 @@ public sealed record EvaluatedOption(
     OptionTemperature? Temperature = null)
 {
     public bool IsFeasible => Rejection is null;
+}
+
+/// <summary>
+/// A plate option's steady temperature: hottest point (K and where, m), rises above ambient (K), the temperature the
+/// resistivity was taken at (K; the loss-weighted mean for a coupled solve), and how it was found (<see cref="TemperatureBracket"/>).
+/// </summary>
+public sealed record OptionTemperature(double HottestK, double HottestXM, double HottestYM, double MaxRiseK, double MeanRiseK, double ResistivityK, TemperatureMethod Method)
+{
+    public static OptionTemperature Of(PlateTemperature t, double resistivityK, TemperatureMethod method) =>
+        new(t.HottestK, t.HottestXM, t.HottestYM, t.MaxRiseK, t.MeanRiseK, resistivityK, method);
 }

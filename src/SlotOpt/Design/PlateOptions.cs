@@ -26,7 +26,7 @@ public static class PlateOptions
         limits.CheckGrid(part.Name, part.Outline, part.CellSizeM);
         var geometries = SlotChoices(part).ToList();
         var solvedGeometries = new SolvedGeometry[geometries.Count];
-        var heat = new Dictionary<(double, string), PlateTemperatureScreen.Verdict>[geometries.Count];
+        var heat = new Dictionary<(double, string), TemperatureBracket.Outcome>[geometries.Count];
         var clock = System.Diagnostics.Stopwatch.StartNew();
         var done = 0;
         var failures = new Exception?[geometries.Count];
@@ -63,14 +63,42 @@ public static class PlateOptions
     }
 
     /// <summary>With [parts.thermal]: the temperature verdict of every thickness and material of one solved geometry (the process does not heat the plate).</summary>
-    private static Dictionary<(double, string), PlateTemperatureScreen.Verdict> Heat(PlatePart part, SolvedGeometry solved, MaterialLibrary library, EvaluationLimits limits)
+    private static Dictionary<(double, string), TemperatureBracket.Outcome> Heat(PlatePart part, SolvedGeometry solved, MaterialLibrary library, EvaluationLimits limits)
     {
-        var verdicts = new Dictionary<(double, string), PlateTemperatureScreen.Verdict>();
+        var verdicts = new Dictionary<(double, string), TemperatureBracket.Outcome>();
         if (part.Thermal is null || solved.Failure is not null) return verdicts;
         foreach (var thickness in part.ThicknessesM)
         foreach (var materialName in part.Materials)
-            verdicts[(thickness, materialName)] = PlateTemperatureScreen.Check(part, solved, thickness, library.GetConductor(materialName, part.Name), limits);
+            verdicts[(thickness, materialName)] = Heat(part, solved, thickness, library.GetConductor(materialName, part.Name), limits);
         return verdicts;
+    }
+
+    /// <summary>One thickness and material of a solved geometry heated by its loss: bracketed, coupled only where the bracket straddles the limit.</summary>
+    private static TemperatureBracket.Outcome Heat(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, EvaluationLimits limits)
+    {
+        var thermal = part.Thermal!;
+        var model = solved.Peak?.Model ?? throw new InvalidOperationException($"{part.Name}: no solved geometry to heat");
+        return TemperatureBracket.Find(model.Grid, solved.UnitCellLossW!, ThermalConductivityTable.Of(material.Name, part.Name), thicknessM,
+            k => material.ConductivityAt(k) * thicknessM, thermal.Cooling, thermal.Limit, () => SolveHeated(part, solved.Slots, thicknessM, material, limits));
+    }
+
+    /// <summary>
+    /// One plate design with loss and temperature solved together (<see cref="PlateHeating"/>) on the grid the screen used, its
+    /// resistivity referred to the part's temperature (the sheet the selection prices), so `slotopt plate` gives the same answer on the same plate.
+    /// </summary>
+    public static HeatedPlate SolveHeated(PlatePart part, SlotChoice? slots, double thicknessM, Conductor material, EvaluationLimits limits)
+    {
+        var thermal = part.Thermal ?? throw new InvalidOperationException($"{part.Name} has no [parts.thermal]");
+        var (geometry, _) = PlateGeometryFactory.Build(part.Outline, slots);
+        var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), thicknessM, material.RelativePermeability);
+        var thermalMaterial = PartThermal.MaterialOf(material, part.TemperatureK, part.Name);
+        var grid = GridOf(part, limits);
+        return part.Excitation switch
+        {
+            PlateExcitation.AcField ac => PlateHeating.SolveAc(geometry, grid, ac.Source, sheet, thermalMaterial, thermal.Cooling),
+            PlateExcitation.Moving moving => PlateHeating.SolveMoving(geometry, grid, moving.Poles, TravelOffsets(part, slots), sheet, thermalMaterial, thermal.Cooling),
+            _ => throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation"),
+        };
     }
 
     /// <summary>The solid plate (null) and every distinct slot choice of every family, in file order.</summary>
@@ -137,14 +165,14 @@ public static class PlateOptions
         limits ??= EvaluationLimits.Default;
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
-        var heat = part.Thermal is not null && solved.Failure is null ? PlateTemperatureScreen.Check(part, solved, choice.ThicknessM, material, limits) : null;
+        var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits) : null;
         return Scale(part, solved, choice.ThicknessM, material, shop.Processes[choice.Process], shop, heat);
     }
 
     /// <summary>Scales a unit-conductance solve to one thickness and material and prices it with one process.</summary>
     /// <param name="heat">With [parts.thermal]: the option's temperature and whether it breaks the part's limit.</param>
     public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, CuttingProcess process, ManufacturingSettings shop,
-        PlateTemperatureScreen.Verdict? heat = null)
+        TemperatureBracket.Outcome? heat = null)
     {
         var ci = CultureInfo.InvariantCulture;
         var slots = solved.Slots;
@@ -198,9 +226,10 @@ public static class PlateOptions
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
-        if (heat?.Flag is { } heatFlag) flags.Add(heatFlag);
-        rejection ??= heat?.Breach;
-        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection, heat?.Temperature);
+        if (heat is { Failure: { } why, Breach: null }) flags.Add($"temperature not computed: {why}");
+        if (rejection is null && heat?.Breach is { } hot) rejection = new(RuleKind.HotterThanLimit, hot);
+        var temperature = heat?.Temperature is { } t ? OptionTemperature.Of(t, heat.ResistivityK, heat.Method) : null;
+        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection, temperature);
     }
 
     public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,

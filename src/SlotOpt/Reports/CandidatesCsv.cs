@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using SlotOpt.Design;
+using SlotOpt.Plates.Thermal;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;

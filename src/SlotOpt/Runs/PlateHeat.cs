@@ -5,7 +5,7 @@ namespace SlotOpt.Runs;
 
 /// <summary>
 /// A plate design of the run (the chosen one or the reference) solved with its resistivity at its own temperature
-/// (<see cref="PlateTemperatureScreen.Coupled"/>): the same answer `slotopt plate` gives on the same plate. Heating is
+/// (<see cref="PlateOptions.SolveHeated"/>): the same answer `slotopt plate` gives on the same plate. Heating is
 /// null when the coupled solve failed (thermal runaway, or a plate hotter than the data), with the reason in Failure.
 /// </summary>
 public sealed record PlateHeat(string PartName, DesignRole Role, EvaluatedOption Option, HeatedPlate? Heating, string? Failure, TemperatureLimit Limit, PlateDrawing Drawing)
@@ -19,7 +19,7 @@ public sealed record PlateHeat(string PartName, DesignRole Role, EvaluatedOption
         var material = problem.Library.GetConductor(choice.Material, part.Name);
         try
         {
-            var heated = PlateTemperatureScreen.Coupled(part, choice.Slots, choice.ThicknessM, material, limits ?? EvaluationLimits.Default);
+            var heated = PlateOptions.SolveHeated(part, choice.Slots, choice.ThicknessM, material, limits ?? EvaluationLimits.Default);
             return new PlateHeat(part.Name, role, option, heated, null, part.Thermal!.Limit, PlateDrawing.Of(geometry));
         }
         catch (NumericalFailureException e)
