@@ -21,6 +21,8 @@ public enum RuleKind
     FluxBeyondGrade,
     /// <summary>The slot pattern does not fit the plate's outline.</summary>
     PatternDoesNotFit,
+    /// <summary>A grain-oriented grade in a core whose flux crosses the rolling direction (E-I laminations, machine stators).</summary>
+    GrainOrientedAcrossRollingDirection,
     /// <summary>The plate's hottest point above the part's temperature limit ([parts.thermal]).</summary>
     HotterThanLimit,
 }
@@ -42,6 +44,7 @@ public sealed record RuleBreak(RuleKind Kind, string Message)
         RuleKind.LossAboveLimit => "loss above the part's limit",
         RuleKind.FluxBeyondGrade => "flux beyond the grade",
         RuleKind.PatternDoesNotFit => "slot pattern does not fit the plate",
+        RuleKind.GrainOrientedAcrossRollingDirection => "grain-oriented steel across its rolling direction",
         RuleKind.HotterThanLimit => "hotter than the part's limit",
         _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "unknown rule kind"),
     };

@@ -43,6 +43,7 @@ public static class PlatePartReader
             var (min, max) = outline.Bounds;
             thermal = ThermalReader.ReadPart(thermalSection, max.X - min.X, max.Y - min.Y, materials);
         }
+        var lossKind = LossKindWords.Read(s);
         s.RejectUnknownKeys();
 
         if (maxDrag is not null && excitation is { IsMoving: false }) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\")");
@@ -55,7 +56,7 @@ public static class PlatePartReader
         }
         if (name is null || outline is null || thicknesses is null || materials.Count == 0 || excitation is null) return null;
         return new PlatePart(name, s.Line, temperature, maxLoss, outline, thicknesses, materials, excitation, families, processes,
-            maxDrag, minLigament, cell, current, thermal);
+            maxDrag, minLigament, cell, current, thermal) { DeclaredLossKind = lossKind };
     }
 
     private static Polygon? ReadOutline(TomlSection s)
