@@ -39,6 +39,8 @@ public static class RunText
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
             o.WriteLine(string.Create(ci, $"             loss {reference.Loss.TotalW:0.###} W{Drag(reference.DragN)}, build cost {reference.BuildCost:0.00} {cur}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}"));
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Confirmed(confirmed)}");
+            foreach (var role in new[] { DesignRole.Chosen, DesignRole.Reference })
+                if (r.HeatOf(chosen.PartName, role) is { } heat) o.WriteLine($"    {(role == DesignRole.Chosen ? "chosen" : r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")} temperature: {Temperature(heat)}");
             foreach (var flag in chosen.Flags) o.WriteLine($"    warning: {flag}");
         }
         o.WriteLine();
@@ -64,6 +66,15 @@ public static class RunText
     /// <summary>A chosen plate as confirmed: which model ran, its loss, drag and lift, the resistance-limited screen's loss, and why that model.</summary>
     private static string Confirmed(PlateConfirmation c) => string.Create(CultureInfo.InvariantCulture,
         $"{c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? string.Create(CultureInfo.InvariantCulture, $", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W). {c.Reason}");
+
+    /// <summary>A hot plate's coupled temperature: hottest point (value and place), mean rise, the resistivity's temperature, the limit.</summary>
+    private static string Temperature(PlateHeat heat)
+    {
+        if (heat.Heating is not { } h) return $"no steady state ({heat.Failure})";
+        var t = h.Temperature;
+        return string.Create(CultureInfo.InvariantCulture,
+            $"hottest {t.HottestK - 273.15:0.#} degC (rise {t.MaxRiseK:0.#} K) at x {t.HottestXM * 1e3:0} mm, y {t.HottestYM * 1e3:0} mm; mean rise {t.MeanRiseK:0.#} K; resistivity at {h.LossWeightedTemperatureK - 273.15:0.#} degC (loss-weighted); {(heat.Limit.IsSet ? heat.Breach ?? "within the limit" : "no limit set")}");
+    }
 
     private static string Drag(double? dragN) => dragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "";
 }

@@ -1,8 +1,10 @@
+using SlotOpt.Plates.Thermal;
+
 namespace SlotOpt.Design;
 
 /// <summary>
 /// One design option of one part, evaluated: what it is (in words and as attributes for the search),
-/// what it costs to build, what it loses, and why it was rejected if it was.
+/// what it costs to build, what it loses, why it was rejected if it was, and (plates with [parts.thermal]) how hot it runs.
 /// </summary>
 public sealed record EvaluatedOption(
     string PartName,
@@ -14,7 +16,18 @@ public sealed record EvaluatedOption(
     LossBreakdown Loss,
     double? DragN,
     IReadOnlyList<string> Flags,
-    RuleBreak? Rejection)
+    RuleBreak? Rejection,
+    OptionTemperature? Temperature = null)
 {
     public bool IsFeasible => Rejection is null;
+}
+
+/// <summary>
+/// A plate option's steady temperature: hottest point (K and where, m), rises above ambient (K), the temperature the
+/// resistivity was taken at (K; the loss-weighted mean for a coupled solve), and how it was found (<see cref="TemperatureBracket"/>).
+/// </summary>
+public sealed record OptionTemperature(double HottestK, double HottestXM, double HottestYM, double MaxRiseK, double MeanRiseK, double ResistivityK, TemperatureMethod Method)
+{
+    public static OptionTemperature Of(PlateTemperature t, double resistivityK, TemperatureMethod method) =>
+        new(t.HottestK, t.HottestXM, t.HottestYM, t.MaxRiseK, t.MeanRiseK, resistivityK, method);
 }

@@ -4,6 +4,7 @@ using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Thermal;
 
 namespace SlotOpt.Design;
 
@@ -15,7 +16,9 @@ namespace SlotOpt.Design;
 public static class PlateOptions
 {
     /// <summary>One solved slot geometry at unit sheet conductance.</summary>
-    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, RuleBreak? Failure);
+    /// <param name="UnitCellLossW">With [parts.thermal]: the loss per cell at 1 S (moving poles: the mean over the travel offsets), else null.</param>
+    public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, RuleBreak? Failure,
+        double[]? UnitCellLossW = null);
 
     public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null)
     {
@@ -23,6 +26,7 @@ public static class PlateOptions
         limits.CheckGrid(part.Name, part.Outline, part.CellSizeM);
         var geometries = SlotChoices(part).ToList();
         var solvedGeometries = new SolvedGeometry[geometries.Count];
+        var heat = new Dictionary<(double, string), TemperatureBracket.Outcome>[geometries.Count];
         var clock = System.Diagnostics.Stopwatch.StartNew();
         var done = 0;
         var failures = new Exception?[geometries.Count];
@@ -32,6 +36,7 @@ public static class PlateOptions
             {
                 limits.CheckTime(clock, Volatile.Read(ref done), geometries.Count);
                 solvedGeometries[i] = Solve(part, geometries[i], limits);
+                heat[i] = Heat(part, solvedGeometries[i], library, limits);
                 Interlocked.Increment(ref done);
                 solved?.Report(1);
             }
@@ -51,9 +56,49 @@ public static class PlateOptions
             foreach (var thickness in part.ThicknessesM)
             foreach (var materialName in part.Materials)
             foreach (var processName in processes)
-                options.Add(Scale(part, solvedGeometry, thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop));
+                options.Add(Scale(part, solvedGeometry, thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop,
+                    heat[g].GetValueOrDefault((thickness, materialName))));
         }
         return options;
+    }
+
+    /// <summary>With [parts.thermal]: the temperature verdict of every thickness and material of one solved geometry (the process does not heat the plate).</summary>
+    private static Dictionary<(double, string), TemperatureBracket.Outcome> Heat(PlatePart part, SolvedGeometry solved, MaterialLibrary library, EvaluationLimits limits)
+    {
+        var verdicts = new Dictionary<(double, string), TemperatureBracket.Outcome>();
+        if (part.Thermal is null || solved.Failure is not null) return verdicts;
+        foreach (var thickness in part.ThicknessesM)
+        foreach (var materialName in part.Materials)
+            verdicts[(thickness, materialName)] = Heat(part, solved, thickness, library.GetConductor(materialName, part.Name), limits);
+        return verdicts;
+    }
+
+    /// <summary>One thickness and material of a solved geometry heated by its loss: bracketed, coupled only where the bracket straddles the limit.</summary>
+    private static TemperatureBracket.Outcome Heat(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, EvaluationLimits limits)
+    {
+        var thermal = part.Thermal!;
+        var model = solved.Peak?.Model ?? throw new InvalidOperationException($"{part.Name}: no solved geometry to heat");
+        return TemperatureBracket.Find(model.Grid, solved.UnitCellLossW!, ThermalConductivityTable.Of(material.Name, part.Name), thicknessM,
+            k => material.ConductivityAt(k) * thicknessM, thermal.Cooling, thermal.Limit, () => SolveHeated(part, solved.Slots, thicknessM, material, limits));
+    }
+
+    /// <summary>
+    /// One plate design with loss and temperature solved together (<see cref="PlateHeating"/>) on the grid the screen used, its
+    /// resistivity referred to the part's temperature (the sheet the selection prices), so `slotopt plate` gives the same answer on the same plate.
+    /// </summary>
+    public static HeatedPlate SolveHeated(PlatePart part, SlotChoice? slots, double thicknessM, Conductor material, EvaluationLimits limits)
+    {
+        var thermal = part.Thermal ?? throw new InvalidOperationException($"{part.Name} has no [parts.thermal]");
+        var (geometry, _) = PlateGeometryFactory.Build(part.Outline, slots);
+        var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), thicknessM, material.RelativePermeability);
+        var thermalMaterial = PartThermal.MaterialOf(material, part.TemperatureK, part.Name);
+        var grid = GridOf(part, limits);
+        return part.Excitation switch
+        {
+            PlateExcitation.AcField ac => PlateHeating.SolveAc(geometry, grid, ac.Source, sheet, thermalMaterial, thermal.Cooling),
+            PlateExcitation.Moving moving => PlateHeating.SolveMoving(geometry, grid, moving.Poles, TravelOffsets(part, slots), sheet, thermalMaterial, thermal.Cooling),
+            _ => throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation"),
+        };
     }
 
     /// <summary>The solid plate (null) and every distinct slot choice of every family, in file order.</summary>
@@ -82,22 +127,28 @@ public static class PlateOptions
         var model = BuildModel(part, geometry, limits);
         switch (part.Excitation)
         {
+            case PlateExcitation.Moving moving when part.Thermal is not null:
+                var (unitMap, mapped) = PlateHeating.MeanCellLoss(model, moving.Poles, TravelOffsets(part, slots));
+                return new SolvedGeometry(slots, pattern, geometry, mapped.MeanLossPerSiemensW, mapped.Peak, mapped.IterationsPerOffset.Sum(), model.Unknowns, null, unitMap);
             case PlateExcitation.Moving moving:
                 var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Poles, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
             case PlateExcitation.AcField field:
                 var ac = ResistanceLimitedSolver.SolveAc(model, field.Source);
-                return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null);
+                return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null, part.Thermal is null ? null : CellLossMap.Of(ac, 1.0));
             default:
                 throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         }
     }
 
     /// <summary>The solver model of one slot geometry: the part's cell size (automatic: resolving the plate's and the poles' features), automatic grids capped by the memory limit.</summary>
-    public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits)
+    public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits) => SheetModel.Build(geometry, GridOf(part, limits));
+
+    /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped by the memory limit.</summary>
+    public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
         var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Poles.GridFeatures : [] };
-        return SheetModel.Build(geometry, grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) });
+        return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) };
     }
 
     /// <summary>
@@ -109,11 +160,19 @@ public static class PlateOptions
             .Offsets(part.Outline, slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
 
     /// <summary>Evaluates one fixed design of the plate (which need not lie in the part's slot families).</summary>
-    public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop) =>
-        Scale(part, Solve(part, choice.Slots), choice.ThicknessM, library.GetConductor(choice.Material, part.Name), shop.Processes[choice.Process], shop);
+    public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop, EvaluationLimits? limits = null)
+    {
+        limits ??= EvaluationLimits.Default;
+        var solved = Solve(part, choice.Slots, limits);
+        var material = library.GetConductor(choice.Material, part.Name);
+        var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits) : null;
+        return Scale(part, solved, choice.ThicknessM, material, shop.Processes[choice.Process], shop, heat);
+    }
 
     /// <summary>Scales a unit-conductance solve to one thickness and material and prices it with one process.</summary>
-    public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, CuttingProcess process, ManufacturingSettings shop)
+    /// <param name="heat">With [parts.thermal]: the option's temperature and whether it breaks the part's limit.</param>
+    public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, CuttingProcess process, ManufacturingSettings shop,
+        TemperatureBracket.Outcome? heat = null)
     {
         var ci = CultureInfo.InvariantCulture;
         var slots = solved.Slots;
@@ -166,7 +225,10 @@ public static class PlateOptions
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
-        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection);
+        if (heat is { Failure: { } why, Breach: null }) flags.Add($"temperature not computed: {why}");
+        if (rejection is null && heat?.Breach is { } hot) rejection = new(RuleKind.HotterThanLimit, hot);
+        var temperature = heat?.Temperature is { } t ? OptionTemperature.Of(t, heat.ResistivityK, heat.Method) : null;
+        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection, temperature);
     }
 
     public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,

@@ -23,6 +23,8 @@ public enum RuleKind
     PatternDoesNotFit,
     /// <summary>A grain-oriented grade in a core whose flux crosses the rolling direction (E-I laminations, machine stators).</summary>
     GrainOrientedAcrossRollingDirection,
+    /// <summary>The plate's hottest point above the part's temperature limit ([parts.thermal]).</summary>
+    HotterThanLimit,
 }
 
 /// <summary>Why an option was rejected: the rule it breaks (a kind) and the reason with its numbers (a message).</summary>
@@ -43,6 +45,7 @@ public sealed record RuleBreak(RuleKind Kind, string Message)
         RuleKind.FluxBeyondGrade => "flux beyond the grade",
         RuleKind.PatternDoesNotFit => "slot pattern does not fit the plate",
         RuleKind.GrainOrientedAcrossRollingDirection => "grain-oriented steel across its rolling direction",
+        RuleKind.HotterThanLimit => "hotter than the part's limit",
         _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "unknown rule kind"),
     };
 

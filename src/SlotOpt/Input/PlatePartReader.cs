@@ -10,7 +10,7 @@ namespace SlotOpt.Input;
 /// Reads a [[parts]] table of kind "plate": the outline (width and height, or outline = [[x, y], ...]),
 /// candidate thicknesses and materials, processes for the outline, limits, [parts.source],
 /// [[parts.slots]] families (the keys of <see cref="SlotTableReader"/>, lists allowed, plus processes) and
-/// [parts.current] (its slots table one value each). Key names follow the single-plate file of `slotopt plate`.
+/// [parts.current] (its slots table one value each) and [parts.thermal] (cooling and temperature limit, <see cref="ThermalReader.ReadPart"/>). Key names follow the single-plate file of `slotopt plate`.
 /// </summary>
 public static class PlatePartReader
 {
@@ -36,6 +36,13 @@ public static class PlatePartReader
         var excitation = sourceSection is null ? null : PlateSourceReader.Read(sourceSection, outline, baseDirectory);
         var families = s.TableArray("slots", required: false).Select(f => ReadFamily(f, shop, processes, outline)).OfType<SlotFamily>().ToList();
         var current = ReadCurrent(s.OptionalTable("current"), library, shop, outline);
+        var thermalSection = s.OptionalTable("thermal");
+        PartThermal? thermal = null;
+        if (thermalSection is not null && outline is not null)
+        {
+            var (min, max) = outline.Bounds;
+            thermal = ThermalReader.ReadPart(thermalSection, max.X - min.X, max.Y - min.Y, materials);
+        }
         var lossKind = LossKindWords.Read(s);
         s.RejectUnknownKeys();
 
@@ -49,7 +56,7 @@ public static class PlatePartReader
         }
         if (name is null || outline is null || thicknesses is null || materials.Count == 0 || excitation is null) return null;
         return new PlatePart(name, s.Line, temperature, maxLoss, outline, thicknesses, materials, excitation, families, processes,
-            maxDrag, minLigament, cell, current) { DeclaredLossKind = lossKind };
+            maxDrag, minLigament, cell, current, thermal) { DeclaredLossKind = lossKind };
     }
 
     private static Polygon? ReadOutline(TomlSection s)

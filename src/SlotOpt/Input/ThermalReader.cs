@@ -1,4 +1,5 @@
 using System.Globalization;
+using SlotOpt.Design;
 using SlotOpt.Input.Toml;
 using SlotOpt.Materials;
 using SlotOpt.Plates.Thermal;
@@ -27,6 +28,29 @@ public static class ThermalReader
     /// <summary>The section read against the plate's bounds (for the vertical length); null after recording errors.</summary>
     public static PlateThermalInput? Read(TomlSection t, double widthM, double heightM)
     {
+        var reference = t.OptionalQuantity("resistivity_temperature", QuantityKind.Temperature) ?? Conductor.RoomTemperatureK;
+        if (!(reference > 0)) t.Error("resistivity_temperature", "is below absolute zero");
+        var material = ReadMaterial(t, reference);
+        var common = ReadCoolingAndLimit(t, widthM, heightM);
+        return common is null || material is null ? null : new PlateThermalInput(common.Cooling, material, common.Limit);
+    }
+
+    /// <summary>
+    /// A plate part's [parts.thermal] in a problem file: the cooling and limit keys of a plate file's [thermal]
+    /// (cooling, h, ambient, emissivity, edges, vertical_axis, max_temperature, max_temperature_rise); the material's
+    /// thermal side comes from each candidate material, so every one of the part's materials needs a listed thermal conductivity.
+    /// </summary>
+    public static PartThermal? ReadPart(TomlSection t, double widthM, double heightM, IReadOnlyList<string> materials)
+    {
+        var common = ReadCoolingAndLimit(t, widthM, heightM);
+        foreach (var m in materials.Where(m => !ThermalConductivityTable.TryGet(m, out _, out _)))
+            t.Error("cooling", $"no thermal conductivity listed for the part's material \"{m}\"; the temperature needs one for every material");
+        if (common is not null && !common.Limit.IsSet) t.Warn("cooling", "no max_temperature or max_temperature_rise: the temperature is reported but limits nothing");
+        return t.Errors.Any ? null : common;
+    }
+
+    private static PartThermal? ReadCoolingAndLimit(TomlSection t, double widthM, double heightM)
+    {
         var cooling = t.OptionalChoice("cooling", CoolingWords);
         if (cooling is null && !t.Has("cooling")) t.Error("cooling", $"missing: one of {string.Join(", ", CoolingWords)}");
         var h = t.OptionalNumber("h");
@@ -39,19 +63,16 @@ public static class ThermalReader
         if (!(emissivity >= 0 && emissivity <= 1)) t.Error("emissivity", "must lie between 0 and 1");
         var edges = t.OptionalChoice("edges", EdgeWords) ?? "insulated";
         var axis = t.OptionalChoice("vertical_axis", ["x", "y"]) ?? "y";
-        var reference = t.OptionalQuantity("resistivity_temperature", QuantityKind.Temperature) ?? Conductor.RoomTemperatureK;
-        if (!(reference > 0)) t.Error("resistivity_temperature", "is below absolute zero");
-        var material = ReadMaterial(t, reference);
         var maxTemperature = t.OptionalQuantity("max_temperature", QuantityKind.Temperature);
         if (maxTemperature is { } mt && !(mt > ambient)) t.Error("max_temperature", "must lie above the ambient temperature");
         var maxRise = t.OptionalNumber("max_temperature_rise");
         if (maxRise is { } mr && !(mr > 0)) t.Error("max_temperature_rise", "must be a positive rise in K");
         t.RejectUnknownKeys();
-        if (cooling is null || material is null || t.Errors.Any) return null;
+        if (cooling is null || t.Errors.Any) return null;
         var medium = cooling switch { "air" => CoolingMedium.Air, "oil" => CoolingMedium.Oil, _ => CoolingMedium.Fixed };
         var plateCooling = t.Guard("cooling", () => new PlateCooling(medium, ambient, emissivity, edges == "ambient" ? ThermalEdge.Ambient : ThermalEdge.Insulated,
             medium == CoolingMedium.Fixed ? h : null, axis == "y" ? heightM : widthM));
-        return plateCooling is null ? null : new PlateThermalInput(plateCooling, material, new TemperatureLimit(maxTemperature, maxRise));
+        return plateCooling is null ? null : new PartThermal(plateCooling, new TemperatureLimit(maxTemperature, maxRise));
     }
 
     private static ThermalMaterial? ReadMaterial(TomlSection t, double referenceK)

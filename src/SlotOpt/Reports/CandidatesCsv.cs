@@ -1,5 +1,7 @@
 using System.Globalization;
 using System.Text;
+using SlotOpt.Design;
+using SlotOpt.Plates.Thermal;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
@@ -8,7 +10,7 @@ namespace SlotOpt.Reports;
 /// candidates.csv: every evaluated option of every part, one row each (RFC 4180 quoting), with its
 /// attributes (the union over all parts; empty where an option has none), its loss by origin, drag,
 /// build cost, owning cost (build cost + value per watt x loss), whether it passed the rules, the
-/// rule it broke, whether the run chose it, and its validity flags.
+/// rule it broke, whether the run chose it, and its validity flags; with [parts.thermal] its temperature and how it was found.
 /// </summary>
 public static class CandidatesCsv
 {
@@ -17,6 +19,9 @@ public static class CandidatesCsv
     public static readonly IReadOnlyList<string> TrailingColumns =
         ["loss_w", "hysteresis_w", "classical_w", "excess_w", "plate_eddy_w", "drag_power_w", "drag_n", "build_cost", "owning_cost", "feasible", "rejection", "chosen", "flags"];
 
+    /// <summary>Added after the trailing columns when a part has [parts.thermal]: the option's temperature as the screen found it.</summary>
+    public static readonly IReadOnlyList<string> TemperatureColumns = ["temperature_rise_max_k", "temperature_rise_mean_k", "hottest_c", "temperature_method"];
+
     public static string Write(RunResult r)
     {
         var ci = CultureInfo.InvariantCulture;
@@ -24,7 +29,8 @@ public static class CandidatesCsv
         var attributeColumns = options.SelectMany(o => o.Attributes.Keys).Distinct(StringComparer.Ordinal).ToList();
         var chosenIds = r.Chosen?.Select(o => o.Id).ToHashSet(StringComparer.Ordinal) ?? [];
         var s = new StringBuilder();
-        Row(s, LeadingColumns.Concat(attributeColumns).Concat(TrailingColumns));
+        var hot = r.Problem.Parts.OfType<PlatePart>().Any(p => p.Thermal is not null);
+        Row(s, LeadingColumns.Concat(attributeColumns).Concat(TrailingColumns).Concat(hot ? TemperatureColumns : []));
         foreach (var o in options)
         {
             string N(double v) => v.ToString("R", ci);
@@ -34,7 +40,9 @@ public static class CandidatesCsv
                     N(o.Loss.TotalW), N(o.Loss.HysteresisW), N(o.Loss.ClassicalW), N(o.Loss.ExcessW), N(o.Loss.PlateEddyW), N(o.Loss.DragPowerW),
                     o.DragN is { } d ? N(d) : "", N(o.BuildCost), N(o.BuildCost + r.Problem.ValuePerWattOf(o.PartName) * o.Loss.TotalW),
                     o.IsFeasible ? "yes" : "no", o.Rejection?.Message ?? "", chosenIds.Contains(o.Id) ? "yes" : "no", string.Join("; ", o.Flags),
-                ]));
+                ]).Concat(!hot ? [] : o.Temperature is { } t
+                    ? [N(t.MaxRiseK), N(t.MeanRiseK), N(t.HottestK - 273.15), t.Method switch { TemperatureMethod.UpperBound => "upper_bound", TemperatureMethod.LowerBound => "lower_bound", _ => "coupled" }]
+                    : ["", "", "", ""]));
         }
         return s.ToString();
     }

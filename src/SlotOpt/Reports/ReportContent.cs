@@ -1,6 +1,7 @@
 using System.Globalization;
 using SlotOpt.Design;
 using SlotOpt.Design.Cores;
+using SlotOpt.Plates.Thermal;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 
@@ -95,7 +96,16 @@ public static class ReportContent
             + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{SlotPatternCatalog.Of(f.Pattern).Words} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
             + F($"; uncut ligament at least {p.MinLigamentM * 1e3:0.#} mm")
             + (p.MaxDragN is { } drag ? F($"; drag limit {drag:0.##} N") : "")
-            + (p.MaxLossW is { } loss ? F($"; loss limit {loss:0.##} W") : "");
+            + (p.MaxLossW is { } loss ? F($"; loss limit {loss:0.##} W") : "")
+            + (p.Thermal is { } th ? "; " + CoolingWords(th) : "");
+    }
+
+    private static string CoolingWords(PartThermal th)
+    {
+        var c = th.Cooling;
+        var medium = c.Medium switch { CoolingMedium.Air => "natural convection in air", CoolingMedium.Oil => "natural convection in oil", _ => F($"h {c.FixedCoefficientWPerM2K:0.#} W/m²K") };
+        var limit = th.Limit.MaxTemperatureK is { } mt ? F($"hottest point at most {mt - 273.15:0.#} °C") : th.Limit.MaxRiseK is { } mr ? F($"hottest rise at most {mr:0.#} K") : "no temperature limit";
+        return F($"cooled by {medium} at {c.AmbientK - 273.15:0.#} °C, {limit}");
     }
 
     private static IEnumerable<string> SharedLimitLines(Problem p)
@@ -138,6 +148,21 @@ public static class ReportContent
             b.Add(new Paragraph("The search screens plates with the resistance-limited model (fast: one solve per slot geometry). Each chosen plate is then solved again with the model its validity figures call for:"));
             b.Add(new BulletList(r.Confirmations.Select(ConfirmationLine).ToList()));
         }
+        if (r.Heat.Count > 0)
+        {
+            b.Add(new Paragraph("Plate temperature: every option was screened with two thermal solves that bracket it (its loss with the resistivity at the ambient temperature, an upper bound; and at the upper bound's hottest point, a lower bound), "
+                + "and options between the bounds at the limit were solved with loss and temperature coupled. The chosen and the reference plates are solved coupled, each cell's resistivity at its own temperature:"));
+            b.Add(new BulletList(r.Heat.Select(HeatLine).ToList()));
+        }
+    }
+
+    private static string HeatLine(PlateHeat h)
+    {
+        var who = h.Role == DesignRole.Chosen ? "chosen" : "reference";
+        if (h.Heating is not { } heated) return $"{h.PartName}, {who} ({h.Option.Description}): no steady state ({h.Failure})";
+        var t = heated.Temperature;
+        return F($"{h.PartName}, {who} ({h.Option.Description}): hottest {t.HottestK - 273.15:0.#} °C (rise {t.MaxRiseK:0.#} K) at x {t.HottestXM * 1e3:0} mm, y {t.HottestYM * 1e3:0} mm; mean rise {t.MeanRiseK:0.#} K above {t.AmbientK - 273.15:0.#} °C; resistivity at {heated.LossWeightedTemperatureK - 273.15:0.#} °C (loss-weighted), coupled loss {heated.LossW:0.###} W; ")
+            + (h.Limit.IsSet ? h.Breach ?? "within the limit" : "no limit set");
     }
 
     /// <summary>One chosen plate as confirmed: which model ran, and its loss, drag and lift against the screen.</summary>
@@ -270,6 +295,11 @@ public static class ReportContent
             b.Add(new Heading($"Drag against speed: {part.Name}"));
             b.Add(new FigureBlock(figure));
         }
+        foreach (var (part, figure) in figures.Temperature)
+        {
+            b.Add(new Heading($"Temperature: {part.Name}"));
+            b.Add(new FigureBlock(figure));
+        }
     }
 
     private static void Rejections(RunResult r, List<ReportBlock> b)
@@ -319,6 +349,8 @@ public static class ReportContent
         if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.Excitation.IsMoving))
             items.Insert(4, "This problem has a moving source: if that drag ever slows, stops or holds a load, the design is part of a safety function and needs that analysis before use.");
         var temperatures = r.Problem.Parts.Select(p => p.TemperatureK).ToList();
+        if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.Thermal is not null))
+            items.Insert(items.Count - 1, "Plate temperatures are steady-state estimates from natural-convection correlations for an isolated vertical plate in still fluid: real oil flow, nearby windings, tank walls and clamping structure change them, and the temperature limit applied is the problem file's reading of a standard. Whether a hot structural part is acceptable (insulation in contact, gassing of the oil, strength at temperature) is for local codes, the applicable standards and licensed engineering practice to decide, not this report.");
         if (temperatures.Any(t => t > 373.15)) items.Insert(items.Count - 1, "A part here runs above 100 °C: see the hot-part caution above.");
         if (temperatures.Any(t => t < 123)) items.Insert(items.Count - 1, "A part here runs at a cryogenic temperature: see the cryogenic caution above.");
         b.Add(new BulletList(items));

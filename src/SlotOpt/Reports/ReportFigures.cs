@@ -7,24 +7,26 @@ namespace SlotOpt.Reports;
 /// <summary>
 /// Every plot of one run: the trade-off curve and the loss breakdown (when there is a front and a design),
 /// loss against frequency for each core part, and for each plate the current-density map (and drag
-/// against speed where a source moves), drawn from the numbers the run computed (<see cref="RunFigures"/>).
+/// against speed where a source moves, the temperature map where it has [parts.thermal]), drawn from the numbers the run computed (<see cref="RunFigures"/>).
 /// </summary>
 public sealed record ReportFigures(
     Figure? TradeOff,
     Figure? LossBreakdown,
     IReadOnlyList<(LossFrequencyCurves Curves, Figure Figure)> LossFrequency,
     IReadOnlyList<(PlatePart Part, Figure Figure)> CurrentDensity,
-    IReadOnlyList<(PlatePart Part, Figure Figure)> DragSpeed)
+    IReadOnlyList<(PlatePart Part, Figure Figure)> DragSpeed,
+    IReadOnlyList<(PlatePart Part, Figure Figure)> Temperature)
 {
     public IEnumerable<Figure> All =>
         new[] { TradeOff, LossBreakdown }.OfType<Figure>()
-            .Concat(LossFrequency.Select(x => x.Figure)).Concat(CurrentDensity.Select(x => x.Figure)).Concat(DragSpeed.Select(x => x.Figure));
+            .Concat(LossFrequency.Select(x => x.Figure)).Concat(CurrentDensity.Select(x => x.Figure)).Concat(DragSpeed.Select(x => x.Figure)).Concat(Temperature.Select(x => x.Figure));
 
     public static ReportFigures Of(RunResult r)
     {
         var lossFrequency = new List<(LossFrequencyCurves, Figure)>();
         var currentDensity = new List<(PlatePart, Figure)>();
         var dragSpeed = new List<(PlatePart, Figure)>();
+        var temperature = new List<(PlatePart, Figure)>();
         for (var i = 0; i < r.Parts.Count; i++)
         {
             var evaluation = r.Parts[i];
@@ -38,10 +40,11 @@ public sealed record ReportFigures(
                 case PlatePart plate when chosen is not null:
                     currentDensity.Add((plate, CurrentDensityPlot.Build(i, plate, r.Figures.CurrentDensityOf(plate.Name))));
                     if (plate.Excitation.IsMoving) dragSpeed.Add((plate, DragSpeedPlot.Build(i, evaluation, r.Figures.DragSpeedOf(plate.Name), r.Figures.LowSpeedReynoldsLimit)));
+                    if (r.Figures.TemperatureOf(plate.Name) is { } maps) temperature.Add((plate, TemperaturePlot.Build(i, plate, maps, evaluation.ReferenceIsCurrent)));
                     if (r.Confirmation(plate.Name) is { SpeedSweep: not null } confirmed) dragSpeed.Add((plate, CoupledSpeedPlot.Build(i, plate, confirmed)));
                     break;
             }
         }
-        return new ReportFigures(TradeOffPlot.Build(r), LossBreakdownPlot.Build(r), lossFrequency, currentDensity, dragSpeed);
+        return new ReportFigures(TradeOffPlot.Build(r), LossBreakdownPlot.Build(r), lossFrequency, currentDensity, dragSpeed, temperature);
     }
 }

@@ -47,10 +47,38 @@ public sealed record ResultJson(
         ReferenceDesign Reference,
         Confirmation? Confirmed,
         int Options,
-        IReadOnlyDictionary<string, int> Rejected);
+        IReadOnlyDictionary<string, int> Rejected,
+        Temperature? Temperature);
 
     /// <summary>The part's current design, or its baseline; <see cref="Breaks"/> is the rule or limit it breaks.</summary>
-    public sealed record ReferenceDesign(string Kind, string Design, double LossW, double? DragN, double BuildCost, string? Breaks);
+    public sealed record ReferenceDesign(string Kind, string Design, double LossW, double? DragN, double BuildCost, string? Breaks, Temperature? Temperature);
+
+    /// <summary>
+    /// A hot plate's coupled temperature (<see cref="PlateHeat"/>): rises above ambient, the hottest point (K, and x, y in m),
+    /// the temperature the resistivity was taken at (loss-weighted mean, and the range over the plate), the limit it
+    /// breaks; Failure instead when the coupled solve found no steady state.
+    /// </summary>
+    public sealed record Temperature(
+        double? TemperatureRiseMaxK,
+        double? TemperatureRiseMeanK,
+        double? HottestTemperatureK,
+        IReadOnlyList<double>? HottestPointM,
+        double? AmbientK,
+        double? ResistivityTemperatureK,
+        IReadOnlyList<double>? ResistivityTemperatureRangeK,
+        int? CouplingIterations,
+        string? Breaks,
+        string? Failure)
+    {
+        public static Temperature? Of(PlateHeat? heat)
+        {
+            if (heat is null) return null;
+            if (heat.Heating is not { } h) return new Temperature(null, null, null, null, null, null, null, null, heat.Breach, heat.Failure);
+            var t = h.Temperature;
+            return new Temperature(t.MaxRiseK, t.MeanRiseK, t.HottestK, [t.HottestXM, t.HottestYM], t.AmbientK, h.LossWeightedTemperatureK,
+                [h.ResistivityMinK, h.ResistivityMaxK], h.CouplingIterations, heat.Breach, null);
+        }
+    }
 
     /// <summary>A chosen plate solved again with the model its validity calls for.</summary>
     public sealed record Confirmation(SheetModelKind Model, string Reason, double LossW, double? DragN, double? LiftN, double ResistanceLimitedLossW);
@@ -90,8 +118,10 @@ public sealed record ResultJson(
     private static ChosenPart Chosen(RunResult r, EvaluatedOption o, PartEvaluation part) => new(
         o.PartName, o.Description, o.Id, o.Attributes,
         o.Loss.TotalW, o.Loss.HysteresisW, o.Loss.ClassicalW, o.Loss.ExcessW, o.Loss.PlateEddyW, o.DragN, o.BuildCost, r.Problem.ValuePerWattOf(o.PartName), o.Flags,
-        new ReferenceDesign(part.ReferenceIsCurrent ? "current" : "baseline", part.Reference.Description, part.Reference.Loss.TotalW, part.Reference.DragN, part.Reference.BuildCost, part.Reference.Rejection?.Message),
+        new ReferenceDesign(part.ReferenceIsCurrent ? "current" : "baseline", part.Reference.Description, part.Reference.Loss.TotalW, part.Reference.DragN, part.Reference.BuildCost, part.Reference.Rejection?.Message,
+            Temperature.Of(r.HeatOf(o.PartName, DesignRole.Reference))),
         r.Confirmation(o.PartName) is { } c ? new Confirmation(c.Model, c.Reason, c.LossW, c.DragN, c.LiftN, c.ResistanceLimitedLossW) : null,
         part.Options.Count,
-        part.RejectionCounts);
+        part.RejectionCounts,
+        Temperature.Of(r.HeatOf(o.PartName, DesignRole.Chosen)));
 }

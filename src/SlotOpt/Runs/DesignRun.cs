@@ -7,28 +7,48 @@ namespace SlotOpt.Runs;
 
 /// <summary>
 /// The main job: evaluate every option, select under the shared limits, trace the front, compare with the
-/// baselines, confirm the chosen plates, and compute the numbers the report plots.
+/// baselines, confirm the chosen plates, solve the hot plates' temperature coupled (chosen and reference), and compute the numbers the report plots.
 /// </summary>
 public static class DesignRun
 {
     public static RunResult Execute(Problem problem, CpSatSettings? settings = null, IProgress<int>? geometrySolved = null, EvaluationLimits? limits = null)
     {
         var evaluated = CandidateEvaluation.Evaluate(problem, geometrySolved, limits);
-        var selection = CandidateEvaluation.ToSelectionProblem(problem, evaluated.Parts);
-        var outcome = new CpSatSelector(settings).Select(selection, new SelectionOptions { IncludeFront = true });
-        IReadOnlyList<EvaluatedOption>? chosen = null;
-        var confirmations = new List<PlateConfirmation>();
-        if (outcome.Design is { } design)
+        var parts = evaluated.Parts.ToList();
+        var heat = new List<PlateHeat>();
+        SelectionOutcome outcome;
+        IReadOnlyList<EvaluatedOption>? chosen;
+        // select; solve the chosen hot plates coupled; a chosen plate whose coupled temperature breaks its limit is dropped and the selection repeats
+        while (true)
         {
-            var byId = evaluated.Parts.SelectMany(p => p.Options).ToDictionary(o => o.Id);
+            var selection = CandidateEvaluation.ToSelectionProblem(problem, parts);
+            outcome = new CpSatSelector(settings).Select(selection, new SelectionOptions { IncludeFront = true });
+            chosen = null;
+            heat.Clear();
+            if (outcome.Design is not { } design) break;
+            var byId = parts.SelectMany(p => p.Options).ToDictionary(o => o.Id);
             chosen = design.Choices.Select(c => byId[c.Candidate.Id]).ToList();
+            var broken = new List<(int Part, EvaluatedOption Option, string Reason)>();
+            for (var i = 0; i < parts.Count; i++)
+            {
+                if (parts[i].Part is not PlatePart { Thermal: not null } hot) continue;
+                var chosenHeat = PlateHeat.Of(hot, chosen[i], DesignRole.Chosen, problem, limits);
+                heat.Add(chosenHeat);
+                heat.Add(PlateHeat.Of(hot, parts[i].Reference, DesignRole.Reference, problem, limits));
+                if (chosenHeat.Breach is { } reason) broken.Add((i, chosen[i], reason));
+            }
+            if (broken.Count == 0) break;
+            foreach (var (i, option, reason) in broken)
+                parts[i] = parts[i] with { Options = parts[i].Options.Select(o => o.Id == option.Id ? o with { Rejection = new RuleBreak(RuleKind.HotterThanLimit, $"{reason} (coupled solve of a plate the screen passed)") } : o).ToList() };
+        }
+        var confirmations = new List<PlateConfirmation>();
+        if (chosen is not null)
             // screen with the fast resistance-limited model, confirm the chosen plates with the model their validity calls for
             foreach (var option in chosen)
                 if (problem.Parts.First(p => p.Name == option.PartName) is PlatePart plate && option.Choice is PlateChoice choice)
                     confirmations.Add(PlateConfirmation.Confirm(plate, choice, problem.Library, limits));
-        }
-        var figures = RunFigures.Compute(problem, evaluated.Parts, chosen, limits);
-        return new RunResult(problem, evaluated.Parts, outcome, chosen, Baselines(problem, evaluated.Parts), evaluated.SheetSolves, evaluated.Seconds, confirmations, figures);
+        var figures = RunFigures.Compute(problem, parts, chosen, heat, limits);
+        return new RunResult(problem, parts, outcome, chosen, Baselines(problem, parts), evaluated.SheetSolves, evaluated.Seconds, confirmations, figures, heat);
     }
 
     /// <summary>

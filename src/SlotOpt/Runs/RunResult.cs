@@ -17,7 +17,8 @@ public sealed record RunResult(
     int SheetSolves,
     double EvaluationSeconds,
     IReadOnlyList<PlateConfirmation> Confirmations,
-    RunFigures Figures)
+    RunFigures Figures,
+    IReadOnlyList<PlateHeat> Heat)
 {
     /// <summary>The design the user has today (or the baseline where the file gives none).</summary>
     public Baseline Reference => Baselines[0];
@@ -29,6 +30,9 @@ public sealed record RunResult(
 
     /// <summary>The chosen plate of a part confirmed with the model its validity calls for, if it is a plate.</summary>
     public PlateConfirmation? Confirmation(string partName) => Confirmations.FirstOrDefault(c => c.PartName == partName);
+
+    /// <summary>The coupled temperature of a part's chosen or reference plate, where the part has [parts.thermal].</summary>
+    public PlateHeat? HeatOf(string partName, DesignRole role) => Heat.FirstOrDefault(h => h.PartName == partName && h.Role == role);
 
     /// <summary>The evaluated option behind a candidate id.</summary>
     public EvaluatedOption Option(string id) => Parts.SelectMany(p => p.Options).First(o => o.Id == id);

@@ -38,27 +38,35 @@ public static class PlateHeating
         Solve(geometry, grid, sheetAtReference, material, cooling, model =>
         {
             double g = sheetAtReference.SheetConductanceS;
-            var mean = new double[model.Lattice.CellCount];
-            var losses = new double[offsetsXM.Count];
-            var iterations = new int[offsetsXM.Count];
-            UnitConductanceSolution? peak = null;
-            var notes = new List<string>();
-            for (int k = 0; k < offsetsXM.Count; k++)
-            {
-                var one = ResistanceLimitedSolver.SolveMoving(model, poles, [offsetsXM[k]], criterion);
-                var cells = CellLossMap.Of(one.Peak, g);
-                var edges = new double[cells.Length];
-                poles.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k], edges);    // the pole edges' sub-cell loss, in the cells that hold them
-                for (int c = 0; c < cells.Length; c++) cells[c] += g * edges[c];
-                for (int c = 0; c < mean.Length; c++) mean[c] += cells[c] / offsetsXM.Count;
-                losses[k] = one.LossPerSiemensW[0];
-                iterations[k] = one.IterationsPerOffset[0];
-                if (peak is null || losses[k] > peak.LossPerSiemensW) peak = one.Peak;
-                foreach (var n in one.Notes) if (!notes.Contains(n)) notes.Add(n);
-            }
-            var sweep = new MovingSweepSolution(offsetsXM.ToArray(), losses, iterations, poles.SpeedMPerS, peak!, notes);
-            return (mean, sweep.MeanLossW(g), null, sweep);
+            var (unitMap, sweep) = MeanCellLoss(model, poles, offsetsXM, criterion);
+            return (unitMap.Select(p => p * g).ToArray(), sweep.MeanLossW(g), null, sweep);
         });
+
+    /// <summary>
+    /// Moving poles on one model: the loss per cell at a sheet conductance of 1 S, averaged over the travel offsets
+    /// (each offset solved alone, so its map is at hand), and the sweep of those solves.
+    /// </summary>
+    public static (double[] CellLossPerSiemensW, MovingSweepSolution Sweep) MeanCellLoss(SheetModel model, MovingPoles poles, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion = null)
+    {
+        var mean = new double[model.Lattice.CellCount];
+        var losses = new double[offsetsXM.Count];
+        var iterations = new int[offsetsXM.Count];
+        UnitConductanceSolution? peak = null;
+        var notes = new List<string>();
+        for (int k = 0; k < offsetsXM.Count; k++)
+        {
+            var one = ResistanceLimitedSolver.SolveMoving(model, poles, [offsetsXM[k]], criterion);
+            var cells = CellLossMap.Of(one.Peak, 1.0);
+            var edges = new double[cells.Length];
+            poles.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k], edges);    // the pole edges' sub-cell loss, in the cells that hold them
+            for (int c = 0; c < mean.Length; c++) mean[c] += (cells[c] + edges[c]) / offsetsXM.Count;
+            losses[k] = one.LossPerSiemensW[0];
+            iterations[k] = one.IterationsPerOffset[0];
+            if (peak is null || losses[k] > peak.LossPerSiemensW) peak = one.Peak;
+            foreach (var n in one.Notes) if (!notes.Contains(n)) notes.Add(n);
+        }
+        return (mean, new MovingSweepSolution(offsetsXM.ToArray(), losses, iterations, poles.SpeedMPerS, peak!, notes));
+    }
 
     private static HeatedPlate Solve(PlateGeometry geometry, GridOptions? grid, ConductingSheet sheet, ThermalMaterial material, PlateCooling cooling,
         Func<SheetModel, (double[] CellLossW, double LossW, UnitConductanceSolution? Ac, MovingSweepSolution? Sweep)> eddy)
