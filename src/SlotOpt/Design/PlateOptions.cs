@@ -1,4 +1,5 @@
 using System.Globalization;
+using SlotOpt.Design.Limits;
 using SlotOpt.Materials;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
@@ -19,26 +20,27 @@ public static class PlateOptions
 
     public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null)
     {
-        limits ??= EvaluationLimits.Default;
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM);
+        limits = (limits ?? EvaluationLimits.Default).Started(out var ownDeadline);
+        using var _ = ownDeadline;
+        var deadline = limits.Deadline!;
         var geometries = SlotChoices(part).ToList();
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count);
         var solvedGeometries = new SolvedGeometry[geometries.Count];
-        var clock = System.Diagnostics.Stopwatch.StartNew();
         var done = 0;
         var failures = new Exception?[geometries.Count];
         Parallel.For(0, geometries.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(limits.Threads, 1) }, (i, loop) =>
         {
             try
             {
-                limits.CheckTime(clock, Volatile.Read(ref done), geometries.Count);
-                solvedGeometries[i] = Solve(part, geometries[i], limits);
+                var phase = $"the plate solves of part {part.Name} ({Volatile.Read(ref done)} of {geometries.Count} done)";
+                solvedGeometries[i] = deadline.Run(phase, () => Solve(part, geometries[i], limits));
                 Interlocked.Increment(ref done);
                 solved?.Report(1);
             }
             catch (Exception e)
             {
                 failures[i] = e;
-                if (e is ResourceLimitException) loop.Stop();
+                if (e is ResourceLimitException or OperationCanceledException) loop.Stop();
             }
         });
         // the first failure in geometry order, rethrown as itself (not wrapped), so the message and exit code are the same on every run
@@ -93,11 +95,13 @@ public static class PlateOptions
         }
     }
 
-    /// <summary>The solver model of one slot geometry: the part's cell size, automatic grids capped by the memory limit.</summary>
+    /// <summary>The solver model of one slot geometry: the part's cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits)
     {
         var grid = new GridOptions { CellSizeM = part.CellSizeM };
-        return SheetModel.Build(geometry, grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) });
+        var cap = limits.CellCap(SlotChoices(part).Count());
+        if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
+        return SheetModel.Build(geometry, grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) });
     }
 
     /// <summary>
@@ -109,8 +113,12 @@ public static class PlateOptions
             .Offsets(part.Outline, slots?.PitchM ?? (part.SlotFamilies.Count > 0 ? part.SlotFamilies.SelectMany(f => f.PitchesM).Max() : null));
 
     /// <summary>Evaluates one fixed design of the plate (which need not lie in the part's slot families).</summary>
-    public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop) =>
-        Scale(part, Solve(part, choice.Slots), choice.ThicknessM, library.GetConductor(choice.Material, part.Name), shop.Processes[choice.Process], shop);
+    public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop, EvaluationLimits? limits = null)
+    {
+        limits ??= EvaluationLimits.Default;
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1);
+        return Scale(part, Solve(part, choice.Slots, limits), choice.ThicknessM, library.GetConductor(choice.Material, part.Name), shop.Processes[choice.Process], shop);
+    }
 
     /// <summary>Scales a unit-conductance solve to one thickness and material and prices it with one process.</summary>
     public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, CuttingProcess process, ManufacturingSettings shop)

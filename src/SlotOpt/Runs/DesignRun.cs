@@ -1,3 +1,4 @@
+using SlotOpt.Design.Limits;
 using SlotOpt.Design;
 using SlotOpt.Selection;
 using SlotOpt.Selection.Search;
@@ -10,11 +11,18 @@ namespace SlotOpt.Runs;
 /// </summary>
 public static class DesignRun
 {
+    /// <param name="limits">Threads, memory and wall time; the time limit covers every phase (evaluation, selection,
+    /// confirmation with its speed sweep, the figures) and, when the caller started the deadline, whatever the caller does after.</param>
     public static RunResult Execute(Problem problem, CpSatSettings? settings = null, IProgress<int>? geometrySolved = null, EvaluationLimits? limits = null)
     {
+        limits = (limits ?? EvaluationLimits.Default).Started(out var ownDeadline);
+        using var _ = ownDeadline;
+        var deadline = limits.Deadline!;
         var evaluated = CandidateEvaluation.Evaluate(problem, geometrySolved, limits);
         var selection = CandidateEvaluation.ToSelectionProblem(problem, evaluated.Parts);
-        var outcome = new CpSatSelector(settings).Select(selection, new SelectionOptions { IncludeFront = true });
+        // the remaining time is CP-SAT's wall limit too; should it bind, the deadline has passed and the check after the phase ends the run
+        var search = (settings ?? new CpSatSettings()) with { MaxWallSeconds = Math.Max(deadline.RemainingSeconds, 1e-3) };
+        var outcome = deadline.Run("the selection", () => new CpSatSelector(search).Select(selection, new SelectionOptions { IncludeFront = true }));
         IReadOnlyList<EvaluatedOption>? chosen = null;
         var confirmations = new List<PlateConfirmation>();
         if (outcome.Design is { } design)
@@ -24,9 +32,9 @@ public static class DesignRun
             // screen with the fast resistance-limited model, confirm the chosen plates with the model their validity calls for
             foreach (var option in chosen)
                 if (problem.Parts.First(p => p.Name == option.PartName) is PlatePart plate && option.Choice is PlateChoice choice)
-                    confirmations.Add(PlateConfirmation.Confirm(plate, choice, problem.Library, limits));
+                    confirmations.Add(deadline.Run($"the confirmation of part {plate.Name}", () => PlateConfirmation.Confirm(plate, choice, problem.Library, limits)));
         }
-        var figures = RunFigures.Compute(problem, evaluated.Parts, chosen, limits);
+        var figures = deadline.Run("the report's figures", () => RunFigures.Compute(problem, evaluated.Parts, chosen, limits));
         return new RunResult(problem, evaluated.Parts, outcome, chosen, Baselines(problem, evaluated.Parts), evaluated.SheetSolves, evaluated.Seconds, confirmations, figures);
     }
 
