@@ -37,6 +37,7 @@ public static class FitCommand
             var path = parseResult.GetValue(file)!;
             var data = deadline.Run("reading the measurements", () => LossMeasurementCsv.Read(path));
             var fit = deadline.Run("the fit", () => LossCoefficientFit.Fit(data, d, rho, rhoM, mu));
+            foreach (var warning in fit.Warnings) error.WriteLine($"warning: {warning}");
             if (parseResult.GetValue(json))
             {
                 output.Write(JsonFormat.Serialize(new
@@ -45,6 +46,7 @@ public static class FitCommand
                     kh_standard_error = fit.HysteresisCoefficientError, alpha_standard_error = fit.HysteresisExponentError,
                     ke_standard_error = fit.ExcessCoefficientError, kc = fit.ClassicalCoefficient,
                     r_squared = fit.RSquared, worst_relative_error = fit.WorstRelativeError, points = data.Count,
+                    warnings = fit.Warnings,
                 }));
                 return ExitCodes.Success;
             }
@@ -56,6 +58,7 @@ public static class FitCommand
             o.WriteLine(string.Create(ci, $"  ke    = {fit.ExcessCoefficient:0.00000000} +/- {fit.ExcessCoefficientError:0.00000000} W/(kg (T/s)^1.5)"));
             o.WriteLine(string.Create(ci, $"  kc    = {fit.ClassicalCoefficient:0.000e+00} W/(kg Hz^2 T^2) (from theory, fixed{(mu is null ? "" : $", skin corrected at mu_r {mu}")})"));
             o.WriteLine(string.Create(ci, $"  R^2 = {fit.RSquared:0.00000}, worst relative error {fit.WorstRelativeError * 100:0.00} %"));
+            if (fit.Warnings.Count > 0) o.WriteLine($"  {fit.Warnings.Count} warning(s), printed above: read them before using these coefficients");
             return ExitCodes.Success;
         }));
         return command;

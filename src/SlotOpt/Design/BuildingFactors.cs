@@ -1,0 +1,35 @@
+using System.Reflection;
+using SlotOpt.Materials;
+using SlotOpt.Reports;
+using SlotOpt.Tables;
+
+namespace SlotOpt.Design;
+
+/// <summary>
+/// Building factor BF = P_core / (P_specific(B, f) x m_core): what joints, non-uniform and rotating flux add to the
+/// loss the steel shows in an Epstein or single-sheet test (S. Zurek, "Building factor", Encyclopedia Magnetica).
+/// Defaults per construction and steel family in Design/Data/building-factors.csv, each row with its source.
+/// </summary>
+public static class BuildingFactors
+{
+    public sealed record Entry(double Factor, string Source);
+
+    /// <summary>The default building factor, or null where the table has none (grain-oriented steel across its rolling direction).</summary>
+    public static Entry? Default(CoreConstruction construction, SteelFamily family)
+    {
+        var key = (CoreConstructionWords.Word(construction), family == SteelFamily.GrainOriented ? "GO" : "NO");
+        return Table.Value.TryGetValue(key, out var entry) ? entry : null;
+    }
+
+    private static readonly Lazy<IReadOnlyDictionary<(string, string), Entry>> Table = new(Load);
+
+    private static IReadOnlyDictionary<(string, string), Entry> Load()
+    {
+        const string resource = "SlotOpt.Design.building-factors.csv";
+        using var stream = Assembly.GetExecutingAssembly().GetManifestResourceStream(resource)
+            ?? throw new InvalidOperationException($"embedded data file {resource} is missing from the build");
+        using var reader = new StreamReader(stream);
+        var table = CsvTable.Parse(reader.ReadToEnd(), "built-in building-factors.csv");
+        return table.Rows.ToDictionary(r => (r.Text("construction"), r.Text("family")), r => new Entry(r.Number("building_factor"), r.Text("source")));
+    }
+}
