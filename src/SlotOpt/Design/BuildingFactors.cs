@@ -1,6 +1,4 @@
-using System.Reflection;
 using SlotOpt.Materials;
-using SlotOpt.Reports;
 using SlotOpt.Tables;
 
 namespace SlotOpt.Design;
@@ -23,13 +21,7 @@ public static class BuildingFactors
 
     private static readonly Lazy<IReadOnlyDictionary<(string, string), Entry>> Table = new(Load);
 
-    private static IReadOnlyDictionary<(string, string), Entry> Load()
-    {
-        const string resource = "SlotOpt.Design.building-factors.csv";
-        using var stream = Assembly.GetExecutingAssembly().GetManifestResourceStream(resource)
-            ?? throw new InvalidOperationException($"embedded data file {resource} is missing from the build");
-        using var reader = new StreamReader(stream);
-        var table = CsvTable.Parse(reader.ReadToEnd(), "built-in building-factors.csv");
-        return table.Rows.ToDictionary(r => (r.Text("construction"), r.Text("family")), r => new Entry(r.Number("building_factor"), r.Text("source")));
-    }
+    private static IReadOnlyDictionary<(string, string), Entry> Load() =>
+        EmbeddedData.ReadCsv("Design", "building-factors.csv").Rows
+            .ToDictionary(r => (r.Text("construction"), r.Text("family")), r => new Entry(r.Number("building_factor"), r.Text("source")));
 }
