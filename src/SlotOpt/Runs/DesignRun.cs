@@ -1,5 +1,6 @@
 using SlotOpt.Design.Limits;
 using SlotOpt.Design;
+using SlotOpt.Design.Cores;
 using SlotOpt.Selection;
 using SlotOpt.Selection.Search;
 
