@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using SlotOpt.Design.Limits;
 using SlotOpt.Input;
 using SlotOpt.Lamination;
 using SlotOpt.Materials;
@@ -22,9 +23,14 @@ public static class CoreLossCommand
         var json = new Option<bool>("--json") { Description = "Print one JSON object" };
         var command = new Command("core-loss", "Specific loss of a lamination grade: hysteresis, classical eddy (skin and width corrected) and excess");
         foreach (var o in new Option[] { grade, peak, frequency, width, temperature, waveform, json }) command.Options.Add(o);
+        var limitOptions = new RunLimitOptions();
+        limitOptions.AddTo(command, parallel: false, search: false);
 
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
+            var limits = limitOptions.Start(parseResult);
+            using var deadline = limits.Deadline!;
+            limits.CheckMemory("the command", MemoryModel.Margin * MemoryModel.RuntimeBytes, "the process alone needs more; there is nothing to make smaller");
             var steel = MaterialLibrary.BuiltIn.GetSteel(parseResult.GetValue(grade)!, "--grade");
             var f = QuantityOption.ReadPositive(parseResult, frequency, QuantityKind.Frequency)!.Value;
             var bp = QuantityOption.Read(parseResult, peak, QuantityKind.FluxDensity);
@@ -44,13 +50,13 @@ public static class CoreLossCommand
             }
             else
             {
-                var shape = WaveformCsv.Read(file, f);
+                var shape = deadline.Run("reading the waveform", () => WaveformCsv.Read(file, f));
                 flux = bp is { } target
                     ? (shape.PeakT > 0 ? shape.Scaled(target / shape.PeakT) : throw new InputException($"{file}: the waveform is zero everywhere; it cannot be scaled to --peak"))
                     : shape;
             }
 
-            var loss = LaminationLossModel.Evaluate(steel, flux, conditions);
+            var loss = deadline.Run("the loss of the waveform", () => LaminationLossModel.Evaluate(steel, flux, conditions));
             if (parseResult.GetValue(json))
             {
                 output.Write(JsonFormat.Serialize(new

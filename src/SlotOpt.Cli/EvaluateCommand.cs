@@ -17,11 +17,16 @@ public static class EvaluateCommand
         var command = new Command("evaluate", "Evaluate the current design of every part (or the baseline: solid plates, the first grade): loss, drag, cost");
         command.Arguments.Add(file);
         command.Options.Add(json);
+        var limitOptions = new RunLimitOptions();
+        limitOptions.AddTo(command, parallel: false, search: false);
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
+            var limits = limitOptions.Start(parseResult) with { Threads = 1 };   // the parts are evaluated one after another
+            using var deadline = limits.Deadline!;
             var problem = ProblemReader.ReadFile(parseResult.GetValue(file)!);
             foreach (var w in problem.Warnings) error.WriteLine($"warning: {w}");
-            var rows = problem.Parts.Select(p => (Part: p, Option: ReferenceDesigns.CurrentOrBaseline(p, problem), IsCurrent: ReferenceDesigns.IsCurrent(p))).ToList();
+            var rows = deadline.Run("the evaluation", () => problem.Parts
+                .Select(p => (Part: p, Option: ReferenceDesigns.CurrentOrBaseline(p, problem, limits), IsCurrent: ReferenceDesigns.IsCurrent(p))).ToList());
             var totalLoss = rows.Sum(r => r.Option.Loss.TotalW);
             var totalCost = rows.Sum(r => r.Option.BuildCost);
             var owning = problem.OwningCost(rows.Select(r => r.Option));

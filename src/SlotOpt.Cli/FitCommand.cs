@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using SlotOpt.Design.Limits;
 using SlotOpt.Input;
 using SlotOpt.Lamination;
 using SlotOpt.Reports;
@@ -20,17 +21,22 @@ public static class FitCommand
         var command = new Command("fit", "Fit hysteresis (kh, alpha) and excess (ke) coefficients to measured losses; classical term from theory");
         command.Arguments.Add(file);
         foreach (var o in new Option[] { thickness, resistivity, density, permeability, json }) command.Options.Add(o);
+        var limitOptions = new RunLimitOptions();
+        limitOptions.AddTo(command, parallel: false, search: false);
 
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
+            var limits = limitOptions.Start(parseResult);
+            using var deadline = limits.Deadline!;
+            limits.CheckMemory("the command", MemoryModel.Margin * MemoryModel.RuntimeBytes, "the process alone needs more; there is nothing to make smaller");
             var d = QuantityOption.ReadPositive(parseResult, thickness, QuantityKind.Length)!.Value;
             var rho = QuantityOption.ReadPositive(parseResult, resistivity, QuantityKind.Resistivity)!.Value;
             var rhoM = QuantityOption.ReadPositive(parseResult, density, QuantityKind.Density)!.Value;
             var mu = parseResult.GetValue(permeability);
             if (mu is { } m && !(m >= 1)) throw new InputException($"--permeability: must be 1 or more, got {m}");
             var path = parseResult.GetValue(file)!;
-            var data = LossMeasurementCsv.Read(path);
-            var fit = LossCoefficientFit.Fit(data, d, rho, rhoM, mu);
+            var data = deadline.Run("reading the measurements", () => LossMeasurementCsv.Read(path));
+            var fit = deadline.Run("the fit", () => LossCoefficientFit.Fit(data, d, rho, rhoM, mu));
             foreach (var warning in fit.Warnings) error.WriteLine($"warning: {warning}");
             if (parseResult.GetValue(json))
             {

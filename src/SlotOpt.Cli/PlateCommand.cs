@@ -31,10 +31,14 @@ public static class PlateCommand
         command.Options.Add(json);
         command.Options.Add(map);
         command.Options.Add(model);
+        var limitOptions = new RunLimitOptions();
+        limitOptions.AddTo(command, parallel: false, search: false);
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
+            var limits = limitOptions.Start(parseResult);
+            using var deadline = limits.Deadline!;
             var plate = PlateFileReader.Read(parseResult.GetValue(file)!);
-            var evaluation = PlateFileEvaluation.Evaluate(plate, forcedKind: ModelKind(parseResult.GetValue(model)!));
+            var evaluation = deadline.Run("the plate solve", () => PlateFileEvaluation.Evaluate(plate, forcedKind: ModelKind(parseResult.GetValue(model)!), limits: limits));
             var mapPath = parseResult.GetValue(map);
             if (!string.IsNullOrEmpty(mapPath)) WriteMap(evaluation.Result.Map, mapPath);
             output.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));

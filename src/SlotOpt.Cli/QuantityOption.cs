@@ -15,6 +15,7 @@ public static class QuantityOption
         var text = parseResult.GetValue(option);
         if (text is null) return null;
         if (!QuantityParser.TryParse(text, kind, out var si, out var error)) throw new InputException($"{option.Name}: {error}");
+        if (PhysicalRange.Violation(si, kind) is { } beyond) throw new InputException($"{option.Name}: {beyond}");
         return si;
     }
 

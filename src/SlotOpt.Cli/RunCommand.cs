@@ -1,5 +1,7 @@
 using System.CommandLine;
 using System.Runtime.InteropServices;
+using SlotOpt.Design.Limits;
+using SlotOpt.Design;
 using SlotOpt.Input;
 using SlotOpt.Reports;
 using SlotOpt.Runs;
@@ -25,7 +27,8 @@ public static class RunCommand
         limits.AddTo(command);
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
-            var evaluationLimits = limits.Evaluation(parseResult);   // flags first: a bad flag is reported before any work
+            var evaluationLimits = limits.Start(parseResult);   // flags first: a bad flag is reported before any work
+            using var deadline = evaluationLimits.Deadline!;
             var reportDir = parseResult.GetValue(outDir);
             var replace = parseResult.GetValue(force);
             if (replace && reportDir is null) throw new InputException("--force only applies with --out DIR");
@@ -39,7 +42,7 @@ public static class RunCommand
             else RunText.Write(result, output);
             if (reportDir is not null)
             {
-                if (WriteReport(result, reportDir, replace) is { } signalExit)
+                if (WriteReport(result, reportDir, replace, deadline) is { } signalExit)
                 {
                     error.WriteLine("interrupted: the report was not written");
                     return signalExit;
@@ -62,10 +65,13 @@ public static class RunCommand
     /// <summary>
     /// Writes the report atomically. SIGINT or SIGTERM while it is written deletes the unfinished folder
     /// (the handlers are in place before the folder is made) and returns the exit code; null when written.
+    /// The time limit passing while it is written deletes the folder too, and ends the run with the limit's error.
     /// </summary>
-    private static int? WriteReport(RunResult result, string reportDir, bool replace)
+    private static int? WriteReport(RunResult result, string reportDir, bool replace, RunDeadline deadline)
     {
+        deadline.Check("the report");
         using var folder = ReportFolder.Begin(reportDir, replace);
+        using var onDeadline = deadline.Token.Register(folder.Abandon);
         int? signalExit = null;
         void Stop(PosixSignalContext context, int exitCode)
         {
@@ -83,6 +89,10 @@ public static class RunCommand
         catch (InvalidOperationException) when (signalExit is not null)
         {
             return signalExit;   // the folder was abandoned under the writer
+        }
+        catch (InvalidOperationException) when (deadline.Token.IsCancellationRequested)
+        {
+            throw deadline.Passed("the report");   // abandoned under the writer by the deadline
         }
     }
 }

@@ -1,4 +1,5 @@
 using System.CommandLine;
+using SlotOpt.Design.Limits;
 using SlotOpt.Design;
 using SlotOpt.Input;
 using SlotOpt.Selection;
@@ -9,16 +10,25 @@ namespace SlotOpt.Cli;
 public sealed class RunLimitOptions
 {
     private readonly Option<int?> threads = new("--threads") { Description = "Plate solves at once (default: the number of cores); results do not depend on it" };
-    private readonly Option<string> maxMemory = QuantityOption.Create("--max-memory", "Memory the plate solves may take, e.g. 4GB (default 4 GiB); a bigger grid is refused before it is built");
-    private readonly Option<string> timeLimit = QuantityOption.Create("--time-limit", "Wall time the evaluation may take, e.g. \"10 min\" (default 1 h); past it the run stops with exit code 5");
+    private readonly Option<string> maxMemory = QuantityOption.Create("--max-memory", "Memory the solves may take, e.g. 4GB (default 4 GiB); a run whose estimate is larger is refused before anything is built");
+    private readonly Option<string> timeLimit = QuantityOption.Create("--time-limit", "Wall time the command may take, every phase and the report included, e.g. \"10 min\" (default 1 h); past it the command stops with exit code 5 and writes nothing");
     private readonly Option<double?> searchBudget = new("--search-budget") { Description = "Deterministic seconds each CP-SAT call may take (default 10); reproducible on any machine" };
 
-    public void AddTo(Command command)
+    /// <param name="parallel">The command solves several plates at once (--threads).</param>
+    /// <param name="search">The command runs the CP-SAT search (--search-budget).</param>
+    public void AddTo(Command command, bool parallel = true, bool search = true)
     {
-        command.Options.Add(threads);
+        if (parallel) command.Options.Add(threads);
         command.Options.Add(maxMemory);
         command.Options.Add(timeLimit);
-        command.Options.Add(searchBudget);
+        if (search) command.Options.Add(searchBudget);
+    }
+
+    /// <summary>The limits with the wall-time deadline started now (the command's start); the caller disposes <see cref="EvaluationLimits.Deadline"/>.</summary>
+    public EvaluationLimits Start(ParseResult parseResult)
+    {
+        var limits = Evaluation(parseResult);
+        return limits with { Deadline = new RunDeadline(limits.MaxSeconds) };
     }
 
     public EvaluationLimits Evaluation(ParseResult parseResult)

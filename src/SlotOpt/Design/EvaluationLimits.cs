@@ -1,12 +1,12 @@
-using System.Diagnostics;
+using SlotOpt.Design.Limits;
 using SlotOpt.Plates.Geometry;
-using SlotOpt.Plates.Grid;
 
 namespace SlotOpt.Design;
 
 /// <summary>
 /// How much machine an evaluation may use: threads for the plate solves, memory (checked against the
-/// solver's measured bytes per cell before each grid is built) and wall time (checked between solves).
+/// solver's measured bytes per cell before each grid is built) and wall time (<see cref="Deadline"/>: checked between
+/// phases and between solves, and inside every iterative solve).
 /// </summary>
 public sealed record EvaluationLimits
 {
@@ -21,27 +21,48 @@ public sealed record EvaluationLimits
     /// <summary>Wall time the evaluation may take (seconds); default one hour.</summary>
     public double MaxSeconds { get; init; } = 3600;
 
-    /// <summary>Cells one grid may have so that Threads grids fit in MaxMemoryBytes.</summary>
-    public long MaxCellsPerSolve => (long)(MaxMemoryBytes / (GridOptions.BytesPerCellEstimate * Math.Max(Threads, 1)));
+    /// <summary>The wall-time limit of the run in progress; null until a run starts it (<see cref="Started"/>).</summary>
+    public RunDeadline? Deadline { get; init; }
 
-    /// <summary>Throws when the estimated memory of an explicit grid exceeds the limit.</summary>
-    public void CheckGrid(string partName, Polygon outline, double? cellSizeM)
+    /// <summary>These limits with their deadline running: the caller's, or a new one (owned, and so disposed, by the caller).</summary>
+    public EvaluationLimits Started(out RunDeadline? owned)
+    {
+        owned = Deadline is null ? new RunDeadline(MaxSeconds) : null;
+        return owned is null ? this : this with { Deadline = owned };
+    }
+
+    /// <summary>
+    /// Cells one solve may have so that the run fits in MaxMemoryBytes (<see cref="MemoryModel"/>): the screening of a part with
+    /// <paramref name="geometries"/> slot geometries, and the own-field confirmation at its largest padded lattice (4 x 4 times the cells).
+    /// </summary>
+    public long CellCap(int geometries)
+    {
+        geometries = Math.Max(geometries, 1);
+        double room = MaxMemoryBytes / MemoryModel.Margin - MemoryModel.RuntimeBytes;
+        if (room <= 0) return 0;
+        double screening = room / (geometries * MemoryModel.ModelBytesPerCell + Math.Min(Threads, geometries) * MemoryModel.SolveBytesPerCell);
+        double ownField = room / (MemoryModel.ModelBytesPerCell + MemoryModel.SolveBytesPerCell + MemoryModel.GmresBytesPerCell + 16 * MemoryModel.OwnFieldBytesPerPaddedCell);
+        return (long)Math.Min(screening, ownField);
+    }
+
+    /// <summary>Throws, before anything is built, when an estimate (<see cref="MemoryModel"/>) is over the limit.</summary>
+    public void CheckMemory(string what, double estimateBytes, string remedy)
+    {
+        if (estimateBytes > MaxMemoryBytes)
+            throw new ResourceLimitException($"{what} needs about {MemoryModel.Words(estimateBytes)} (estimate with margin); the memory limit is {MemoryModel.Words(MaxMemoryBytes)} (--max-memory): {remedy} or raise the limit");
+    }
+
+    /// <summary>Throws when an explicit grid of a part with <paramref name="geometries"/> slot geometries would not fit in memory.</summary>
+    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, int geometries)
     {
         if (cellSizeM is not { } h) return;
         var (min, max) = outline.Bounds;
-        var cells = Math.Ceiling((max.X - min.X) / h) * Math.Ceiling((max.Y - min.Y) / h);
-        if (cells > MaxCellsPerSolve)
-            throw new ResourceLimitException(
-                $"part {partName}: a {h * 1e3:G4} mm grid needs {cells:E2} cells, about {Bytes(cells * GridOptions.BytesPerCellEstimate * Threads)} for {Threads} solves at once; " +
-                $"the memory limit is {Bytes(MaxMemoryBytes)} (--max-memory): choose a larger cell, fewer threads or a higher limit");
-    }
-
-    private static string Bytes(double bytes) => bytes >= 1e9 ? $"{bytes / 1e9:F1} GB" : $"{bytes / 1e6:F1} MB";
-
-    /// <summary>Throws when the evaluation has run past its wall-time limit.</summary>
-    public void CheckTime(Stopwatch clock, int done, int total)
-    {
-        if (clock.Elapsed.TotalSeconds > MaxSeconds)
-            throw new ResourceLimitException($"the evaluation passed its time limit of {MaxSeconds:0.#} s (--time-limit) after {done} of {total} plate solves; raise the limit or coarsen the grid");
+        var (nx, ny) = (Math.Ceiling((max.X - min.X) / h), Math.Ceiling((max.Y - min.Y) / h));
+        var cells = (long)Math.Min(nx * ny, long.MaxValue / 2);
+        geometries = Math.Max(geometries, 1);
+        var screening = MemoryModel.Screening(cells, geometries, Threads);
+        var estimate = Math.Max(screening, MemoryModel.OwnField((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4)));
+        CheckMemory($"part {partName}: a {h * 1e3:G4} mm grid ({cells:E2} cells, {geometries} slot geometries kept, {Math.Min(Threads, geometries)} solved at once)",
+            estimate, "choose a larger cell, fewer slot choices or fewer threads");
     }
 }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using SlotOpt.Design.Limits;
 using SlotOpt.Materials;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
@@ -22,28 +23,29 @@ public static class PlateOptions
 
     public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null)
     {
-        limits ??= EvaluationLimits.Default;
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM);
+        limits = (limits ?? EvaluationLimits.Default).Started(out var ownDeadline);
+        using var _ = ownDeadline;
+        var deadline = limits.Deadline!;
         var geometries = SlotChoices(part).ToList();
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count);
         var solvedGeometries = new SolvedGeometry[geometries.Count];
         var heat = new Dictionary<(double, string), TemperatureBracket.Outcome>[geometries.Count];
-        var clock = System.Diagnostics.Stopwatch.StartNew();
         var done = 0;
         var failures = new Exception?[geometries.Count];
         Parallel.For(0, geometries.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(limits.Threads, 1) }, (i, loop) =>
         {
             try
             {
-                limits.CheckTime(clock, Volatile.Read(ref done), geometries.Count);
-                solvedGeometries[i] = Solve(part, geometries[i], limits);
-                heat[i] = Heat(part, solvedGeometries[i], library, limits);
+                var phase = $"the plate solves of part {part.Name} ({Volatile.Read(ref done)} of {geometries.Count} done)";
+                solvedGeometries[i] = deadline.Run(phase, () => Solve(part, geometries[i], limits));
+                heat[i] = deadline.Run(phase, () => Heat(part, solvedGeometries[i], library, limits));
                 Interlocked.Increment(ref done);
                 solved?.Report(1);
             }
             catch (Exception e)
             {
                 failures[i] = e;
-                if (e is ResourceLimitException) loop.Stop();
+                if (e is ResourceLimitException or OperationCanceledException) loop.Stop();
             }
         });
         // the first failure in geometry order, rethrown as itself (not wrapped), so the message and exit code are the same on every run
@@ -141,14 +143,16 @@ public static class PlateOptions
         }
     }
 
-    /// <summary>The solver model of one slot geometry: the part's cell size (automatic: resolving the plate's and the poles' features), automatic grids capped by the memory limit.</summary>
+    /// <summary>The solver model of one slot geometry: the part's cell size (automatic: resolving the plate's and the poles' features), automatic grids capped so that the part's run fits the memory limit.</summary>
     public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits) => SheetModel.Build(geometry, GridOf(part, limits));
 
-    /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped by the memory limit.</summary>
+    /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
         var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Poles.GridFeatures : [] };
-        return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, limits.MaxCellsPerSolve) };
+        var cap = limits.CellCap(SlotChoices(part).Count());
+        if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
+        return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };
     }
 
     /// <summary>
@@ -163,6 +167,7 @@ public static class PlateOptions
     public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1);
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits) : null;

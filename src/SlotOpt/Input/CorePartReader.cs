@@ -19,6 +19,7 @@ public static class CorePartReader
         var name = s.RequiredString("name");
         s.OptionalString("kind");
         var grades = s.StringList("grades", required: true) ?? [];
+        PlatePartReader.RejectDuplicates(s, "grades", grades);
         var validGrades = new List<string>();
         foreach (var g in grades)
         {
@@ -93,6 +94,7 @@ public static class CorePartReader
     private static List<string> ReadProcesses(TomlSection s, ManufacturingSettings shop)
     {
         var names = s.StringList("processes", required: false) ?? ["punching"];
+        PlatePartReader.RejectDuplicates(s, "processes", names);
         var valid = new List<string>();
         foreach (var p in names)
         {

@@ -76,6 +76,8 @@ public static class MaterialOverridesReader
         double? Q(string key, QuantityKind kind, double? fallback) => s.PositiveQuantity(key, kind, required: need) ?? fallback;
         var alpha = s.OptionalNumber("alpha_20");
         if (need && alpha is null) s.Error("alpha_20", "missing (required without based_on): temperature coefficient at 20 degC, 1/K");
+        // metals' resistivity rises with temperature; a negative coefficient would make a hot plate conduct better (and reach zero resistivity)
+        if (alpha is { } a && !(a >= 0 && a < 0.1)) s.Error("alpha_20", $"must be between 0 and 0.1 per K (copper 0.00393), got {a}");
         var mu = s.OptionalNumber("relative_permeability");
         if (mu is < 1) s.Error("relative_permeability", "must be 1 or more");
         var modelText = s.OptionalChoice("temperature_model", ["linear", "matthiessen-Cu", "matthiessen-Al", "matthiessen-Fe"]);

@@ -41,6 +41,7 @@ public static class PlateFileReader
         var (geometry, conductor) = plate is null ? (null, null) : ReadPlate(plate);
         var gridSection = root.OptionalTable("grid");
         var grid = gridSection is null ? new GridOptions() : ReadGrid(gridSection);
+        if (gridSection is not null && geometry is not null) PlatePartReader.CheckCellCount(gridSection, grid.CellSizeM, geometry.Outline);
         var cutouts = root.TableArray("cutout", required: false);
         var slots = root.TableArray("slots", required: false);
         var cuts = root.TableArray("cut", required: false);

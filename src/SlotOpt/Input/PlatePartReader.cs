@@ -2,6 +2,7 @@ using SlotOpt.Design;
 using SlotOpt.Input.Toml;
 using SlotOpt.Materials;
 using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
 using SlotOpt.Tables;
 
 namespace SlotOpt.Input;
@@ -32,6 +33,7 @@ public static class PlatePartReader
         var grid = s.OptionalTable("grid");
         var cell = grid?.PositiveQuantity("cell", QuantityKind.Length, required: false);
         grid?.RejectUnknownKeys();
+        if (grid is not null && outline is not null) CheckCellCount(grid, cell, outline);
         var sourceSection = s.RequiredTable("source");
         var excitation = sourceSection is null ? null : PlateSourceReader.Read(sourceSection, outline, baseDirectory);
         var families = s.TableArray("slots", required: false).Select(f => ReadFamily(f, shop, processes, outline)).OfType<SlotFamily>().ToList();
@@ -75,6 +77,7 @@ public static class PlatePartReader
     private static List<string> ReadMaterials(TomlSection s, MaterialLibrary library)
     {
         var names = s.StringList("materials", required: true) ?? [];
+        RejectDuplicates(s, "materials", names);
         var valid = new List<string>();
         foreach (var m in names)
         {
@@ -88,6 +91,7 @@ public static class PlatePartReader
     {
         var names = s.StringList(key, required: false);
         if (names is null) return null;
+        RejectDuplicates(s, key, names);
         var valid = new List<string>();
         foreach (var p in names)
         {
@@ -95,6 +99,25 @@ public static class PlatePartReader
             else s.Error(key, $"unknown process \"{p}\"{NameSuggestion.DidYouMean(p, shop.Processes.Keys)}; known: {string.Join(", ", shop.Processes.Keys)}");
         }
         return valid;
+    }
+
+    /// <summary>An explicit cell beyond the solver's hard limit of cells (<see cref="GridOptions.MaxCells"/>), refused where it is written.</summary>
+    internal static void CheckCellCount(TomlSection grid, double? cellM, Polygon outline)
+    {
+        if (cellM is not { } h) return;
+        var (min, max) = outline.Bounds;
+        var cells = Math.Ceiling((max.X - min.X) / h) * Math.Ceiling((max.Y - min.Y) / h);
+        var limit = new GridOptions().MaxCells;
+        if (cells > limit)
+            grid.Error("cell", string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"a {h * 1e3:G4} mm cell needs {cells:E2} cells over the plate's {(max.X - min.X) * 1e3:G4} x {(max.Y - min.Y) * 1e3:G4} mm; the limit is {limit:N0} cells: choose a larger cell"));
+    }
+
+    /// <summary>A name listed twice would be evaluated twice and counted twice by the selection: refused where it is written.</summary>
+    internal static void RejectDuplicates(TomlSection s, string key, IReadOnlyList<string> names)
+    {
+        foreach (var twice in names.GroupBy(n => n, StringComparer.OrdinalIgnoreCase).Where(g => g.Count() > 1))
+            s.Error(key, $"\"{twice.Key}\" is listed {twice.Count()} times; list each once");
     }
 
     private static SlotFamily? ReadFamily(TomlSection f, ManufacturingSettings shop, IReadOnlyList<string> partProcesses, Polygon? outline)

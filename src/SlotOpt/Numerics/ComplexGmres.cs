@@ -52,6 +52,7 @@ public static class ComplexGmres
             int j = 0;
             for (; j < restart && iterations < criterion.MaxIterations; j++)
             {
+                criterion.ThrowIfCancelled();
                 preconditioner(v[j], z);
                 a(z, w);
                 for (int i = 0; i <= j; i++)

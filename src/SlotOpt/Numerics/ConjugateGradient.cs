@@ -49,6 +49,7 @@ public static class ConjugateGradient
             double rz = Dot(r, z);
             while (iterations < criterion.MaxIterations)
             {
+                criterion.ThrowIfCancelled();
                 a.Multiply(p, q);
                 double pq = Dot(p, q);
                 if (!double.IsFinite(pq) || !double.IsFinite(rz))

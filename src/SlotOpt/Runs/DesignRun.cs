@@ -1,3 +1,4 @@
+using SlotOpt.Design.Limits;
 using SlotOpt.Design;
 using SlotOpt.Design.Cores;
 using SlotOpt.Selection;
@@ -11,8 +12,14 @@ namespace SlotOpt.Runs;
 /// </summary>
 public static class DesignRun
 {
+    /// <param name="limits">Threads, memory and wall time; the time limit covers every phase (evaluation, selection,
+    /// the hot plates' coupled temperatures, confirmation with its speed sweep, the figures) and, when the caller
+    /// started the deadline, whatever the caller does after.</param>
     public static RunResult Execute(Problem problem, CpSatSettings? settings = null, IProgress<int>? geometrySolved = null, EvaluationLimits? limits = null)
     {
+        limits = (limits ?? EvaluationLimits.Default).Started(out var ownDeadline);
+        using var _ = ownDeadline;
+        var deadline = limits.Deadline!;
         var evaluated = CandidateEvaluation.Evaluate(problem, geometrySolved, limits);
         var parts = evaluated.Parts.ToList();
         var heat = new List<PlateHeat>();
@@ -22,20 +29,24 @@ public static class DesignRun
         while (true)
         {
             var selection = CandidateEvaluation.ToSelectionProblem(problem, parts);
-            outcome = new CpSatSelector(settings).Select(selection, new SelectionOptions { IncludeFront = true });
+            // the remaining time is CP-SAT's wall limit too; should it bind, the deadline has passed and the check after the phase ends the run
+            var search = (settings ?? new CpSatSettings()) with { MaxWallSeconds = Math.Max(deadline.RemainingSeconds, 1e-3) };
+            outcome = deadline.Run("the selection", () => new CpSatSelector(search).Select(selection, new SelectionOptions { IncludeFront = true }));
             chosen = null;
             heat.Clear();
             if (outcome.Design is not { } design) break;
             var byId = parts.SelectMany(p => p.Options).ToDictionary(o => o.Id);
-            chosen = design.Choices.Select(c => byId[c.Candidate.Id]).ToList();
+            var picked = design.Choices.Select(c => byId[c.Candidate.Id]).ToList();
+            chosen = picked;
             var broken = new List<(int Part, EvaluatedOption Option, string Reason)>();
             for (var i = 0; i < parts.Count; i++)
             {
                 if (parts[i].Part is not PlatePart { Thermal: not null } hot) continue;
-                var chosenHeat = PlateHeat.Of(hot, chosen[i], DesignRole.Chosen, problem, limits);
+                var part = parts[i];
+                var chosenHeat = deadline.Run($"the temperature of part {hot.Name}", () => PlateHeat.Of(hot, picked[i], DesignRole.Chosen, problem, limits));
                 heat.Add(chosenHeat);
-                heat.Add(PlateHeat.Of(hot, parts[i].Reference, DesignRole.Reference, problem, limits));
-                if (chosenHeat.Breach is { } reason) broken.Add((i, chosen[i], reason));
+                heat.Add(deadline.Run($"the temperature of part {hot.Name}", () => PlateHeat.Of(hot, part.Reference, DesignRole.Reference, problem, limits)));
+                if (chosenHeat.Breach is { } reason) broken.Add((i, picked[i], reason));
             }
             if (broken.Count == 0) break;
             foreach (var (i, option, reason) in broken)
@@ -46,8 +57,8 @@ public static class DesignRun
             // screen with the fast resistance-limited model, confirm the chosen plates with the model their validity calls for
             foreach (var option in chosen)
                 if (problem.Parts.First(p => p.Name == option.PartName) is PlatePart plate && option.Choice is PlateChoice choice)
-                    confirmations.Add(PlateConfirmation.Confirm(plate, choice, problem.Library, limits));
-        var figures = RunFigures.Compute(problem, parts, chosen, heat, limits);
+                    confirmations.Add(deadline.Run($"the confirmation of part {plate.Name}", () => PlateConfirmation.Confirm(plate, choice, problem.Library, limits)));
+        var figures = deadline.Run("the report's figures", () => RunFigures.Compute(problem, parts, chosen, heat, limits));
         return new RunResult(problem, parts, outcome, chosen, Baselines(problem, parts), evaluated.SheetSolves, evaluated.Seconds, confirmations, figures, heat);
     }
 

@@ -1,4 +1,6 @@
 using System.Diagnostics;
+using SlotOpt.Design.Limits;
+using SlotOpt.Design;
 using SlotOpt.Numerics;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Grid;
@@ -35,8 +37,10 @@ public sealed record PlateFileEvaluation(
     public DiscretisationError? GridError { get; init; }
 
     /// <param name="forcedKind">the model asked for (--model); null lets the validity figures choose</param>
-    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
+    /// <param name="limits">Memory: the estimate of the case's solve is checked before anything is built.</param>
+    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null, EvaluationLimits? limits = null)
     {
+        plate = WithinMemory(plate, limits ?? EvaluationLimits.Default);
         if (plate.Thermal is not null)
         {
             if (forcedKind is { } k && k != SheetModelKind.ResistanceLimited)
@@ -73,6 +77,20 @@ public sealed record PlateFileEvaluation(
             _ => null,
         };
         return WithMapNote(grid is null ? result : result with { Notes = result.Notes.Append(grid).ToList() }, solution);
+    }
+
+    /// <summary>The case with an automatic grid capped to fit the memory limit; an explicit grid that does not fit is refused before it is built.</summary>
+    private static PlateCase WithinMemory(PlateCase plate, EvaluationLimits limits)
+    {
+        if (plate.Grid.CellSizeM is { } h)
+        {
+            var (min, max) = plate.Geometry.Bounds;
+            var (nx, ny) = (Math.Ceiling((max.X - min.X) / h), Math.Ceiling((max.Y - min.Y) / h));
+            var estimate = MemoryModel.OwnField((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4));
+            limits.CheckMemory($"{plate.Path}: [grid] cell: a {h * 1e3:G4} mm grid ({nx * ny:E2} cells) solved with the plate's own field", estimate, "choose a larger cell");
+            return plate;
+        }
+        return plate with { Grid = plate.Grid with { MaxAutoCells = Math.Min(plate.Grid.MaxAutoCells, limits.CellCap(1)) } };
     }
 
     private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>

@@ -10,14 +10,14 @@ namespace SlotOpt.Runs;
 /// </summary>
 public static class ReferenceDesigns
 {
-    public static EvaluatedOption CurrentOrBaseline(Part part, Problem problem) => part switch
+    public static EvaluatedOption CurrentOrBaseline(Part part, Problem problem, EvaluationLimits? limits = null) => part switch
     {
         CorePart core => CoreOptions.EvaluateOne(core,
             problem.Library.GetSteel(core.Current?.Grade ?? core.Grades[0], core.Name),
             problem.Shop.Processes[core.Current?.Process ?? core.Processes[0]], problem.Shop),
         PlatePart plate => PlateOptions.EvaluateOne(plate,
             plate.Current ?? new PlateChoice(plate.ThicknessesM[0], plate.Materials[0], plate.Processes[0], null),
-            problem.Library, problem.Shop),
+            problem.Library, problem.Shop, limits),
         _ => throw new ArgumentOutOfRangeException(nameof(part), part.GetType().Name, "unknown part kind"),
     };
 

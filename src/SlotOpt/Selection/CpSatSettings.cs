@@ -11,4 +11,10 @@ public sealed record CpSatSettings
     public double MaxDeterministicTimeSeconds { get; init; } = 10;
 
     public int RandomSeed { get; init; }
+
+    /// <summary>
+    /// Wall-time cap of one solver call (seconds), from the run's time limit; null for none. It binds only when the run is out
+    /// of time, and the run then ends with the time limit, so it never changes an answer that is reported.
+    /// </summary>
+    public double? MaxWallSeconds { get; init; }
 }

@@ -15,14 +15,15 @@ public class ResourceLimitTests
         return ProblemReader.Read(text, path);
     }
 
-    // 900 x 150 mm at 0.1 mm cells is 1.35e7 cells; at the solver's measured ~300 B per cell and two solves at
-    // once that is ~8.1 GB, above a 4 GiB limit: refused before any grid is built, with the estimate.
+    // 900 x 150 mm at 0.2 mm cells is 3.38e6 cells (within the solver's cell limit); the memory model (MemoryModel: 13 slot
+    // geometries kept at 400 B per cell, two solves at work at 150 B per cell, times 1.25) gives about 23 GB, above a 4 GiB
+    // limit: refused before any grid is built, with the estimate.
     [Fact]
     public void A_grid_beyond_the_memory_limit_stops_the_run_with_the_estimate()
     {
         var limits = new EvaluationLimits { Threads = 2, MaxMemoryBytes = 4L << 30 };
-        var e = Assert.Throws<ResourceLimitException>(() => DesignRun.Execute(TiePlate("0.1 mm"), limits: limits));
-        Assert.Contains("1.35E+007 cells", e.Message);
+        var e = Assert.Throws<ResourceLimitException>(() => DesignRun.Execute(TiePlate("0.2 mm"), limits: limits));
+        Assert.Contains("3.38E+006 cells", e.Message);
         Assert.Contains("--max-memory", e.Message);
     }
 

@@ -266,6 +266,17 @@ public sealed class TomlSection
 
     private double? ReadQuantity(TomlNode? node, string key, QuantityKind kind)
     {
+        var value = ReadUncheckedQuantity(node, key, kind);
+        if (value is { } v && PhysicalRange.Violation(v, kind) is { } beyond)
+        {
+            Errors.Add(FileName, node!.Line, KeyPath(key), beyond);
+            return null;
+        }
+        return value;
+    }
+
+    private double? ReadUncheckedQuantity(TomlNode? node, string key, QuantityKind kind)
+    {
         switch (node)
         {
             case null: return null;

@@ -52,7 +52,7 @@ public sealed class ReactionOperator
     }
 
     /// <summary>The smallest power of two at least 2 n - 1 (linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
-    internal static int PaddedLength(int n)
+    public static int PaddedLength(int n)
     {
         int m = 1;
         while (m < 2 * n - 1) m <<= 1;
