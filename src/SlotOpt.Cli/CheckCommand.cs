@@ -20,22 +20,17 @@ public static class CheckCommand
         {
             var problem = ProblemReader.ReadFile(parseResult.GetValue(file)!);
             foreach (var w in problem.Warnings) error.WriteLine($"warning: {w}");
-            var parts = problem.Parts.Select(p => new
-            {
-                name = p.Name,
-                kind = p is CorePart ? "core" : "plate",
-                options = ChoiceSpace.OptionCount(p),
-                current = ReferenceDesigns.IsCurrent(p),
-            }).ToList();
+            var parts = problem.Parts.Select(p => new CheckJson.Part(
+                p.Name, p is CorePart ? "core" : "plate", ChoiceSpace.OptionCount(p), ReferenceDesigns.IsCurrent(p))).ToList();
             var combinations = ChoiceSpace.Combinations(problem.Parts);
             if (parseResult.GetValue(json))
             {
-                output.Write(JsonFormat.Serialize(new { problem = problem.Name, objective = problem.Goal, parts, combinations, warnings = problem.Warnings }));
+                output.Write(new CheckJson(problem.Name, problem.Goal, parts, combinations, problem.Warnings).Serialize());
                 return ExitCodes.Success;
             }
             output.WriteLine($"{problem.SourcePath}: \"{problem.Name}\" is valid; objective {problem.Goal}");
             foreach (var p in parts)
-                output.WriteLine($"  {p.kind,-5} {p.name,-24} {p.options,8} options{(p.current ? "  (current design given)" : "")}");
+                output.WriteLine($"  {p.Kind,-5} {p.Name,-24} {p.Options,8} options{(p.Current ? "  (current design given)" : "")}");
             output.WriteLine($"  combinations: {(combinations == long.MaxValue ? "more than 9.2e18" : combinations.ToString("N0", System.Globalization.CultureInfo.InvariantCulture))}");
             return ExitCodes.Success;
         }));

@@ -53,26 +53,11 @@ public static class CoreLossCommand
             var loss = LaminationLossModel.Evaluate(steel, flux, conditions);
             if (parseResult.GetValue(json))
             {
-                output.Write(JsonFormat.Serialize(new
-                {
-                    grade = steel.Grade,
-                    thickness_mm = steel.ThicknessM * 1e3,
-                    peak_t = flux.PeakT,
-                    frequency_hz = f,
-                    temperature_k = conditions.TemperatureK,
-                    waveform = file is null ? "sine" : file,
-                    total_w_per_kg = loss.TotalWPerKg,
-                    hysteresis_w_per_kg = loss.HysteresisWPerKg,
-                    classical_w_per_kg = loss.ClassicalWPerKg,
-                    excess_w_per_kg = loss.ExcessWPerKg,
-                    total_w_per_m3 = loss.TotalWPerM3,
-                    skin_factor = loss.SkinFactor,
-                    width_factor = loss.WidthFactor,
-                    skin_depth_mm = loss.SkinDepthM * 1e3,
-                    thickness_over_skin_depth = loss.ThicknessOverSkinDepth,
-                    resistivity_uohm_m = loss.ResistivityOhmM * 1e6,
-                    flags = loss.Flags.Select(x => new { code = x.Code, message = x.Message }),
-                }));
+                output.Write(new CoreLossJson(
+                    steel.Grade, steel.ThicknessM * 1e3, flux.PeakT, f, conditions.TemperatureK, file ?? "sine",
+                    loss.TotalWPerKg, loss.HysteresisWPerKg, loss.ClassicalWPerKg, loss.ExcessWPerKg, loss.TotalWPerM3,
+                    loss.SkinFactor, loss.WidthFactor, loss.SkinDepthM * 1e3, loss.ThicknessOverSkinDepth, loss.ResistivityOhmM * 1e6,
+                    loss.Flags.Select(x => $"{x.Code}: {x.Message}").ToList()).Serialize());
                 return ExitCodes.Success;
             }
             var o = output;

@@ -33,13 +33,10 @@ public static class FitCommand
             var fit = LossCoefficientFit.Fit(data, d, rho, rhoM, mu);
             if (parseResult.GetValue(json))
             {
-                output.Write(JsonFormat.Serialize(new
-                {
-                    kh = fit.HysteresisCoefficient, alpha = fit.HysteresisExponent, ke = fit.ExcessCoefficient,
-                    kh_standard_error = fit.HysteresisCoefficientError, alpha_standard_error = fit.HysteresisExponentError,
-                    ke_standard_error = fit.ExcessCoefficientError, kc = fit.ClassicalCoefficient,
-                    r_squared = fit.RSquared, worst_relative_error = fit.WorstRelativeError, points = data.Count,
-                }));
+                output.Write(new FitJson(
+                    fit.HysteresisCoefficient, fit.HysteresisExponent, fit.ExcessCoefficient,
+                    fit.HysteresisCoefficientError, fit.HysteresisExponentError, fit.ExcessCoefficientError,
+                    fit.ClassicalCoefficient, fit.RSquared, fit.WorstRelativeError, data.Count).Serialize());
                 return ExitCodes.Success;
             }
             var o = output;

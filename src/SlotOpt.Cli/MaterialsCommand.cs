@@ -20,24 +20,14 @@ public static class MaterialsCommand
             var conductors = library.Conductors.OrderBy(c => c.Name, StringComparer.Ordinal).ToList();
             if (parseResult.GetValue(json))
             {
-                output.Write(JsonFormat.Serialize(new
-                {
-                    grades = steels.Select(s => new
-                    {
-                        grade = s.Grade, family = s.Family, thickness_mm = s.ThicknessM * 1e3, density_kg_m3 = s.DensityKgPerM3,
-                        resistivity_uohm_m = s.Resistivity20COhmM * 1e6, spec_max_loss_w_per_kg = s.SpecMaxLossWPerKg,
-                        spec_peak_t = s.SpecPeakT, spec_frequency_hz = s.SpecFrequencyHz, stacking_factor = s.StackingFactor,
-                        relative_permeability = s.RelativePermeability, knee_flux_t = s.KneeFluxT, max_flux_t = s.MaxFluxT,
-                        kh = s.HysteresisCoefficient, alpha = s.HysteresisExponent, ke = s.ExcessCoefficient,
-                        coefficients_frequency_hz = s.CoefficientsFrequencyHz, price_per_kg = s.PricePerKg, source = s.Source,
-                    }),
-                    conductors = conductors.Select(c => new
-                    {
-                        name = c.Name, resistivity_20c_uohm_m = c.Resistivity20COhmM * 1e6, alpha_20_per_k = c.Alpha20PerK,
-                        density_kg_m3 = c.DensityKgPerM3, relative_permeability = c.RelativePermeability, magnetic = c.IsMagnetic,
-                        temperature_model = c.TemperatureModel, price_per_kg = c.PricePerKg, source = c.Source,
-                    }),
-                }));
+                output.Write(new MaterialsJson(
+                    steels.Select(s => new MaterialsJson.Steel(
+                        s.Grade, s.Family, s.ThicknessM * 1e3, s.DensityKgPerM3, s.Resistivity20COhmM * 1e6, s.SpecMaxLossWPerKg,
+                        s.SpecPeakT, s.SpecFrequencyHz, s.StackingFactor, s.RelativePermeability, s.KneeFluxT, s.MaxFluxT,
+                        s.HysteresisCoefficient, s.HysteresisExponent, s.ExcessCoefficient, s.CoefficientsFrequencyHz, s.PricePerKg, s.Source)).ToList(),
+                    conductors.Select(c => new MaterialsJson.Conductor(
+                        c.Name, c.Resistivity20COhmM * 1e6, c.Alpha20PerK, c.DensityKgPerM3, c.RelativePermeability, c.IsMagnetic,
+                        c.TemperatureModel, c.PricePerKg, c.Source)).ToList()).Serialize());
                 return ExitCodes.Success;
             }
             var o = output;

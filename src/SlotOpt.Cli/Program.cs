@@ -12,6 +12,8 @@ public static class Program
         var parseResult = SlotOptCommand.Build().Parse(args);
         if (parseResult.Errors.Count > 0 && !HelpRequested(args))
         {
+            if (args.Contains("--json"))
+                output.Write(ErrorsJson.From(ExitCodes.InvalidInput, parseResult.Errors.Select(e => InputError.FromText(e.Message))).Serialize());
             foreach (var e in parseResult.Errors) error.WriteLine($"error: {e.Message}");
             error.WriteLine("(run with --help for usage)");
             return ExitCodes.InvalidInput;

@@ -48,7 +48,7 @@ public class LaminationCommandTests
             var run = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.2T", "--frequency", "400Hz", "--waveform", Path.Combine(dir, "trap.csv"), "--json");
             Assert.Equal(0, run.ExitCode);
             using var doc = JsonDocument.Parse(run.Stdout);
-            Assert.Equal(1.2, doc.RootElement.GetProperty("peak_t").GetDouble(), 1e-12);
+            Assert.Equal(1.2, doc.RootElement.GetProperty("peak_flux_density_t").GetDouble(), 1e-12);
             // the classical term of this trapezoid: <(dB/dt)^2> = (2 Bp / (T/4))^2 / 2 = 32 Bp^2 f^2 (derived),
             // i.e. 16/pi^2 of the sine's; the skin factor multiplies it
             var sine = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.2T", "--frequency", "400Hz", "--json");

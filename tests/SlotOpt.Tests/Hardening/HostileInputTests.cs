@@ -123,7 +123,7 @@ public sealed class HostileInputTests : IDisposable
         var run = SlotOptInProcess.Run("plate", plate, "--json");
         Assert.True(run.ExitCode is 2 or 4, $"exit {run.ExitCode}: {run.Stderr}");
         Assert.DoesNotContain("   at ", run.Stderr);
-        Assert.Equal("", run.Stdout);
+        AssertNothingButErrorsOnOutput(run, run.ExitCode);
         if (run.ExitCode == 4) Assert.Matches(@"^numerical failure: the result's [a-z_\[\]0-9.]+ is (-?Infinity|NaN), not a finite number", run.Stderr);
     }
 
@@ -133,7 +133,16 @@ public sealed class HostileInputTests : IDisposable
         Assert.StartsWith("error: ", run.Stderr);
         Assert.DoesNotContain("   at ", run.Stderr);   // no stack trace
         Assert.DoesNotContain("internal error", run.Stderr);
-        Assert.Equal("", run.Stdout);
+        AssertNothingButErrorsOnOutput(run, exitCode);
+    }
+
+    /// <summary>Standard output is empty, or with --json the errors document (issue 17) and nothing else.</summary>
+    private static void AssertNothingButErrorsOnOutput(SlotOptProcess.Outcome run, int exitCode)
+    {
+        if (run.Stdout.Length == 0) return;
+        using var doc = System.Text.Json.JsonDocument.Parse(run.Stdout);
+        Assert.Equal(exitCode, doc.RootElement.GetProperty("exit_code").GetInt32());
+        Assert.True(doc.RootElement.GetProperty("errors").GetArrayLength() > 0);
     }
 
     /// <summary>Every entry under the test folder with its size: a half-written report or temporary sibling would show.</summary>
