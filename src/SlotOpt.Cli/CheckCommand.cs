@@ -3,6 +3,7 @@ using SlotOpt.Design;
 using SlotOpt.Input;
 using SlotOpt.Reports;
 using SlotOpt.Runs;
+using SlotOpt.Selection;
 
 namespace SlotOpt.Cli;
 
@@ -28,7 +29,7 @@ public static class CheckCommand
                 output.Write(new CheckJson(problem.Name, problem.Goal, parts, combinations, problem.Warnings).Serialize());
                 return ExitCodes.Success;
             }
-            output.WriteLine($"{problem.SourcePath}: \"{problem.Name}\" is valid; objective {problem.Goal}");
+            output.WriteLine($"{problem.SourcePath}: \"{problem.Name}\" is valid; objective {ObjectiveWords(problem.Goal)}");
             foreach (var p in parts)
                 output.WriteLine($"  {p.Kind,-5} {p.Name,-24} {p.Options,8} options{(p.Current ? "  (current design given)" : "")}");
             output.WriteLine($"  combinations: {(combinations == long.MaxValue ? "more than 9.2e18" : combinations.ToString("N0", System.Globalization.CultureInfo.InvariantCulture))}");
@@ -36,4 +37,7 @@ public static class CheckCommand
         }));
         return command;
     }
+
+    /// <summary>The objective in words ("lowest owning cost"), as the problem file spells it but with spaces.</summary>
+    private static string ObjectiveWords(Objective goal) => System.Text.Json.JsonNamingPolicy.KebabCaseLower.ConvertName(goal.ToString()).Replace('-', ' ');
 }

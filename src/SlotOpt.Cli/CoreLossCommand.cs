@@ -13,22 +13,24 @@ public static class CoreLossCommand
 {
     public static Command Build()
     {
-        var grade = new Option<string>("--grade") { Description = "Lamination grade, e.g. M270-35A (see `slotopt materials`)", Required = true };
-        var peak = QuantityOption.Create("--peak", "Peak flux density in the steel, e.g. 1.5T (with --waveform: scales the file's shape to this peak)");
+        var grade = new Option<string>("--grade") { HelpName = "GRADE", Description = "Lamination grade, e.g. M270-35A (see `slotopt materials`)", Required = true };
+        var peak = QuantityOption.Create("--peak-flux-density", "Peak flux density in the steel, e.g. 1.5T (with --waveform: scales the file's shape to this peak)", placeholder: "<B>", oldName: "--peak");
         var frequency = QuantityOption.Create("--frequency", "Fundamental frequency, e.g. 50Hz", required: true);
-        var width = QuantityOption.Create("--width", "Width of the narrowest feature the flux runs along (tooth, strip), e.g. 3mm");
+        var width = QuantityOption.Create("--tooth-or-limb-width", "Width of the tooth or limb the flux runs along, e.g. 3mm", placeholder: "<LENGTH>", oldName: "--width");
         var temperature = QuantityOption.Create("--temperature", "Steel temperature, e.g. 80degC (default 20degC)");
-        var waveform = new Option<string>("--waveform") { Description = "CSV of one period of B: columns phase,b_t or t_s,b_t (straight lines between samples)" };
+        var waveform = new Option<string>("--waveform") { HelpName = "FILE.csv", Description = "CSV of one period of B: columns phase,b_t or t_s,b_t (straight lines between samples)" };
         var json = new Option<bool>("--json") { Description = "Print one JSON object" };
         var command = new Command("core-loss", "Specific loss of a lamination grade: hysteresis, classical eddy (skin and width corrected) and excess");
         foreach (var o in new Option[] { grade, peak, frequency, width, temperature, waveform, json }) command.Options.Add(o);
 
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
+            QuantityOption.WarnIfOldName(parseResult, peak, error);
+            QuantityOption.WarnIfOldName(parseResult, width, error);
             var steel = MaterialLibrary.BuiltIn.GetSteel(parseResult.GetValue(grade)!, "--grade");
             var f = QuantityOption.ReadPositive(parseResult, frequency, QuantityKind.Frequency)!.Value;
             var bp = QuantityOption.Read(parseResult, peak, QuantityKind.FluxDensity);
-            if (bp is { } b && !(b >= 0)) throw new InputException($"--peak: must be zero or positive, got {parseResult.GetValue(peak)}");
+            if (bp is { } b && !(b >= 0)) throw new InputException($"--peak-flux-density: must be zero or positive, got {parseResult.GetValue(peak)}");
             var conditions = new LaminationConditions
             {
                 TemperatureK = QuantityOption.Read(parseResult, temperature, QuantityKind.Temperature) ?? Conductor.RoomTemperatureK,
@@ -40,13 +42,13 @@ public static class CoreLossCommand
             var file = parseResult.GetValue(waveform);
             if (file is null)
             {
-                flux = new SineWaveform(bp ?? throw new InputException("--peak: required unless --waveform gives the flux values"), f);
+                flux = new SineWaveform(bp ?? throw new InputException("--peak-flux-density: required unless --waveform gives the flux values"), f);
             }
             else
             {
                 var shape = WaveformCsv.Read(file, f);
                 flux = bp is { } target
-                    ? (shape.PeakT > 0 ? shape.Scaled(target / shape.PeakT) : throw new InputException($"{file}: the waveform is zero everywhere; it cannot be scaled to --peak"))
+                    ? (shape.PeakT > 0 ? shape.Scaled(target / shape.PeakT) : throw new InputException($"{file}: the waveform is zero everywhere; it cannot be scaled to --peak-flux-density"))
                     : shape;
             }
 

@@ -22,7 +22,7 @@ public static class MaterialsCommand
             {
                 output.Write(new MaterialsJson(
                     steels.Select(s => new MaterialsJson.Steel(
-                        s.Grade, s.Family, s.ThicknessM * 1e3, s.DensityKgPerM3, s.Resistivity20COhmM * 1e6, s.SpecMaxLossWPerKg,
+                        s.Grade, IsOwnDesignation(s), s.Family, s.ThicknessM * 1e3, s.DensityKgPerM3, s.Resistivity20COhmM * 1e6, s.SpecMaxLossWPerKg,
                         s.SpecPeakT, s.SpecFrequencyHz, s.StackingFactor, s.RelativePermeability, s.KneeFluxT, s.MaxFluxT,
                         s.HysteresisCoefficient, s.HysteresisExponent, s.ExcessCoefficient, s.CoefficientsFrequencyHz, s.PricePerKg, s.Source)).ToList(),
                     conductors.Select(c => new MaterialsJson.Conductor(
@@ -35,16 +35,36 @@ public static class MaterialsCommand
             o.WriteLine("Lamination grades (limit = the standard's maximum specific loss at its specification point)");
             o.WriteLine($"{"grade",-10} {"family",-16} {"t mm",5} {"rho uOhm m",10} {"limit W/kg",10} {"at",12} {"SF",5} {"kh",8} {"alpha",6} {"ke",9} {"price/kg",8}");
             foreach (var s in steels)
-                o.WriteLine(string.Create(ci, $"{s.Grade,-10} {s.Family,-16} {s.ThicknessM * 1e3,5:0.00} {s.Resistivity20COhmM * 1e6,10:0.00} {s.SpecMaxLossWPerKg,10:0.00} {$"{s.SpecPeakT:0.0} T {s.SpecFrequencyHz:0} Hz",12} {s.StackingFactor,5:0.00} {s.HysteresisCoefficient,8:0.00000} {s.HysteresisExponent,6:0.000} {s.ExcessCoefficient,9:0.000000} {s.PricePerKg,8:0.00}"));
+                o.WriteLine(string.Create(ci, $"{s.Grade + (IsOwnDesignation(s) ? "*" : ""),-10} {FamilyWords(s.Family),-16} {s.ThicknessM * 1e3,5:0.00} {s.Resistivity20COhmM * 1e6,10:0.00} {s.SpecMaxLossWPerKg,10:0.00} {$"{s.SpecPeakT:0.0} T {s.SpecFrequencyHz:0} Hz",12} {s.StackingFactor,5:0.00} {s.HysteresisCoefficient,8:0.00000} {s.HysteresisExponent,6:0.000} {s.ExcessCoefficient,9:0.000000} {s.PricePerKg,8:0.00}"));
             o.WriteLine();
             o.WriteLine("Plate conductors (resistivity at 20 degC)");
             o.WriteLine($"{"name",-13} {"rho uOhm m",10} {"alpha 1/K",9} {"kg/m3",6} {"magnetic",8} {"temperature model",-22} {"price/kg",8}");
             foreach (var c in conductors)
-                o.WriteLine(string.Create(ci, $"{c.Name,-13} {c.Resistivity20COhmM * 1e6,10:0.000000} {c.Alpha20PerK,9:0.00000} {c.DensityKgPerM3,6:0} {(c.IsMagnetic ? "yes" : "no"),8} {c.TemperatureModel,-22} {c.PricePerKg,8:0.00}"));
+                o.WriteLine(string.Create(ci, $"{c.Name,-13} {c.Resistivity20COhmM * 1e6,10:0.000000} {c.Alpha20PerK,9:0.00000} {c.DensityKgPerM3,6:0} {(c.IsMagnetic ? "yes" : "no"),8} {TemperatureModelWords(c.TemperatureModel),-22} {c.PricePerKg,8:0.00}"));
             o.WriteLine();
+            o.WriteLine("* our own designation, not a standard grade name (see its source in `slotopt materials --json`).");
             o.WriteLine("Prices are invented demo prices. Coefficients are derived from the standards' limits (see Materials/Data/README.md); fit your own with `slotopt fit`.");
             return ExitCodes.Success;
         }));
         return command;
     }
+
+    /// <summary>A grade name of our own (the data file's source says so), not a designation from a standard.</summary>
+    private static bool IsOwnDesignation(ElectricalSteel s) => s.Source.StartsWith("own designation", StringComparison.Ordinal);
+
+    private static string FamilyWords(SteelFamily family) => family switch
+    {
+        SteelFamily.NonOriented => "non-oriented",
+        SteelFamily.GrainOriented => "grain-oriented",
+        SteelFamily.ThinNonOriented => "thin non-oriented",
+        _ => throw new ArgumentOutOfRangeException(nameof(family)),
+    };
+
+    private static string TemperatureModelWords(TemperatureModel model) => model switch
+    {
+        TemperatureModel.Linear => "linear in temperature",
+        TemperatureModel.MatthiessenCopper => "Matthiessen, copper",
+        TemperatureModel.MatthiessenAluminium => "Matthiessen, aluminium",
+        _ => throw new ArgumentOutOfRangeException(nameof(model)),
+    };
 }

@@ -17,7 +17,7 @@ public static class PlateCommand
     {
         var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]], [thermal]" };
         var json = new Option<bool>("--json") { Description = "print one JSON object instead of text" };
-        var map = new Option<string?>("--map") { Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
+        var map = new Option<string?>("--map") { HelpName = "FILE.csv", Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
         var command = new Command("plate", "Eddy-current loss and drag of one conducting plate in a normal field, with the model its validity figures call for.");
         command.Arguments.Add(file);
         command.Options.Add(json);

@@ -8,10 +8,10 @@ namespace SlotOpt.Cli;
 /// <summary>The flags that bound a run's use of the machine: threads, memory, wall time, and the search's deterministic budget.</summary>
 public sealed class RunLimitOptions
 {
-    private readonly Option<int?> threads = new("--threads") { Description = "Plate solves at once (default: the number of cores); results do not depend on it" };
+    private readonly Option<int?> threads = new("--threads") { HelpName = "N", Description = "Plate solves at once (default: the number of cores); results do not depend on it" };
     private readonly Option<string> maxMemory = QuantityOption.Create("--max-memory", "Memory the plate solves may take, e.g. 4GB (default 4 GiB); a bigger grid is refused before it is built");
     private readonly Option<string> timeLimit = QuantityOption.Create("--time-limit", "Wall time the evaluation may take, e.g. \"10 min\" (default 1 h); past it the run stops with exit code 5");
-    private readonly Option<double?> searchBudget = new("--search-budget") { Description = "Deterministic seconds each CP-SAT call may take (default 10); reproducible on any machine" };
+    private readonly Option<double?> searchBudget = new("--search-budget") { HelpName = "SECONDS", Description = "Deterministic seconds each selection-solver call may take (default 10); reproducible on any machine" };
 
     public void AddTo(Command command)
     {

@@ -10,6 +10,7 @@ public sealed record MaterialsJson(IReadOnlyList<MaterialsJson.Steel> Grades, IR
     /// <summary>A lamination grade: its standard data, loss coefficients, price and source.</summary>
     public sealed record Steel(
         string Grade,
+        bool OwnDesignation,
         SteelFamily Family,
         double ThicknessMm,
         double DensityKgM3,

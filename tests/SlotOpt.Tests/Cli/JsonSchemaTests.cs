@@ -26,7 +26,7 @@ public class JsonSchemaTests
     public static TheoryData<string[]> SuccessfulCommands() => new()
     {
         new[] { "materials", "--json" },
-        new[] { "core-loss", "--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--json" },
+        new[] { "core-loss", "--grade", "M270-35A", "--peak-flux-density", "1.5T", "--frequency", "50Hz", "--json" },
         new[] { "check", "{problems}/actuator-product.toml", "--json" },
         new[] { "evaluate", "{problems}/actuator-product.toml", "--json" },
         new[] { "plate", "{plate}", "--json" },
@@ -77,9 +77,9 @@ public class JsonSchemaTests
     public static TheoryData<string[], string?, string?> FailingCommands() => new()
     {
         // a flag with a value that is not a quantity: the flag is the key
-        { new[] { "core-loss", "--grade", "M270-35A", "--peak", "1.5 furlongs", "--frequency", "50Hz", "--json" }, null, "--peak" },
+        { new[] { "core-loss", "--grade", "M270-35A", "--peak-flux-density", "1.5 furlongs", "--frequency", "50Hz", "--json" }, null, "--peak-flux-density" },
         // an unknown grade
-        { new[] { "core-loss", "--grade", "M999-99Z", "--peak", "1.5T", "--frequency", "50Hz", "--json" }, null, "--grade" },
+        { new[] { "core-loss", "--grade", "M999-99Z", "--peak-flux-density", "1.5T", "--frequency", "50Hz", "--json" }, null, "--grade" },
         // a file that does not exist
         { new[] { "check", "/nonexistent/p.toml", "--json" }, "/nonexistent/p.toml", null },
         { new[] { "evaluate", "/nonexistent/p.toml", "--json" }, "/nonexistent/p.toml", null },
