@@ -20,9 +20,9 @@ public sealed class InputErrors
     public void Warn(string fileName, int line, string key, string message) =>
         warnings.Add(new InputError(fileName, line, key.Length > 0 ? key : null, message).ToString());
 
-    /// <summary>Throws one <see cref="InputException"/> listing every message, if there are any.</summary>
+    /// <summary>Throws one <see cref="InputException"/> listing every message in line order (stable within a line), if there are any.</summary>
     public void ThrowIfAny()
     {
-        if (errors.Count > 0) throw new InputException(errors);
+        if (errors.Count > 0) throw new InputException(errors.OrderBy(e => e.File, StringComparer.Ordinal).ThenBy(e => e.Line).ToList());   // in line order, as the file reads
     }
 }
