@@ -24,7 +24,7 @@ public static class EvaluateCommand
             var rows = problem.Parts.Select(p => (Part: p, Option: ReferenceDesigns.CurrentOrBaseline(p, problem), IsCurrent: ReferenceDesigns.IsCurrent(p))).ToList();
             var totalLoss = rows.Sum(r => r.Option.Loss.TotalW);
             var totalCost = rows.Sum(r => r.Option.BuildCost);
-            var owning = totalCost + problem.Economics.ValuePerWatt * totalLoss;
+            var owning = problem.OwningCost(rows.Select(r => r.Option));
             if (parseResult.GetValue(json))
             {
                 output.Write(new EvaluateJson(

@@ -31,12 +31,13 @@ public static class FitCommand
             var path = parseResult.GetValue(file)!;
             var data = LossMeasurementCsv.Read(path);
             var fit = LossCoefficientFit.Fit(data, d, rho, rhoM, mu);
+            foreach (var warning in fit.Warnings) error.WriteLine($"warning: {warning}");
             if (parseResult.GetValue(json))
             {
                 output.Write(new FitJson(
                     fit.HysteresisCoefficient, fit.HysteresisExponent, fit.ExcessCoefficient,
                     fit.HysteresisCoefficientError, fit.HysteresisExponentError, fit.ExcessCoefficientError,
-                    fit.ClassicalCoefficient, fit.RSquared, fit.WorstRelativeError, data.Count).Serialize());
+                    fit.ClassicalCoefficient, fit.RSquared, fit.WorstRelativeError, data.Count, fit.Warnings).Serialize());
                 return ExitCodes.Success;
             }
             var o = output;
@@ -47,6 +48,7 @@ public static class FitCommand
             o.WriteLine(string.Create(ci, $"  ke    = {fit.ExcessCoefficient:0.00000000} +/- {fit.ExcessCoefficientError:0.00000000} W/(kg (T/s)^1.5)"));
             o.WriteLine(string.Create(ci, $"  kc    = {fit.ClassicalCoefficient:0.000e+00} W/(kg Hz^2 T^2) (from theory, fixed{(mu is null ? "" : $", skin corrected at mu_r {mu}")})"));
             o.WriteLine(string.Create(ci, $"  R^2 = {fit.RSquared:0.00000}, worst relative error {fit.WorstRelativeError * 100:0.00} %"));
+            if (fit.Warnings.Count > 0) o.WriteLine($"  {fit.Warnings.Count} warning(s), printed above: read them before using these coefficients");
             return ExitCodes.Success;
         }));
         return command;

@@ -43,12 +43,12 @@ public static class RunText
         }
         o.WriteLine();
         var vpw = economics.ValuePerWatt;
-        o.WriteLine(string.Create(ci, $"  total:     loss {r.TotalLossW:0.###} W, build cost {r.TotalBuildCost:0.00} {cur}, owning cost {r.OwningCost:0.00} {cur} (loss at {vpw:0.###} {cur}/W)"));
+        o.WriteLine(string.Create(ci, $"  total:     loss {r.TotalLossW:0.###} W, build cost {r.TotalBuildCost:0.00} {cur}, owning cost {r.OwningCost:0.00} {cur} (loss at {vpw:0.###} {cur}/W{(economics.SeparatesLoadLoss ? $" no-load, {economics.LoadValuePerWatt:0.###} {cur}/W load" : "")})"));
         var refBase = r.Reference;
-        o.WriteLine(string.Create(ci, $"  {refBase.Name}: loss {refBase.LossW:0.###} W, build cost {refBase.BuildCost:0.00} {cur}, owning cost {refBase.OwningCost(vpw):0.00} {cur}"));
+        o.WriteLine(string.Create(ci, $"  {refBase.Name}: loss {refBase.LossW:0.###} W, build cost {refBase.BuildCost:0.00} {cur}, owning cost {refBase.OwningCost(r.Problem):0.00} {cur}"));
         var savedW = refBase.LossW - r.TotalLossW;
-        var savedOwning = refBase.OwningCost(vpw) - r.OwningCost;
-        o.WriteLine(string.Create(ci, $"  saves {savedW:0.###} W{(economics.YearlyCostPerWatt is { } perYear ? $" = {savedW * perYear:0.00} {cur} a year" : "")} and {savedOwning:0.00} {cur} of owning cost over the life"));
+        var savedOwning = refBase.OwningCost(r.Problem) - r.OwningCost;
+        o.WriteLine(string.Create(ci, $"  saves {savedW:0.###} W{(r.Problem.YearlyLossCost(refBase.Options) is { } before && r.Problem.YearlyLossCost(r.Chosen!) is { } after ? $" = {before - after:0.00} {cur} a year" : "")} and {savedOwning:0.00} {cur} of owning cost over the life"));
         if (r.Outcome.Front is { } front)
         {
             o.WriteLine();

@@ -13,4 +13,5 @@ public sealed record FitJson(
     double Kc,
     double RSquared,
     double WorstRelativeError,
-    int Points) : VersionedJson;
+    int Points,
+    IReadOnlyList<string> Warnings) : VersionedJson;

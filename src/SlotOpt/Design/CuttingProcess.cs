@@ -15,4 +15,11 @@ public sealed record CuttingProcess(
     double CostPerSlot,
     double SetupCost,
     double CostPerSheet,
-    string Origin);
+    string Origin)
+{
+    /// <summary>Depth of the band along each cut edge whose magnetic properties the cut degrades (m); 0 for none.</summary>
+    public double DamageDepthM { get; init; }
+
+    /// <summary>Loss of the degraded band over that of sound steel at the same flux density (1 for none).</summary>
+    public double DamageLossFactor { get; init; } = 1;
+}

@@ -2,7 +2,7 @@ using SlotOpt.Tables;
 
 namespace SlotOpt.Design;
 
-/// <summary>The built-in cutting processes (laser, waterjet, milling, punching).</summary>
+/// <summary>The built-in cutting processes (laser, waterjet, milling, punching, guillotine, wire EDM).</summary>
 public static class CuttingProcessLibrary
 {
     public static IReadOnlyDictionary<string, CuttingProcess> BuiltIn => Defaults.Value;
@@ -22,7 +22,11 @@ public static class CuttingProcessLibrary
                 r.Number("cost_per_slot"),
                 r.Number("setup_cost"),
                 r.Number("cost_per_sheet"),
-                r.Text("origin")))
+                r.Text("origin"))
+            {
+                DamageDepthM = r.Number("damage_depth_mm") * 1e-3,
+                DamageLossFactor = r.Number("damage_loss_factor"),
+            })
             .ToDictionary(p => p.Name, StringComparer.Ordinal);
     }
 }

@@ -157,7 +157,6 @@ public static class PlateOptions
             : Validity.ForAc(sheet, acField!.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
         var flags = validity.Warnings.ToList();
         if (material.IsMagnetic) flags.Add($"{material.Name} is magnetic: the thin-plate model assumes a non-magnetic plate, so its loss here is indicative only");
-        if (material.IsExtrapolatedAt(part.TemperatureK)) flags.Add($"{material.Name}: resistivity at {part.TemperatureK:0} K extrapolates the linear coefficient");
         attributes["reynolds_number"] = validity.ReynoldsNumber.ToString("0.###", ci);
 
         RuleBreak? rejection = null;

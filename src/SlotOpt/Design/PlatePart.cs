@@ -24,6 +24,8 @@ public sealed record PlatePart(
 {
     /// <summary>thickness x material x (solid x processes + every slot option).</summary>
     public long OptionCount => (long)ThicknessesM.Count * Materials.Count * (Processes.Count + SlotFamilies.Sum(f => f.OptionCount));
+
+    protected override LossKind DefaultLossKind => LossKind.Load;
 }
 
 /// <summary>One fixed design of a plate: thickness, material, process, and its slots (null for a solid plate).</summary>

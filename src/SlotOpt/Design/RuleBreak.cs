@@ -21,6 +21,8 @@ public enum RuleKind
     FluxBeyondGrade,
     /// <summary>The slot pattern does not fit the plate's outline.</summary>
     PatternDoesNotFit,
+    /// <summary>A grain-oriented grade in a core whose flux crosses the rolling direction (E-I laminations, machine stators).</summary>
+    GrainOrientedAcrossRollingDirection,
 }
 
 /// <summary>Why an option was rejected: the rule it breaks (a kind) and the reason with its numbers (a message).</summary>
@@ -40,6 +42,7 @@ public sealed record RuleBreak(RuleKind Kind, string Message)
         RuleKind.LossAboveLimit => "loss above the part's limit",
         RuleKind.FluxBeyondGrade => "flux beyond the grade",
         RuleKind.PatternDoesNotFit => "slot pattern does not fit the plate",
+        RuleKind.GrainOrientedAcrossRollingDirection => "grain-oriented steel across its rolling direction",
         _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "unknown rule kind"),
     };
 

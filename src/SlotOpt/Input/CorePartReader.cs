@@ -11,7 +11,7 @@ namespace SlotOpt.Input;
 public static class CorePartReader
 {
     /// <summary>Processes that cut laminations (milling does not).</summary>
-    public static readonly IReadOnlyList<string> LaminationProcesses = ["punching", "laser", "waterjet"];
+    public static readonly IReadOnlyList<string> LaminationProcesses = ["punching", "laser", "waterjet", "guillotine", "wire-edm"];
 
     public static CorePart? Read(TomlSection s, MaterialLibrary library, ManufacturingSettings shop, string baseDirectory)
     {
@@ -37,6 +37,16 @@ public static class CorePartReader
         var temperature = s.OptionalQuantity("temperature", QuantityKind.Temperature) ?? Conductor.RoomTemperatureK;
         if (!(temperature > 0)) s.Error("temperature", "is below absolute zero");
         var maxLoss = s.PositiveQuantity("max_loss", QuantityKind.Power, required: false);
+        var constructionWord = s.OptionalString("construction");
+        CoreConstruction? construction = null;
+        if (constructionWord is not null)
+        {
+            if (CoreConstructionWords.TryParse(constructionWord, out var c)) construction = c;
+            else s.Error("construction", $"\"{constructionWord}\" is not a construction{NameSuggestion.DidYouMean(constructionWord, CoreConstructionWords.All)}; use {string.Join(", ", CoreConstructionWords.All)}");
+        }
+        var lossKind = LossKindWords.Read(s);
+        var buildingFactor = s.OptionalNumber("building_factor");
+        if (buildingFactor is { } bf && !(bf >= 1 && bf <= 3)) s.Error("building_factor", "must be between 1 and 3 (core loss over the loss of the steel's own test)");
         var current = ReadCurrent(s.OptionalTable("current"), library, shop);
         s.RejectUnknownKeys();
 
@@ -59,10 +69,11 @@ public static class CorePartReader
             foreach (var g in validGrades)
             {
                 var steel = library.GetSteel(g, s.KeyPath("grades"));
-                if (wave.PeakT > steel.MaxFluxT)
-                    s.Error("peak_flux_density", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T is beyond what {g} carries ({steel.MaxFluxT:0.##} T at 10 kA/m): the steel saturates; lower the flux or drop the grade"));
-                else if (wave.PeakT > steel.KneeFluxT)
-                    s.Warn("peak_flux_density", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T is above the knee of {g} ({steel.KneeFluxT:0.##} T): magnetising current rises steeply"));
+                var inSteel = wave.PeakT / steel.StackingFactor; // flux is over the gross section
+                if (inSteel > steel.MaxFluxT)
+                    s.Error("peak_flux_density", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T over the gross section is {inSteel:0.###} T in the steel (stacking factor {steel.StackingFactor:0.###}), beyond what {g} carries ({steel.MaxFluxT:0.##} T at 10 kA/m): the steel saturates; lower the flux or drop the grade"));
+                else if (inSteel > steel.KneeFluxT)
+                    s.Warn("peak_flux_density", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T over the gross section is {inSteel:0.###} T in {g}, above its knee ({steel.KneeFluxT:0.##} T): magnetising current rises steeply"));
             }
         if (temperature > 473.15) s.Warn("temperature", "above 200 degC: insulation coatings and the resistivity data may not hold");
         if (current is not null && !validGrades.Contains(current.Grade))
@@ -72,7 +83,12 @@ public static class CorePartReader
 
         if (name is null || area is null || height is null || wave is null || validGrades.Count == 0 || processes.Count == 0) return null;
         return new CorePart(name, s.Line, temperature, maxLoss, validGrades, processes, area.Value, height.Value,
-            cutLength ?? 4 * Math.Sqrt(area.Value), wave, width ?? double.PositiveInfinity, current);
+            cutLength ?? 4 * Math.Sqrt(area.Value), wave, width ?? double.PositiveInfinity, current)
+        {
+            Construction = construction,
+            BuildingFactorOverride = buildingFactor,
+            DeclaredLossKind = lossKind,
+        };
     }
 
     private static List<string> ReadProcesses(TomlSection s, ManufacturingSettings shop)

@@ -44,7 +44,11 @@ public static class ManufacturingReader
                     NonNegative(p, "cost_per_slot") ?? baseline?.CostPerSlot ?? 0,
                     NonNegative(p, "setup_cost") ?? baseline?.SetupCost ?? 0,
                     NonNegative(p, "cost_per_sheet") ?? baseline?.CostPerSheet ?? 0,
-                    baseline is null ? "defined in the problem file" : baseline.Origin + "; overridden in the problem file");
+                    baseline is null ? "defined in the problem file" : baseline.Origin + "; overridden in the problem file")
+                {
+                    DamageDepthM = p.PositiveQuantity("damage_depth", QuantityKind.Length, required: false) ?? baseline?.DamageDepthM ?? 0,
+                    DamageLossFactor = p.OptionalNumber("damage_loss_factor") is { } k && k >= 1 ? k : baseline?.DamageLossFactor ?? 1,
+                };
                 p.RejectUnknownKeys();
             }
         }

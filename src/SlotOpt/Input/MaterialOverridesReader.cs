@@ -78,8 +78,8 @@ public static class MaterialOverridesReader
         if (need && alpha is null) s.Error("alpha_20", "missing (required without based_on): temperature coefficient at 20 degC, 1/K");
         var mu = s.OptionalNumber("relative_permeability");
         if (mu is < 1) s.Error("relative_permeability", "must be 1 or more");
-        var modelText = s.OptionalChoice("temperature_model", ["linear", "matthiessen-Cu", "matthiessen-Al"]);
-        var model = modelText switch { "matthiessen-Cu" => TemperatureModel.MatthiessenCopper, "matthiessen-Al" => TemperatureModel.MatthiessenAluminium, "linear" => TemperatureModel.Linear, _ => basis?.TemperatureModel ?? TemperatureModel.Linear };
+        var modelText = s.OptionalChoice("temperature_model", ["linear", "matthiessen-Cu", "matthiessen-Al", "matthiessen-Fe"]);
+        var model = modelText switch { "matthiessen-Cu" => TemperatureModel.MatthiessenCopper, "matthiessen-Al" => TemperatureModel.MatthiessenAluminium, "matthiessen-Fe" => TemperatureModel.MatthiessenIron, "linear" => TemperatureModel.Linear, _ => basis?.TemperatureModel ?? TemperatureModel.Linear };
         var price = s.OptionalNumber("price_per_kg");
         if (need && price is null) s.Error("price_per_kg", "missing (required without based_on)");
         var conductor = new Conductor(

@@ -36,6 +36,7 @@ public static class PlatePartReader
         var excitation = sourceSection is null ? null : PlateSourceReader.Read(sourceSection, outline, baseDirectory);
         var families = s.TableArray("slots", required: false).Select(f => ReadFamily(f, shop, processes, outline)).OfType<SlotFamily>().ToList();
         var current = ReadCurrent(s.OptionalTable("current"), library, shop, outline);
+        var lossKind = LossKindWords.Read(s);
         s.RejectUnknownKeys();
 
         if (maxDrag is not null && excitation is { IsMoving: false }) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\")");
@@ -48,7 +49,7 @@ public static class PlatePartReader
         }
         if (name is null || outline is null || thicknesses is null || materials.Count == 0 || excitation is null) return null;
         return new PlatePart(name, s.Line, temperature, maxLoss, outline, thicknesses, materials, excitation, families, processes,
-            maxDrag, minLigament, cell, current);
+            maxDrag, minLigament, cell, current) { DeclaredLossKind = lossKind };
     }
 
     private static Polygon? ReadOutline(TomlSection s)

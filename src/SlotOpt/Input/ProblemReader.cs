@@ -87,16 +87,32 @@ public static class ProblemReader
     {
         if (section is null) return new Economics(currency, 0, null, null, null, null);
         var valuePerWatt = section.OptionalNumber("value_per_watt");
+        var noLoadValue = section.OptionalNumber("no_load_value_per_watt");
+        var loadValue = section.OptionalNumber("load_value_per_watt");
         var price = section.OptionalNumber("energy_price_per_kwh");
         var hours = section.OptionalNumber("hours_per_year");
         var years = section.OptionalNumber("years");
         var rate = section.OptionalNumber("discount_rate");
+        var loadFactor = section.OptionalNumber("load_factor");
+        var perUnitLoad = section.OptionalNumber("per_unit_load");
         section.RejectUnknownKeys();
+        var given = new[] { valuePerWatt is not null, noLoadValue is not null || loadValue is not null, price is not null }.Count(g => g);
+        if (given > 1)
+            section.Error(valuePerWatt is not null ? "value_per_watt" : "no_load_value_per_watt", "give one of: value_per_watt; no_load_value_per_watt with load_value_per_watt; or energy_price_per_kwh with hours_per_year, years and discount_rate");
+        if ((loadFactor is not null || perUnitLoad is not null) && price is null)
+            section.Error(loadFactor is not null ? "load_factor" : "per_unit_load", "derives the load-loss value from an energy price: give energy_price_per_kwh with it");
         if (valuePerWatt is { } v)
         {
             if (v < 0) section.Error("value_per_watt", "must be zero or positive");
-            if (price is not null) section.Error("energy_price_per_kwh", "give either value_per_watt or energy_price_per_kwh with hours_per_year, years and discount_rate, not both");
             return new Economics(currency, Math.Max(v, 0), null, null, null, null);
+        }
+        if (noLoadValue is not null || loadValue is not null)
+        {
+            if (noLoadValue is null) section.Error("no_load_value_per_watt", "missing: give it with load_value_per_watt");
+            if (loadValue is null) section.Error("load_value_per_watt", "missing: give it with no_load_value_per_watt");
+            if (noLoadValue < 0) section.Error("no_load_value_per_watt", "must be zero or positive");
+            if (loadValue < 0) section.Error("load_value_per_watt", "must be zero or positive");
+            return new Economics(currency, Math.Max(noLoadValue ?? 0, 0), null, null, null, null) { LoadValuePerWatt = Math.Max(loadValue ?? 0, 0) };
         }
         if (price is null)
         {
@@ -109,9 +125,13 @@ public static class ProblemReader
         if (hours is null || hours <= 0 || hours > 8784) { section.Error("hours_per_year", "required with an energy price, between 0 and 8784 h"); ok = false; }
         if (years is null || years <= 0 || years > 100) { section.Error("years", "required with an energy price, between 0 and 100"); ok = false; }
         if (rate is null || rate <= -0.5 || rate > 1) { section.Error("discount_rate", "required with an energy price, as a fraction between -0.5 and 1 (0.06 for 6 %)"); ok = false; }
+        if (loadFactor is { } lf && !(lf > 0 && lf <= 1)) { section.Error("load_factor", "must be in (0, 1]: mean load over peak load"); ok = false; }
+        if (perUnitLoad is { } pul && !(pul > 0 && pul <= 2)) { section.Error("per_unit_load", "must be in (0, 2]: peak load over the rating the plate losses were given at"); ok = false; }
         if (!ok) return new Economics(currency, 0, price, hours, years, rate);
         var value = LossCapitalisation.ValuePerWatt(price.Value, hours!.Value, rate!.Value, years!.Value);
-        return new Economics(currency, value, price, hours, years, rate);
+        if (loadFactor is null && perUnitLoad is null) return new Economics(currency, value, price, hours, years, rate);
+        var share = LossCapitalisation.LoadEnergyShare(perUnitLoad ?? 1, loadFactor ?? 1);
+        return new Economics(currency, value, price, hours, years, rate) { LoadValuePerWatt = value * share, LoadEnergyShare = share };
     }
 
     private static SharedLimits ReadLimits(TomlSection? section, IReadOnlyList<Part> parts, ManufacturingSettings shop)

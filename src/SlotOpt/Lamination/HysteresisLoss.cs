@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using SlotOpt.Waveforms;
 
 namespace SlotOpt.Lamination;
@@ -5,6 +6,9 @@ namespace SlotOpt.Lamination;
 /// <summary>Hysteresis loss from Steinmetz coefficients: kh f Bp^alpha for a sine, iGSE otherwise.</summary>
 public static class HysteresisLoss
 {
+    /// <summary>The rainflow loops of each waveform, counted once (a waveform is immutable).</summary>
+    private static readonly ConditionalWeakTable<IFluxWaveform, IReadOnlyList<FluxCycle>> Loops = new();
+
     /// <summary>Steinmetz: P = kh f Bp^alpha (W/kg with kh per kg).</summary>
     public static double Steinmetz(double kh, double alpha, double frequencyHz, double peakT) =>
         kh * frequencyHz * Math.Pow(peakT, alpha);
@@ -18,7 +22,7 @@ public static class HysteresisLoss
     public static double LoopSplit(double kh, double beta, IFluxWaveform waveform)
     {
         double perPeriod = 0;
-        foreach (var cycle in RainflowCycles.Count(waveform.PeriodSamplesT))
+        foreach (var cycle in Loops.GetValue(waveform, w => RainflowCycles.Count(w.PeriodSamplesT)))
             perPeriod += cycle.Weight * kh * Math.Pow(cycle.RangeT / 2, beta);
         return waveform.FundamentalHz * perPeriod;
     }

@@ -7,18 +7,18 @@ namespace SlotOpt.Lamination;
 /// Loss separation for a lamination (G. Bertotti, IEEE Trans. Magn. 24(1):621, 1988):
 /// P = hysteresis + classical x skin factor x width factor + excess, per kg of steel.
 /// Assumptions: flux along the sheet, uniform across its width, linear permeability for the skin
-/// correction, hysteresis and excess coefficients independent of temperature.
+/// correction, hysteresis coefficients independent of temperature, the excess coefficient scaling with sqrt(conductivity).
 /// </summary>
 public static class LaminationLossModel
 {
-    /// <summary>Harmonics summed for the per-harmonic skin correction of a non-sinusoidal waveform.</summary>
-    public const int SpectrumOrders = 400;
-
     /// <summary>Coefficients are trusted within this factor of the frequency they came from (common practice, no source).</summary>
     public const double CoefficientFrequencyRange = 4;
 
     /// <summary>Thickness over skin depth above which the skin correction is flagged (F(1) = 0.9984; F(x) = (3/x)(sinh x - sin x)/(cosh x - cos x), R. L. Stoll, The Analysis of Eddy Currents, Clarendon Press, 1974; keeping x &lt;~ 1 is common practice, no source).</summary>
     public const double SkinFlagRatio = 1;
+
+    /// <summary>A spectral skin factor further than this from 1 is flagged: the harmonics, not the fundamental, are skin-limited.</summary>
+    public const double SpectralSkinFlagDeparture = 0.002;
 
     public static LaminationLoss Evaluate(ElectricalSteel steel, IFluxWaveform waveform, LaminationConditions? conditions = null)
     {
@@ -32,9 +32,8 @@ public static class LaminationLossModel
         var d = steel.ThicknessM;
 
         var skinDepth = SkinDepth.Of(resistivity, f, steel.RelativePermeability);
-        var skinFactor = waveform.IsSinusoidal
-            ? SkinEffect.Factor(d / skinDepth)
-            : SpectralSkinFactor(waveform, d, resistivity, steel.RelativePermeability);
+        var spectral = waveform.IsSinusoidal ? null : SpectralSkinCorrection.Of(waveform, d, resistivity, steel.RelativePermeability);
+        var skinFactor = spectral?.Factor ?? SkinEffect.Factor(d / skinDepth);
         var widthFactor = FiniteWidth.Factor(d, conditions.FeatureWidthM);
 
         var classical = ClassicalEddyLoss.PerVolume(conductivity, d, waveform.MeanSquareRate) * skinFactor * widthFactor / steel.DensityKgPerM3;
@@ -49,6 +48,8 @@ public static class LaminationLossModel
             hysteresis = HysteresisLoss.LoopSplit(steel.HysteresisCoefficient, steel.HysteresisExponent, waveform);
             excess = ExcessLoss.FromMeanRate(steel.ExcessCoefficient, waveform.MeanAbsRatePower(1.5));
         }
+        // ke = 8 sqrt(sigma G S V0) (Bertotti 1988): the coefficient, known at room temperature, scales with sqrt(sigma)
+        excess *= Math.Sqrt(steel.Resistivity20COhmM / resistivity);
 
         var peak = waveform.PeakT;
         if (peak > steel.MaxFluxT)
@@ -58,6 +59,10 @@ public static class LaminationLossModel
         var ratio = d / skinDepth;
         if (ratio > SkinFlagRatio)
             flags.Add(new ValidityFlag("thick-against-skin-depth", $"thickness is {ratio:0.##} skin depths at {f:0.#} Hz (mu_r {steel.RelativePermeability:0}): classical loss corrected by {skinFactor:0.###}, with linear permeability assumed"));
+        if (spectral is not null && Math.Abs(1 - spectral.Factor) > SpectralSkinFlagDeparture)
+            flags.Add(new ValidityFlag("skin-effect-in-harmonics", $"the harmonics of the waveform are skin-limited: classical loss over the full spectrum ({spectral.OrdersSummed} harmonics, then the asymptotic tail) corrected by {spectral.Factor:0.###}, with linear permeability assumed"));
+        if (spectral is not null && spectral.TailBound > SpectralSkinCorrection.Tolerance)
+            flags.Add(new ValidityFlag("spectrum-truncated", $"the skin correction stopped at {spectral.OrdersSummed} harmonics holding {spectral.CoveredFraction:P3} of the mean square dB/dt; the tail estimate may be off by up to {spectral.TailBound:P2}"));
         if (f > steel.CoefficientsFrequencyHz * CoefficientFrequencyRange || f < steel.CoefficientsFrequencyHz / CoefficientFrequencyRange)
             flags.Add(new ValidityFlag("coefficients-extrapolated", $"{f:0.#} Hz is far from the {steel.CoefficientsFrequencyHz:0.#} Hz data the hysteresis and excess coefficients of {steel.Grade} came from"));
 
@@ -65,24 +70,5 @@ public static class LaminationLossModel
         if (!double.IsFinite(result.TotalWPerKg))
             throw new NumericalFailureException($"grade {steel.Grade}: loss is not finite (hysteresis {hysteresis}, classical {classical}, excess {excess})");
         return result;
-    }
-
-    /// <summary>
-    /// Skin factor of a non-sinusoidal waveform: each harmonic's classical loss (n omega A_n)^2 / 2 weighted by
-    /// its own F(d / delta_n), over the sum of those losses (linear superposition of the 1-D solution).
-    /// </summary>
-    private static double SpectralSkinFactor(IFluxWaveform waveform, double thicknessM, double resistivityOhmM, double relativePermeability)
-    {
-        double weighted = 0, total = 0;
-        foreach (var h in waveform.Spectrum(SpectrumOrders))
-        {
-            var rate = h.Order * h.AmplitudeT;
-            var weight = rate * rate;
-            if (weight == 0) continue;
-            var delta = SkinDepth.Of(resistivityOhmM, h.Order * waveform.FundamentalHz, relativePermeability);
-            weighted += weight * SkinEffect.Factor(thicknessM / delta);
-            total += weight;
-        }
-        return total > 0 ? weighted / total : 1;
     }
 }

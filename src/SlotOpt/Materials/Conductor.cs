@@ -15,8 +15,16 @@ public sealed record Conductor(
 {
     public const double RoomTemperatureK = 293.15;
 
-    /// <summary>Range in which the linear coefficient is trusted (common practice, no source).</summary>
+    /// <summary>Range in which the linear coefficient is trusted, and outside which it is refused (common practice, no source).</summary>
     public const double LinearModelMinK = 150, LinearModelMaxK = 500;
+
+    /// <summary>
+    /// The temperature-independent residual resistivity (impurities, defects) when the data give it (ohm m); null to infer
+    /// it as rho(20 degC) - rho_intrinsic(20 degC). Annealed high-purity copper has rho(273 K)/rho_residual (RRR) of 100
+    /// or more (N. J. Simon, E. S. Drexler, R. P. Reed, Properties of Copper and Copper Alloys at Cryogenic Temperatures,
+    /// NIST Monograph 177, 1992; from memory).
+    /// </summary>
+    public double? ResidualResistivityOhmM { get; init; }
 
     /// <summary>Resistivity at a temperature (ohm m).</summary>
     /// <exception cref="InputException">The temperature lies outside the model's data.</exception>
@@ -28,21 +36,23 @@ public sealed record Conductor(
                 return MatthiessenResistivity(IntrinsicResistivity.Copper, temperatureK);
             case TemperatureModel.MatthiessenAluminium:
                 return MatthiessenResistivity(IntrinsicResistivity.Aluminium, temperatureK);
+            case TemperatureModel.MatthiessenIron:
+                return MatthiessenResistivity(IntrinsicResistivity.Iron, temperatureK);
             default:
-                if (temperatureK < 1 || temperatureK > 1000)
-                    throw new InputException($"temperature {temperatureK:0.#} K is outside 1..1000 K for {Name}");
+                if (temperatureK < LinearModelMinK || temperatureK > LinearModelMaxK)
+                    throw new InputException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                        $"temperature {temperatureK:0.#} K is outside {LinearModelMinK:0} to {LinearModelMaxK:0} K, where the linear resistivity law of {Name} is trusted; give its resistivity at that temperature as a material override"));
                 // rho(T) = rho20 (1 + alpha20 (T - 293.15 K)): the usual linear law (IEC 60028 for copper)
                 return Resistivity20COhmM * (1 + Alpha20PerK * (temperatureK - RoomTemperatureK));
         }
     }
 
-    /// <summary>True where the resistivity at this temperature rests on an extrapolated linear coefficient.</summary>
-    public bool IsExtrapolatedAt(double temperatureK) =>
-        TemperatureModel == TemperatureModel.Linear && (temperatureK < LinearModelMinK || temperatureK > LinearModelMaxK);
-
     public double ConductivityAt(double temperatureK) => 1.0 / ResistivityAt(temperatureK);
 
-    /// <summary>rho(T) = rho(293 K) - rho_i(293 K) + rho_i(T): Matthiessen's rule (residual term independent of T).</summary>
+    /// <summary>
+    /// rho(T) = rho_residual + rho_i(T): Matthiessen's rule (residual term independent of T), the residual given or
+    /// inferred as rho(293 K) - rho_i(293 K).
+    /// </summary>
     private double MatthiessenResistivity(IntrinsicResistivity table, double temperatureK) =>
-        Resistivity20COhmM - table.At(RoomTemperatureK) + table.At(temperatureK);
+        (ResidualResistivityOhmM ?? Resistivity20COhmM - table.At(RoomTemperatureK)) + table.At(temperatureK);
 }

@@ -25,14 +25,11 @@ public sealed record ElectricalSteel(
     double PricePerKg,
     string Source)
 {
-    /// <summary>Slope of resistivity with temperature in iron-silicon alloys near room temperature (ohm m / K).</summary>
-    /// <remarks>
-    /// Matthiessen's rule: alloying adds a temperature-independent residual term, so the slope is that of
-    /// pure iron, 0.0065/K x 9.7e-8 ohm m = 6.3e-10 ohm m/K (CRC Handbook, pure-iron resistivity; from memory).
-    /// </remarks>
-    public const double IronResistivitySlopeOhmMPerK = 6.3e-10;
-
-    /// <summary>Resistivity at a temperature by Matthiessen's rule around 20 degC.</summary>
+    /// <summary>
+    /// Resistivity at a temperature by Matthiessen's rule: silicon and other alloying add a temperature-independent
+    /// residual to the intrinsic resistivity of pure iron, rho(T) = rho(20 degC) - rho_Fe(20 degC) + rho_Fe(T).
+    /// </summary>
+    /// <exception cref="InputException">The temperature lies outside the iron table.</exception>
     public double ResistivityAt(double temperatureK) =>
-        Resistivity20COhmM + IronResistivitySlopeOhmMPerK * (temperatureK - Conductor.RoomTemperatureK);
+        Resistivity20COhmM - IntrinsicResistivity.Iron.At(Conductor.RoomTemperatureK) + IntrinsicResistivity.Iron.At(temperatureK);
 }

@@ -43,6 +43,7 @@ public sealed class IntrinsicResistivity
 
     public static IntrinsicResistivity Copper => BuiltInTables.Value["Cu"];
     public static IntrinsicResistivity Aluminium => BuiltInTables.Value["Al"];
+    public static IntrinsicResistivity Iron => BuiltInTables.Value["Fe"];
 
     private static readonly Lazy<Dictionary<string, IntrinsicResistivity>> BuiltInTables = new(LoadBuiltIn);
 

@@ -90,9 +90,13 @@ public sealed class MaterialLibrary
             "linear" => TemperatureModel.Linear,
             "matthiessen-Cu" => TemperatureModel.MatthiessenCopper,
             "matthiessen-Al" => TemperatureModel.MatthiessenAluminium,
-            var other => throw new InputException($"{row.SourceName}:{row.LineNumber}: temperature_model \"{other}\" is not linear, matthiessen-Cu or matthiessen-Al"),
+            "matthiessen-Fe" => TemperatureModel.MatthiessenIron,
+            var other => throw new InputException($"{row.SourceName}:{row.LineNumber}: temperature_model \"{other}\" is not linear, matthiessen-Cu, matthiessen-Al or matthiessen-Fe"),
         },
         YoungsModulusPa: row.Number("youngs_modulus_gpa") * 1e9,
         PricePerKg: row.Number("price_per_kg"),
-        Source: row.Text("source"));
+        Source: row.Text("source"))
+    {
+        ResidualResistivityOhmM = row.Text("residual_resistivity_uohm_cm") is { Length: > 0 } ? row.Number("residual_resistivity_uohm_cm") * 1e-8 : null,
+    };
 }

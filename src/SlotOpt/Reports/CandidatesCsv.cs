@@ -1,6 +1,5 @@
 using System.Globalization;
 using System.Text;
-using SlotOpt.Design;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;
@@ -24,7 +23,6 @@ public static class CandidatesCsv
         var options = r.Parts.SelectMany(p => p.Options).ToList();
         var attributeColumns = options.SelectMany(o => o.Attributes.Keys).Distinct(StringComparer.Ordinal).ToList();
         var chosenIds = r.Chosen?.Select(o => o.Id).ToHashSet(StringComparer.Ordinal) ?? [];
-        var vpw = r.Problem.Economics.ValuePerWatt;
         var s = new StringBuilder();
         Row(s, LeadingColumns.Concat(attributeColumns).Concat(TrailingColumns));
         foreach (var o in options)
@@ -34,7 +32,7 @@ public static class CandidatesCsv
                 .Concat(attributeColumns.Select(c => o.Attributes.TryGetValue(c, out var v) ? v : ""))
                 .Concat([
                     N(o.Loss.TotalW), N(o.Loss.HysteresisW), N(o.Loss.ClassicalW), N(o.Loss.ExcessW), N(o.Loss.PlateEddyW), N(o.Loss.DragPowerW),
-                    o.DragN is { } d ? N(d) : "", N(o.BuildCost), N(o.BuildCost + vpw * o.Loss.TotalW),
+                    o.DragN is { } d ? N(d) : "", N(o.BuildCost), N(o.BuildCost + r.Problem.ValuePerWattOf(o.PartName) * o.Loss.TotalW),
                     o.IsFeasible ? "yes" : "no", o.Rejection?.Message ?? "", chosenIds.Contains(o.Id) ? "yes" : "no", string.Join("; ", o.Flags),
                 ]));
         }

@@ -32,13 +32,23 @@ public static class ReportContent
     private static string F(FormattableString s) => s.ToString(Ci);
     private static string Cur(RunResult r) => r.Problem.Economics.Currency;
 
+    /// <summary>" (tie plate, clamp)" naming the parts whose loss is of this kind, or "" when none is.</summary>
+    private static string PartsOfKind(Problem p, LossKind kind)
+    {
+        var names = p.Parts.Where(x => x.LossKind == kind).Select(x => x.Name).ToList();
+        return names.Count == 0 ? "" : $" ({string.Join(", ", names)})";
+    }
+
     private static void Job(RunResult r, List<ReportBlock> b)
     {
         var p = r.Problem;
         var e = p.Economics;
         b.Add(new Heading("The job"));
         b.Add(new Paragraph(F($"Problem file {Path.GetFileName(p.SourcePath)}; goal: {GoalWords(p.Goal)}. Currency {e.Currency}.")));
-        var economics = F($"A watt of continuous loss is worth {e.ValuePerWatt:0.###} {e.Currency} over the life");
+        var economics = e.SeparatesLoadLoss
+            ? F($"A watt of no-load loss{PartsOfKind(p, LossKind.NoLoad)} is worth {e.ValuePerWatt:0.###} {e.Currency} over the life, a watt of load loss{PartsOfKind(p, LossKind.Load)} {e.LoadValuePerWatt:0.###} {e.Currency}")
+              + (e.LoadEnergyShare is { } share ? F($", since load loss is paid at (per-unit load)^2 x loss factor = {share:0.###} of the energised hours (IEEE C57.120 A and B factors)") : "")
+            : F($"A watt of continuous loss is worth {e.ValuePerWatt:0.###} {e.Currency} over the life");
         if (e.EnergyPricePerKWh is { } price && e.HoursPerYear is { } hours)
             economics += F($" (energy at {price:0.###} {e.Currency}/kWh for {hours:0} h a year") + (e.Years is { } years ? F($", {years:0.#} years") : "")
                 + (e.DiscountRate is { } rate ? F($" discounted at {rate * 100:0.#} %") : "") + ")";
@@ -144,24 +154,27 @@ public static class ReportContent
         {
             var reference = r.Reference;
             var savedW = reference.LossW - r.TotalLossW;
-            var savedOwning = reference.OwningCost(vpw) - r.OwningCost;
+            var savedOwning = reference.OwningCost(r.Problem) - r.OwningCost;
             var extraCost = r.TotalBuildCost - reference.BuildCost;
             var text = savedW >= 0
                 ? F($"Against the {reference.Name}, the chosen design saves {savedW:0.###} W")
                 : F($"Against the {reference.Name}, the chosen design loses {-savedW:0.###} W more (a negative saving: the goal traded loss for build cost)");
-            if (r.Problem.Economics.YearlyCostPerWatt is { } perYear)
+            if (r.Problem.YearlyLossCost(reference.Options) is { } referenceYearly && r.Problem.YearlyLossCost(r.Chosen!) is { } chosenYearly)
             {
-                text += F($" = {savedW * perYear:0.00} {cur} a year");
-                if (extraCost > 0 && savedW * perYear > 0) text += F($" (its extra build cost of {extraCost:0.00} {cur} is paid back in {extraCost / (savedW * perYear):0.#} years, undiscounted)");
+                var savedYearly = referenceYearly - chosenYearly;
+                text += F($" = {savedYearly:0.00} {cur} a year");
+                if (extraCost > 0 && savedYearly > 0) text += F($" (its extra build cost of {extraCost:0.00} {cur} is paid back in {extraCost / savedYearly:0.#} years, undiscounted)");
             }
             else text += " (the energy price and hours are not given, so no figure per year)";
-            text += F($", and {(savedOwning >= 0 ? "saves" : "adds")} {Math.Abs(savedOwning):0.00} {cur} of owning cost over the life (loss at {vpw:0.###} {cur}/W).");
+            text += F($", and {(savedOwning >= 0 ? "saves" : "adds")} {Math.Abs(savedOwning):0.00} {cur} of owning cost over the life ") + (r.Problem.Economics.SeparatesLoadLoss
+                ? F($"(no-load loss at {vpw:0.###} {cur}/W, load loss at {r.Problem.Economics.LoadValuePerWatt:0.###} {cur}/W).")
+                : F($"(loss at {vpw:0.###} {cur}/W)."));
             b.Add(new Paragraph(text));
         }
         var rows = new List<IReadOnlyList<string>>();
         if (r.HasDesign) rows.Add(["chosen design", F($"{r.TotalLossW:0.###}"), F($"{r.TotalBuildCost:0.00}"), F($"{r.OwningCost:0.00}"), "meets every limit"]);
         foreach (var baseline in r.Baselines)
-            rows.Add([baseline.Name, F($"{baseline.LossW:0.###}"), F($"{baseline.BuildCost:0.00}"), F($"{baseline.OwningCost(vpw):0.00}"),
+            rows.Add([baseline.Name, F($"{baseline.LossW:0.###}"), F($"{baseline.BuildCost:0.00}"), F($"{baseline.OwningCost(r.Problem):0.00}"),
                 BaselineBreaks.Of(r, baseline) is { Count: > 0 } broken ? string.Join("\n", broken) : "meets every limit"]);
         b.Add(new Table(["design", "loss (W)", $"build cost ({cur})", $"owning cost ({cur})", "limits it breaks"], rows, [false, true, true, true, false]));
         b.Add(new Paragraph("The baselines are whole-product designs: the first is the design the file calls current (or solid plates and the first grade listed); then every core at its thickest and at its thinnest gauge with every plate solid. They are checked against the parts' rules and limits, the budget and the loss cap; not against the coil and process-count limits."));
@@ -214,16 +227,21 @@ public static class ReportContent
             : $"{name}: {v} of {l} {unit}: {(limit - value).ToString(format, Ci)} {unit} of room";
     }
 
+    /// <summary>A front point's owning cost: its totals at one value per watt, or each part's loss at its own kind's value.</summary>
+    private static double FrontOwningCost(RunResult r, FrontPoint p) => r.Problem.Economics.SeparatesLoadLoss
+        ? r.Problem.OwningCost(p.CandidateIds.Select(r.Option))
+        : p.BuildCost + r.Problem.Economics.ValuePerWatt * p.LossW;
+
     private static void Plots(RunResult r, ReportFigures figures, List<ReportBlock> b)
     {
         if (figures.TradeOff is { } tradeOff)
         {
             b.Add(new Heading("Trade-off: loss against build cost"));
             b.Add(new FigureBlock(tradeOff));
-            var vpw = r.Problem.Economics.ValuePerWatt;
+            
             var front = r.Outcome.Front!;
             var chosenIds = r.Chosen?.Select(o => o.Id).ToList() ?? [];
-            var rows = front.Points.Select(p => (IReadOnlyList<string>)[p.CandidateIds.SequenceEqual(chosenIds) ? "chosen" : "", F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{p.BuildCost + vpw * p.LossW:0.00}"),
+            var rows = front.Points.Select(p => (IReadOnlyList<string>)[p.CandidateIds.SequenceEqual(chosenIds) ? "chosen" : "", F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{FrontOwningCost(r, p):0.00}"),
                 string.Join("\n", p.CandidateIds.Select(id => r.Parts.Count == 1 ? r.Option(id).Description : $"{r.Option(id).PartName}: {r.Option(id).Description}"))]).ToList();
             b.Add(new Paragraph($"{front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? ", each proven" : ", not all proven")}:"));
             b.Add(new Table(["", $"build cost ({Cur(r)})", "loss (W)", $"owning cost ({Cur(r)})", "design"], rows, [false, true, true, true, false]));
@@ -288,7 +306,7 @@ public static class ReportContent
         var items = new List<string>
         {
             "The figures are engineering estimates from published loss models and a thin-plate eddy-current model; confirm them by test on the real part before relying on them.",
-            "Core loss: loss separation (hysteresis, classical eddy with skin and finite-width corrections, excess) with coefficients derived from the grades' guaranteed limits, not measured on your steel; cutting damage, burrs and stacking pressure add loss not modelled here.",
+            "Core loss: loss separation (hysteresis, classical eddy with skin and finite-width corrections, excess) with coefficients derived from the grades' guaranteed limits, not measured on your steel, times the construction's building factor and the cut edges' degraded band (per process); burrs and stacking pressure add loss not modelled here.",
             "Plates: every option is screened with the resistance-limited thin-plate model (the eddy currents' own field neglected), which overstates loss and drag where the Reynolds number or thickness over skin depth is flagged; the chosen plates are then solved again with the model their validity figures call for (thin sheet with its own field, or layered thick plate), as \"The chosen design\" says. Plates are taken as non-magnetic and of uniform thickness.",
             "Prices in the built-in data are invented demo prices; the owning cost is only as good as the value per watt put on the loss.",
             "Braking and load-holding uses (eddy-current brakes, rails or plates whose drag stops or holds a load) need a certified safety analysis; the drag here is not a brake rating.",

@@ -7,7 +7,7 @@ public sealed record Baseline(string Name, IReadOnlyList<EvaluatedOption> Option
 {
     public double BuildCost => Options.Sum(o => o.BuildCost);
     public double LossW => Options.Sum(o => o.Loss.TotalW);
-    public double OwningCost(double valuePerWatt) => BuildCost + valuePerWatt * LossW;
+    public double OwningCost(Problem problem) => problem.OwningCost(Options);
 
     /// <summary>Rules or limits this design breaks, one line each.</summary>
     public IReadOnlyList<string> Breaks => Options.Where(o => !o.IsFeasible).Select(o => $"{o.PartName}: {o.Rejection!.Message}").ToList();

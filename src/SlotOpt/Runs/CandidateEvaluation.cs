@@ -38,7 +38,10 @@ public static class CandidateEvaluation
 
     /// <summary>The selection's view: the feasible options of each part, as candidates.</summary>
     public static SelectionProblem ToSelectionProblem(Problem problem, IReadOnlyList<PartEvaluation> parts) => new(
-        parts.Select(p => new PartChoices(p.Part.Name, p.Feasible.Select(o => new Candidate(o.Id, o.BuildCost, o.Loss.TotalW, o.DragN, o.Attributes)).ToList())).ToList(),
+        parts.Select(p => new PartChoices(p.Part.Name, p.Feasible.Select(o => new Candidate(o.Id, o.BuildCost, o.Loss.TotalW, o.DragN, o.Attributes)).ToList())
+        {
+            ValuePerWatt = problem.Economics.SeparatesLoadLoss ? problem.Economics.ValuePerWattFor(p.Part.LossKind) : null,
+        }).ToList(),
         new SharedLimits
         {
             Budget = problem.Limits.Budget,

@@ -1,12 +1,11 @@
 using SlotOpt.Design;
-using SlotOpt.Lamination;
 
 namespace SlotOpt.Runs;
 
 /// <summary>
 /// Loss of one core part against frequency for every grade (gauge) it may be cut from: the part's own
-/// waveform and peak moved to each frequency, evaluated by <see cref="LaminationLossModel"/> and multiplied
-/// by that grade's steel mass in the part. The crossings say where one gauge starts to lose less than another.
+/// waveform and peak moved to each frequency, evaluated as the part's option with the first process
+/// (<see cref="CoreOptions.EvaluateOne"/>: steel flux, loss model, steel mass, building factor, cut edges). The crossings say where one gauge starts to lose less than another.
 /// </summary>
 public sealed record LossFrequencyCurves(CorePart Part, IReadOnlyList<double> FrequenciesHz, IReadOnlyList<LossFrequencyCurves.Curve> Curves, IReadOnlyList<LossFrequencyCurves.Crossing> Crossings)
 {
@@ -24,14 +23,13 @@ public sealed record LossFrequencyCurves(CorePart Part, IReadOnlyList<double> Fr
     {
         var f0 = part.Flux.FundamentalHz;
         var frequencies = Enumerable.Range(0, Samples).Select(k => f0 / SpanFactor * Math.Pow(SpanFactor * SpanFactor, k / (double)(Samples - 1))).ToArray();
-        var conditions = new LaminationConditions { TemperatureK = part.TemperatureK, FeatureWidthM = part.FeatureWidthM };
         var process = problem.Shop.Processes[part.Processes[0]];
-        var waveforms = frequencies.Select(f => WaveformAtFrequency.Of(part.Flux, f)).ToArray();
+        var moved = frequencies.Select(f => part with { Flux = WaveformAtFrequency.Of(part.Flux, f) }).ToArray();
         var curves = part.Grades.Select(grade =>
         {
             var steel = problem.Library.GetSteel(grade, part.Name);
-            var massKg = CoreCost.Of(part, steel, process, problem.Shop).SteelMassKg;
-            var loss = waveforms.Select(w => LaminationLossModel.Evaluate(steel, w, conditions).TotalWPerKg * massKg).ToArray();
+            // the option's own evaluation (steel flux, building factor, cut edges) at each frequency
+            var loss = moved.Select(p => CoreOptions.EvaluateOne(p, steel, process, problem.Shop).Loss.TotalW).ToArray();
             return new Curve(grade, steel.ThicknessM * 1e3, loss);
         }).OrderByDescending(c => c.GaugeMm).ThenBy(c => c.Grade, StringComparer.Ordinal).ToList();
         return new LossFrequencyCurves(part, frequencies, curves, CrossingsOf(frequencies, curves));

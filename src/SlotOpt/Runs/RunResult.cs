@@ -25,7 +25,7 @@ public sealed record RunResult(
     public bool HasDesign => Chosen is not null;
     public double TotalLossW => Chosen?.Sum(o => o.Loss.TotalW) ?? double.NaN;
     public double TotalBuildCost => Chosen?.Sum(o => o.BuildCost) ?? double.NaN;
-    public double OwningCost => TotalBuildCost + Problem.Economics.ValuePerWatt * TotalLossW;
+    public double OwningCost => Chosen is null ? double.NaN : Problem.OwningCost(Chosen);
 
     /// <summary>The chosen plate of a part confirmed with the model its validity calls for, if it is a plate.</summary>
     public PlateConfirmation? Confirmation(string partName) => Confirmations.FirstOrDefault(c => c.PartName == partName);

@@ -29,6 +29,8 @@ internal static class SelectionProblemValidation
         }
 
         if (!IsScalable(problem.ValuePerWatt)) errors.Add($"value per watt {problem.ValuePerWatt} ({Expected})");
+        foreach (var part in problem.Parts.Where(p => p.ValuePerWatt is { } own && !IsScalable(own)))
+            errors.Add($"part {part.PartName}: value per watt {part.ValuePerWatt} ({Expected})");
         if (limits.Budget is { } budget && !IsScalable(budget)) errors.Add($"budget {budget} ({Expected})");
         if (limits.TotalLossCapW is { } cap && !IsScalable(cap)) errors.Add($"total loss cap {cap} W ({Expected})");
         if (limits.MaxDistinctProcesses is < 1)

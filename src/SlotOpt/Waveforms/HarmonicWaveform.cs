@@ -74,6 +74,22 @@ public sealed class HarmonicWaveform : IFluxWaveform
 
     public IReadOnlyList<Harmonic> Spectrum(int maxOrder) => harmonics.Where(h => h.Order <= maxOrder).ToArray();
 
+    /// <summary>Repeated orders add as phasors: A e^(i phi) summed, then (n omega |A|)^2 / 2.</summary>
+    public IReadOnlyList<double> MeanSquareRateByOrder(int maxOrder)
+    {
+        var omega = 2 * Math.PI * FundamentalHz;
+        var weights = new double[Math.Min(maxOrder, HighestOrder ?? 0)];
+        foreach (var order in harmonics.Select(h => h.Order).Distinct().Where(n => n <= weights.Length))
+        {
+            var phasor = harmonics.Where(h => h.Order == order).Aggregate(System.Numerics.Complex.Zero,
+                (sum, h) => sum + System.Numerics.Complex.FromPolarCoordinates(h.AmplitudeT, h.PhaseRad));
+            weights[order - 1] = Math.Pow(order * omega * phasor.Magnitude, 2) / 2;
+        }
+        return weights;
+    }
+
+    public int? HighestOrder => harmonics.Where(h => h.AmplitudeT > 0).Select(h => (int?)h.Order).Max() ?? 1;
+
     public IReadOnlyList<double> PeriodSamplesT => valueSamples;
 
     public double ValueAt(double timeS)

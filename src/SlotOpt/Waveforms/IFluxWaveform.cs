@@ -23,6 +23,15 @@ public interface IFluxWaveform
     /// <summary>The harmonics up to the given order (those with zero amplitude may be left out).</summary>
     IReadOnlyList<Harmonic> Spectrum(int maxOrder);
 
+    /// <summary>
+    /// Each order's share of <see cref="MeanSquareRate"/>, (n omega A_n)^2 / 2, for orders 1..maxOrder (fewer when
+    /// the spectrum ends sooner, see <see cref="HighestOrder"/>); by Parseval's theorem they sum to MeanSquareRate.
+    /// </summary>
+    IReadOnlyList<double> MeanSquareRateByOrder(int maxOrder);
+
+    /// <summary>The highest order with a nonzero amplitude, or null when the spectrum never ends (corners in B(t)).</summary>
+    int? HighestOrder { get; }
+
     /// <summary>True for a single sine, for which the loss model has closed forms.</summary>
     bool IsSinusoidal { get; }
 

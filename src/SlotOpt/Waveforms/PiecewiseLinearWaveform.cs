@@ -15,6 +15,7 @@ public sealed class PiecewiseLinearWaveform : IFluxWaveform
     private readonly double[] ratesTPerS;
     private readonly object spectrumLock = new();
     private Harmonic[] spectrum = [];
+    private double[] rateWeights = [];
 
     /// <param name="fundamentalHz">1 / period.</param>
     /// <param name="phases">Sample times as fractions of the period, strictly increasing within [0, 1).</param>
@@ -96,6 +97,71 @@ public sealed class PiecewiseLinearWaveform : IFluxWaveform
             rateCoefficient /= period;
             var c = rateCoefficient / (Complex.ImaginaryOne * nw);
             result[order - 1] = new Harmonic(order, 2 * c.Magnitude, c.Phase + Math.PI / 2);
+        }
+        return result;
+    }
+
+    /// <summary>Orders between exact restarts of the rotating phasors (keeps their rounding drift below 1e-12).</summary>
+    private const int PhasorRestartOrders = 1024;
+
+    /// <summary>
+    /// dB/dt is piecewise constant, jumping by J_i = s_i - s_(i-1) at phase t_i, so its Fourier coefficient is exactly
+    /// R_n = sum_i J_i e^(-i 2 pi n t_i) / (i 2 pi n) (integration by parts over one period) and the order's share
+    /// of the mean square rate is 2 |R_n|^2. The phasors e^(-i 2 pi n t_i) rotate by one multiplication per order.
+    /// </summary>
+    public IReadOnlyList<double> MeanSquareRateByOrder(int maxOrder)
+    {
+        lock (spectrumLock)
+        {
+            if (rateWeights.Length < maxOrder) rateWeights = ExtendRateWeights(rateWeights, Math.Max(maxOrder, 2 * rateWeights.Length));
+            return new ArraySegment<double>(rateWeights, 0, Math.Max(maxOrder, 0));
+        }
+    }
+
+    public int? HighestOrder => null;
+
+    private double[] ExtendRateWeights(double[] known, int orders)
+    {
+        var n = phases.Length;
+        var jumps = new List<(double Phase, double Jump)>();
+        for (var i = 0; i < n; i++)
+        {
+            var jump = ratesTPerS[i] - ratesTPerS[(i - 1 + n) % n];
+            if (jump != 0) jumps.Add((phases[i], jump));
+        }
+        var result = new double[orders];
+        Array.Copy(known, result, known.Length);
+        var count = jumps.Count;
+        var jumpSizes = jumps.Select(j => j.Jump).ToArray();
+        var stepRe = new double[count];
+        var stepIm = new double[count];
+        var re = new double[count];
+        var im = new double[count];
+        for (var k = 0; k < count; k++)
+        {
+            stepRe[k] = Math.Cos(2 * Math.PI * jumps[k].Phase);
+            stepIm[k] = -Math.Sin(2 * Math.PI * jumps[k].Phase);
+        }
+        for (var order = known.Length + 1; order <= orders; order++)
+        {
+            if (order == known.Length + 1 || order % PhasorRestartOrders == 0)
+                for (var k = 0; k < count; k++)
+                {
+                    var angle = 2 * Math.PI * ((double)order * jumps[k].Phase % 1.0);
+                    re[k] = Math.Cos(angle);
+                    im[k] = -Math.Sin(angle);
+                }
+            double sumRe = 0, sumIm = 0;
+            for (var k = 0; k < count; k++)
+            {
+                sumRe += jumpSizes[k] * re[k];
+                sumIm += jumpSizes[k] * im[k];
+                var nextRe = re[k] * stepRe[k] - im[k] * stepIm[k];
+                im[k] = re[k] * stepIm[k] + im[k] * stepRe[k];
+                re[k] = nextRe;
+            }
+            var scale = 2 * Math.PI * order;
+            result[order - 1] = 2 * (sumRe * sumRe + sumIm * sumIm) / (scale * scale);
         }
         return result;
     }

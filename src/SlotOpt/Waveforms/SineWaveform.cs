@@ -26,6 +26,10 @@ public sealed class SineWaveform : IFluxWaveform
 
     public IReadOnlyList<Harmonic> Spectrum(int maxOrder) => [new Harmonic(1, PeakT, 0)];
 
+    public IReadOnlyList<double> MeanSquareRateByOrder(int maxOrder) => maxOrder >= 1 ? [MeanSquareRate] : [];
+
+    public int? HighestOrder => 1;
+
     public IReadOnlyList<double> PeriodSamplesT => [0, PeakT, 0, -PeakT];
 
     public double ValueAt(double timeS) => PeakT * Math.Sin(2 * Math.PI * FundamentalHz * timeS);

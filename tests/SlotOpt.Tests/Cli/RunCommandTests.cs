@@ -18,7 +18,9 @@ public class RunCommandTests
         var parts = root.GetProperty("parts").EnumerateArray().ToList();
         Assert.Equal(parts.Sum(p => p.GetProperty("loss_w").GetDouble()), root.GetProperty("total_loss_w").GetDouble(), 1e-9);
         Assert.Equal(parts.Sum(p => p.GetProperty("build_cost").GetDouble()), root.GetProperty("total_cost").GetDouble(), 1e-9);
-        var owning = root.GetProperty("total_cost").GetDouble() + root.GetProperty("value_per_watt").GetDouble() * root.GetProperty("total_loss_w").GetDouble();
+        // each part's loss at its own kind's value (IEEE C57.120 A for no-load, B for load loss; the tie plate is load loss)
+        var owning = parts.Sum(p => p.GetProperty("build_cost").GetDouble() + p.GetProperty("value_per_watt").GetDouble() * p.GetProperty("loss_w").GetDouble());
+        Assert.Equal(root.GetProperty("load_value_per_watt").GetDouble(), parts[0].GetProperty("value_per_watt").GetDouble());
         Assert.Equal(owning, root.GetProperty("owning_cost").GetDouble(), 1e-9);
         var front = root.GetProperty("front").EnumerateArray().ToList();
         Assert.NotEmpty(front);

@@ -124,7 +124,9 @@ public sealed class HostileInputTests : IDisposable
         Assert.True(run.ExitCode is 2 or 4, $"exit {run.ExitCode}: {run.Stderr}");
         Assert.DoesNotContain("   at ", run.Stderr);
         AssertNothingButErrorsOnOutput(run, run.ExitCode);
-        if (run.ExitCode == 4) Assert.Matches(@"^numerical failure: the result's [a-z_\[\]0-9.]+ is (-?Infinity|NaN), not a finite number", run.Stderr);
+        // exit 4 either from the solver the model choice picks (a thick plate at this conductivity does not converge)
+        // or from the JSON guard naming the key; both start with the failure's kind
+        if (run.ExitCode == 4) Assert.StartsWith("numerical failure: ", run.Stderr);
     }
 
     private static void AssertCleanRefusal(SlotOptProcess.Outcome run, int exitCode, string what)

@@ -77,12 +77,13 @@ public class ResistivityTests
         Assert.Throws<InputException>(() => Library("Al-6061-T6").ResistivityAt(900));
     }
 
+    // The linear law is trusted from 150 K to 500 K (common practice, no source) and refused outside, with the way out.
     [Fact]
-    public void Linear_model_flags_cryogenic_extrapolation()
+    public void Linear_model_refuses_cryogenic_temperatures()
     {
         var steel = Library("SS-304");
-        Assert.True(steel.IsExtrapolatedAt(77));
-        Assert.False(steel.IsExtrapolatedAt(353.15));
+        Assert.Contains("150 to 500 K", Assert.Throws<InputException>(() => steel.ResistivityAt(77)).Message);
+        Assert.True(steel.ResistivityAt(353.15) > steel.ResistivityAt(293.15));
     }
 
     private static readonly Conductor PureCopper = new("pure Cu", 1.678e-8, 0.0039, 8960, 1, false, TemperatureModel.MatthiessenCopper, 117e9, 0, "test: residual 0.002 uOhm cm");

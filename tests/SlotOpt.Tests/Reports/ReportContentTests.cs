@@ -1,7 +1,6 @@
 using System.Text.RegularExpressions;
 using SlotOpt.Design;
 using SlotOpt.Input;
-using SlotOpt.Lamination;
 using SlotOpt.Reports;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
@@ -78,13 +77,9 @@ public sealed class ReportContentTests : IDisposable
         // a crossing is where the two curves meet: both grades lose the same there (within the sampling's interpolation)
         foreach (var crossing in curves.Crossings)
         {
-            var conditions = new LaminationConditions { TemperatureK = core.TemperatureK, FeatureWidthM = core.FeatureWidthM };
-            var waveform = WaveformAtFrequency.Of(core.Flux, crossing.FrequencyHz);
-            double Loss(string grade)
-            {
-                var steel = r.Problem.Library.GetSteel(grade, core.Name);
-                return LaminationLossModel.Evaluate(steel, waveform, conditions).TotalWPerKg * CoreCost.Of(core, steel, r.Problem.Shop.Processes[core.Processes[0]], r.Problem.Shop).SteelMassKg;
-            }
+            var moved = core with { Flux = WaveformAtFrequency.Of(core.Flux, crossing.FrequencyHz) };
+            double Loss(string grade) =>
+                CoreOptions.EvaluateOne(moved, r.Problem.Library.GetSteel(grade, core.Name), r.Problem.Shop.Processes[core.Processes[0]], r.Problem.Shop).Loss.TotalW;
             Assert.Equal(1, Loss(crossing.BetterAbove) / Loss(crossing.BetterBelow), 0.01);
         }
     }

@@ -37,7 +37,7 @@ public class DemoRunTests
         var chosen = Assert.IsType<CoreChoice>(Assert.Single(result.Chosen!).Choice);
         var steel = result.Problem.Library.GetSteel(chosen.Grade, "test");
         Assert.True(steel.ThicknessM < 0.50e-3, chosen.Grade);
-        Assert.True(result.OwningCost < result.Reference.OwningCost(result.Problem.Economics.ValuePerWatt));
+        Assert.True(result.OwningCost < result.Reference.OwningCost(result.Problem));
     }
 
     // The shared coil: stator and mover of the actuator demo take the same grade and gauge.

@@ -28,7 +28,7 @@ internal sealed record ScaledProblem
         var rate = IntegerScale.ToCentsPerKilowatt(problem.ValuePerWatt);
         var coilValues = new Dictionary<string, int>();
         var processes = new Dictionary<string, int>();
-        var parts = problem.Parts.Select(p => ScalePart(p, rate, coilValues, processes)).ToArray();
+        var parts = problem.Parts.Select(p => ScalePart(p, p.ValuePerWatt is { } own ? IntegerScale.ToCentsPerKilowatt(own) : rate, coilValues, processes)).ToArray();
 
         Int128 largest = 0;
         foreach (var part in parts)
