@@ -15,8 +15,9 @@ public static class Program
             case "selection": return SelectionBench.Run(rest);
             case "reaction": return ReactionBench.Run(rest);
             case "thermal": return ThermalBench.Run(rest);
+            case "peer": return PeerBench.Run(rest);
             default:
-                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, selection, reaction, thermal, demos)");
+                Console.Error.WriteLine("usage: SlotOpt.Bench CASE [--json]   (cases: lamination, sheets, peer, selection, reaction, thermal, demos)");
                 return 2;
         }
     }

@@ -1,3 +1,5 @@
+using SlotOpt.Design.Cores;
+
 namespace SlotOpt.Design;
 
 /// <summary>How many design options each part has before the manufacturing rules filter them.</summary>

@@ -9,7 +9,7 @@ namespace SlotOpt.Numerics;
 /// </summary>
 public static class ConjugateGradient
 {
-    public static bool TrySolve(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x, IPreconditioner m, ConvergenceCriterion criterion, out SolveReport report)
+    public static bool TrySolve(ILinearOperator a, ReadOnlySpan<double> b, Span<double> x, IPreconditioner m, ConvergenceCriterion criterion, out SolveReport report)
     {
         int n = a.Rows;
         double normB = Norm(b);
@@ -80,7 +80,7 @@ public static class ConjugateGradient
         }
     }
 
-    public static SolveReport Solve(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x, IPreconditioner m, ConvergenceCriterion criterion) =>
+    public static SolveReport Solve(ILinearOperator a, ReadOnlySpan<double> b, Span<double> x, IPreconditioner m, ConvergenceCriterion criterion) =>
         TrySolve(a, b, x, m, criterion, out var report) ? report : throw new NumericalFailureException($"sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
 
     internal static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b)

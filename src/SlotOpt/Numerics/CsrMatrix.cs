@@ -1,10 +1,11 @@
 namespace SlotOpt.Numerics;
 
 /// <summary>
-/// Compressed sparse row matrix on raw arrays: the storage of the sheet operator, the multigrid
-/// transfer operators and their Galerkin products. Column indices are sorted within each row.
+/// Compressed sparse row matrix on raw arrays: the storage of the sheet operator and of the thermal operator,
+/// with the transfer operators and Galerkin products of the algebraic multigrid (<see cref="Plates.Grid.MultigridHierarchy"/>).
+/// Column indices are sorted within each row.
 /// </summary>
-public sealed class CsrMatrix
+public sealed class CsrMatrix : ILinearOperator
 {
     public int Rows { get; }
     public int Columns { get; }

@@ -1,6 +1,7 @@
 using System.Globalization;
 using ScottPlot;
 using SlotOpt.Design;
+using SlotOpt.Design.Cores;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Reports;

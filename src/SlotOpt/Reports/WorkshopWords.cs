@@ -1,5 +1,6 @@
 using System.Globalization;
 using SlotOpt.Design;
+using SlotOpt.Design.Cores;
 
 namespace SlotOpt.Reports;
 

@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using SlotOpt.Design;
+using SlotOpt.Design.Cores;
 using SlotOpt.Selection;
 
 namespace SlotOpt.Runs;

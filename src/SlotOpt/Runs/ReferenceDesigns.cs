@@ -1,4 +1,5 @@
 using SlotOpt.Design;
+using SlotOpt.Design.Cores;
 
 namespace SlotOpt.Runs;
 

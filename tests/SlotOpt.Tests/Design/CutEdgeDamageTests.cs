@@ -1,4 +1,5 @@
 using SlotOpt.Design;
+using SlotOpt.Design.Cores;
 using SlotOpt.Materials;
 using SlotOpt.Waveforms;
 

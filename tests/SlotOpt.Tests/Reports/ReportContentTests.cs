@@ -1,5 +1,6 @@
 using System.Text.RegularExpressions;
 using SlotOpt.Design;
+using SlotOpt.Design.Cores;
 using SlotOpt.Input;
 using SlotOpt.Reports;
 using SlotOpt.Runs;

@@ -5,7 +5,9 @@ using SlotOpt.Numerics;
 namespace SlotOpt.Plates.Grid;
 
 /// <summary>
-/// Multigrid V-cycle preconditioner for the sheet operator. Coarse lattices keep every other node
+/// Algebraic (CSR) multigrid V-cycle preconditioner for node-based operators on the plate lattice other than the
+/// sheet operator (which has the structured <see cref="StructuredMultigrid"/>): today the plate's temperature operator
+/// (Plates/Thermal). Moving that operator onto stencils would let it use the structured multigrid too. Coarse lattices keep every other node
 /// in x and y (plus the last one); the prolongation P is operator-dependent (see
 /// <see cref="MultigridInterpolation"/>), except that a merged region (a hole, a slot, a cut) is carried to every coarser level as one unknown by
 /// injection, and any coarse node lying in such a region maps to it; nodes fixed at psi = 0 drop
@@ -36,9 +38,6 @@ public sealed class MultigridHierarchy : IPreconditioner
     public int LevelCount => _levels.Count;
     /// <summary>Bytes held beyond the fine operator itself (coarse operators, transfers, vectors, coarse factor).</summary>
     public long Bytes => _levels.Sum(l => l.Bytes) - _levels[0].A.Bytes + 8L * _coarsest.Factor.RowCount * _coarsest.Factor.ColumnCount + _levels.Skip(1).Sum(l => 4L * l.NodeUnknown.Length);
-
-    public static MultigridHierarchy Build(SheetOperator op) =>
-        Build(op.Matrix, op.Grid.Lattice, op.Regions.NodeUnknown, op.Regions.IsMerged);
 
     /// <summary>
     /// The hierarchy for any symmetric positive definite operator whose unknowns sit on the nodes of the

@@ -5,26 +5,30 @@ using SlotOpt.Plates.Geometry;
 namespace SlotOpt.Plates.Grid;
 
 /// <summary>
-/// One plate geometry made ready to solve: grid, merged regions, operator at unit reference sheet
-/// conductance (1 S), and the multigrid hierarchy. Build it once per slot geometry; every source,
+/// One plate geometry made ready to solve: grid, merged regions, the structured multigrid
+/// preconditioner and the sheet operator at unit reference sheet conductance (1 S) on its lattice;
+/// the operator as a stored CSR matrix only when a caller asks for it (the plate's own field). Build it once per slot geometry; every source,
 /// source position, thickness and material reuses it (loss and drag scale linearly with the
-/// reference sheet conductance, see <see cref="UnitConductanceSolution"/>).
+/// reference sheet conductance, see <see cref="UnitConductanceSolution"/>). A model serves one thread at a
+/// time: its solves share the multigrid's buffers (parallel runs build one model per geometry and thread).
 /// </summary>
 public sealed class SheetModel
 {
     public PlateGrid Grid { get; }
     public NodeRegions Regions { get; }
-    public SheetOperator Operator { get; }
-    public MultigridHierarchy Multigrid { get; }
+    private readonly Lazy<SheetOperator> _operator;
+    /// <summary>The sheet operator as a CSR matrix, assembled on first use (the thin-plate solves use <see cref="StructuredMultigrid.Operator"/>).</summary>
+    public SheetOperator Operator => _operator.Value;
+    public StructuredMultigrid Multigrid { get; }
     public double SetupSeconds { get; }
     public int Unknowns => Regions.UnknownCount;
     public CellLattice Lattice => Grid.Lattice;
 
-    private SheetModel(PlateGrid grid, NodeRegions regions, SheetOperator op, MultigridHierarchy mg, double setupSeconds)
+    private SheetModel(PlateGrid grid, NodeRegions regions, StructuredMultigrid mg, double setupSeconds)
     {
         Grid = grid;
         Regions = regions;
-        Operator = op;
+        _operator = new Lazy<SheetOperator>(() => SheetOperator.Assemble(grid, regions));
         Multigrid = mg;
         SetupSeconds = setupSeconds;
     }
@@ -34,9 +38,8 @@ public sealed class SheetModel
         var clock = Stopwatch.StartNew();
         var grid = PlateGrid.Build(geometry, options);
         var regions = NodeRegions.Build(grid);
-        var op = SheetOperator.Assemble(grid, regions);
-        var mg = MultigridHierarchy.Build(op);
-        return new SheetModel(grid, regions, op, mg, clock.Elapsed.TotalSeconds);
+        var mg = StructuredMultigrid.Build(grid, regions);
+        return new SheetModel(grid, regions, mg, clock.Elapsed.TotalSeconds);
     }
 
     /// <summary>Right-hand side b = -s of A psi = -s from node integrals s of dBz/dt; merged nodes add up (Faraday's law around the hole).</summary>
@@ -51,16 +54,16 @@ public sealed class SheetModel
 
     /// <summary>Solves A psi = b; psi holds the warm start on entry. False (with the report) when it does not converge.</summary>
     public bool TrySolve(double[] b, double[] psi, ConvergenceCriterion criterion, out SolveReport report) =>
-        ConjugateGradient.TrySolve(Operator.Matrix, b, psi, Multigrid, criterion, out report);
+        ConjugateGradient.TrySolve(Multigrid.Operator, b, psi, Multigrid, criterion, out report);
 
     public SolveReport Solve(double[] b, double[] psi, ConvergenceCriterion criterion) =>
-        ConjugateGradient.Solve(Operator.Matrix, b, psi, Multigrid, criterion);
+        ConjugateGradient.Solve(Multigrid.Operator, b, psi, Multigrid, criterion);
 
     /// <summary>Loss at unit reference sheet conductance, P = psi^T A psi (W per S of reference conductance; instantaneous for this psi).</summary>
     public double LossPerSiemens(double[] psi)
     {
         var q = new double[Unknowns];
-        Operator.Matrix.Multiply(psi, q);
+        Multigrid.Operator.Multiply(psi, q);
         return ConjugateGradient.Dot(psi, q);
     }
 }

@@ -29,7 +29,7 @@ public sealed class SheetOperator
     {
         var l = grid.Lattice;
         int n = regions.UnknownCount;
-        if (n == 0) throw new InputException("the plate has no free stream-function node on this grid: every node touches a hole or the outside; refine the grid");
+        if (n == 0) throw NoFreeNode();
         var nodeUnknown = regions.NodeUnknown;
         // nodes of each unknown
         var nodeStart = new int[n + 1];
@@ -64,7 +64,7 @@ public sealed class SheetOperator
                 if (j > 0) Edge(node - nxn, Resistance(g, l, i - 1, j - 1, i, j - 1, ry));
             }
             val[begin] = diag;
-            if (!(diag > 0)) throw new InputException($"stream-function unknown {u} has no conducting cell beside it; the plate is disconnected at grid scale: refine the grid");
+            if (!(diag > 0)) throw NoConductingCellBeside(u);
             // sort the row by column and merge duplicates, compacting towards the front
             Array.Sort(col, val, begin, write - begin);
             int w = begin;
@@ -91,7 +91,15 @@ public sealed class SheetOperator
         return new SheetOperator(grid, regions, new CsrMatrix(n, n, finalStart, col, val));
     }
 
+    internal static InputException NoFreeNode() =>
+        new("the plate has no free stream-function node on this grid: every node touches a hole or the outside; refine the grid");
+
+    internal static InputException NoConductingCellBeside(int unknown) =>
+        new($"stream-function unknown {unknown} has no conducting cell beside it; the plate is disconnected at grid scale: refine the grid");
+
     /// <summary>Edge resistance between cells (i1, j1) and (i2, j2); 0 (no edge) when either is missing or empty.</summary>
+    internal static double EdgeResistance(double[] g, CellLattice l, int i1, int j1, int i2, int j2, double aspect) => Resistance(g, l, i1, j1, i2, j2, aspect);
+
     private static double Resistance(double[] g, CellLattice l, int i1, int j1, int i2, int j2, double aspect)
     {
         if (i1 < 0 || j1 < 0 || i2 >= l.Nx || j2 >= l.Ny || i2 < 0 || j2 < 0 || i1 >= l.Nx || j1 >= l.Ny) return 0;

@@ -1,6 +1,6 @@
 using SlotOpt.Waveforms;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.Cores;
 
 /// <summary>
 /// A laminated core (or one section of it): a stack of identical sheets of a given outline area and

@@ -1,7 +1,7 @@
 using SlotOpt.Lamination;
 using SlotOpt.Materials;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.Cores;
 
 /// <summary>Build cost of a core: steel bought (with scrap), sheets cut and stacked, tooling set-up.</summary>
 public static class CoreCost

@@ -1,4 +1,4 @@
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.Cores;
 
 /// <summary>
 /// Loss added by the band of steel a cut degrades along its edge (two-zone model: a band of depth delta_c at K_c times

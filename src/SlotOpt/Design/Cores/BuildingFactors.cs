@@ -1,7 +1,7 @@
 using SlotOpt.Materials;
 using SlotOpt.Tables;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.Cores;
 
 /// <summary>
 /// Building factor BF = P_core / (P_specific(B, f) x m_core): what joints, non-uniform and rotating flux add to the

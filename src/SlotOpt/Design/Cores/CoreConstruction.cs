@@ -1,4 +1,4 @@
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.Cores;
 
 /// <summary>How the laminations of a core are built up, in the trade's words.</summary>
 public enum CoreConstruction

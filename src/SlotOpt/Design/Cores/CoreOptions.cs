@@ -2,7 +2,7 @@ using System.Globalization;
 using SlotOpt.Lamination;
 using SlotOpt.Materials;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.Cores;
 
 /// <summary>Enumerates and evaluates every grade x process option of a core part.</summary>
 public static class CoreOptions

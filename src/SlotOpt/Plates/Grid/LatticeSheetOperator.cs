@@ -1,0 +1,76 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+using SlotOpt.Numerics;
+
+namespace SlotOpt.Plates.Grid;
+
+/// <summary>
+/// The sheet operator A of <see cref="SheetOperator"/> applied on the node lattice instead of from a
+/// stored matrix: A = E^T L E, E copying each unknown to its nodes (outside nodes 0), L the lattice's
+/// edge network in the finest multigrid level's stencil, applied edge by edge,
+/// (L x)_p = d_p x_p + sum over the 4 neighbours q of w_pq (x_p - x_q), d_p the weight of p's edges to
+/// the outside. An edge inside a merged region joins two copies of the same value, so it adds exactly
+/// 0 however strongly the multigrid glues it; E^T sums a region's node rows into its Faraday-law row.
+/// Same matrix as the CSR assembly (each row summed in another order), without storing it: 16 bytes an
+/// unknown instead of about 64. The node vectors are the finest level's X and R, so this operator and
+/// the preconditioner must be applied in turn, never at once (as conjugate gradients does).
+/// </summary>
+public sealed class LatticeSheetOperator : ILinearOperator
+{
+    private readonly StencilLevel _fine;
+    private readonly double[] _outsideWeight;
+    private readonly int[] _nodeUnknown;
+    private readonly int[] _mergedNodes, _mergedStart, _mergedUnknown;
+
+    internal LatticeSheetOperator(StencilLevel fine, double[] outsideWeight, int unknowns, int[] nodeUnknown, int[] mergedNodes, int[] mergedStart, int[] mergedUnknown)
+    {
+        _fine = fine;
+        _outsideWeight = outsideWeight;
+        Rows = unknowns;
+        _nodeUnknown = nodeUnknown;
+        _mergedNodes = mergedNodes;
+        _mergedStart = mergedStart;
+        _mergedUnknown = mergedUnknown;
+    }
+
+    public int Rows { get; }
+
+    public long Bytes => 8L * _outsideWeight.Length;
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void Multiply(ReadOnlySpan<double> x, Span<double> y)
+    {
+        var f = _fine;
+        var map = _nodeUnknown;
+        int o = f.Pad, nx = f.Nx, n = f.Nodes;
+        var xs = f.X; var ys = f.R;
+        for (int p = 0; p < n; p++) { int u = map[p]; xs[o + p] = u >= 0 ? x[u] : 0; }
+        ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
+        ref double w = ref MemoryMarshal.GetArrayDataReference(f.West);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(f.South);
+        ref double xr = ref MemoryMarshal.GetArrayDataReference(xs);
+        ref double yr = ref MemoryMarshal.GetArrayDataReference(ys);
+        for (int p = 0; p < n; p++)
+        {
+            int q = o + p;
+            double v = Unsafe.Add(ref xr, q);
+            // stored couplings are the matrix entries -w
+            Unsafe.Add(ref yr, q) = Unsafe.Add(ref d, p) * v
+                - Unsafe.Add(ref w, p) * (v - Unsafe.Add(ref xr, q - 1)) - Unsafe.Add(ref w, p + 1) * (v - Unsafe.Add(ref xr, q + 1))
+                - Unsafe.Add(ref s, p) * (v - Unsafe.Add(ref xr, q - nx)) - Unsafe.Add(ref s, p + nx) * (v - Unsafe.Add(ref xr, q + nx));
+        }
+        for (int p = 0; p < n; p++) { int u = map[p]; if (u >= 0) y[u] = ys[o + p]; }
+        for (int m = 0; m < _mergedUnknown.Length; m++)
+        {
+            double sum = 0;
+            for (int k = _mergedStart[m]; k < _mergedStart[m + 1]; k++) sum += ys[o + _mergedNodes[k]];
+            y[_mergedUnknown[m]] = sum;
+        }
+    }
+
+    public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r)
+    {
+        Multiply(x, r);
+        for (int i = 0; i < r.Length; i++) r[i] = b[i] - r[i];
+    }
+}

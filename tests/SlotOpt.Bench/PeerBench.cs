@@ -1,0 +1,193 @@
+using System.Diagnostics;
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using SlotOpt.Numerics;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources;
+
+namespace SlotOpt.Bench;
+
+/// <summary>
+/// SlotOpt's thin-plate solver against general-purpose algebraic multigrid on the identical linear system:
+/// the comb-slotted plate of <see cref="SheetsBench"/> in a uniform 50 Hz field on N x N grids. For each N the
+/// bench writes the matrix A and right-hand side b it solves (Matrix Market, coordinate / array real general)
+/// and peer/solve_peer.py solves the same A x = b with CG + hypre BoomerAMG and CG + PETSc GAMG through
+/// petsc4py (one process, OMP_NUM_THREADS=1, default options of each, true relative residual 1e-8, as SlotOpt).
+/// Repeats interleave (SlotOpt, hypre, GAMG, SlotOpt, ...) so machine noise hits all sides alike; the table
+/// shows the best of the repeats. SlotOpt's seconds are setup (grid, merged regions, operator, multigrid) plus
+/// solve; the peers' are preconditioner setup plus solve (their matrix is assembled before the clock starts).
+/// Without petsc4py the SlotOpt columns still run and the bench says why the peer columns are missing.
+/// Usage: `SlotOpt.Bench peer [--sizes 256,512,1024] [--repeats 3]`.
+/// </summary>
+public static class PeerBench
+{
+    public static int Run(string[] args)
+    {
+        var sizes = Option(args, "--sizes")?.Split(',').Select(s => int.Parse(s, CultureInfo.InvariantCulture)).ToArray() ?? new[] { 256, 512, 1024 };
+        int repeats = int.Parse(Option(args, "--repeats") ?? "3", CultureInfo.InvariantCulture);
+        using var peer = PeerProcess.TryStart(out string whyNot);
+        if (peer is null) Console.WriteLine($"peer columns left out: {whyNot}");
+        SlotOptOnce(64);   // JIT warm-up
+        var c = CultureInfo.InvariantCulture;
+        Console.WriteLine("| N | unknowns | SlotOpt s (setup+solve) | SlotOpt iterations | hypre BoomerAMG + CG s | hypre iterations | PETSc GAMG + CG s | GAMG iterations | hypre / SlotOpt | GAMG / SlotOpt |");
+        Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|");
+        var directory = Directory.CreateTempSubdirectory("slotopt-peer-");
+        try
+        {
+            foreach (int n in sizes)
+            {
+                var model = SheetModel.Build(SheetsBench.Plate(), new GridOptions { CellSizeM = 1.0 / n });
+                bool peerReady = false;
+                if (peer is not null)
+                {
+                    string matrixPath = Path.Combine(directory.FullName, $"sheet{n}.mtx");
+                    string rhsPath = Path.Combine(directory.FullName, $"sheet{n}_rhs.mtx");
+                    WriteMatrix(model.Operator.Matrix, matrixPath);
+                    WriteVector(SolvedRightHandSide(model), rhsPath);
+                    var loaded = peer.Ask($"load {matrixPath} {rhsPath}");
+                    peerReady = loaded.GetProperty("ok").GetBoolean();
+                    if (!peerReady) Console.WriteLine($"peer could not load N = {n}: {loaded}");
+                    File.Delete(matrixPath);
+                    File.Delete(rhsPath);
+                }
+                int unknowns = model.Unknowns;
+                model = null;
+                GC.Collect();
+                var ours = new Best(); var hypre = new Best(); var gamg = new Best();
+                for (int rep = 0; rep < repeats; rep++)
+                {
+                    var (seconds, iterations) = SlotOptOnce(n);
+                    ours.Add(seconds, iterations);
+                    if (!peerReady) continue;
+                    hypre.Add(peer!.Solve("hypre"));
+                    gamg.Add(peer.Solve("gamg"));
+                }
+                Console.WriteLine(string.Create(c,
+                    $"| {n} | {unknowns} | {ours.Seconds:F3} | {ours.Iterations} | {hypre.Text} | {hypre.IterationText} | {gamg.Text} | {gamg.IterationText} | {Ratio(hypre, ours)} | {Ratio(gamg, ours)} |"));
+            }
+        }
+        finally { directory.Delete(true); }
+        return 0;
+    }
+
+    private static string? Option(string[] args, string name)
+    {
+        int i = Array.IndexOf(args, name);
+        return i >= 0 && i + 1 < args.Length ? args[i + 1] : null;
+    }
+
+    private static string Ratio(Best peer, Best ours) => peer.Valid ? (peer.Seconds / ours.Seconds).ToString("F2", CultureInfo.InvariantCulture) : "-";
+
+    /// <summary>SlotOpt end to end, as SheetsBench times it: build the model, one AC solve.</summary>
+    private static (double Seconds, int Iterations) SlotOptOnce(int n)
+    {
+        GC.Collect();
+        var clock = Stopwatch.StartNew();
+        var model = SheetModel.Build(SheetsBench.Plate(), new GridOptions { CellSizeM = 1.0 / n });
+        var solution = ResistanceLimitedSolver.SolveAc(model, new UniformAcField(1, 50));
+        return (clock.Elapsed.TotalSeconds, solution.Iterations);
+    }
+
+    /// <summary>The right-hand side ResistanceLimitedSolver.SolveAc solves for a uniform field: its phase is uniform, so one real part.</summary>
+    private static double[] SolvedRightHandSide(SheetModel model)
+    {
+        var l = model.Lattice;
+        var re = new double[l.NodeCount];
+        var im = new double[l.NodeCount];
+        new UniformAcField(1, 50).Integrate(l, 0, re, im);
+        var bRe = model.RightHandSide(re);
+        var bIm = model.RightHandSide(im);
+        return bRe.Any(v => v != 0) ? bRe : bIm;
+    }
+
+    private static void WriteMatrix(CsrMatrix a, string path)
+    {
+        using var w = new StreamWriter(path, false, new UTF8Encoding(false), 1 << 20);
+        w.Write("%%MatrixMarket matrix coordinate real general\n");
+        w.Write(string.Create(CultureInfo.InvariantCulture, $"{a.Rows} {a.Columns} {a.NonZeros}\n"));
+        for (int i = 0; i < a.Rows; i++)
+            for (int k = a.RowStart[i]; k < a.RowStart[i + 1]; k++)
+                w.Write(string.Create(CultureInfo.InvariantCulture, $"{i + 1} {a.ColumnIndex[k] + 1} {a.Value[k]:R}\n"));
+    }
+
+    private static void WriteVector(double[] b, string path)
+    {
+        using var w = new StreamWriter(path, false, new UTF8Encoding(false), 1 << 20);
+        w.Write("%%MatrixMarket matrix array real general\n");
+        w.Write(string.Create(CultureInfo.InvariantCulture, $"{b.Length} 1\n"));
+        foreach (double v in b) w.Write(string.Create(CultureInfo.InvariantCulture, $"{v:R}\n"));
+    }
+
+    private sealed class Best
+    {
+        public double Seconds { get; private set; } = double.PositiveInfinity;
+        public int Iterations { get; private set; }
+        public bool Valid => double.IsFinite(Seconds);
+        public string Text => Valid ? Seconds.ToString("F3", CultureInfo.InvariantCulture) : "-";
+        public string IterationText => Valid ? Iterations.ToString(CultureInfo.InvariantCulture) : "-";
+
+        public void Add(double seconds, int iterations)
+        {
+            if (seconds < Seconds) { Seconds = seconds; Iterations = iterations; }
+        }
+
+        public void Add(JsonElement reply)
+        {
+            if (!reply.GetProperty("ok").GetBoolean()) { Console.WriteLine($"peer solve failed: {reply}"); return; }
+            Add(reply.GetProperty("seconds").GetDouble(), reply.GetProperty("iterations").GetInt32());
+        }
+    }
+
+    /// <summary>The long-lived peer: Debian's python3 with petsc4py from PETSc's own directory on PYTHONPATH.</summary>
+    private sealed class PeerProcess : IDisposable
+    {
+        private readonly Process _process;
+        private PeerProcess(Process process) => _process = process;
+
+        public static PeerProcess? TryStart(out string whyNot)
+        {
+            const string python = "/usr/bin/python3";
+            string script = Path.Combine(AppContext.BaseDirectory, "peer", "solve_peer.py");
+            var module = Directory.Exists("/usr/lib/petscdir")
+                ? Directory.EnumerateFiles("/usr/lib/petscdir", "__init__.py", SearchOption.AllDirectories)
+                    .FirstOrDefault(p => p.EndsWith("/petsc4py/__init__.py") && p.Contains("-real/"))
+                : null;
+            if (module is null) { whyNot = "petsc4py not found under /usr/lib/petscdir (install Debian's python3-petsc4py-real)"; return null; }
+            if (!File.Exists(python)) { whyNot = $"{python} not found"; return null; }
+            if (!File.Exists(script)) { whyNot = $"{script} not found"; return null; }
+            var start = new ProcessStartInfo(python, new[] { script })
+            {
+                RedirectStandardInput = true, RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false,
+            };
+            start.Environment["PYTHONPATH"] = Path.GetDirectoryName(Path.GetDirectoryName(module))!;
+            start.Environment["OMP_NUM_THREADS"] = "1";
+            var process = Process.Start(start)!;
+            process.ErrorDataReceived += (_, e) => { if (e.Data is { Length: > 0 }) Console.Error.WriteLine($"peer: {e.Data}"); };
+            process.BeginErrorReadLine();
+            var peer = new PeerProcess(process);
+            try { peer.Ask("solve none"); }   // answers with an error once petsc4py has imported; fails if it could not
+            catch (InvalidOperationException e) { peer.Dispose(); whyNot = e.Message; return null; }
+            whyNot = "";
+            return peer;
+        }
+
+        public JsonElement Ask(string command)
+        {
+            _process.StandardInput.WriteLine(command);
+            _process.StandardInput.Flush();
+            string? line = _process.StandardOutput.ReadLine();
+            if (line is null) throw new InvalidOperationException("the peer process ended (petsc4py could not be imported? see its messages above)");
+            return JsonDocument.Parse(line).RootElement.Clone();
+        }
+
+        public JsonElement Solve(string preconditioner) => Ask($"solve {preconditioner}");
+
+        public void Dispose()
+        {
+            try { if (!_process.HasExited) { _process.StandardInput.WriteLine("quit"); _process.WaitForExit(5000); } }
+            finally { if (!_process.HasExited) _process.Kill(); _process.Dispose(); }
+        }
+    }
+}
