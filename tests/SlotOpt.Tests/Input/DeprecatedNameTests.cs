@@ -1,4 +1,5 @@
 using SlotOpt.Design;
+using SlotOpt.Design.Cores;
 using SlotOpt.Input;
 
 namespace SlotOpt.Tests.Input;
