@@ -57,7 +57,7 @@ public sealed class HostileInputTests : IDisposable
             data.Add("plate {F} --json", hostile);
         foreach (var hostile in new[] { "fifo", "device", "folder", "oversize", "too-many-rows" })
         {
-            data.Add("core-loss --grade M270-35A --peak 1.5T --frequency 50Hz --waveform {F} --json", hostile);
+            data.Add("core-loss --grade M270-35A --peak-flux-density 1.5T --frequency 50Hz --waveform {F} --json", hostile);
             data.Add("fit {F} --thickness 0.35mm --resistivity 0.52e-6 --density 7650 --json", hostile);
         }
         return data;
@@ -100,10 +100,10 @@ public sealed class HostileInputTests : IDisposable
     }
 
     [Theory]
-    [InlineData("core-loss --grade M270-35A --peak 1.5t --frequency 50Hz", "did you mean T?")]
-    [InlineData("core-loss --grade M270-35A --peak 1.5T --frequency 50HZ", "did you mean Hz?")]
-    [InlineData("core-loss --grade M270-35A --peak 1.5T --frequency 1e308kHz", "not a finite frequency")]
-    [InlineData("core-loss --grade M270-35A --peak 1.5T --frequency 50Hz --temperature 1e308MK", "not a finite temperature")]
+    [InlineData("core-loss --grade M270-35A --peak-flux-density 1.5t --frequency 50Hz", "did you mean T?")]
+    [InlineData("core-loss --grade M270-35A --peak-flux-density 1.5T --frequency 50HZ", "did you mean Hz?")]
+    [InlineData("core-loss --grade M270-35A --peak-flux-density 1.5T --frequency 1e308kHz", "not a finite frequency")]
+    [InlineData("core-loss --grade M270-35A --peak-flux-density 1.5T --frequency 50Hz --temperature 1e308MK", "not a finite temperature")]
     public void A_flag_with_a_wrong_unit_or_an_overflow_names_the_flag(string command, string expected)
     {
         var run = SlotOptInProcess.Run(command.Split(' '));
