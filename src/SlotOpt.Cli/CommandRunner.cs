@@ -4,7 +4,8 @@ namespace SlotOpt.Cli;
 
 /// <summary>
 /// Runs a command body with the invocation's output and error writers (the console, or a test's writers) and
-/// turns the engine's exceptions into a one-line message on the error writer and an exit code.
+/// turns the engine's exceptions into an exit code and a message: one line each on the error writer and, when
+/// the command was given --json, one <see cref="ErrorsJson"/> document on the output writer as well.
 /// </summary>
 public static class CommandRunner
 {
@@ -13,30 +14,42 @@ public static class CommandRunner
     {
         var output = parseResult.InvocationConfiguration.Output;
         var error = parseResult.InvocationConfiguration.Error;
+        var json = WantsJson(parseResult);
         try
         {
             return body(output, error);
         }
         catch (InputException e)
         {
+            if (json) output.Write(ErrorsJson.From(ExitCodes.InvalidInput, e.Errors).Serialize());
             foreach (var line in e.Message.Split(Environment.NewLine)) error.WriteLine($"error: {line}");
             return ExitCodes.InvalidInput;
         }
         catch (ResourceLimitException e)
         {
-            error.WriteLine($"resource limit: {e.Message}");
-            return ExitCodes.ResourceLimit;
+            return Fail(json, output, error, ExitCodes.ResourceLimit, "resource limit", e.Message);
         }
         catch (NumericalFailureException e)
         {
-            error.WriteLine($"numerical failure: {e.Message}");
-            return ExitCodes.NumericalFailure;
+            return Fail(json, output, error, ExitCodes.NumericalFailure, "numerical failure", e.Message);
         }
         catch (Exception e)
         {
-            error.WriteLine($"internal error (please report): {e.GetType().Name}: {e.Message}");
+            var exit = Fail(json, output, error, ExitCodes.InternalError, "internal error (please report)", $"{e.GetType().Name}: {e.Message}");
             error.WriteLine(e.StackTrace);
-            return ExitCodes.InternalError;
+            return exit;
         }
+    }
+
+    /// <summary>True when the command has a --json option and it was given.</summary>
+    public static bool WantsJson(ParseResult parseResult) =>
+        parseResult.CommandResult.Command.Options.OfType<Option<bool>>().FirstOrDefault(o => o.Name == "--json") is { } option
+        && parseResult.GetValue(option);
+
+    private static int Fail(bool json, TextWriter output, TextWriter error, int exitCode, string kind, string message)
+    {
+        if (json) output.Write(ErrorsJson.From(exitCode, message).Serialize());
+        error.WriteLine($"{kind}: {message}");
+        return exitCode;
     }
 }

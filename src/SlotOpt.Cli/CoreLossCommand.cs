@@ -14,12 +14,12 @@ public static class CoreLossCommand
 {
     public static Command Build()
     {
-        var grade = new Option<string>("--grade") { Description = "Lamination grade, e.g. M270-35A (see `slotopt materials`)", Required = true };
-        var peak = QuantityOption.Create("--peak", "Peak flux density in the steel, e.g. 1.5T (with --waveform: scales the file's shape to this peak)");
+        var grade = new Option<string>("--grade") { HelpName = "GRADE", Description = "Lamination grade, e.g. M270-35A (see `slotopt materials`)", Required = true };
+        var peak = QuantityOption.Create("--peak-flux-density", "Peak flux density in the steel, e.g. 1.5T (with --waveform: scales the file's shape to this peak)", placeholder: "<B>", oldName: "--peak");
         var frequency = QuantityOption.Create("--frequency", "Fundamental frequency, e.g. 50Hz", required: true);
-        var width = QuantityOption.Create("--width", "Width of the narrowest feature the flux runs along (tooth, strip), e.g. 3mm");
+        var width = QuantityOption.Create("--tooth-or-limb-width", "Width of the tooth or limb the flux runs along, e.g. 3mm", placeholder: "<LENGTH>", oldName: "--width");
         var temperature = QuantityOption.Create("--temperature", "Steel temperature, e.g. 80degC (default 20degC)");
-        var waveform = new Option<string>("--waveform") { Description = "CSV of one period of B: columns phase,b_t or t_s,b_t (straight lines between samples)" };
+        var waveform = new Option<string>("--waveform") { HelpName = "FILE.csv", Description = "CSV of one period of B: columns phase,b_t or t_s,b_t (straight lines between samples)" };
         var json = new Option<bool>("--json") { Description = "Print one JSON object" };
         var command = new Command("core-loss", "Specific loss of a lamination grade: hysteresis, classical eddy (skin and width corrected) and excess");
         foreach (var o in new Option[] { grade, peak, frequency, width, temperature, waveform, json }) command.Options.Add(o);
@@ -31,10 +31,12 @@ public static class CoreLossCommand
             var limits = limitOptions.Start(parseResult);
             using var deadline = limits.Deadline!;
             limits.CheckMemory("the command", MemoryModel.Margin * MemoryModel.RuntimeBytes, "the process alone needs more; there is nothing to make smaller");
+            QuantityOption.WarnIfOldName(parseResult, peak, error);
+            QuantityOption.WarnIfOldName(parseResult, width, error);
             var steel = MaterialLibrary.BuiltIn.GetSteel(parseResult.GetValue(grade)!, "--grade");
             var f = QuantityOption.ReadPositive(parseResult, frequency, QuantityKind.Frequency)!.Value;
             var bp = QuantityOption.Read(parseResult, peak, QuantityKind.FluxDensity);
-            if (bp is { } b && !(b >= 0)) throw new InputException($"--peak: must be zero or positive, got {parseResult.GetValue(peak)}");
+            if (bp is { } b && !(b >= 0)) throw new InputException($"--peak-flux-density: must be zero or positive, got {parseResult.GetValue(peak)}");
             var conditions = new LaminationConditions
             {
                 TemperatureK = QuantityOption.Read(parseResult, temperature, QuantityKind.Temperature) ?? Conductor.RoomTemperatureK,
@@ -46,39 +48,24 @@ public static class CoreLossCommand
             var file = parseResult.GetValue(waveform);
             if (file is null)
             {
-                flux = new SineWaveform(bp ?? throw new InputException("--peak: required unless --waveform gives the flux values"), f);
+                flux = new SineWaveform(bp ?? throw new InputException("--peak-flux-density: required unless --waveform gives the flux values"), f);
             }
             else
             {
                 var shape = deadline.Run("reading the waveform", () => WaveformCsv.Read(file, f));
                 flux = bp is { } target
-                    ? (shape.PeakT > 0 ? shape.Scaled(target / shape.PeakT) : throw new InputException($"{file}: the waveform is zero everywhere; it cannot be scaled to --peak"))
+                    ? (shape.PeakT > 0 ? shape.Scaled(target / shape.PeakT) : throw new InputException($"{file}: the waveform is zero everywhere; it cannot be scaled to --peak-flux-density"))
                     : shape;
             }
 
             var loss = deadline.Run("the loss of the waveform", () => LaminationLossModel.Evaluate(steel, flux, conditions));
             if (parseResult.GetValue(json))
             {
-                output.Write(JsonFormat.Serialize(new
-                {
-                    grade = steel.Grade,
-                    thickness_mm = steel.ThicknessM * 1e3,
-                    peak_t = flux.PeakT,
-                    frequency_hz = f,
-                    temperature_k = conditions.TemperatureK,
-                    waveform = file is null ? "sine" : file,
-                    total_w_per_kg = loss.TotalWPerKg,
-                    hysteresis_w_per_kg = loss.HysteresisWPerKg,
-                    classical_w_per_kg = loss.ClassicalWPerKg,
-                    excess_w_per_kg = loss.ExcessWPerKg,
-                    total_w_per_m3 = loss.TotalWPerM3,
-                    skin_factor = loss.SkinFactor,
-                    width_factor = loss.WidthFactor,
-                    skin_depth_mm = loss.SkinDepthM * 1e3,
-                    thickness_over_skin_depth = loss.ThicknessOverSkinDepth,
-                    resistivity_uohm_m = loss.ResistivityOhmM * 1e6,
-                    flags = loss.Flags.Select(x => new { code = x.Code, message = x.Message }),
-                }));
+                output.Write(new CoreLossJson(
+                    steel.Grade, steel.ThicknessM * 1e3, flux.PeakT, f, conditions.TemperatureK, file ?? "sine",
+                    loss.TotalWPerKg, loss.HysteresisWPerKg, loss.ClassicalWPerKg, loss.ExcessWPerKg, loss.TotalWPerM3,
+                    loss.SkinFactor, loss.WidthFactor, loss.SkinDepthM * 1e3, loss.ThicknessOverSkinDepth, loss.ResistivityOhmM * 1e6,
+                    loss.Flags.Select(x => $"{x.Code}: {x.Message}").ToList()).Serialize());
                 return ExitCodes.Success;
             }
             var o = output;

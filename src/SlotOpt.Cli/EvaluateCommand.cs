@@ -32,30 +32,17 @@ public static class EvaluateCommand
             var owning = problem.OwningCost(rows.Select(r => r.Option));
             if (parseResult.GetValue(json))
             {
-                output.Write(JsonFormat.Serialize(new
-                {
-                    problem = problem.Name,
-                    currency = problem.Economics.Currency,
-                    parts = rows.Select(r => new
-                    {
-                        name = r.Part.Name,
-                        design = r.Option.Description,
-                        reference = r.IsCurrent ? "current" : "baseline",
-                        loss_w = r.Option.Loss.TotalW,
-                        hysteresis_w = r.Option.Loss.HysteresisW,
-                        classical_w = r.Option.Loss.ClassicalW,
-                        excess_w = r.Option.Loss.ExcessW,
-                        plate_eddy_w = r.Option.Loss.PlateEddyW,
-                        drag_n = r.Option.DragN,
-                        build_cost = r.Option.BuildCost,
-                        breaks_rule = r.Option.Rejection?.Message,
-                        flags = r.Option.Flags,
-                    }),
-                    total_loss_w = totalLoss,
-                    total_cost = totalCost,
-                    value_per_watt = problem.Economics.ValuePerWatt,
-                    owning_cost = owning,
-                }));
+                output.Write(new EvaluateJson(
+                    problem.Name,
+                    problem.Economics.Currency,
+                    rows.Select(r => new EvaluateJson.Part(
+                        r.Part.Name, r.IsCurrent ? "current" : "baseline", r.Option.Description,
+                        r.Option.Loss.TotalW, r.Option.Loss.HysteresisW, r.Option.Loss.ClassicalW, r.Option.Loss.ExcessW, r.Option.Loss.PlateEddyW,
+                        r.Option.DragN, r.Option.BuildCost, r.Option.Rejection?.Message, r.Option.Flags)).ToList(),
+                    totalLoss,
+                    totalCost,
+                    problem.Economics.ValuePerWatt,
+                    owning).Serialize());
                 return ExitCodes.Success;
             }
             var ci = CultureInfo.InvariantCulture;

@@ -40,14 +40,10 @@ public static class FitCommand
             foreach (var warning in fit.Warnings) error.WriteLine($"warning: {warning}");
             if (parseResult.GetValue(json))
             {
-                output.Write(JsonFormat.Serialize(new
-                {
-                    kh = fit.HysteresisCoefficient, alpha = fit.HysteresisExponent, ke = fit.ExcessCoefficient,
-                    kh_standard_error = fit.HysteresisCoefficientError, alpha_standard_error = fit.HysteresisExponentError,
-                    ke_standard_error = fit.ExcessCoefficientError, kc = fit.ClassicalCoefficient,
-                    r_squared = fit.RSquared, worst_relative_error = fit.WorstRelativeError, points = data.Count,
-                    warnings = fit.Warnings,
-                }));
+                output.Write(new FitJson(
+                    fit.HysteresisCoefficient, fit.HysteresisExponent, fit.ExcessCoefficient,
+                    fit.HysteresisCoefficientError, fit.HysteresisExponentError, fit.ExcessCoefficientError,
+                    fit.ClassicalCoefficient, fit.RSquared, fit.WorstRelativeError, data.Count, fit.Warnings).Serialize());
                 return ExitCodes.Success;
             }
             var o = output;

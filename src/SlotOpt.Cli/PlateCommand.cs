@@ -2,7 +2,6 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
-using System.Text.Json.Nodes;
 using SlotOpt.Input;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
@@ -19,9 +18,10 @@ public static class PlateCommand
     {
         var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]], [thermal]" };
         var json = new Option<bool>("--json") { Description = "print one JSON object instead of text" };
-        var map = new Option<string?>("--map") { Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
+        var map = new Option<string?>("--map") { HelpName = "FILE.csv", Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
         var model = new Option<string>("--model")
         {
+            HelpName = "MODEL",
             Description = "the plate model: auto (the validity figures choose), resistance-limited, own-field (thin sheet with its own field) or thick (layered, AC only)",
             DefaultValueFactory = _ => "auto",
         };
@@ -59,33 +59,43 @@ public static class PlateCommand
     private static string Json(PlateFileEvaluation e)
     {
         var r = e.Result;
-        var o = new JsonObject
-        {
-            ["file"] = e.Case.Path,
-            ["model"] = ReactionModelChoice.Name(e.Choice.Kind),
-            ["model_reason"] = e.Choice.Reason,
-            ["loss_w"] = e.LossW,
-            ["drag_n"] = e.MeanDragN,
-            ["discretisation_error"] = e.GridError?.Relative,
-            ["averaged_over"] = e.Case.MovingSource is null ? null : e.Case.AveragedOver,
-            ["positions_m"] = new JsonArray(e.OffsetsXM.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
-            ["drag_per_position_n"] = new JsonArray(e.DragPerOffsetN.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
-            ["loss_per_position_w"] = new JsonArray(e.LossPerOffsetW.Select(x => (JsonNode?)JsonValue.Create(x)).ToArray()),
-            ["peak_current_density_a_per_m2"] = r.PeakCurrentDensityAPerM2,
-            ["rms_current_density_a_per_m2"] = r.RmsCurrentDensityAPerM2,
-            ["reynolds_number"] = r.Validity.ReynoldsNumber,
-            ["thickness_to_skin_depth"] = r.Validity.ThicknessToSkinDepth,
-            ["sheet_conductance_s"] = e.Case.Sheet.SheetConductanceS,
-            ["unknowns"] = r.Unknowns,
-            ["iterations"] = e.TotalIterations,
-            ["relative_residual"] = e.RelativeResidual,
-            ["setup_seconds"] = e.SetupSeconds,
-            ["solve_seconds"] = e.SolveSeconds,
-            ["warnings"] = new JsonArray(r.Validity.Warnings.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
-            ["notes"] = new JsonArray(r.Notes.Select(w => (JsonNode?)JsonValue.Create(w)).ToArray()),
-        };
-        PlateTemperatureOutput.AddJson(o, e);
-        return JsonFormat.Serialize(o);
+        var heating = e.Heating;
+        var t = heating?.Temperature;
+        var limit = e.Case.Thermal?.Limit;
+        return new PlateJson(
+            e.Case.Path,
+            ReactionModelChoice.Name(e.Choice.Kind),
+            e.Choice.Reason,
+            e.LossW,
+            e.MeanDragN,
+            e.GridError?.Relative,
+            e.Case.MovingSource is null ? null : e.Case.AveragedOver,
+            e.OffsetsXM,
+            e.DragPerOffsetN,
+            e.LossPerOffsetW,
+            r.PeakCurrentDensityAPerM2,
+            r.RmsCurrentDensityAPerM2,
+            r.Validity.ReynoldsNumber,
+            r.Validity.ThicknessToSkinDepth,
+            e.Case.Sheet.SheetConductanceS,
+            r.Unknowns,
+            e.TotalIterations,
+            e.RelativeResidual,
+            t?.MaxRiseK,
+            t?.MeanRiseK,
+            t?.HottestK,
+            t is null ? null : [t.HottestXM, t.HottestYM],
+            t?.AmbientK,
+            t?.ConvectionCoefficientWPerM2K,
+            t?.ConvectedW,
+            t?.RadiatedW,
+            t?.EdgeW,
+            heating?.LossWeightedTemperatureK,
+            heating is null ? null : [heating.ResistivityMinK, heating.ResistivityMaxK],
+            heating?.CouplingIterations,
+            t is not null && limit is { IsSet: true } ? limit.Breach(t) is not null : null,
+            r.Validity.Warnings,
+            r.Notes).Serialize();
     }
 
     private static string Text(PlateFileEvaluation e)

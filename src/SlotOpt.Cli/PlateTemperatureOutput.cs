@@ -1,34 +1,13 @@
 using System.Globalization;
 using System.Text;
-using System.Text.Json.Nodes;
 using SlotOpt.Plates.Thermal;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
 
-/// <summary>The temperature lines and JSON keys of `slotopt plate` for a plate file with [thermal].</summary>
+/// <summary>The temperature lines of `slotopt plate` for a plate file with [thermal].</summary>
 internal static class PlateTemperatureOutput
 {
-    public static void AddJson(JsonObject o, PlateFileEvaluation e)
-    {
-        if (e.Heating is not { } h) return;
-        var t = h.Temperature;
-        var limit = e.Case.Thermal!.Limit;
-        o["temperature_rise_max_k"] = t.MaxRiseK;
-        o["temperature_rise_mean_k"] = t.MeanRiseK;
-        o["hottest_temperature_k"] = t.HottestK;
-        o["hottest_point_m"] = new JsonArray(t.HottestXM, t.HottestYM);
-        o["ambient_k"] = t.AmbientK;
-        o["convection_coefficient_w_per_m2k"] = t.ConvectionCoefficientWPerM2K;
-        o["heat_convected_w"] = t.ConvectedW;
-        o["heat_radiated_w"] = t.RadiatedW;
-        o["heat_to_edges_w"] = t.EdgeW;
-        o["resistivity_temperature_k"] = h.LossWeightedTemperatureK;
-        o["resistivity_temperature_range_k"] = new JsonArray(h.ResistivityMinK, h.ResistivityMaxK);
-        o["coupling_iterations"] = h.CouplingIterations;
-        o["temperature_limit_exceeded"] = limit.IsSet ? limit.Breach(t) is not null : null;
-    }
-
     public static void AppendText(StringBuilder s, PlateFileEvaluation e)
     {
         if (e.Heating is not { } h) return;

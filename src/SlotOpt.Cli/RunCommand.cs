@@ -16,7 +16,7 @@ public static class RunCommand
     {
         var file = new Argument<string>("file") { Description = "Problem file (TOML)" };
         var json = new Option<bool>("--json") { Description = "Print one JSON object" };
-        var outDir = new Option<string?>("--out") { Description = "Write the report (index.html, summary.md, candidates.csv, result.json, plots) into this folder" };
+        var outDir = new Option<string?>("--out") { HelpName = "DIR", Description = "Write the report (index.html, summary.md, candidates.csv, result.json, plots) into this folder" };
         var force = new Option<bool>("--force") { Description = "With --out: replace the folder if it exists" };
         var command = new Command("run", "Search grade, gauge and slot pattern for the lowest owning cost under the limits, and trace the loss-cost trade-off");
         command.Arguments.Add(file);

@@ -9,10 +9,10 @@ namespace SlotOpt.Cli;
 /// <summary>The flags that bound a run's use of the machine: threads, memory, wall time, and the search's deterministic budget.</summary>
 public sealed class RunLimitOptions
 {
-    private readonly Option<int?> threads = new("--threads") { Description = "Plate solves at once (default: the number of cores); results do not depend on it" };
+    private readonly Option<int?> threads = new("--threads") { HelpName = "N", Description = "Plate solves at once (default: the number of cores); results do not depend on it" };
     private readonly Option<string> maxMemory = QuantityOption.Create("--max-memory", "Memory the solves may take, e.g. 4GB (default 4 GiB); a run whose estimate is larger is refused before anything is built");
     private readonly Option<string> timeLimit = QuantityOption.Create("--time-limit", "Wall time the command may take, every phase and the report included, e.g. \"10 min\" (default 1 h); past it the command stops with exit code 5 and writes nothing");
-    private readonly Option<double?> searchBudget = new("--search-budget") { Description = "Deterministic seconds each CP-SAT call may take (default 10); reproducible on any machine" };
+    private readonly Option<double?> searchBudget = new("--search-budget") { HelpName = "SECONDS", Description = "Deterministic seconds each selection-solver call may take (default 10); reproducible on any machine" };
 
     /// <param name="parallel">The command solves several plates at once (--threads).</param>
     /// <param name="search">The command runs the CP-SAT search (--search-budget).</param>

@@ -14,7 +14,7 @@ public static class RunText
         var economics = r.Problem.Economics;
         var cur = economics.Currency;
         o.WriteLine(r.Problem.Name);
-        o.WriteLine(string.Create(ci, $"  {r.Parts.Sum(p => p.Options.Count)} options evaluated ({r.Parts.Sum(p => p.Feasible.Count)} within the rules), {r.SheetSolves} plate solves in {r.EvaluationSeconds:0.0} s; CP-SAT {r.Outcome.Effort.SolverCalls} calls, {r.Outcome.Effort.WallSeconds:0.00} s"));
+        o.WriteLine(string.Create(ci, $"  {r.Parts.Sum(p => p.Options.Count)} options evaluated ({r.Parts.Sum(p => p.Feasible.Count)} within the rules), {r.SheetSolves} plate solves in {r.EvaluationSeconds:0.0} s; selection {r.Outcome.Effort.SolverCalls} solver calls, {r.Outcome.Effort.WallSeconds:0.00} s"));
         foreach (var p in r.Parts)
             foreach (var (rule, count) in p.RejectionCounts)
                 o.WriteLine($"  {p.Part.Name}: {count} options dropped: {rule}");

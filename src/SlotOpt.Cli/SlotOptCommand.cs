@@ -15,6 +15,7 @@ public static class SlotOptCommand
         root.Subcommands.Add(EvaluateCommand.Build());
         root.Subcommands.Add(RunCommand.Build());
         root.Subcommands.Add(PlateCommand.Build());
+        root.Subcommands.Add(ProcessesCommand.Build());
         return root;
     }
 }

@@ -30,10 +30,12 @@ public static class CorePartReader
         var area = s.PositiveQuantity("lamination_area", QuantityKind.Area, required: true);
         var height = s.PositiveQuantity("stack_height", QuantityKind.Length, required: true);
         var cutLength = s.PositiveQuantity("cut_length_per_sheet", QuantityKind.Length, required: false);
-        var flux = s.PositiveQuantity("flux", QuantityKind.FluxDensity, required: !s.Has("waveform"));
+        s.AcceptOldName("flux", "peak_flux_density");
+        s.AcceptOldName("feature_width", "tooth_or_limb_width");
+        var flux = s.PositiveQuantity("peak_flux_density", QuantityKind.FluxDensity, required: !s.Has("waveform"));
         var frequency = s.PositiveQuantity("frequency", QuantityKind.Frequency, required: true);
         var waveformFile = s.OptionalString("waveform");
-        var width = s.PositiveQuantity("feature_width", QuantityKind.Length, required: false);
+        var width = s.PositiveQuantity("tooth_or_limb_width", QuantityKind.Length, required: false);
         var temperature = s.OptionalQuantity("temperature", QuantityKind.Temperature) ?? Conductor.RoomTemperatureK;
         if (!(temperature > 0)) s.Error("temperature", "is below absolute zero");
         var maxLoss = s.PositiveQuantity("max_loss", QuantityKind.Power, required: false);
@@ -62,7 +64,7 @@ public static class CorePartReader
                 }
                 catch (InputException e) { s.Error("waveform", e.Message); }
             }
-            else if (flux is { } peak) wave = s.Guard("flux", () => new SineWaveform(peak, f));
+            else if (flux is { } peak) wave = s.Guard("peak_flux_density", () => new SineWaveform(peak, f));
             if (f > 20e3) s.Warn("frequency", "above 20 kHz: laminated steel is rarely used there; check the coefficients' range");
         }
         if (wave is not null)
@@ -71,9 +73,9 @@ public static class CorePartReader
                 var steel = library.GetSteel(g, s.KeyPath("grades"));
                 var inSteel = wave.PeakT / steel.StackingFactor; // flux is over the gross section
                 if (inSteel > steel.MaxFluxT)
-                    s.Error("flux", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T over the gross section is {inSteel:0.###} T in the steel (stacking factor {steel.StackingFactor:0.###}), beyond what {g} carries ({steel.MaxFluxT:0.##} T at 10 kA/m): the steel saturates; lower the flux or drop the grade"));
+                    s.Error("peak_flux_density", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T over the gross section is {inSteel:0.###} T in the steel (stacking factor {steel.StackingFactor:0.###}), beyond what {g} carries ({steel.MaxFluxT:0.##} T at 10 kA/m): the steel saturates; lower the flux or drop the grade"));
                 else if (inSteel > steel.KneeFluxT)
-                    s.Warn("flux", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T over the gross section is {inSteel:0.###} T in {g}, above its knee ({steel.KneeFluxT:0.##} T): magnetising current rises steeply"));
+                    s.Warn("peak_flux_density", string.Create(CultureInfo.InvariantCulture, $"{wave.PeakT:0.###} T over the gross section is {inSteel:0.###} T in {g}, above its knee ({steel.KneeFluxT:0.##} T): magnetising current rises steeply"));
             }
         if (temperature > 473.15) s.Warn("temperature", "above 200 degC: insulation coatings and the resistivity data may not hold");
         if (current is not null && !validGrades.Contains(current.Grade))

@@ -5,7 +5,7 @@ using SlotOpt.Tables;
 namespace SlotOpt.Input;
 
 /// <summary>
-/// Reads a normal AC field map from CSV: header x_m,y_m,amplitude_t,phase_deg, one row per point of a
+/// Reads a normal AC field map from CSV: header x_m,y_m,peak_flux_density_t,phase_deg, one row per point of a
 /// rectangular grid (every x with every y, any order). Errors name file:line.
 /// </summary>
 public static class FieldMapCsv
@@ -17,13 +17,15 @@ public static class FieldMapCsv
     {
         var text = InputFile.ReadAllText(path, "field map", InputFile.MaxCsvBytes);
         var table = CsvTable.Parse(text, path, MaxPoints);
-        table.RequireColumns("x_m", "y_m", "amplitude_t", "phase_deg");
+        // amplitude_t is the deprecated name of peak_flux_density_t, accepted until the next release
+        var peakColumn = table.Columns.Contains("amplitude_t") && !table.Columns.Contains("peak_flux_density_t") ? "amplitude_t" : "peak_flux_density_t";
+        table.RequireColumns("x_m", "y_m", peakColumn, "phase_deg");
         var values = new Dictionary<(double X, double Y), Complex>();
         foreach (var row in table.Rows)
         {
             var point = (row.Number("x_m"), row.Number("y_m"));
-            var amplitude = row.Number("amplitude_t");
-            if (amplitude < 0) throw new InputException($"{path}:{row.LineNumber}: amplitude_t must be zero or positive (put the sign in phase_deg)");
+            var amplitude = row.Number(peakColumn);
+            if (amplitude < 0) throw new InputException($"{path}:{row.LineNumber}: {peakColumn} must be zero or positive (put the sign in phase_deg)");
             if (!values.TryAdd(point, Complex.FromPolarCoordinates(amplitude, row.Number("phase_deg") * Math.PI / 180)))
                 throw new InputException($"{path}:{row.LineNumber}: the point ({point.Item1}, {point.Item2}) is given twice");
         }

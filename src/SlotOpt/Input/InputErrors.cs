@@ -6,22 +6,23 @@ namespace SlotOpt.Input;
 /// </summary>
 public sealed class InputErrors
 {
-    private readonly List<string> messages = new();
+    private readonly List<InputError> errors = new();
     private readonly List<string> warnings = new();
 
-    public IReadOnlyList<string> Messages => messages;
+    /// <summary>Each mistake as printed: "file:line: key: message".</summary>
+    public IReadOnlyList<string> Messages => errors.Select(e => e.ToString()).ToList();
     public IReadOnlyList<string> Warnings => warnings;
-    public bool Any => messages.Count > 0;
+    public bool Any => errors.Count > 0;
 
     public void Add(string fileName, int line, string key, string message) =>
-        messages.Add(key.Length > 0 ? $"{fileName}:{line}: {key}: {message}" : $"{fileName}:{line}: {message}");
+        errors.Add(new InputError(fileName, line, key.Length > 0 ? key : null, message));
 
     public void Warn(string fileName, int line, string key, string message) =>
-        warnings.Add(key.Length > 0 ? $"{fileName}:{line}: {key}: {message}" : $"{fileName}:{line}: {message}");
+        warnings.Add(new InputError(fileName, line, key.Length > 0 ? key : null, message).ToString());
 
-    /// <summary>Throws one <see cref="InputException"/> listing every message, if there are any.</summary>
+    /// <summary>Throws one <see cref="InputException"/> listing every message in line order (stable within a line), if there are any.</summary>
     public void ThrowIfAny()
     {
-        if (messages.Count > 0) throw new InputException(messages);
+        if (errors.Count > 0) throw new InputException(errors.OrderBy(e => e.File, StringComparer.Ordinal).ThenBy(e => e.Line).ToList());   // in line order, as the file reads
     }
 }

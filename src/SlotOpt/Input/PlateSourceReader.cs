@@ -7,7 +7,7 @@ namespace SlotOpt.Input;
 
 /// <summary>
 /// Reads a plate's [source] table: kind = "uniform_ac" (peak, frequency, phase_deg), "field_map"
-/// (file: CSV x_m,y_m,amplitude_t,phase_deg relative to the problem file; frequency) or "moving_poles"
+/// (file: CSV x_m,y_m,peak_flux_density_t,phase_deg relative to the problem file; frequency) or "moving_poles"
 /// (pole = "circle" with radius | "rectangle" with pole_width, pole_height; flux_density, speed; x, y of
 /// the first pole centre at offset 0, default: the row centred on the plate; count, pole_pitch;
 /// positions (default 8); average = "slot_pitch" | "pass"). Shared by problem files and plate files.
@@ -32,12 +32,13 @@ public static class PlateSourceReader
 
     private static PlateExcitation? UniformAc(TomlSection s)
     {
-        var peak = s.RequiredQuantity("peak", QuantityKind.FluxDensity);
-        if (peak is < 0) s.Error("peak", "must be zero or positive");
+        s.AcceptOldName("peak", "peak_flux_density");
+        var peak = s.RequiredQuantity("peak_flux_density", QuantityKind.FluxDensity);
+        if (peak is < 0) s.Error("peak_flux_density", "must be zero or positive");
         var frequency = s.PositiveQuantity("frequency", QuantityKind.Frequency, required: true);
         var phaseDeg = s.OptionalNumber("phase_deg") ?? 0;
         if (peak is null || frequency is null || peak < 0) return null;
-        var field = s.Guard("peak", () => new UniformAcField(peak.Value, frequency.Value, phaseDeg * Math.PI / 180));
+        var field = s.Guard("peak_flux_density", () => new UniformAcField(peak.Value, frequency.Value, phaseDeg * Math.PI / 180));
         return field is null ? null : new PlateExcitation.AcField(field, frequency.Value);
     }
 
@@ -73,7 +74,8 @@ public static class PlateSourceReader
             var h = s.PositiveQuantity("pole_height", QuantityKind.Length, required: true);
             if (w is { } width && h is { } height) face = s.Guard("pole_width", () => PoleFace.Rectangle(width, height));
         }
-        var flux = s.RequiredQuantity("flux_density", QuantityKind.FluxDensity);
+        s.AcceptOldName("flux_density", "peak_flux_density");
+        var flux = s.RequiredQuantity("peak_flux_density", QuantityKind.FluxDensity);
         var speed = s.PositiveQuantity("speed", QuantityKind.Speed, required: true);
         var count = (int)(s.OptionalInteger("count", 1, 1000) ?? 1);
         var pitch = s.PositiveQuantity("pole_pitch", QuantityKind.Length, required: count > 1);

@@ -143,18 +143,19 @@ public static class ProblemReader
         var lossCap = section.PositiveQuantity("total_loss_cap", QuantityKind.Power, required: false);
         var maxProcesses = section.OptionalInteger("max_processes", 1, shop.Processes.Count);
         var groups = new List<IReadOnlyList<string>>();
-        if (section.Has("coil_groups"))
+        section.AcceptOldName("coil_groups", "same_steel_coil");
+        if (section.Has("same_steel_coil"))
         {
-            var raw = section.GroupList("coil_groups");
+            var raw = section.GroupList("same_steel_coil");
             foreach (var group in raw)
             {
                 foreach (var member in group)
                 {
                     var part = parts.FirstOrDefault(p => p.Name == member);
-                    if (part is null) section.Error("coil_groups", $"no part is named \"{member}\"{NameSuggestion.DidYouMean(member, parts.Select(p => p.Name))}");
-                    else if (part is not CorePart) section.Error("coil_groups", $"\"{member}\" is a plate; coil groups join laminated cores cut from one coil");
+                    if (part is null) section.Error("same_steel_coil", $"no part is named \"{member}\"{NameSuggestion.DidYouMean(member, parts.Select(p => p.Name))}");
+                    else if (part is not CorePart) section.Error("same_steel_coil", $"\"{member}\" is a plate; same_steel_coil joins laminated cores cut from one steel coil");
                 }
-                if (group.Count < 2) section.Error("coil_groups", "a coil group needs at least two parts");
+                if (group.Count < 2) section.Error("same_steel_coil", "a group of parts cut from the same steel coil needs at least two parts");
                 groups.Add(group);
             }
         }

@@ -12,7 +12,7 @@ namespace SlotOpt.Input;
 /// edge                 "bottom" | "top" | "left" | "right"; default "bottom"
 /// pitch, width         lengths (a family may list several)
 /// depth                length from the edge; "length" instead for "enclosed" slits
-/// remaining_thickness  grooves only, required: the fraction of thickness left under them, between 0 and 1
+/// remaining_thickness_fraction  grooves only, required: the fraction of thickness left under them, between 0 and 1
 /// </code>
 /// A width must be narrower than the pitch, and a slot must not cut through the plate. The caller reads
 /// its own keys (processes, offset) and then rejects unknown keys.
@@ -47,13 +47,14 @@ public static class SlotTableReader
         var pitches = Lengths(t, "pitch", oneValueEach);
         var extents = Lengths(t, extentKey, oneValueEach);
         var widths = Lengths(t, "width", oneValueEach);
-        var remaining = t.OptionalNumber("remaining_thickness");
+        t.AcceptOldName("remaining_thickness", "remaining_thickness_fraction");
+        var remaining = t.OptionalNumber("remaining_thickness_fraction");
 
         if (pitches is not null && widths is not null && widths.Max() >= pitches.Min())
             t.Error("width", $"the widest slot ({widths.Max() * 1e3:0.###} mm) is not narrower than the smallest pitch ({pitches.Min() * 1e3:0.###} mm): nothing would be left between slots");
         var grooves = shape?.Kind == SlotPatternKind.Grooves;
-        if (grooves && remaining is not (> 0 and < 1)) t.Error("remaining_thickness", "grooves need remaining_thickness between 0 and 1 (the fraction of thickness left under them)");
-        if (shape is not null && !grooves && remaining is not null) t.Error("remaining_thickness", "only grooves take remaining_thickness");
+        if (grooves && remaining is not (> 0 and < 1)) t.Error("remaining_thickness_fraction", "grooves need remaining_thickness_fraction between 0 and 1 (the fraction of thickness left under them)");
+        if (shape is not null && !grooves && remaining is not null) t.Error("remaining_thickness_fraction", "only grooves take remaining_thickness_fraction");
         if (outline is not null && extents is not null)
         {
             var (min, max) = outline.Bounds;

@@ -40,6 +40,21 @@ public static class JsonFormat
         }
     }
 
+    /// <summary>The value, as its runtime type, as one indented JSON document ending in a newline.</summary>
+    /// <exception cref="NumericalFailureException">A number in the value is NaN or infinite; the message names its key.</exception>
+    public static string Serialize(object value, Type type)
+    {
+        try
+        {
+            return JsonSerializer.Serialize(value, type, Options) + Environment.NewLine;
+        }
+        catch (Exception e) when (e is NumericalFailureException or ArgumentException)
+        {
+            ThrowIfNonFinite(JsonSerializer.SerializeToNode(value, type, LocatingOptions));
+            throw;
+        }
+    }
+
     private static void ThrowIfNonFinite(JsonNode? node)
     {
         if (FirstNonFinite(node) is var (path, number))

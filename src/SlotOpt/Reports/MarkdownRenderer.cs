@@ -33,13 +33,29 @@ public static class MarkdownRenderer
         return s.ToString();
     }
 
-    /// <summary>Markdown's active characters in running text, backslash-escaped.</summary>
+    /// <summary>
+    /// Markdown's active characters in running text, backslash-escaped only where they would act (CommonMark 0.31,
+    /// J. MacFarlane, 2024: an underscore inside a word opens no emphasis (section 6.2), brackets make a link only
+    /// as "](", "][" or "]:" (sections 6.3, 4.7), # and &gt; act only at the start of a line), so that
+    /// "parts[1].peak_flux_density" reads as written in the plain text too.
+    /// </summary>
     private static string Escape(string text)
     {
         var s = new StringBuilder(text.Length);
-        foreach (var c in text)
+        for (var i = 0; i < text.Length; i++)
         {
-            if (c is '\\' or '*' or '_' or '`' or '[' or ']' or '<' or '>' or '#' or '|') s.Append('\\');
+            var c = text[i];
+            var previous = i > 0 ? text[i - 1] : ' ';
+            var next = i + 1 < text.Length ? text[i + 1] : ' ';
+            var acts = c switch
+            {
+                '\\' or '*' or '`' or '<' or '|' => true,
+                '_' => !(char.IsLetterOrDigit(previous) && char.IsLetterOrDigit(next)),
+                ']' => next is '(' or '[' or ':',
+                '#' or '>' => i == 0,
+                _ => false,
+            };
+            if (acts) s.Append('\\');
             s.Append(c);
         }
         return s.ToString();

@@ -27,7 +27,7 @@ public sealed record ResultJson(
     IReadOnlyList<string>? Diagnosis,
     int SheetSolves,
     int CpSatCalls,
-    double CpSatDeterministicSeconds)
+    double CpSatDeterministicSeconds) : VersionedJson
 {
     /// <summary>One part's chosen option, its loss by origin, the reference it is measured against, the confirmation of a plate, and how many options the rules dropped.</summary>
     public sealed record ChosenPart(
@@ -111,9 +111,6 @@ public sealed record ResultJson(
             r.Outcome.Effort.SolverCalls,
             r.Outcome.Effort.DeterministicSeconds);
     }
-
-    /// <summary>The document as text, one newline at the end.</summary>
-    public string Serialize() => JsonFormat.Serialize(this);
 
     private static ChosenPart Chosen(RunResult r, EvaluatedOption o, PartEvaluation part) => new(
         o.PartName, o.Description, o.Id, o.Attributes,

@@ -10,7 +10,7 @@ public class LaminationCommandTests
     [Fact]
     public void Core_loss_of_M270_35A_at_its_specification_point()
     {
-        var run = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--json");
+        var run = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak-flux-density", "1.5T", "--frequency", "50Hz", "--json");
         Assert.Equal(0, run.ExitCode);
         using var doc = JsonDocument.Parse(run.Stdout);
         var root = doc.RootElement;
@@ -22,12 +22,12 @@ public class LaminationCommandTests
     }
 
     [Theory]
-    [InlineData("--grade", "M999-35Z", "--peak", "1.5T", "--frequency", "50Hz")]
-    [InlineData("--grade", "M270-35A", "--peak", "1.5 furlongs", "--frequency", "50Hz")]
-    [InlineData("--grade", "M270-35A", "--peak", "1.5T", "--frequency", "-50Hz")]
-    [InlineData("--grade", "M270-35A", "--peak", "1.5T")]
-    [InlineData("--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--temperature", "-400degC")]
-    [InlineData("--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--waveform", "no-such-file.csv")]
+    [InlineData("--grade", "M999-35Z", "--peak-flux-density", "1.5T", "--frequency", "50Hz")]
+    [InlineData("--grade", "M270-35A", "--peak-flux-density", "1.5 furlongs", "--frequency", "50Hz")]
+    [InlineData("--grade", "M270-35A", "--peak-flux-density", "1.5T", "--frequency", "-50Hz")]
+    [InlineData("--grade", "M270-35A", "--peak-flux-density", "1.5T")]
+    [InlineData("--grade", "M270-35A", "--peak-flux-density", "1.5T", "--frequency", "50Hz", "--temperature", "-400degC")]
+    [InlineData("--grade", "M270-35A", "--peak-flux-density", "1.5T", "--frequency", "50Hz", "--waveform", "no-such-file.csv")]
     public void Bad_flags_give_one_clear_line_and_exit_code_2(params string[] flags)
     {
         var run = SlotOptInProcess.Run(["core-loss", .. flags]);
@@ -45,13 +45,13 @@ public class LaminationCommandTests
         {
             // a trapezoid: ramps of a quarter period each, flat tops (an invented demo shape)
             File.WriteAllText(Path.Combine(dir, "trap.csv"), "phase,b_t\n0,-1\n0.25,1\n0.5,1\n0.75,-1\n");
-            var run = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.2T", "--frequency", "400Hz", "--waveform", Path.Combine(dir, "trap.csv"), "--json");
+            var run = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak-flux-density", "1.2T", "--frequency", "400Hz", "--waveform", Path.Combine(dir, "trap.csv"), "--json");
             Assert.Equal(0, run.ExitCode);
             using var doc = JsonDocument.Parse(run.Stdout);
-            Assert.Equal(1.2, doc.RootElement.GetProperty("peak_t").GetDouble(), 1e-12);
+            Assert.Equal(1.2, doc.RootElement.GetProperty("peak_flux_density_t").GetDouble(), 1e-12);
             // the classical term of this trapezoid: <(dB/dt)^2> = (2 Bp / (T/4))^2 / 2 = 32 Bp^2 f^2 (derived),
             // i.e. 16/pi^2 of the sine's; the skin factor multiplies it
-            var sine = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.2T", "--frequency", "400Hz", "--json");
+            var sine = SlotOptInProcess.Run("core-loss", "--grade", "M270-35A", "--peak-flux-density", "1.2T", "--frequency", "400Hz", "--json");
             using var sineDoc = JsonDocument.Parse(sine.Stdout);
             var ratio = doc.RootElement.GetProperty("classical_w_per_kg").GetDouble() / doc.RootElement.GetProperty("skin_factor").GetDouble()
                         / (sineDoc.RootElement.GetProperty("classical_w_per_kg").GetDouble() / sineDoc.RootElement.GetProperty("skin_factor").GetDouble());

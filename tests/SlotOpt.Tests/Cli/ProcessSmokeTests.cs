@@ -12,7 +12,7 @@ public class ProcessSmokeTests
     [Fact]
     public void A_successful_command_exits_0_and_prints_its_json_on_standard_output()
     {
-        var run = SlotOptProcess.Run("core-loss", "--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--json");
+        var run = SlotOptProcess.Run("core-loss", "--grade", "M270-35A", "--peak-flux-density", "1.5T", "--frequency", "50Hz", "--json");
         Assert.Equal(0, run.ExitCode);
         Assert.Equal("", run.Stderr);
         using var doc = JsonDocument.Parse(run.Stdout);
@@ -20,8 +20,8 @@ public class ProcessSmokeTests
     }
 
     [Theory]
-    [InlineData("core-loss", "--grade", "M270-35A", "--peak", "1.5T", "--frequency", "50Hz", "--no-such-flag")]   // a parse error
-    [InlineData("core-loss", "--grade", "M999-35Z", "--peak", "1.5T", "--frequency", "50Hz")]                    // an engine InputException
+    [InlineData("core-loss", "--grade", "M270-35A", "--peak-flux-density", "1.5T", "--frequency", "50Hz", "--no-such-flag")]   // a parse error
+    [InlineData("core-loss", "--grade", "M999-35Z", "--peak-flux-density", "1.5T", "--frequency", "50Hz")]                    // an engine InputException
     public void Bad_input_exits_2_with_the_message_on_standard_error(params string[] args)
     {
         var run = SlotOptProcess.Run(args);

@@ -54,7 +54,7 @@ public class ProblemFileTests
         grades = ["M270-35A"]
         lamination_area = "0.01 m2"
         stack_height = "50 mm"
-        flux = "1.2 T"
+        peak_flux_density = "1.2 T"
         frequency = "50 Hz"
         """;
 
@@ -81,7 +81,7 @@ public class ProblemFileTests
     }
 
     [Theory]
-    [InlineData("flux = \"1.2 T\"", "flux = \"2.1 T\"", 10, "parts[1].flux", "beyond what M270-35A carries")]          // above saturation
+    [InlineData("peak_flux_density = \"1.2 T\"", "peak_flux_density = \"2.1 T\"", 10, "parts[1].peak_flux_density", "beyond what M270-35A carries")]          // above saturation
     [InlineData("stack_height = \"50 mm\"", "stack_height = \"-50 mm\"", 9, "parts[1].stack_height", "must be positive")] // negative size
     [InlineData("kind = \"core\"", "kind = \"coer\"", 6, "parts[1].kind", "did you mean core?")]
     [InlineData("frequency = \"50 Hz\"", "frequency = \"50 Hz\"\nfrobnicate = 3", 12, "parts[1].frobnicate", "unknown key")]
@@ -107,7 +107,7 @@ public class ProblemFileTests
 
         [parts.source]
         kind = "uniform_ac"
-        peak = "10 mT"
+        peak_flux_density = "10 mT"
         frequency = "50 Hz"
 
         [[parts.slots]]
@@ -134,7 +134,7 @@ public class ProblemFileTests
     {
         var moving = ValidPlate.Replace("""
             kind = "uniform_ac"
-            peak = "10 mT"
+            peak_flux_density = "10 mT"
             frequency = "50 Hz"
             """, """
             kind = "moving_poles"
@@ -152,7 +152,7 @@ public class ProblemFileTests
     {
         var moving = ValidPlate.Replace("""
             kind = "uniform_ac"
-            peak = "10 mT"
+            peak_flux_density = "10 mT"
             frequency = "50 Hz"
             """, """
             kind = "moving_poles"

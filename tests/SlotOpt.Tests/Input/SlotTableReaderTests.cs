@@ -79,8 +79,8 @@ public class SlotTableReaderTests
     // pattern is required (the current design no longer falls back to a comb or to half the thickness).
     [Theory]
     [InlineData("slots = { pattern = \"comb\", pitch", "slots = { pitch", "parts[1].current.slots.pattern: missing")]
-    [InlineData("slots = { pattern = \"comb\"", "slots = { pattern = \"grooves\"", "parts[1].current.slots.remaining_thickness: grooves need remaining_thickness")]
-    [InlineData("pattern = \"comb\"\npitch", "pattern = \"grooves\"\npitch", "parts[1].slots[1].remaining_thickness: grooves need remaining_thickness")]
+    [InlineData("slots = { pattern = \"comb\"", "slots = { pattern = \"grooves\"", "parts[1].current.slots.remaining_thickness_fraction: grooves need remaining_thickness_fraction")]
+    [InlineData("pattern = \"comb\"\npitch", "pattern = \"grooves\"\npitch", "parts[1].slots[1].remaining_thickness_fraction: grooves need remaining_thickness_fraction")]
     public void Problem_file_slot_mistakes_are_input_errors(string from, string to, string says)
     {
         var text = ProblemFile.Replace(from, to);
@@ -91,8 +91,8 @@ public class SlotTableReaderTests
 
     [Theory]
     [InlineData("pattern = \"comb\"\n", "", "slots[1].pattern: missing")]
-    [InlineData("pattern = \"comb\"", "pattern = \"grooves\"", "slots[1].remaining_thickness: grooves need remaining_thickness")]
-    [InlineData("pattern = \"comb\"", "pattern = \"comb\"\nremaining_thickness = 0.5", "slots[1].remaining_thickness: only grooves take remaining_thickness")]
+    [InlineData("pattern = \"comb\"", "pattern = \"grooves\"", "slots[1].remaining_thickness_fraction: grooves need remaining_thickness_fraction")]
+    [InlineData("pattern = \"comb\"", "pattern = \"comb\"\nremaining_thickness = 0.5", "slots[1].remaining_thickness_fraction: only grooves take remaining_thickness_fraction")]
     public void Plate_file_slot_mistakes_are_the_same_errors(string from, string to, string says)
     {
         var text = PlateFile.Replace(from, to);

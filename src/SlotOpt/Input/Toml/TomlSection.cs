@@ -34,6 +34,23 @@ public sealed class TomlSection
         return table.Entries.ContainsKey(key);
     }
 
+    /// <summary>
+    /// Reads a key written under its old name as its new name, with a warning that the old spelling is
+    /// deprecated (accepted for one release); both written is an error. Call before reading the new key.
+    /// </summary>
+    public void AcceptOldName(string oldKey, string newKey)
+    {
+        known.Add(oldKey);
+        if (!table.Entries.Remove(oldKey, out var node)) return;
+        if (table.Entries.ContainsKey(newKey))
+        {
+            Errors.Add(FileName, node.Line, KeyPath(oldKey), $"give {newKey} only (the old name {oldKey} says the same thing)");
+            return;
+        }
+        Errors.Warn(FileName, node.Line, KeyPath(oldKey), $"deprecated name, read as {newKey}; write {newKey} (the old name is accepted until the next release)");
+        table.Entries[newKey] = node;
+    }
+
     public int LineOf(string key) => table.Entries.TryGetValue(key, out var node) ? node.Line : table.Line;
 
     /// <summary>Records an error against a key of this table (its line, or the table's when absent).</summary>

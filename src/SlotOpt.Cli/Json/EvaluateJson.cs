@@ -1,0 +1,29 @@
+using SlotOpt.Reports;
+
+namespace SlotOpt.Cli;
+
+/// <summary>`slotopt evaluate --json`: each part's current design (or baseline), its loss by origin, drag and cost, and the totals.</summary>
+public sealed record EvaluateJson(
+    string Problem,
+    string Currency,
+    IReadOnlyList<EvaluateJson.Part> Parts,
+    double TotalLossW,
+    double TotalCost,
+    double ValuePerWatt,
+    double OwningCost) : VersionedJson
+{
+    /// <summary>One part as evaluated: <see cref="Kind"/> is "current" or "baseline" (as in result.json's reference), <see cref="Breaks"/> the rule or limit it breaks.</summary>
+    public sealed record Part(
+        string Name,
+        string Kind,
+        string Design,
+        double LossW,
+        double HysteresisW,
+        double ClassicalW,
+        double ExcessW,
+        double PlateEddyW,
+        double? DragN,
+        double BuildCost,
+        string? Breaks,
+        IReadOnlyList<string> Flags);
+}

@@ -1,0 +1,44 @@
+using SlotOpt.Reports;
+
+namespace SlotOpt.Cli;
+
+/// <summary>
+/// `slotopt plate --json`: the model and why, loss and drag (per source position when it moves), current density,
+/// the grid-error estimate (relative, Richardson against cells twice as large), validity figures, the solver's reproducible effort (no wall times), and the temperature keys when the file has [thermal]
+/// (temperature_limit_exceeded only when it sets a limit).
+/// Absent values are left out, never written as null.
+/// </summary>
+public sealed record PlateJson(
+    string File,
+    string Model,
+    string ModelReason,
+    double LossW,
+    double? DragN,
+    double? DiscretisationError,
+    string? AveragedOver,
+    IReadOnlyList<double> PositionsM,
+    IReadOnlyList<double> DragPerPositionN,
+    IReadOnlyList<double> LossPerPositionW,
+    double PeakCurrentDensityAPerM2,
+    double RmsCurrentDensityAPerM2,
+    double ReynoldsNumber,
+    double? ThicknessToSkinDepth,
+    double SheetConductanceS,
+    int Unknowns,
+    int Iterations,
+    double RelativeResidual,
+    double? TemperatureRiseMaxK,
+    double? TemperatureRiseMeanK,
+    double? HottestTemperatureK,
+    IReadOnlyList<double>? HottestPointM,
+    double? AmbientK,
+    double? ConvectionCoefficientWPerM2k,
+    double? HeatConvectedW,
+    double? HeatRadiatedW,
+    double? HeatToEdgesW,
+    double? ResistivityTemperatureK,
+    IReadOnlyList<double>? ResistivityTemperatureRangeK,
+    int? CouplingIterations,
+    bool? TemperatureLimitExceeded,
+    IReadOnlyList<string> Warnings,
+    IReadOnlyList<string> Notes) : VersionedJson;
