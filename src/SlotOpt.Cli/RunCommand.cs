@@ -6,6 +6,7 @@ using SlotOpt.Input;
 using SlotOpt.Reports;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
+using SlotOpt.Reports.Json;
 
 namespace SlotOpt.Cli;
 

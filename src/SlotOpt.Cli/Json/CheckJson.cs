@@ -1,5 +1,5 @@
 using SlotOpt.Selection;
-using SlotOpt.Reports;
+using SlotOpt.Reports.Json;
 
 namespace SlotOpt.Cli;
 

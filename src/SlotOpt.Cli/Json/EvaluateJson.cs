@@ -1,4 +1,4 @@
-using SlotOpt.Reports;
+using SlotOpt.Reports.Json;
 
 namespace SlotOpt.Cli;
 

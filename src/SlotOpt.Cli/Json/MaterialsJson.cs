@@ -1,6 +1,6 @@
 using System.Text.Json.Serialization;
 using SlotOpt.Materials;
-using SlotOpt.Reports;
+using SlotOpt.Reports.Json;
 
 namespace SlotOpt.Cli;
 

@@ -1,4 +1,5 @@
 using SlotOpt.Runs;
+using SlotOpt.Reports.Json;
 
 namespace SlotOpt.Reports;
 

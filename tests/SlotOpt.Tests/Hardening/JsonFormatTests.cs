@@ -2,6 +2,7 @@ using System.Text.Json.Nodes;
 using SlotOpt.Cli;
 using SlotOpt.Design;
 using SlotOpt.Reports;
+using SlotOpt.Reports.Json;
 
 namespace SlotOpt.Tests.Hardening;
 

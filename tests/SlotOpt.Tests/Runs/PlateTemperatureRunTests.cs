@@ -4,6 +4,7 @@ using SlotOpt.Input;
 using SlotOpt.Plates.Thermal;
 using SlotOpt.Reports;
 using SlotOpt.Runs;
+using SlotOpt.Reports.Json;
 
 namespace SlotOpt.Tests.Runs;
 

@@ -1,6 +1,6 @@
 using System.Text.Json.Serialization;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Json;
 
 /// <summary>
 /// A JSON document slotopt prints (result.json and every command's --json, errors included): its first key is

@@ -3,7 +3,7 @@ using SlotOpt.Plates;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Json;
 
 /// <summary>
 /// result.json, the machine-readable form of a run (`slotopt run --json` prints the same document): the numbers

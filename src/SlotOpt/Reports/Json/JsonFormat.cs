@@ -3,7 +3,7 @@ using System.Text.Json;
 using System.Text.Json.Nodes;
 using System.Text.Json.Serialization;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Json;
 
 /// <summary>
 /// The one JSON configuration of slotopt (result.json and every command's --json): snake_case keys, kebab-case
