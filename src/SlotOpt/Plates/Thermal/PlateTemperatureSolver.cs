@@ -7,8 +7,8 @@ namespace SlotOpt.Plates.Thermal;
 
 /// <summary>
 /// Steady plate temperature from a loss map (W per cell): the <see cref="ThermalNetwork"/> solved for
-/// the rise above ambient by multigrid-preconditioned CG (the hierarchy of the eddy-current solve,
-/// built on this operator). Natural convection depends on the mean rise and radiation on the local
+/// the rise above ambient by CG preconditioned with the eddy-current solve's black-box multigrid
+/// (<see cref="StructuredMultigrid.ForNodeMatrix"/>: the same 5-point stencil, holes and held nodes as identity rows). Natural convection depends on the mean rise and radiation on the local
 /// temperature, so the linear solve is repeated: h_conv at the last mean rise (Picard) and the
 /// radiation linearised about the last temperature (Newton, q_r' = 4 eps sigma T^3), until no node
 /// moves by more than <see cref="RelativeTolerance"/> of the largest rise. The heat balance is then checked:
@@ -55,7 +55,7 @@ public static class PlateTemperatureSolver
         // start: the rise the loss would give under 10 W/m^2K, a middle value for natural convection (common practice, no source)
         double meanRise = heatIn / (2 * 10 * totalArea);
         double hConv = 0;
-        MultigridHierarchy? multigrid = null;
+        StructuredMultigrid? multigrid = null;
         int iterations = 0, linear = 0;
         double residual = 0, lastChange = double.PositiveInfinity, lastLargest = 0;
         bool dependsOnRise = fluid is not null || cooling.Emissivity > 0;
@@ -79,7 +79,7 @@ public static class PlateTemperatureSolver
             }
             var a = network.Matrix(h);
             // one hierarchy per solve: later Picard steps change only the diagonal a little, and it stays an SPD preconditioner
-            multigrid ??= MultigridHierarchy.Build(a, l, map, new bool[unknowns]);
+            multigrid ??= StructuredMultigrid.ForNodeMatrix(a, l.NodesX, l.NodesY, map);
             Array.Copy(rise, previous, unknowns);
             // early steps only need to point the way: the tight residual once the steps are small (an inexact fixed-point iteration)
             bool tight = !dependsOnRise || lastChange <= 1e-3 * lastLargest;
