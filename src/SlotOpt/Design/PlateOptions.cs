@@ -69,18 +69,22 @@ public static class PlateOptions
     {
         var verdicts = new Dictionary<(double, string), TemperatureBracket.Outcome>();
         if (part.Thermal is null || solved.Failure is not null) return verdicts;
+        var screen = Screen(part, solved);
         foreach (var thickness in part.ThicknessesM)
         foreach (var materialName in part.Materials)
-            verdicts[(thickness, materialName)] = Heat(part, solved, thickness, library.GetConductor(materialName, part.Name), limits);
+            verdicts[(thickness, materialName)] = Heat(part, solved, thickness, library.GetConductor(materialName, part.Name), limits, screen);
         return verdicts;
     }
 
+    /// <summary>The thermal solves of one solved geometry, shared by its thicknesses and materials (one network and preconditioner, warm starts).</summary>
+    private static ThermalScreen Screen(PlatePart part, SolvedGeometry solved) =>
+        new((solved.Peak?.Model ?? throw new InvalidOperationException($"{part.Name}: no solved geometry to heat")).Grid, part.Thermal!.Cooling.Edges);
+
     /// <summary>One thickness and material of a solved geometry heated by its loss: bracketed, coupled only where the bracket straddles the limit.</summary>
-    private static TemperatureBracket.Outcome Heat(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, EvaluationLimits limits)
+    private static TemperatureBracket.Outcome Heat(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, EvaluationLimits limits, ThermalScreen screen)
     {
         var thermal = part.Thermal!;
-        var model = solved.Peak?.Model ?? throw new InvalidOperationException($"{part.Name}: no solved geometry to heat");
-        return TemperatureBracket.Find(model.Grid, solved.UnitCellLossW!, ThermalConductivityTable.Of(material.Name, part.Name), thicknessM,
+        return TemperatureBracket.Find(screen, solved.UnitCellLossW!, ThermalConductivityTable.Of(material.Name, part.Name), thicknessM,
             k => material.ConductivityAt(k) * thicknessM, thermal.Cooling, thermal.Limit, () => SolveHeated(part, solved.Slots, thicknessM, material, limits));
     }
 
@@ -170,7 +174,7 @@ public static class PlateOptions
         limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1);
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
-        var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits) : null;
+        var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits, Screen(part, solved)) : null;
         return Scale(part, solved, choice.ThicknessM, material, shop.Processes[choice.Process], shop, heat);
     }
 

@@ -1,3 +1,4 @@
+using MathNet.Numerics.RootFinding;
 using SlotOpt.Materials;
 
 namespace SlotOpt.Plates.Thermal;
@@ -33,5 +34,24 @@ public static class NaturalConvection
         double rise = Math.Max(riseK, 0);
         var p = fluid.At(ambientK + rise / 2);
         return AverageNusselt(Rayleigh(p, rise, lengthM), p.PrandtlNumber) * p.ThermalConductivityWPerMK / lengthM;
+    }
+
+    /// <summary>
+    /// The mean rise r and coefficient h = h(r) of a face that sheds q (W/m^2) by convection alone: the root of
+    /// r h(r) = q (Newton's law of cooling with the correlation's h), by Brent's method (MathNet.Numerics) on
+    /// [0, the rise whose film temperature is the top of the fluid's table], to 1e-13 K. r h(r) grows with r, so the
+    /// root is unique; a plate that would need a rise beyond the table is a <see cref="NumericalFailureException"/>.
+    /// </summary>
+    public static (double CoefficientWPerM2K, double RiseK) AtHeatFlux(CoolingFluid fluid, double ambientK, double heatFluxWPerM2, double lengthM)
+    {
+        if (!(heatFluxWPerM2 >= 0) || !double.IsFinite(heatFluxWPerM2)) throw new NumericalFailureException($"natural convection: a heat flux of {heatFluxWPerM2} W/m^2 per face");
+        if (heatFluxWPerM2 == 0) return (AverageCoefficient(fluid, ambientK, 0, lengthM), 0);
+        double top = 2 * (fluid.MaxTemperatureK - ambientK);   // film temperature (T_s + T_inf) / 2 at the table's top
+        double Excess(double r) => r * AverageCoefficient(fluid, ambientK, r, lengthM) / heatFluxWPerM2 - 1;
+        if (!(top > 0) || Excess(top) < 0)
+            throw new NumericalFailureException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"natural convection: shedding {heatFluxWPerM2:G4} W/m^2 per face in {fluid.Name} needs a film temperature beyond its property table (top {fluid.MaxTemperatureK:0} K)"));
+        double rise = Brent.FindRoot(Excess, 0, top, 1e-13, 200);
+        return (AverageCoefficient(fluid, ambientK, rise, lengthM), rise);
     }
 }

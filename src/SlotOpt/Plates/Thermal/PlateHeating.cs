@@ -75,6 +75,7 @@ public static class PlateHeating
         var history = new List<string>();
         double[]? used = null;            // conductivity factor per cell the eddy solve ran with (null: 1 everywhere)
         ThermalNetwork? network = null;
+        PlateTemperature? last = null;
         double relax = 1, lastMismatch = double.PositiveInfinity;
         for (int iteration = 1; ; iteration++)
         {
@@ -84,9 +85,10 @@ public static class PlateHeating
             if (!double.IsFinite(loss)) throw new NumericalFailureException($"electro-thermal coupling: the loss is not finite at iteration {iteration}");
             network ??= ThermalNetwork.Assemble(model.Grid, material.ThermalConductivityWPerMK, sheet.ThicknessM, cooling.Edges);
             PlateTemperature temperature;
-            try { temperature = PlateTemperatureSolver.Solve(network, cellLoss, cooling); }
+            try { temperature = PlateTemperatureSolver.Solve(network, cellLoss, cooling, last); }
             catch (NumericalFailureException e) { throw new NumericalFailureException($"electro-thermal coupling, iteration {iteration} (loss {loss.ToString("G4", c)} W): {e.Message}{Trail(history)}"); }
             history.Add(string.Create(c, $"{iteration}: loss {loss:G5} W, hottest {temperature.HottestK - 273.15:0.##} degC"));
+            last = temperature;   // the next thermal solve starts here
 
             var cellT = temperature.CellTemperatureK();
             var target = new double[cellT.Length];

@@ -8,15 +8,26 @@ namespace SlotOpt.Plates.Thermal;
 /// <summary>
 /// Steady plate temperature from a loss map (W per cell): the <see cref="ThermalNetwork"/> solved for
 /// the rise above ambient by CG preconditioned with the eddy-current solve's black-box multigrid
-/// (<see cref="StructuredMultigrid.ForNodeMatrix"/>: the same 5-point stencil, holes and held nodes as identity rows). Natural convection depends on the mean rise and radiation on the local
-/// temperature, so the linear solve is repeated: h_conv at the last mean rise (Picard) and the
-/// radiation linearised about the last temperature (Newton, q_r' = 4 eps sigma T^3), until no node
-/// moves by more than <see cref="RelativeTolerance"/> of the largest rise. The heat balance is then checked:
-/// convected + radiated + into held edges must equal the loss within <see cref="BalanceTolerance"/>.
+/// (<see cref="StructuredMultigrid.ForNodeMatrix"/>: the same 5-point stencil, holes and held nodes as identity rows).
+/// Natural convection gives one h for the whole plate from its mean rise, and radiation depends on the local
+/// temperature, so the linear solve may be repeated:
+/// <list type="bullet">
+/// <item>h from the heat balance on the mean: each step takes h where r h(r) = c (<see cref="NaturalConvection.AtHeatFlux"/>),
+/// c = Q / (2 A) at the first step (all the heat convected: exact for insulated edges without radiation, where
+/// 2 h A r_mean = Q holds for the discrete solution too, so one solve settles it) and then c = r_mean h of the last
+/// solve (its rise taken as inversely proportional to h, which held edges and radiation alter only a little);</item>
+/// <item>radiation linearised about the last rise (Newton, q_r' = 4 eps sigma T^3; the first step about the warm
+/// start, or the mean rise the balance predicts).</item>
+/// </list>
+/// Each solve starts from the last rise (the first from the given start, scaled by the heat ratio, or the predicted mean).
+/// Converged when h at the solve's mean rise agrees with the h it was solved with within <see cref="RelativeTolerance"/>
+/// and, with radiation, no node moved by more than <see cref="RelativeTolerance"/> of the largest rise from the rise
+/// it was linearised about (below any reported digit). The heat balance is then checked: convected + radiated + into
+/// held edges must equal the loss within <see cref="BalanceTolerance"/>.
 /// </summary>
 public static class PlateTemperatureSolver
 {
-    /// <summary>The iteration stops when max |change| &lt;= 1e-6 x the largest rise (below any reported digit; the fixed-point error is about the last change).</summary>
+    /// <summary>Stopping tolerance of the h and radiation iteration (relative; see the type's summary).</summary>
     public const double RelativeTolerance = 1e-6;
     public const int MaxIterations = 200;
     /// <summary>|heat out - heat in| / heat in above this is a failed solve (1e-4: far above CG's 1e-10, far below any reported digit).</summary>
@@ -25,13 +36,12 @@ public static class PlateTemperatureSolver
     /// <summary>The linear solves: relative residual 1e-9 (the iteration and balance checks sit above it).</summary>
     public static ConvergenceCriterion LinearCriterion { get; } = new() { RelativeResidual = 1e-9, MaxIterations = 400 };
 
-    /// <summary>The early steps of the iteration, while a step still moves the rise by more than 1e-3 of it: relative residual 1e-4.</summary>
-    public static ConvergenceCriterion EarlyCriterion { get; } = new() { RelativeResidual = 1e-4, MaxIterations = 400 };
-
     public static PlateTemperature Solve(PlateGrid grid, double[] cellLossW, double thermalConductivityWPerMK, double thicknessM, PlateCooling cooling) =>
         Solve(ThermalNetwork.Assemble(grid, thermalConductivityWPerMK, thicknessM, cooling.Edges), cellLossW, cooling);
 
-    public static PlateTemperature Solve(ThermalNetwork network, double[] cellLossW, PlateCooling cooling)
+    /// <param name="start">A temperature of a similar plate on the same grid (another thickness or material, another loss): its
+    /// rise, scaled by the ratio of the heat inputs, starts the iteration. Only the number of iterations depends on it.</param>
+    public static PlateTemperature Solve(ThermalNetwork network, double[] cellLossW, PlateCooling cooling, PlateTemperature? start = null)
     {
         var l = network.Lattice;
         if (cellLossW.Length != l.CellCount) throw new ArgumentException("one loss per cell", nameof(cellLossW));
@@ -48,42 +58,47 @@ public static class PlateTemperatureSolver
         for (int n = 0; n < map.Length; n++) if (map[n] >= 0) b[map[n]] = nodeHeat[n];
         double totalArea = network.NodeAreaM2.Sum();
         var fluid = cooling.Medium switch { CoolingMedium.Air => CoolingFluid.Air, CoolingMedium.Oil => CoolingFluid.MineralOil, _ => null };
+        bool radiates = cooling.Emissivity > 0;
 
         var rise = new double[unknowns];
         var h = new double[unknowns];
         var rhs = new double[unknowns];
-        // start: the rise the loss would give under 10 W/m^2K, a middle value for natural convection (common practice, no source)
-        double meanRise = heatIn / (2 * 10 * totalArea);
-        double hConv = 0;
-        StructuredMultigrid? multigrid = null;
-        int iterations = 0, linear = 0;
-        double residual = 0, lastChange = double.PositiveInfinity, lastLargest = 0;
-        bool dependsOnRise = fluid is not null || cooling.Emissivity > 0;
         var previous = new double[unknowns];
+        double shed = heatIn / (2 * totalArea);   // c = r_mean h: per face, all the heat convected
+        double hConv = 0;
+        bool warm = start is not null && start.NodeTemperatureK.Length == map.Length && start.HeatInW > 0;
+        if (warm)
+        {
+            double scale = heatIn / start!.HeatInW;
+            for (int n = 0; n < map.Length; n++)
+                if (map[n] >= 0 && double.IsFinite(start.NodeTemperatureK[n])) rise[map[n]] = scale * (start.NodeTemperatureK[n] - start.AmbientK);
+        }
+        int iterations = 0, linear = 0;
+        double residual = 0;
         while (unknowns > 0)   // none when every metal node is held at ambient (a plate a cell or two wide)
         {
             iterations++;
-            hConv = fluid is null ? cooling.FixedCoefficientWPerM2K!.Value : NaturalConvection.AverageCoefficient(fluid, cooling.AmbientK, meanRise, cooling.VerticalLengthM);
+            double predictedMean;
+            if (fluid is null) { hConv = cooling.FixedCoefficientWPerM2K!.Value; predictedMean = shed / hConv; }
+            else (hConv, predictedMean) = NaturalConvection.AtHeatFlux(fluid, cooling.AmbientK, shed, cooling.VerticalLengthM);
+            if (iterations == 1 && !warm) Array.Fill(rise, predictedMean);
             Array.Copy(b, rhs, unknowns);
+            Array.Copy(rise, previous, unknowns);
             for (int n = 0; n < map.Length; n++)
             {
                 int u = map[n];
                 if (u < 0) continue;
                 h[u] = hConv;
-                if (cooling.Emissivity == 0) continue;
+                if (!radiates) continue;
                 // Newton step on the radiation of both faces: q_r(r) ~ q_r(r0) + q_r'(r0) (r - r0), q_r' = 4 eps sigma T0^3
-                double r0 = Math.Max(iterations == 1 ? meanRise : rise[u], 0), t0 = cooling.AmbientK + r0;
+                double r0 = Math.Max(rise[u], 0), t0 = cooling.AmbientK + r0;
                 double slope = 4 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * t0 * t0 * t0;
                 h[u] += slope;
                 rhs[u] -= 2 * network.NodeAreaM2[n] * (SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, t0, cooling.AmbientK) - slope * r0);
             }
             var a = network.Matrix(h);
-            // one hierarchy per solve: later Picard steps change only the diagonal a little, and it stays an SPD preconditioner
-            multigrid ??= StructuredMultigrid.ForNodeMatrix(a, l.NodesX, l.NodesY, map);
-            Array.Copy(rise, previous, unknowns);
-            // early steps only need to point the way: the tight residual once the steps are small (an inexact fixed-point iteration)
-            bool tight = !dependsOnRise || lastChange <= 1e-3 * lastLargest;
-            if (!ConjugateGradient.TrySolve(a, rhs, rise, multigrid, tight ? LinearCriterion : EarlyCriterion, out var report))
+            var multigrid = network.Preconditioner(a, h.Average());   // kept while h / (k t) moves little: an SPD preconditioner either way
+            if (!ConjugateGradient.TrySolve(a, rhs, rise, multigrid, LinearCriterion, out var report))
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
             residual = report.RelativeResidual;
@@ -97,13 +112,14 @@ public static class PlateTemperatureSolver
                 change = Math.Max(change, Math.Abs(rise[u] - previous[u]));
                 weighted += network.NodeAreaM2[n] * rise[u];
             }
-            meanRise = weighted / totalArea;
-            lastChange = change;
-            lastLargest = largest;
-            if (largest == 0 || (tight && (!dependsOnRise || change <= RelativeTolerance * largest))) break;
+            double meanRise = weighted / totalArea;
+            double hMismatch = fluid is null ? 0 : Math.Abs(NaturalConvection.AverageCoefficient(fluid, cooling.AmbientK, meanRise, cooling.VerticalLengthM) - hConv) / hConv;
+            bool radiationSettled = !radiates || change <= RelativeTolerance * largest;
+            if (largest == 0 || (hMismatch <= RelativeTolerance && radiationSettled)) break;
             if (iterations >= MaxIterations)
                 throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
-                    $"plate temperature: the surface coefficients did not settle in {MaxIterations} iterations (last change {lastChange:G3} K at a largest rise of {largest:G4} K)"));
+                    $"plate temperature: the surface coefficients did not settle in {MaxIterations} iterations (h mismatch {hMismatch:G3}, last change {change:G3} K at a largest rise of {largest:G4} K)"));
+            shed = Math.Max(meanRise, 0) * hConv;
         }
 
         var temperature = new double[map.Length];
@@ -118,7 +134,7 @@ public static class PlateTemperatureSolver
             convected += 2 * hConv * network.NodeAreaM2[n] * r;
             radiated += 2 * network.NodeAreaM2[n] * SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, temperature[n], cooling.AmbientK);
         }
-        for (int u = 0; u < unknowns; u++) edge += network.ConductanceToHeld[u] * rise[u];
+        for (int u = 0; u < unknowns; u++) edge += network.ConductanceToHeld(u) * rise[u];
         double imbalance = Math.Abs(convected + radiated + edge - heatIn);
         if (heatIn > 0 && imbalance > BalanceTolerance * heatIn)
             throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
