@@ -37,17 +37,19 @@ public static class NaturalConvection
     }
 
     /// <summary>
-    /// The mean rise r and coefficient h = h(r) of a face that sheds q (W/m^2) by convection alone: the root of
-    /// r h(r) = q (Newton's law of cooling with the correlation's h), by Brent's method (MathNet.Numerics) on
-    /// [0, the rise whose film temperature is the top of the fluid's table], to 1e-13 K. r h(r) grows with r, so the
-    /// root is unique; a plate that would need a rise beyond the table is a <see cref="NumericalFailureException"/>.
+    /// The mean rise r and coefficient h = h(r) of a face that sheds q (W/m^2): the root of r h(r) + other(r) = q (Newton's
+    /// law of cooling with the correlation's h, plus any other outflow per unit face area that grows with the rise, such as
+    /// radiation or conduction into held edges), by Brent's method (MathNet.Numerics) on [0, the rise whose film temperature
+    /// is the top of the fluid's table], to 1e-13 K. The left side grows with r, so the root is unique; a plate that would
+    /// need a rise beyond the table is a <see cref="NumericalFailureException"/>.
     /// </summary>
-    public static (double CoefficientWPerM2K, double RiseK) AtHeatFlux(CoolingFluid fluid, double ambientK, double heatFluxWPerM2, double lengthM)
+    public static (double CoefficientWPerM2K, double RiseK) AtHeatFlux(CoolingFluid fluid, double ambientK, double heatFluxWPerM2, double lengthM,
+        Func<double, double>? otherFluxWPerM2 = null)
     {
         if (!(heatFluxWPerM2 >= 0) || !double.IsFinite(heatFluxWPerM2)) throw new NumericalFailureException($"natural convection: a heat flux of {heatFluxWPerM2} W/m^2 per face");
         if (heatFluxWPerM2 == 0) return (AverageCoefficient(fluid, ambientK, 0, lengthM), 0);
         double top = 2 * (fluid.MaxTemperatureK - ambientK);   // film temperature (T_s + T_inf) / 2 at the table's top
-        double Excess(double r) => r * AverageCoefficient(fluid, ambientK, r, lengthM) / heatFluxWPerM2 - 1;
+        double Excess(double r) => (r * AverageCoefficient(fluid, ambientK, r, lengthM) + (otherFluxWPerM2?.Invoke(r) ?? 0)) / heatFluxWPerM2 - 1;
         if (!(top > 0) || Excess(top) < 0)
             throw new NumericalFailureException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
                 $"natural convection: shedding {heatFluxWPerM2:G4} W/m^2 per face in {fluid.Name} needs a film temperature beyond its property table (top {fluid.MaxTemperatureK:0} K)"));

@@ -1,4 +1,5 @@
 using System.Globalization;
+using MathNet.Numerics.RootFinding;
 using SlotOpt.Materials;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Grid;
@@ -12,18 +13,24 @@ namespace SlotOpt.Plates.Thermal;
 /// Natural convection gives one h for the whole plate from its mean rise, and radiation depends on the local
 /// temperature, so the linear solve may be repeated:
 /// <list type="bullet">
-/// <item>h from the heat balance on the mean: each step takes h where r h(r) = c (<see cref="NaturalConvection.AtHeatFlux"/>),
-/// c = Q / (2 A) at the first step (all the heat convected: exact for insulated edges without radiation, where
-/// 2 h A r_mean = Q holds for the discrete solution too, so one solve settles it) and then c = r_mean h of the last
-/// solve (its rise taken as inversely proportional to h, which held edges and radiation alter only a little);</item>
+/// <item>h from the heat balance on the mean: each step takes the mean rise r where r h(r) + radiated(r) + into edges(r)
+/// = Q / (2 A) per face (Q less the loss put on held nodes) (<see cref="NaturalConvection.AtHeatFlux"/>), h = h(r). The first step takes the radiation of a
+/// uniform plate at r and no heat into edges (exact for insulated edges without radiation, where 2 h A r_mean = Q holds for
+/// the discrete solution too, so one solve settles it); later steps scale the last solve's radiated heat by the uniform
+/// law's change from its mean rise to r and its heat into held edges in proportion to r (a model of the outflows, so the
+/// mean converges in a few steps; the fixed point is the same).</item>
 /// <item>radiation linearised about the last rise (Newton, q_r' = 4 eps sigma T^3; the first step about the warm
 /// start, or the mean rise the balance predicts).</item>
 /// </list>
 /// Each solve starts from the last rise (the first from the given start, scaled by the heat ratio, or the predicted mean).
-/// Converged when h at the solve's mean rise agrees with the h it was solved with within <see cref="RelativeTolerance"/>
-/// and, with radiation, no node moved by more than <see cref="RelativeTolerance"/> of the largest rise from the rise
-/// it was linearised about (below any reported digit). The heat balance is then checked: convected + radiated + into
-/// held edges must equal the loss within <see cref="BalanceTolerance"/>.
+/// Converged when the step's linear solve was tight (<see cref="LinearCriterion"/>; with radiation or held edges, steps
+/// solve only to <see cref="EarlyCriterion"/> until a step moves no node by more than 1e-2 of the largest rise), h at the solve's mean rise agrees
+/// with the h it was solved with within <see cref="RelativeTolerance"/>, and, with radiation, the linearisation's error
+/// is below <see cref="RelativeTolerance"/> of the largest rise: a node that moved by d from the rise it was linearised
+/// about misses at most (1/2) q_r'' d^2 = 6 eps sigma T_max^2 d^2 of radiated flux, and the operator (an M-matrix whose
+/// diagonal exceeds its off-diagonal row sum by at least 2 h A) turns a flux error e into a rise error of at most
+/// e / h (the Newton step's error bound; below any reported digit). The heat balance is then checked: convected +
+/// radiated + into held edges must equal the loss within <see cref="BalanceTolerance"/>.
 /// </summary>
 public static class PlateTemperatureSolver
 {
@@ -35,6 +42,9 @@ public static class PlateTemperatureSolver
 
     /// <summary>The linear solves: relative residual 1e-9 (the iteration and balance checks sit above it).</summary>
     public static ConvergenceCriterion LinearCriterion { get; } = new() { RelativeResidual = 1e-9, MaxIterations = 400 };
+
+    /// <summary>The early steps of the iteration, while a step still moves the rise by more than 1e-2 of it: relative residual 1e-4.</summary>
+    public static ConvergenceCriterion EarlyCriterion { get; } = new() { RelativeResidual = 1e-4, MaxIterations = 400 };
 
     public static PlateTemperature Solve(PlateGrid grid, double[] cellLossW, double thermalConductivityWPerMK, double thicknessM, PlateCooling cooling) =>
         Solve(ThermalNetwork.Assemble(grid, thermalConductivityWPerMK, thicknessM, cooling.Edges), cellLossW, cooling);
@@ -64,7 +74,10 @@ public static class PlateTemperatureSolver
         var h = new double[unknowns];
         var rhs = new double[unknowns];
         var previous = new double[unknowns];
-        double shed = heatIn / (2 * totalArea);   // c = r_mean h: per face, all the heat convected
+        double heldHeat = 0;   // the loss put on nodes held at ambient goes straight into the edge
+        for (int n = 0; n < map.Length; n++) if (network.HeldNode[n]) heldHeat += nodeHeat[n];
+        double perFace = Math.Max(heatIn - heldHeat, 0) / (2 * totalArea);   // W/m^2 each face would shed with no other heat into edges
+        double lastMean = 0, lastRadiated = 0, lastEdge = 0, lastChange = double.PositiveInfinity, lastLargest = 0;   // the last solve's mean rise and its radiated and edge heat per face (W/m^2)
         double hConv = 0;
         bool warm = start is not null && start.NodeTemperatureK.Length == map.Length && start.HeatInW > 0;
         if (warm)
@@ -78,9 +91,17 @@ public static class PlateTemperatureSolver
         while (unknowns > 0)   // none when every metal node is held at ambient (a plate a cell or two wide)
         {
             iterations++;
+            double Uniform(double r) => SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, cooling.AmbientK + r, cooling.AmbientK);
+            double Other(double r) =>
+                (lastMean > 0 && Uniform(lastMean) > 0 ? lastRadiated * Uniform(r) / Uniform(lastMean) : Uniform(r))
+                + (lastMean > 0 ? lastEdge * r / lastMean : 0);
             double predictedMean;
-            if (fluid is null) { hConv = cooling.FixedCoefficientWPerM2K!.Value; predictedMean = shed / hConv; }
-            else (hConv, predictedMean) = NaturalConvection.AtHeatFlux(fluid, cooling.AmbientK, shed, cooling.VerticalLengthM);
+            if (fluid is not null) (hConv, predictedMean) = NaturalConvection.AtHeatFlux(fluid, cooling.AmbientK, perFace, cooling.VerticalLengthM, Other);
+            else
+            {
+                hConv = cooling.FixedCoefficientWPerM2K!.Value;
+                predictedMean = perFace > 0 && (radiates || lastEdge > 0) ? Brent.FindRoot(r => (hConv * r + Other(r)) / perFace - 1, 0, perFace / hConv, 1e-13, 200) : perFace / hConv;
+            }
             if (iterations == 1 && !warm) Array.Fill(rise, predictedMean);
             Array.Copy(b, rhs, unknowns);
             Array.Copy(rise, previous, unknowns);
@@ -98,11 +119,13 @@ public static class PlateTemperatureSolver
             }
             var a = network.Matrix(h);
             var multigrid = network.Preconditioner(a, h.Average());   // kept while h / (k t) moves little: an SPD preconditioner either way
-            if (!ConjugateGradient.TrySolve(a, rhs, rise, multigrid, LinearCriterion, out var report))
+            // early steps only point the way: tight once a step moves the rise by at most 1e-2 of it (an inexact fixed-point iteration)
+            bool tight = !(radiates || (fluid is not null && network.HeldNode.Contains(true))) || lastChange <= 1e-2 * lastLargest;
+            if (!ConjugateGradient.TrySolve(a, rhs, rise, multigrid, tight ? LinearCriterion : EarlyCriterion, out var report))
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
             residual = report.RelativeResidual;
-            double largest = 0, change = 0, weighted = 0;
+            double largest = 0, change = 0, weighted = 0, radiatedNow = 0, edgeNow = 0;
             for (int n = 0; n < map.Length; n++)
             {
                 int u = map[n];
@@ -111,15 +134,22 @@ public static class PlateTemperatureSolver
                 largest = Math.Max(largest, Math.Abs(rise[u]));
                 change = Math.Max(change, Math.Abs(rise[u] - previous[u]));
                 weighted += network.NodeAreaM2[n] * rise[u];
+                if (radiates) radiatedNow += network.NodeAreaM2[n] * Uniform(rise[u]);
+                edgeNow += network.ConductanceToHeld(u) * rise[u];
             }
             double meanRise = weighted / totalArea;
             double hMismatch = fluid is null ? 0 : Math.Abs(NaturalConvection.AverageCoefficient(fluid, cooling.AmbientK, meanRise, cooling.VerticalLengthM) - hConv) / hConv;
-            bool radiationSettled = !radiates || change <= RelativeTolerance * largest;
-            if (largest == 0 || (hMismatch <= RelativeTolerance && radiationSettled)) break;
+            double hottest = cooling.AmbientK + largest;
+            bool radiationSettled = !radiates || 6 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * hottest * hottest * change * change / hConv <= RelativeTolerance * largest;
+            if (largest == 0 || (tight && hMismatch <= RelativeTolerance && radiationSettled)) break;
             if (iterations >= MaxIterations)
                 throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
                     $"plate temperature: the surface coefficients did not settle in {MaxIterations} iterations (h mismatch {hMismatch:G3}, last change {change:G3} K at a largest rise of {largest:G4} K)"));
-            shed = Math.Max(meanRise, 0) * hConv;
+            lastChange = change;
+            lastLargest = largest;
+            lastMean = Math.Max(meanRise, 0);
+            lastRadiated = radiatedNow / totalArea;
+            lastEdge = edgeNow / (2 * totalArea);
         }
 
         var temperature = new double[map.Length];
