@@ -7,8 +7,9 @@ namespace SlotOpt.Plates.Thermal;
 /// Average natural-convection coefficient of a vertical plate from the correlation of
 /// S. W. Churchill and H. H. S. Chu, "Correlating equations for laminar and turbulent free
 /// convection from a vertical plate", Int. J. Heat Mass Transfer 18 (1975) 1323-1329, the equation
-/// for the whole range of Rayleigh numbers (also eq. 9.26 of Incropera, DeWitt, Bergman, Lavine,
-/// Fundamentals of Heat and Mass Transfer, 6th ed., 2007). Properties at the film temperature.
+/// for the whole range of Rayleigh and Prandtl numbers (the paper's title page and abstract were read; its
+/// equation numbering was not, so the equation is cited by content; it is also eq. 9.26 of Incropera, DeWitt,
+/// Bergman, Lavine, Fundamentals of Heat and Mass Transfer, 6th ed., 2007, from memory). Properties at the film temperature.
 /// </summary>
 public static class NaturalConvection
 {
