@@ -24,7 +24,7 @@ namespace SlotOpt.Plates.Thermal;
 /// </list>
 /// Each solve starts from the last rise (the first from the given start, scaled by the heat ratio, or the predicted mean).
 /// Converged when the step's linear solve was tight (<see cref="LinearCriterion"/>; with radiation or held edges, steps
-/// solve only to <see cref="EarlyCriterion"/> until a step moves no node by more than 1e-2 of the largest rise), h at the solve's mean rise agrees
+/// solve only to <see cref="EarlyCriterion"/> until a step moves no node by more than 1e-1 of the largest rise), h at the solve's mean rise agrees
 /// with the h it was solved with within <see cref="RelativeTolerance"/>, and, with radiation, the linearisation's error
 /// is below <see cref="RelativeTolerance"/> of the largest rise: a node that moved by d from the rise it was linearised
 /// about misses at most (1/2) q_r'' d^2 = 6 eps sigma T_max^2 d^2 of radiated flux, and the operator (an M-matrix whose
@@ -43,7 +43,7 @@ public static class PlateTemperatureSolver
     /// <summary>The linear solves: relative residual 1e-9 (the iteration and balance checks sit above it).</summary>
     public static ConvergenceCriterion LinearCriterion { get; } = new() { RelativeResidual = 1e-9, MaxIterations = 400 };
 
-    /// <summary>The early steps of the iteration, while a step still moves the rise by more than 1e-2 of it: relative residual 1e-4.</summary>
+    /// <summary>The early steps of the iteration, while a step still moves the rise by more than 1e-1 of it: relative residual 1e-4.</summary>
     public static ConvergenceCriterion EarlyCriterion { get; } = new() { RelativeResidual = 1e-4, MaxIterations = 400 };
 
     public static PlateTemperature Solve(PlateGrid grid, double[] cellLossW, double thermalConductivityWPerMK, double thicknessM, PlateCooling cooling) =>
@@ -119,8 +119,8 @@ public static class PlateTemperatureSolver
             }
             var a = network.Matrix(h);
             var multigrid = network.Preconditioner(a, h.Average());   // kept while h / (k t) moves little: an SPD preconditioner either way
-            // early steps only point the way: tight once a step moves the rise by at most 1e-2 of it (an inexact fixed-point iteration)
-            bool tight = !(radiates || (fluid is not null && network.HeldNode.Contains(true))) || lastChange <= 1e-2 * lastLargest;
+            // early steps only point the way: tight once a step moves the rise by at most 1e-1 of it (an inexact fixed-point iteration)
+            bool tight = !(radiates || (fluid is not null && network.HeldNode.Contains(true))) || lastChange <= 1e-1 * lastLargest;
             if (!ConjugateGradient.TrySolve(a, rhs, rise, multigrid, tight ? LinearCriterion : EarlyCriterion, out var report))
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
