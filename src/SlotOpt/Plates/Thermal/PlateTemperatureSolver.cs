@@ -86,15 +86,17 @@ public static class PlateTemperatureSolver
             for (int n = 0; n < map.Length; n++)
                 if (map[n] >= 0 && double.IsFinite(start.NodeTemperatureK[n])) rise[map[n]] = scale * (start.NodeTemperatureK[n] - start.AmbientK);
         }
+        // radiation of a face at a uniform rise r, and the model of the outflows other than convection at a mean rise r (W/m^2)
+        double Uniform(double r) => SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, cooling.AmbientK + r, cooling.AmbientK);
+        double Other(double r) =>
+            (lastMean > 0 && Uniform(lastMean) > 0 ? lastRadiated * Uniform(r) / Uniform(lastMean) : Uniform(r))
+            + (lastMean > 0 ? lastEdge * r / lastMean : 0);
+        bool iterates = radiates || (fluid is not null && network.HeldNode.Contains(true));   // more than one step is to be expected
         int iterations = 0, linear = 0;
         double residual = 0;
         while (unknowns > 0)   // none when every metal node is held at ambient (a plate a cell or two wide)
         {
             iterations++;
-            double Uniform(double r) => SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, cooling.AmbientK + r, cooling.AmbientK);
-            double Other(double r) =>
-                (lastMean > 0 && Uniform(lastMean) > 0 ? lastRadiated * Uniform(r) / Uniform(lastMean) : Uniform(r))
-                + (lastMean > 0 ? lastEdge * r / lastMean : 0);
             double predictedMean;
             if (fluid is not null) (hConv, predictedMean) = NaturalConvection.AtHeatFlux(fluid, cooling.AmbientK, perFace, cooling.VerticalLengthM, Other);
             else
@@ -120,7 +122,7 @@ public static class PlateTemperatureSolver
             var a = network.Matrix(h);
             var multigrid = network.Preconditioner(a, h.Average());   // kept while h / (k t) moves little: an SPD preconditioner either way
             // early steps only point the way: tight once a step moves the rise by at most 1e-1 of it (an inexact fixed-point iteration)
-            bool tight = !(radiates || (fluid is not null && network.HeldNode.Contains(true))) || lastChange <= 1e-1 * lastLargest;
+            bool tight = !iterates || lastChange <= 1e-1 * lastLargest;
             if (!ConjugateGradient.TrySolve(a, rhs, rise, multigrid, tight ? LinearCriterion : EarlyCriterion, out var report))
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
@@ -139,7 +141,7 @@ public static class PlateTemperatureSolver
             }
             double meanRise = weighted / totalArea;
             double hMismatch = fluid is null ? 0 : Math.Abs(NaturalConvection.AverageCoefficient(fluid, cooling.AmbientK, meanRise, cooling.VerticalLengthM) - hConv) / hConv;
-            double hottest = cooling.AmbientK + largest;
+            double hottest = cooling.AmbientK + largest + change;   // the hottest a node was between its linearisation point and now
             bool radiationSettled = !radiates || 6 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * hottest * hottest * change * change / hConv <= RelativeTolerance * largest;
             if (largest == 0 || (tight && hMismatch <= RelativeTolerance && radiationSettled)) break;
             if (iterations >= MaxIterations)
