@@ -14,6 +14,7 @@ public static class HtmlRenderer
         h1 { font-size: 1.6em; margin-bottom: 0.2em; }
         h2 { font-size: 1.25em; margin-top: 1.8em; border-bottom: 1px solid #bbb; padding-bottom: 0.15em; }
         p.stamp { color: #555; font-size: 0.9em; margin-top: 0; }
+        p.verdict { font-size: 1.08em; font-weight: bold; background: #eef5fb; border-left: 4px solid #0072B2; padding: 0.5em 0.8em; margin: 0.6em 0 0; }
         table { border-collapse: collapse; margin: 0.8em 0; font-size: 0.92em; }
         th, td { border: 1px solid #c8c8c8; padding: 0.25em 0.55em; vertical-align: top; }
         th { background: #f0f0f0; text-align: left; }
@@ -37,6 +38,7 @@ public static class HtmlRenderer
                 case Heading h: s.Append("<h2>").Append(E(h.Text)).Append("</h2>\n"); break;
                 case Paragraph p: s.Append("<p>").Append(E(p.Text)).Append("</p>\n"); break;
                 case StampLine t: s.Append("<p class=\"stamp\">").Append(E(t.Text)).Append("</p>\n"); break;
+                case Verdict v: s.Append("<p class=\"verdict\" id=\"verdict\">").Append(E(v.Text)).Append("</p>\n"); break;
                 case BulletList l:
                     s.Append("<ul>\n");
                     foreach (var item in l.Items) s.Append("<li>").Append(E(item)).Append("</li>\n");
