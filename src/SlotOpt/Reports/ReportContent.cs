@@ -295,7 +295,7 @@ public static class ReportContent
     }
 
     /// <summary>A front point's owning cost: its totals at one value per watt, or each part's loss at its own kind's value.</summary>
-    private static double FrontOwningCost(RunResult r, FrontPoint p) => r.Problem.Economics.SeparatesLoadLoss
+    internal static double FrontOwningCost(RunResult r, FrontPoint p) => r.Problem.Economics.SeparatesLoadLoss
         ? r.Problem.OwningCost(p.CandidateIds.Select(r.Option))
         : p.BuildCost + r.Problem.Economics.ValuePerWatt * p.LossW;
 

@@ -75,6 +75,18 @@ public static class TradeOffPlot
             + "Markers show the chosen design and the baselines it is compared with; a baseline may break a part's limit or a shared limit"
             + (cloud.Count > 0 ? "; grey dots are every option of the part that passes its rules." : ".")
             + (log ? " The loss axis is logarithmic because the points span more than a decade." : "");
-        return PlotStyle.Render(plot, FileStem, "Trade-off: loss against build cost", caption, heightPx: PlotStyle.HeightPx + legendPx);
+        var heightPx = PlotStyle.HeightPx + legendPx;
+        var figure = PlotStyle.Render(plot, FileStem, "Trade-off: loss against build cost", caption, heightPx: heightPx);
+        // each point of the front names its design when pointed at in the HTML page (pixels of the render just made)
+        var chosenDesign = r.Chosen?.Select(o => o.Id).ToList() ?? [];
+        var tips = front.Points.Select(p =>
+        {
+            var px = plot.GetPixel(new Coordinates(p.BuildCost, Y(p.LossW)));
+            var designs = p.CandidateIds.Select(id => r.Parts.Count == 1 ? WorkshopWords.Of(r.Option(id)) : $"{r.Option(id).PartName}: {WorkshopWords.Of(r.Option(id))}");
+            var text = $"{(p.CandidateIds.SequenceEqual(chosenDesign) ? "chosen design: " : "")}build cost {Numbers.Money(p.BuildCost, cur)}, loss {Numbers.Watts(p.LossW)}, owning cost {Numbers.Money(ReportContent.FrontOwningCost(r, p), cur)}\n"
+                + string.Join("\n", designs);
+            return ((double)px.X, (double)px.Y, text);
+        }).ToList();
+        return figure with { Tips = new PointTips(PlotStyle.WidthPx, heightPx, tips) };
     }
 }
