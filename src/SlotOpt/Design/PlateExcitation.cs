@@ -23,8 +23,8 @@ public abstract record PlateExcitation
 
     public bool IsMoving => this is Moving;
 
-    /// <summary>An AC field of one frequency over the plate.</summary>
-    public sealed record AcField(IAcFieldSource Source, double FrequencyHz) : PlateExcitation;
+    /// <summary>An AC field of one frequency over the plate; <paramref name="FieldMapFile"/> names the field-map file it was read from, if any (for the report).</summary>
+    public sealed record AcField(IAcFieldSource Source, double FrequencyHz, string? FieldMapFile = null) : PlateExcitation;
 
     /// <summary>Poles moving past the plate, evaluated at several travel offsets whose mean gives the drag.</summary>
     public sealed record Moving(MovingPoles Poles, TravelAverage Average, int Positions) : PlateExcitation

@@ -49,7 +49,7 @@ public static class PlateSourceReader
         if (file is null || frequency is null) return null;
         try
         {
-            return new PlateExcitation.AcField(FieldMapCsv.Read(Path.Combine(baseDirectory, file), frequency.Value), frequency.Value);
+            return new PlateExcitation.AcField(FieldMapCsv.Read(Path.Combine(baseDirectory, file), frequency.Value), frequency.Value, file);
         }
         catch (InputException e)
         {
