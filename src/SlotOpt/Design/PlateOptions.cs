@@ -98,7 +98,7 @@ public static class PlateOptions
         return part.Excitation switch
         {
             PlateExcitation.AcField ac => PlateHeating.SolveAc(geometry, grid, ac.Source, sheet, thermalMaterial, thermal.Cooling),
-            PlateExcitation.Moving moving => PlateHeating.SolveMoving(geometry, grid, moving.Poles, TravelOffsets(part, slots), sheet, thermalMaterial, thermal.Cooling),
+            PlateExcitation.Moving moving => PlateHeating.SolveMoving(geometry, grid, moving.Source, TravelOffsets(part, slots), sheet, thermalMaterial, thermal.Cooling),
             _ => throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation"),
         };
     }
@@ -130,10 +130,10 @@ public static class PlateOptions
         switch (part.Excitation)
         {
             case PlateExcitation.Moving moving when part.Thermal is not null:
-                var (unitMap, mapped) = PlateHeating.MeanCellLoss(model, moving.Poles, TravelOffsets(part, slots));
+                var (unitMap, mapped) = PlateHeating.MeanCellLoss(model, moving.Source, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, mapped.MeanLossPerSiemensW, mapped.Peak, mapped.IterationsPerOffset.Sum(), model.Unknowns, null, unitMap);
             case PlateExcitation.Moving moving:
-                var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Poles, TravelOffsets(part, slots));
+                var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Source, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
             case PlateExcitation.AcField field:
                 var ac = ResistanceLimitedSolver.SolveAc(model, field.Source);
@@ -149,7 +149,7 @@ public static class PlateOptions
     /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
-        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Poles.GridFeatures : [] };
+        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Source.GridFeatures : [] };
         var cap = limits.CellCap(SlotChoices(part).Count());
         if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
         return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };

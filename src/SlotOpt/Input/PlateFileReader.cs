@@ -20,7 +20,7 @@ namespace SlotOpt.Input;
 /// [[slots]]    the keys of <see cref="SlotTableReader"/> (as in problem files; edge defaults to "bottom"), one value each,
 ///              and offset (optional: the first slot's centre from the low end of the edge)
 /// [[cut]]      from = [x, y], to = [x, y]   (zero-width kerf)
-/// [source]     kind = "uniform_ac" | "field_map" | "moving_poles" (average defaults to "slot_pitch" with slots, else "pass")
+/// [source]     kind = "uniform_ac" | "field_map" | "moving_poles" | "magnets" (average defaults to "slot_pitch" with slots, else "pass")
 /// [thermal]    optional: plate temperature with the resistivity at the local temperature (see <see cref="ThermalReader"/>)
 /// </code>
 /// </summary>
@@ -73,7 +73,7 @@ public static class PlateFileReader
             : moving.Average == TravelAverage.SlotPitch
                 ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {moving.Positions} positions)"
                 : moving.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({moving.Positions} positions)";
-        return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Poles, offsets, over, thermal);
+        return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Source, offsets, over, thermal);
     }
 
     private static (PlateGeometry?, ConductingSheet?) ReadPlate(TomlSection t)

@@ -48,7 +48,7 @@ public static class PlatePartReader
         var lossKind = LossKindWords.Read(s);
         s.RejectUnknownKeys();
 
-        if (maxDrag is not null && excitation is { IsMoving: false }) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\")");
+        if (maxDrag is not null && excitation is { IsMoving: false }) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\" or \"magnets\")");
         if (thicknesses is not null && outline is not null)
         {
             var (min, max) = outline.Bounds;

@@ -2,6 +2,7 @@ using SlotOpt.Design;
 using SlotOpt.Input.Toml;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Sources.Magnets;
 
 namespace SlotOpt.Input;
 
@@ -10,20 +11,25 @@ namespace SlotOpt.Input;
 /// (file: CSV x_m,y_m,peak_flux_density_t,phase_deg relative to the problem file; frequency) or "moving_poles"
 /// (pole = "circle" with radius | "rectangle" with pole_width, pole_height; flux_density, speed; x, y of
 /// the first pole centre at offset 0, default: the row centred on the plate; count, pole_pitch;
-/// positions (default 8); average = "slot_pitch" | "pass"). Shared by problem files and plate files.
+/// positions (default 8); average = "slot_pitch" | "pass") or "magnets" (permanent magnets magnetised normal to the
+/// plate: shape = "cuboid" with length along the travel and width across | "cylinder" with diameter; height (the
+/// magnetised direction), remanence, gap from the magnets' face to the plate's near surface; speed; x, y of the
+/// first magnet's centre at offset 0, default the row centred on the plate; count, pitch (centre to centre),
+/// polarity = "alternating" (default) | "same"; positions; average). Shared by problem files and plate files.
 /// </summary>
 public static class PlateSourceReader
 {
     /// <param name="defaultAverage">The averaging when the file does not say (a single plate without slots has no pitch to average over).</param>
     public static PlateExcitation? Read(TomlSection s, Polygon? outline, string baseDirectory, TravelAverage defaultAverage = TravelAverage.SlotPitch)
     {
-        var kind = s.OptionalChoice("kind", ["uniform_ac", "field_map", "moving_poles"]);
-        if (kind is null && !s.Has("kind")) s.Error("kind", "missing: \"uniform_ac\", \"field_map\" or \"moving_poles\"");
+        var kind = s.OptionalChoice("kind", ["uniform_ac", "field_map", "moving_poles", "magnets"]);
+        if (kind is null && !s.Has("kind")) s.Error("kind", "missing: \"uniform_ac\", \"field_map\", \"moving_poles\" or \"magnets\"");
         PlateExcitation? result = kind switch
         {
             "uniform_ac" => UniformAc(s),
             "field_map" => FieldMapSource(s, baseDirectory),
             "moving_poles" => Moving(s, outline, defaultAverage),
+            "magnets" => Magnets(s, outline, defaultAverage),
             _ => null,
         };
         s.RejectUnknownKeys();
@@ -99,5 +105,59 @@ public static class PlateSourceReader
             s.Error("y", "puts the poles' path entirely off the plate");
         var poles = s.Guard("pole", () => MovingPoles.Row(face, first, count, pitch ?? 0, flux.Value, speed.Value));
         return poles is null ? null : new PlateExcitation.Moving(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
+    }
+
+    /// <summary>Sintered NdFeB, the strongest permanent-magnet material, reaches about 1.5 T (common practice, no source): more is a mistake.</summary>
+    private const double LargestRemanenceT = 1.6;
+
+    private static PlateExcitation? Magnets(TomlSection s, Polygon? outline, TravelAverage defaultAverage)
+    {
+        var shape = s.OptionalChoice("shape", ["cuboid", "cylinder"]);
+        if (shape is null && !s.Has("shape")) s.Error("shape", "missing: \"cuboid\" or \"cylinder\"");
+        var height = s.PositiveQuantity("height", QuantityKind.Length, required: true);
+        var remanence = s.PositiveQuantity("remanence", QuantityKind.FluxDensity, required: true);
+        if (remanence > LargestRemanenceT)
+            s.Error("remanence", $"{remanence:0.###} T is beyond any permanent-magnet material (sintered NdFeB reaches about 1.5 T)");
+        double? length = null, width = null, diameter = null;
+        if (shape == "cuboid")
+        {
+            length = s.PositiveQuantity("length", QuantityKind.Length, required: true);
+            width = s.PositiveQuantity("width", QuantityKind.Length, required: true);
+        }
+        else if (shape == "cylinder") diameter = s.PositiveQuantity("diameter", QuantityKind.Length, required: true);
+        var gap = s.PositiveQuantity("gap", QuantityKind.Length, required: true);
+        var speed = s.PositiveQuantity("speed", QuantityKind.Speed, required: true);
+        var count = (int)(s.OptionalInteger("count", 1, 1000) ?? 1);
+        var pitch = s.PositiveQuantity("pitch", QuantityKind.Length, required: count > 1);
+        var polarityText = s.OptionalChoice("polarity", ["alternating", "same"]) ?? "alternating";
+        var x = s.OptionalQuantity("x", QuantityKind.Length);
+        var y = s.OptionalQuantity("y", QuantityKind.Length);
+        var positions = (int)(s.OptionalInteger("positions", 1, 10_000) ?? 8);
+        var averageText = s.OptionalChoice("average", ["slot_pitch", "pass"]) ?? (defaultAverage == TravelAverage.Pass ? "pass" : "slot_pitch");
+        if (height is null || remanence is null || remanence > LargestRemanenceT || gap is null || speed is null || outline is null || (count > 1 && pitch is null)) return null;
+        IPermanentMagnet? magnet = shape switch
+        {
+            "cuboid" when length is { } l && width is { } w => s.Guard<IPermanentMagnet>("length", () => new CuboidMagnet(l, w, height.Value, remanence.Value)),
+            "cylinder" when diameter is { } d => s.Guard<IPermanentMagnet>("diameter", () => new CylinderMagnet(d, height.Value, remanence.Value)),
+            _ => null,
+        };
+        if (magnet is null) return null;
+        if (count > 1 && pitch < 2 * magnet.HalfLengthXM)
+        {
+            s.Error("pitch", $"is smaller than the magnet ({2 * magnet.HalfLengthXM * 1e3:0.###} mm along the travel): neighbouring magnets would overlap");
+            return null;
+        }
+        var (min, max) = outline.Bounds;
+        var rowLength = (count - 1) * (pitch ?? 0);
+        var first = new Vec2(x ?? (min.X + max.X) / 2 - rowLength / 2, y ?? (min.Y + max.Y) / 2);
+        if (first.Y - magnet.HalfWidthYM > max.Y || first.Y + magnet.HalfWidthYM < min.Y)
+        {
+            s.Error("y", "puts the magnets' path entirely off the plate");
+            return null;
+        }
+        var polarity = polarityText == "same" ? MagnetPolarity.Same : MagnetPolarity.Alternating;
+        var array = s.Guard("count", () => MagnetArray.Row(magnet, first, count, pitch ?? 0, polarity, gap.Value));
+        if (array is null) return null;
+        return new PlateExcitation.Moving(new SlidingMagnets(array, speed.Value), averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
     }
 }

@@ -43,12 +43,12 @@ public sealed record PlateConfirmation(
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
-        if (part.Excitation is PlateExcitation.Moving { Poles: var poles })
+        if (part.Excitation is PlateExcitation.Moving { Source: var source })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
             var reaction = ReactionOperator.Build(model);
-            solution = PlateModels.SolveMoving(model, poles, conductor, offsets, poles.PoleSizeXM, reaction: reaction);
-            sweep = Sweep(reaction, poles, conductor, offsets);
+            solution = PlateModels.SolveMoving(model, source, conductor, offsets, source.LoopLengthXM, reaction: reaction);
+            sweep = Sweep(reaction, source, conductor, offsets);
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
@@ -60,14 +60,14 @@ public sealed record PlateConfirmation(
     }
 
     /// <summary>Drag and lift against speed with the plate's own field, over SweepOverW multiples of w.</summary>
-    private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, MovingPoles poles, ConductingSheet conductor, IReadOnlyList<double> offsets)
+    private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor, IReadOnlyList<double> offsets)
     {
         var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow, "Maxwell's theory of eddy currents in thin conducting sheets...", Am. J. Phys. 60(8):693-711, 1992)
         var window = offsets.Take(SweepPositions).ToList();
         var points = new List<SpeedPoint>();
         foreach (var m in SweepOverW)
         {
-            var moving = new MovingPoles(poles.Poles, m * w);
+            var moving = source.AtSpeed(m * w);
             // the sweep illustrates the trend: it ends at the first speed the coupled solve does not converge at, never with a guessed number
             if (!ReactionSolver.TrySolveMoving(reaction, moving, conductor, window, null, out var s, out _)) break;
             points.Add(new SpeedPoint(m * w, s!.MeanDragN, s.MeanLiftN, s.ResistanceLimitedDragN.Average()));

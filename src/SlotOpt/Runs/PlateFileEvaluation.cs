@@ -58,10 +58,10 @@ public sealed record PlateFileEvaluation(
                 Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
                 { GridError = solution.GridError };
         }
-        var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
-        var moving = PlateModels.SolveMoving(model, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion, forcedKind: forcedKind);
-        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion, forcedKind: moving.Choice.Kind));
-        var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, poles, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
+        var source = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor a moving source");
+        var moving = PlateModels.SolveMoving(model, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: forcedKind);
+        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: moving.Choice.Kind));
+        var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, source, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
         return new PlateFileEvaluation(plate, moving.Choice, WithSolutionNotes(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
             moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
             { GridError = moving.GridError };
@@ -96,9 +96,9 @@ public sealed record PlateFileEvaluation(
     private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>
         solution.ResistanceLimited ?? resistanceLimited();
 
-    /// <summary>The file's grid choice with the moving poles' widths and gaps to resolve (GridOptions.SourceFeatures).</summary>
+    /// <summary>The file's grid choice with the moving source's widths and gaps to resolve (GridOptions.SourceFeatures).</summary>
     private static GridOptions GridFor(PlateCase plate) =>
-        plate.MovingSource is { } poles ? plate.Grid with { SourceFeatures = poles.GridFeatures } : plate.Grid;
+        plate.MovingSource is { } source ? plate.Grid with { SourceFeatures = source.GridFeatures } : plate.Grid;
 
     private static PlateResult WithMapNote(PlateResult result, PlateSolution solution) =>
         solution.ResistanceLimited is not null ? result
@@ -118,9 +118,9 @@ public sealed record PlateFileEvaluation(
             return new PlateFileEvaluation(plate, choice, WithHeatingNote(result, choice), result.LossW, null, Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(),
                 heated.Ac.Iterations, heated.Ac.RelativeResidual, heated.Model.SetupSeconds, clock.Elapsed.TotalSeconds - heated.Model.SetupSeconds, heated);
         }
-        var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
-        var movingChoice = ReactionModelChoice.ForMoving(plate.Sheet, poles.SpeedMPerS, poles.PoleSizeXM);
-        var hot = PlateHeating.SolveMoving(plate.Geometry, GridFor(plate), poles, plate.OffsetsXM, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
+        var source = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor a moving source");
+        var movingChoice = ReactionModelChoice.ForMoving(plate.Sheet, source.SpeedMPerS, source.LoopLengthXM);
+        var hot = PlateHeating.SolveMoving(plate.Geometry, GridFor(plate), source, plate.OffsetsXM, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
         var sweep = hot.Sweep!;
         var peak = sweep.Peak.ScaleTo(plate.Sheet);
         return new PlateFileEvaluation(plate, movingChoice, WithHeatingNote(peak, movingChoice), sweep.MeanLossW(g), sweep.MeanDragN(g), sweep.OffsetsXM, sweep.DragN(g),
