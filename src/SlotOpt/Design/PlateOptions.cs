@@ -228,6 +228,12 @@ public static class PlateOptions
             rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, acField?.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
+        if (rejection is null && part.MinDrag is { } minDrag && drag is { } dragN)
+        {
+            rejection = minDrag.Check(dragN, moving!.SpeedMPerS);
+            if (rejection is null && minDrag.SpeedMPerS != moving.SpeedMPerS)
+                flags.AddRange(Validity.ForMoving(sheet, minDrag.SpeedMPerS).Warnings.Select(w => string.Create(ci, $"at {minDrag.SpeedMPerS:0.###} m/s: {w}")));
+        }
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
         if (heat is { Failure: { } why, Breach: null }) flags.Add($"temperature not computed: {why}");
