@@ -69,7 +69,7 @@ public static class PlateCommand
             e.LossW,
             e.MeanDragN,
             e.GridError?.Relative,
-            e.Case.MovingSource is null ? null : e.Case.AveragedOver,
+            e.Case.MovingSource is null && e.Case.Rotation is null ? null : e.Case.AveragedOver,
             e.OffsetsXM,
             e.DragPerOffsetN,
             e.LossPerOffsetW,
@@ -95,7 +95,14 @@ public static class PlateCommand
             heating?.CouplingIterations,
             t is not null && limit is { IsSet: true } ? limit.Breach(t) is not null : null,
             r.Validity.Warnings,
-            r.Notes).Serialize();
+            r.Notes)
+        {
+            TorqueNM = e.TorqueNm,
+            RotationSpeedRpm = e.Case.Rotation is { } rotation ? rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI) : null,
+            ApproachSpeedMPerS = e.Case.Approach?.SpeedMPerS,
+            ApproachGapsM = e.ApproachCurve?.Select(p => p.GapM).ToList(),
+            ApproachForceN = e.ApproachCurve?.Select(p => p.ForceN).ToList(),
+        }.Serialize();
     }
 
     private static string Text(PlateFileEvaluation e)
@@ -105,8 +112,12 @@ public static class PlateCommand
         var s = new StringBuilder();
         s.AppendLine(c, $"plate {e.Case.Path}: sheet conductance {e.Case.Sheet.SheetConductanceS:G4} S");
         s.AppendLine(c, $"  model                {ReactionModelChoice.Name(e.Choice.Kind)}: {e.Choice.Reason}");
-        s.AppendLine(c, $"  loss                 {e.LossW:G4} W{(e.Case.MovingSource is null ? " (time average)" : $" (mean over {e.Case.AveragedOver})")}");
-        if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {drag:G4} N (min {e.DragPerOffsetN.Min():G4}, max {e.DragPerOffsetN.Max():G4})");
+        s.AppendLine(c, $"  loss                 {e.LossW:G4} W{(e.Case.MovingSource is null && e.Case.Rotation is null ? (e.Case.Approach is null ? " (time average)" : "") : $" (mean over {e.Case.AveragedOver})")}");
+        if (e.TorqueNm is { } torque && e.Case.Rotation is { } rotation)
+            s.AppendLine(c, $"  torque               {torque:G4} N m at {rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI):G4} rpm ({rotation.Source.Words})");
+        if (e.ApproachCurve is { } curve)
+            foreach (var p in curve) s.AppendLine(c, $"  damping force        {p.ForceN:G4} N at {p.GapM * 1e3:G4} mm gap, approaching at {e.Case.Approach!.SpeedMPerS:G4} m/s");
+        else if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {drag:G4} N{(e.Case.Rotation is null ? "" : " along the magnets' path")} (min {e.DragPerOffsetN.Min():G4}, max {e.DragPerOffsetN.Max():G4})");
         if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {grid.Relative:P2} of loss{(e.MeanDragN is null ? "" : " and drag")} (Richardson, {grid.CellM * 1e3:G3} mm against {grid.CoarseCellM * 1e3:G3} mm cells)");
         s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");

@@ -107,57 +107,17 @@ public static class PlateSourceReader
         return poles is null ? null : new PlateExcitation.Moving(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
     }
 
-    /// <summary>Sintered NdFeB, the strongest permanent-magnet material, reaches about 1.5 T (common practice, no source): more is a mistake.</summary>
-    private const double LargestRemanenceT = 1.6;
-
     private static PlateExcitation? Magnets(TomlSection s, Polygon? outline, TravelAverage defaultAverage)
     {
-        var shape = s.OptionalChoice("shape", ["cuboid", "cylinder"]);
-        if (shape is null && !s.Has("shape")) s.Error("shape", "missing: \"cuboid\" or \"cylinder\"");
-        var height = s.PositiveQuantity("height", QuantityKind.Length, required: true);
-        var remanence = s.PositiveQuantity("remanence", QuantityKind.FluxDensity, required: true);
-        if (remanence > LargestRemanenceT)
-            s.Error("remanence", $"{remanence:0.###} T is beyond any permanent-magnet material (sintered NdFeB reaches about 1.5 T)");
-        double? length = null, width = null, diameter = null;
-        if (shape == "cuboid")
-        {
-            length = s.PositiveQuantity("length", QuantityKind.Length, required: true);
-            width = s.PositiveQuantity("width", QuantityKind.Length, required: true);
-        }
-        else if (shape == "cylinder") diameter = s.PositiveQuantity("diameter", QuantityKind.Length, required: true);
+        if (s.OptionalChoice("motion", ["linear", "rotation", "approach"]) is "rotation" or "approach")
+            s.Error("motion", "a turning disc and an approaching magnet are for plate files (`slotopt plate`); a part of a problem file slides (motion = \"linear\")");
+        var magnet = MagnetSourceReader.Magnet(s);
         var gap = s.PositiveQuantity("gap", QuantityKind.Length, required: true);
         var speed = s.PositiveQuantity("speed", QuantityKind.Speed, required: true);
-        var count = (int)(s.OptionalInteger("count", 1, 1000) ?? 1);
-        var pitch = s.PositiveQuantity("pitch", QuantityKind.Length, required: count > 1);
-        var polarityText = s.OptionalChoice("polarity", ["alternating", "same"]) ?? "alternating";
-        var x = s.OptionalQuantity("x", QuantityKind.Length);
-        var y = s.OptionalQuantity("y", QuantityKind.Length);
         var positions = (int)(s.OptionalInteger("positions", 1, 10_000) ?? 8);
         var averageText = s.OptionalChoice("average", ["slot_pitch", "pass"]) ?? (defaultAverage == TravelAverage.Pass ? "pass" : "slot_pitch");
-        if (height is null || remanence is null || remanence > LargestRemanenceT || gap is null || speed is null || outline is null || (count > 1 && pitch is null)) return null;
-        IPermanentMagnet? magnet = shape switch
-        {
-            "cuboid" when length is { } l && width is { } w => s.Guard<IPermanentMagnet>("length", () => new CuboidMagnet(l, w, height.Value, remanence.Value)),
-            "cylinder" when diameter is { } d => s.Guard<IPermanentMagnet>("diameter", () => new CylinderMagnet(d, height.Value, remanence.Value)),
-            _ => null,
-        };
-        if (magnet is null) return null;
-        if (count > 1 && pitch < 2 * magnet.HalfLengthXM)
-        {
-            s.Error("pitch", $"is smaller than the magnet ({2 * magnet.HalfLengthXM * 1e3:0.###} mm along the travel): neighbouring magnets would overlap");
-            return null;
-        }
-        var (min, max) = outline.Bounds;
-        var rowLength = (count - 1) * (pitch ?? 0);
-        var first = new Vec2(x ?? (min.X + max.X) / 2 - rowLength / 2, y ?? (min.Y + max.Y) / 2);
-        if (first.Y - magnet.HalfWidthYM > max.Y || first.Y + magnet.HalfWidthYM < min.Y)
-        {
-            s.Error("y", "puts the magnets' path entirely off the plate");
-            return null;
-        }
-        var polarity = polarityText == "same" ? MagnetPolarity.Same : MagnetPolarity.Alternating;
-        var array = s.Guard("count", () => MagnetArray.Row(magnet, first, count, pitch ?? 0, polarity, gap.Value));
-        if (array is null) return null;
+        var array = MagnetSourceReader.Row(s, magnet, gap, outline);
+        if (array is null || speed is null) return null;
         return new PlateExcitation.Moving(new SlidingMagnets(array, speed.Value), averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
     }
 }

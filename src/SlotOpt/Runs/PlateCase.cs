@@ -8,7 +8,8 @@ namespace SlotOpt.Runs;
 /// <summary>
 /// The case one plate file describes (read by the input layer's PlateFileReader), validated and in SI:
 /// where it came from, geometry, grid choice, material and thickness, and either an AC source or a moving
-/// source (poles or magnets) with the travel offsets to evaluate; optionally its cooling and temperature limit ([thermal]).
+/// source (poles or magnets) with the travel offsets to evaluate, or magnets over a turning disc (Rotation), or magnets approaching
+/// the plate (Approach); optionally its cooling and temperature limit ([thermal]).
 /// <see cref="PlateFileEvaluation"/> solves it.
 /// </summary>
 public sealed record PlateCase(
@@ -20,4 +21,6 @@ public sealed record PlateCase(
     ITravellingSource? MovingSource,
     IReadOnlyList<double> OffsetsXM,
     string AveragedOver,
-    PlateThermalInput? Thermal = null);
+    PlateThermalInput? Thermal = null,
+    DiscRotation? Rotation = null,
+    MagnetApproach? Approach = null);

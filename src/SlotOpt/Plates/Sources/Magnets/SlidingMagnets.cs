@@ -27,14 +27,14 @@ public sealed class SlidingMagnets : ITravellingSource
     public double LoopLengthXM => Magnets.SmallestLengthXM;
 
     /// <summary>
-    /// The magnet's length and width (8 cells across, as a pole) and the gap (4 cells across): the closed-form field
-    /// is smooth, varying over a few gap lengths at the magnet's edges (common practice, no source).
+    /// The magnet's length and width (8 cells across, as a pole) and the width of the field's edge at the plate, about twice the gap
+    /// (4 cells across, as a pole gap): under a magnet's edge Bz falls from its inner to its outer value over about +-gap (common practice, no source).
     /// </summary>
     public IReadOnlyList<GridFeature> GridFeatures =>
     [
         new(GridFeatureKind.Pole, "the magnet's length along the travel", Magnets.SmallestLengthXM),
         new(GridFeatureKind.Pole, "the magnet's width across the travel", 2 * Magnets.Magnets.Min(m => m.Magnet.HalfWidthYM)),
-        new(GridFeatureKind.PoleGap, "the gap from the magnets to the plate", Magnets.GapM),
+        new(GridFeatureKind.PoleGap, "the field's edge at the plate (twice the magnets' gap)", 2 * Magnets.GapM),
     ];
 
     public ITravellingSource AtSpeed(double speedMPerS) => new SlidingMagnets(Magnets, speedMPerS);

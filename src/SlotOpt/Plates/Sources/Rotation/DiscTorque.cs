@@ -20,8 +20,9 @@ public static class DiscTorque
         var node = new double[l.NodeCount];
         var psi = new double[model.Unknowns];
         var losses = new double[anglesRad.Count];
-        int iterations = 0;
+        int iterations = 0, peak = 0;
         double residual = 0;
+        double[]? peakPsi = null;
         for (int k = 0; k < anglesRad.Count; k++)
         {
             source.IntegrateRate(l, anglesRad[k], node);
@@ -35,8 +36,9 @@ public static class DiscTorque
             if (!double.IsFinite(losses[k])) { failure = $"turning disc at {anglesRad[k] * 180 / Math.PI:0.##} deg: the loss is not finite"; return false; }
             iterations += report.Iterations;
             residual = Math.Max(residual, report.RelativeResidual);
+            if (peakPsi is null || losses[k] > losses[peak]) { peakPsi = (double[])psi.Clone(); peak = k; }
         }
-        solution = new DiscTorqueSolution(anglesRad.ToArray(), losses, source.AngularSpeedRadPerS, iterations, residual);
+        solution = new DiscTorqueSolution(anglesRad.ToArray(), losses, source.AngularSpeedRadPerS, iterations, residual, peak, peakPsi!);
         failure = "";
         return true;
     }
@@ -49,8 +51,12 @@ public static class DiscTorque
         Enumerable.Range(0, count).Select(k => k * pitchRad / count).ToArray();
 }
 
-/// <summary>The turning-disc solves at unit sheet conductance (1 S): loss per angle (W per S); loss and torque scale linearly with G = sigma t.</summary>
-public sealed record DiscTorqueSolution(double[] AnglesRad, double[] LossPerSiemensW, double AngularSpeedRadPerS, int Iterations, double MaxRelativeResidual)
+/// <summary>
+/// The turning-disc solves at unit sheet conductance (1 S): loss per angle (W per S), and psi per unknown at the angle with the most loss
+/// (amperes per siemens); loss, torque and psi scale linearly with G = sigma t.
+/// </summary>
+public sealed record DiscTorqueSolution(double[] AnglesRad, double[] LossPerSiemensW, double AngularSpeedRadPerS, int Iterations, double MaxRelativeResidual,
+    int PeakIndex, double[] PeakPsiPerSiemens)
 {
     /// <summary>Mean loss over the angles (W) at sheet conductance G.</summary>
     public double MeanLossW(double sheetConductanceS) => sheetConductanceS * LossPerSiemensW.Average();

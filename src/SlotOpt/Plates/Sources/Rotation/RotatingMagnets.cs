@@ -44,12 +44,12 @@ public sealed class RotatingMagnets : RotatingSource
     public override double SourceRadiusM => RadiusM;
     public override double LoopLengthM => 2 * Magnet.HalfLengthXM;
 
-    /// <summary>As for sliding magnets: the magnet's length and width (8 cells across) and the gap (4 cells across), common practice, no source.</summary>
+    /// <summary>As for sliding magnets: the magnet's length and width (8 cells across) and the field's edge at the disc, twice the gap (4 cells across); common practice, no source.</summary>
     public override IReadOnlyList<GridFeature> GridFeatures =>
     [
         new(GridFeatureKind.Pole, "the magnet's length along its path", 2 * Magnet.HalfLengthXM),
         new(GridFeatureKind.Pole, "the magnet's radial width", 2 * Magnet.HalfWidthYM),
-        new(GridFeatureKind.PoleGap, "the gap from the magnets to the disc", GapM),
+        new(GridFeatureKind.PoleGap, "the field's edge at the disc (twice the magnets' gap)", 2 * GapM),
     ];
 
     public override RotatingSource AtSpeed(double angularSpeedRadPerS) =>
