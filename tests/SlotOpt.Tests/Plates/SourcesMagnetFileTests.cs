@@ -102,4 +102,35 @@ public class SourcesMagnetFileTests
         var e = Assert.Throws<InputException>(() => PlateFileReader.Parse(Valid.Replace(find, replace), "bad.toml"));
         Assert.Contains(expected, e.Message);
     }
+
+    // A problem file's part slides: a turning disc or an approach is refused where it is written.
+    [Fact]
+    public void Problem_file_magnets_refuse_rotation_with_file_line_and_key()
+    {
+        const string problem = """
+            [problem]
+            name = "p"
+            objective = "lowest-owning-cost"
+            [economics]
+            value_per_watt = 1
+            [[parts]]
+            name = "plate"
+            kind = "plate"
+            width = "100 mm"
+            height = "100 mm"
+            thicknesses = ["1 mm"]
+            materials = ["Cu-ETP"]
+            [parts.source]
+            kind = "magnets"
+            motion = "rotation"
+            shape = "cylinder"
+            diameter = "10 mm"
+            height = "5 mm"
+            remanence = "1.2 T"
+            gap = "2 mm"
+            speed = "1 m/s"
+            """;
+        var e = Assert.Throws<InputException>(() => ProblemReader.Read(problem, "p.toml"));
+        Assert.Contains("p.toml:15: parts[1].source.motion: a turning disc and an approaching magnet are for plate files", e.Message);
+    }
 }
