@@ -1,5 +1,6 @@
 using System.Globalization;
 using SlotOpt.Design;
+using SlotOpt.Plates;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 
@@ -39,6 +40,8 @@ public static class RunText
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
             o.WriteLine(string.Create(ci, $"             loss {reference.Loss.TotalW:0.###} W{Drag(reference.DragN)}, build cost {reference.BuildCost:0.00} {cur}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}"));
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Confirmed(confirmed)}");
+            if (r.Confirmation(chosen.PartName)?.MinimumDrag is { } minimum)
+                o.WriteLine(string.Create(ci, $"    minimum drag: {minimum.DragN:0.###} N at {minimum.SpeedMPerS:0.###} m/s ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {minimum.RequiredN:0.###} N"));
             foreach (var role in new[] { DesignRole.Chosen, DesignRole.Reference })
                 if (r.HeatOf(chosen.PartName, role) is { } heat) o.WriteLine($"    {(role == DesignRole.Chosen ? "chosen" : r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")} temperature: {Temperature(heat)}");
             foreach (var flag in chosen.Flags) o.WriteLine($"    warning: {flag}");

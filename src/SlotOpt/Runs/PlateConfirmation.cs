@@ -43,14 +43,14 @@ public sealed record PlateConfirmation(
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
-        string? minimumDragNote = null;
+        MinimumDragCheck? minimumDrag = null;
         if (part.Excitation is PlateExcitation.Moving { Source: var source })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
             var reaction = ReactionOperator.Build(model);
             solution = PlateModels.SolveMoving(model, source, conductor, offsets, source.LoopLengthXM, reaction: reaction);
             sweep = Sweep(reaction, source, conductor, offsets);
-            if (part.MinDrag is { } wanted) minimumDragNote = MinimumDragNote(wanted, model, reaction, source, conductor, offsets, solution);
+            if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
@@ -58,18 +58,19 @@ public sealed record PlateConfirmation(
         }
         else throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         return new PlateConfirmation(part.Name, solution.Choice.Kind, solution.Choice.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
-            solution.ResistanceLimitedLossW.Average(), minimumDragNote is null ? solution.Notes : [.. solution.Notes, minimumDragNote], sweep);
+            solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep) { MinimumDrag = minimumDrag };
     }
 
+    /// <summary>With min_drag: the chosen plate's drag at the minimum's speed with the model its validity calls for there.</summary>
+    public MinimumDragCheck? MinimumDrag { get; init; }
+
     /// <summary>The chosen design's drag at the minimum's speed with the model its validity calls for there (the screen's resistance-limited drag overstates it once the own field matters).</summary>
-    private static string MinimumDragNote(MinimumDrag wanted, Plates.Grid.SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
+    private static MinimumDragCheck CheckMinimumDrag(MinimumDrag wanted, Plates.Grid.SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
         IReadOnlyList<double> offsets, PlateSolution atSourceSpeed)
     {
         var at = wanted.SpeedMPerS == source.SpeedMPerS ? atSourceSpeed
             : PlateModels.SolveMoving(model, source.AtSpeed(wanted.SpeedMPerS), conductor, offsets, source.LoopLengthXM, reaction: reaction);
-        var drag = at.MeanDragN!.Value;
-        return string.Create(System.Globalization.CultureInfo.InvariantCulture,
-            $"minimum drag: {drag:0.###} N at {wanted.SpeedMPerS:0.###} m/s ({ReactionModelChoice.Name(at.Choice.Kind)}) {(drag >= wanted.ForceN ? "reaches" : "FALLS SHORT of")} the minimum of {wanted.ForceN:0.###} N");
+        return new MinimumDragCheck(wanted.SpeedMPerS, wanted.ForceN, at.MeanDragN!.Value, at.Choice.Kind);
     }
 
     /// <summary>Drag and lift against speed with the plate's own field, over SweepOverW multiples of w.</summary>
@@ -95,4 +96,10 @@ public sealed record PlateConfirmation(
         SheetModelKind.ThinSheetReaction => "thin sheet with its own field",
         _ => "layered thick plate",
     };
+}
+
+/// <summary>The chosen plate's confirmed drag at a min_drag's speed (newtons), the minimum it must reach, and the model that ran.</summary>
+public sealed record MinimumDragCheck(double SpeedMPerS, double RequiredN, double DragN, SheetModelKind Model)
+{
+    public bool Reached => DragN >= RequiredN;
 }
