@@ -5,6 +5,8 @@ using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.Sources.Magnets;
 using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Runs;
+using SlotOpt.Tests.Cli;
+using System.Text.Json;
 
 namespace SlotOpt.Tests.Plates;
 
@@ -142,5 +144,23 @@ public class SourcesMotionFileTests
     {
         var e = Assert.Throws<InputException>(() => PlateFileReader.Parse(ApproachFile.Replace("speed = \"0.1 m/s\"", "speed = \"0.1 m/s\"\ngap = \"2 mm\""), "a.toml"));
         Assert.Contains("a.toml:18: source.gaps: give either gap or gaps, not both", e.Message);
+    }
+
+    // `slotopt plate --json` carries torque_n_m (the evaluation's, to the 17 significant digits the JSON writes) and rotation_speed_rpm; exit 0.
+    [Fact]
+    public void Plate_command_json_carries_the_torque()
+    {
+        var path = Path.Combine(Path.GetTempPath(), "slotopt-disc-" + Guid.NewGuid().ToString("N") + ".toml");
+        File.WriteAllText(path, DiscFile);
+        try
+        {
+            var run = SlotOptInProcess.Run("plate", path, "--json");
+            Assert.Equal(0, run.ExitCode);
+            using var json = JsonDocument.Parse(run.Stdout);
+            var expected = PlateFileEvaluation.Evaluate(PlateFileReader.Read(path)).TorqueNm!.Value;
+            Assert.Equal(expected, json.RootElement.GetProperty("torque_n_m").GetDouble(), expected * 1e-12);
+            Assert.Equal(100, json.RootElement.GetProperty("rotation_speed_rpm").GetDouble(), 1e-9);
+        }
+        finally { File.Delete(path); }
     }
 }
