@@ -1,5 +1,6 @@
 using System.Globalization;
 using SlotOpt.Design;
+using SlotOpt.Plates;
 using SlotOpt.Reports;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
@@ -43,6 +44,8 @@ public static class RunText
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
             o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Drag(reference.DragN)}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Confirmed(confirmed)}");
+            if (r.Confirmation(chosen.PartName)?.MinimumDrag is { } minimum)
+                o.WriteLine($"    minimum drag: {Numbers.Newtons(minimum.DragN)} at {Numbers.Of(minimum.SpeedMPerS, "m/s")} ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Newtons(minimum.RequiredN)}");
             foreach (var role in new[] { DesignRole.Chosen, DesignRole.Reference })
                 if (r.HeatOf(chosen.PartName, role) is { } heat) o.WriteLine($"    {(role == DesignRole.Chosen ? "chosen" : r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")} temperature: {Temperature(heat)}");
             foreach (var flag in chosen.Flags) o.WriteLine($"    warning: {flag}");

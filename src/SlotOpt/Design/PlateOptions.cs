@@ -102,7 +102,7 @@ public static class PlateOptions
         return part.Excitation switch
         {
             PlateExcitation.AcField ac => PlateHeating.SolveAc(geometry, grid, ac.Source, sheet, thermalMaterial, thermal.Cooling),
-            PlateExcitation.Moving moving => PlateHeating.SolveMoving(geometry, grid, moving.Poles, TravelOffsets(part, slots), sheet, thermalMaterial, thermal.Cooling),
+            PlateExcitation.Moving moving => PlateHeating.SolveMoving(geometry, grid, moving.Source, TravelOffsets(part, slots), sheet, thermalMaterial, thermal.Cooling),
             _ => throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation"),
         };
     }
@@ -134,10 +134,10 @@ public static class PlateOptions
         switch (part.Excitation)
         {
             case PlateExcitation.Moving moving when part.Thermal is not null:
-                var (unitMap, mapped) = PlateHeating.MeanCellLoss(model, moving.Poles, TravelOffsets(part, slots));
+                var (unitMap, mapped) = PlateHeating.MeanCellLoss(model, moving.Source, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, mapped.MeanLossPerSiemensW, mapped.Peak, mapped.IterationsPerOffset.Sum(), model.Unknowns, null, unitMap);
             case PlateExcitation.Moving moving:
-                var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Poles, TravelOffsets(part, slots));
+                var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Source, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
             case PlateExcitation.AcField field:
                 var ac = ResistanceLimitedSolver.SolveAc(model, field.Source);
@@ -153,7 +153,7 @@ public static class PlateOptions
     /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
-        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Poles.GridFeatures : [] };
+        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Source.GridFeatures : [] };
         var cap = limits.CellCap(SlotChoices(part).Count());
         if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
         return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };
@@ -232,6 +232,12 @@ public static class PlateOptions
             rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, acField?.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
+        if (rejection is null && part.MinDrag is { } minDrag && drag is { } dragN)
+        {
+            rejection = minDrag.Check(dragN, moving!.SpeedMPerS);
+            if (rejection is null && minDrag.SpeedMPerS != moving.SpeedMPerS)
+                flags.AddRange(Validity.ForMoving(sheet, minDrag.SpeedMPerS).Warnings.Select(w => string.Create(ci, $"at {minDrag.SpeedMPerS:0.###} m/s: {w}")));
+        }
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
         if (heat is { Failure: { } why, Breach: null }) flags.Add($"temperature not computed: {why}");

@@ -121,7 +121,7 @@ public static class ReportContent
         var (min, max) = p.Outline.Bounds;
         var source = p.Excitation switch
         {
-            PlateExcitation.Moving { Poles: var poles } => F($"{poles.Poles.Count} poles passing at {poles.SpeedMPerS:0.##} m/s"),
+            PlateExcitation.Moving { Source: var moving } => F($"{moving.Words} passing at {moving.SpeedMPerS:0.##} m/s"),
             PlateExcitation.AcField field => F($"AC field at {field.FrequencyHz:0.#} Hz") + (field.FieldMapFile is { } map ? $" from the field-map file {map}" : " (uniform)"),
             _ => throw new ArgumentOutOfRangeException(nameof(p), p.Excitation.GetType().Name, "unknown plate excitation"),
         };

@@ -43,12 +43,14 @@ public sealed record PlateConfirmation(
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
-        if (part.Excitation is PlateExcitation.Moving { Poles: var poles })
+        MinimumDragCheck? minimumDrag = null;
+        if (part.Excitation is PlateExcitation.Moving { Source: var source })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
             var reaction = ReactionOperator.Build(model);
-            solution = PlateModels.SolveMoving(model, poles, conductor, offsets, poles.PoleSizeXM, reaction: reaction);
-            sweep = Sweep(reaction, poles, conductor, offsets);
+            solution = PlateModels.SolveMoving(model, source, conductor, offsets, source.LoopLengthXM, reaction: reaction);
+            sweep = Sweep(reaction, source, conductor, offsets);
+            if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
@@ -56,18 +58,30 @@ public sealed record PlateConfirmation(
         }
         else throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         return new PlateConfirmation(part.Name, solution.Choice.Kind, solution.Choice.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
-            solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep);
+            solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep) { MinimumDrag = minimumDrag };
+    }
+
+    /// <summary>With min_drag: the chosen plate's drag at the minimum's speed with the model its validity calls for there.</summary>
+    public MinimumDragCheck? MinimumDrag { get; init; }
+
+    /// <summary>The chosen design's drag at the minimum's speed with the model its validity calls for there (the screen's resistance-limited drag overstates it once the own field matters).</summary>
+    private static MinimumDragCheck CheckMinimumDrag(MinimumDrag wanted, Plates.Grid.SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
+        IReadOnlyList<double> offsets, PlateSolution atSourceSpeed)
+    {
+        var at = wanted.SpeedMPerS == source.SpeedMPerS ? atSourceSpeed
+            : PlateModels.SolveMoving(model, source.AtSpeed(wanted.SpeedMPerS), conductor, offsets, source.LoopLengthXM, reaction: reaction);
+        return new MinimumDragCheck(wanted.SpeedMPerS, wanted.ForceN, at.MeanDragN!.Value, at.Choice.Kind);
     }
 
     /// <summary>Drag and lift against speed with the plate's own field, over SweepOverW multiples of w.</summary>
-    private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, MovingPoles poles, ConductingSheet conductor, IReadOnlyList<double> offsets)
+    private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor, IReadOnlyList<double> offsets)
     {
         var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow, "Maxwell's theory of eddy currents in thin conducting sheets...", Am. J. Phys. 60(8):693-711, 1992)
         var window = offsets.Take(SweepPositions).ToList();
         var points = new List<SpeedPoint>();
         foreach (var m in SweepOverW)
         {
-            var moving = new MovingPoles(poles.Poles, m * w);
+            var moving = source.AtSpeed(m * w);
             // the sweep illustrates the trend: it ends at the first speed the coupled solve does not converge at, never with a guessed number
             if (!ReactionSolver.TrySolveMoving(reaction, moving, conductor, window, null, out var s, out _)) break;
             points.Add(new SpeedPoint(m * w, s!.MeanDragN, s.MeanLiftN, s.ResistanceLimitedDragN.Average()));
@@ -82,4 +96,10 @@ public sealed record PlateConfirmation(
         SheetModelKind.ThinSheetReaction => "thin sheet with its own field",
         _ => "layered thick plate",
     };
+}
+
+/// <summary>The chosen plate's confirmed drag at a min_drag's speed (newtons), the minimum it must reach, and the model that ran.</summary>
+public sealed record MinimumDragCheck(double SpeedMPerS, double RequiredN, double DragN, SheetModelKind Model)
+{
+    public bool Reached => DragN >= RequiredN;
 }
