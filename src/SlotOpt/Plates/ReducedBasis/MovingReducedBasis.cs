@@ -1,0 +1,281 @@
+using Complex = System.Numerics.Complex;
+using MathNet.Numerics.LinearAlgebra;
+using SlotOpt.Numerics;
+using SlotOpt.Plates.Conductors;
+using SlotOpt.Plates.Grid;
+using SlotOpt.Plates.OwnField;
+using SlotOpt.Plates.Sources;
+
+namespace SlotOpt.Plates.ReducedBasis;
+
+/// <summary>
+/// The coupled moving problem of <see cref="ReactionSolver.SolveMoving"/>, (A - c S) u = -s with S = Dx R and c = v G, for every
+/// sheet conductance G and speed v of one geometry and source from one Krylov basis per travel position. In the A-inner product
+/// M = A^-1 S is skew-adjoint (A symmetric positive definite, S skew-symmetric: the odd kernel of <see cref="ReactionOperator.ApplyDxR"/>
+/// restricted to the plate), so (I - c M) u = u0 with u0 = -A^-1 s is solved by projection onto the Krylov space of M from u0,
+/// built once by Arnoldi in the A-inner product (Y. Saad, Iterative Methods for Sparse Linear Systems, 2nd ed., SIAM 2003, Alg. 6.1; the
+/// shift-invariance of Krylov spaces, K_m(I - c M, u0) = K_m(M, u0), section 6.1): every c then costs one small m x m solve.
+/// The source's rate s scales with its speed (a translating field: dBz/dt = -v dBz/dx), so one basis also serves every speed.
+/// Stopping: the Arnoldi relation gives the residual of the projected solution exactly, (I - c M) V y - u0 = -c h(m+1,m) y_m v(m+1), and
+/// |(I - c M) e|_A &gt;= |e|_A for skew-adjoint M, so the A-norm error of u is at most |c h(m+1,m) y_m| |u0|_A; the basis grows until that
+/// is below the criterion's relative residual times |u|_A. Each step costs one application of S (by FFT; two positions share one
+/// complex transform, real and imaginary parts) and one multigrid solve with A. Not thread-safe (the reaction operator is not): one per thread.
+/// </summary>
+public sealed class MovingReducedBasis
+{
+    /// <summary>Basis vectors per travel position before the solve is a failure (the convergence rate falls as c |M| grows; 5 w needs about 100 at 1e-8).</summary>
+    public const int MaxSteps = 400;
+
+    private readonly ReactionOperator _reaction;
+    private readonly SheetModel _model;
+    private readonly ConvergenceCriterion _criterion;
+    private readonly Position[] _positions;
+    private readonly Complex[] _packed, _applied;
+
+    public SheetModel Model => _model;
+    public IMovingSheetSource Source { get; }
+    public IReadOnlyList<double> OffsetsXM { get; }
+
+    /// <summary>Basis vectors built so far, summed over the positions (the work done: one S application and one A solve each).</summary>
+    public int Steps => _positions.Sum(p => p.V.Count - 1);
+
+    private MovingReducedBasis(ReactionOperator reaction, IMovingSheetSource source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion criterion, Position[] positions)
+    {
+        _reaction = reaction;
+        _model = reaction.Model;
+        Source = source;
+        OffsetsXM = offsetsXM.ToArray();
+        _criterion = criterion;
+        _positions = positions;
+        _packed = new Complex[_model.Unknowns];
+        _applied = new Complex[_model.Unknowns];
+    }
+
+    /// <summary>The resistance-limited start u0 = -A^-1 s at each offset (the first basis vector); the basis grows as solves ask for it.</summary>
+    public static MovingReducedBasis Start(ReactionOperator reaction, IMovingSheetSource source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion = null)
+    {
+        if (offsetsXM.Count == 0) throw new InputException("a moving source needs at least one position");
+        criterion ??= ConvergenceCriterion.Default;
+        var model = reaction.Model;
+        var l = model.Lattice;
+        var node = new double[l.NodeCount];
+        var positions = new Position[offsetsXM.Count];
+        for (int k = 0; k < offsetsXM.Count; k++)
+        {
+            source.IntegrateRate(l, offsetsXM[k], node);
+            var rhs = model.RightHandSide(node);
+            var u0 = new double[model.Unknowns];
+            if (!model.TrySolve(rhs, u0, criterion, out var report))
+                throw new NumericalFailureException($"at offset {offsetsXM[k]} m, resistance-limited start: {report.Reason} (relative residual {report.RelativeResidual:E2})");
+            var liftGradient = LiftGradient(reaction, source, offsetsXM[k]);
+            positions[k] = new Position(model, u0, source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]), liftGradient);
+        }
+        return new MovingReducedBasis(reaction, source, offsetsXM, criterion, positions);
+    }
+
+    public ReactionMovingSolution Solve(ConductingSheet conductor, double speedMPerS) =>
+        TrySolve(conductor, speedMPerS, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+
+    /// <summary>Loss, drag and lift at every offset for one conductor and speed; the bases grow until the error bound meets the criterion.</summary>
+    public bool TrySolve(ConductingSheet conductor, double speedMPerS, out ReactionMovingSolution? solution, out string failure)
+    {
+        solution = null;
+        if (!(speedMPerS > 0) || !double.IsFinite(speedMPerS)) throw new InputException($"the speed must be positive (got {speedMPerS} m/s)");
+        double g = conductor.SheetConductanceS, c = speedMPerS * g, scale = speedMPerS / Source.SpeedMPerS;   // s, u0 and y scale with v
+        var projected = new Projection?[_positions.Length];
+        while (true)
+        {
+            var growing = new List<Position>();
+            for (int k = 0; k < _positions.Length; k++)
+            {
+                projected[k] = _positions[k].Project(c);
+                if (projected[k]!.RelativeError > _criterion.RelativeResidual && !_positions[k].Exhausted) growing.Add(_positions[k]);
+            }
+            if (growing.Count == 0) break;
+            if (growing.Any(p => p.V.Count > MaxSteps))
+            {
+                failure = $"the reduced basis did not converge in {MaxSteps} steps at c = v G = {c:G4} (error bound {projected.Max(p => p!.RelativeError):E2})";
+                return false;
+            }
+            _criterion.ThrowIfCancelled();
+            if (!Grow(growing, out failure)) return false;
+        }
+        int n = _positions.Length;
+        double[] loss = new double[n], drag = new double[n], lift = new double[n], dragLow = new double[n];
+        int[] steps = new int[n];
+        double worst = 0;
+        for (int k = 0; k < n; k++)
+        {
+            var p = _positions[k];
+            var y = projected[k]!.Y;
+            double edge = scale * scale * p.EdgeLossPerSiemens;                      // the edge kink's loss scales with q^2 = (v B n)^2
+            double beta = scale * p.Beta;
+            loss[k] = g * (beta * beta * y.DotProduct(y) + edge);                    // P = G u^T A u, u = beta V y (A-orthonormal V)
+            drag[k] = loss[k] / speedMPerS;                                          // F_D v = P in the steady state
+            lift[k] = -g * beta * y.DotProduct(p.LiftProjection(y.Count));          // lift on the source = -G integral u dBz/dz dA
+            dragLow[k] = g * (beta * beta + edge) / speedMPerS;
+            steps[k] = p.V.Count - 1;
+            worst = Math.Max(worst, projected[k]!.RelativeError);
+            if (!double.IsFinite(loss[k]) || !double.IsFinite(lift[k])) { failure = $"at offset {OffsetsXM[k]} m: the force is not finite"; return false; }
+        }
+        var notes = new List<string>();
+        if (loss.All(x => x == 0)) notes.Add("the source does not reach the conducting part of the plate: zero drag and lift");
+        solution = new ReactionMovingSolution(_model, g, speedMPerS, OffsetsXM.ToArray(), loss, drag, lift, dragLow, steps, worst,
+            _positions[^1].Expand(projected[^1]!.Y, scale), notes);
+        failure = "";
+        return true;
+    }
+
+    /// <summary>One Arnoldi step on each growing position: S by FFT (two positions a complex transform), then A^-1 by multigrid CG.</summary>
+    private bool Grow(List<Position> growing, out string failure)
+    {
+        for (int i = 0; i < growing.Count; i += 2)
+        {
+            var first = growing[i].V[^1];
+            var second = i + 1 < growing.Count ? growing[i + 1].V[^1] : null;
+            for (int u = 0; u < _packed.Length; u++) _packed[u] = new Complex(first[u], second?[u] ?? 0);
+            _reaction.ApplyDxR(_packed, _applied);                                 // S is real: S(x + j y) = S x + j S y
+            if (!growing[i].Extend(_applied.Select(z => z.Real).ToArray(), _criterion, out failure)) return false;
+            if (second is not null && !growing[i + 1].Extend(_applied.Select(z => z.Imaginary).ToArray(), _criterion, out failure)) return false;
+        }
+        failure = "";
+        return true;
+    }
+
+    /// <summary>
+    /// Integral of dBz/dz over each unknown's basis (Wb/m), as <see cref="ReactionSolver"/> takes it for the lift: a plane field b gives
+    /// dBz/dz = |k| Bz, whose integral over basis m is (2/mu0)(R b)_m; a normal gradient is summed per unknown.
+    /// </summary>
+    private static double[] LiftGradient(ReactionOperator reaction, IMovingSheetSource source, double offsetXM)
+    {
+        var model = reaction.Model;
+        var node = new double[model.Lattice.NodeCount];
+        var perUnknown = new double[model.Unknowns];
+        if (source.IntegrateLiftField(model.Lattice, offsetXM, node) == LiftField.PlaneField)
+        {
+            reaction.ApplyRToNodeField(node, perUnknown);
+            for (int u = 0; u < perUnknown.Length; u++) perUnknown[u] *= 2 / Validity.Mu0;
+            return perUnknown;
+        }
+        var map = model.Regions.NodeUnknown;
+        for (int i = 0; i < map.Length; i++)
+            if (map[i] >= 0) perUnknown[map[i]] += node[i];
+        return perUnknown;
+    }
+
+    private sealed record Projection(Vector<double> Y, double RelativeError);
+
+    /// <summary>One travel position: the A-orthonormal basis V (with A V kept for the inner products), the Hessenberg matrix H of M in it, |u0|_A.</summary>
+    private sealed class Position
+    {
+        private readonly SheetModel _model;
+        private readonly double[] _liftGradient;
+        private readonly List<double[]> _av = [];
+        private readonly List<double[]> _h = [];          // column j: h(0..j+1, j)
+        private readonly List<double> _liftProjection = [];
+        private bool _exhausted;
+
+        /// <summary>The Krylov space is invariant (or u0 = 0): the projection is exact and the basis does not grow.</summary>
+        public bool Exhausted => _exhausted;
+
+        public List<double[]> V { get; } = [];
+        public double Beta { get; }
+        public double EdgeLossPerSiemens { get; }
+
+        public Position(SheetModel model, double[] u0, double edgeLossPerSiemens, double[] liftGradient)
+        {
+            _model = model;
+            _liftGradient = liftGradient;
+            EdgeLossPerSiemens = edgeLossPerSiemens;
+            var au0 = Multiply(u0);
+            Beta = Math.Sqrt(Dot(u0, au0));                                          // |u0|_A, the resistance-limited loss per siemens is Beta^2
+            if (Beta == 0) { _exhausted = true; V.Add(u0); _av.Add(au0); _liftProjection.Add(0); return; }
+            Add(u0.Select(x => x / Beta).ToArray(), au0.Select(x => x / Beta).ToArray());
+        }
+
+        /// <summary>Takes w = S v_last, solves A z = w, A-orthogonalises z against V twice (classical Gram-Schmidt, reorthogonalised) and appends it.</summary>
+        public bool Extend(double[] sv, ConvergenceCriterion criterion, out string failure)
+        {
+            var z = new double[sv.Length];
+            if (!_model.TrySolve(sv, z, criterion, out var report))
+            {
+                failure = $"reduced basis step: {report.Reason} (relative residual {report.RelativeResidual:E2})";
+                return false;
+            }
+            double before = Math.Sqrt(Math.Max(Dot(z, sv), 0));                     // |z|_A before orthogonalisation (A z = S v)
+            var column = new double[V.Count + 1];
+            for (int pass = 0; pass < 2; pass++)
+                for (int i = 0; i < V.Count; i++)
+                {
+                    double h = Dot(z, _av[i]);                                        // <z, v_i>_A = z^T A v_i
+                    column[i] += h;
+                    var v = V[i];
+                    for (int u = 0; u < z.Length; u++) z[u] -= h * v[u];
+                }
+            var az = Multiply(z);
+            double norm = Math.Sqrt(Math.Max(Dot(z, az), 0));
+            column[V.Count] = norm;
+            _h.Add(column);
+            // an invariant subspace (the new direction is rounding against the step's size): the projection is exact
+            if (norm <= 1e-13 * before) { column[V.Count] = 0; _exhausted = true; failure = ""; return true; }
+            Add(z.Select(x => x / norm).ToArray(), az.Select(x => x / norm).ToArray());
+            failure = "";
+            return true;
+        }
+
+        /// <summary>y solving (I - c H_m) y = e1 (u = Beta V y) and its relative A-norm error bound |c h(m+1,m) y_m| / |y|.</summary>
+        public Projection Project(double c)
+        {
+            int m = _h.Count;
+            if (m == 0)
+            {
+                var y0 = Vector<double>.Build.Dense(1, 1.0);
+                return new Projection(y0, _exhausted ? 0 : double.PositiveInfinity);
+            }
+            var h = Matrix<double>.Build.Dense(m, m, (i, j) => (i == j ? 1 : 0) - (i < _h[j].Length ? c * _h[j][i] : 0));
+            var e1 = Vector<double>.Build.Dense(m);
+            e1[0] = 1;
+            var y = h.Solve(e1);
+            double error = Math.Abs(c * _h[m - 1][m] * y[m - 1]) / y.L2Norm();   // zero once the space is invariant
+            if (!double.IsFinite(error)) error = double.PositiveInfinity;
+            return new Projection(y, error);
+        }
+
+        /// <summary>(V^T g) for the first m basis vectors: the lift's projection.</summary>
+        public Vector<double> LiftProjection(int m) => Vector<double>.Build.Dense(m, i => _liftProjection[i]);
+
+        /// <summary>u = scale Beta V y on the unknowns.</summary>
+        public double[] Expand(Vector<double> y, double scale)
+        {
+            var u = new double[_model.Unknowns];
+            for (int i = 0; i < y.Count; i++)
+            {
+                var v = V[i];
+                double f = scale * Beta * y[i];
+                for (int k = 0; k < u.Length; k++) u[k] += f * v[k];
+            }
+            return u;
+        }
+
+        private void Add(double[] v, double[] av)
+        {
+            V.Add(v);
+            _av.Add(av);
+            _liftProjection.Add(Dot(v, _liftGradient));
+        }
+
+        private double[] Multiply(double[] x)
+        {
+            var y = new double[x.Length];
+            _model.Multigrid.Operator.Multiply(x, y);
+            return y;
+        }
+
+        private static double Dot(double[] a, double[] b)
+        {
+            double s = 0;
+            for (int i = 0; i < a.Length; i++) s += a[i] * b[i];
+            return s;
+        }
+    }
+}
