@@ -67,17 +67,17 @@ public sealed class MovingReducedBasis
             var u0 = new double[model.Unknowns];
             if (!model.TrySolve(rhs, u0, criterion, out var report))
                 throw new NumericalFailureException($"at offset {offsetsXM[k]} m, resistance-limited start: {report.Reason} (relative residual {report.RelativeResidual:E2})");
-            var liftGradient = LiftGradient(reaction, source, offsetsXM[k]);
-            positions[k] = new Position(model, u0, source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]), liftGradient);
+            positions[k] = new Position(model, u0, source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]));
         }
         return new MovingReducedBasis(reaction, source, offsetsXM, criterion, positions);
     }
 
-    public ReactionMovingSolution Solve(ConductingSheet conductor, double speedMPerS) =>
-        TrySolve(conductor, speedMPerS, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+    /// <param name="withLift">false: loss and drag only (the lift is left 0, saving one FFT convolution a position the first time)</param>
+    public ReactionMovingSolution Solve(ConductingSheet conductor, double speedMPerS, bool withLift = true) =>
+        TrySolve(conductor, speedMPerS, out var s, out var failure, withLift) ? s! : throw new NumericalFailureException(failure);
 
     /// <summary>Loss, drag and lift at every offset for one conductor and speed; the bases grow until the error bound meets the criterion.</summary>
-    public bool TrySolve(ConductingSheet conductor, double speedMPerS, out ReactionMovingSolution? solution, out string failure)
+    public bool TrySolve(ConductingSheet conductor, double speedMPerS, out ReactionMovingSolution? solution, out string failure, bool withLift = true)
     {
         solution = null;
         if (!(speedMPerS > 0) || !double.IsFinite(speedMPerS)) throw new InputException($"the speed must be positive (got {speedMPerS} m/s)");
@@ -112,7 +112,7 @@ public sealed class MovingReducedBasis
             double beta = scale * p.Beta;
             loss[k] = g * (beta * beta * y.DotProduct(y) + edge);                    // P = G u^T A u, u = beta V y (A-orthonormal V)
             drag[k] = loss[k] / speedMPerS;                                          // F_D v = P in the steady state
-            lift[k] = -g * beta * y.DotProduct(p.LiftProjection(y.Count));          // lift on the source = -G integral u dBz/dz dA
+            if (withLift) lift[k] = -g * beta * y.DotProduct(p.LiftProjection(_reaction, Source, OffsetsXM[k], y.Count));   // lift on the source = -G integral u dBz/dz dA
             dragLow[k] = g * (beta * beta + edge) / speedMPerS;
             steps[k] = p.V.Count - 1;
             worst = Math.Max(worst, projected[k]!.RelativeError);
@@ -124,6 +124,37 @@ public sealed class MovingReducedBasis
             _positions[^1].Expand(projected[^1]!.Y, scale), notes);
         failure = "";
         return true;
+    }
+
+    /// <summary>
+    /// Rigorous bounds of the mean loss (W) for one conductor and speed from two basis vectors a position, for screening before the full solve.
+    /// |u|_A^2 = u0^T (I + c^2 N)^-1 u0 with N = -M^2 = M M* (symmetric positive semi-definite in the A-inner product, M skew-adjoint), a
+    /// Stieltjes integral of the completely monotone g(x) = 1/(1 + c^2 x) over the spectral measure of u0, whose first moments are
+    /// mu1 = h21^2 and mu2 = h21^2 (h21^2 + h32^2) (Arnoldi of a skew-adjoint M: h11 = h22 = 0, h12 = -h21). The one-node Gauss rule is a lower
+    /// bound, and the two-node Gauss-Radau rule with a node fixed at x = 0 an upper bound, of such an integral (G. H. Golub and G. Meurant,
+    /// Matrices, Moments and Quadrature with Applications, Princeton 2010, Theorems 6.3 and 6.4): 1/(1 + c^2 mu1) &lt;= |u|^2/|u0|^2 &lt;= 1 - mu1^2/mu2 + (mu1^2/mu2)/(1 + c^2 mu2/mu1).
+    /// </summary>
+    public (double LowerW, double UpperW) LossBounds(ConductingSheet conductor, double speedMPerS)
+    {
+        if (!(speedMPerS > 0) || !double.IsFinite(speedMPerS)) throw new InputException($"the speed must be positive (got {speedMPerS} m/s)");
+        while (_positions.Where(p => !p.Exhausted && p.V.Count < 3).ToList() is { Count: > 0 } growing)
+        {
+            _criterion.ThrowIfCancelled();
+            if (!Grow(growing, out var failure)) throw new NumericalFailureException(failure);
+        }
+        double g = conductor.SheetConductanceS, c = speedMPerS * g, scale = speedMPerS / Source.SpeedMPerS, c2 = c * c;
+        double lower = 0, upper = 0;
+        foreach (var p in _positions)
+        {
+            double h21 = p.Subdiagonal(0), h32 = p.Subdiagonal(1);
+            double mu1 = h21 * h21, mu2 = mu1 * (mu1 + h32 * h32);
+            double gauss = 1 / (1 + c2 * mu1);                                                          // one-node Gauss: lower bound
+            double radau = mu1 == 0 ? 1 : 1 - mu1 * mu1 / mu2 + mu1 * mu1 / mu2 / (1 + c2 * mu2 / mu1);  // Gauss-Radau, node at 0: upper bound
+            double beta2 = scale * scale * p.Beta * p.Beta, edge = scale * scale * p.EdgeLossPerSiemens;
+            lower += g * (beta2 * gauss + edge);
+            upper += g * (beta2 * radau + edge);
+        }
+        return (lower / _positions.Length, upper / _positions.Length);
     }
 
     /// <summary>One Arnoldi step on each growing position: S by FFT (two positions a complex transform), then A^-1 by multigrid CG.</summary>
@@ -169,10 +200,9 @@ public sealed class MovingReducedBasis
     private sealed class Position
     {
         private readonly SheetModel _model;
-        private readonly double[] _liftGradient;
         private readonly List<double[]> _av = [];
         private readonly List<double[]> _h = [];          // column j: h(0..j+1, j)
-        private readonly List<double> _liftProjection = [];
+        private double[]? _liftGradient;
         private bool _exhausted;
 
         /// <summary>The Krylov space is invariant (or u0 = 0): the projection is exact and the basis does not grow.</summary>
@@ -182,14 +212,13 @@ public sealed class MovingReducedBasis
         public double Beta { get; }
         public double EdgeLossPerSiemens { get; }
 
-        public Position(SheetModel model, double[] u0, double edgeLossPerSiemens, double[] liftGradient)
+        public Position(SheetModel model, double[] u0, double edgeLossPerSiemens)
         {
             _model = model;
-            _liftGradient = liftGradient;
             EdgeLossPerSiemens = edgeLossPerSiemens;
             var au0 = Multiply(u0);
             Beta = Math.Sqrt(Dot(u0, au0));                                          // |u0|_A, the resistance-limited loss per siemens is Beta^2
-            if (Beta == 0) { _exhausted = true; V.Add(u0); _av.Add(au0); _liftProjection.Add(0); return; }
+            if (Beta == 0) { _exhausted = true; V.Add(u0); _av.Add(au0); return; }
             Add(u0.Select(x => x / Beta).ToArray(), au0.Select(x => x / Beta).ToArray());
         }
 
@@ -241,8 +270,15 @@ public sealed class MovingReducedBasis
             return new Projection(y, error);
         }
 
-        /// <summary>(V^T g) for the first m basis vectors: the lift's projection.</summary>
-        public Vector<double> LiftProjection(int m) => Vector<double>.Build.Dense(m, i => _liftProjection[i]);
+        /// <summary>h(j+2, j+1) (1-based): the norm of the j-th step's new direction; 0 where the space was exhausted before it.</summary>
+        public double Subdiagonal(int j) => j < _h.Count ? _h[j][j + 1] : 0;
+
+        /// <summary>(V^T g) for the first m basis vectors: the lift's projection (g, the lift gradient, computed the first time it is asked for).</summary>
+        public Vector<double> LiftProjection(ReactionOperator reaction, IMovingSheetSource source, double offsetXM, int m)
+        {
+            _liftGradient ??= LiftGradient(reaction, source, offsetXM);
+            return Vector<double>.Build.Dense(m, i => Dot(V[i], _liftGradient));
+        }
 
         /// <summary>u = scale Beta V y on the unknowns.</summary>
         public double[] Expand(Vector<double> y, double scale)
@@ -261,7 +297,6 @@ public sealed class MovingReducedBasis
         {
             V.Add(v);
             _av.Add(av);
-            _liftProjection.Add(Dot(v, _liftGradient));
         }
 
         private double[] Multiply(double[] x)
