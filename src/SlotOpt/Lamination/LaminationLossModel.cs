@@ -23,8 +23,7 @@ public static class LaminationLossModel
     public static LaminationLoss Evaluate(ElectricalSteel steel, IFluxWaveform waveform, LaminationConditions? conditions = null)
     {
         conditions ??= LaminationConditions.Room;
-        var flags = new List<ValidityFlag>();
-        var resistivity = steel.ResistivityAt(conditions.TemperatureK);
+        var resistivity = ResistivityAt(steel, conditions.TemperatureK);
         if (!(resistivity > 0))
             throw new InputException($"grade {steel.Grade}: resistivity at {conditions.TemperatureK:0.#} K is not positive");
         var conductivity = 1 / resistivity;
@@ -52,23 +51,53 @@ public static class LaminationLossModel
         excess *= Math.Sqrt(steel.Resistivity20COhmM / resistivity);
 
         var peak = waveform.PeakT;
-        if (peak > steel.MaxFluxT)
-            flags.Add(new ValidityFlag("flux-beyond-grade", $"peak {peak:0.###} T exceeds the {steel.MaxFluxT:0.##} T that {steel.Grade} carries at 10 kA/m: the steel saturates and the loss model does not hold"));
-        else if (peak > steel.KneeFluxT)
-            flags.Add(new ValidityFlag("flux-near-saturation", $"peak {peak:0.###} T is above the knee ({steel.KneeFluxT:0.##} T, the polarisation at 5 kA/m) of {steel.Grade}: magnetising current and loss rise steeply"));
         var ratio = d / skinDepth;
-        if (ratio > SkinFlagRatio)
-            flags.Add(new ValidityFlag("thick-against-skin-depth", $"thickness is {ratio:0.##} skin depths at {f:0.#} Hz (mu_r {steel.RelativePermeability:0}): classical loss corrected by {skinFactor:0.###}, with linear permeability assumed"));
-        if (spectral is not null && Math.Abs(1 - spectral.Factor) > SpectralSkinFlagDeparture)
-            flags.Add(new ValidityFlag("skin-effect-in-harmonics", $"the harmonics of the waveform are skin-limited: classical loss over the full spectrum ({spectral.OrdersSummed} harmonics, then the asymptotic tail) corrected by {spectral.Factor:0.###}, with linear permeability assumed"));
-        if (spectral is not null && spectral.TailBound > SpectralSkinCorrection.Tolerance)
-            flags.Add(new ValidityFlag("spectrum-truncated", $"the skin correction stopped at {spectral.OrdersSummed} harmonics holding {spectral.CoveredFraction:P3} of the mean square dB/dt; the tail estimate may be off by up to {spectral.TailBound:P2}"));
-        if (f > steel.CoefficientsFrequencyHz * CoefficientFrequencyRange || f < steel.CoefficientsFrequencyHz / CoefficientFrequencyRange)
-            flags.Add(new ValidityFlag("coefficients-extrapolated", $"{f:0.#} Hz is far from the {steel.CoefficientsFrequencyHz:0.#} Hz data the hysteresis and excess coefficients of {steel.Grade} came from"));
-
+        var flags = Flags(steel, peak, f, ratio, skinFactor, spectral);
         var result = new LaminationLoss(hysteresis, classical, excess, steel.DensityKgPerM3, skinFactor, widthFactor, skinDepth, ratio, resistivity, flags);
         if (!double.IsFinite(result.TotalWPerKg))
             throw new NumericalFailureException($"grade {steel.Grade}: loss is not finite (hysteresis {hysteresis}, classical {classical}, excess {excess})");
         return result;
     }
+
+    /// <summary>The last steel and temperature this thread evaluated, with its resistivity (two table interpolations saved on a repeat).</summary>
+    [ThreadStatic] private static (ElectricalSteel Steel, double TemperatureK, double ResistivityOhmM)? _lastResistivity;
+
+    private static double ResistivityAt(ElectricalSteel steel, double temperatureK)
+    {
+        if (_lastResistivity is var (s, t, rho) && ReferenceEquals(s, steel) && t == temperatureK) return rho;
+        rho = steel.ResistivityAt(temperatureK);
+        _lastResistivity = (steel, temperatureK, rho);
+        return rho;
+    }
+
+    /// <summary>The validity flags of one evaluation (none: a shared empty list). Each message is worded when read, so its closure is made only for a raised flag.</summary>
+    private static IReadOnlyList<ValidityFlag> Flags(ElectricalSteel steel, double peak, double f, double ratio, double skinFactor, SpectralSkinFactor? spectral)
+    {
+        List<ValidityFlag>? flags = null;
+        if (peak > steel.MaxFluxT) (flags ??= []).Add(BeyondGrade(steel, peak));
+        else if (peak > steel.KneeFluxT) (flags ??= []).Add(NearSaturation(steel, peak));
+        if (ratio > SkinFlagRatio) (flags ??= []).Add(ThickAgainstSkinDepth(steel, f, ratio, skinFactor));
+        if (spectral is not null && Math.Abs(1 - spectral.Factor) > SpectralSkinFlagDeparture) (flags ??= []).Add(SkinInHarmonics(spectral));
+        if (spectral is not null && spectral.TailBound > SpectralSkinCorrection.Tolerance) (flags ??= []).Add(SpectrumTruncated(spectral));
+        if (f > steel.CoefficientsFrequencyHz * CoefficientFrequencyRange || f < steel.CoefficientsFrequencyHz / CoefficientFrequencyRange) (flags ??= []).Add(Extrapolated(steel, f));
+        return (IReadOnlyList<ValidityFlag>?)flags ?? Array.Empty<ValidityFlag>();
+    }
+
+    private static ValidityFlag BeyondGrade(ElectricalSteel steel, double peak) =>
+        new("flux-beyond-grade", () => $"peak {peak:0.###} T exceeds the {steel.MaxFluxT:0.##} T that {steel.Grade} carries at 10 kA/m: the steel saturates and the loss model does not hold");
+
+    private static ValidityFlag NearSaturation(ElectricalSteel steel, double peak) =>
+        new("flux-near-saturation", () => $"peak {peak:0.###} T is above the knee ({steel.KneeFluxT:0.##} T, the polarisation at 5 kA/m) of {steel.Grade}: magnetising current and loss rise steeply");
+
+    private static ValidityFlag ThickAgainstSkinDepth(ElectricalSteel steel, double f, double ratio, double skinFactor) =>
+        new("thick-against-skin-depth", () => $"thickness is {ratio:0.##} skin depths at {f:0.#} Hz (mu_r {steel.RelativePermeability:0}): classical loss corrected by {skinFactor:0.###}, with linear permeability assumed");
+
+    private static ValidityFlag SkinInHarmonics(SpectralSkinFactor spectral) =>
+        new("skin-effect-in-harmonics", () => $"the harmonics of the waveform are skin-limited: classical loss over the full spectrum ({spectral.OrdersSummed} harmonics, then the asymptotic tail) corrected by {spectral.Factor:0.###}, with linear permeability assumed");
+
+    private static ValidityFlag SpectrumTruncated(SpectralSkinFactor spectral) =>
+        new("spectrum-truncated", () => $"the skin correction stopped at {spectral.OrdersSummed} harmonics holding {spectral.CoveredFraction:P3} of the mean square dB/dt; the tail estimate may be off by up to {spectral.TailBound:P2}");
+
+    private static ValidityFlag Extrapolated(ElectricalSteel steel, double f) =>
+        new("coefficients-extrapolated", () => $"{f:0.#} Hz is far from the {steel.CoefficientsFrequencyHz:0.#} Hz data the hysteresis and excess coefficients of {steel.Grade} came from");
 }

@@ -25,6 +25,9 @@ public static class SkinEffect
             {
                 num += termNum;
                 den += termDen;
+                // the terms fall by x^4 / 840 or faster: once both are below a quarter of an ulp of their sums, no
+                // further term can change either sum (round to nearest), so stopping gives the 8-term result exactly
+                if (termNum < num * 1e-17 && termDen < den * 1e-17) break;
                 termNum *= x4 / ((4 * k + 4) * (4 * k + 5) * (4 * k + 6) * (4 * k + 7));
                 termDen *= x4 / ((4 * k + 3) * (4 * k + 4) * (4 * k + 5) * (4 * k + 6));
             }

@@ -12,7 +12,7 @@ public delegate void ComplexMap(Complex[] x, Complex[] y);
 /// Stops when the true relative residual |b - A x| / |b| is at most criterion.RelativeResidual
 /// (the Arnoldi estimate is confirmed by a true residual at each restart and at the end), fails
 /// after criterion.MaxIterations inner iterations or on NaN/Inf. The update is x += M^-1 (V y), so
-/// only the Krylov basis (m + 1 vectors) is stored.
+/// only the Krylov basis (at most m + 1 vectors, allocated as the iteration reaches them) is stored.
 /// </summary>
 public static class ComplexGmres
 {
@@ -26,8 +26,8 @@ public static class ComplexGmres
         if (!double.IsFinite(normB)) { report = new SolveReport(SolveStatus.NonFinite, 0, double.NaN); return false; }
         restart = Math.Max(1, restart);
         double target = criterion.RelativeResidual * normB;
-        var v = new Complex[restart + 1][];
-        for (int k = 0; k <= restart; k++) v[k] = new Complex[n];
+        var v = new Complex[restart + 1][];   // allocated as the iteration reaches them
+        v[0] = new Complex[n];
         var h = new Complex[restart + 1, restart];
         var cs = new double[restart];
         var sn = new Complex[restart];
@@ -64,6 +64,7 @@ public static class ComplexGmres
                 double hnext = Norm(w);
                 if (!double.IsFinite(hnext)) { report = new SolveReport(SolveStatus.NonFinite, iterations, double.NaN); return false; }
                 h[j + 1, j] = hnext;
+                v[j + 1] ??= new Complex[n];
                 if (hnext > 0) { Array.Copy(w, v[j + 1], n); Scale(v[j + 1], 1 / hnext); }
                 for (int i = 0; i < j; i++) Rotate(ref h[i, j], ref h[i + 1, j], cs[i], sn[i]);
                 (cs[j], sn[j]) = Givens(h[j, j], h[j + 1, j]);

@@ -7,7 +7,7 @@ using Vector = MathNet.Numerics.LinearAlgebra.Vector<double>;
 namespace SlotOpt.Tests.Numerics;
 
 /// <summary>
-/// Conjugate gradients and complex GMRES against MathNet.Numerics' dense direct solves (LU
+/// Conjugate gradients, real and complex GMRES against MathNet.Numerics' dense direct solves (LU
 /// with partial pivoting) on small random systems. The iterations stop at a true relative residual of
 /// 1e-12; the solution error is then at most cond(A) times that. The matrices are made diagonally dominant
 /// so cond(A) stays below about 10 (Gershgorin), and the checks allow 1e-9 relative: loose enough for the
@@ -137,5 +137,32 @@ public class KrylovSolverTests
         Assert.False(ComplexGmres.TrySolve(apply, identity, b, new Complex[40], Tight with { MaxIterations = 3 }, 60, out var report));
         Assert.Equal(SolveStatus.IterationLimit, report.Status);
         Assert.Throws<NumericalFailureException>(() => ComplexGmres.Solve(apply, identity, b, new Complex[40], Tight with { MaxIterations = 3 }));
+    }
+
+    [Theory]
+    [InlineData(31, 40, 60, false)]
+    [InlineData(32, 60, 8, true)]      // restart 8 < n: the restarts must carry the solution on
+    public void RealGmresMatchesDenseLu(int seed, int n, int restart, bool diagonalPreconditioner)
+    {
+        // non-symmetric, diagonally dominant: cond below about 10 (Gershgorin), as for the complex case
+        var random = new Random(seed);
+        var a = Matrix<double>.Build.Dense(n, n);
+        for (int i = 0; i < n; i++)
+            for (int j = 0; j < n; j++)
+                if (i != j && random.NextDouble() < 0.3) a[i, j] = 2 * random.NextDouble() - 1;
+        for (int i = 0; i < n; i++) a[i, i] = 1 + a.Row(i).Enumerate().Sum(Math.Abs);
+        var b = Enumerable.Range(0, n).Select(_ => 2 * random.NextDouble() - 1).ToArray();
+        var expected = a.LU().Solve(Vector.Build.DenseOfArray(b));
+        RealMap apply = (x, y) => (a * Vector.Build.DenseOfArray(x)).CopyTo(Vector.Build.Dense(y));
+        RealMap precondition = diagonalPreconditioner
+            ? (r, z) => { for (int i = 0; i < r.Length; i++) z[i] = r[i] / a[i, i]; }
+            : (r, z) => Array.Copy(r, z, r.Length);
+        var x = new double[n];
+        var report = Gmres.Solve(apply, precondition, b, x, Tight, restart);
+        Assert.Equal(SolveStatus.Converged, report.Status);
+        double scale = expected.AbsoluteMaximum();
+        for (int i = 0; i < n; i++) Assert.True(Math.Abs(x[i] - expected[i]) <= 1e-9 * scale, $"x[{i}] = {x[i]}, dense LU {expected[i]}");
+        Assert.False(Gmres.TrySolve(apply, precondition, b, new double[n], Tight with { MaxIterations = 2 }, restart, out var limited));
+        Assert.Equal(SolveStatus.IterationLimit, limited.Status);
     }
 }

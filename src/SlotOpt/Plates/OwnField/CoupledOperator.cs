@@ -13,7 +13,8 @@ namespace SlotOpt.Plates.OwnField;
 /// The preconditioner is the resistance-limited multigrid V-cycle (an approximate A^-1) on the real and
 /// imaginary parts. The preconditioned spectrum is then 1 + j beta mu with mu real: for AC bounded by
 /// omega G mu0/(2 k_min) and large only for the few plate-sized modes (GMRES deals with those outliers),
-/// for a moving source up to v/w at every wavenumber (w = 2/(mu0 G)). So the moving case first applies the
+/// for a moving source up to v/w at every wavenumber (w = 2/(mu0 G)). So the moving case (<see cref="ConvectedOperator"/>,
+/// real, solved in real arithmetic) first applies the
 /// free-lattice factor Phi = A^/(A^ + c S^) by FFT (<see cref="ReactionOperator.CoupledFactor"/>, exact on an
 /// unbounded uniform sheet): measured, it halves the iterations at v = w (bench: 21 to 10 per offset). For AC
 /// it saved too few iterations (16 to 17 on the slotted bench plate, 17 to 12 on a disc) to pay for its FFT.
@@ -23,52 +24,48 @@ internal sealed class CoupledOperator
     private readonly SheetModel _model;
     private readonly ReactionOperator _reaction;
     private readonly Complex _coefficient;
-    private readonly bool _convected;
     private readonly Complex[] _work;
-    private readonly Complex[]? _factor;
     private readonly double[] _re, _im, _zRe, _zIm;
 
-    private CoupledOperator(SheetModel model, ReactionOperator reaction, Complex coefficient, bool convected)
+    private CoupledOperator(SheetModel model, ReactionOperator reaction, Complex coefficient)
     {
         _model = model;
         _reaction = reaction;
         _coefficient = coefficient;
-        _convected = convected;
         int n = model.Unknowns;
         _work = new Complex[n];
-        _factor = convected ? reaction.CoupledFactor(coefficient, convected) : null;
         _re = new double[n]; _im = new double[n]; _zRe = new double[n]; _zIm = new double[n];
     }
 
     /// <summary>A + j omega G R.</summary>
     public static CoupledOperator Ac(SheetModel model, ReactionOperator reaction, double omega, double sheetConductanceS) =>
-        new(model, reaction, new Complex(0, omega * sheetConductanceS), convected: false);
+        new(model, reaction, new Complex(0, omega * sheetConductanceS));
 
-    /// <summary>A - v G Dx R.</summary>
-    public static CoupledOperator Moving(SheetModel model, ReactionOperator reaction, double speedMPerS, double sheetConductanceS) =>
-        new(model, reaction, -speedMPerS * sheetConductanceS, convected: true);
+    /// <summary>A - v G Dx R (real: see <see cref="ConvectedOperator"/>).</summary>
+    public static ConvectedOperator Moving(SheetModel model, ReactionOperator reaction, double speedMPerS, double sheetConductanceS) =>
+        new(model, reaction, -speedMPerS * sheetConductanceS);
 
     public void Apply(Complex[] x, Complex[] y)
     {
-        if (_convected) _reaction.ApplyDxR(x, _work); else _reaction.ApplyR(x, _work);
-        var a = _model.Operator.Matrix;
-        var rs = a.RowStart; var ci = a.ColumnIndex; var v = a.Value;
-        for (int i = 0; i < a.Rows; i++)
-        {
-            double sr = 0, si = 0;
-            for (int k = rs[i], e = rs[i + 1]; k < e; k++) { var xc = x[ci[k]]; sr += v[k] * xc.Real; si += v[k] * xc.Imaginary; }
-            y[i] = new Complex(sr, si) + _coefficient * _work[i];
-        }
+        _reaction.ApplyR(x, _work);
+        Split(x);
+        var a = _model.Multigrid.Operator;
+        a.Multiply(_re, _zRe);
+        a.Multiply(_im, _zIm);
+        for (int i = 0; i < y.Length; i++) y[i] = new Complex(_zRe[i], _zIm[i]) + _coefficient * _work[i];
     }
 
-    /// <summary>z = M^-1 r: (moving only) the spectral factor Phi, then one multigrid V-cycle of A on each of the real and imaginary parts.</summary>
+    /// <summary>z = M^-1 r: one multigrid V-cycle of A on each of the real and imaginary parts.</summary>
     public void Precondition(Complex[] r, Complex[] z)
     {
-        var x = r;
-        if (_factor is not null) { _reaction.ApplyMultiplier(r, _work, _factor); x = _work; }
-        for (int i = 0; i < r.Length; i++) { _re[i] = x[i].Real; _im[i] = x[i].Imaginary; }
+        Split(r);
         _model.Multigrid.Apply(_re, _zRe);
         _model.Multigrid.Apply(_im, _zIm);
         for (int i = 0; i < r.Length; i++) z[i] = new Complex(_zRe[i], _zIm[i]);
+    }
+
+    private void Split(Complex[] x)
+    {
+        for (int i = 0; i < x.Length; i++) { _re[i] = x[i].Real; _im[i] = x[i].Imaginary; }
     }
 }

@@ -18,61 +18,81 @@ namespace SlotOpt.Plates.OwnField;
 public sealed class ReactionOperator
 {
     private readonly int[] _nodeUnknown;
-    private readonly Complex[] _spectrumR;
-    private Complex[]? _spectrumDxR;
-    private readonly Complex[] _work;
-    private readonly Fft2D _fft;
+    /// <summary>Per interior lattice node (in padded-lattice order of the input region): its unknown, or -1 outside.</summary>
+    private readonly int[] _interiorUnknown;
+    private readonly PaddedConvolution _convolution;
+    private readonly KernelSpectrum _spectrumR;
+    private KernelSpectrum? _spectrumDxR;
 
     public SheetModel Model { get; }
     public ReactionKernel Kernel { get; }
-    public int PaddedX { get; }
-    public int PaddedY { get; }
+    public int PaddedX => _convolution.PaddedX;
+    public int PaddedY => _convolution.PaddedY;
+    /// <summary>Bytes held: the padded lattice's buffers and the kernel spectra built so far.</summary>
+    public long Bytes => _convolution.Bytes + _spectrumR.Bytes + (_spectrumDxR?.Bytes ?? 0) + 4L * _interiorUnknown.Length;
 
-    private ReactionOperator(SheetModel model, ReactionKernel kernel, int mx, int my, Complex[] spectrumR)
+    private ReactionOperator(SheetModel model, ReactionKernel kernel, PaddedConvolution convolution, KernelSpectrum spectrumR)
     {
         Model = model;
         Kernel = kernel;
-        PaddedX = mx;
-        PaddedY = my;
+        _convolution = convolution;
         _spectrumR = spectrumR;
         _nodeUnknown = model.Regions.NodeUnknown;
-        _work = new Complex[mx * my];
-        _fft = new Fft2D(my, mx);
+        var l = model.Lattice;
+        int ix = l.NodesX - 2, iy = l.NodesY - 2;
+        _interiorUnknown = new int[ix * iy];
+        for (int j = 0; j < iy; j++)
+            for (int i = 0; i < ix; i++) _interiorUnknown[j * ix + i] = _nodeUnknown[(j + 1) * l.NodesX + i + 1];
     }
 
     public static ReactionOperator Build(SheetModel model)
     {
         var l = model.Lattice;
         int ix = l.NodesX - 2, iy = l.NodesY - 2;           // interior nodes: the border is outside (NodeRegions)
-        int mx = PaddedLength(ix), my = PaddedLength(iy);
+        var convolution = new PaddedConvolution(ix, iy);
         // one extra offset in x for the central difference of the convected form
         var kernel = ReactionKernel.Build(l.Hx, l.Hy, ix, iy - 1);
-        var spectrum = Spectrum(mx, my, ix - 1, iy - 1, (dx, dy) => kernel[dx, dy]);
-        return new ReactionOperator(model, kernel, mx, my, spectrum);
+        var spectrum = convolution.Spectrum(ix - 1, iy - 1, (dx, dy) => kernel[dx, dy]);
+        return new ReactionOperator(model, kernel, convolution, spectrum);
     }
 
-    /// <summary>The smallest power of two at least 2 n - 1 (linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
-    public static int PaddedLength(int n)
-    {
-        int m = 1;
-        while (m < 2 * n - 1) m <<= 1;
-        return m;
-    }
+    /// <summary>The smallest power of two at least 2 n (so at least 2 n - 1: linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
+    public static int PaddedLength(int n) => PaddedConvolution.PaddedLength(n);
 
     /// <summary>y = R u (webers per ampere of psi times u): the flux of the layer u through each unknown's basis.</summary>
-    public void ApplyR(ReadOnlySpan<Complex> u, Span<Complex> y) => Apply(u, y, _spectrumR);
+    public void ApplyR(ReadOnlySpan<Complex> u, Span<Complex> y)
+    {
+        var c = _convolution;
+        var re = c.Re; var im = c.Im;
+        int ix = c.Nx, mx = c.PaddedX;
+        for (int n = 0; n < _interiorUnknown.Length; n++)
+        {
+            int k = _interiorUnknown[n], p = n / ix * mx + n % ix;
+            if (k >= 0) { re[p] = u[k].Real; im[p] = u[k].Imaginary; } else { re[p] = 0; im[p] = 0; }
+        }
+        c.ConvolveComplex(_spectrumR);
+        y.Clear();
+        for (int n = 0; n < _interiorUnknown.Length; n++)
+        {
+            int k = _interiorUnknown[n];
+            if (k >= 0) { int p = n / ix * mx + n % ix; y[k] += new Complex(re[p], im[p]); }   // transpose of the node replication: merged rows add up
+        }
+    }
 
-    /// <summary>y = Dx R u: the central x-difference (per metre) of R u, the convected reaction flux of a source moving along x.</summary>
-    public void ApplyDxR(ReadOnlySpan<Complex> u, Span<Complex> y) => Apply(u, y, SpectrumDxR());
+    /// <summary>y = R u for a real u.</summary>
+    public void ApplyR(ReadOnlySpan<double> u, Span<double> y) => ApplyReal(u, y, _spectrumR);
 
-    private Complex[] SpectrumDxR()
+    /// <summary>y = Dx R u: the central x-difference (per metre) of R u, the convected reaction flux of a source moving along x (real: R's kernel is real).</summary>
+    public void ApplyDxR(ReadOnlySpan<double> u, Span<double> y) => ApplyReal(u, y, SpectrumDxR());
+
+    private KernelSpectrum SpectrumDxR()
     {
         if (_spectrumDxR is null)
         {
             var l = Model.Lattice;
             double h2 = 2 * l.Hx;
             // (Dx R)(d) = (R(dx + 1, dy) - R(dx - 1, dy)) / (2 hx): odd in dx, so Dx R is skew-symmetric
-            _spectrumDxR = Spectrum(PaddedX, PaddedY, l.NodesX - 3, l.NodesY - 3, (dx, dy) => (Kernel[dx + 1, dy] - Kernel[dx - 1, dy]) / h2);
+            _spectrumDxR = _convolution.Spectrum(l.NodesX - 3, l.NodesY - 3, (dx, dy) => (Kernel[dx + 1, dy] - Kernel[dx - 1, dy]) / h2);
         }
         return _spectrumDxR;
     }
@@ -83,24 +103,21 @@ public sealed class ReactionOperator
     /// S^ the reaction spectrum: A^-1 Phi inverts the coupled operator exactly on an unbounded uniform sheet, so
     /// it is the coupled preconditioner's spectral part (boundaries and holes are left to the Krylov method).
     /// </summary>
-    internal Complex[] CoupledFactor(Complex coefficient, bool convected)
+    internal KernelSpectrum CoupledFactor(Complex coefficient, bool convected)
     {
         var l = Model.Lattice;
         var spectrum = convected ? SpectrumDxR() : _spectrumR;
         double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
-        var factor = new Complex[spectrum.Length];
-        for (int q = 0; q < PaddedY; q++)
-            for (int p = 0; p < PaddedX; p++)
-            {
-                double a = 2 * rx * (1 - Math.Cos(2 * Math.PI * p / PaddedX)) + 2 * ry * (1 - Math.Cos(2 * Math.PI * q / PaddedY));
-                int i = q * PaddedX + p;
-                factor[i] = a == 0 ? Complex.One : a / (a + coefficient * spectrum[i]);
-            }
-        return factor;
+        int mx = PaddedX, my = PaddedY;
+        return spectrum.Map((p, q, s) =>
+        {
+            double a = 2 * rx * (1 - Math.Cos(2 * Math.PI * p / mx)) + 2 * ry * (1 - Math.Cos(2 * Math.PI * q / my));
+            return a == 0 ? Complex.One : a / (a + coefficient * s);
+        });
     }
 
-    /// <summary>y = the padded-lattice multiplier applied to u (node values of the unknowns, results summed per unknown).</summary>
-    internal void ApplyMultiplier(ReadOnlySpan<Complex> u, Span<Complex> y, Complex[] multiplier) => Apply(u, y, multiplier);
+    /// <summary>y = the padded-lattice multiplier applied to a real u (node values of the unknowns, results summed per unknown); the multiplier must map real fields to real fields.</summary>
+    internal void ApplyMultiplier(ReadOnlySpan<double> u, Span<double> y, KernelSpectrum multiplier) => ApplyReal(u, y, multiplier);
 
     /// <summary>
     /// R applied to a field given on the lattice's interior nodes (not restricted to the plate), returned per
@@ -110,16 +127,12 @@ public sealed class ReactionOperator
     /// </summary>
     public void ApplyRToNodeField(ReadOnlySpan<double> nodeValues, Span<double> y)
     {
-        Array.Clear(_work);
-        for (int n = 0; n < nodeValues.Length; n++)
-            if (PaddedIndex(n) is var p && p >= 0) _work[p] = nodeValues[n];
-        Convolve(_spectrumR);
-        y.Clear();
-        for (int n = 0; n < _nodeUnknown.Length; n++)
-        {
-            int u = _nodeUnknown[n];
-            if (u >= 0) y[u] += _work[PaddedIndex(n)].Real;
-        }
+        var c = _convolution;
+        var re = c.Re;
+        int ix = c.Nx, mx = c.PaddedX, nodesX = Model.Lattice.NodesX;
+        for (int n = 0; n < _interiorUnknown.Length; n++) re[n / ix * mx + n % ix] = nodeValues[(n / ix + 1) * nodesX + n % ix + 1];
+        c.ConvolveReal(_spectrumR);
+        Gather(y);
     }
 
     /// <summary>Index on the padded lattice of lattice node n (interior node (i, j) at (i - 1, j - 1)); -1 on the border.</summary>
@@ -130,32 +143,34 @@ public sealed class ReactionOperator
         return i == 0 || j == 0 || i == l.NodesX - 1 || j == l.NodesY - 1 ? -1 : (j - 1) * PaddedX + i - 1;
     }
 
-    private void Apply(ReadOnlySpan<Complex> u, Span<Complex> y, Complex[] spectrum)
+    private void ApplyReal(ReadOnlySpan<double> u, Span<double> y, KernelSpectrum spectrum)
     {
-        Array.Clear(_work);
-        for (int n = 0; n < _nodeUnknown.Length; n++)
+        var c = _convolution;
+        var re = c.Re;
+        int ix = c.Nx, mx = c.PaddedX;
+        for (int n = 0; n < _interiorUnknown.Length; n++)
         {
-            int k = _nodeUnknown[n];
-            if (k >= 0) _work[PaddedIndex(n)] = u[k];
+            int k = _interiorUnknown[n];
+            re[n / ix * mx + n % ix] = k >= 0 ? u[k] : 0;
         }
-        Convolve(spectrum);
+        c.ConvolveReal(spectrum);
+        Gather(y);
+    }
+
+    /// <summary>y_k = sum of the convolved field over unknown k's nodes (the transpose of the node replication: merged rows add up).</summary>
+    private void Gather(Span<double> y)
+    {
+        var re = _convolution.Re;
+        int ix = _convolution.Nx, mx = _convolution.PaddedX;
         y.Clear();
-        for (int n = 0; n < _nodeUnknown.Length; n++)
+        for (int n = 0; n < _interiorUnknown.Length; n++)
         {
-            int k = _nodeUnknown[n];
-            if (k >= 0) y[k] += _work[PaddedIndex(n)];   // transpose of the node replication: merged rows add up
+            int k = _interiorUnknown[n];
+            if (k >= 0) y[k] += re[n / ix * mx + n % ix];
         }
     }
 
-    /// <summary>Circular convolution of the work buffer with the kernel whose spectrum is given (Matlab convention: forward unscaled, inverse 1/N).</summary>
-    private void Convolve(Complex[] spectrum)
-    {
-        _fft.Forward(_work);
-        for (int i = 0; i < _work.Length; i++) _work[i] *= spectrum[i];
-        _fft.Inverse(_work);
-    }
-
-    /// <summary>DFT of the kernel placed with wrap-around at offsets |dx| &lt;= kx, |dy| &lt;= ky on the padded lattice.</summary>
+    /// <summary>DFT of the kernel placed with wrap-around at offsets |dx| &lt;= kx, |dy| &lt;= ky on the padded lattice (natural order, unscaled).</summary>
     internal static Complex[] Spectrum(int mx, int my, int kx, int ky, Func<int, int, double> kernel)
     {
         var a = new Complex[mx * my];

@@ -17,7 +17,17 @@ namespace SlotOpt.Plates.OwnField;
 public static class ReactionSolver
 {
     public static bool TrySolveAc(ReactionOperator reaction, IAcFieldSource source, ConductingSheet conductor, ConvergenceCriterion? criterion,
-        out ReactionAcSolution? solution, out string failure)
+        out ReactionAcSolution? solution, out string failure) =>
+        TrySolveAc(reaction, source, conductor, criterion, null, out solution, out failure);
+
+    /// <param name="initialGuess">
+    /// u = psi / G to start the coupled iteration from (one per unknown of the reaction operator's model), e.g. the
+    /// <see cref="ReactionAcSolution.U"/> of the same plate at a nearby conductivity, thickness or frequency; null starts
+    /// from the resistance-limited solution. The answer is the same to the solver tolerance either way; a close guess
+    /// saves iterations.
+    /// </param>
+    public static bool TrySolveAc(ReactionOperator reaction, IAcFieldSource source, ConductingSheet conductor, ConvergenceCriterion? criterion,
+        Complex[]? initialGuess, out ReactionAcSolution? solution, out string failure)
     {
         criterion ??= ConvergenceCriterion.Default;
         solution = null;
@@ -40,7 +50,8 @@ public static class ReactionSolver
         double lossLow = 0.5 * g * (model.LossPerSiemens(u0Re) + model.LossPerSiemens(u0Im));
         var b = new Complex[model.Unknowns];
         var u = new Complex[model.Unknowns];
-        for (int i = 0; i < b.Length; i++) { b[i] = new Complex(bRe[i], bIm[i]); u[i] = new Complex(u0Re[i], u0Im[i]); }
+        CheckGuess(initialGuess?.Length, model);
+        for (int i = 0; i < b.Length; i++) { b[i] = new Complex(bRe[i], bIm[i]); u[i] = initialGuess?[i] ?? new Complex(u0Re[i], u0Im[i]); }
         var op = CoupledOperator.Ac(model, reaction, 2 * Math.PI * source.FrequencyHz, g);
         if (!ComplexGmres.TrySolve(op.Apply, op.Precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
         {
@@ -56,20 +67,32 @@ public static class ReactionSolver
         return true;
     }
 
-    public static ReactionAcSolution SolveAc(ReactionOperator reaction, IAcFieldSource source, ConductingSheet conductor, ConvergenceCriterion? criterion = null) =>
-        TrySolveAc(reaction, source, conductor, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+    public static ReactionAcSolution SolveAc(ReactionOperator reaction, IAcFieldSource source, ConductingSheet conductor, ConvergenceCriterion? criterion = null,
+        Complex[]? initialGuess = null) =>
+        TrySolveAc(reaction, source, conductor, criterion, initialGuess, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
 
     /// <summary>
     /// Source-frame steady state at each offset (the plate long in x, psi = 0 at its ends: make the plate
     /// reach well behind the source, where the wake trails). Each offset starts from the previous solution.
+    /// The system is real (<see cref="ConvectedOperator"/>): real GMRES (<see cref="Gmres"/>).
     /// </summary>
     public static bool TrySolveMoving(ReactionOperator reaction, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM,
-        ConvergenceCriterion? criterion, out ReactionMovingSolution? solution, out string failure)
+        ConvergenceCriterion? criterion, out ReactionMovingSolution? solution, out string failure) =>
+        TrySolveMoving(reaction, source, conductor, offsetsXM, criterion, null, out solution, out failure);
+
+    /// <param name="initialGuess">
+    /// u = psi / G to start the first offset from (one per unknown of the reaction operator's model), e.g. the
+    /// <see cref="ReactionMovingSolution.FirstU"/> of the same offsets at a nearby speed or conductivity; null starts
+    /// from the resistance-limited solution. The answer is the same to the solver tolerance either way.
+    /// </param>
+    public static bool TrySolveMoving(ReactionOperator reaction, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM,
+        ConvergenceCriterion? criterion, double[]? initialGuess, out ReactionMovingSolution? solution, out string failure)
     {
         criterion ??= ConvergenceCriterion.Default;
         solution = null;
         if (offsetsXM.Count == 0) throw new InputException("a moving source needs at least one position");
         var model = reaction.Model;
+        CheckGuess(initialGuess?.Length, model);
         var l = model.Lattice;
         double g = conductor.SheetConductanceS, v = source.SpeedMPerS;
         var op = CoupledOperator.Moving(model, reaction, v, g);
@@ -78,8 +101,8 @@ public static class ReactionSolver
         var liftNode = new double[l.NodeCount];
         var gradient = new double[n];
         var low = new double[n];
-        var b = new Complex[n];
-        var u = new Complex[n];
+        var u = new double[n];
+        double[]? first = null;
         var loss = new double[offsetsXM.Count];
         var drag = new double[offsetsXM.Count];
         var lift = new double[offsetsXM.Count];
@@ -98,33 +121,39 @@ public static class ReactionSolver
             // the edges' sub-cell loss (a kink of the same strength G q: the eddy currents' own field is smooth at a pole edge)
             double edgeLoss = source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]);
             dragLow[k] = g * (model.LossPerSiemens(low) + edgeLoss) / v;
-            for (int i = 0; i < n; i++) { b[i] = rhs[i]; if (k == 0) u[i] = low[i]; }
-            if (!ComplexGmres.TrySolve(op.Apply, op.Precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
+            if (k == 0) Array.Copy(initialGuess ?? low, u, n);
+            if (!Gmres.TrySolve(op.Apply, op.Precondition, rhs, u, criterion, ComplexGmres.DefaultRestart, out var report))
             {
                 failure = $"at offset {offsetsXM[k]} m, coupled moving solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
                 return false;
             }
+            if (k == 0) first = (double[])u.Clone();
             iterations[k] = report.Iterations;
             worst = Math.Max(worst, report.RelativeResidual);
-            loss[k] = g * (HermitianForm(model, u) + edgeLoss);    // P = psi^T A psi / G
+            loss[k] = g * (model.LossPerSiemens(u) + edgeLoss);    // P = psi^T A psi / G
             drag[k] = loss[k] / v;                                  // F_D v = P in the steady state
             NormalGradient(reaction, source.IntegrateLiftField(l, offsetsXM[k], liftNode), liftNode, gradient);
             double f = 0;
-            for (int i = 0; i < n; i++) f += u[i].Real * gradient[i];
+            for (int i = 0; i < n; i++) f += u[i] * gradient[i];
             lift[k] = -g * f;                                       // lift on the source = -integral psi dBz/dz dA
             if (!double.IsFinite(loss[k]) || !double.IsFinite(lift[k])) { failure = $"at offset {offsetsXM[k]} m: the force is not finite"; return false; }
         }
         var notes = new List<string>();
         if (loss.All(p => p == 0)) notes.Add("the source does not reach the conducting part of the plate: zero drag and lift");
-        solution = new ReactionMovingSolution(model, g, v, offsetsXM.ToArray(), loss, drag, lift, dragLow, iterations, worst,
-            u.Select(c => c.Real).ToArray(), notes);
+        solution = new ReactionMovingSolution(model, g, v, offsetsXM.ToArray(), loss, drag, lift, dragLow, iterations, worst, u, first!, notes);
         failure = "";
         return true;
     }
 
     public static ReactionMovingSolution SolveMoving(ReactionOperator reaction, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM,
-        ConvergenceCriterion? criterion = null) =>
-        TrySolveMoving(reaction, source, conductor, offsetsXM, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+        ConvergenceCriterion? criterion = null, double[]? initialGuess = null) =>
+        TrySolveMoving(reaction, source, conductor, offsetsXM, criterion, initialGuess, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+
+    private static void CheckGuess(int? length, SheetModel model)
+    {
+        if (length is int n && n != model.Unknowns)
+            throw new ArgumentException($"the initial guess has {n} values for a model of {model.Unknowns} unknowns", "initialGuess");
+    }
 
     /// <summary>
     /// Integral of dBz/dz at the sheet over each unknown's basis (Wb/m) from what the source wrote per node:
