@@ -65,7 +65,7 @@ public static class RunText
 
     /// <summary>A chosen plate as confirmed: which model ran, its loss, drag and lift, the resistance-limited screen's loss, and why that model.</summary>
     private static string Confirmed(PlateConfirmation c) => string.Create(CultureInfo.InvariantCulture,
-        $"{c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? string.Create(CultureInfo.InvariantCulture, $", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W). {c.Reason}");
+        $"{c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? string.Create(CultureInfo.InvariantCulture, $", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W){(c.GridError is { } e ? string.Create(CultureInfo.InvariantCulture, $"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}");
 
     /// <summary>A hot plate's coupled temperature: hottest point (value and place), mean rise, the resistivity's temperature, the limit.</summary>
     private static string Temperature(PlateHeat heat)

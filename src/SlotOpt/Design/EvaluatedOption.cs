@@ -39,9 +39,10 @@ public sealed record OptionTemperature(double HottestK, double HottestXM, double
 /// <summary>
 /// Which plate model gave an option's loss and drag, and why: the model its validity figures call for
 /// (<see cref="ReactionModelChoice"/>), or the resistance-limited screen kept for an option a loss-independent rule
-/// already removed (Reason says so). Name is the model as the command line and every output spell it.
+/// already removed or that provably can be neither chosen nor on the trade-off curve (IsScreenOnly; Reason says why).
+/// Name is the model as the command line and every output spell it.
 /// </summary>
-public sealed record OptionModel(SheetModelKind Kind, string Reason)
+public sealed record OptionModel(SheetModelKind Kind, string Reason, bool IsScreenOnly = false)
 {
     public string Name => ReactionModelChoice.Name(Kind);
 }

@@ -53,6 +53,12 @@ public static class PlateModelRanking
         public bool Needed { get; set; }
     }
 
+    /// <summary>Moving poles: the reduced basis of one geometry, kept from its bounds to its converged solves.</summary>
+    private sealed class GeometryBasis
+    {
+        public MovingReducedBasis? Basis { get; set; }
+    }
+
     /// <param name="screened">the screen's options of each solved geometry (every thickness, material and process), in geometry order</param>
     /// <param name="heat">with [parts.thermal]: the screen's temperature verdict per geometry, thickness and material</param>
     /// <param name="mayPrune">whether options may be pruned by bounds (false for one fixed design, or a part whose chosen plate the run may still reject)</param>
@@ -66,16 +72,17 @@ public static class PlateModelRanking
         for (var g = 0; g < solved.Count; g++) groups[g] = Groups(part, g, solved[g], screened[g], library);
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = Math.Max(limits.Threads, 1) };
         var moving = part.Excitation as PlateExcitation.Moving;
-        var prune = mayPrune && moving is not null;
-        if (prune)
+        var bases = Enumerable.Range(0, solved.Count).Select(_ => new GeometryBasis()).ToArray();
+        if (mayPrune && moving is not null)
         {
-            // bounds from two reduced-basis steps a position, then the options that must be solved to convergence
-            Run(solved.Count, parallel, g => Bound(part, solved[g], groups[g]));
+            // bounds from two reduced-basis steps a position, then the options that must be solved to convergence (their bases grow on)
+            Run(solved.Count, parallel, g => Bound(part, solved[g], groups[g], bases[g]));
             MarkNeeded(part, screened, groups, processCapped);
+            for (var g = 0; g < solved.Count; g++) if (!groups[g].Any(x => x.Needed)) bases[g].Basis = null;
         }
         else
             foreach (var group in groups.SelectMany(x => x)) group.Needed = group.Kept is null;
-        Run(solved.Count, parallel, g => Solve(part, solved[g], groups[g]));
+        Run(solved.Count, parallel, g => { Solve(part, solved[g], groups[g], bases[g]); bases[g].Basis = null; });
         var ranked = new List<EvaluatedOption>();
         for (var g = 0; g < solved.Count; g++)
         {
@@ -140,14 +147,14 @@ public static class PlateModelRanking
     }
 
     private static OptionModel Screen(ModelChoice choice, string why) =>
-        new(SheetModelKind.ResistanceLimited, $"the resistance-limited screen, not re-solved: {why} (its validity figures call for {ReactionModelChoice.Name(choice.Kind)}: {choice.Reason})");
+        new(SheetModelKind.ResistanceLimited, $"the resistance-limited screen, not re-solved: {why} (its validity figures call for {ReactionModelChoice.Name(choice.Kind)}: {choice.Reason})", IsScreenOnly: true);
 
     /// <summary>Moving poles: the loss bounds of every open group of one geometry from one reduced basis.</summary>
-    private static void Bound(PlatePart part, PlateOptions.SolvedGeometry solved, List<Group> groups)
+    private static void Bound(PlatePart part, PlateOptions.SolvedGeometry solved, List<Group> groups, GeometryBasis kept)
     {
         if (groups.All(x => x.Kept is not null)) return;
         var poles = ((PlateExcitation.Moving)part.Excitation).Poles;
-        var basis = MovingReducedBasis.Start(ReactionOperator.Build(solved.Peak!.Model), poles, PlateOptions.TravelOffsets(part, solved.Slots));
+        var basis = kept.Basis = MovingReducedBasis.Start(ReactionOperator.Build(solved.Peak!.Model), poles, PlateOptions.TravelOffsets(part, solved.Slots));
         foreach (var group in groups.Where(x => x.Kept is null))
             group.Bounds = basis.LossBounds(group.Sheet, poles.SpeedMPerS);
     }
@@ -186,12 +193,12 @@ public static class PlateModelRanking
     }
 
     /// <summary>The converged solve of every needed group of one geometry with the model its figures call for.</summary>
-    private static void Solve(PlatePart part, PlateOptions.SolvedGeometry solved, List<Group> groups)
+    private static void Solve(PlatePart part, PlateOptions.SolvedGeometry solved, List<Group> groups, GeometryBasis kept)
     {
         if (!groups.Any(x => x.Needed)) return;
         var model = solved.Peak!.Model;
-        ReactionOperator? reaction = null;
-        MovingReducedBasis? basis = null;
+        MovingReducedBasis? basis = kept.Basis;
+        ReactionOperator? reaction = basis?.Reaction;
         foreach (var group in groups.Where(x => x.Needed))
         {
             PlateSolution solution;

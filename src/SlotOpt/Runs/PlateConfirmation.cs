@@ -85,6 +85,9 @@ public sealed record PlateConfirmation(
         return points;
     }
 
+    /// <summary>The model's name as `plate --model` and every output spell it.</summary>
+    public string ModelName => ReactionModelChoice.Name(Model);
+
     /// <summary>The model in words for the console and the report.</summary>
     public string ModelWords => Model switch
     {

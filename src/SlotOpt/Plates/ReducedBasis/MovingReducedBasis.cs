@@ -1,4 +1,3 @@
-using Complex = System.Numerics.Complex;
 using MathNet.Numerics.LinearAlgebra;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
@@ -18,8 +17,7 @@ namespace SlotOpt.Plates.ReducedBasis;
 /// The source's rate s scales with its speed (a translating field: dBz/dt = -v dBz/dx), so one basis also serves every speed.
 /// Stopping: the Arnoldi relation gives the residual of the projected solution exactly, (I - c M) V y - u0 = -c h(m+1,m) y_m v(m+1), and
 /// |(I - c M) e|_A &gt;= |e|_A for skew-adjoint M, so the A-norm error of u is at most |c h(m+1,m) y_m| |u0|_A; the basis grows until that
-/// is below the criterion's relative residual times |u|_A. Each step costs one application of S (by FFT; two positions share one
-/// complex transform, real and imaginary parts) and one multigrid solve with A. Not thread-safe (the reaction operator is not): one per thread.
+/// is below the criterion's relative residual times |u|_A. Each step costs one application of S (by FFT) and one multigrid solve with A. Not thread-safe (the reaction operator is not): one per thread.
 /// </summary>
 public sealed class MovingReducedBasis
 {
@@ -30,9 +28,10 @@ public sealed class MovingReducedBasis
     private readonly SheetModel _model;
     private readonly ConvergenceCriterion _criterion;
     private readonly Position[] _positions;
-    private readonly Complex[] _packed, _applied;
+    private readonly double[] _applied;
 
     public SheetModel Model => _model;
+    public ReactionOperator Reaction => _reaction;
     public IMovingSheetSource Source { get; }
     public IReadOnlyList<double> OffsetsXM { get; }
 
@@ -47,8 +46,7 @@ public sealed class MovingReducedBasis
         OffsetsXM = offsetsXM.ToArray();
         _criterion = criterion;
         _positions = positions;
-        _packed = new Complex[_model.Unknowns];
-        _applied = new Complex[_model.Unknowns];
+        _applied = new double[_model.Unknowns];
     }
 
     /// <summary>The resistance-limited start u0 = -A^-1 s at each offset (the first basis vector); the basis grows as solves ask for it.</summary>
@@ -121,7 +119,7 @@ public sealed class MovingReducedBasis
         var notes = new List<string>();
         if (loss.All(x => x == 0)) notes.Add("the source does not reach the conducting part of the plate: zero drag and lift");
         solution = new ReactionMovingSolution(_model, g, speedMPerS, OffsetsXM.ToArray(), loss, drag, lift, dragLow, steps, worst,
-            _positions[^1].Expand(projected[^1]!.Y, scale), notes);
+            _positions[^1].Expand(projected[^1]!.Y, scale), _positions[0].Expand(projected[0]!.Y, scale), notes);
         failure = "";
         return true;
     }
@@ -157,17 +155,13 @@ public sealed class MovingReducedBasis
         return (lower / _positions.Length, upper / _positions.Length);
     }
 
-    /// <summary>One Arnoldi step on each growing position: S by FFT (two positions a complex transform), then A^-1 by multigrid CG.</summary>
+    /// <summary>One Arnoldi step on each growing position: S by FFT, then A^-1 by multigrid CG.</summary>
     private bool Grow(List<Position> growing, out string failure)
     {
-        for (int i = 0; i < growing.Count; i += 2)
+        foreach (var position in growing)
         {
-            var first = growing[i].V[^1];
-            var second = i + 1 < growing.Count ? growing[i + 1].V[^1] : null;
-            for (int u = 0; u < _packed.Length; u++) _packed[u] = new Complex(first[u], second?[u] ?? 0);
-            _reaction.ApplyDxR(_packed, _applied);                                 // S is real: S(x + j y) = S x + j S y
-            if (!growing[i].Extend(_applied.Select(z => z.Real).ToArray(), _criterion, out failure)) return false;
-            if (second is not null && !growing[i + 1].Extend(_applied.Select(z => z.Imaginary).ToArray(), _criterion, out failure)) return false;
+            _reaction.ApplyDxR(position.V[^1], _applied);
+            if (!position.Extend(_applied, _criterion, out failure)) return false;
         }
         failure = "";
         return true;
