@@ -30,8 +30,9 @@ namespace SlotOpt.Design;
 /// 1/(1 + j omega G k_i), so |u|_A &lt;= |u0|_A (the eddy currents' field opposes the applied field, Lenz). Moving: (A - v G Dx R) u = -s with
 /// Dx R skew-symmetric, so (I - c K) with K skew has singular values &gt;= 1 and again |u|_A &lt;= |u0|_A. Hence an option the screen passed
 /// within a loss or drag limit stays within it, and the screen's temperature (from its loss) is an upper bound.</para>
-/// Reuse: the screen's sheet model, one <see cref="ReactionOperator"/> per geometry, and for moving poles one <see cref="MovingReducedBasis"/>
-/// per geometry serving every thickness and material (bounds first, grown to the converged solve only for the options that need it).
+/// Reuse: the screen's sheet model, one <see cref="ReactionOperator"/> per geometry, and one reduced basis per geometry serving every
+/// thickness and material: <see cref="MovingReducedBasis"/> (bounds first, grown to the converged solve only for the options that need it)
+/// or <see cref="AcReducedBasis"/> (thin sheets with their own field in an AC field; thick plates go to the layered solver one by one).
 /// </summary>
 public static class PlateModelRanking
 {
@@ -198,6 +199,7 @@ public static class PlateModelRanking
         if (!groups.Any(x => x.Needed)) return;
         var model = solved.Peak!.Model;
         MovingReducedBasis? basis = kept.Basis;
+        AcReducedBasis? acBasis = null;
         ReactionOperator? reaction = basis?.Reaction;
         foreach (var group in groups.Where(x => x.Needed))
         {
@@ -212,9 +214,14 @@ public static class PlateModelRanking
                     var coupled = basis.Solve(group.Sheet, moving.SpeedMPerS, withLift: false);
                     group.Solved = (ModelOf(group.Choice, moving: true), coupled.MeanLossW);
                     continue;
+                case PlateExcitation.AcField field when group.Choice.Kind == SheetModelKind.ThinSheetReaction:
+                    // one reduced basis of the geometry serves every thickness and material (the same equations as ReactionSolver.SolveAc, to the same criterion)
+                    reaction ??= ReactionOperator.Build(model);
+                    acBasis ??= AcReducedBasis.Start(reaction, field.Source);
+                    group.Solved = (ModelOf(group.Choice, moving: false), acBasis.Solve(group.Sheet).LossW);
+                    continue;
                 case PlateExcitation.AcField field:
-                    if (group.Choice.Kind == SheetModelKind.ThinSheetReaction) reaction ??= ReactionOperator.Build(model);
-                    solution = PlateModels.SolveAc(model, field.Source, group.Sheet, reaction: reaction);
+                    solution = PlateModels.SolveAc(model, field.Source, group.Sheet);
                     break;
                 default:
                     throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");

@@ -27,7 +27,7 @@ public sealed class MovingReducedBasis
     private readonly ReactionOperator _reaction;
     private readonly SheetModel _model;
     private readonly ConvergenceCriterion _criterion;
-    private readonly Position[] _positions;
+    private readonly ArnoldiPosition[] _positions;
     private readonly double[] _applied;
 
     public SheetModel Model => _model;
@@ -38,7 +38,7 @@ public sealed class MovingReducedBasis
     /// <summary>Basis vectors built so far, summed over the positions (the work done: one S application and one A solve each).</summary>
     public int Steps => _positions.Sum(p => p.V.Count - 1);
 
-    private MovingReducedBasis(ReactionOperator reaction, IMovingSheetSource source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion criterion, Position[] positions)
+    private MovingReducedBasis(ReactionOperator reaction, IMovingSheetSource source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion criterion, ArnoldiPosition[] positions)
     {
         _reaction = reaction;
         _model = reaction.Model;
@@ -57,7 +57,7 @@ public sealed class MovingReducedBasis
         var model = reaction.Model;
         var l = model.Lattice;
         var node = new double[l.NodeCount];
-        var positions = new Position[offsetsXM.Count];
+        var positions = new ArnoldiPosition[offsetsXM.Count];
         for (int k = 0; k < offsetsXM.Count; k++)
         {
             source.IntegrateRate(l, offsetsXM[k], node);
@@ -65,7 +65,7 @@ public sealed class MovingReducedBasis
             var u0 = new double[model.Unknowns];
             if (!model.TrySolve(rhs, u0, criterion, out var report))
                 throw new NumericalFailureException($"at offset {offsetsXM[k]} m, resistance-limited start: {report.Reason} (relative residual {report.RelativeResidual:E2})");
-            positions[k] = new Position(model, u0, source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]));
+            positions[k] = new ArnoldiPosition(model, u0, source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]));
         }
         return new MovingReducedBasis(reaction, source, offsetsXM, criterion, positions);
     }
@@ -80,10 +80,10 @@ public sealed class MovingReducedBasis
         solution = null;
         if (!(speedMPerS > 0) || !double.IsFinite(speedMPerS)) throw new InputException($"the speed must be positive (got {speedMPerS} m/s)");
         double g = conductor.SheetConductanceS, c = speedMPerS * g, scale = speedMPerS / Source.SpeedMPerS;   // s, u0 and y scale with v
-        var projected = new Projection?[_positions.Length];
+        var projected = new RealProjection?[_positions.Length];
         while (true)
         {
-            var growing = new List<Position>();
+            var growing = new List<ArnoldiPosition>();
             for (int k = 0; k < _positions.Length; k++)
             {
                 projected[k] = _positions[k].Project(c);
@@ -156,7 +156,7 @@ public sealed class MovingReducedBasis
     }
 
     /// <summary>One Arnoldi step on each growing position: S by FFT, then A^-1 by multigrid CG.</summary>
-    private bool Grow(List<Position> growing, out string failure)
+    private bool Grow(List<ArnoldiPosition> growing, out string failure)
     {
         foreach (var position in growing)
         {
@@ -171,7 +171,7 @@ public sealed class MovingReducedBasis
     /// Integral of dBz/dz over each unknown's basis (Wb/m), as <see cref="ReactionSolver"/> takes it for the lift: a plane field b gives
     /// dBz/dz = |k| Bz, whose integral over basis m is (2/mu0)(R b)_m; a normal gradient is summed per unknown.
     /// </summary>
-    private static double[] LiftGradient(ReactionOperator reaction, IMovingSheetSource source, double offsetXM)
+    internal static double[] LiftGradient(ReactionOperator reaction, IMovingSheetSource source, double offsetXM)
     {
         var model = reaction.Model;
         var node = new double[model.Lattice.NodeCount];
@@ -186,125 +186,5 @@ public sealed class MovingReducedBasis
         for (int i = 0; i < map.Length; i++)
             if (map[i] >= 0) perUnknown[map[i]] += node[i];
         return perUnknown;
-    }
-
-    private sealed record Projection(Vector<double> Y, double RelativeError);
-
-    /// <summary>One travel position: the A-orthonormal basis V (with A V kept for the inner products), the Hessenberg matrix H of M in it, |u0|_A.</summary>
-    private sealed class Position
-    {
-        private readonly SheetModel _model;
-        private readonly List<double[]> _av = [];
-        private readonly List<double[]> _h = [];          // column j: h(0..j+1, j)
-        private double[]? _liftGradient;
-        private bool _exhausted;
-
-        /// <summary>The Krylov space is invariant (or u0 = 0): the projection is exact and the basis does not grow.</summary>
-        public bool Exhausted => _exhausted;
-
-        public List<double[]> V { get; } = [];
-        public double Beta { get; }
-        public double EdgeLossPerSiemens { get; }
-
-        public Position(SheetModel model, double[] u0, double edgeLossPerSiemens)
-        {
-            _model = model;
-            EdgeLossPerSiemens = edgeLossPerSiemens;
-            var au0 = Multiply(u0);
-            Beta = Math.Sqrt(Dot(u0, au0));                                          // |u0|_A, the resistance-limited loss per siemens is Beta^2
-            if (Beta == 0) { _exhausted = true; V.Add(u0); _av.Add(au0); return; }
-            Add(u0.Select(x => x / Beta).ToArray(), au0.Select(x => x / Beta).ToArray());
-        }
-
-        /// <summary>Takes w = S v_last, solves A z = w, A-orthogonalises z against V twice (classical Gram-Schmidt, reorthogonalised) and appends it.</summary>
-        public bool Extend(double[] sv, ConvergenceCriterion criterion, out string failure)
-        {
-            var z = new double[sv.Length];
-            if (!_model.TrySolve(sv, z, criterion, out var report))
-            {
-                failure = $"reduced basis step: {report.Reason} (relative residual {report.RelativeResidual:E2})";
-                return false;
-            }
-            double before = Math.Sqrt(Math.Max(Dot(z, sv), 0));                     // |z|_A before orthogonalisation (A z = S v)
-            var column = new double[V.Count + 1];
-            for (int pass = 0; pass < 2; pass++)
-                for (int i = 0; i < V.Count; i++)
-                {
-                    double h = Dot(z, _av[i]);                                        // <z, v_i>_A = z^T A v_i
-                    column[i] += h;
-                    var v = V[i];
-                    for (int u = 0; u < z.Length; u++) z[u] -= h * v[u];
-                }
-            var az = Multiply(z);
-            double norm = Math.Sqrt(Math.Max(Dot(z, az), 0));
-            column[V.Count] = norm;
-            _h.Add(column);
-            // an invariant subspace (the new direction is rounding against the step's size): the projection is exact
-            if (norm <= 1e-13 * before) { column[V.Count] = 0; _exhausted = true; failure = ""; return true; }
-            Add(z.Select(x => x / norm).ToArray(), az.Select(x => x / norm).ToArray());
-            failure = "";
-            return true;
-        }
-
-        /// <summary>y solving (I - c H_m) y = e1 (u = Beta V y) and its relative A-norm error bound |c h(m+1,m) y_m| / |y|.</summary>
-        public Projection Project(double c)
-        {
-            int m = _h.Count;
-            if (m == 0)
-            {
-                var y0 = Vector<double>.Build.Dense(1, 1.0);
-                return new Projection(y0, _exhausted ? 0 : double.PositiveInfinity);
-            }
-            var h = Matrix<double>.Build.Dense(m, m, (i, j) => (i == j ? 1 : 0) - (i < _h[j].Length ? c * _h[j][i] : 0));
-            var e1 = Vector<double>.Build.Dense(m);
-            e1[0] = 1;
-            var y = h.Solve(e1);
-            double error = Math.Abs(c * _h[m - 1][m] * y[m - 1]) / y.L2Norm();   // zero once the space is invariant
-            if (!double.IsFinite(error)) error = double.PositiveInfinity;
-            return new Projection(y, error);
-        }
-
-        /// <summary>h(j+2, j+1) (1-based): the norm of the j-th step's new direction; 0 where the space was exhausted before it.</summary>
-        public double Subdiagonal(int j) => j < _h.Count ? _h[j][j + 1] : 0;
-
-        /// <summary>(V^T g) for the first m basis vectors: the lift's projection (g, the lift gradient, computed the first time it is asked for).</summary>
-        public Vector<double> LiftProjection(ReactionOperator reaction, IMovingSheetSource source, double offsetXM, int m)
-        {
-            _liftGradient ??= LiftGradient(reaction, source, offsetXM);
-            return Vector<double>.Build.Dense(m, i => Dot(V[i], _liftGradient));
-        }
-
-        /// <summary>u = scale Beta V y on the unknowns.</summary>
-        public double[] Expand(Vector<double> y, double scale)
-        {
-            var u = new double[_model.Unknowns];
-            for (int i = 0; i < y.Count; i++)
-            {
-                var v = V[i];
-                double f = scale * Beta * y[i];
-                for (int k = 0; k < u.Length; k++) u[k] += f * v[k];
-            }
-            return u;
-        }
-
-        private void Add(double[] v, double[] av)
-        {
-            V.Add(v);
-            _av.Add(av);
-        }
-
-        private double[] Multiply(double[] x)
-        {
-            var y = new double[x.Length];
-            _model.Multigrid.Operator.Multiply(x, y);
-            return y;
-        }
-
-        private static double Dot(double[] a, double[] b)
-        {
-            double s = 0;
-            for (int i = 0; i < a.Length; i++) s += a[i] * b[i];
-            return s;
-        }
     }
 }
