@@ -1,6 +1,7 @@
 using System.Globalization;
 using SlotOpt.Design.Limits;
 using SlotOpt.Materials;
+using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -21,7 +22,9 @@ public static class PlateOptions
     public sealed record SolvedGeometry(SlotChoice? Slots, SlotPattern? Pattern, PlateGeometry? Geometry, double LossPerSiemensW, UnitConductanceSolution? Peak, int Iterations, int Unknowns, RuleBreak? Failure,
         double[]? UnitCellLossW = null);
 
-    public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null)
+    /// <param name="processCapped">whether the problem caps the number of distinct processes (the ranking's dominance pruning then compares within one process)</param>
+    public static IReadOnlyList<EvaluatedOption> Evaluate(PlatePart part, MaterialLibrary library, ManufacturingSettings shop, IProgress<int>? solved = null, EvaluationLimits? limits = null,
+        bool processCapped = true)
     {
         limits = (limits ?? EvaluationLimits.Default).Started(out var ownDeadline);
         using var _ = ownDeadline;
@@ -50,18 +53,19 @@ public static class PlateOptions
         });
         // the first failure in geometry order, rethrown as itself (not wrapped), so the message and exit code are the same on every run
         if (failures.FirstOrDefault(f => f is not null) is { } first) System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(first).Throw();
-        var options = new List<EvaluatedOption>();
+        // screen every option, then give each that can be chosen the number of the model its validity figures call for (PlateModelRanking)
+        var screened = new List<EvaluatedOption>[geometries.Count];
         for (var g = 0; g < geometries.Count; g++)
         {
-            var solvedGeometry = solvedGeometries[g];
             var processes = geometries[g] is null ? part.Processes : part.SlotFamilies.First(f => Belongs(f, geometries[g]!)).Processes;
+            screened[g] = [];
             foreach (var thickness in part.ThicknessesM)
             foreach (var materialName in part.Materials)
             foreach (var processName in processes)
-                options.Add(Scale(part, solvedGeometry, thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop,
+                screened[g].Add(Scale(part, solvedGeometries[g], thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop,
                     heat[g].GetValueOrDefault((thickness, materialName))));
         }
-        return options;
+        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null, processCapped);
     }
 
     /// <summary>With [parts.thermal]: the temperature verdict of every thickness and material of one solved geometry (the process does not heat the plate).</summary>
@@ -175,13 +179,18 @@ public static class PlateOptions
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits, Screen(part, solved)) : null;
-        return Scale(part, solved, choice.ThicknessM, material, shop.Processes[choice.Process], shop, heat);
+        var screened = Scale(part, solved, choice.ThicknessM, material, shop.Processes[choice.Process], shop, heat);
+        var verdicts = heat is null ? new Dictionary<(double, string), TemperatureBracket.Outcome>() : new() { [(choice.ThicknessM, choice.Material)] = heat };
+        return PlateModelRanking.Rank(part, [solved], [[screened]], library, shop, [verdicts], limits, mayPrune: false, processCapped: true)[0];
     }
 
     /// <summary>Scales a unit-conductance solve to one thickness and material and prices it with one process.</summary>
     /// <param name="heat">With [parts.thermal]: the option's temperature and whether it breaks the part's limit.</param>
+    /// <param name="model">The model behind the option's number (<see cref="PlateModelRanking"/>); the resistance-limited screen when null.</param>
+    /// <param name="modelLossW">The loss (W) that model gave, when it is not the screen (moving poles: the drag is loss / v); the screen's own scaled loss otherwise.
+    /// The drag and loss limits are checked on the number the option carries.</param>
     public static EvaluatedOption Scale(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, CuttingProcess process, ManufacturingSettings shop,
-        TemperatureBracket.Outcome? heat = null)
+        TemperatureBracket.Outcome? heat = null, OptionModel? model = null, double? modelLossW = null)
     {
         var ci = CultureInfo.InvariantCulture;
         var slots = solved.Slots;
@@ -215,7 +224,7 @@ public static class PlateOptions
 
         var sigma = material.ConductivityAt(part.TemperatureK);
         var sheet = new ConductingSheet(sigma, thicknessM, material.RelativePermeability);
-        var lossW = solved.LossPerSiemensW * sheet.SheetConductanceS;
+        var lossW = modelLossW ?? solved.LossPerSiemensW * sheet.SheetConductanceS;
         var moving = part.Excitation as PlateExcitation.Moving;
         var acField = part.Excitation as PlateExcitation.AcField;
         double? drag = moving is null ? null : lossW / moving.SpeedMPerS;
@@ -223,7 +232,8 @@ public static class PlateOptions
         var validity = moving is not null
             ? Validity.ForMoving(sheet, moving.SpeedMPerS)
             : Validity.ForAc(sheet, acField!.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
-        var flags = validity.Warnings.ToList();
+        // the validity warnings say the resistance-limited numbers are overstated: moot once the option carries another model's
+        var flags = modelLossW is not null ? [] : validity.Warnings.ToList();
         if (material.IsMagnetic) flags.Add($"{material.Name} is magnetic: the thin-plate model assumes a non-magnetic plate, so its loss here is indicative only");
         attributes["reynolds_number"] = validity.ReynoldsNumber.ToString("0.###", ci);
 
@@ -243,7 +253,10 @@ public static class PlateOptions
         if (heat is { Failure: { } why, Breach: null }) flags.Add($"temperature not computed: {why}");
         if (rejection is null && heat?.Breach is { } hot) rejection = new(RuleKind.HotterThanLimit, hot);
         var temperature = heat?.Temperature is { } t ? OptionTemperature.Of(t, heat.ResistivityK, heat.Method) : null;
-        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection, temperature);
+        return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection, temperature)
+        {
+            Model = model ?? new OptionModel(SheetModelKind.ResistanceLimited, "the resistance-limited screen"),
+        };
     }
 
     public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,

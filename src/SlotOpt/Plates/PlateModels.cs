@@ -2,6 +2,7 @@ using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.OwnField;
+using SlotOpt.Plates.ReducedBasis;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Plates.Sources;
 using SlotOpt.Plates.Thick;
@@ -48,10 +49,15 @@ public static class PlateModels
     }
 
     /// <param name="sourceLengthM">the source's length scale for the moving skin depth: its height above the sheet, or the pole size</param>
+    /// <param name="basis">a reduced basis of this model, source geometry and offsets (<see cref="MovingReducedBasis"/>): the coupled solve then reuses it across
+    /// conductors and speeds instead of a GMRES solve per conductor (the same equations, to the same criterion)</param>
     public static PlateSolution SolveMoving(SheetModel model, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM, double sourceLengthM,
-        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null,
+        MovingReducedBasis? basis = null)
     {
         CheckOperator(model, reaction);
+        if (basis is not null && (!ReferenceEquals(basis.Model, model) || !basis.OffsetsXM.SequenceEqual(offsetsXM)))
+            throw new ArgumentException("the reduced basis was built for another sheet model or other offsets", nameof(basis));
         if (forcedKind == SheetModelKind.BeyondThinSheet) throw new InputException("the layered thick-plate model is for AC fields only: there is no layered moving solver (use auto, resistance-limited or own-field)");
         var choice = ReactionModelChoice.Forced(ReactionModelChoice.ForMoving(conductor, source.SpeedMPerS, sourceLengthM, accuracy), forcedKind);
         var notes = new List<string> { choice.Reason };
@@ -65,7 +71,7 @@ public static class PlateModels
             var drag = loss.Select(p => p / v).ToArray();                          // F = P / v
             return new PlateSolution(choice, offsetsXM.ToArray(), loss, drag, drag.Select(d => d * v / w).ToArray(), loss, notes, sweep.IterationsPerOffset.Sum(), sweep.Peak.RelativeResidual, sweep.Peak);
         }
-        var s = ReactionSolver.SolveMoving(reaction ?? ReactionOperator.Build(model), source, conductor, offsetsXM, criterion);
+        var s = basis is not null ? basis.Solve(conductor, source.SpeedMPerS) : ReactionSolver.SolveMoving(reaction ?? ReactionOperator.Build(model), source, conductor, offsetsXM, criterion);
         notes.AddRange(s.Notes);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
         return new PlateSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes, s.Iterations.Sum(), s.MaxRelativeResidual, null);

@@ -10,14 +10,14 @@ namespace SlotOpt.Reports;
 /// candidates.csv: every evaluated option of every part, one row each (RFC 4180 quoting), with its
 /// attributes (the union over all parts; empty where an option has none), its loss by origin, drag,
 /// build cost, owning cost (build cost + value per watt x loss), whether it passed the rules, the
-/// rule it broke, whether the run chose it, and its validity flags; with [parts.thermal] its temperature and how it was found.
+/// rule it broke, whether the run chose it, its validity flags, and (plates) the model that gave its loss (`plate --model`'s names; empty for cores); with [parts.thermal] its temperature and how it was found.
 /// </summary>
 public static class CandidatesCsv
 {
     public static readonly IReadOnlyList<string> LeadingColumns = ["part", "id", "description"];
 
     public static readonly IReadOnlyList<string> TrailingColumns =
-        ["loss_w", "hysteresis_w", "classical_w", "excess_w", "plate_eddy_w", "drag_power_w", "drag_n", "build_cost", "owning_cost", "feasible", "rejection", "chosen", "flags"];
+        ["loss_w", "hysteresis_w", "classical_w", "excess_w", "plate_eddy_w", "drag_power_w", "drag_n", "build_cost", "owning_cost", "feasible", "rejection", "chosen", "flags", "model"];
 
     /// <summary>Added after the trailing columns when a part has [parts.thermal]: the option's temperature as the screen found it.</summary>
     public static readonly IReadOnlyList<string> TemperatureColumns = ["temperature_rise_max_k", "temperature_rise_mean_k", "hottest_c", "temperature_method"];
@@ -39,7 +39,7 @@ public static class CandidatesCsv
                 .Concat([
                     N(o.Loss.TotalW), N(o.Loss.HysteresisW), N(o.Loss.ClassicalW), N(o.Loss.ExcessW), N(o.Loss.PlateEddyW), N(o.Loss.DragPowerW),
                     o.DragN is { } d ? N(d) : "", N(o.BuildCost), N(o.BuildCost + r.Problem.ValuePerWattOf(o.PartName) * o.Loss.TotalW),
-                    o.IsFeasible ? "yes" : "no", o.Rejection?.Message ?? "", chosenIds.Contains(o.Id) ? "yes" : "no", string.Join("; ", o.Flags),
+                    o.IsFeasible ? "yes" : "no", o.Rejection?.Message ?? "", chosenIds.Contains(o.Id) ? "yes" : "no", string.Join("; ", o.Flags), o.Model?.Name ?? "",
                 ]).Concat(!hot ? [] : o.Temperature is { } t
                     ? [N(t.MaxRiseK), N(t.MeanRiseK), N(t.HottestK - 273.15), t.Method switch { TemperatureMethod.UpperBound => "upper_bound", TemperatureMethod.LowerBound => "lower_bound", _ => "coupled" }]
                     : ["", "", "", ""]));

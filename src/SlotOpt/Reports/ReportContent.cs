@@ -179,7 +179,10 @@ public static class ReportContent
             : new Table(["part", "", "design", "loss (W)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true]));
         if (r.Confirmations.Count > 0)
         {
-            b.Add(new Paragraph("The search screens plates with the resistance-limited model (fast: one solve per slot geometry). Each chosen plate is then solved again with the model its validity figures call for:"));
+            var byModel = string.Join(", ", r.Parts.SelectMany(p => p.Options).Where(o => o.Model is not null).GroupBy(o => o.Model!.Name).OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Key} {g.Count()}"));
+            b.Add(new Paragraph("Every plate option that could be chosen or sit on the trade-off curve was ranked with the model its validity figures call for (resistance-limited where the plate's own field is negligible, own-field or thick where it is not) before the selection saw it; "
+                + "the resistance-limited screen's number stands only where it is that model's or the option provably can be neither chosen nor on the curve (candidates.csv says which model gave each number). "
+                + $"Options by the model that gave their number: {byModel}. The chosen plates, with their lift and grid error:"));
             b.Add(new BulletList(r.Confirmations.Select(ConfirmationLine).ToList()));
         }
         if (r.Heat.Count > 0)
@@ -201,7 +204,7 @@ public static class ReportContent
 
     /// <summary>One chosen plate as confirmed: which model ran, and its loss, drag and lift against the screen.</summary>
     private static string ConfirmationLine(PlateConfirmation c) =>
-        $"{c.PartName}: {c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}). {c.Reason}";
+        $"{c.PartName}: {c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? F($"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
 
     private static string Drag(double? dragN) => dragN is { } d ? N(d) : "";
 

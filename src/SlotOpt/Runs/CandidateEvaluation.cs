@@ -25,7 +25,7 @@ public static class CandidateEvaluation
             IReadOnlyList<EvaluatedOption> options = part switch
             {
                 CorePart core => CoreOptions.Evaluate(core, problem.Library, problem.Shop),
-                PlatePart plate => PlateOptions.Evaluate(plate, problem.Library, problem.Shop, geometrySolved, limits),
+                PlatePart plate => PlateOptions.Evaluate(plate, problem.Library, problem.Shop, geometrySolved, limits, processCapped: problem.Limits.MaxDistinctProcesses is not null),
                 _ => throw new ArgumentOutOfRangeException(nameof(problem), part.GetType().Name, "unknown part kind"),
             };
             if (part is PlatePart p) solves += PlateOptions.SlotChoices(p).Count();

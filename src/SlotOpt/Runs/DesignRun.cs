@@ -54,26 +54,34 @@ public static class DesignRun
         }
         var confirmations = new List<PlateConfirmation>();
         if (chosen is not null)
-            // screen with the fast resistance-limited model, confirm the chosen plates with the model their validity calls for
+            // the chosen plates with the model their validity calls for (the ranking's number), their lift, grid error and speed sweep
             foreach (var option in chosen)
                 if (problem.Parts.First(p => p.Name == option.PartName) is PlatePart plate && option.Choice is PlateChoice choice)
                     confirmations.Add(deadline.Run($"the confirmation of part {plate.Name}", () => PlateConfirmation.Confirm(plate, choice, problem.Library, limits)));
         var figures = deadline.Run("the report's figures", () => RunFigures.Compute(problem, parts, chosen, heat, limits));
-        return new RunResult(problem, parts, outcome, chosen, Baselines(problem, parts), evaluated.SheetSolves, evaluated.Seconds, confirmations, figures, heat);
+        var baselines = deadline.Run("the baselines", () => Baselines(problem, parts, limits));
+        return new RunResult(problem, parts, outcome, chosen, baselines, evaluated.SheetSolves, evaluated.Seconds, confirmations, figures, heat);
     }
 
     /// <summary>
     /// The reference (current design, else baseline), then "thickest gauge, solid plates" and "thinnest gauge,
     /// solid plates": per core the thickest (thinnest) grade listed, per plate solid at its thickest
     /// (thinnest) thickness in the first material and process. They may break limits; the report says so.
+    /// Each carries the number of the model its validity calls for, as the chosen design does: a plate the ranking left with the
+    /// screen's number (it could not be chosen) is evaluated again on its own.
     /// </summary>
-    private static IReadOnlyList<Baseline> Baselines(Problem problem, IReadOnlyList<PartEvaluation> parts)
+    private static IReadOnlyList<Baseline> Baselines(Problem problem, IReadOnlyList<PartEvaluation> parts, EvaluationLimits limits)
     {
         var reference = new Baseline(parts.Any(p => p.ReferenceIsCurrent) ? "current design" : "baseline (solid plates, first grade)", parts.Select(p => p.Reference).ToList());
-        var thickest = new Baseline("thickest gauge, solid plates", parts.Select(p => Extreme(problem, p, thickest: true)).ToList());
-        var thinnest = new Baseline("thinnest gauge, solid plates", parts.Select(p => Extreme(problem, p, thickest: false)).ToList());
+        var thickest = new Baseline("thickest gauge, solid plates", parts.Select(p => Modelled(problem, p, Extreme(problem, p, thickest: true), limits)).ToList());
+        var thinnest = new Baseline("thinnest gauge, solid plates", parts.Select(p => Modelled(problem, p, Extreme(problem, p, thickest: false), limits)).ToList());
         return [reference, thickest, thinnest];
     }
+
+    private static EvaluatedOption Modelled(Problem problem, PartEvaluation evaluation, EvaluatedOption option, EvaluationLimits limits) =>
+        evaluation.Part is PlatePart plate && option.Model is { IsScreenOnly: true } && option.Choice is PlateChoice choice
+            ? PlateOptions.EvaluateOne(plate, choice, problem.Library, problem.Shop, limits)
+            : option;
 
     private static EvaluatedOption Extreme(Problem problem, PartEvaluation evaluation, bool thickest)
     {

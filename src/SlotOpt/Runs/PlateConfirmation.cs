@@ -2,16 +2,18 @@ using SlotOpt.Design;
 using SlotOpt.Materials;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
+using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.OwnField;
+using SlotOpt.Plates.ReducedBasis;
 using SlotOpt.Plates.Sources;
 
 namespace SlotOpt.Runs;
 
 /// <summary>
-/// A chosen plate design confirmed with the model its validity figures call for: the resistance-limited
-/// screen (one solve per geometry, scaled by sigma t) overstates loss and drag once the plate's own eddy
-/// currents push back on the field, so the finalists are solved again with the thin-sheet reaction field or
-/// the layered thick-plate model (Plates/PlateModels), and the output says which model ran.
+/// A chosen plate design with what the report shows beyond its ranked number: the model its validity figures call for
+/// (the same model, and the same loss and drag, the ranking gave it: <see cref="PlateModelRanking"/>), its lift, its grid error
+/// (Richardson from the solve on cells twice as large, <see cref="DiscretisationError"/>), and under moving poles drag and lift
+/// against speed with the plate's own field. ResistanceLimitedLossW is the screen's number of the same plate.
 /// </summary>
 public sealed record PlateConfirmation(
     string PartName,
@@ -22,7 +24,8 @@ public sealed record PlateConfirmation(
     double? LiftN,
     double ResistanceLimitedLossW,
     IReadOnlyList<string> Notes,
-    IReadOnlyList<SpeedPoint>? SpeedSweep)
+    IReadOnlyList<SpeedPoint>? SpeedSweep,
+    DiscretisationError? GridError = null)
 {
     /// <summary>
     /// Speeds of the sweep, as multiples of the receding-image speed w = 2/(mu0 sigma t): a solid sheet's drag peaks
@@ -33,7 +36,7 @@ public sealed record PlateConfirmation(
 
     /// <summary>Travel positions each sweep speed averages (a window of the run's offsets; the sweep shows the trend, the run's offsets give the figures).</summary>
     public const int SweepPositions = 2;
-    /// <summary>Solves the choice with the model its validity figures call for (accuracy 1 %, ReactionModelChoice).</summary>
+    /// <summary>Solves the choice with the model its validity figures call for (accuracy 1 %, ReactionModelChoice), on the part's grid and on cells twice as large.</summary>
     public static PlateConfirmation Confirm(PlatePart part, PlateChoice choice, MaterialLibrary library, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
@@ -47,25 +50,30 @@ public sealed record PlateConfirmation(
         if (part.Excitation is PlateExcitation.Moving { Source: var source })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
-            var reaction = ReactionOperator.Build(model);
-            solution = PlateModels.SolveMoving(model, source, conductor, offsets, source.LoopLengthXM, reaction: reaction);
-            sweep = Sweep(reaction, source, conductor, offsets);
-            if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
+            PlateSolution SolveOn(SheetModel m, ReactionOperator reaction) =>
+                PlateModels.SolveMoving(m, source, conductor, offsets, source.LoopLengthXM, reaction: reaction, basis: MovingReducedBasis.Start(reaction, source, offsets));
+            var fine = ReactionOperator.Build(model);
+            solution = PlateModels.WithGridError(SolveOn(model, fine), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse)));
+            sweep = Sweep(fine, source, conductor, offsets);
+            if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, fine, source, conductor, offsets, solution);
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
-            solution = PlateModels.SolveAc(model, field.Source, conductor);
+            solution = PlateModels.WithGridError(PlateModels.SolveAc(model, field.Source, conductor), model, m => PlateModels.SolveAc(m, field.Source, conductor));
         }
         else throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
-        return new PlateConfirmation(part.Name, solution.Choice.Kind, solution.Choice.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
-            solution.ResistanceLimitedLossW.Average(), solution.Notes, sweep) { MinimumDrag = minimumDrag };
+        var ranked = PlateModelRanking.ModelOf(solution.Choice, part.Excitation.IsMoving);
+        var notes = solution.Notes.ToList();
+        if (solution.GridError is { IsLarge: true } large) notes.Add(large.Warning);
+        return new PlateConfirmation(part.Name, ranked.Kind, ranked.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
+            solution.ResistanceLimitedLossW.Average(), notes, sweep, solution.GridError) { MinimumDrag = minimumDrag };
     }
 
     /// <summary>With min_drag: the chosen plate's drag at the minimum's speed with the model its validity calls for there.</summary>
     public MinimumDragCheck? MinimumDrag { get; init; }
 
     /// <summary>The chosen design's drag at the minimum's speed with the model its validity calls for there (the screen's resistance-limited drag overstates it once the own field matters).</summary>
-    private static MinimumDragCheck CheckMinimumDrag(MinimumDrag wanted, Plates.Grid.SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
+    private static MinimumDragCheck CheckMinimumDrag(MinimumDrag wanted, SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
         IReadOnlyList<double> offsets, PlateSolution atSourceSpeed)
     {
         var at = wanted.SpeedMPerS == source.SpeedMPerS ? atSourceSpeed
@@ -73,28 +81,33 @@ public sealed record PlateConfirmation(
         return new MinimumDragCheck(wanted.SpeedMPerS, wanted.ForceN, at.MeanDragN!.Value, at.Choice.Kind);
     }
 
-    /// <summary>Drag and lift against speed with the plate's own field, over SweepOverW multiples of w.</summary>
+    /// <summary>
+    /// Drag and lift against speed with the plate's own field, over SweepOverW multiples of w, from one reduced basis of the window's positions
+    /// (<see cref="MovingReducedBasis"/>: every speed is a small projected solve once the basis holds it).
+    /// </summary>
     private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor, IReadOnlyList<double> offsets)
     {
         var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow, "Maxwell's theory of eddy currents in thin conducting sheets...", Am. J. Phys. 60(8):693-711, 1992)
-        var window = offsets.Take(SweepPositions).ToList();
+        var basis = MovingReducedBasis.Start(reaction, source, offsets.Take(SweepPositions).ToList());
         var points = new List<SpeedPoint>();
         foreach (var m in SweepOverW)
         {
-            var moving = source.AtSpeed(m * w);
             // the sweep illustrates the trend: it ends at the first speed the coupled solve does not converge at, never with a guessed number
-            if (!ReactionSolver.TrySolveMoving(reaction, moving, conductor, window, null, out var s, out _)) break;
+            if (!basis.TrySolve(conductor, m * w, out var s, out _)) break;
             points.Add(new SpeedPoint(m * w, s!.MeanDragN, s.MeanLiftN, s.ResistanceLimitedDragN.Average()));
         }
         return points;
     }
 
+    /// <summary>The model's name as `plate --model` and every output spell it.</summary>
+    public string ModelName => ReactionModelChoice.Name(Model);
+
     /// <summary>The model in words for the console and the report.</summary>
     public string ModelWords => Model switch
     {
         SheetModelKind.ResistanceLimited => "resistance-limited (the plate's own field is negligible)",
-        SheetModelKind.ThinSheetReaction => "thin sheet with its own field",
-        _ => "layered thick plate",
+        SheetModelKind.ThinSheetReaction => "own-field (thin sheet with its own field)",
+        _ => "thick (layered thick plate)",
     };
 }
 

@@ -75,7 +75,9 @@ public class PlateConfirmationTests
     // the thin-sheet reaction model runs (ReactionModelChoice: Rm > sqrt(0.01)), and by Reitz 1970 / Saslow 1992
     // (Reitz, J. Appl. Phys. 41:2067, 1970, and Saslow, Am. J. Phys. 60(8):693-711, 1992, re-derived for a thin sheet:
     // drag/drag_low = 1/(1 + Rm^2) for a line source, (2/Rm)(1 - 1/sqrt(1+Rm^2)) axisymmetric) the
-    // drag falls by 1-2 %: confirmed drag within 5 % below the screen, and lift = drag Rm > 0.
+    // drag falls by 1-2 %: confirmed drag within 5 % below the screen, and lift = drag Rm > 0. Issue 12: the rail was ranked with
+    // that model already, so the chosen option's own loss and drag are the confirmed ones (the same converged solve: 1e-6 relative
+    // allows for the reduced basis stopping at 1e-8 in the ranking and again in the confirmation).
     [Fact]
     public void Conveyor_rail_is_confirmed_with_its_own_field()
     {
@@ -83,9 +85,11 @@ public class PlateConfirmationTests
         var rail = result.Chosen![0];
         var confirmed = result.Confirmation(rail.PartName)!;
         Assert.Equal(SheetModelKind.ThinSheetReaction, confirmed.Model);
-        Assert.InRange(confirmed.DragN!.Value / rail.DragN!.Value, 0.95, 1.0);
+        Assert.Equal("own-field", rail.Model!.Name);
+        Assert.InRange(confirmed.LossW / confirmed.ResistanceLimitedLossW, 0.95, 1.0);
         Assert.True(confirmed.LiftN > 0);
-        Assert.Equal(rail.Loss.PlateEddyW, confirmed.ResistanceLimitedLossW, rail.Loss.PlateEddyW * 1e-6);
+        Assert.Equal(rail.Loss.TotalW, confirmed.LossW, rail.Loss.TotalW * 1e-6);
+        Assert.Equal(rail.DragN!.Value, confirmed.DragN!.Value, rail.DragN.Value * 1e-6);
     }
 
     // A solid aluminium carrier plate at 200 Hz has Rm = mu0 sigma t omega L / 2 ~ 5: the plate screens the field, so the

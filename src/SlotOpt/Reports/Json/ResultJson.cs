@@ -45,14 +45,16 @@ public sealed record ResultJson(
         double BuildCost,
         double ValuePerWatt,
         IReadOnlyList<string> Flags,
+        string? Model,
+        string? ModelReason,
         ReferenceDesign Reference,
         Confirmation? Confirmed,
         int Options,
         IReadOnlyDictionary<string, int> Rejected,
         Temperature? Temperature);
 
-    /// <summary>The part's current design, or its baseline; <see cref="Breaks"/> is the rule or limit it breaks.</summary>
-    public sealed record ReferenceDesign(string Kind, string Design, double LossW, double? DragN, double BuildCost, string? Breaks, Temperature? Temperature);
+    /// <summary>The part's current design, or its baseline; <see cref="Breaks"/> is the rule or limit it breaks; Model the plate model that gave its loss.</summary>
+    public sealed record ReferenceDesign(string Kind, string Design, double LossW, double? DragN, double BuildCost, string? Breaks, Temperature? Temperature, string? Model);
 
     /// <summary>
     /// A hot plate's coupled temperature (<see cref="PlateHeat"/>): rises above ambient, the hottest point (K, and x, y in m),
@@ -81,8 +83,8 @@ public sealed record ResultJson(
         }
     }
 
-    /// <summary>A chosen plate solved again with the model its validity calls for.</summary>
-    public sealed record Confirmation(SheetModelKind Model, string Reason, double LossW, double? DragN, double? LiftN, double ResistanceLimitedLossW);
+    /// <summary>A chosen plate solved with the model its validity calls for (its name as `plate --model` spells it), with its lift and its grid-error estimate (relative, Richardson against cells twice as large).</summary>
+    public sealed record Confirmation(string Model, string Reason, double LossW, double? DragN, double? LiftN, double ResistanceLimitedLossW, double? DiscretisationError);
 
     public sealed record BaselineTotals(string Name, double Cost, double LossW, double OwningCost, IReadOnlyList<string> Breaks);
 
@@ -116,9 +118,10 @@ public sealed record ResultJson(
     private static ChosenPart Chosen(RunResult r, EvaluatedOption o, PartEvaluation part) => new(
         o.PartName, o.Description, o.Id, o.Attributes,
         o.Loss.TotalW, o.Loss.HysteresisW, o.Loss.ClassicalW, o.Loss.ExcessW, o.Loss.PlateEddyW, o.DragN, o.BuildCost, r.Problem.ValuePerWattOf(o.PartName), o.Flags,
+        o.Model?.Name, o.Model?.Reason,
         new ReferenceDesign(part.ReferenceIsCurrent ? "current" : "baseline", part.Reference.Description, part.Reference.Loss.TotalW, part.Reference.DragN, part.Reference.BuildCost, part.Reference.Rejection?.Message,
-            Temperature.Of(r.HeatOf(o.PartName, DesignRole.Reference))),
-        r.Confirmation(o.PartName) is { } c ? new Confirmation(c.Model, c.Reason, c.LossW, c.DragN, c.LiftN, c.ResistanceLimitedLossW) : null,
+            Temperature.Of(r.HeatOf(o.PartName, DesignRole.Reference)), part.Reference.Model?.Name),
+        r.Confirmation(o.PartName) is { } c ? new Confirmation(c.ModelName, c.Reason, c.LossW, c.DragN, c.LiftN, c.ResistanceLimitedLossW, c.GridError?.Relative) : null,
         part.Options.Count,
         part.RejectionCounts,
         Temperature.Of(r.HeatOf(o.PartName, DesignRole.Chosen)));
