@@ -78,12 +78,11 @@ public static class TradeOffPlot
         var heightPx = PlotStyle.HeightPx + legendPx;
         var figure = PlotStyle.Render(plot, FileStem, "Trade-off: loss against build cost", caption, heightPx: heightPx);
         // each point of the front names its design when pointed at in the HTML page (pixels of the render just made)
-        var chosenDesign = r.Chosen?.Select(o => o.Id).ToList() ?? [];
         var tips = front.Points.Select(p =>
         {
             var px = plot.GetPixel(new Coordinates(p.BuildCost, Y(p.LossW)));
             var designs = p.CandidateIds.Select(id => r.Parts.Count == 1 ? WorkshopWords.Of(r.Option(id)) : $"{r.Option(id).PartName}: {WorkshopWords.Of(r.Option(id))}");
-            var text = $"{(p.CandidateIds.SequenceEqual(chosenDesign) ? "chosen design: " : "")}build cost {Numbers.Money(p.BuildCost, cur)}, loss {Numbers.Watts(p.LossW)}, owning cost {Numbers.Money(ReportContent.FrontOwningCost(r, p), cur)}\n"
+            var text = $"{(chosenIds is not null && p.CandidateIds.SequenceEqual(chosenIds) ? "chosen design: " : "")}build cost {Numbers.Money(p.BuildCost, cur)}, loss {Numbers.Watts(p.LossW)}, owning cost {Numbers.Money(ReportContent.FrontOwningCost(r, p), cur)}\n"
                 + string.Join("\n", designs);
             return ((double)px.X, (double)px.Y, text);
         }).ToList();
