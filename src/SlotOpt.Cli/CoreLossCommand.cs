@@ -70,13 +70,13 @@ public static class CoreLossCommand
             }
             var o = output;
             var ci = CultureInfo.InvariantCulture;
-            o.WriteLine(string.Create(ci, $"{steel.Grade} ({steel.ThicknessM * 1e3:0.00} mm) at {flux.PeakT:0.###} T peak, {f:0.##} Hz, {(file is null ? "sine" : "waveform " + file)}, {conditions.TemperatureK - 273.15:0.#} degC"));
-            o.WriteLine(string.Create(ci, $"  hysteresis   {loss.HysteresisWPerKg,10:0.0000} W/kg"));
-            o.WriteLine(string.Create(ci, $"  classical    {loss.ClassicalWPerKg,10:0.0000} W/kg   (skin factor {loss.SkinFactor:0.0000}, width factor {loss.WidthFactor:0.0000})"));
-            o.WriteLine(string.Create(ci, $"  excess       {loss.ExcessWPerKg,10:0.0000} W/kg"));
-            o.WriteLine(string.Create(ci, $"  total        {loss.TotalWPerKg,10:0.0000} W/kg   ({loss.TotalWPerM3 / 1e3:0.###} kW/m^3)"));
-            o.WriteLine(string.Create(ci, $"  skin depth   {loss.SkinDepthM * 1e3,10:0.000} mm    (thickness / skin depth {loss.ThicknessOverSkinDepth:0.###})"));
-            o.WriteLine(string.Create(ci, $"  standard limit of {steel.Grade}: {steel.SpecMaxLossWPerKg:0.00} W/kg at {steel.SpecPeakT:0.0} T {steel.SpecFrequencyHz:0} Hz"));
+            o.WriteLine(string.Create(ci, $"{steel.Grade} ({Numbers.Sig(steel.ThicknessM * 1e3)} mm) at {Numbers.Sig(flux.PeakT)} T peak, {Numbers.Sig(f)} Hz, {(file is null ? "sine" : "waveform " + file)}, {Numbers.Celsius(conditions.TemperatureK, "degC")}"));
+            o.WriteLine($"  hysteresis   {Numbers.Sig(loss.HysteresisWPerKg),10} W/kg");
+            o.WriteLine($"  classical    {Numbers.Sig(loss.ClassicalWPerKg),10} W/kg   (skin factor {Numbers.Sig(loss.SkinFactor)}, width factor {Numbers.Sig(loss.WidthFactor)})");
+            o.WriteLine($"  excess       {Numbers.Sig(loss.ExcessWPerKg),10} W/kg");
+            o.WriteLine($"  total        {Numbers.Sig(loss.TotalWPerKg),10} W/kg   ({Numbers.Sig(loss.TotalWPerM3 / 1e3)} kW/m^3)");
+            o.WriteLine($"  skin depth   {Numbers.Sig(loss.SkinDepthM * 1e3),10} mm    (thickness / skin depth {Numbers.Sig(loss.ThicknessOverSkinDepth)})");
+            o.WriteLine($"  standard limit of {steel.Grade}: {Numbers.Sig(steel.SpecMaxLossWPerKg)} W/kg at {Numbers.Sig(steel.SpecPeakT)} T {Numbers.Sig(steel.SpecFrequencyHz)} Hz");
             foreach (var flag in loss.Flags) o.WriteLine($"  warning [{flag.Code}]: {flag.Message}");
             return ExitCodes.Success;
         }));

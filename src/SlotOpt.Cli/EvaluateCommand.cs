@@ -51,11 +51,11 @@ public static class EvaluateCommand
             foreach (var r in rows)
             {
                 output.WriteLine(string.Create(ci, $"  {r.Part.Name} ({(r.IsCurrent ? "current design" : "baseline")}): {r.Option.Description}"));
-                output.WriteLine(string.Create(ci, $"      loss {r.Option.Loss.TotalW,10:0.###} W{(r.Option.DragN is { } d ? $"   drag {d:0.####} N" : "")}   build cost {r.Option.BuildCost,10:0.00} {cur}"));
+                output.WriteLine($"      loss {Numbers.Watts(r.Option.Loss.TotalW),12}{(r.Option.DragN is { } d ? $"   drag {Numbers.Newtons(d)}" : "")}   build cost {Numbers.Money(r.Option.BuildCost, cur),12}");
                 if (r.Option.Rejection is { } broken) output.WriteLine($"      breaks a rule: {broken.Message}");
                 foreach (var flag in r.Option.Flags) output.WriteLine($"      warning: {flag}");
             }
-            output.WriteLine(string.Create(ci, $"  total: loss {totalLoss:0.###} W, build cost {totalCost:0.00} {cur}, owning cost {owning:0.00} {cur} (at {problem.Economics.ValuePerWatt:0.###} {cur}/W)"));
+            output.WriteLine($"  total: loss {Numbers.Watts(totalLoss)}, build cost {Numbers.Money(totalCost, cur)}, owning cost {Numbers.Money(owning, cur)} (at {Numbers.Sig(problem.Economics.ValuePerWatt)} {cur}/W)");
             return ExitCodes.Success;
         }));
         return command;

@@ -69,7 +69,7 @@ public static class PlateCommand
             e.LossW,
             e.MeanDragN,
             e.GridError?.Relative,
-            e.Case.MovingSource is null ? null : e.Case.AveragedOver,
+            e.Case.MovingSource is null && e.Case.Rotation is null ? null : e.Case.AveragedOver,
             e.OffsetsXM,
             e.DragPerOffsetN,
             e.LossPerOffsetW,
@@ -95,7 +95,14 @@ public static class PlateCommand
             heating?.CouplingIterations,
             t is not null && limit is { IsSet: true } ? limit.Breach(t) is not null : null,
             r.Validity.Warnings,
-            r.Notes).Serialize();
+            r.Notes)
+        {
+            TorqueNM = e.TorqueNm,
+            RotationSpeedRpm = e.Case.Rotation is { } rotation ? rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI) : null,
+            ApproachSpeedMPerS = e.Case.Approach?.SpeedMPerS,
+            ApproachGapsM = e.ApproachCurve?.Select(p => p.GapM).ToList(),
+            ApproachForceN = e.ApproachCurve?.Select(p => p.ForceN).ToList(),
+        }.Serialize();
     }
 
     private static string Text(PlateFileEvaluation e)
@@ -105,10 +112,14 @@ public static class PlateCommand
         var s = new StringBuilder();
         s.AppendLine(c, $"plate {e.Case.Path}: sheet conductance {e.Case.Sheet.SheetConductanceS:G4} S");
         s.AppendLine(c, $"  model                {ReactionModelChoice.Name(e.Choice.Kind)}: {e.Choice.Reason}");
-        s.AppendLine(c, $"  loss                 {e.LossW:G4} W{(e.Case.MovingSource is null ? " (time average)" : $" (mean over {e.Case.AveragedOver})")}");
-        if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {drag:G4} N (min {e.DragPerOffsetN.Min():G4}, max {e.DragPerOffsetN.Max():G4})");
+        s.AppendLine(c, $"  loss                 {Numbers.Watts(e.LossW)}{(e.Case.MovingSource is null && e.Case.Rotation is null ? (e.Case.Approach is null ? " (time average)" : "") : $" (mean over {e.Case.AveragedOver})")}");
+        if (e.TorqueNm is { } torque && e.Case.Rotation is { } rotation)
+            s.AppendLine(c, $"  torque               {Numbers.Of(torque, "N m")} at {Numbers.Of(rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI), "rpm")} ({rotation.Source.Words})");
+        if (e.ApproachCurve is { } curve)
+            foreach (var p in curve) s.AppendLine(c, $"  damping force        {Numbers.Newtons(p.ForceN)} at {Numbers.Of(p.GapM * 1e3, "mm")} gap, approaching at {Numbers.Of(e.Case.Approach!.SpeedMPerS, "m/s")}");
+        else if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {Numbers.Newtons(drag)}{(e.Case.Rotation is null ? "" : " along the magnets' path")} (min {Numbers.Newtons(e.DragPerOffsetN.Min())}, max {Numbers.Newtons(e.DragPerOffsetN.Max())})");
         if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {grid.Relative:P2} of loss{(e.MeanDragN is null ? "" : " and drag")} (Richardson, {grid.CellM * 1e3:G3} mm against {grid.CoarseCellM * 1e3:G3} mm cells)");
-        s.AppendLine(c, $"  current density      peak {r.PeakCurrentDensityAPerM2:G4} A/m^2, rms {r.RmsCurrentDensityAPerM2:G4} A/m^2");
+        s.AppendLine(c, $"  current density      peak {Numbers.Sig(r.PeakCurrentDensityAPerM2 / 1e6)} A/mm2, rms {Numbers.Sig(r.RmsCurrentDensityAPerM2 / 1e6)} A/mm2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
         s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");
         PlateTemperatureOutput.AppendText(s, e);

@@ -1,11 +1,16 @@
 using System.Globalization;
 using SlotOpt.Design;
+using SlotOpt.Plates;
+using SlotOpt.Reports;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 
 namespace SlotOpt.Cli;
 
-/// <summary>The console form of a run, formatted from the result itself: chosen design per part against the reference, its confirmation, totals, savings, limits, front.</summary>
+/// <summary>
+/// The console form of a run, formatted from the result itself: chosen design per part against the reference, its
+/// confirmation, the validity of both, totals, savings, limits, front. Numbers follow <see cref="Numbers"/>, as the report does.
+/// </summary>
 public static class RunText
 {
     public static void Write(RunResult r, TextWriter o)
@@ -27,7 +32,7 @@ public static class RunText
             return;
         }
         if (r.Outcome.Status == SelectionStatus.FeasibleAtLimit)
-            o.WriteLine("  Note: the search hit its time budget; the design below meets every limit but is not proven best.");
+            o.WriteLine("  Note: the search hit its time budget; the design below meets every limit, but a better one among the listed options may exist.");
         o.WriteLine();
         for (var i = 0; i < r.Chosen.Count; i++)
         {
@@ -35,37 +40,41 @@ public static class RunText
             var reference = r.Parts[i].Reference;
             o.WriteLine($"  {chosen.PartName}");
             o.WriteLine(string.Create(ci, $"    chosen:  {chosen.Description}"));
-            o.WriteLine(string.Create(ci, $"             loss {chosen.Loss.TotalW:0.###} W{Drag(chosen.DragN)}, build cost {chosen.BuildCost:0.00} {cur}"));
+            o.WriteLine($"             loss {Numbers.Watts(chosen.Loss.TotalW)}{Drag(chosen.DragN)}, build cost {Numbers.Money(chosen.BuildCost, cur)}");
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
-            o.WriteLine(string.Create(ci, $"             loss {reference.Loss.TotalW:0.###} W{Drag(reference.DragN)}, build cost {reference.BuildCost:0.00} {cur}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}"));
+            o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Drag(reference.DragN)}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Confirmed(confirmed)}");
+            if (r.Confirmation(chosen.PartName)?.MinimumDrag is { } minimum)
+                o.WriteLine($"    minimum drag: {Numbers.Newtons(minimum.DragN)} at {Numbers.Of(minimum.SpeedMPerS, "m/s")} ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Newtons(minimum.RequiredN)}");
             foreach (var role in new[] { DesignRole.Chosen, DesignRole.Reference })
                 if (r.HeatOf(chosen.PartName, role) is { } heat) o.WriteLine($"    {(role == DesignRole.Chosen ? "chosen" : r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")} temperature: {Temperature(heat)}");
             foreach (var flag in chosen.Flags) o.WriteLine($"    warning: {flag}");
+            if (!ReferenceEquals(chosen, reference) && chosen.Id != reference.Id)
+                foreach (var flag in reference.Flags) o.WriteLine($"    warning ({(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")} design): {flag}");
         }
         o.WriteLine();
         var vpw = economics.ValuePerWatt;
-        o.WriteLine(string.Create(ci, $"  total:     loss {r.TotalLossW:0.###} W, build cost {r.TotalBuildCost:0.00} {cur}, owning cost {r.OwningCost:0.00} {cur} (loss at {vpw:0.###} {cur}/W{(economics.SeparatesLoadLoss ? $" no-load, {economics.LoadValuePerWatt:0.###} {cur}/W load" : "")})"));
+        o.WriteLine($"  total:     loss {Numbers.Watts(r.TotalLossW)}, build cost {Numbers.Money(r.TotalBuildCost, cur)}, owning cost {Numbers.Money(r.OwningCost, cur)} (loss at {Numbers.Sig(vpw)} {cur}/W{(economics.SeparatesLoadLoss ? $" no-load, {Numbers.Sig(economics.LoadValuePerWatt!.Value)} {cur}/W load" : "")})");
         var refBase = r.Reference;
-        o.WriteLine(string.Create(ci, $"  {refBase.Name}: loss {refBase.LossW:0.###} W, build cost {refBase.BuildCost:0.00} {cur}, owning cost {refBase.OwningCost(r.Problem):0.00} {cur}"));
+        o.WriteLine($"  {refBase.Name}: loss {Numbers.Watts(refBase.LossW)}, build cost {Numbers.Money(refBase.BuildCost, cur)}, owning cost {Numbers.Money(refBase.OwningCost(r.Problem), cur)}");
         var savedW = refBase.LossW - r.TotalLossW;
         var savedOwning = refBase.OwningCost(r.Problem) - r.OwningCost;
-        o.WriteLine(string.Create(ci, $"  saves {savedW:0.###} W{(r.Problem.YearlyLossCost(refBase.Options) is { } before && r.Problem.YearlyLossCost(r.Chosen!) is { } after ? $" = {before - after:0.00} {cur} a year" : "")} and {savedOwning:0.00} {cur} of owning cost over the life"));
+        o.WriteLine($"  saves {Numbers.Watts(savedW)}{(r.Problem.YearlyLossCost(refBase.Options) is { } before && r.Problem.YearlyLossCost(r.Chosen!) is { } after ? $" = {Numbers.Money(before - after, cur)} a year" : "")} and {Numbers.Money(savedOwning, cur)} of owning cost over the life");
         if (r.Outcome.Front is { } front)
         {
             o.WriteLine();
-            o.WriteLine($"  trade-off curve ({front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? "" : ", not all proven")}):");
+            o.WriteLine($"  trade-off curve ({front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? "" : ", some not searched to the end")}):");
             o.WriteLine($"    {"build cost",12} {"loss W",12} {"owning cost",12}");
             foreach (var p in front.Points)
-                o.WriteLine(string.Create(ci, $"    {p.BuildCost,12:0.00} {p.LossW,12:0.###} {p.BuildCost + vpw * p.LossW,12:0.00}"));
+                o.WriteLine($"    {Numbers.Sig(p.BuildCost),12} {Numbers.Sig(p.LossW),12} {Numbers.Sig(r.Problem.Economics.SeparatesLoadLoss ? r.Problem.OwningCost(p.CandidateIds.Select(r.Option)) : p.BuildCost + vpw * p.LossW),12}");
         }
         o.WriteLine();
         o.WriteLine("  These are engineering estimates to be confirmed by test; see the report's cautions.");
     }
 
     /// <summary>A chosen plate as confirmed: which model ran, its loss, drag and lift, the resistance-limited screen's loss, and why that model.</summary>
-    private static string Confirmed(PlateConfirmation c) => string.Create(CultureInfo.InvariantCulture,
-        $"{c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? string.Create(CultureInfo.InvariantCulture, $", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W){(c.GridError is { } e ? string.Create(CultureInfo.InvariantCulture, $"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}");
+    private static string Confirmed(PlateConfirmation c) =>
+        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? string.Create(CultureInfo.InvariantCulture, $"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
 
     /// <summary>A hot plate's coupled temperature: hottest point (value and place), mean rise, the resistivity's temperature, the limit.</summary>
     private static string Temperature(PlateHeat heat)
@@ -73,8 +82,8 @@ public static class RunText
         if (heat.Heating is not { } h) return $"no steady state ({heat.Failure})";
         var t = h.Temperature;
         return string.Create(CultureInfo.InvariantCulture,
-            $"hottest {t.HottestK - 273.15:0.#} degC (rise {t.MaxRiseK:0.#} K) at x {t.HottestXM * 1e3:0} mm, y {t.HottestYM * 1e3:0} mm; mean rise {t.MeanRiseK:0.#} K; resistivity at {h.LossWeightedTemperatureK - 273.15:0.#} degC (loss-weighted); {(heat.Limit.IsSet ? heat.Breach ?? "within the limit" : "no limit set")}");
+            $"hottest {Numbers.Celsius(t.HottestK, "degC")} (rise {Numbers.Kelvin(t.MaxRiseK)}) at x {t.HottestXM * 1e3:0} mm, y {t.HottestYM * 1e3:0} mm; mean rise {Numbers.Kelvin(t.MeanRiseK)}; resistivity at {Numbers.Celsius(h.LossWeightedTemperatureK, "degC")} (loss-weighted); {(heat.Limit.IsSet ? heat.Breach ?? "within the limit" : "no limit set")}");
     }
 
-    private static string Drag(double? dragN) => dragN is { } d ? string.Create(CultureInfo.InvariantCulture, $", drag {d:0.###} N") : "";
+    private static string Drag(double? dragN) => dragN is { } d ? $", drag {Numbers.Newtons(d)}" : "";
 }

@@ -41,4 +41,14 @@ public sealed record PlateJson(
     int? CouplingIterations,
     bool? TemperatureLimitExceeded,
     IReadOnlyList<string> Warnings,
-    IReadOnlyList<string> Notes) : VersionedJson;
+    IReadOnlyList<string> Notes) : VersionedJson
+{
+    /// <summary>A turning disc: the braking torque (drag_n is then the force along the magnets' path, torque over their radius).</summary>
+    [System.Text.Json.Serialization.JsonPropertyName("torque_n_m")]
+    public double? TorqueNM { get; init; }
+    public double? RotationSpeedRpm { get; init; }
+    /// <summary>Magnets approaching: their speed, and the damping force (opposing the approach, normal to the plate) at each gap.</summary>
+    public double? ApproachSpeedMPerS { get; init; }
+    public IReadOnlyList<double>? ApproachGapsM { get; init; }
+    public IReadOnlyList<double>? ApproachForceN { get; init; }
+}

@@ -23,29 +23,29 @@ public abstract record PlateExcitation
 
     public bool IsMoving => this is Moving;
 
-    /// <summary>An AC field of one frequency over the plate.</summary>
-    public sealed record AcField(IAcFieldSource Source, double FrequencyHz) : PlateExcitation;
+    /// <summary>An AC field of one frequency over the plate; <paramref name="FieldMapFile"/> names the field-map file it was read from, if any (for the report).</summary>
+    public sealed record AcField(IAcFieldSource Source, double FrequencyHz, string? FieldMapFile = null) : PlateExcitation;
 
-    /// <summary>Poles moving past the plate, evaluated at several travel offsets whose mean gives the drag.</summary>
-    public sealed record Moving(MovingPoles Poles, TravelAverage Average, int Positions) : PlateExcitation
+    /// <summary>Poles or magnets moving past the plate, evaluated at several travel offsets whose mean gives the drag.</summary>
+    public sealed record Moving(ITravellingSource Source, TravelAverage Average, int Positions) : PlateExcitation
     {
-        public double SpeedMPerS => Poles.SpeedMPerS;
+        public double SpeedMPerS => Source.SpeedMPerS;
 
         /// <summary>
         /// The travel offsets to evaluate: over one slot pitch (the window a slotted plate's drag repeats
         /// over; for a solid plate, whose drag on a long plate does not depend on the offset, any window
-        /// serves and the caller passes the one its slotted options use, else the poles' own length), or
-        /// across the whole pass of the poles over the plate.
+        /// serves and the caller passes the one its slotted options use, else the source's own length), or
+        /// across the whole pass of the source over the plate.
         /// </summary>
         public IReadOnlyList<double> Offsets(Polygon outline, double? windowM)
         {
             if (Average == TravelAverage.Pass)
             {
                 var (min, max) = outline.Bounds;
-                var (rowMin, rowMax) = Poles.ExtentX;
+                var (rowMin, rowMax) = Source.ExtentX;
                 return Positions == 1 ? [0.0] : MovingSweepSolution.OffsetsAcross(min.X - rowMax, max.X - rowMin, Positions);
             }
-            return MovingSweepSolution.OffsetsOverPitch(windowM ?? Poles.ExtentX.MaxXM - Poles.ExtentX.MinXM, Positions);
+            return MovingSweepSolution.OffsetsOverPitch(windowM ?? Source.ExtentX.MaxXM - Source.ExtentX.MinXM, Positions);
         }
     }
 }

@@ -65,7 +65,7 @@ public static class PlateOptions
                 screened[g].Add(Scale(part, solvedGeometries[g], thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop,
                     heat[g].GetValueOrDefault((thickness, materialName))));
         }
-        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null, processCapped);
+        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null && part.MinDrag is null, processCapped);
     }
 
     /// <summary>With [parts.thermal]: the temperature verdict of every thickness and material of one solved geometry (the process does not heat the plate).</summary>
@@ -73,18 +73,22 @@ public static class PlateOptions
     {
         var verdicts = new Dictionary<(double, string), TemperatureBracket.Outcome>();
         if (part.Thermal is null || solved.Failure is not null) return verdicts;
+        var screen = Screen(part, solved);
         foreach (var thickness in part.ThicknessesM)
         foreach (var materialName in part.Materials)
-            verdicts[(thickness, materialName)] = Heat(part, solved, thickness, library.GetConductor(materialName, part.Name), limits);
+            verdicts[(thickness, materialName)] = Heat(part, solved, thickness, library.GetConductor(materialName, part.Name), limits, screen);
         return verdicts;
     }
 
+    /// <summary>The thermal solves of one solved geometry, shared by its thicknesses and materials (one network and preconditioner, warm starts).</summary>
+    private static ThermalScreen Screen(PlatePart part, SolvedGeometry solved) =>
+        new((solved.Peak?.Model ?? throw new InvalidOperationException($"{part.Name}: no solved geometry to heat")).Grid, part.Thermal!.Cooling.Edges);
+
     /// <summary>One thickness and material of a solved geometry heated by its loss: bracketed, coupled only where the bracket straddles the limit.</summary>
-    private static TemperatureBracket.Outcome Heat(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, EvaluationLimits limits)
+    private static TemperatureBracket.Outcome Heat(PlatePart part, SolvedGeometry solved, double thicknessM, Conductor material, EvaluationLimits limits, ThermalScreen screen)
     {
         var thermal = part.Thermal!;
-        var model = solved.Peak?.Model ?? throw new InvalidOperationException($"{part.Name}: no solved geometry to heat");
-        return TemperatureBracket.Find(model.Grid, solved.UnitCellLossW!, ThermalConductivityTable.Of(material.Name, part.Name), thicknessM,
+        return TemperatureBracket.Find(screen, solved.UnitCellLossW!, ThermalConductivityTable.Of(material.Name, part.Name), thicknessM,
             k => material.ConductivityAt(k) * thicknessM, thermal.Cooling, thermal.Limit, () => SolveHeated(part, solved.Slots, thicknessM, material, limits));
     }
 
@@ -102,7 +106,7 @@ public static class PlateOptions
         return part.Excitation switch
         {
             PlateExcitation.AcField ac => PlateHeating.SolveAc(geometry, grid, ac.Source, sheet, thermalMaterial, thermal.Cooling),
-            PlateExcitation.Moving moving => PlateHeating.SolveMoving(geometry, grid, moving.Poles, TravelOffsets(part, slots), sheet, thermalMaterial, thermal.Cooling),
+            PlateExcitation.Moving moving => PlateHeating.SolveMoving(geometry, grid, moving.Source, TravelOffsets(part, slots), sheet, thermalMaterial, thermal.Cooling),
             _ => throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation"),
         };
     }
@@ -134,10 +138,10 @@ public static class PlateOptions
         switch (part.Excitation)
         {
             case PlateExcitation.Moving moving when part.Thermal is not null:
-                var (unitMap, mapped) = PlateHeating.MeanCellLoss(model, moving.Poles, TravelOffsets(part, slots));
+                var (unitMap, mapped) = PlateHeating.MeanCellLoss(model, moving.Source, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, mapped.MeanLossPerSiemensW, mapped.Peak, mapped.IterationsPerOffset.Sum(), model.Unknowns, null, unitMap);
             case PlateExcitation.Moving moving:
-                var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Poles, TravelOffsets(part, slots));
+                var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Source, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
             case PlateExcitation.AcField field:
                 var ac = ResistanceLimitedSolver.SolveAc(model, field.Source);
@@ -153,7 +157,7 @@ public static class PlateOptions
     /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
-        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Poles.GridFeatures : [] };
+        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Source.GridFeatures : [] };
         var cap = limits.CellCap(SlotChoices(part).Count());
         if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
         return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };
@@ -174,7 +178,7 @@ public static class PlateOptions
         limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1);
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
-        var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits) : null;
+        var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits, Screen(part, solved)) : null;
         var screened = Scale(part, solved, choice.ThicknessM, material, shop.Processes[choice.Process], shop, heat);
         var verdicts = heat is null ? new Dictionary<(double, string), TemperatureBracket.Outcome>() : new() { [(choice.ThicknessM, choice.Material)] = heat };
         return PlateModelRanking.Rank(part, [solved], [[screened]], library, shop, [verdicts], limits, mayPrune: false, processCapped: true)[0];
@@ -238,6 +242,12 @@ public static class PlateOptions
             rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, acField?.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
+        if (rejection is null && part.MinDrag is { } minDrag && drag is { } dragN)
+        {
+            rejection = minDrag.Check(dragN, moving!.SpeedMPerS);
+            if (rejection is null && minDrag.SpeedMPerS != moving.SpeedMPerS)
+                flags.AddRange(Validity.ForMoving(sheet, minDrag.SpeedMPerS).Warnings.Select(w => string.Create(ci, $"at {minDrag.SpeedMPerS:0.###} m/s: {w}")));
+        }
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
         if (heat is { Failure: { } why, Breach: null }) flags.Add($"temperature not computed: {why}");

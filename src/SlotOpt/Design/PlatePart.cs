@@ -24,7 +24,8 @@ public sealed record PlatePart(
     double MinLigamentM,
     double? CellSizeM,
     PlateChoice? Current,
-    PartThermal? Thermal = null) : Part(Name, Line, TemperatureK, MaxLossW)
+    PartThermal? Thermal = null,
+    MinimumDrag? MinDrag = null) : Part(Name, Line, TemperatureK, MaxLossW)
 {
     /// <summary>thickness x material x (solid x processes + every slot option).</summary>
     public long OptionCount => (long)ThicknessesM.Count * Materials.Count * (Processes.Count + SlotFamilies.Sum(f => f.OptionCount));

@@ -17,6 +17,8 @@ public enum RuleKind
     DragAboveLimit,
     /// <summary>Loss above the part's limit.</summary>
     LossAboveLimit,
+    /// <summary>Drag (a wanted braking force) below the part's minimum at its named speed.</summary>
+    DragBelowMinimum,
     /// <summary>Peak flux density in a core beyond what the grade carries.</summary>
     FluxBeyondGrade,
     /// <summary>The slot pattern does not fit the plate's outline.</summary>
@@ -42,6 +44,7 @@ public sealed record RuleBreak(RuleKind Kind, string Message)
         RuleKind.FingerResonance => "fingers too slender (resonance)",
         RuleKind.DragAboveLimit => "drag above the part's limit",
         RuleKind.LossAboveLimit => "loss above the part's limit",
+        RuleKind.DragBelowMinimum => "drag below the part's minimum",
         RuleKind.FluxBeyondGrade => "flux beyond the grade",
         RuleKind.PatternDoesNotFit => "slot pattern does not fit the plate",
         RuleKind.GrainOrientedAcrossRollingDirection => "grain-oriented steel across its rolling direction",

@@ -13,14 +13,16 @@ namespace SlotOpt.Input;
 /// Schema (quantities as strings with units or plain SI; source keys as in problem files, see
 /// <see cref="PlateSourceReader"/>):
 /// <code>
-/// [plate]      width, height (rectangle from the origin) | outline = [[x, y], ...];
+/// [plate]      width, height (rectangle from the origin) | outline = [[x, y], ...] | shape = "disc" with diameter and bore (optional; centred at (d/2, d/2));
 ///              thickness; resistivity | conductivity (S/m); relative_permeability (optional, skin depth only)
 /// [grid]       cell (optional); min_cells_across_strip (optional, default 8)
 /// [[cutout]]   shape = "rectangle" (x, y lower-left, width, height) | "circle" (x, y centre, radius) | "polygon" (points)
 /// [[slots]]    the keys of <see cref="SlotTableReader"/> (as in problem files; edge defaults to "bottom"), one value each,
-///              and offset (optional: the first slot's centre from the low end of the edge)
+///              and offset (optional: the first slot's centre from the low end of the edge); on a disc pattern = "radial" with
+///              count, width, from (inner radius), to (outer radius, default through the rim)
 /// [[cut]]      from = [x, y], to = [x, y]   (zero-width kerf)
-/// [source]     kind = "uniform_ac" | "field_map" | "moving_poles" (average defaults to "slot_pitch" with slots, else "pass")
+/// [source]     kind = "uniform_ac" | "field_map" | "moving_poles" | "magnets" (average defaults to "slot_pitch" with slots, else "pass");
+///              magnets with motion = "rotation" (over a disc) or "approach": <see cref="MagnetSourceReader"/>
 /// [thermal]    optional: plate temperature with the resistivity at the local temperature (see <see cref="ThermalReader"/>)
 /// </code>
 /// </summary>
@@ -38,22 +40,36 @@ public static class PlateFileReader
         var root = new TomlSection(TomlDocumentReader.Read(text, path, errors), "", path, errors);
         errors.ThrowIfAny();
         var plate = root.RequiredTable("plate");
-        var (geometry, conductor) = plate is null ? (null, null) : ReadPlate(plate);
+        var (geometry, conductor, disc) = plate is null ? (null, null, null) : ReadPlate(plate);
         var gridSection = root.OptionalTable("grid");
         var grid = gridSection is null ? new GridOptions() : ReadGrid(gridSection);
         if (gridSection is not null && geometry is not null) PlatePartReader.CheckCellCount(gridSection, grid.CellSizeM, geometry.Outline);
         var cutouts = root.TableArray("cutout", required: false);
+        int radialSlots = 0;
         var slots = root.TableArray("slots", required: false);
         var cuts = root.TableArray("cut", required: false);
         if (geometry is not null)
         {
             foreach (var c in cutouts) ReadCutout(c, geometry);
-            foreach (var s in slots) ReadSlots(s, geometry);
+            foreach (var s in slots) radialSlots += ReadSlots(s, geometry, disc);
             foreach (var c in cuts) ReadCut(c, geometry);
         }
         var sourceSection = root.RequiredTable("source");
         PlateExcitation? excitation = null;
-        if (sourceSection is not null && geometry is not null)
+        DiscRotation? rotation = null;
+        MagnetApproach? approach = null;
+        var motion = sourceSection is not null && sourceSection.OptionalString("kind") == "magnets" ? MagnetSourceReader.Motion(sourceSection) : "linear";
+        if (sourceSection is not null && geometry is not null && motion == "rotation")
+        {
+            rotation = MagnetSourceReader.Rotation(sourceSection, disc?.Centre, disc?.RadiusM, radialSlots > 0 ? 2 * Math.PI / radialSlots : null);
+            sourceSection.RejectUnknownKeys();
+        }
+        else if (sourceSection is not null && geometry is not null && motion == "approach")
+        {
+            approach = MagnetSourceReader.Approach(sourceSection, geometry.Outline);
+            sourceSection.RejectUnknownKeys();
+        }
+        else if (sourceSection is not null && geometry is not null)
         {
             var baseDirectory = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
             excitation = PlateSourceReader.Read(sourceSection, geometry.Outline, baseDirectory, geometry.Patterns.Count > 0 ? TravelAverage.SlotPitch : TravelAverage.Pass);
@@ -63,9 +79,14 @@ public static class PlateFileReader
         var thermalSection = root.OptionalTable("thermal");
         var thermal = thermalSection is null || geometry is null ? null
             : ThermalReader.Read(thermalSection, geometry.Bounds.Max.X - geometry.Bounds.Min.X, geometry.Bounds.Max.Y - geometry.Bounds.Min.Y);
+        if (disc is not null && motion != "rotation" && radialSlots > 0 && sourceSection is not null)
+            sourceSection.Error("kind", "radial slots are for a turning disc: motion = \"rotation\"");
+        if (thermalSection is not null && motion != "linear") thermalSection.Error("cooling", $"[thermal] is for plates under sliding sources and AC fields, not motion = \"{motion}\"");
         root.RejectUnknownKeys();
         errors.ThrowIfAny();
-        if (geometry is null || conductor is null || excitation is null) throw new InputException($"{path}: the plate file is incomplete");
+        if (geometry is null || conductor is null || (excitation is null && rotation is null && approach is null)) throw new InputException($"{path}: the plate file is incomplete");
+        if (rotation is not null) return new PlateCase(path, geometry, grid, conductor, null, null, [], rotation.AveragedOver, null, Rotation: rotation);
+        if (approach is not null) return new PlateCase(path, geometry, grid, conductor, null, null, [], "the approach", null, Approach: approach);
 
         var moving = excitation as PlateExcitation.Moving;
         var offsets = moving is null ? (IReadOnlyList<double>)[] : moving.Offsets(geometry.Outline, geometry.Patterns.Count > 0 ? geometry.Patterns[0].PitchM : null);
@@ -73,13 +94,31 @@ public static class PlateFileReader
             : moving.Average == TravelAverage.SlotPitch
                 ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {moving.Positions} positions)"
                 : moving.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({moving.Positions} positions)";
-        return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Poles, offsets, over, thermal);
+        return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Source, offsets, over, thermal);
     }
 
-    private static (PlateGeometry?, ConductingSheet?) ReadPlate(TomlSection t)
+    /// <summary>A disc plate's centre and rim radius.</summary>
+    private sealed record Disc(Vec2 Centre, double RadiusM, double BoreRadiusM);
+
+    private static (PlateGeometry?, ConductingSheet?, Disc?) ReadPlate(TomlSection t)
     {
         PlateGeometry? geometry = null;
-        if (t.Has("outline"))
+        Disc? disc = null;
+        var shape = t.OptionalChoice("shape", ["rectangle", "disc"]) ?? "rectangle";
+        if (shape == "disc")
+        {
+            if (t.Has("outline") || t.Has("width") || t.Has("height")) t.Error("shape", "a disc is given by its diameter (and bore), not by outline, width or height");
+            var diameter = t.PositiveQuantity("diameter", QuantityKind.Length, required: true);
+            var bore = t.PositiveQuantity("bore", QuantityKind.Length, required: false);
+            if (diameter is { } d && bore >= d) t.Error("bore", "must be smaller than the diameter");
+            else if (diameter is { } dd)
+            {
+                disc = new Disc(new Vec2(dd / 2, dd / 2), dd / 2, (bore ?? 0) / 2);
+                geometry = new PlateGeometry(Polygon.Circle(disc.Centre, disc.RadiusM));
+                if (bore is { } b) geometry.AddCutout(Polygon.Circle(disc.Centre, b / 2));
+            }
+        }
+        else if (t.Has("outline"))
         {
             if (t.Has("width") || t.Has("height")) t.Error("outline", "give either outline or width and height, not both");
             var points = t.PointList("outline");
@@ -103,8 +142,8 @@ public static class PlateFileReader
         var mur = t.OptionalNumber("relative_permeability") ?? 1;
         if (!(mur >= 1)) t.Error("relative_permeability", "must be 1 or more");
         t.RejectUnknownKeys();
-        var conductor = thickness is { } d && sigma is { } s && mur >= 1 ? t.Guard("thickness", () => new ConductingSheet(s, d, mur)) : null;
-        return (geometry, conductor);
+        var conductor = thickness is { } th && sigma is { } s && mur >= 1 ? t.Guard("thickness", () => new ConductingSheet(s, th, mur)) : null;
+        return (geometry, conductor, disc);
     }
 
     private static GridOptions ReadGrid(TomlSection t)
@@ -151,14 +190,49 @@ public static class PlateFileReader
         if (hole is not null) geometry.AddCutout(hole);
     }
 
-    private static void ReadSlots(TomlSection t, PlateGeometry geometry)
+    /// <returns>The number of radial slots read (0 for any other pattern).</returns>
+    private static int ReadSlots(TomlSection t, PlateGeometry geometry, Disc? disc)
     {
+        if (t.OptionalString("pattern") == "radial") return ReadRadialSlots(t, geometry, disc);
         var table = SlotTableReader.Read(t, geometry.Outline, oneValueEach: true);
         var offset = t.OptionalQuantity("offset", QuantityKind.Length);
         t.RejectUnknownKeys();
-        if (table is null) return;
+        if (table is null) return 0;
         var made = t.Guard("pattern", () => SlotPatternCatalog.Cut(geometry.Outline, table.Single, offset));
         if (made is not null) geometry.AddPattern(made);
+        return 0;
+    }
+
+    /// <summary>
+    /// count radial slots of width evenly round a disc, from the inner radius ("from") to the outer ("to"; default through the rim, an open
+    /// slot), the first along +x: they cut the current loops a ring of magnets drives round the disc.
+    /// </summary>
+    private static int ReadRadialSlots(TomlSection t, PlateGeometry geometry, Disc? disc)
+    {
+        if (disc is null) t.Error("pattern", "\"radial\" slots need a disc: [plate] shape = \"disc\"");
+        var count = t.OptionalInteger("count", 1, 720);
+        if (count is null && !t.Has("count")) t.Error("count", "missing: the number of radial slots");
+        var width = t.PositiveQuantity("width", QuantityKind.Length, required: true);
+        var from = t.PositiveQuantity("from", QuantityKind.Length, required: true);
+        var to = t.PositiveQuantity("to", QuantityKind.Length, required: false);
+        t.RejectUnknownKeys();
+        if (disc is null || count is null || width is null || from is null) return 0;
+        double outer = to ?? disc.RadiusM + width.Value;                                      // through the rim: past it by a slot width
+        if (!(outer > from)) { t.Error("to", "must be larger than from"); return 0; }
+        if (from >= disc.RadiusM) { t.Error("from", "starts the slots beyond the disc's rim"); return 0; }
+        if (count.Value * width.Value >= 2 * Math.PI * from.Value) { t.Error("width", $"{count} slots of this width do not fit round the inner radius"); return 0; }
+        var slots = Enumerable.Range(0, (int)count.Value).Select(k =>
+        {
+            double a = 2 * Math.PI * k / count.Value;
+            var u = new Vec2(Math.Cos(a), Math.Sin(a));
+            return new Slot(disc.Centre + from.Value * u, disc.Centre + outer * u, width.Value);
+        }).ToList();
+        double pitchAtInner = 2 * Math.PI * from.Value / count.Value;
+        if (from <= disc.BoreRadiusM) { t.Error("from", "starts the slots inside the bore: leave a ligament between them"); return 0; }
+        double ligament = to is null ? from.Value - disc.BoreRadiusM : Math.Min(from.Value - disc.BoreRadiusM, disc.RadiusM - outer);   // uncut ring inside (and outside) the slots
+        if (to is { } o && o >= disc.RadiusM) ligament = from.Value - disc.BoreRadiusM;
+        geometry.AddPattern(new SlotPattern(slots, [], pitchAtInner, pitchAtInner - width.Value, ligament));
+        return (int)count.Value;
     }
 
     private static void ReadCut(TomlSection t, PlateGeometry geometry)

@@ -28,6 +28,8 @@ public static class PlatePartReader
         var temperature = s.OptionalQuantity("temperature", QuantityKind.Temperature) ?? Conductor.RoomTemperatureK;
         if (!(temperature > 0)) s.Error("temperature", "is below absolute zero");
         var maxDrag = s.PositiveQuantity("max_drag", QuantityKind.Force, required: false);
+        var minDragN = s.PositiveQuantity("min_drag", QuantityKind.Force, required: false);
+        var minDragSpeed = s.PositiveQuantity("min_drag_speed", QuantityKind.Speed, required: false);
         var maxLoss = s.PositiveQuantity("max_loss", QuantityKind.Power, required: false);
         var minLigament = s.PositiveQuantity("min_ligament", QuantityKind.Length, required: false) ?? 0;
         var grid = s.OptionalTable("grid");
@@ -48,7 +50,18 @@ public static class PlatePartReader
         var lossKind = LossKindWords.Read(s);
         s.RejectUnknownKeys();
 
-        if (maxDrag is not null && excitation is { IsMoving: false }) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\")");
+        if (maxDrag is not null && excitation is { IsMoving: false }) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\" or \"magnets\")");
+        MinimumDrag? minDrag = null;
+        if (minDragSpeed is not null && minDragN is null) s.Error("min_drag_speed", "names the speed of a min_drag: give min_drag as well");
+        if (minDragN is { } force && excitation is PlateExcitation.Moving moving)
+        {
+            var speed = minDragSpeed ?? moving.SpeedMPerS;
+            minDrag = new MinimumDrag(force, speed);
+            if (maxDrag is { } limit && speed == moving.SpeedMPerS && force > limit)
+                s.Error("min_drag", $"{force:0.###} N is above max_drag ({limit:0.###} N) at the same speed: no option can meet both");
+        }
+        else if (minDragN is not null && excitation is { IsMoving: false })
+            s.Error("min_drag", "a minimum drag needs a moving source ([parts.source] kind = \"moving_poles\" or \"magnets\")");
         if (thicknesses is not null && outline is not null)
         {
             var (min, max) = outline.Bounds;
@@ -58,7 +71,7 @@ public static class PlatePartReader
         }
         if (name is null || outline is null || thicknesses is null || materials.Count == 0 || excitation is null) return null;
         return new PlatePart(name, s.Line, temperature, maxLoss, outline, thicknesses, materials, excitation, families, processes,
-            maxDrag, minLigament, cell, current, thermal) { DeclaredLossKind = lossKind };
+            maxDrag, minLigament, cell, current, thermal, minDrag) { DeclaredLossKind = lossKind };
     }
 
     private static Polygon? ReadOutline(TomlSection s)

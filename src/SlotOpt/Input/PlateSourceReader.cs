@@ -2,6 +2,7 @@ using SlotOpt.Design;
 using SlotOpt.Input.Toml;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Sources.Magnets;
 
 namespace SlotOpt.Input;
 
@@ -10,20 +11,25 @@ namespace SlotOpt.Input;
 /// (file: CSV x_m,y_m,peak_flux_density_t,phase_deg relative to the problem file; frequency) or "moving_poles"
 /// (pole = "circle" with radius | "rectangle" with pole_width, pole_height; flux_density, speed; x, y of
 /// the first pole centre at offset 0, default: the row centred on the plate; count, pole_pitch;
-/// positions (default 8); average = "slot_pitch" | "pass"). Shared by problem files and plate files.
+/// positions (default 8); average = "slot_pitch" | "pass") or "magnets" (permanent magnets magnetised normal to the
+/// plate: shape = "cuboid" with length along the travel and width across | "cylinder" with diameter; height (the
+/// magnetised direction), remanence, gap from the magnets' face to the plate's near surface; speed; x, y of the
+/// first magnet's centre at offset 0, default the row centred on the plate; count, pitch (centre to centre),
+/// polarity = "alternating" (default) | "same"; positions; average). Shared by problem files and plate files.
 /// </summary>
 public static class PlateSourceReader
 {
     /// <param name="defaultAverage">The averaging when the file does not say (a single plate without slots has no pitch to average over).</param>
     public static PlateExcitation? Read(TomlSection s, Polygon? outline, string baseDirectory, TravelAverage defaultAverage = TravelAverage.SlotPitch)
     {
-        var kind = s.OptionalChoice("kind", ["uniform_ac", "field_map", "moving_poles"]);
-        if (kind is null && !s.Has("kind")) s.Error("kind", "missing: \"uniform_ac\", \"field_map\" or \"moving_poles\"");
+        var kind = s.OptionalChoice("kind", ["uniform_ac", "field_map", "moving_poles", "magnets"]);
+        if (kind is null && !s.Has("kind")) s.Error("kind", "missing: \"uniform_ac\", \"field_map\", \"moving_poles\" or \"magnets\"");
         PlateExcitation? result = kind switch
         {
             "uniform_ac" => UniformAc(s),
             "field_map" => FieldMapSource(s, baseDirectory),
             "moving_poles" => Moving(s, outline, defaultAverage),
+            "magnets" => Magnets(s, outline, defaultAverage),
             _ => null,
         };
         s.RejectUnknownKeys();
@@ -49,7 +55,7 @@ public static class PlateSourceReader
         if (file is null || frequency is null) return null;
         try
         {
-            return new PlateExcitation.AcField(FieldMapCsv.Read(Path.Combine(baseDirectory, file), frequency.Value), frequency.Value);
+            return new PlateExcitation.AcField(FieldMapCsv.Read(Path.Combine(baseDirectory, file), frequency.Value), frequency.Value, file);
         }
         catch (InputException e)
         {
@@ -99,5 +105,19 @@ public static class PlateSourceReader
             s.Error("y", "puts the poles' path entirely off the plate");
         var poles = s.Guard("pole", () => MovingPoles.Row(face, first, count, pitch ?? 0, flux.Value, speed.Value));
         return poles is null ? null : new PlateExcitation.Moving(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
+    }
+
+    private static PlateExcitation? Magnets(TomlSection s, Polygon? outline, TravelAverage defaultAverage)
+    {
+        if (s.OptionalChoice("motion", ["linear", "rotation", "approach"]) is "rotation" or "approach")
+            s.Error("motion", "a turning disc and an approaching magnet are for plate files (`slotopt plate`); a part of a problem file slides (motion = \"linear\")");
+        var magnet = MagnetSourceReader.Magnet(s);
+        var gap = s.PositiveQuantity("gap", QuantityKind.Length, required: true);
+        var speed = s.PositiveQuantity("speed", QuantityKind.Speed, required: true);
+        var positions = (int)(s.OptionalInteger("positions", 1, 10_000) ?? 8);
+        var averageText = s.OptionalChoice("average", ["slot_pitch", "pass"]) ?? (defaultAverage == TravelAverage.Pass ? "pass" : "slot_pitch");
+        var array = MagnetSourceReader.Row(s, magnet, gap, outline);
+        if (array is null || speed is null) return null;
+        return new PlateExcitation.Moving(new SlidingMagnets(array, speed.Value), averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
     }
 }

@@ -5,7 +5,10 @@ namespace SlotOpt.Materials;
 /// <summary>
 /// Thermal conductivity of each built-in conductor near room temperature (W/(m K)), with its source,
 /// from the embedded Materials/Data/thermal-conductivity.csv. Taken as constant over the plate's
-/// working range (the temperature dependence of k is neglected; common practice, no source).
+/// working range (the temperature dependence of k is neglected; common practice, no source). Published
+/// k(T) tables exist (e.g. C. Y. Ho, T. K. Chu, "Electrical resistivity and thermal conductivity of nine
+/// selected AISI stainless steels", CINDAS Report 45, 1977) but their values could not be read, so none is
+/// used. k moves only the spreading in the plane: with insulated edges the mean rise does not depend on it.
 /// </summary>
 public static class ThermalConductivityTable
 {

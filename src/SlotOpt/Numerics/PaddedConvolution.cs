@@ -22,14 +22,15 @@ namespace SlotOpt.Numerics;
 /// then transforms only the PaddedX/2 + 1 columns of the Hermitian half (W. H. Press et al., "Numerical Recipes",
 /// 3rd ed., 2007, section 12.3): about half the work of a complex field.
 /// </para>
-/// Buffers are allocated once; a convolution allocates nothing. Not thread-safe: one per thread.
+/// Buffers are allocated once; a convolution allocates only its workers' delegates. Not thread-safe: one per thread
+/// (its own workers, <see cref="Threads"/>, are its business).
 /// </summary>
 internal sealed class PaddedConvolution
 {
     private readonly double[] _colCos, _colSin;       // e^{-2 pi i t / N} = cos - i sin, t < N/2 (N = PaddedY)
     private readonly double[] _stageCos, _stageSin;   // rows, stage h at [h, 2h): e^{-2 pi i t / 2h} = cos - i sin, t < h
     private readonly int[] _rowReverse;
-    private readonly double[] _lineRe, _lineIm;
+    private readonly double[][] _lineRe, _lineIm;   // one row buffer per worker
     private readonly int _strip;
 
     public int Nx { get; }
@@ -38,12 +39,15 @@ internal sealed class PaddedConvolution
     public int PaddedY { get; }
     public double[] Re { get; }
     public double[] Im { get; }
-    public long Bytes => 8L * (Re.Length + Im.Length + _lineRe.Length + _lineIm.Length + _stageCos.Length + _stageSin.Length + _colCos.Length + _colSin.Length) + 4L * _rowReverse.Length;
+    /// <summary>Workers the transforms split their rows and column strips over (1: the calling thread only). Results do not depend on it: every row and column is transformed by the same operations whichever worker takes it.</summary>
+    public int Threads { get; }
+    public long Bytes => 8L * (Re.Length + Im.Length + 2L * Threads * PaddedX + _stageCos.Length + _stageSin.Length + _colCos.Length + _colSin.Length) + 4L * _rowReverse.Length;
 
-    public PaddedConvolution(int nx, int ny)
+    public PaddedConvolution(int nx, int ny, int threads = 1)
     {
         if (nx < 1 || ny < 1) throw new ArgumentOutOfRangeException(nameof(nx), "the lattice needs at least one node each way");
-        Nx = nx; Ny = ny;
+        if (threads < 1) throw new ArgumentOutOfRangeException(nameof(threads), "at least one worker");
+        Nx = nx; Ny = ny; Threads = threads;
         PaddedX = PaddedLength(nx);
         PaddedY = PaddedLength(ny);
         Re = new double[PaddedX * PaddedY];
@@ -51,8 +55,8 @@ internal sealed class PaddedConvolution
         (_stageCos, _stageSin) = StageTwiddles(PaddedX);
         (_colCos, _colSin) = Twiddles(PaddedY);
         _rowReverse = BitReversal(PaddedX);
-        _lineRe = new double[PaddedX];
-        _lineIm = new double[PaddedX];
+        _lineRe = Enumerable.Range(0, threads).Select(_ => new double[PaddedX]).ToArray();
+        _lineIm = Enumerable.Range(0, threads).Select(_ => new double[PaddedX]).ToArray();
         // a column strip of both arrays over all rows in about 128 kB (level-2 cache), whole SIMD vectors wide
         int width = Math.Max(1, 128 * 1024 / (16 * PaddedY) / Vector<double>.Count) * Vector<double>.Count;
         _strip = Math.Min(width, PaddedX);
@@ -99,11 +103,11 @@ internal sealed class PaddedConvolution
     {
         Check(spectrum);
         int mx = PaddedX, my = PaddedY;
-        for (int j = 0; j < Ny; j++) ForwardRow(Re, Im, j * mx, Nx);
+        Split(Ny, (from, to, _) => { for (int j = from; j < to; j++) ForwardRow(Re, Im, j * mx, Nx); });
         ForwardColumns(Re, Im, mx, Ny);
         Multiply(spectrum, mx);
         InverseColumns(Re, Im, mx, Ny);
-        for (int j = 0; j < Ny; j++) InverseRow(Re, Im, j * mx, Nx);
+        Split(Ny, (from, to, _) => { for (int j = from; j < to; j++) InverseRow(Re, Im, j * mx, Nx); });
     }
 
     /// <summary>Re := kernel * Re on the input region, for a real field and a real kernel (Im is scratch).</summary>
@@ -111,9 +115,19 @@ internal sealed class PaddedConvolution
     public void ConvolveReal(KernelSpectrum spectrum)
     {
         Check(spectrum);
-        int mx = PaddedX, half = mx / 2, columns = half + 1;
-        var lr = _lineRe; var li = _lineIm;
-        for (int a = 0; a < Ny; a += 2)
+        int mx = PaddedX, half = mx / 2, columns = half + 1, pairs = (Ny + 1) / 2;
+        Split(pairs, (from, to, worker) => ForwardRowPairs(from, to, _lineRe[worker], _lineIm[worker]));
+        ForwardColumns(Re, Im, columns, Ny);
+        Multiply(spectrum, columns);
+        InverseColumns(Re, Im, columns, Ny);
+        Split(pairs, (from, to, worker) => InverseRowPairs(from, to, _lineRe[worker], _lineIm[worker]));
+    }
+
+    /// <summary>Rows 2p and 2p + 1 (p in [from, to)) of a real field transformed as one complex row and split into their Hermitian halves.</summary>
+    private void ForwardRowPairs(int from, int to, double[] lr, double[] li)
+    {
+        int mx = PaddedX, columns = mx / 2 + 1;
+        for (int a = 2 * from; a < 2 * to; a += 2)
         {
             int b = a + 1;
             bool pair = b < Ny;
@@ -134,10 +148,13 @@ internal sealed class PaddedConvolution
                 }
             }
         }
-        ForwardColumns(Re, Im, columns, Ny);
-        Multiply(spectrum, columns);
-        InverseColumns(Re, Im, columns, Ny);
-        for (int a = 0; a < Ny; a += 2)
+    }
+
+    /// <summary>Rows 2p and 2p + 1 (p in [from, to)) back from their Hermitian halves by one complex inverse row transform.</summary>
+    private void InverseRowPairs(int from, int to, double[] lr, double[] li)
+    {
+        int mx = PaddedX, half = mx / 2, columns = half + 1;
+        for (int a = 2 * from; a < 2 * to; a += 2)
         {
             int b = a + 1;
             bool pair = b < Ny;
@@ -160,12 +177,23 @@ internal sealed class PaddedConvolution
         if (!ReferenceEquals(spectrum.Owner, this)) throw new ArgumentException("the spectrum belongs to another convolution lattice", nameof(spectrum));
     }
 
-    private void Multiply(KernelSpectrum spectrum, int columns)
+    /// <summary>body(from, to, worker) over [0, count) in Threads contiguous parts, at once when Threads &gt; 1.</summary>
+    private void Split(int count, Action<int, int, int> body)
+    {
+        int parts = Math.Min(Threads, count);
+        if (parts <= 1) { body(0, count, 0); return; }
+        Parallel.For(0, parts, new ParallelOptions { MaxDegreeOfParallelism = parts }, p => body((int)((long)count * p / parts), (int)((long)count * (p + 1) / parts), p));
+    }
+
+    private void Multiply(KernelSpectrum spectrum, int columns) =>
+        Split(PaddedY, (from, to, _) => MultiplyRows(spectrum, columns, from, to));
+
+    private void MultiplyRows(KernelSpectrum spectrum, int columns, int from, int to)
     {
         int mx = PaddedX;
         var sr = spectrum.Re; var si = spectrum.Im;
         int v = Vector<double>.Count;
-        for (int q = 0; q < PaddedY; q++)
+        for (int q = from; q < to; q++)
         {
             int i = q * mx, e = i + columns;
             for (; i <= e - v; i += v)
@@ -309,11 +337,14 @@ internal sealed class PaddedConvolution
     /// in bit-reversed order; rows from <paramref name="nonzero"/> on are taken as zero (nonzero &lt;= PaddedY/2 or = PaddedY).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void ForwardColumns(double[] re, double[] im, int columns, int nonzero)
+    private void ForwardColumns(double[] re, double[] im, int columns, int nonzero) =>
+        Split((columns + _strip - 1) / _strip, (from, to, _) => ForwardColumnStrips(re, im, columns, nonzero, from, to));
+
+    private void ForwardColumnStrips(double[] re, double[] im, int columns, int nonzero, int fromStrip, int toStrip)
     {
         int n = PaddedY, mx = PaddedX;
         var c = _colCos; var s = _colSin;
-        for (int c0 = 0; c0 < columns; c0 += _strip)
+        for (int c0 = fromStrip * _strip; c0 < Math.Min(columns, toStrip * _strip); c0 += _strip)
         {
             int width = Math.Min(_strip, columns - c0);
             int h = n / 2;
@@ -339,11 +370,14 @@ internal sealed class PaddedConvolution
 
     /// <summary>Inverse DFT (unscaled) along every column from bit-reversed rows to natural rows; the last stage computes only rows below <paramref name="needed"/> (&lt;= PaddedY/2).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void InverseColumns(double[] re, double[] im, int columns, int needed)
+    private void InverseColumns(double[] re, double[] im, int columns, int needed) =>
+        Split((columns + _strip - 1) / _strip, (from, to, _) => InverseColumnStrips(re, im, columns, needed, from, to));
+
+    private void InverseColumnStrips(double[] re, double[] im, int columns, int needed, int fromStrip, int toStrip)
     {
         int n = PaddedY, mx = PaddedX, last = n / 2;
         var c = _colCos; var s = _colSin;
-        for (int c0 = 0; c0 < columns; c0 += _strip)
+        for (int c0 = fromStrip * _strip; c0 < Math.Min(columns, toStrip * _strip); c0 += _strip)
         {
             int width = Math.Min(_strip, columns - c0);
             for (int h = 1; h < last; h <<= 1)

@@ -38,7 +38,7 @@ public static class DragSpeedPlot
             valid.Color = colour;
             valid.LineWidth = 2.5f;
             var sheet = (PlateChoice)option.Choice;
-            valid.LegendText = string.Create(CultureInfo.InvariantCulture, $"{label}: {sheet.ThicknessM * 1e3:0.###} mm {sheet.Material}, {(sheet.Slots is null ? "solid" : "slotted")}, {option.DragN:0.##} N at {v0:0.##} m/s");
+            valid.LegendText = $"{label}: {Numbers.Sig(sheet.ThicknessM * 1e3)} mm {sheet.Material}, {(sheet.Slots is null ? "solid" : "slotted")}, {Numbers.Newtons(option.DragN.Value)} at {Numbers.Of(v0, "m/s")}";
             if (vStar < vMax)
             {
                 var beyond = plot.Add.ScatterLine(new[] { vStar, vMax }, new[] { slope * vStar, slope * vMax });
@@ -49,29 +49,24 @@ public static class DragSpeedPlot
             if (vStar <= vMax && marked.Add(Math.Round(vStar, 6)))
             {
                 var rm = plot.Add.VerticalLine(vStar, 1, colour);
-                rm.LegendText = string.Create(CultureInfo.InvariantCulture, $"Rm = {reynoldsLimit} at {vStar:0.##} m/s ({((PlateChoice)option.Choice).ThicknessM * 1e3:0.###} mm {((PlateChoice)option.Choice).Material})");
+                rm.LegendText = $"Rm = {Numbers.Sig(reynoldsLimit)} at {Numbers.Of(vStar, "m/s")} ({Numbers.Sig(((PlateChoice)option.Choice).ThicknessM * 1e3)} mm {((PlateChoice)option.Choice).Material}): the low-speed model holds below, faded above";
             }
         }
         var run = plot.Add.VerticalLine(v0, 1, PlotStyle.Grey);
-        run.LegendText = string.Create(CultureInfo.InvariantCulture, $"run speed {v0:0.##} m/s");
+        run.LegendText = $"run speed {Numbers.Of(v0, "m/s")}";
         if (part.MaxDragN is { } maxDrag)
         {
             var limit = plot.Add.HorizontalLine(maxDrag, 2, PlotStyle.Black);
-            limit.LegendText = string.Create(CultureInfo.InvariantCulture, $"drag limit {maxDrag:0.##} N");
+            limit.LegendText = $"drag limit {Numbers.Newtons(maxDrag)}";
         }
         var beyondRange = limitSpeeds.Where(v => v > vMax).ToList();
-        var note = plot.Add.Annotation(string.Create(CultureInfo.InvariantCulture, $"Low-speed model: drag ∝ speed, valid while the magnetic\nReynolds number μ0σtv/2 stays below {reynoldsLimit}; faded beyond.")
-            + (beyondRange.Count > 0 ? string.Create(CultureInfo.InvariantCulture, $"\nRm reaches {reynoldsLimit} only above {beyondRange.Min():0.#} m/s (off the plot).") : ""), Alignment.UpperRight);
-        note.LabelFontSize = 12;
-        note.LabelFontName = PlotStyle.FontName;
-        note.LabelBackgroundColor = Colors.White;
-        note.LabelBorderColor = PlotStyle.Grey;
-        plot.Axes.SetLimits(0, vMax, 0, Math.Max(lines.Max(l => l.Option.DragN!.Value / v0) * vMax, part.MaxDragN ?? 0) * 1.5);   // headroom above the lines for the legend and the note
-        plot.Legend.Alignment = Alignment.UpperLeft;
-        plot.ShowLegend();
+        plot.Axes.SetLimits(0, vMax, 0, Math.Max(lines.Max(l => l.Option.DragN!.Value / v0) * vMax, part.MaxDragN ?? 0) * 1.1);
+        var legendPx = PlotStyle.LegendBelow(plot);
         var caption = string.Create(CultureInfo.InvariantCulture,
-            $"Drag scaled from each option's drag at the run's {v0:0.##} m/s (dots); the designs are described in full above. The model neglects the eddy currents' own field; above Rm = {reynoldsLimit} it overstates the drag (by about 6-9 % at 0.3, more above), and at high speed real drag passes a maximum and falls. Not a brake rating.");
-        return PlotStyle.Render(plot, FileStemFor(partIndex, part), $"Drag against speed: {part.Name}", caption);
+            $"Drag scaled from each option's drag at the run's {v0:0.##} m/s (dots); the designs are described in full above. The low-speed model (drag proportional to speed) holds while the magnetic Reynolds number μ0σtv/2 stays below {reynoldsLimit}; each line is faded beyond the speed where it reaches it")
+            + (beyondRange.Count > 0 ? $" (for some sheets only above {Numbers.Of(beyondRange.Min(), "m/s")}, off the plot)" : "")
+            + string.Create(CultureInfo.InvariantCulture, $". The model neglects the eddy currents' own field; above Rm = {reynoldsLimit} it overstates the drag (by about 6-9 % at 0.3, more above), and at high speed real drag passes a maximum and falls. Not a brake rating.");
+        return PlotStyle.Render(plot, FileStemFor(partIndex, part), $"Drag against speed: {part.Name}", caption, heightPx: PlotStyle.HeightPx + legendPx);
     }
 
     private static string Label(DesignRole role, bool referenceIsCurrent) => role switch

@@ -1,3 +1,4 @@
+using System.Globalization;
 using System.Net;
 using System.Text;
 
@@ -5,7 +6,8 @@ namespace SlotOpt.Reports;
 
 /// <summary>
 /// index.html: one self-contained page. Plots are embedded as PNG data URIs (no file, font or script
-/// is fetched), the style sheet is inline, and the only links point to the files beside it.
+/// is fetched), the style sheet is inline, and the only links point to the files beside it. The trade-off's
+/// points name their designs when pointed at (an inline SVG layer of titled circles; no script).
 /// </summary>
 public static class HtmlRenderer
 {
@@ -14,6 +16,7 @@ public static class HtmlRenderer
         h1 { font-size: 1.6em; margin-bottom: 0.2em; }
         h2 { font-size: 1.25em; margin-top: 1.8em; border-bottom: 1px solid #bbb; padding-bottom: 0.15em; }
         p.stamp { color: #555; font-size: 0.9em; margin-top: 0; }
+        p.verdict { font-size: 1.08em; font-weight: bold; background: #eef5fb; border-left: 4px solid #0072B2; padding: 0.5em 0.8em; margin: 0.6em 0 0; }
         table { border-collapse: collapse; margin: 0.8em 0; font-size: 0.92em; }
         th, td { border: 1px solid #c8c8c8; padding: 0.25em 0.55em; vertical-align: top; }
         th { background: #f0f0f0; text-align: left; }
@@ -21,6 +24,11 @@ public static class HtmlRenderer
         figure { margin: 1.2em 0; }
         figure img { max-width: 100%; height: auto; border: 1px solid #ddd; }
         figcaption { font-size: 0.9em; color: #333; }
+        div.pointable { position: relative; display: inline-block; max-width: 100%; }
+        div.pointable img { display: block; }
+        svg.tips { position: absolute; left: 1px; top: 1px; width: calc(100% - 2px); height: calc(100% - 2px); }
+        svg.tips circle { fill: transparent; stroke: none; pointer-events: all; cursor: help; }
+        svg.tips circle:hover { stroke: #D55E00; stroke-width: 3; }
         """;
 
     public static string Render(ReportDocument document)
@@ -37,6 +45,7 @@ public static class HtmlRenderer
                 case Heading h: s.Append("<h2>").Append(E(h.Text)).Append("</h2>\n"); break;
                 case Paragraph p: s.Append("<p>").Append(E(p.Text)).Append("</p>\n"); break;
                 case StampLine t: s.Append("<p class=\"stamp\">").Append(E(t.Text)).Append("</p>\n"); break;
+                case Verdict v: s.Append("<p class=\"verdict\" id=\"verdict\">").Append(E(v.Text)).Append("</p>\n"); break;
                 case BulletList l:
                     s.Append("<ul>\n");
                     foreach (var item in l.Items) s.Append("<li>").Append(E(item)).Append("</li>\n");
@@ -56,8 +65,11 @@ public static class HtmlRenderer
                     s.Append("</table>\n");
                     break;
                 case FigureBlock f:
-                    s.Append("<figure>\n<img alt=\"").Append(E(f.Figure.Title)).Append("\" src=\"data:image/png;base64,")
+                    s.Append("<figure>\n");
+                    if (f.Figure.Tips is { } tips) s.Append("<div class=\"pointable\">\n");
+                    s.Append("<img alt=\"").Append(E(f.Figure.Title)).Append("\" src=\"data:image/png;base64,")
                         .Append(Convert.ToBase64String(f.Figure.Png)).Append("\">\n");
+                    if (f.Figure.Tips is { } points) AppendTips(s, points);
                     s.Append("<figcaption>").Append(E(f.Figure.Caption)).Append(" Files: <a href=\"").Append(E(f.Figure.PngFileName)).Append("\">PNG</a>, <a href=\"")
                         .Append(E(f.Figure.SvgFileName)).Append("\">SVG</a>.</figcaption>\n</figure>\n");
                     break;
@@ -66,6 +78,18 @@ public static class HtmlRenderer
         }
         s.Append("</body>\n</html>\n");
         return s.ToString();
+    }
+
+    /// <summary>
+    /// An SVG layer over the image, scaled with it (same viewBox as the image's pixels): one circle a point, whose
+    /// title the browser shows when the pointer rests on it. No script, so the page stays a still, offline file.
+    /// </summary>
+    private static void AppendTips(StringBuilder s, PointTips tips)
+    {
+        s.Append(CultureInfo.InvariantCulture, $"<svg class=\"tips\" viewBox=\"0 0 {tips.WidthPx} {tips.HeightPx}\" preserveAspectRatio=\"none\">\n");
+        foreach (var (x, y, text) in tips.Points)
+            s.Append(CultureInfo.InvariantCulture, $"<circle cx=\"{x:0.#}\" cy=\"{y:0.#}\" r=\"9\"><title>").Append(E(text)).Append("</title></circle>\n");
+        s.Append("</svg>\n</div>\n");
     }
 
     private static string E(string text) => WebUtility.HtmlEncode(text);

@@ -34,7 +34,7 @@ public static class LossBreakdownPlot
         }
         var referenceWord = r.Parts.Any(p => p.ReferenceIsCurrent) ? "current" : "baseline";
 
-        var plot = PlotStyle.NewPlot($"Loss by origin: chosen design and {referenceWord} design", "", "loss (W)");
+        var plot = PlotStyle.NewPlot($"Loss by origin: chosen design and {referenceWord} design", "design and part", "loss (W)");
         var bars = new List<Bar>();
         var ticks = new List<(double Position, string Label)>();
         var position = 0.0;
@@ -69,7 +69,7 @@ public static class LossBreakdownPlot
         var top = totalsByBar.Max(t => t.Watts);
         foreach (var (x, watts) in totalsByBar)
         {
-            var text = plot.Add.Text(string.Create(CultureInfo.InvariantCulture, $"{watts:0.##} W"), x, watts + top * 0.015);
+            var text = plot.Add.Text(Numbers.Watts(watts), x, watts + top * 0.015);
             text.LabelFontSize = 12;
             text.LabelFontName = PlotStyle.FontName;
             text.LabelAlignment = Alignment.LowerCenter;
@@ -85,7 +85,7 @@ public static class LossBreakdownPlot
         var caption = "Each bar stacks the loss counted against the design; the number above it is the total. "
             + (r.Parts.Any(p => IsMoving(p.Part)) ? "For a plate passed by moving poles the eddy loss is the drag power F v, stacked once. " : "")
             + $"The {referenceWord} design is the one the savings are measured against.";
-        return PlotStyle.Render(plot, FileStem, "Loss breakdown", caption);
+        return PlotStyle.Render(plot, FileStem, "Loss breakdown", caption, categoricalX: true);
     }
 
     private static bool IsMoving(Part part) => part is PlatePart { Excitation.IsMoving: true };

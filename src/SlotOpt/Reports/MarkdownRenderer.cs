@@ -17,6 +17,7 @@ public static class MarkdownRenderer
                 case Heading h: s.Append("## ").Append(Escape(h.Text)).Append('\n'); break;
                 case Paragraph p: s.Append(Escape(p.Text)).Append('\n'); break;
                 case StampLine t: s.Append('_').Append(Escape(t.Text)).Append("_\n"); break;
+                case Verdict v: s.Append("**").Append(Escape(v.Text)).Append("**\n"); break;
                 case BulletList l: foreach (var item in l.Items) s.Append("- ").Append(Escape(item)).Append('\n'); break;
                 case Table t:
                     s.Append("| ").Append(string.Join(" | ", t.Header.Select(Cell))).Append(" |\n");
@@ -36,10 +37,12 @@ public static class MarkdownRenderer
     /// <summary>
     /// Markdown's active characters in running text, backslash-escaped only where they would act (CommonMark 0.31,
     /// J. MacFarlane, 2024: an underscore inside a word opens no emphasis (section 6.2), brackets make a link only
-    /// as "](", "][" or "]:" (sections 6.3, 4.7), # and &gt; act only at the start of a line), so that
-    /// "parts[1].peak_flux_density" reads as written in the plain text too.
+    /// as "](", "][" or "]:" (sections 6.3, 4.7), # and &gt; act only at the start of a line, &lt; opens a tag or an
+    /// autolink only before a letter, "/", "!" or "?" (sections 6.5, 6.6); a pipe acts only inside a table row
+    /// (GitHub Flavored Markdown 0.29, section 4.10)), so that "parts[1].peak_flux_density" and "Rm &lt;= 0.1" read
+    /// as written in the plain text too.
     /// </summary>
-    private static string Escape(string text)
+    private static string Escape(string text, bool inTable = false)
     {
         var s = new StringBuilder(text.Length);
         for (var i = 0; i < text.Length; i++)
@@ -49,7 +52,9 @@ public static class MarkdownRenderer
             var next = i + 1 < text.Length ? text[i + 1] : ' ';
             var acts = c switch
             {
-                '\\' or '*' or '`' or '<' or '|' => true,
+                '\\' or '*' or '`' => true,
+                '<' => char.IsAsciiLetter(next) || next is '/' or '!' or '?',
+                '|' => inTable,
                 '_' => !(char.IsLetterOrDigit(previous) && char.IsLetterOrDigit(next)),
                 ']' => next is '(' or '[' or ':',
                 '#' or '>' => i == 0,
@@ -62,5 +67,5 @@ public static class MarkdownRenderer
     }
 
     /// <summary>A table cell: Markdown tables cannot break a line inside a cell, so the lines of a cell are joined by "; ".</summary>
-    private static string Cell(string text) => Escape(text).Replace("\n", "; ");
+    private static string Cell(string text) => Escape(text, inTable: true).Replace("\n", "; ");
 }

@@ -41,6 +41,49 @@ public static class PlotStyle
         return plot;
     }
 
-    public static Figure Render(Plot plot, string fileStem, string title, string caption, int widthPx = WidthPx, int heightPx = HeightPx) =>
-        new(fileStem, title, caption, plot.GetImageBytes(widthPx, heightPx, ImageFormat.Png), SvgIds.Renumber(plot.GetSvgXml(widthPx, heightPx)));
+    /// <summary>
+    /// The legend in a panel below the data area, so it covers no data (<see cref="PlotChecks"/> verifies it after
+    /// rendering); returns the pixels it takes, to be added to the figure's height.
+    /// </summary>
+    public static int LegendBelow(Plot plot)
+    {
+        plot.Legend.FontSize = 12;
+        plot.Legend.FontName = FontName;
+        plot.Legend.InterItemPadding = new PixelPadding(0, 0, 2, 2);
+        var heightPx = plot.Legend.GetImage().Height + 30;   // the legend's own height, one item a line, and its margin
+        var panel = plot.ShowLegend(Edge.Bottom);
+        panel.MinimumSize = panel.MaximumSize = heightPx;   // the panel otherwise clips a long legend
+        return heightPx;
+    }
+
+    /// <summary>
+    /// Panels stacked top to bottom in one figure, each <paramref name="panelHeightPx"/> tall (a ScottPlot multiplot),
+    /// rendered as PNG and SVG; each panel is checked as <see cref="Render"/> checks a plot.
+    /// </summary>
+    public static Figure RenderPanels(IReadOnlyList<Plot> panels, string fileStem, string title, string caption, int panelHeightPx)
+    {
+        var multiplot = new Multiplot();
+        multiplot.Reset(panels[0]);   // a new multiplot holds one empty plot of its own: start from the first panel instead
+        foreach (var panel in panels.Skip(1)) multiplot.AddPlot(panel);
+        foreach (var panel in panels) PlotChecks.AxisLabels(panel, fileStem, categoricalX: false);
+        var heightPx = panelHeightPx * panels.Count;
+        var png = multiplot.Render(WidthPx, heightPx).GetImageBytes(ImageFormat.Png);
+        foreach (var panel in panels) PlotChecks.LegendClearOfData(panel, fileStem);
+        using var svg = new MemoryStream();
+        using (var canvas = SkiaSharp.SKSvgCanvas.Create(new SkiaSharp.SKRect(0, 0, WidthPx, heightPx), svg))   // SkiaSharp's SVG canvas, as Plot.GetSvgXml uses
+            multiplot.Render(canvas, new PixelRect(0, WidthPx, heightPx, 0));
+        return new Figure(fileStem, title, caption, png, SvgIds.Renumber(System.Text.Encoding.UTF8.GetString(svg.ToArray())));
+    }
+
+    /// <summary>
+    /// Renders the plot as PNG and SVG, then checks it (<see cref="PlotChecks"/>): axis labels with units
+    /// (<paramref name="categoricalX"/>: the x axis names categories) and no legend over a plotted point.
+    /// </summary>
+    public static Figure Render(Plot plot, string fileStem, string title, string caption, int widthPx = WidthPx, int heightPx = HeightPx, bool categoricalX = false)
+    {
+        PlotChecks.AxisLabels(plot, fileStem, categoricalX);
+        var png = plot.GetImageBytes(widthPx, heightPx, ImageFormat.Png);
+        PlotChecks.LegendClearOfData(plot, fileStem);
+        return new Figure(fileStem, title, caption, png, SvgIds.Renumber(plot.GetSvgXml(widthPx, heightPx)));
+    }
 }

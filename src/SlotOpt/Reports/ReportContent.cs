@@ -8,9 +8,9 @@ using SlotOpt.Selection;
 namespace SlotOpt.Reports;
 
 /// <summary>
-/// What the report says, in order: the job and its inputs, the chosen design in workshop words, what it
-/// saves, which limits bind, the plots, the options the rules dropped, the validity flags, and the
-/// assumptions and cautions. Numbers are formatted as the console prints them, so the two agree.
+/// What the report says, in order: a one-line verdict, the chosen design in workshop words, what it saves,
+/// which limits bind, the job and its inputs, the plots, the options the rules dropped, the validity flags,
+/// and the assumptions, cautions and methods. Numbers follow <see cref="Numbers"/>, as the console does, so the two agree.
 /// </summary>
 public static class ReportContent
 {
@@ -18,11 +18,12 @@ public static class ReportContent
 
     public static ReportDocument Build(RunResult r, ReportFigures figures, string stampLine)
     {
-        var blocks = new List<ReportBlock> { new StampLine(stampLine) };
-        Job(r, blocks);
+        var limits = LimitChecks(r);
+        var blocks = new List<ReportBlock> { new StampLine(stampLine), new Verdict(VerdictLine(r, limits)) };
         Result(r, blocks);
         Savings(r, blocks);
-        Limits(r, blocks);
+        Limits(r, limits, blocks);
+        Job(r, blocks);
         Plots(r, figures, blocks);
         Rejections(r, blocks);
         Flags(r, blocks);
@@ -33,6 +34,39 @@ public static class ReportContent
 
     private static string F(FormattableString s) => s.ToString(Ci);
     private static string Cur(RunResult r) => r.Problem.Economics.Currency;
+    private static string N(double value) => Numbers.Sig(value);
+    private static string Money(RunResult r, double amount) => Numbers.Money(amount, Cur(r));
+
+    /// <summary>One limit the chosen design is held to: its words, and whether the design uses it to within <see cref="BindingFraction"/>.</summary>
+    private sealed record LimitCheck(string Name, string Text, bool Binds);
+
+    /// <summary>
+    /// The verdict at the top of the report: the chosen design, what it saves against the current design (or the
+    /// first baseline) in owning cost and loss, and which limits bind; or why there is no design.
+    /// </summary>
+    private static string VerdictLine(RunResult r, IReadOnlyList<LimitCheck> limits)
+    {
+        if (r.Chosen is null)
+            return r.Outcome.Status == SelectionStatus.Infeasible
+                ? "Verdict: no design meets every limit" + (r.Outcome.Diagnosis?.Explain() is [var first, ..] ? ": " + first : ".")
+                : "Verdict: the search ran out of its time budget before finding a design that meets every limit.";
+        var design = r.Chosen.Count == 1 ? WorkshopWords.Of(r.Chosen[0]) : string.Join("; ", r.Chosen.Select(o => $"{o.PartName}: {WorkshopWords.Of(o)}"));
+        var reference = r.Reference;
+        var savedOwning = reference.OwningCost(r.Problem) - r.OwningCost;
+        var savedW = reference.LossW - r.TotalLossW;
+        var saves = (savedOwning >= 0 ? $"saves {Money(r, savedOwning)}" : $"costs {Money(r, -savedOwning)} more") + " of owning cost and "
+            + (savedW >= 0 ? $"{Numbers.Watts(savedW)} of loss" : $"adds {Numbers.Watts(-savedW)} of loss")
+            + $" against the {reference.Name} ({Numbers.Watts(reference.LossW)} to {Numbers.Watts(r.TotalLossW)})"
+            + (BaselineBreaks.Of(r, reference).Count > 0 ? $", which breaks a limit" : "");
+        var binding = limits.Where(l => l.Binds).Select(l => l.Name).ToList();
+        var binds = binding.Count switch
+        {
+            0 => limits.Count == 0 ? "no limit is set" : "no limit binds (the goal alone chose it)",
+            1 => $"the {binding[0]} binds",
+            _ => $"binding: {string.Join(", ", binding)}",
+        };
+        return $"Verdict: {design}. It {saves}; {binds}.";
+    }
 
     /// <summary>" (tie plate, clamp)" naming the parts whose loss is of this kind, or "" when none is.</summary>
     private static string PartsOfKind(Problem p, LossKind kind)
@@ -48,11 +82,11 @@ public static class ReportContent
         b.Add(new Heading("The job"));
         b.Add(new Paragraph(F($"Problem file {Path.GetFileName(p.SourcePath)}; goal: {GoalWords(p.Goal)}. Currency {e.Currency}.")));
         var economics = e.SeparatesLoadLoss
-            ? F($"A watt of no-load loss{PartsOfKind(p, LossKind.NoLoad)} is worth {e.ValuePerWatt:0.###} {e.Currency} over the life, a watt of load loss{PartsOfKind(p, LossKind.Load)} {e.LoadValuePerWatt:0.###} {e.Currency}")
-              + (e.LoadEnergyShare is { } share ? F($", since load loss is paid at (per-unit load)^2 x loss factor = {share:0.###} of the energised hours (IEEE C57.120 A and B factors)") : "")
-            : F($"A watt of continuous loss is worth {e.ValuePerWatt:0.###} {e.Currency} over the life");
+            ? F($"A watt of no-load loss{PartsOfKind(p, LossKind.NoLoad)} is worth {N(e.ValuePerWatt)} {e.Currency} over the life, a watt of load loss{PartsOfKind(p, LossKind.Load)} {N(e.LoadValuePerWatt!.Value)} {e.Currency}")
+              + (e.LoadEnergyShare is { } share ? F($", since load loss is paid at (per-unit load)^2 x loss factor = {N(share)} of the energised hours (IEEE C57.120 A and B factors)") : "")
+            : F($"A watt of continuous loss is worth {N(e.ValuePerWatt)} {e.Currency} over the life");
         if (e.EnergyPricePerKWh is { } price && e.HoursPerYear is { } hours)
-            economics += F($" (energy at {price:0.###} {e.Currency}/kWh for {hours:0} h a year") + (e.Years is { } years ? F($", {years:0.#} years") : "")
+            economics += F($" (energy at {N(price)} {e.Currency}/kWh for {hours:0} h a year") + (e.Years is { } years ? F($", {years:0.#} years") : "")
                 + (e.DiscountRate is { } rate ? F($" discounted at {rate * 100:0.#} %") : "") + ")";
         b.Add(new Paragraph(economics + "."));
         var rows = r.Parts.Select(pe => (IReadOnlyList<string>)[pe.Part.Name, Inputs(pe.Part), pe.Options.Count.ToString(Ci), pe.Feasible.Count.ToString(Ci)]).ToList();
@@ -60,7 +94,7 @@ public static class ReportContent
         var limits = SharedLimitLines(p).ToList();
         b.Add(new Paragraph(limits.Count == 0 ? "No shared limits across the parts." : "Shared limits: " + string.Join("; ", limits) + "."));
         if (p.Warnings.Count > 0) b.Add(new BulletList(p.Warnings.Select(w => "warning: " + w).ToList()));
-        b.Add(new Paragraph(F($"{r.Parts.Sum(pe => pe.Options.Count)} options evaluated ({r.Parts.Sum(pe => pe.Feasible.Count)} within the rules), {r.SheetSolves} plate solves; CP-SAT {r.Outcome.Effort.SolverCalls} calls.")));
+        b.Add(new Paragraph(F($"{r.Parts.Sum(pe => pe.Options.Count)} options evaluated ({r.Parts.Sum(pe => pe.Feasible.Count)} within the rules), {r.SheetSolves} plate solves; the selection search made {r.Outcome.Effort.SolverCalls} solver calls.")));
     }
 
     private static string GoalWords(Objective goal) => goal switch
@@ -74,10 +108,10 @@ public static class ReportContent
 
     private static string Inputs(Part part) => part switch
     {
-        CorePart c => F($"laminated core: {c.LaminationAreaM2 * 1e4:0.##} cm² lamination area, {c.StackHeightM * 1e3:0.#} mm stack; {c.Flux.PeakT:0.###} T peak at {c.Flux.FundamentalHz:0.#} Hz, {(c.Flux.IsSinusoidal ? "sine" : "non-sinusoidal waveform")}; {c.TemperatureK - 273.15:0} °C")
+        CorePart c => F($"laminated core: {c.LaminationAreaM2 * 1e4:0.##} cm² lamination area, {c.StackHeightM * 1e3:0.#} mm stack; {N(c.Flux.PeakT)} T peak at {c.Flux.FundamentalHz:0.#} Hz, {(c.Flux.IsSinusoidal ? "sine" : "non-sinusoidal waveform")}; {c.TemperatureK - 273.15:0} °C")
             + (double.IsFinite(c.FeatureWidthM) ? F($"; narrowest feature {c.FeatureWidthM * 1e3:0.##} mm") : "")
             + $"; grades {string.Join(", ", c.Grades)}; processes {string.Join(", ", c.Processes)}"
-            + (c.MaxLossW is { } max ? F($"; loss limit {max:0.##} W") : ""),
+            + (c.MaxLossW is { } max ? $"; loss limit {Numbers.Watts(max)}" : ""),
         PlatePart pl => PlateInputs(pl),
         _ => throw new ArgumentOutOfRangeException(nameof(part), part.GetType().Name, "unknown part kind"),
     };
@@ -87,16 +121,16 @@ public static class ReportContent
         var (min, max) = p.Outline.Bounds;
         var source = p.Excitation switch
         {
-            PlateExcitation.Moving { Poles: var poles } => F($"{poles.Poles.Count} poles passing at {poles.SpeedMPerS:0.##} m/s"),
-            PlateExcitation.AcField field => F($"AC field at {field.FrequencyHz:0.#} Hz"),
+            PlateExcitation.Moving { Source: var moving } => F($"{moving.Words} passing at {moving.SpeedMPerS:0.##} m/s"),
+            PlateExcitation.AcField field => F($"AC field at {field.FrequencyHz:0.#} Hz") + (field.FieldMapFile is { } map ? $" from the field-map file {map}" : " (uniform)"),
             _ => throw new ArgumentOutOfRangeException(nameof(p), p.Excitation.GetType().Name, "unknown plate excitation"),
         };
         return F($"plate {(max.X - min.X) * 1e3:0.#} x {(max.Y - min.Y) * 1e3:0.#} mm; {source}; {p.TemperatureK - 273.15:0} °C; thicknesses ")
             + string.Join(", ", p.ThicknessesM.Select(t => F($"{t * 1e3:0.###} mm"))) + $"; materials {string.Join(", ", p.Materials)}; processes {string.Join(", ", p.Processes)}; "
             + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{SlotPatternCatalog.Of(f.Pattern).Words} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
             + F($"; uncut ligament at least {p.MinLigamentM * 1e3:0.#} mm")
-            + (p.MaxDragN is { } drag ? F($"; drag limit {drag:0.##} N") : "")
-            + (p.MaxLossW is { } loss ? F($"; loss limit {loss:0.##} W") : "")
+            + (p.MaxDragN is { } drag ? $"; drag limit {Numbers.Newtons(drag)}" : "")
+            + (p.MaxLossW is { } loss ? $"; loss limit {Numbers.Watts(loss)}" : "")
             + (p.Thermal is { } th ? "; " + CoolingWords(th) : "");
     }
 
@@ -110,8 +144,8 @@ public static class ReportContent
 
     private static IEnumerable<string> SharedLimitLines(Problem p)
     {
-        if (p.Limits.Budget is { } budget) yield return F($"build budget {budget:0.00} {p.Economics.Currency}");
-        if (p.Limits.TotalLossCapW is { } cap) yield return F($"total loss cap {cap:0.###} W");
+        if (p.Limits.Budget is { } budget) yield return $"build budget {Numbers.Money(budget, p.Economics.Currency)}";
+        if (p.Limits.TotalLossCapW is { } cap) yield return $"total loss cap {Numbers.Watts(cap)}";
         foreach (var group in p.Limits.CoilGroups) yield return $"{string.Join(" and ", group)} cut from one coil (same grade and gauge)";
         if (p.Limits.MaxDistinctProcesses is { } n) yield return F($"at most {n} cutting processes");
     }
@@ -127,12 +161,12 @@ public static class ReportContent
             return;
         }
         b.Add(new Paragraph(r.Outcome.Status == SelectionStatus.FeasibleAtLimit
-            ? "The search hit its time budget: the design below meets every limit but is not proven best."
-            : "Proven best for the goal within every limit (CP-SAT, optimal)."));
+            ? "The search hit its time budget: the design below meets every limit, but a better one among the listed options may exist."
+            : "The best among the listed options under the stated models, for the goal and within every limit (the search went through all of them; see the methods note)."));
         var withDrag = r.Chosen.Any(o => o.DragN is not null);
         var rows = new List<IReadOnlyList<string>>();
         IReadOnlyList<string> Row(string part, string which, EvaluatedOption o, string design) =>
-            withDrag ? [part, which, design, F($"{o.Loss.TotalW:0.###}"), Drag(o.DragN), F($"{o.BuildCost:0.00}")] : [part, which, design, F($"{o.Loss.TotalW:0.###}"), F($"{o.BuildCost:0.00}")];
+            withDrag ? [part, which, design, N(o.Loss.TotalW), Drag(o.DragN), N(o.BuildCost)] : [part, which, design, N(o.Loss.TotalW), N(o.BuildCost)];
         for (var i = 0; i < r.Chosen.Count; i++)
         {
             var c = r.Chosen[i];
@@ -164,15 +198,15 @@ public static class ReportContent
         var who = h.Role == DesignRole.Chosen ? "chosen" : "reference";
         if (h.Heating is not { } heated) return $"{h.PartName}, {who} ({h.Option.Description}): no steady state ({h.Failure})";
         var t = heated.Temperature;
-        return F($"{h.PartName}, {who} ({h.Option.Description}): hottest {t.HottestK - 273.15:0.#} °C (rise {t.MaxRiseK:0.#} K) at x {t.HottestXM * 1e3:0} mm, y {t.HottestYM * 1e3:0} mm; mean rise {t.MeanRiseK:0.#} K above {t.AmbientK - 273.15:0.#} °C; resistivity at {heated.LossWeightedTemperatureK - 273.15:0.#} °C (loss-weighted), coupled loss {heated.LossW:0.###} W; ")
+        return F($"{h.PartName}, {who} ({h.Option.Description}): hottest {Numbers.Celsius(t.HottestK)} (rise {Numbers.Kelvin(t.MaxRiseK)}) at x {t.HottestXM * 1e3:0} mm, y {t.HottestYM * 1e3:0} mm; mean rise {Numbers.Kelvin(t.MeanRiseK)} above {Numbers.Celsius(t.AmbientK)}; resistivity at {Numbers.Celsius(heated.LossWeightedTemperatureK)} (loss-weighted), coupled loss {Numbers.Watts(heated.LossW)}; ")
             + (h.Limit.IsSet ? h.Breach ?? "within the limit" : "no limit set");
     }
 
     /// <summary>One chosen plate as confirmed: which model ran, and its loss, drag and lift against the screen.</summary>
     private static string ConfirmationLine(PlateConfirmation c) =>
-        F($"{c.PartName}: {c.ModelWords}: loss {c.LossW:0.###} W{(c.DragN is { } d ? F($", drag {d:0.###} N") : "")}{(c.LiftN is { } l ? F($", lift {l:0.###} N") : "")} (resistance-limited screen: {c.ResistanceLimitedLossW:0.###} W){(c.GridError is { } e ? F($"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}");
+        $"{c.PartName}: {c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? F($"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
 
-    private static string Drag(double? dragN) => dragN is { } d ? F($"{d:0.###}") : "";
+    private static string Drag(double? dragN) => dragN is { } d ? N(d) : "";
 
     private static void Savings(RunResult r, List<ReportBlock> b)
     {
@@ -186,60 +220,67 @@ public static class ReportContent
             var savedOwning = reference.OwningCost(r.Problem) - r.OwningCost;
             var extraCost = r.TotalBuildCost - reference.BuildCost;
             var text = savedW >= 0
-                ? F($"Against the {reference.Name}, the chosen design saves {savedW:0.###} W")
-                : F($"Against the {reference.Name}, the chosen design loses {-savedW:0.###} W more (a negative saving: the goal traded loss for build cost)");
+                ? $"Against the {reference.Name}, the chosen design saves {Numbers.Watts(savedW)}"
+                : $"Against the {reference.Name}, the chosen design loses {Numbers.Watts(-savedW)} more (a negative saving: the goal traded loss for build cost)";
             if (r.Problem.YearlyLossCost(reference.Options) is { } referenceYearly && r.Problem.YearlyLossCost(r.Chosen!) is { } chosenYearly)
             {
                 var savedYearly = referenceYearly - chosenYearly;
-                text += F($" = {savedYearly:0.00} {cur} a year");
-                if (extraCost > 0 && savedYearly > 0) text += F($" (its extra build cost of {extraCost:0.00} {cur} is paid back in {extraCost / savedYearly:0.#} years, undiscounted)");
+                text += $" = {Money(r, savedYearly)} a year";
+                if (extraCost > 0 && savedYearly > 0) text += F($" (its extra build cost of {Money(r, extraCost)} is paid back in {extraCost / savedYearly:0.#} years, undiscounted)");
             }
             else text += " (the energy price and hours are not given, so no figure per year)";
-            text += F($", and {(savedOwning >= 0 ? "saves" : "adds")} {Math.Abs(savedOwning):0.00} {cur} of owning cost over the life ") + (r.Problem.Economics.SeparatesLoadLoss
-                ? F($"(no-load loss at {vpw:0.###} {cur}/W, load loss at {r.Problem.Economics.LoadValuePerWatt:0.###} {cur}/W).")
-                : F($"(loss at {vpw:0.###} {cur}/W)."));
+            text += F($", and {(savedOwning >= 0 ? "saves" : "adds")} {Money(r, Math.Abs(savedOwning))} of owning cost over the life ") + (r.Problem.Economics.SeparatesLoadLoss
+                ? F($"(no-load loss at {N(vpw)} {cur}/W, load loss at {N(r.Problem.Economics.LoadValuePerWatt!.Value)} {cur}/W).")
+                : $"(loss at {N(vpw)} {cur}/W).");
             b.Add(new Paragraph(text));
         }
         var rows = new List<IReadOnlyList<string>>();
-        if (r.HasDesign) rows.Add(["chosen design", F($"{r.TotalLossW:0.###}"), F($"{r.TotalBuildCost:0.00}"), F($"{r.OwningCost:0.00}"), "meets every limit"]);
+        if (r.HasDesign) rows.Add(["chosen design", N(r.TotalLossW), N(r.TotalBuildCost), N(r.OwningCost), "meets every limit"]);
         foreach (var baseline in r.Baselines)
-            rows.Add([baseline.Name, F($"{baseline.LossW:0.###}"), F($"{baseline.BuildCost:0.00}"), F($"{baseline.OwningCost(r.Problem):0.00}"),
+            rows.Add([baseline.Name, N(baseline.LossW), N(baseline.BuildCost), N(baseline.OwningCost(r.Problem)),
                 BaselineBreaks.Of(r, baseline) is { Count: > 0 } broken ? string.Join("\n", broken) : "meets every limit"]);
         b.Add(new Table(["design", "loss (W)", $"build cost ({cur})", $"owning cost ({cur})", "limits it breaks"], rows, [false, true, true, true, false]));
         b.Add(new Paragraph("The baselines are whole-product designs: the first is the design the file calls current (or solid plates and the first grade listed); then every core at its thickest and at its thinnest gauge with every plate solid. They are checked against the parts' rules and limits, the budget and the loss cap; not against the coil and process-count limits."));
     }
 
-    private static void Limits(RunResult r, List<ReportBlock> b)
+    /// <summary>Every limit the chosen design is held to, with how much of it the design uses; empty when there is no design.</summary>
+    private static IReadOnlyList<LimitCheck> LimitChecks(RunResult r)
+    {
+        var checks = new List<LimitCheck>();
+        if (r.Chosen is not { } chosen) return checks;
+        var limits = r.Problem.Limits;
+        if (limits.Budget is { } budget) checks.Add(Against("build budget", r.TotalBuildCost, budget, Cur(r)));
+        if (limits.TotalLossCapW is { } cap) checks.Add(Against("total loss cap", r.TotalLossW, cap, "W"));
+        foreach (var group in limits.CoilGroups)
+        {
+            var coils = chosen.Where(o => group.Contains(o.PartName)).Select(o => o.Attributes.TryGetValue("coil", out var c) ? c : "?").Distinct().ToList();
+            checks.Add(new LimitCheck($"one coil for {string.Join(" and ", group)}", $"one coil for {string.Join(" and ", group)}: {string.Join(", ", coils)}", false));
+        }
+        if (limits.MaxDistinctProcesses is { } n)
+        {
+            var used = chosen.Select(o => o.Attributes["process"]).Distinct().ToList();
+            checks.Add(new LimitCheck("limit on cutting processes", F($"cutting processes: {used.Count} used ({string.Join(", ", used)}) of at most {n}") + (used.Count == n ? ": at the limit" : ""), used.Count == n));
+        }
+        for (var i = 0; i < chosen.Count; i++)
+        {
+            var part = r.Parts[i].Part;
+            if (part is PlatePart { MaxDragN: { } maxDrag } && chosen[i].DragN is { } drag) checks.Add(Against($"{part.Name}: drag limit", drag, maxDrag, "N"));
+            if (part.MaxLossW is { } maxLoss) checks.Add(Against($"{part.Name}: loss limit", chosen[i].Loss.TotalW, maxLoss, "W"));
+            if (r.HeatOf(part.Name, DesignRole.Chosen) is { Heating: { } heated, Limit: var limit })
+            {
+                if (limit.MaxTemperatureK is { } maxK) checks.Add(Against($"{part.Name}: temperature limit", heated.Temperature.HottestK - 273.15, maxK - 273.15, "°C"));
+                if (limit.MaxRiseK is { } maxRise) checks.Add(Against($"{part.Name}: temperature-rise limit", heated.Temperature.MaxRiseK, maxRise, "K"));
+            }
+        }
+        return checks;
+    }
+
+    private static void Limits(RunResult r, IReadOnlyList<LimitCheck> checks, List<ReportBlock> b)
     {
         b.Add(new Heading("Which limits bind"));
-        var lines = new List<string>();
-        var limits = r.Problem.Limits;
-        if (r.Chosen is { } chosen)
-        {
-            if (limits.Budget is { } budget) lines.Add(Against("build budget", r.TotalBuildCost, budget, Cur(r), "0.00"));
-            if (limits.TotalLossCapW is { } cap) lines.Add(Against("total loss cap", r.TotalLossW, cap, "W", "0.###"));
-            foreach (var group in limits.CoilGroups)
-            {
-                var coils = chosen.Where(o => group.Contains(o.PartName)).Select(o => o.Attributes.TryGetValue("coil", out var c) ? c : "?").Distinct().ToList();
-                lines.Add($"one coil for {string.Join(" and ", group)}: {string.Join(", ", coils)}");
-            }
-            if (limits.MaxDistinctProcesses is { } n)
-            {
-                var used = chosen.Select(o => o.Attributes["process"]).Distinct().ToList();
-                lines.Add(F($"cutting processes: {used.Count} used ({string.Join(", ", used)}) of at most {n}") + (used.Count == n ? ": at the limit" : ""));
-            }
-            for (var i = 0; i < chosen.Count; i++)
-            {
-                var part = r.Parts[i].Part;
-                if (part is PlatePart { MaxDragN: { } maxDrag } && chosen[i].DragN is { } drag) lines.Add(Against($"{part.Name}: drag limit", drag, maxDrag, "N", "0.###"));
-                if (part.MaxLossW is { } maxLoss) lines.Add(Against($"{part.Name}: loss limit", chosen[i].Loss.TotalW, maxLoss, "W", "0.###"));
-            }
-            if (lines.Count == 0) lines.Add("The problem sets no limits: the goal alone picked the design.");
-        }
-        else
-        {
-            lines.AddRange(r.Outcome.Diagnosis?.Explain() ?? ["no diagnosis: the search ran out of its time budget"]);
-        }
+        var lines = checks.Select(c => c.Text).ToList();
+        if (r.HasDesign && lines.Count == 0) lines.Add("The problem sets no limits: the goal alone picked the design.");
+        if (!r.HasDesign) lines.AddRange(r.Outcome.Diagnosis?.Explain() ?? ["no diagnosis: the search ran out of its time budget"]);
         b.Add(new BulletList(lines));
         if (r.HasDesign) b.Add(new Paragraph(F($"A limit is said to bind when the design uses it to within {BindingFraction * 100:0.#} %; a limit with room left did not shape the choice.")));
     }
@@ -247,17 +288,17 @@ public static class ReportContent
     /// <summary>A limit used to within this fraction of itself is reported as binding.</summary>
     public const double BindingFraction = 0.01;
 
-    private static string Against(string name, double value, double limit, string unit, string format)
+    private static LimitCheck Against(string name, double value, double limit, string unit)
     {
-        var v = value.ToString(format, Ci);
-        var l = limit.ToString(format, Ci);
-        return limit - value <= BindingFraction * Math.Abs(limit)
-            ? $"{name}: {v} of {l} {unit}: binds"
-            : $"{name}: {v} of {l} {unit}: {(limit - value).ToString(format, Ci)} {unit} of room";
+        var binds = limit - value <= BindingFraction * Math.Abs(limit);
+        var text = binds
+            ? $"{name}: {Numbers.Of(value, unit)} of {Numbers.Of(limit, unit)}: binds"
+            : $"{name}: {Numbers.Of(value, unit)} of {Numbers.Of(limit, unit)}: {Numbers.Of(limit - value, unit)} of room";
+        return new LimitCheck(name, text, binds);
     }
 
     /// <summary>A front point's owning cost: its totals at one value per watt, or each part's loss at its own kind's value.</summary>
-    private static double FrontOwningCost(RunResult r, FrontPoint p) => r.Problem.Economics.SeparatesLoadLoss
+    internal static double FrontOwningCost(RunResult r, FrontPoint p) => r.Problem.Economics.SeparatesLoadLoss
         ? r.Problem.OwningCost(p.CandidateIds.Select(r.Option))
         : p.BuildCost + r.Problem.Economics.ValuePerWatt * p.LossW;
 
@@ -270,9 +311,9 @@ public static class ReportContent
             
             var front = r.Outcome.Front!;
             var chosenIds = r.Chosen?.Select(o => o.Id).ToList() ?? [];
-            var rows = front.Points.Select(p => (IReadOnlyList<string>)[p.CandidateIds.SequenceEqual(chosenIds) ? "chosen" : "", F($"{p.BuildCost:0.00}"), F($"{p.LossW:0.###}"), F($"{FrontOwningCost(r, p):0.00}"),
+            var rows = front.Points.Select(p => (IReadOnlyList<string>)[p.CandidateIds.SequenceEqual(chosenIds) ? "chosen" : "", N(p.BuildCost), N(p.LossW), N(FrontOwningCost(r, p)),
                 string.Join("\n", p.CandidateIds.Select(id => r.Parts.Count == 1 ? r.Option(id).Description : $"{r.Option(id).PartName}: {r.Option(id).Description}"))]).ToList();
-            b.Add(new Paragraph($"{front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? ", each proven" : ", not all proven")}:"));
+            b.Add(new Paragraph($"{front.Points.Count} points{(front.IsCapped ? ", capped" : "")}{(front.Status == SelectionStatus.Optimal ? ", each the lowest loss among the listed options at its build cost or below" : ", some not searched to the end")}:"));
             b.Add(new Table(["", $"build cost ({Cur(r)})", "loss (W)", $"owning cost ({Cur(r)})", "design"], rows, [false, true, true, true, false]));
         }
         if (figures.LossBreakdown is { } breakdown)
@@ -286,7 +327,7 @@ public static class ReportContent
             b.Add(new FigureBlock(figure));
             b.Add(new BulletList(curves.Crossings.Count == 0
                 ? ["no gauge overtakes another between a tenth and ten times the operating frequency"]
-                : curves.Crossings.Select(c => F($"above {c.FrequencyHz:0.#} Hz {c.BetterAbove} loses less than {c.BetterBelow} ({c.LossW:0.##} W at the crossing)")).ToList()));
+                : curves.Crossings.Select(c => F($"above {c.FrequencyHz:0.#} Hz {c.BetterAbove} loses less than {c.BetterBelow} ({Numbers.Watts(c.LossW)} at the crossing)")).ToList()));
         }
         foreach (var (part, figure) in figures.CurrentDensity)
         {
@@ -356,6 +397,7 @@ public static class ReportContent
             items.Insert(items.Count - 1, "Plate temperatures are steady-state estimates from natural-convection correlations for an isolated vertical plate in still fluid: real oil flow, nearby windings, tank walls and clamping structure change them, and the temperature limit applied is the problem file's reading of a standard. Whether a hot structural part is acceptable (insulation in contact, gassing of the oil, strength at temperature) is for local codes, the applicable standards and licensed engineering practice to decide, not this report.");
         if (temperatures.Any(t => t > 373.15)) items.Insert(items.Count - 1, "A part here runs above 100 °C: see the hot-part caution above.");
         if (temperatures.Any(t => t < 123)) items.Insert(items.Count - 1, "A part here runs at a cryogenic temperature: see the cryogenic caution above.");
+        items.Add("Method: every listed option of every part is evaluated with the models above, then an exact search over the combinations (the CP-SAT constraint solver of Google OR-Tools, one worker, fixed seed) picks the design. \"Best\" means best among the listed options under the stated models and prices, not best over every design that could be made.");
         b.Add(new BulletList(items));
     }
 

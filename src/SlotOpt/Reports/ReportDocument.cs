@@ -13,6 +13,9 @@ public sealed record Paragraph(string Text) : ReportBlock;
 /// <summary>The one line that differs between two runs of the same problem: when it was generated and how long it took.</summary>
 public sealed record StampLine(string Text) : ReportBlock;
 
+/// <summary>The one-line verdict at the top of the first screen: the chosen design, what it saves, which limit binds.</summary>
+public sealed record Verdict(string Text) : ReportBlock;
+
 public sealed record BulletList(IReadOnlyList<string> Items) : ReportBlock;
 
 /// <summary>A table; numeric columns are right-aligned.</summary>

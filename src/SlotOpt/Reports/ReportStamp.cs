@@ -10,5 +10,5 @@ namespace SlotOpt.Reports;
 public static class ReportStamp
 {
     public static string Line(RunResult r, DateTimeOffset generatedAt) => string.Create(CultureInfo.InvariantCulture,
-        $"Generated {generatedAt.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC by slotopt run; evaluation took {r.EvaluationSeconds:0.0} s, CP-SAT {r.Outcome.Effort.WallSeconds:0.00} s.");
+        $"Generated {generatedAt.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC by slotopt run; evaluation took {r.EvaluationSeconds:0.0} s, the selection search {r.Outcome.Effort.WallSeconds:0.00} s.");
 }

@@ -44,7 +44,7 @@ public static class TradeOffPlot
         if (r.HasDesign)
         {
             var chosen = plot.Add.Marker(r.TotalBuildCost, Y(r.TotalLossW), MarkerShape.FilledDiamond, 15, PlotStyle.Green);
-            chosen.LegendText = string.Create(CultureInfo.InvariantCulture, $"chosen: {r.TotalLossW:0.##} W, {r.TotalBuildCost:0.00} {cur}");
+            chosen.LegendText = $"chosen: {Numbers.Watts(r.TotalLossW)}, {Numbers.Money(r.TotalBuildCost, cur)}";
         }
         MarkerShape[] shapes = [MarkerShape.OpenSquare, MarkerShape.OpenTriangleUp, MarkerShape.OpenTriangleDown];
         Color[] colours = [PlotStyle.Vermillion, PlotStyle.Orange, PlotStyle.Purple];
@@ -57,25 +57,36 @@ public static class TradeOffPlot
             if (chosenIds is not null && chosenIds.SequenceEqual(ids)) same.Insert(0, "chosen");
             var marker = plot.Add.Marker(b.BuildCost, Y(b.LossW), shapes[i % shapes.Length], 16 + 5 * i, colours[i % colours.Length]);
             marker.MarkerLineWidth = 2.5f;
-            marker.LegendText = string.Create(CultureInfo.InvariantCulture, $"{b.Name}: {b.LossW:0.##} W, {b.BuildCost:0.00} {cur}{BaselineBreaks.Short(r, b)}{(same.Count > 0 ? $" = {string.Join(" = ", same)}" : "")}");
+            marker.LegendText = $"{b.Name}: {Numbers.Watts(b.LossW)}, {Numbers.Money(b.BuildCost, cur)}{BaselineBreaks.Short(r, b)}{(same.Count > 0 ? $" = {string.Join(" = ", same)}" : "")}";
         }
         if (r.Problem.Limits.Budget is { } budget)
         {
             var line = plot.Add.VerticalLine(budget, 1.5f, PlotStyle.Black);
-            line.LegendText = string.Create(CultureInfo.InvariantCulture, $"budget {budget:0.##} {cur}");
+            line.LegendText = $"budget {Numbers.Money(budget, cur)}";
         }
         if (r.Problem.Limits.TotalLossCapW is { } cap)
         {
             var line = plot.Add.HorizontalLine(Y(cap), 1.5f, PlotStyle.Grey);
-            line.LegendText = string.Create(CultureInfo.InvariantCulture, $"loss cap {cap:0.##} W");
+            line.LegendText = $"loss cap {Numbers.Watts(cap)}";
         }
         if (log) LogAxis.Apply(plot.Axes.Left, allLosses);
-        plot.Legend.Alignment = Alignment.UpperRight;
-        plot.ShowLegend();
+        var legendPx = PlotStyle.LegendBelow(plot);
         var caption = "Each step of the front is the lowest total loss reachable at that build cost or below. "
             + "Markers show the chosen design and the baselines it is compared with; a baseline may break a part's limit or a shared limit"
             + (cloud.Count > 0 ? "; grey dots are every option of the part that passes its rules." : ".")
             + (log ? " The loss axis is logarithmic because the points span more than a decade." : "");
-        return PlotStyle.Render(plot, FileStem, "Trade-off: loss against build cost", caption);
+        var heightPx = PlotStyle.HeightPx + legendPx;
+        var figure = PlotStyle.Render(plot, FileStem, "Trade-off: loss against build cost", caption, heightPx: heightPx);
+        // each point of the front names its design when pointed at in the HTML page (pixels of the render just made)
+        var chosenDesign = r.Chosen?.Select(o => o.Id).ToList() ?? [];
+        var tips = front.Points.Select(p =>
+        {
+            var px = plot.GetPixel(new Coordinates(p.BuildCost, Y(p.LossW)));
+            var designs = p.CandidateIds.Select(id => r.Parts.Count == 1 ? WorkshopWords.Of(r.Option(id)) : $"{r.Option(id).PartName}: {WorkshopWords.Of(r.Option(id))}");
+            var text = $"{(p.CandidateIds.SequenceEqual(chosenDesign) ? "chosen design: " : "")}build cost {Numbers.Money(p.BuildCost, cur)}, loss {Numbers.Watts(p.LossW)}, owning cost {Numbers.Money(ReportContent.FrontOwningCost(r, p), cur)}\n"
+                + string.Join("\n", designs);
+            return ((double)px.X, (double)px.Y, text);
+        }).ToList();
+        return figure with { Tips = new PointTips(PlotStyle.WidthPx, heightPx, tips) };
     }
 }

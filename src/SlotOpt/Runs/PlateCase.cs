@@ -7,8 +7,9 @@ namespace SlotOpt.Runs;
 
 /// <summary>
 /// The case one plate file describes (read by the input layer's PlateFileReader), validated and in SI:
-/// where it came from, geometry, grid choice, material and thickness, and either an AC source or moving
-/// poles with the travel offsets to evaluate; optionally its cooling and temperature limit ([thermal]).
+/// where it came from, geometry, grid choice, material and thickness, and either an AC source or a moving
+/// source (poles or magnets) with the travel offsets to evaluate, or magnets over a turning disc (Rotation), or magnets approaching
+/// the plate (Approach); optionally its cooling and temperature limit ([thermal]).
 /// <see cref="PlateFileEvaluation"/> solves it.
 /// </summary>
 public sealed record PlateCase(
@@ -17,7 +18,9 @@ public sealed record PlateCase(
     GridOptions Grid,
     ConductingSheet Sheet,
     IAcFieldSource? AcSource,
-    MovingPoles? MovingSource,
+    ITravellingSource? MovingSource,
     IReadOnlyList<double> OffsetsXM,
     string AveragedOver,
-    PlateThermalInput? Thermal = null);
+    PlateThermalInput? Thermal = null,
+    DiscRotation? Rotation = null,
+    MagnetApproach? Approach = null);

@@ -46,14 +46,16 @@ public sealed record PlateConfirmation(
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
         PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
-        if (part.Excitation is PlateExcitation.Moving { Poles: var poles })
+        MinimumDragCheck? minimumDrag = null;
+        if (part.Excitation is PlateExcitation.Moving { Source: var source })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
-            PlateSolution SolveOn(SheetModel m, ReactionOperator reaction) =>
-                PlateModels.SolveMoving(m, poles, conductor, offsets, poles.PoleSizeXM, reaction: reaction, basis: MovingReducedBasis.Start(reaction, poles, offsets));
-            var fine = ReactionOperator.Build(model);
-            solution = PlateModels.WithGridError(SolveOn(model, fine), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse)));
-            sweep = Sweep(fine, poles, conductor, offsets);
+            var reaction = ReactionOperator.Build(model);
+            PlateSolution SolveOn(SheetModel m, ReactionOperator r) =>
+                PlateModels.SolveMoving(m, source, conductor, offsets, source.LoopLengthXM, reaction: r, basis: MovingReducedBasis.Start(r, source, offsets));
+            solution = PlateModels.WithGridError(SolveOn(model, reaction), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse)));
+            sweep = Sweep(reaction, source, conductor, offsets);
+            if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
@@ -64,17 +66,29 @@ public sealed record PlateConfirmation(
         var notes = solution.Notes.ToList();
         if (solution.GridError is { IsLarge: true } large) notes.Add(large.Warning);
         return new PlateConfirmation(part.Name, ranked.Kind, ranked.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
-            solution.ResistanceLimitedLossW.Average(), notes, sweep, solution.GridError);
+            solution.ResistanceLimitedLossW.Average(), notes, sweep, solution.GridError) { MinimumDrag = minimumDrag };
+    }
+
+    /// <summary>With min_drag: the chosen plate's drag at the minimum's speed with the model its validity calls for there.</summary>
+    public MinimumDragCheck? MinimumDrag { get; init; }
+
+    /// <summary>The chosen design's drag at the minimum's speed with the model its validity calls for there (the screen's resistance-limited drag overstates it once the own field matters).</summary>
+    private static MinimumDragCheck CheckMinimumDrag(MinimumDrag wanted, Plates.Grid.SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
+        IReadOnlyList<double> offsets, PlateSolution atSourceSpeed)
+    {
+        var at = wanted.SpeedMPerS == source.SpeedMPerS ? atSourceSpeed
+            : PlateModels.SolveMoving(model, source.AtSpeed(wanted.SpeedMPerS), conductor, offsets, source.LoopLengthXM, reaction: reaction);
+        return new MinimumDragCheck(wanted.SpeedMPerS, wanted.ForceN, at.MeanDragN!.Value, at.Choice.Kind);
     }
 
     /// <summary>
     /// Drag and lift against speed with the plate's own field, over SweepOverW multiples of w, from one reduced basis of the window's positions
     /// (<see cref="MovingReducedBasis"/>: every speed is a small projected solve once the basis holds it).
     /// </summary>
-    private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, MovingPoles poles, ConductingSheet conductor, IReadOnlyList<double> offsets)
+    private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor, IReadOnlyList<double> offsets)
     {
         var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow, "Maxwell's theory of eddy currents in thin conducting sheets...", Am. J. Phys. 60(8):693-711, 1992)
-        var basis = MovingReducedBasis.Start(reaction, poles, offsets.Take(SweepPositions).ToList());
+        var basis = MovingReducedBasis.Start(reaction, source, offsets.Take(SweepPositions).ToList());
         var points = new List<SpeedPoint>();
         foreach (var m in SweepOverW)
         {
@@ -95,4 +109,10 @@ public sealed record PlateConfirmation(
         SheetModelKind.ThinSheetReaction => "own-field (thin sheet with its own field)",
         _ => "thick (layered thick plate)",
     };
+}
+
+/// <summary>The chosen plate's confirmed drag at a min_drag's speed (newtons), the minimum it must reach, and the model that ran.</summary>
+public sealed record MinimumDragCheck(double SpeedMPerS, double RequiredN, double DragN, SheetModelKind Model)
+{
+    public bool Reached => DragN >= RequiredN;
 }

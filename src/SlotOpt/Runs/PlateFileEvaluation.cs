@@ -5,6 +5,9 @@ using SlotOpt.Numerics;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Sources.Magnets;
+using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Plates.Thermal;
 
 namespace SlotOpt.Runs;
@@ -36,11 +39,19 @@ public sealed record PlateFileEvaluation(
     /// <summary>The grid-error estimate of the loss and mean drag (Richardson against cells twice as large); null with [thermal].</summary>
     public DiscretisationError? GridError { get; init; }
 
+    /// <summary>A turning disc: the mean braking torque (N m); MeanDragN is then the torque over the magnets' radius, the force along their path.</summary>
+    public double? TorqueNm { get; init; }
+
+    /// <summary>Magnets approaching: the damping force at each gap of the case (MeanDragN is the one at the first gap).</summary>
+    public IReadOnlyList<GapPoint>? ApproachCurve { get; init; }
+
     /// <param name="forcedKind">the model asked for (--model); null lets the validity figures choose</param>
     /// <param name="limits">Memory: the estimate of the case's solve is checked before anything is built.</param>
     public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null, EvaluationLimits? limits = null)
     {
         plate = WithinMemory(plate, limits ?? EvaluationLimits.Default);
+        if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind);
+        if (plate.Approach is { } approach) return EvaluateApproach(plate, approach, criterion, forcedKind);
         if (plate.Thermal is not null)
         {
             if (forcedKind is { } k && k != SheetModelKind.ResistanceLimited)
@@ -58,14 +69,102 @@ public sealed record PlateFileEvaluation(
                 Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
                 { GridError = solution.GridError };
         }
-        var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
-        var moving = PlateModels.SolveMoving(model, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion, forcedKind: forcedKind);
-        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, poles, plate.Sheet, plate.OffsetsXM, poles.PoleSizeXM, criterion: criterion, forcedKind: moving.Choice.Kind));
-        var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, poles, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
+        var source = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor a moving source");
+        var moving = PlateModels.SolveMoving(model, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: forcedKind);
+        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: moving.Choice.Kind));
+        var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, source, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
         return new PlateFileEvaluation(plate, moving.Choice, WithSolutionNotes(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
             moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
             { GridError = moving.GridError };
     }
+
+    /// <summary>
+    /// A disc turning under fixed magnets, resistance-limited (<see cref="DiscTorque"/>; there is no own-field model for rotation): torque,
+    /// the force along the magnets' path (torque over their radius), loss, and the map at the angle with the most loss. The validity figures
+    /// are those of a slide at the magnets' path speed omega R; where they call for the plate's own field, a note says torque and loss are overstated.
+    /// </summary>
+    private static PlateFileEvaluation EvaluateRotation(PlateCase plate, DiscRotation rotation, ConvergenceCriterion? criterion, SheetModelKind? forcedKind)
+    {
+        ResistanceLimitedOnly(plate, forcedKind, "a turning disc");
+        var source = rotation.Source;
+        var model = SheetModel.Build(plate.Geometry, plate.Grid with { SourceFeatures = source.GridFeatures });
+        var clock = Stopwatch.StartNew();
+        double g = plate.Sheet.SheetConductanceS, pathSpeed = source.AngularSpeedRadPerS * source.SourceRadiusM;
+        var wanted = ReactionModelChoice.ForMoving(plate.Sheet, pathSpeed, source.LoopLengthM);
+        var solution = DiscTorque.Solve(model, source, rotation.AnglesRad, criterion);
+        GridErrorOf(model, m => DiscTorque.Solve(m, source, rotation.AnglesRad, criterion).MeanLossW(g), solution.MeanLossW(g), out var gridError);
+        var notes = new List<string>();
+        if (wanted.Kind != SheetModelKind.ResistanceLimited)
+            notes.Add($"the turning disc is solved resistance-limited (there is no own-field model for rotation), but at the magnets' path speed its validity calls for another ({wanted.Reason}): torque and loss are overstated");
+        var peak = new UnitConductanceSolution(model, SourceKind.Moving, solution.PeakPsiPerSiemens, null, solution.LossPerSiemensW[solution.PeakIndex], 0, pathSpeed,
+            rotation.AnglesRad[solution.PeakIndex] * source.SourceRadiusM, solution.Iterations, solution.MaxRelativeResidual, notes).ScaleTo(plate.Sheet);
+        var torque = solution.TorqueNm(g);
+        var choice = wanted with { Kind = SheetModelKind.ResistanceLimited, Reason = "resistance-limited (the only model for a turning disc): " + wanted.Reason };
+        return new PlateFileEvaluation(plate, choice, WithGridNote(peak, gridError), solution.MeanLossW(g), solution.MeanTorqueNm(g) / source.SourceRadiusM,
+            rotation.AnglesRad.Select(a => a * source.SourceRadiusM).ToArray(), torque.Select(t => t / source.SourceRadiusM).ToArray(),
+            solution.LossPerSiemensW.Select(p => p * g).ToArray(), solution.Iterations, solution.MaxRelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
+            { GridError = gridError, TorqueNm = solution.MeanTorqueNm(g) };
+    }
+
+    /// <summary>
+    /// Magnets approaching the plate, resistance-limited (<see cref="ApproachDamping"/>): the damping force F = P / v at each gap of the case; the
+    /// map is the one at the first gap. Where the validity figures at the approach speed call for the plate's own field, a note says the force is overstated.
+    /// </summary>
+    private static PlateFileEvaluation EvaluateApproach(PlateCase plate, MagnetApproach approach, ConvergenceCriterion? criterion, SheetModelKind? forcedKind)
+    {
+        ResistanceLimitedOnly(plate, forcedKind, "an approaching magnet");
+        var first = approach.Magnets;
+        var model = SheetModel.Build(plate.Geometry, plate.Grid with { SourceFeatures = new SlidingMagnets(first, approach.SpeedMPerS).GridFeatures });
+        var clock = Stopwatch.StartNew();
+        double g = plate.Sheet.SheetConductanceS, v = approach.SpeedMPerS;
+        var wanted = ReactionModelChoice.ForMoving(plate.Sheet, v, first.SmallestLengthXM);
+        var curve = new List<GapPoint>();
+        ApproachDampingSolution? atFirst = null;
+        int iterations = 0;
+        double residual = 0;
+        foreach (var gap in approach.GapsM)
+        {
+            var s = ApproachDamping.Solve(model, new MagnetArray(first.Magnets, gap, first.LineQuadratureOrder), v, criterion);
+            atFirst ??= s;
+            iterations += s.Iterations;
+            residual = Math.Max(residual, s.RelativeResidual);
+            curve.Add(new GapPoint(gap, s.DampingForceN(g), g * s.LossPerSiemensW));
+        }
+        GridErrorOf(model, m => g * ApproachDamping.Solve(m, first, v, criterion).LossPerSiemensW, curve[0].LossW, out var gridError);
+        var notes = new List<string> { "the damping force is normal to the plate: it pushes the magnets back as they approach" };
+        if (wanted.Kind != SheetModelKind.ResistanceLimited)
+            notes.Add($"the approach is solved resistance-limited (there is no own-field model for it), but at this speed the validity calls for another ({wanted.Reason}): the force is overstated");
+        var map = new UnitConductanceSolution(model, SourceKind.Moving, atFirst!.PsiPerSiemens, null, atFirst.LossPerSiemensW, 0, v, 0, atFirst.Iterations, atFirst.RelativeResidual, notes).ScaleTo(plate.Sheet);
+        var choice = wanted with { Kind = SheetModelKind.ResistanceLimited, Reason = "resistance-limited (the only model for an approach): " + wanted.Reason };
+        return new PlateFileEvaluation(plate, choice, WithGridNote(map, gridError), curve[0].LossW, curve[0].ForceN, [0.0], [curve[0].ForceN], [curve[0].LossW],
+            iterations, residual, model.SetupSeconds, clock.Elapsed.TotalSeconds) { GridError = gridError, ApproachCurve = curve };
+    }
+
+    private static void ResistanceLimitedOnly(PlateCase plate, SheetModelKind? forcedKind, string what)
+    {
+        if (forcedKind is { } k && k != SheetModelKind.ResistanceLimited)
+            throw new InputException($"{plate.Path}: {what} is solved resistance-limited only; --model {ReactionModelChoice.Name(k)} cannot be used with it");
+        if (plate.Thermal is not null) throw new InputException($"{plate.Path}: [thermal] is for plates under sliding sources and AC fields; {what} has no temperature coupling");
+    }
+
+    /// <summary>The loss solved again on cells twice as large (Richardson, <see cref="DiscretisationError"/>); null where no coarser grid exists.</summary>
+    private static void GridErrorOf(SheetModel model, Func<SheetModel, double> lossOn, double fineLossW, out DiscretisationError? error)
+    {
+        error = null;
+        double h = Math.Max(model.Lattice.Hx, model.Lattice.Hy);
+        SheetModel coarse;
+        try { coarse = SheetModel.Build(model.Grid.Geometry, new GridOptions { CellSizeM = 2 * h }); }
+        catch (InputException) { return; }
+        error = DiscretisationError.FromTwoGrids(fineLossW, lossOn(coarse), h, Math.Max(coarse.Lattice.Hx, coarse.Lattice.Hy));
+    }
+
+    private static PlateResult WithGridNote(PlateResult result, DiscretisationError? error) =>
+        error switch
+        {
+            null => result with { Notes = result.Notes.Append("no grid error estimate: the grid cannot be coarsened to twice its cell").ToList() },
+            { IsLarge: true } e => result with { Notes = result.Notes.Append(e.Warning).ToList() },
+            _ => result,
+        };
 
     /// <summary>The map's notes, the grid-error warning (or that there is no estimate), and, when another model ran, that the map is the resistance-limited one.</summary>
     private static PlateResult WithSolutionNotes(PlateResult result, PlateSolution solution)
@@ -96,9 +195,9 @@ public sealed record PlateFileEvaluation(
     private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>
         solution.ResistanceLimited ?? resistanceLimited();
 
-    /// <summary>The file's grid choice with the moving poles' widths and gaps to resolve (GridOptions.SourceFeatures).</summary>
+    /// <summary>The file's grid choice with the moving source's widths and gaps to resolve (GridOptions.SourceFeatures).</summary>
     private static GridOptions GridFor(PlateCase plate) =>
-        plate.MovingSource is { } poles ? plate.Grid with { SourceFeatures = poles.GridFeatures } : plate.Grid;
+        plate.MovingSource is { } source ? plate.Grid with { SourceFeatures = source.GridFeatures } : plate.Grid;
 
     private static PlateResult WithMapNote(PlateResult result, PlateSolution solution) =>
         solution.ResistanceLimited is not null ? result
@@ -118,9 +217,9 @@ public sealed record PlateFileEvaluation(
             return new PlateFileEvaluation(plate, choice, WithHeatingNote(result, choice), result.LossW, null, Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(),
                 heated.Ac.Iterations, heated.Ac.RelativeResidual, heated.Model.SetupSeconds, clock.Elapsed.TotalSeconds - heated.Model.SetupSeconds, heated);
         }
-        var poles = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor moving poles");
-        var movingChoice = ReactionModelChoice.ForMoving(plate.Sheet, poles.SpeedMPerS, poles.PoleSizeXM);
-        var hot = PlateHeating.SolveMoving(plate.Geometry, GridFor(plate), poles, plate.OffsetsXM, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
+        var source = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor a moving source");
+        var movingChoice = ReactionModelChoice.ForMoving(plate.Sheet, source.SpeedMPerS, source.LoopLengthXM);
+        var hot = PlateHeating.SolveMoving(plate.Geometry, GridFor(plate), source, plate.OffsetsXM, plate.Sheet, thermal.Material, thermal.Cooling, criterion);
         var sweep = hot.Sweep!;
         var peak = sweep.Peak.ScaleTo(plate.Sheet);
         return new PlateFileEvaluation(plate, movingChoice, WithHeatingNote(peak, movingChoice), sweep.MeanLossW(g), sweep.MeanDragN(g), sweep.OffsetsXM, sweep.DragN(g),

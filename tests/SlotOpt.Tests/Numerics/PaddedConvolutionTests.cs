@@ -75,4 +75,26 @@ public class PaddedConvolutionTests
     [InlineData(257, 1024)]
     public void Padded_length_is_the_smallest_power_of_two_at_least_twice_n(int n, int expected) =>
         Assert.Equal(expected, PaddedConvolution.PaddedLength(n));
+
+    // Two workers split the rows and column strips; every element sees the same operations in the same order, so the
+    // result must equal the one-worker result bit for bit (the project's rule: the same numbers for 1 and 2 threads).
+    [Fact]
+    public void Two_workers_give_the_one_worker_result_bit_for_bit()
+    {
+        const int nx = 37, ny = 300;   // 1024 padded rows: column strips of 8, so the columns are split too
+        var random = new Random(5);
+        var x = Enumerable.Range(0, nx * ny).Select(_ => (random.NextDouble() - 0.5, random.NextDouble() - 0.5)).ToArray();
+        double[] Run(int threads, bool real)
+        {
+            var conv = new PaddedConvolution(nx, ny, threads);
+            var spectrum = conv.Spectrum(nx - 1, ny - 1, (dx, dy) => Kernel(dx, dy, 2));
+            for (int j = 0; j < ny; j++)
+                for (int i = 0; i < nx; i++) { conv.Re[j * conv.PaddedX + i] = x[j * nx + i].Item1; conv.Im[j * conv.PaddedX + i] = x[j * nx + i].Item2; }
+            if (real) conv.ConvolveReal(spectrum); else conv.ConvolveComplex(spectrum);
+            return Enumerable.Range(0, nx * ny).SelectMany(k => real ? new[] { conv.Re[k / nx * conv.PaddedX + k % nx] }
+                : new[] { conv.Re[k / nx * conv.PaddedX + k % nx], conv.Im[k / nx * conv.PaddedX + k % nx] }).ToArray();
+        }
+        foreach (bool real in new[] { false, true })
+            Assert.Equal(Run(1, real).Select(BitConverter.DoubleToInt64Bits), Run(2, real).Select(BitConverter.DoubleToInt64Bits));
+    }
 }

@@ -4,7 +4,7 @@ using SlotOpt.Numerics;
 namespace SlotOpt.Tests.Numerics;
 
 /// <summary>
-/// The hand-written CSR kernels (kept for speed and memory in the multigrid) against MathNet.Numerics'
+/// The hand-written CSR kernels (the storage of the sheet and thermal operators) against MathNet.Numerics'
 /// dense products on small random sparse matrices. Tolerance 1e-12 relative to the largest entry: both
 /// sides sum the same few products (at most 12 terms of size <= 1) in double precision, so they agree to
 /// a few units of rounding (about 1e-15); 1e-12 leaves room for summation order and catches any wrong entry.
@@ -32,18 +32,6 @@ public class SparseKernelTests
         return (new CsrMatrix(rows, columns, rowStart, columnIndex.ToArray(), value.ToArray()), dense);
     }
 
-    private static void AssertSame(Matrix<double> expected, CsrMatrix actual)
-    {
-        Assert.Equal(expected.RowCount, actual.Rows);
-        Assert.Equal(expected.ColumnCount, actual.Columns);
-        var got = Matrix<double>.Build.Dense(actual.Rows, actual.Columns);
-        for (int i = 0; i < actual.Rows; i++)
-            for (int k = actual.RowStart[i]; k < actual.RowStart[i + 1]; k++)
-                got[i, actual.ColumnIndex[k]] += actual.Value[k];
-        double scale = Math.Max(1, expected.Enumerate().Max(Math.Abs));
-        Assert.True((got - expected).Enumerate().Max(Math.Abs) <= 1e-12 * scale, $"largest entry difference {(got - expected).Enumerate().Max(Math.Abs):E2}");
-    }
-
     [Theory]
     [InlineData(1, 17, 13, 0.3)]
     [InlineData(2, 40, 40, 0.1)]
@@ -64,30 +52,5 @@ public class SparseKernelTests
             Assert.Equal(expected[i], y[i], 1e-12);
             Assert.Equal(b[i] - expected[i], r[i], 1e-12);
         }
-    }
-
-    [Theory]
-    [InlineData(4, 20, 0.2)]
-    [InlineData(5, 35, 0.1)]
-    public void TransposeMatchesDenseTranspose(int seed, int n, double density)
-    {
-        var (a, dense) = RandomSparse(new Random(seed), n, n + 3, density);
-        AssertSame(dense.Transpose(), a.Transpose());
-    }
-
-    // The Galerkin product R A P of the multigrid's coarse operators, in one sweep (Gustavson 1978), against
-    // MathNet's dense R * A * P; with R = P^T as in the V-cycle and with an unrelated R.
-    [Theory]
-    [InlineData(6, 30, 12, 0.15)]
-    [InlineData(7, 50, 20, 0.08)]
-    [InlineData(8, 9, 4, 0.6)]
-    public void GalerkinProductMatchesDenseTripleProduct(int seed, int fine, int coarse, double density)
-    {
-        var random = new Random(seed);
-        var (a, aDense) = RandomSparse(random, fine, fine, density);
-        var (p, pDense) = RandomSparse(random, fine, coarse, density);
-        AssertSame(pDense.Transpose() * aDense * pDense, CsrMatrix.GalerkinProduct(p.Transpose(), a, p));
-        var (r, rDense) = RandomSparse(random, coarse + 2, fine, density);
-        AssertSame(rDense * aDense * pDense, CsrMatrix.GalerkinProduct(r, a, p));
     }
 }

@@ -1,4 +1,5 @@
 using SlotOpt.Input;
+using SlotOpt.Plates.Sources;
 
 namespace SlotOpt.Tests.Plates;
 
@@ -43,7 +44,7 @@ public class PlateFileReaderTests
         Assert.Equal(8, plate.Geometry.Slots.Count);          // 400 mm / 50 mm pitch, centred: 8 slots (common practice, no source: the pattern rule of SlotPatterns)
         Assert.Equal(5, plate.OffsetsXM.Count);               // positions = 5 over one slot pitch (the default average with slots)
         Assert.Equal(0.04, plate.OffsetsXM[^1], 1e-15);       // 4/5 of the 50 mm pitch
-        Assert.Equal(-0.3, plate.MovingSource!.Poles[1].FluxDensityT, 1e-15);   // alternating polarity
+        Assert.Equal(-0.3, ((MovingPoles)plate.MovingSource!).Poles[1].FluxDensityT, 1e-15);   // alternating polarity
     }
 
     // Every error names file:line and the key; all are reported together.

@@ -5,7 +5,9 @@ namespace SlotOpt.Tests.Reports;
 /// <summary>
 /// Issue 17: summary.md without stray escapes. Rules from CommonMark 0.31 (J. MacFarlane, 2024): an underscore
 /// between two alphanumerics opens no emphasis (section 6.2, rule for "_"); "[1]" with no following "(" , "[" or
-/// ":" is not a link (sections 6.3 and 4.7); "*" always may act, so it stays escaped. Exact strings.
+/// ":" is not a link (sections 6.3 and 4.7); "<" opens a tag only before a letter, "/", "!" or "?" (sections 6.5, 6.6);
+/// a pipe outside a table row is text (GitHub Flavored Markdown 0.29, section 4.10); "*" always may act, so it stays
+/// escaped. Exact strings.
 /// </summary>
 public class MarkdownEscapeTests
 {
@@ -18,7 +20,9 @@ public class MarkdownEscapeTests
     [InlineData("_leading underscore", "\\_leading underscore")]
     [InlineData("[x](y)", "[x\\](y)")]
     [InlineData("# not a heading", "\\# not a heading")]
-    [InlineData("2 < 3 | 4", "2 \\< 3 \\| 4")]
+    [InlineData("2 < 3 | 4", "2 < 3 | 4")]
+    [InlineData("Rm = 0.0553 <= 0.1", "Rm = 0.0553 <= 0.1")]
+    [InlineData("a <b> tag", "a \\<b> tag")]
     public void Only_characters_that_would_act_are_escaped(string text, string expected) =>
         Assert.Equal(expected, Paragraph(text));
 }

@@ -19,24 +19,29 @@ public static class MemoryModel
     public const double RuntimeBytes = 100e6;
 
     /// <summary>
-    /// A solved model kept per slot geometry: grid, node regions, operator, multigrid hierarchy, solution. Measured: the tie-plate
-    /// demo (13 geometries, one thread) peaks at 202 MB on 21.6 k cells and 544 MB on 86.4 k cells, 5.3 kB per added cell, of which
-    /// 13 kept models take all but one solve's work: (5300 - 150) / 13 = about 400 B.
+    /// A solved model kept per slot geometry: grid, node regions, structured multigrid with its lattice operator, solution. Measured
+    /// 2026-12-02 (`slotopt run`, tie-plate demo without its [parts.thermal] section, 13 geometries, one thread): peaks of 175 MB
+    /// on 21.6 k cells and 358 MB on 86.4 k cells, 2.83 kB per added cell, of which 13 kept models take all but one solve's work:
+    /// (2830 - 150) / 13 = about 210 B (was 400 B before the structured multigrid stopped storing the CSR matrix). The plate
+    /// temperature solve is not in this model: with the demo's [parts.thermal] the same runs peak at 681 MB and 2.97 GB.
     /// </summary>
-    public const double ModelBytesPerCell = 400;
+    public const double ModelBytesPerCell = 210;
 
     /// <summary>One solve at work beyond the model it keeps: the four CG vectors and the right-hand sides (8 B each, a few more for the sweep).</summary>
     public const double SolveBytesPerCell = 150;
 
     /// <summary>
-    /// The own-field operator per cell of its zero-padded lattice: the reaction spectrum, its x-difference and the work
-    /// buffer, complex (16 B) each. Measured with the GMRES basis below: `slotopt plate` on 80 k and 320 k cells (padded 0.5 M and
-    /// 2.1 M) peaks at 147 MB and 398 MB, 1.05 kB per added cell; this model gives 1.84 kB, as it counts the whole GMRES basis,
-    /// which a solve converging in 13 iterations never touches.
+    /// The own-field operator per cell of its zero-padded lattice, 16 B (a real and an imaginary double) for each of: the
+    /// transform buffer, the reaction spectrum, and for a moving source its x-difference and the preconditioner's spectral
+    /// factor. Measured with the GMRES basis below (before the basis was allocated as used): `slotopt plate` on 80 k and 320 k
+    /// cells (padded 0.5 M and 2.1 M) peaks at 147 MB and 398 MB, 1.05 kB per added cell; this model is above that, as it counts the whole GMRES basis.
     /// </summary>
-    public const double OwnFieldBytesPerPaddedCell = 3 * 16;
+    public const double OwnFieldBytesPerPaddedCell = 4 * 16;
 
-    /// <summary>The own-field solve's GMRES basis per unknown: restart + 1 complex vectors (16 B each).</summary>
+    /// <summary>
+    /// The own-field solve's GMRES basis per unknown, at most restart + 1 complex vectors (16 B each): the bound, as the basis
+    /// is allocated only as far as the iteration reaches (13-16 vectors in the benches).
+    /// </summary>
     public const double GmresBytesPerCell = (ComplexGmresRestart + 1) * 16;
 
     private const int ComplexGmresRestart = SlotOpt.Numerics.ComplexGmres.DefaultRestart;

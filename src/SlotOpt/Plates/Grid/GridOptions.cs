@@ -25,13 +25,17 @@ public sealed record GridOptions
     public int MinCellsAcrossPoleGap { get; init; } = 4;
     /// <summary>Widths the source brings (poles, pole gaps), resolved like the geometry's.</summary>
     public IReadOnlyList<GridFeature> SourceFeatures { get; init; } = Array.Empty<GridFeature>();
-    /// <summary>Automatic grids stop here: about 1.1 M cells, roughly 0.3 GB with the solver (see <see cref="BytesPerCellEstimate"/>).</summary>
+    /// <summary>Automatic grids stop here: about 1.1 M cells, roughly 0.25 GB with the solver (see <see cref="BytesPerCellEstimate"/>).</summary>
     public long MaxAutoCells { get; init; } = 1100 * 1000;
-    /// <summary>Hard limit for explicit cell sizes: about 4.2 M cells, roughly 1.3 GB.</summary>
+    /// <summary>Hard limit for explicit cell sizes: about 4.2 M cells, roughly 0.9 GB.</summary>
     public long MaxCells { get; init; } = 4200 * 1000;
 
-    /// <summary>Memory of grid, operator, multigrid hierarchy and Krylov vectors per cell, measured by the bench (see SheetsBench).</summary>
-    public const double BytesPerCellEstimate = 300;
+    /// <summary>
+    /// Memory of grid, operator, multigrid hierarchy and Krylov vectors per cell while one plate is built and solved:
+    /// the peak working-set growth of the sheets bench (SheetsBench, comb-slotted plate, 2026-12-02), 196-227 bytes per
+    /// unknown from 512² to 2048² (781 MB at 2048²), of which about 145 stay retained with the solved model.
+    /// </summary>
+    public const double BytesPerCellEstimate = 220;
 
     public int CellsAcross(GridFeatureKind kind) => kind switch
     {

@@ -68,29 +68,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     public static StructuredMultigrid Build(PlateGrid grid, NodeRegions regions)
     {
         var (fine, outsideWeight) = FineLevel(grid, regions);
-        fine.Complete();
-        var levels = new List<StencilLevel> { fine };
-        var current = fine;
-        while (current.Nx >= MinimumSide && current.Ny >= MinimumSide && current.Nodes > CoarsestNodes)
-        {
-            var next = BlackBoxCoarsening.Coarsen(current);
-            current.ReleaseCentre();   // the smoother needs only 1 / Centre once the next level is built
-            current = next;
-            current.Complete();
-            levels.Add(current);
-        }
-        // coarsest: numbered with the shorter side fastest, so the half-bandwidth is that side + 1
-        bool columnsFirst = current.Ny < current.Nx;
-        int fast = columnsFirst ? current.Ny : current.Nx;
-        var last = current;
-        var coarsest = new BandCholesky(last.Nodes, fast + 1, (a, b) =>
-        {
-            var (ia, ja) = Position(a, fast, columnsFirst);
-            var (ib, jb) = Position(b, fast, columnsFirst);
-            int di = ib - ia, dj = jb - ja;
-            return Math.Abs(di) <= 1 && Math.Abs(dj) <= 1 ? last.Entry(ia, ja, di, dj) : 0;
-        });
-        last.ReleaseCentre();
+        var (levels, coarsest, columnsFirst) = Hierarchy(fine);
 
         // merged regions: their nodes, grouped
         var map = regions.NodeUnknown;
@@ -115,7 +93,73 @@ public sealed class StructuredMultigrid : IPreconditioner
         }
         var merged = mergedUnknown.ToArray();
         var op = new LatticeSheetOperator(fine, outsideWeight, regions.UnknownCount, map, nodes, start, merged);
-        return new StructuredMultigrid(levels.ToArray(), coarsest, columnsFirst, map, nodes, start, merged, op);
+        return new StructuredMultigrid(levels, coarsest, columnsFirst, map, nodes, start, merged, op);
+    }
+
+    /// <summary>
+    /// The V-cycle for any symmetric positive definite matrix whose unknowns sit one to a node of a nodesX x nodesY lattice
+    /// and couple only to their 4 lattice neighbours (a 5-point stencil), such as the plate's temperature operator
+    /// (Plates/Thermal: conduction plus a positive diagonal). Nodes without an unknown (nodeUnknown -1: no metal, or held at
+    /// a given value) are identity rows, as the outside of the sheet operator; no merged regions. Its <see cref="Operator"/>
+    /// applies the same matrix on the lattice.
+    /// </summary>
+    public static StructuredMultigrid ForNodeMatrix(CsrMatrix matrix, int nodesX, int nodesY, int[] nodeUnknown)
+    {
+        if (nodeUnknown.Length != nodesX * nodesY) throw new ArgumentException("one entry per lattice node", nameof(nodeUnknown));
+        if (matrix.Rows == 0) throw SheetOperator.NoFreeNode();
+        var fine = new StencilLevel(nodesX, nodesY, ninePoint: false);
+        var node = new int[matrix.Rows];
+        for (int p = 0; p < nodeUnknown.Length; p++) if (nodeUnknown[p] >= 0) node[nodeUnknown[p]] = p;
+        var rowSum = new double[nodeUnknown.Length];   // the diagonal part no coupling carries, as the operator's outside weight
+        for (int p = 0; p < nodeUnknown.Length; p++)
+        {
+            int u = nodeUnknown[p];
+            if (u < 0) { fine.Centre[p] = 1; continue; }
+            for (int k = matrix.RowStart[u]; k < matrix.RowStart[u + 1]; k++)
+            {
+                int q = node[matrix.ColumnIndex[k]];
+                double a = matrix.Value[k];
+                rowSum[p] += a;
+                if (q == p) fine.Centre[p] = a;
+                else if (q == p - 1 && p % nodesX != 0) fine.West[p] = a;
+                else if (q == p - nodesX) fine.South[p] = a;
+                else if (!(q == p + 1 && q % nodesX != 0) && q != p + nodesX)
+                    throw new ArgumentException($"unknown {u} couples to a node that is not its lattice neighbour", nameof(matrix));
+            }
+            if (!(fine.Centre[p] > 0)) throw new ArgumentException($"unknown {u} has no positive diagonal", nameof(matrix));
+        }
+        var (levels, coarsest, columnsFirst) = Hierarchy(fine);
+        var op = new LatticeSheetOperator(fine, rowSum, matrix.Rows, nodeUnknown, [], [0], []);
+        return new StructuredMultigrid(levels, coarsest, columnsFirst, nodeUnknown, [], [0], [], op);
+    }
+
+    /// <summary>The levels below a filled finest level, down to the coarsest and its band Cholesky factor.</summary>
+    private static (StencilLevel[] Levels, BandCholesky Coarsest, bool ColumnsFirst) Hierarchy(StencilLevel fine)
+    {
+        fine.Complete();
+        var levels = new List<StencilLevel> { fine };
+        var current = fine;
+        while (current.Nx >= MinimumSide && current.Ny >= MinimumSide && current.Nodes > CoarsestNodes)
+        {
+            var next = BlackBoxCoarsening.Coarsen(current);
+            current.ReleaseCentre();   // the smoother needs only 1 / Centre once the next level is built
+            current = next;
+            current.Complete();
+            levels.Add(current);
+        }
+        // coarsest: numbered with the shorter side fastest, so the half-bandwidth is that side + 1
+        bool columnsFirst = current.Ny < current.Nx;
+        int fast = columnsFirst ? current.Ny : current.Nx;
+        var last = current;
+        var coarsest = new BandCholesky(last.Nodes, fast + 1, (a, b) =>
+        {
+            var (ia, ja) = Position(a, fast, columnsFirst);
+            var (ib, jb) = Position(b, fast, columnsFirst);
+            int di = ib - ia, dj = jb - ja;
+            return Math.Abs(di) <= 1 && Math.Abs(dj) <= 1 ? last.Entry(ia, ja, di, dj) : 0;
+        });
+        last.ReleaseCentre();
+        return (levels.ToArray(), coarsest, columnsFirst);
     }
 
     private static (int I, int J) Position(int index, int fast, bool columnsFirst) =>

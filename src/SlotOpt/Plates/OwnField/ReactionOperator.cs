@@ -45,11 +45,12 @@ public sealed class ReactionOperator
             for (int i = 0; i < ix; i++) _interiorUnknown[j * ix + i] = _nodeUnknown[(j + 1) * l.NodesX + i + 1];
     }
 
-    public static ReactionOperator Build(SheetModel model)
+    /// <param name="threads">workers for each FFT (rows and column strips split between them; the results are the same for any count)</param>
+    public static ReactionOperator Build(SheetModel model, int threads = 1)
     {
         var l = model.Lattice;
         int ix = l.NodesX - 2, iy = l.NodesY - 2;           // interior nodes: the border is outside (NodeRegions)
-        var convolution = new PaddedConvolution(ix, iy);
+        var convolution = new PaddedConvolution(ix, iy, threads);
         // one extra offset in x for the central difference of the convected form
         var kernel = ReactionKernel.Build(l.Hx, l.Hy, ix, iy - 1);
         var spectrum = convolution.Spectrum(ix - 1, iy - 1, (dx, dy) => kernel[dx, dy]);

@@ -11,7 +11,7 @@ namespace SlotOpt.Plates.Sources;
 /// <see cref="IntegrateRate"/>) with the energy the grid still misses added back (<see cref="SubCellEdgeLossPerSiemens"/>). For the lift the poles give their field in the
 /// sheet's plane (uniform Bz inside each face, zero outside): <see cref="LiftField.PlaneField"/>.
 /// </summary>
-public sealed class MovingPoles : IMovingSheetSource
+public sealed class MovingPoles : ITravellingSource
 {
     private const int AreaPoints = 8;
 
@@ -37,7 +37,11 @@ public sealed class MovingPoles : IMovingSheetSource
     }
 
     /// <summary>The smallest pole's size along the travel: the length scale of the moving skin depth.</summary>
-    public double PoleSizeXM => 2 * Poles.Min(p => p.Face.HalfWidthXM);
+    public double LoopLengthXM => 2 * Poles.Min(p => p.Face.HalfWidthXM);
+
+    public ITravellingSource AtSpeed(double speedMPerS) => new MovingPoles(Poles, speedMPerS);
+
+    public string Words => Poles.Count == 1 ? "1 pole" : $"{Poles.Count} poles";
 
     /// <summary>The widths the grid must resolve: the smallest pole's width along and across the travel, and the narrowest gap between poles side by side along x.</summary>
     public IReadOnlyList<GridFeature> GridFeatures

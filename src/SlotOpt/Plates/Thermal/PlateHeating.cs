@@ -33,12 +33,12 @@ public static class PlateHeating
             return (CellLossMap.Of(solution, sheetAtReference.SheetConductanceS), solution.LossW(sheetAtReference.SheetConductanceS), solution, null);
         });
 
-    public static HeatedPlate SolveMoving(PlateGeometry geometry, GridOptions? grid, MovingPoles poles, IReadOnlyList<double> offsetsXM, ConductingSheet sheetAtReference,
+    public static HeatedPlate SolveMoving(PlateGeometry geometry, GridOptions? grid, IMovingSheetSource source, IReadOnlyList<double> offsetsXM, ConductingSheet sheetAtReference,
         ThermalMaterial material, PlateCooling cooling, ConvergenceCriterion? criterion = null) =>
         Solve(geometry, grid, sheetAtReference, material, cooling, model =>
         {
             double g = sheetAtReference.SheetConductanceS;
-            var (unitMap, sweep) = MeanCellLoss(model, poles, offsetsXM, criterion);
+            var (unitMap, sweep) = MeanCellLoss(model, source, offsetsXM, criterion);
             return (unitMap.Select(p => p * g).ToArray(), sweep.MeanLossW(g), null, sweep);
         });
 
@@ -46,7 +46,7 @@ public static class PlateHeating
     /// Moving poles on one model: the loss per cell at a sheet conductance of 1 S, averaged over the travel offsets
     /// (each offset solved alone, so its map is at hand), and the sweep of those solves.
     /// </summary>
-    public static (double[] CellLossPerSiemensW, MovingSweepSolution Sweep) MeanCellLoss(SheetModel model, MovingPoles poles, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion = null)
+    public static (double[] CellLossPerSiemensW, MovingSweepSolution Sweep) MeanCellLoss(SheetModel model, IMovingSheetSource source, IReadOnlyList<double> offsetsXM, ConvergenceCriterion? criterion = null)
     {
         var mean = new double[model.Lattice.CellCount];
         var losses = new double[offsetsXM.Count];
@@ -55,17 +55,17 @@ public static class PlateHeating
         var notes = new List<string>();
         for (int k = 0; k < offsetsXM.Count; k++)
         {
-            var one = ResistanceLimitedSolver.SolveMoving(model, poles, [offsetsXM[k]], criterion);
+            var one = ResistanceLimitedSolver.SolveMoving(model, source, [offsetsXM[k]], criterion);
             var cells = CellLossMap.Of(one.Peak, 1.0);
             var edges = new double[cells.Length];
-            poles.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k], edges);    // the pole edges' sub-cell loss, in the cells that hold them
+            source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k], edges);   // a sharp source's sub-cell edge loss, in the cells that hold it (0 for a smooth one)
             for (int c = 0; c < mean.Length; c++) mean[c] += (cells[c] + edges[c]) / offsetsXM.Count;
             losses[k] = one.LossPerSiemensW[0];
             iterations[k] = one.IterationsPerOffset[0];
             if (peak is null || losses[k] > peak.LossPerSiemensW) peak = one.Peak;
             foreach (var n in one.Notes) if (!notes.Contains(n)) notes.Add(n);
         }
-        return (mean, new MovingSweepSolution(offsetsXM.ToArray(), losses, iterations, poles.SpeedMPerS, peak!, notes));
+        return (mean, new MovingSweepSolution(offsetsXM.ToArray(), losses, iterations, source.SpeedMPerS, peak!, notes));
     }
 
     private static HeatedPlate Solve(PlateGeometry geometry, GridOptions? grid, ConductingSheet sheet, ThermalMaterial material, PlateCooling cooling,
@@ -75,6 +75,7 @@ public static class PlateHeating
         var history = new List<string>();
         double[]? used = null;            // conductivity factor per cell the eddy solve ran with (null: 1 everywhere)
         ThermalNetwork? network = null;
+        PlateTemperature? last = null;
         double relax = 1, lastMismatch = double.PositiveInfinity;
         for (int iteration = 1; ; iteration++)
         {
@@ -84,9 +85,10 @@ public static class PlateHeating
             if (!double.IsFinite(loss)) throw new NumericalFailureException($"electro-thermal coupling: the loss is not finite at iteration {iteration}");
             network ??= ThermalNetwork.Assemble(model.Grid, material.ThermalConductivityWPerMK, sheet.ThicknessM, cooling.Edges);
             PlateTemperature temperature;
-            try { temperature = PlateTemperatureSolver.Solve(network, cellLoss, cooling); }
+            try { temperature = PlateTemperatureSolver.Solve(network, cellLoss, cooling, last); }
             catch (NumericalFailureException e) { throw new NumericalFailureException($"electro-thermal coupling, iteration {iteration} (loss {loss.ToString("G4", c)} W): {e.Message}{Trail(history)}"); }
             history.Add(string.Create(c, $"{iteration}: loss {loss:G5} W, hottest {temperature.HottestK - 273.15:0.##} degC"));
+            last = temperature;   // the next thermal solve starts here
 
             var cellT = temperature.CellTemperatureK();
             var target = new double[cellT.Length];

@@ -10,6 +10,9 @@ public static class SurfaceRadiation
     /// <summary>Stefan-Boltzmann constant (W/(m^2 K^4)), CODATA 2018 (exact from the SI defining constants).</summary>
     public const double StefanBoltzmann = 5.670374419e-8;
 
-    public static double HeatFluxWPerM2(double emissivity, double surfaceK, double ambientK) =>
-        emissivity * StefanBoltzmann * (Math.Pow(surfaceK, 4) - Math.Pow(ambientK, 4));
+    public static double HeatFluxWPerM2(double emissivity, double surfaceK, double ambientK)
+    {
+        double s2 = surfaceK * surfaceK, a2 = ambientK * ambientK;
+        return emissivity * StefanBoltzmann * (s2 * s2 - a2 * a2);
+    }
 }

@@ -1,5 +1,3 @@
-using SlotOpt.Plates.Grid;
-
 namespace SlotOpt.Plates.Thermal;
 
 /// <summary>How a plate's temperature was found (see <see cref="TemperatureBracket"/>).</summary>
@@ -33,17 +31,17 @@ public static class TemperatureBracket
     /// <summary>The temperature found (null with Failure when none could be), the temperature its resistivity was taken at (K), how, and the limit's breach in words (null when kept or unset).</summary>
     public sealed record Outcome(PlateTemperature? Temperature, double ResistivityK, TemperatureMethod Method, string? Breach, string? Failure);
 
+    /// <param name="screen">The thermal solves of the plate's geometry (its grid; shared by the thicknesses and materials of that geometry).</param>
     /// <param name="cellLossPerSiemensW">The loss per cell at a sheet conductance of 1 S (the resistance-limited solve's map).</param>
     /// <param name="sheetConductanceAtK">sigma(T) t of the plate; may throw <see cref="InputException"/> outside its data.</param>
     /// <param name="coupled">The coupled solve, run only between the bounds.</param>
-    public static Outcome Find(PlateGrid grid, double[] cellLossPerSiemensW, double thermalConductivityWPerMK, double thicknessM, Func<double, double> sheetConductanceAtK,
+    public static Outcome Find(ThermalScreen screen, double[] cellLossPerSiemensW, double thermalConductivityWPerMK, double thicknessM, Func<double, double> sheetConductanceAtK,
         PlateCooling cooling, TemperatureLimit limit, Func<HeatedPlate> coupled)
     {
-        var network = ThermalNetwork.Assemble(grid, thermalConductivityWPerMK, thicknessM, cooling.Edges);
         PlateTemperature At(double k)
         {
             var g = sheetConductanceAtK(k);
-            return PlateTemperatureSolver.Solve(network, cellLossPerSiemensW.Select(p => p * g).ToArray(), cooling);
+            return screen.Solve(cellLossPerSiemensW.Select(p => p * g).ToArray(), thermalConductivityWPerMK, thicknessM, cooling);
         }
         Outcome TooHot(TemperatureMethod method, string why) =>
             new(null, double.NaN, method, limit.IsSet ? $"too hot to compute, beyond the limit: {why}" : null, why);

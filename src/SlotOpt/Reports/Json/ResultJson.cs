@@ -8,7 +8,8 @@ namespace SlotOpt.Reports.Json;
 /// <summary>
 /// result.json, the machine-readable form of a run (`slotopt run --json` prints the same document): the numbers
 /// the console prints, and nothing that changes from run to run. Keys are the property names in snake_case
-/// (<see cref="JsonFormat"/>); absent values (null) are left out.
+/// (<see cref="JsonFormat"/>); absent values (null) are left out. The selection search's effort is
+/// `search_solver_calls` and `search_deterministic_seconds` (schema 3; `cp_sat_calls` and `cp_sat_deterministic_seconds` before).
 /// </summary>
 public sealed record ResultJson(
     string Problem,
@@ -26,8 +27,8 @@ public sealed record ResultJson(
     bool? FrontComplete,
     IReadOnlyList<string>? Diagnosis,
     int SheetSolves,
-    int CpSatCalls,
-    double CpSatDeterministicSeconds) : VersionedJson
+    int SearchSolverCalls,
+    double SearchDeterministicSeconds) : VersionedJson
 {
     /// <summary>One part's chosen option, its loss by origin, the reference it is measured against, the confirmation of a plate, and how many options the rules dropped.</summary>
     public sealed record ChosenPart(

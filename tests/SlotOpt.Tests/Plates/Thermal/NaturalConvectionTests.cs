@@ -5,11 +5,14 @@ namespace SlotOpt.Tests.Plates.Thermal;
 
 public class NaturalConvectionTests
 {
-    // Incropera, DeWitt, Bergman, Lavine, Fundamentals of Heat and Mass Transfer, 6th ed., 2007, Example 9.2
-    // (a 0.71 m high glass fire screen at 232 degC in a room at 23 degC), worked with the Churchill-Chu
-    // all-Ra correlation (their eq. 9.26; S. W. Churchill, H. H. S. Chu, Int. J. Heat Mass Transfer 18 (1975)
-    // 1323-1329): Ra_L = 1.813e9, Pr = 0.690 give Nu_L = 147 and, with k = 0.0338 W/(m K), h = 7.0 W/m2K.
-    // The example's numbers are recalled, not re-read. Tolerance 0.5 %: the book rounds Nu to 3 digits (+-0.34 %).
+    // F. P. Incropera, D. P. DeWitt, T. L. Bergman, A. S. Lavine, Fundamentals of Heat and Mass Transfer, 6th ed.,
+    // Wiley, 2007, Example 9.2 (a 0.71 m high glass fire screen at 232 degC in a room at 23 degC), worked with the
+    // Churchill-Chu all-Ra correlation (the book's eq. 9.26; S. W. Churchill, H. H. S. Chu, "Correlating equations for
+    // laminar and turbulent free convection from a vertical plate", Int. J. Heat Mass Transfer 18 (1975) 1323-1329):
+    // Ra_L = 1.813e9, Pr = 0.690 give Nu_L = 147 and, with k = 0.0338 W/(m K), h = 7.0 W/m2K. FROM MEMORY: the example's
+    // number, its figures and the book's equation number are recalled, not re-read; the 1975 paper was found (title page
+    // and abstract) but no check value of its own could be read, so none is cited from it.
+    // Tolerance 0.5 %: the book rounds Nu to 3 digits (+-0.34 %).
     [Fact]
     public void Churchill_Chu_reproduces_the_fire_screen_example()
     {

@@ -1,0 +1,72 @@
+using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
+
+namespace SlotOpt.Plates.Sources.Rotation;
+
+/// <summary>
+/// A field source fixed in space over a thin disc turning at AngularSpeedRadPerS (counter-clockwise about +z) about
+/// <see cref="Axis"/>. The sheet equation and its source:
+/// in the lab frame the fields are steady and Ohm's law in the moving conductor is K / G = E + v x B with v = omega z x r,
+/// E = -grad(phi) (steady: curl E = 0; K = curl(psi z), G = sigma t). The in-plane part of v x B is Bz (v_y, -v_x) = omega Bz r
+/// (radial), so taking the curl: -div(grad(psi) / G) = curl(omega Bz r)_z = omega (y dBz/dx - x dBz/dy) = -omega dBz/dtheta, that is
+/// div(grad(psi) / G) = omega dBz/dtheta: the same sheet equation as for a sliding source, div(grad(psi) / G) = dBz/dt, with dBz/dt the
+/// rate a point of the disc sees (in the disc's frame the field pattern turns at -omega: Bz(r, theta + omega t)). Resistance-limited:
+/// the eddy currents' own field is neglected (W. R. Smythe, "On eddy currents in a rotating disk", Trans. AIEE 61 (1942) 681-684, solves
+/// the same equation). A slotted disc is solved at several angles (the slots turn with it), each as a steady state.
+/// The dual-cell integral of omega dBz/dtheta is exact on the cell's edges: dBz/dtheta = d(x Bz)/dy - d(y Bz)/dx (x, y from the axis),
+/// so by Gauss's theorem it is omega (integral of x Bz dx along the top edge - along the bottom - integral of y Bz dy along the right
+/// edge + along the left); neighbouring cells share their edges, so the integrals telescope as for the sliding sources.
+/// </summary>
+public abstract class RotatingSource
+{
+    protected RotatingSource(Vec2 axis, double angularSpeedRadPerS)
+    {
+        if (!(angularSpeedRadPerS > 0) || !double.IsFinite(angularSpeedRadPerS)) throw new InputException($"the angular speed must be positive (got {angularSpeedRadPerS} rad/s)");
+        if (!double.IsFinite(axis.X) || !double.IsFinite(axis.Y)) throw new InputException("the disc's axis is not finite");
+        Axis = axis;
+        AngularSpeedRadPerS = angularSpeedRadPerS;
+    }
+
+    /// <summary>The disc's centre in the plate's plane (metres).</summary>
+    public Vec2 Axis { get; }
+    public double AngularSpeedRadPerS { get; }
+
+    /// <summary>The radius of the source's centre (the lever arm of its drag), metres.</summary>
+    public abstract double SourceRadiusM { get; }
+    /// <summary>The source's smallest size along its path (the loop length of the magnetic Reynolds number), metres.</summary>
+    public abstract double LoopLengthM { get; }
+    public abstract IReadOnlyList<GridFeature> GridFeatures { get; }
+    public abstract RotatingSource AtSpeed(double angularSpeedRadPerS);
+    public abstract string Words { get; }
+
+    /// <summary>Integral of x Bz dx along y = yM from x0 to x1 (x, y from the axis; tesla m^2), the source turned by angleRad.</summary>
+    protected abstract double MomentAlongX(double yM, double x0M, double x1M, double angleRad);
+    /// <summary>Integral of y Bz dy along x = xM from y0 to y1 (x, y from the axis; tesla m^2), the source turned by angleRad.</summary>
+    protected abstract double MomentAlongY(double xM, double y0M, double y1M, double angleRad);
+
+    /// <summary>Per lattice node, the dual-cell integral of dBz/dt = omega dBz/dtheta (volts) with the source turned by angleRad about the axis.</summary>
+    public void IntegrateRate(CellLattice l, double angleRad, double[] node)
+    {
+        int nx = l.NodesX, ny = l.NodesY;
+        var vertical = new double[(nx + 1) * ny];     // along x = x_k - hx/2, for node row j
+        var horizontal = new double[nx * (ny + 1)];   // along y = y_k - hy/2, for node column i
+        for (int j = 0; j < ny; j++)
+        {
+            double y0 = l.NodeY(j) - l.Hy / 2 - Axis.Y;
+            for (int k = 0; k <= nx; k++) vertical[j * (nx + 1) + k] = MomentAlongY(l.NodeX(k) - l.Hx / 2 - Axis.X, y0, y0 + l.Hy, angleRad);
+        }
+        for (int k = 0; k <= ny; k++)
+        {
+            double y = l.NodeY(k) - l.Hy / 2 - Axis.Y;
+            for (int i = 0; i < nx; i++)
+            {
+                double x0 = l.NodeX(i) - l.Hx / 2 - Axis.X;
+                horizontal[k * nx + i] = MomentAlongX(y, x0, x0 + l.Hx, angleRad);
+            }
+        }
+        double w = AngularSpeedRadPerS;
+        for (int j = 0; j < ny; j++)
+            for (int i = 0; i < nx; i++)
+                node[j * nx + i] = w * (horizontal[(j + 1) * nx + i] - horizontal[j * nx + i] - vertical[j * (nx + 1) + i + 1] + vertical[j * (nx + 1) + i]);
+    }
+}
