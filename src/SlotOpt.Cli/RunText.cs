@@ -74,7 +74,7 @@ public static class RunText
 
     /// <summary>A chosen plate as confirmed: which model ran, its loss, drag and lift, the resistance-limited screen's loss, and why that model.</summary>
     private static string Confirmed(PlateConfirmation c) =>
-        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? $"; estimated grid error {e.Relative.ToString("P2", System.Globalization.CultureInfo.InvariantCulture)}" : "")}. {c.Reason}";
+        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? string.Create(CultureInfo.InvariantCulture, $"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
 
     /// <summary>A hot plate's coupled temperature: hottest point (value and place), mean rise, the resistivity's temperature, the limit.</summary>
     private static string Temperature(PlateHeat heat)

@@ -16,12 +16,13 @@ namespace SlotOpt.Design;
 /// <list type="bullet">
 /// <item>a rule that does not depend on loss (slot width, strip, ligament, finger resonance, pattern, the screen's temperature) removed
 /// every process of that thickness and material: no model changes the verdict;</item>
-/// <item>moving poles: the option's loss lies between rigorous bounds from two reduced-basis steps (<see cref="MovingReducedBasis.LossBounds"/>),
+/// <item>moving sources: the option's loss lies between rigorous bounds from two reduced-basis steps (<see cref="MovingReducedBasis.LossBounds"/>),
 /// and its lower bound already breaks the part's drag or loss limit, or it is dominated: another option of the part, within the limits
 /// even at its upper bound, costs no more to build and loses less at its upper bound than this one at its lower bound (and, where the
 /// problem caps the number of processes, uses the same process). Swapping in the dominating option keeps every shared limit (budget, loss
 /// cap, processes) and lowers the loss at no extra cost, so the dominated one is never optimal and never on the loss-cost front. Parts
-/// with [parts.thermal] are not pruned (the run may still reject a chosen plate on its coupled temperature).</item>
+/// with [parts.thermal] are not pruned (the run may still reject a chosen plate on its coupled temperature), nor parts with a min_drag
+/// (a lower limit the bounds would have to meet from below).</item>
 /// </list>
 /// Options a loss or drag limit removed are re-solved unless their lower bound breaks it too: the coupled number is lower and may pass.
 /// <para>The screen's own bound, tested in PlateModelRankingTests: the resistance-limited loss is an upper bound of the coupled loss at the same
@@ -54,7 +55,7 @@ public static class PlateModelRanking
         public bool Needed { get; set; }
     }
 
-    /// <summary>Moving poles: the reduced basis of one geometry, kept from its bounds to its converged solves.</summary>
+    /// <summary>Moving sources: the reduced basis of one geometry, kept from its bounds to its converged solves.</summary>
     private sealed class GeometryBasis
     {
         public MovingReducedBasis? Basis { get; set; }
@@ -150,14 +151,14 @@ public static class PlateModelRanking
     private static OptionModel Screen(ModelChoice choice, string why) =>
         new(SheetModelKind.ResistanceLimited, $"the resistance-limited screen, not re-solved: {why} (its validity figures call for {ReactionModelChoice.Name(choice.Kind)}: {choice.Reason})", IsScreenOnly: true);
 
-    /// <summary>Moving poles: the loss bounds of every open group of one geometry from one reduced basis.</summary>
+    /// <summary>Moving sources: the loss bounds of every open group of one geometry from one reduced basis.</summary>
     private static void Bound(PlatePart part, PlateOptions.SolvedGeometry solved, List<Group> groups, GeometryBasis kept)
     {
         if (groups.All(x => x.Kept is not null)) return;
-        var poles = ((PlateExcitation.Moving)part.Excitation).Source;
-        var basis = kept.Basis = MovingReducedBasis.Start(ReactionOperator.Build(solved.Peak!.Model), poles, PlateOptions.TravelOffsets(part, solved.Slots));
+        var source = ((PlateExcitation.Moving)part.Excitation).Source;
+        var basis = kept.Basis = MovingReducedBasis.Start(ReactionOperator.Build(solved.Peak!.Model), source, PlateOptions.TravelOffsets(part, solved.Slots));
         foreach (var group in groups.Where(x => x.Kept is null))
-            group.Bounds = basis.LossBounds(group.Sheet, poles.SpeedMPerS);
+            group.Bounds = basis.LossBounds(group.Sheet, source.SpeedMPerS);
     }
 
     /// <summary>Marks the groups whose options may be chosen or sit on the front: not surely beyond a limit, not dominated (see the type's summary).</summary>

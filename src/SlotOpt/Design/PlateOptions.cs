@@ -65,7 +65,7 @@ public static class PlateOptions
                 screened[g].Add(Scale(part, solvedGeometries[g], thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop,
                     heat[g].GetValueOrDefault((thickness, materialName))));
         }
-        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null, processCapped);
+        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null && part.MinDrag is null, processCapped);
     }
 
     /// <summary>With [parts.thermal]: the temperature verdict of every thickness and material of one solved geometry (the process does not heat the plate).</summary>

@@ -50,12 +50,12 @@ public sealed record PlateConfirmation(
         if (part.Excitation is PlateExcitation.Moving { Source: var source })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
-            PlateSolution SolveOn(SheetModel m, ReactionOperator reaction) =>
-                PlateModels.SolveMoving(m, source, conductor, offsets, source.LoopLengthXM, reaction: reaction, basis: MovingReducedBasis.Start(reaction, source, offsets));
-            var fine = ReactionOperator.Build(model);
-            solution = PlateModels.WithGridError(SolveOn(model, fine), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse)));
-            sweep = Sweep(fine, source, conductor, offsets);
-            if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, fine, source, conductor, offsets, solution);
+            var reaction = ReactionOperator.Build(model);
+            PlateSolution SolveOn(SheetModel m, ReactionOperator r) =>
+                PlateModels.SolveMoving(m, source, conductor, offsets, source.LoopLengthXM, reaction: r, basis: MovingReducedBasis.Start(r, source, offsets));
+            solution = PlateModels.WithGridError(SolveOn(model, reaction), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse)));
+            sweep = Sweep(reaction, source, conductor, offsets);
+            if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
@@ -73,7 +73,7 @@ public sealed record PlateConfirmation(
     public MinimumDragCheck? MinimumDrag { get; init; }
 
     /// <summary>The chosen design's drag at the minimum's speed with the model its validity calls for there (the screen's resistance-limited drag overstates it once the own field matters).</summary>
-    private static MinimumDragCheck CheckMinimumDrag(MinimumDrag wanted, SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
+    private static MinimumDragCheck CheckMinimumDrag(MinimumDrag wanted, Plates.Grid.SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
         IReadOnlyList<double> offsets, PlateSolution atSourceSpeed)
     {
         var at = wanted.SpeedMPerS == source.SpeedMPerS ? atSourceSpeed
