@@ -42,7 +42,7 @@ public static class RunText
             o.WriteLine(string.Create(ci, $"    chosen:  {chosen.Description}"));
             o.WriteLine($"             loss {Numbers.Watts(chosen.Loss.TotalW)}{Drag(chosen.DragN)}, build cost {Numbers.Money(chosen.BuildCost, cur)}");
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
-            o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Drag(reference.DragN)}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
+            o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Drag(reference.DragN)}{(reference.Model is { } model ? $" ({model.Name} model)" : "")}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Confirmed(confirmed)}");
             if (r.Confirmation(chosen.PartName)?.MinimumDrag is { } minimum)
                 o.WriteLine($"    minimum drag: {Numbers.Newtons(minimum.DragN)} at {Numbers.Of(minimum.SpeedMPerS, "m/s")} ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Newtons(minimum.RequiredN)}");

@@ -24,6 +24,8 @@ public class RunTextTests
         var console = new StringWriter();
         RunText.Write(r, console);
         var summary = MarkdownRenderer.Render(ReportContent.Build(r, ReportFigures.Of(r), "stamp"));
+        // the console names the model behind the current design's number, as candidates.csv and result.json do
+        Assert.Contains($"loss {Numbers.Watts(part.Reference.Loss.TotalW)} (own-field model)", console.ToString());
         foreach (var flag in flags)
         {
             Assert.Contains($"warning (current design): {flag}", console.ToString());
