@@ -266,6 +266,7 @@ public static class ReportContent
             var part = r.Parts[i].Part;
             if (part is PlatePart { MaxDragN: { } maxDrag } && chosen[i].DragN is { } drag) checks.Add(Against($"{part.Name}: drag limit", drag, maxDrag, "N"));
             if (part.MaxLossW is { } maxLoss) checks.Add(Against($"{part.Name}: loss limit", chosen[i].Loss.TotalW, maxLoss, "W"));
+            if (r.Confirmation(part.Name)?.MinimumDrag is { } wanted) checks.Add(AtLeast($"{part.Name}: minimum drag at {Numbers.Of(wanted.SpeedMPerS, "m/s")}", wanted.DragN, wanted.RequiredN, "N"));
             if (r.HeatOf(part.Name, DesignRole.Chosen) is { Heating: { } heated, Limit: var limit })
             {
                 if (limit.MaxTemperatureK is { } maxK) checks.Add(Against($"{part.Name}: temperature limit", heated.Temperature.HottestK - 273.15, maxK - 273.15, "°C"));
@@ -294,6 +295,16 @@ public static class ReportContent
         var text = binds
             ? $"{name}: {Numbers.Of(value, unit)} of {Numbers.Of(limit, unit)}: binds"
             : $"{name}: {Numbers.Of(value, unit)} of {Numbers.Of(limit, unit)}: {Numbers.Of(limit - value, unit)} of room";
+        return new LimitCheck(name, text, binds);
+    }
+
+    /// <summary>A lower limit (a wanted force): it binds when the design exceeds it by no more than BindingFraction of it.</summary>
+    private static LimitCheck AtLeast(string name, double value, double minimum, string unit)
+    {
+        var binds = value - minimum <= BindingFraction * Math.Abs(minimum);
+        var text = value < minimum
+            ? $"{name}: {Numbers.Of(value, unit)}, short of the required {Numbers.Of(minimum, unit)}"
+            : $"{name}: {Numbers.Of(value, unit)} of at least {Numbers.Of(minimum, unit)}: " + (binds ? "binds" : $"{Numbers.Of(value - minimum, unit)} to spare");
         return new LimitCheck(name, text, binds);
     }
 
