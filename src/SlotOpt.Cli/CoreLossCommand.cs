@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using SlotOpt.Tables;
 using SlotOpt.Design.Limits;
 using SlotOpt.Input;
 using SlotOpt.Lamination;

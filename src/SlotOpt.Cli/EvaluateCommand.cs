@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using SlotOpt.Tables;
 using SlotOpt.Design;
 using SlotOpt.Input;
 using SlotOpt.Reports;

@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text;
 using System.Text.Json;
+using SlotOpt.Tables;
 using SlotOpt.Input;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;

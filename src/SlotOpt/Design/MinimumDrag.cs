@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using System.Globalization;
 
 namespace SlotOpt.Design;
@@ -29,6 +30,6 @@ public sealed record MinimumDrag
     {
         var drag = ScreenDragN(dragAtSourceSpeedN, sourceSpeedMPerS);
         return drag >= ForceN ? null
-            : new RuleBreak(RuleKind.DragBelowMinimum, string.Create(CultureInfo.InvariantCulture, $"drag {drag:0.###} N at {SpeedMPerS:0.###} m/s is below the part's minimum of {ForceN:0.###} N"));
+            : new RuleBreak(RuleKind.DragBelowMinimum, string.Create(CultureInfo.InvariantCulture, $"drag {Numbers.Of(drag, "N")} at {SpeedMPerS:0.###} m/s is below the part's minimum of {Numbers.Of(ForceN, "N")}"));
     }
 }

@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using System.Globalization;
 using SlotOpt.Design.Limits;
 using SlotOpt.Materials;
@@ -241,7 +242,7 @@ public static class PlateOptions
         if (slots is not null)
             rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, acField?.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
-            rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {drag:0.###} N exceeds the part's limit of {maxDrag:0.###} N"));
+            rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {Numbers.Of(drag!.Value, "N")} exceeds the part's limit of {Numbers.Of(maxDrag, "N")}"));
         if (rejection is null && part.MinDrag is { } minDrag && drag is { } dragN)
         {
             rejection = minDrag.Check(dragN, moving!.SpeedMPerS);
@@ -249,7 +250,7 @@ public static class PlateOptions
                 flags.AddRange(Validity.ForMoving(sheet, minDrag.SpeedMPerS).Warnings.Select(w => string.Create(ci, $"at {minDrag.SpeedMPerS:0.###} m/s: {w}")));
         }
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
-            rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {loss.TotalW:0.###} W exceeds the part's limit of {maxLoss:0.###} W"));
+            rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {Numbers.Watts(loss.TotalW)} exceeds the part's limit of {Numbers.Watts(maxLoss)}"));
         if (heat is { Failure: { } why, Breach: null }) flags.Add($"temperature not computed: {why}");
         if (rejection is null && heat?.Breach is { } hot) rejection = new(RuleKind.HotterThanLimit, hot);
         var temperature = heat?.Temperature is { } t ? OptionTemperature.Of(t, heat.ResistivityK, heat.Method) : null;

@@ -1,5 +1,6 @@
 using System.Globalization;
 using ScottPlot;
+using SlotOpt.Tables;
 using SlotOpt.Design;
 using SlotOpt.Design.Cores;
 using SlotOpt.Runs;

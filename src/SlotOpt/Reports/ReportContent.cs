@@ -1,4 +1,5 @@
 using System.Globalization;
+using SlotOpt.Tables;
 using SlotOpt.Design;
 using SlotOpt.Design.Cores;
 using SlotOpt.Plates.Thermal;

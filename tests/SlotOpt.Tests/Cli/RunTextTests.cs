@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using SlotOpt.Cli;
 using SlotOpt.Input;
 using SlotOpt.Reports;

@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using SlotOpt.Reports;
 
 namespace SlotOpt.Tests.Reports;

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text.Json.Nodes;
+using SlotOpt.Tables;
 using SlotOpt.Reports;
 
 namespace SlotOpt.Tests.Reports;

@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using System.Globalization;
 using SlotOpt.Lamination;
 using SlotOpt.Materials;
@@ -44,7 +45,7 @@ public static class CoreOptions
         else if (specific.Flags.FirstOrDefault(f => f.Code == "flux-beyond-grade") is { } beyond)
             rejection = new RuleBreak(RuleKind.FluxBeyondGrade, beyond.Message);
         else if (part.MaxLossW is { } cap && loss.TotalW > cap)
-            rejection = new RuleBreak(RuleKind.LossAboveLimit, string.Create(CultureInfo.InvariantCulture, $"loss {loss.TotalW:0.##} W exceeds the part's limit of {cap:0.##} W"));
+            rejection = new RuleBreak(RuleKind.LossAboveLimit, string.Create(CultureInfo.InvariantCulture, $"loss {Numbers.Watts(loss.TotalW)} exceeds the part's limit of {Numbers.Watts(cap)}"));
         var attributes = new Dictionary<string, string>
         {
             ["grade"] = steel.Grade,

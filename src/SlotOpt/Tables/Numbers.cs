@@ -1,6 +1,6 @@
 using System.Globalization;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Tables;
 
 /// <summary>
 /// The one rule for the numbers slotopt prints (report, tables, plots and the console alike): four significant
