@@ -50,10 +50,10 @@ public sealed record PlateConfirmation(
         if (part.Excitation is PlateExcitation.Moving { Source: var source })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
-            var reaction = ReactionOperator.Build(model);
+            var reaction = ReactionOperator.Build(model, limits.Threads);
             PlateSolution SolveOn(SheetModel m, ReactionOperator r) =>
                 PlateModels.SolveMoving(m, source, conductor, offsets, source.LoopLengthXM, reaction: r, basis: MovingReducedBasis.Start(r, source, offsets));
-            solution = PlateModels.WithGridError(SolveOn(model, reaction), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse)));
+            solution = PlateModels.WithGridError(SolveOn(model, reaction), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse, limits.Threads)));
             sweep = Sweep(reaction, source, conductor, offsets);
             if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
