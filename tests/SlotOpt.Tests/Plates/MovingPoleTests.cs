@@ -19,8 +19,8 @@ public class MovingPoleTests
     // F = 1/2 sigma t v B^2 pi R^2 (1 - R^2/a^2) [D, derived here]; this is the m -> 0 limit of the
     // Smythe/Schieber disc-brake formula T = 1/2 sigma d omega pi r^2 m^2 B^2 [1 - (r/a)^2 / (1 - (m/a)^2)^2]
     // (W. R. Smythe, Trans. AIEE 61:681-684, 1942; D. Schieber, Proc. IEE 121(2):117-122, 1974), with F = T/m and v = omega m. The 1 % correction is what a 10 R plate changes.
-    // Tolerances: 3 % against Heald (the brief), 1.5 % against the finite-disc form (measured -0.74 % at
-    // 20 cells per radius: first-order cut-cell error on the pole's and plate's circles).
+    // Tolerances: 3 % against Heald (the brief), 0.3 % against the finite-disc form (the target at 20 cells
+    // per radius; measured -0.004 %, -0.74 % before the pole edge's energy was taken by its angle to the lattice).
     [Fact]
     public void Circular_pole_on_large_disc_matches_Heald_drag()
     {
@@ -30,7 +30,7 @@ public class MovingPoleTests
         double drag = sweep.DragN(ConductivitySPerM * ThicknessM)[0];
         double heald = 0.5 * ConductivitySPerM * ThicknessM * SpeedMPerS * FluxDensityT * FluxDensityT * Math.PI * RadiusM * RadiusM;
         Assert.InRange(drag / heald - 1, -0.03, 0.03);
-        Assert.InRange(drag / (heald * (1 - RadiusM * RadiusM / (a * a))) - 1, -0.015, 0.015);
+        Assert.InRange(drag / (heald * (1 - RadiusM * RadiusM / (a * a))) - 1, -0.003, 0.003);
     }
 
     // Resistance-limited regime: psi is linear in dB/dt = -v dB/dx, so loss ~ v^2 B^2 and drag = P/v ~ v B^2
