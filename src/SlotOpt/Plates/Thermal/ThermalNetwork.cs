@@ -74,14 +74,20 @@ public sealed class ThermalNetwork
     public static ThermalNetwork Assemble(PlateGrid grid, double thermalConductivityWPerMK, double thicknessM, ThermalEdge edges)
     {
         var l = grid.Lattice;
-        int nx = l.Nx, ny = l.Ny, nxn = l.NodesX;
-        // conducting cross-section fraction per cell: area fraction x remaining thickness fraction
-        var f = new double[l.CellCount];
-        for (int c = 0; c < f.Length; c++) f[c] = grid.Conductance[c] > 0 ? grid.AreaFraction[c] * (double)grid.ThicknessFraction[c] : 0;
-        double F(int i, int j) => i < 0 || j < 0 || i >= nx || j >= ny ? 0 : f[j * nx + i];
-
-        var outsideCell = edges == ThermalEdge.Ambient ? OutsideCells(f, nx, ny) : null;
-        bool Outside(int i, int j) => i < 0 || j < 0 || i >= nx || j >= ny || outsideCell![j * nx + i];
+        int nx = l.Nx, ny = l.Ny, nxn = l.NodesX, px = nx + 2;
+        // per cell, on a lattice padded with one empty cell all round (cell (i, j) at (j + 1) px + i + 1): the conducting
+        // cross-section fraction (area fraction x remaining thickness fraction) and the conducting area fraction
+        var f = new double[px * (ny + 2)];
+        var a = new double[px * (ny + 2)];
+        for (int j = 0; j < ny; j++)
+            for (int i = 0; i < nx; i++)
+            {
+                int c = j * nx + i, k = (j + 1) * px + i + 1;
+                if (!(grid.Conductance[c] > 0)) continue;
+                f[k] = grid.AreaFraction[c] * (double)grid.ThicknessFraction[c];
+                a[k] = grid.AreaFraction[c];
+            }
+        var outside = edges == ThermalEdge.Ambient ? OutsideCells(f, px, ny + 2) : null;
 
         var area = new double[l.NodeCount];
         var held = new bool[l.NodeCount];
@@ -89,19 +95,13 @@ public sealed class ThermalNetwork
         double quarter = l.CellAreaM2 / 4;
         int unknowns = 0;
         for (int j = 0; j <= ny; j++)
-            for (int i = 0; i <= nxn - 1; i++)
+            for (int i = 0; i < nxn; i++)
             {
                 int n = j * nxn + i;
-                double fa = 0;
-                for (int dj = -1; dj <= 0; dj++)
-                    for (int di = -1; di <= 0; di++)
-                    {
-                        int ci = i + di, cj = j + dj;
-                        if (ci >= 0 && cj >= 0 && ci < nx && cj < ny && grid.Conductance[cj * nx + ci] > 0) fa += grid.AreaFraction[cj * nx + ci];
-                    }
-                area[n] = quarter * fa;
+                int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;   // the four cells around node (i, j), padded
+                area[n] = quarter * (a[sw] + a[se] + a[nw] + a[ne]);
                 if (area[n] == 0) { nodeUnknown[n] = -1; continue; }
-                if (outsideCell is not null && (Outside(i - 1, j - 1) || Outside(i, j - 1) || Outside(i - 1, j) || Outside(i, j)))
+                if (outside is not null && (outside[sw] || outside[se] || outside[nw] || outside[ne]))
                 {
                     held[n] = true;
                     nodeUnknown[n] = -1;
@@ -122,10 +122,11 @@ public sealed class ThermalNetwork
                 int u = nodeUnknown[n];
                 if (u < 0) continue;
                 // links at k t = 1: left/right cross the cells below (j-1) and above (j); down/up the cells left (i-1) and right (i)
-                double down = j > 0 ? ry * (F(i - 1, j - 1) + F(i, j - 1)) / 2 : 0;
-                double left = i > 0 ? rx * (F(i - 1, j - 1) + F(i - 1, j)) / 2 : 0;
-                double right = i < nx ? rx * (F(i, j - 1) + F(i, j)) / 2 : 0;
-                double up = j < ny ? ry * (F(i - 1, j) + F(i, j)) / 2 : 0;
+                int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;
+                double down = j > 0 ? ry * (f[sw] + f[se]) / 2 : 0;
+                double left = i > 0 ? rx * (f[sw] + f[nw]) / 2 : 0;
+                double right = i < nx ? rx * (f[se] + f[ne]) / 2 : 0;
+                double up = j < ny ? ry * (f[nw] + f[ne]) / 2 : 0;
                 diagonal[u] = down + left + right + up;
                 // a node's left link is its left neighbour's right link (the same two half cells), so the stencil is symmetric
                 if (down > 0) { if (nodeUnknown[n - nxn] >= 0) south[n] = down; else if (held[n - nxn]) toHeld[u] += down; }
