@@ -133,6 +133,44 @@ public sealed class StructuredMultigrid : IPreconditioner
         return new StructuredMultigrid(levels, coarsest, columnsFirst, nodeUnknown, [], [0], [], op);
     }
 
+    /// <summary>
+    /// As <see cref="ForNodeMatrix"/>, from the 5-point stencil itself instead of a sparse matrix: the entry between node p and
+    /// p - 1 is -scale westConductance[p], between p and p - nodesX -scale southConductance[p] (0 unless both nodes carry
+    /// unknowns; arrays of at least nodesX nodesY + nodesX + 1 entries), the diagonal by unknown.
+    /// </summary>
+    public static StructuredMultigrid ForNodeStencil(int nodesX, int nodesY, int[] nodeUnknown, double[] westConductance, double[] southConductance,
+        double conductanceScale, double[] diagonal)
+    {
+        int nodes = nodesX * nodesY;
+        if (nodeUnknown.Length != nodes) throw new ArgumentException("one entry per lattice node", nameof(nodeUnknown));
+        if (westConductance.Length < nodes + nodesX + 1 || southConductance.Length < nodes + nodesX + 1) throw new ArgumentException("one coupling per lattice node and the padding", nameof(westConductance));
+        if (diagonal.Length == 0) throw SheetOperator.NoFreeNode();
+        var fine = new StencilLevel(nodesX, nodesY, ninePoint: false);
+        var c = fine.Centre; var w = fine.West; var s = fine.South;
+        for (int p = 0; p < nodes; p++)
+        {
+            int u = nodeUnknown[p];
+            if (u < 0) { c[p] = 1; continue; }
+            c[p] = diagonal[u];
+            if (!(c[p] > 0)) throw new ArgumentException($"unknown {u} has no positive diagonal", nameof(diagonal));
+            if (westConductance[p] != 0)
+            {
+                if (p % nodesX == 0 || nodeUnknown[p - 1] < 0) throw new ArgumentException($"unknown {u} couples west to a node without an unknown", nameof(westConductance));
+                w[p] = -conductanceScale * westConductance[p];
+            }
+            if (southConductance[p] != 0)
+            {
+                if (p < nodesX || nodeUnknown[p - nodesX] < 0) throw new ArgumentException($"unknown {u} couples south to a node without an unknown", nameof(southConductance));
+                s[p] = -conductanceScale * southConductance[p];
+            }
+        }
+        var rowSum = new double[nodes];   // the diagonal part no coupling carries, as the operator's outside weight
+        for (int p = 0; p < nodes; p++) if (nodeUnknown[p] >= 0) rowSum[p] = c[p] + w[p] + w[p + 1] + s[p] + s[p + nodesX];
+        var (levels, coarsest, columnsFirst) = Hierarchy(fine);
+        var op = new LatticeSheetOperator(fine, rowSum, diagonal.Length, nodeUnknown, [], [0], []);
+        return new StructuredMultigrid(levels, coarsest, columnsFirst, nodeUnknown, [], [0], [], op);
+    }
+
     /// <summary>The levels below a filled finest level, down to the coarsest and its band Cholesky factor.</summary>
     private static (StencilLevel[] Levels, BandCholesky Coarsest, bool ColumnsFirst) Hierarchy(StencilLevel fine)
     {

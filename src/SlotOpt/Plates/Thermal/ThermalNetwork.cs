@@ -20,18 +20,17 @@ namespace SlotOpt.Plates.Thermal;
 /// </summary>
 public sealed class ThermalNetwork
 {
-    private ThermalNetwork(PlateGrid grid, int[] nodeUnknown, int unknowns, bool[] heldNode, double[] nodeAreaM2, int[] rowStart, int[] column,
-        double[] unitConduction, int[] diagonalIndex, double[] unitConductanceToHeld, double conductanceScale, PreconditionerCache cache)
+    private ThermalNetwork(PlateGrid grid, int[] nodeUnknown, int unknowns, bool[] heldNode, double[] nodeAreaM2, double[] unitWest, double[] unitSouth,
+        double[] unitDiagonal, double[] unitConductanceToHeld, double conductanceScale, PreconditionerCache cache)
     {
         Grid = grid;
         NodeUnknown = nodeUnknown;
         Unknowns = unknowns;
         HeldNode = heldNode;
         NodeAreaM2 = nodeAreaM2;
-        _rowStart = rowStart;
-        _column = column;
-        _unitConduction = unitConduction;
-        _diagonalIndex = diagonalIndex;
+        UnitWest = unitWest;
+        UnitSouth = unitSouth;
+        UnitDiagonal = unitDiagonal;
         _unitConductanceToHeld = unitConductanceToHeld;
         ConductanceScaleWPerK = conductanceScale;
         _cache = cache;
@@ -48,9 +47,12 @@ public sealed class ThermalNetwork
     public double[] NodeAreaM2 { get; }
     /// <summary>k t of the plate (W/K): every conductance is k t times a factor of the grid alone.</summary>
     public double ConductanceScaleWPerK { get; }
-    private readonly int[] _rowStart, _column, _diagonalIndex;
-    /// <summary>The conduction part of the matrix at k t = 1 W/K, diagonal included (conductance to held neighbours too).</summary>
-    private readonly double[] _unitConduction;
+    /// <summary>The conduction stencil at k t = 1 W/K, by node: the link from node p to p - 1 (UnitWest) and to p - NodesX (UnitSouth),
+    /// 0 unless both nodes carry unknowns; padded with NodesX + 2 zeros, so p + 1 and p + NodesX may be read for every node.</summary>
+    internal double[] UnitWest { get; }
+    internal double[] UnitSouth { get; }
+    /// <summary>The conduction part of the diagonal at k t = 1 W/K, by unknown: all its links, those to held nodes included.</summary>
+    internal double[] UnitDiagonal { get; }
     private readonly double[] _unitConductanceToHeld;
     private readonly PreconditionerCache _cache;
 
@@ -59,7 +61,7 @@ public sealed class ThermalNetwork
 
     /// <summary>The same plate and grid with another k t (another material or thickness): shares the grid's arrays and the preconditioner.</summary>
     public ThermalNetwork WithConductivity(double thermalConductivityWPerMK, double thicknessM) =>
-        new(Grid, NodeUnknown, Unknowns, HeldNode, NodeAreaM2, _rowStart, _column, _unitConduction, _diagonalIndex, _unitConductanceToHeld,
+        new(Grid, NodeUnknown, Unknowns, HeldNode, NodeAreaM2, UnitWest, UnitSouth, UnitDiagonal, _unitConductanceToHeld,
             Scale(thermalConductivityWPerMK, thicknessM), _cache);
 
     private static double Scale(double k, double t)
@@ -72,14 +74,20 @@ public sealed class ThermalNetwork
     public static ThermalNetwork Assemble(PlateGrid grid, double thermalConductivityWPerMK, double thicknessM, ThermalEdge edges)
     {
         var l = grid.Lattice;
-        int nx = l.Nx, ny = l.Ny, nxn = l.NodesX;
-        // conducting cross-section fraction per cell: area fraction x remaining thickness fraction
-        var f = new double[l.CellCount];
-        for (int c = 0; c < f.Length; c++) f[c] = grid.Conductance[c] > 0 ? grid.AreaFraction[c] * (double)grid.ThicknessFraction[c] : 0;
-        double F(int i, int j) => i < 0 || j < 0 || i >= nx || j >= ny ? 0 : f[j * nx + i];
-
-        var outsideCell = edges == ThermalEdge.Ambient ? OutsideCells(f, nx, ny) : null;
-        bool Outside(int i, int j) => i < 0 || j < 0 || i >= nx || j >= ny || outsideCell![j * nx + i];
+        int nx = l.Nx, ny = l.Ny, nxn = l.NodesX, px = nx + 2;
+        // per cell, on a lattice padded with one empty cell all round (cell (i, j) at (j + 1) px + i + 1): the conducting
+        // cross-section fraction (area fraction x remaining thickness fraction) and the conducting area fraction
+        var f = new double[px * (ny + 2)];
+        var a = new double[px * (ny + 2)];
+        for (int j = 0; j < ny; j++)
+            for (int i = 0; i < nx; i++)
+            {
+                int c = j * nx + i, k = (j + 1) * px + i + 1;
+                if (!(grid.Conductance[c] > 0)) continue;
+                f[k] = grid.AreaFraction[c] * (double)grid.ThicknessFraction[c];
+                a[k] = grid.AreaFraction[c];
+            }
+        var outside = edges == ThermalEdge.Ambient ? OutsideCells(f, px, ny + 2) : null;
 
         var area = new double[l.NodeCount];
         var held = new bool[l.NodeCount];
@@ -87,19 +95,13 @@ public sealed class ThermalNetwork
         double quarter = l.CellAreaM2 / 4;
         int unknowns = 0;
         for (int j = 0; j <= ny; j++)
-            for (int i = 0; i <= nxn - 1; i++)
+            for (int i = 0; i < nxn; i++)
             {
                 int n = j * nxn + i;
-                double fa = 0;
-                for (int dj = -1; dj <= 0; dj++)
-                    for (int di = -1; di <= 0; di++)
-                    {
-                        int ci = i + di, cj = j + dj;
-                        if (ci >= 0 && cj >= 0 && ci < nx && cj < ny && grid.Conductance[cj * nx + ci] > 0) fa += grid.AreaFraction[cj * nx + ci];
-                    }
-                area[n] = quarter * fa;
+                int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;   // the four cells around node (i, j), padded
+                area[n] = quarter * (a[sw] + a[se] + a[nw] + a[ne]);
                 if (area[n] == 0) { nodeUnknown[n] = -1; continue; }
-                if (outsideCell is not null && (Outside(i - 1, j - 1) || Outside(i, j - 1) || Outside(i - 1, j) || Outside(i, j)))
+                if (outside is not null && (outside[sw] || outside[se] || outside[nw] || outside[ne]))
                 {
                     held[n] = true;
                     nodeUnknown[n] = -1;
@@ -108,13 +110,11 @@ public sealed class ThermalNetwork
                 nodeUnknown[n] = unknowns++;
             }
 
-        var rowStart = new int[unknowns + 1];
-        var column = new int[5 * unknowns];
-        var value = new double[5 * unknowns];
-        var diagonal = new int[unknowns];
+        var west = new double[l.NodeCount + nxn + 2];
+        var south = new double[l.NodeCount + nxn + 2];
+        var diagonal = new double[unknowns];
         var toHeld = new double[unknowns];
         double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
-        int count = 0;
         for (int j = 0; j <= ny; j++)
             for (int i = 0; i < nxn; i++)
             {
@@ -122,62 +122,80 @@ public sealed class ThermalNetwork
                 int u = nodeUnknown[n];
                 if (u < 0) continue;
                 // links at k t = 1: left/right cross the cells below (j-1) and above (j); down/up the cells left (i-1) and right (i)
-                double down = j > 0 ? ry * (F(i - 1, j - 1) + F(i, j - 1)) / 2 : 0;
-                double left = i > 0 ? rx * (F(i - 1, j - 1) + F(i - 1, j)) / 2 : 0;
-                double right = i < nx ? rx * (F(i, j - 1) + F(i, j)) / 2 : 0;
-                double up = j < ny ? ry * (F(i - 1, j) + F(i, j)) / 2 : 0;
-                // unknowns are numbered in node order, so down < left < u < right < up: the row comes out sorted
-                Link(n - nxn, down);
-                Link(n - 1, left);
-                diagonal[u] = count;
-                column[count] = u;
-                value[count++] = down + left + right + up;
-                Link(n + 1, right);
-                Link(n + nxn, up);
-                rowStart[u + 1] = count;
-
-                void Link(int m, double c)
-                {
-                    if (c == 0) return;
-                    int v = nodeUnknown[m];
-                    if (v >= 0) { column[count] = v; value[count++] = -c; }
-                    else if (held[m]) toHeld[u] += c;
-                }
+                int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;
+                double down = j > 0 ? ry * (f[sw] + f[se]) / 2 : 0;
+                double left = i > 0 ? rx * (f[sw] + f[nw]) / 2 : 0;
+                double right = i < nx ? rx * (f[se] + f[ne]) / 2 : 0;
+                double up = j < ny ? ry * (f[nw] + f[ne]) / 2 : 0;
+                diagonal[u] = down + left + right + up;
+                // a node's left link is its left neighbour's right link (the same two half cells), so the stencil is symmetric
+                if (down > 0) { if (nodeUnknown[n - nxn] >= 0) south[n] = down; else if (held[n - nxn]) toHeld[u] += down; }
+                if (left > 0) { if (nodeUnknown[n - 1] >= 0) west[n] = left; else if (held[n - 1]) toHeld[u] += left; }
+                if (right > 0 && held[n + 1]) toHeld[u] += right;
+                if (up > 0 && held[n + nxn]) toHeld[u] += up;
             }
-        Array.Resize(ref column, count);
-        Array.Resize(ref value, count);
-        return new ThermalNetwork(grid, nodeUnknown, unknowns, held, area, rowStart, column, value, diagonal, toHeld,
+        return new ThermalNetwork(grid, nodeUnknown, unknowns, held, area, west, south, diagonal, toHeld,
             Scale(thermalConductivityWPerMK, thicknessM), new PreconditionerCache());
     }
 
-    /// <summary>The operator with surface loss: conduction plus 2 h_u A_u on the diagonal (h per unknown, W/m^2K).</summary>
-    public CsrMatrix Matrix(double[] surfaceCoefficientWPerM2K)
+    /// <summary>The diagonal with surface loss: conduction plus 2 h_u A_u (h per unknown, W/m^2K), into <paramref name="diagonal"/> (W/K).</summary>
+    public void Diagonal(double[] surfaceCoefficientWPerM2K, double[] diagonal)
     {
-        var v = new double[_unitConduction.Length];
         double kt = ConductanceScaleWPerK;
-        for (int k = 0; k < v.Length; k++) v[k] = kt * _unitConduction[k];
         for (int n = 0; n < NodeUnknown.Length; n++)
         {
             int u = NodeUnknown[n];
-            if (u >= 0) v[_diagonalIndex[u]] += 2 * surfaceCoefficientWPerM2K[u] * NodeAreaM2[n];
+            if (u >= 0) diagonal[u] = kt * UnitDiagonal[u] + 2 * surfaceCoefficientWPerM2K[u] * NodeAreaM2[n];
         }
-        return new CsrMatrix(Unknowns, Unknowns, _rowStart, _column, v);
+    }
+
+    /// <summary>The operator with surface loss as a sparse matrix (for dense references; the solver applies <see cref="ThermalOperator"/>):
+    /// rows in node order, each row's entries sorted (down, left, diagonal, right, up).</summary>
+    public CsrMatrix Matrix(double[] surfaceCoefficientWPerM2K)
+    {
+        var diagonal = new double[Unknowns];
+        Diagonal(surfaceCoefficientWPerM2K, diagonal);
+        int nxn = Lattice.NodesX;
+        double kt = ConductanceScaleWPerK;
+        var rowStart = new int[Unknowns + 1];
+        var column = new List<int>(5 * Unknowns);
+        var value = new List<double>(5 * Unknowns);
+        for (int n = 0; n < NodeUnknown.Length; n++)
+        {
+            int u = NodeUnknown[n];
+            if (u < 0) continue;
+            Link(n - nxn, UnitSouth[n]);
+            Link(n - 1, UnitWest[n]);
+            column.Add(u);
+            value.Add(diagonal[u]);
+            Link(n + 1, UnitWest[n + 1]);
+            Link(n + nxn, UnitSouth[n + nxn]);
+            rowStart[u + 1] = column.Count;
+        }
+        return new CsrMatrix(Unknowns, Unknowns, rowStart, column.ToArray(), value.ToArray());
+
+        void Link(int m, double c)
+        {
+            if (c == 0) return;
+            column.Add(NodeUnknown[m]);
+            value.Add(-kt * c);
+        }
     }
 
     /// <summary>
-    /// The multigrid preconditioner for a matrix of this network whose surface coefficients are about h (W/m^2K). Built
+    /// The multigrid preconditioner for this network's operator with surface coefficients about h (W/m^2K). Built
     /// once and kept, with the networks of the same grid (<see cref="WithConductivity"/>), while h / (k t) stays within
     /// a factor <see cref="PreconditionerReuseFactor"/> of the one it was built for: the black-box hierarchy of c M is c
     /// times that of M, and conjugate gradients does not see a constant factor on the preconditioner, so only the ratio of
     /// the surface term to the conduction moves the preconditioned spectrum. Not for concurrent solves (it holds the
     /// V-cycle's vectors).
     /// </summary>
-    public StructuredMultigrid Preconditioner(CsrMatrix matrix, double surfaceCoefficientWPerM2K)
+    public StructuredMultigrid Preconditioner(ThermalOperator op, double surfaceCoefficientWPerM2K)
     {
         double ratio = surfaceCoefficientWPerM2K / ConductanceScaleWPerK;
         if (_cache.Multigrid is null || !(Math.Abs(Math.Log(ratio / _cache.Ratio)) <= Math.Log(PreconditionerReuseFactor)))
         {
-            _cache.Multigrid = StructuredMultigrid.ForNodeMatrix(matrix, Lattice.NodesX, Lattice.NodesY, NodeUnknown);
+            _cache.Multigrid = StructuredMultigrid.ForNodeStencil(Lattice.NodesX, Lattice.NodesY, NodeUnknown, UnitWest, UnitSouth, ConductanceScaleWPerK, op.DiagonalWPerK);
             _cache.Ratio = ratio;
         }
         return _cache.Multigrid;
