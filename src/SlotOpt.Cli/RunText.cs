@@ -44,7 +44,7 @@ public static class RunText
             o.WriteLine($"             loss {Numbers.Watts(chosen.Loss.TotalW)}{Drag(chosen.DragN)}, build cost {Numbers.Money(chosen.BuildCost, cur)}");
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
             o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Drag(reference.DragN)}{(reference.Model is { } model ? $" ({model.Name} model)" : "")}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
-            if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {Confirmed(confirmed)}");
+            if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {ReportContent.ConfirmationText(confirmed)}");
             if (r.Confirmation(chosen.PartName)?.MinimumDrag is { } minimum)
                 o.WriteLine($"    minimum drag: {Numbers.Newtons(minimum.DragN)} at {Numbers.Of(minimum.SpeedMPerS, "m/s")} ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Newtons(minimum.RequiredN)}");
             foreach (var role in new[] { DesignRole.Chosen, DesignRole.Reference })
@@ -72,10 +72,6 @@ public static class RunText
         o.WriteLine();
         o.WriteLine("  These are engineering estimates to be confirmed by test; see the report's cautions.");
     }
-
-    /// <summary>A chosen plate as confirmed: which model ran, its loss, drag and lift, the resistance-limited screen's loss, and why that model.</summary>
-    private static string Confirmed(PlateConfirmation c) =>
-        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? string.Create(CultureInfo.InvariantCulture, $"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
 
     /// <summary>A hot plate's coupled temperature: hottest point (value and place), mean rise, the resistivity's temperature, the limit.</summary>
     private static string Temperature(PlateHeat heat)

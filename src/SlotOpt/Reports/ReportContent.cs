@@ -204,8 +204,11 @@ public static class ReportContent
     }
 
     /// <summary>One chosen plate as confirmed: which model ran, and its loss, drag and lift against the screen.</summary>
-    private static string ConfirmationLine(PlateConfirmation c) =>
-        $"{c.PartName}: {c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? F($"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
+    private static string ConfirmationLine(PlateConfirmation c) => $"{c.PartName}: {ConfirmationText(c)}";
+
+    /// <summary>A chosen plate as confirmed, in the words the report and the console share: which model ran, its loss, drag and lift against the screen, its grid error, and why that model.</summary>
+    public static string ConfirmationText(PlateConfirmation c) =>
+        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? F($"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
 
     private static string Drag(double? dragN) => dragN is { } d ? N(d) : "";
 
