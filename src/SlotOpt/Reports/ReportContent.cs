@@ -1,3 +1,4 @@
+using SlotOpt.Reports.Plots;
 using System.Globalization;
 using SlotOpt.Tables;
 using SlotOpt.Design;

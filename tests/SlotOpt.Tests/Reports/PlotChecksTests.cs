@@ -1,6 +1,7 @@
+using SlotOpt.Reports.Plots;
 using ScottPlot;
 using SlotOpt.Reports;
-using PlotStyle = SlotOpt.Reports.PlotStyle;
+using PlotStyle = SlotOpt.Reports.Plots.PlotStyle;
 
 namespace SlotOpt.Tests.Reports;
 

@@ -4,7 +4,7 @@ using SlotOpt.Tables;
 using SlotOpt.Design;
 using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// Drag against speed for a plate passed by moving poles: the chosen option, the solid plate of the same

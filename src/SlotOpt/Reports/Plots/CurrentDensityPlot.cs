@@ -6,7 +6,7 @@ using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// Current density in the chosen plate and in the solid plate cut from the same sheet, each in its own panel on

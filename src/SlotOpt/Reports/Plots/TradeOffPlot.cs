@@ -5,7 +5,7 @@ using SlotOpt.Design;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// Loss against build cost: the trade-off front as a staircase (at any cost the lowest loss reachable),

@@ -5,7 +5,7 @@ using SlotOpt.Design;
 using SlotOpt.Design.Cores;
 using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>Loss of one core part against frequency per candidate gauge, on log-log axes, with the operating frequency and the crossings marked.</summary>
 public static class LossFrequencyPlot

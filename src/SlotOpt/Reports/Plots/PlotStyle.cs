@@ -1,6 +1,6 @@
 using ScottPlot;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// The look every report plot shares: DejaVu Sans (ScottPlot's default resolves to a serif face here),

@@ -2,7 +2,7 @@ using SlotOpt.Design;
 using SlotOpt.Design.Cores;
 using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// Every plot of one run: the trade-off curve and the loss breakdown (when there is a front and a design),

@@ -1,4 +1,4 @@
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// One rendered plot: its file stem ("trade-off" -> trade-off.png, trade-off.svg), a title and a caption for the text,

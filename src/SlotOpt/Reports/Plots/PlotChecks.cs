@@ -1,7 +1,7 @@
 using System.Text.RegularExpressions;
 using ScottPlot;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// What every report plot must satisfy once rendered, checked as it is drawn (a failure is a programming error,

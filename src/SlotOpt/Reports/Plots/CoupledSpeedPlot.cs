@@ -4,7 +4,7 @@ using SlotOpt.Tables;
 using SlotOpt.Design;
 using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// Drag and lift of the chosen plate against speed with the plate's own field (PlateConfirmation's sweep):

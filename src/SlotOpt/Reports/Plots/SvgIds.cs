@@ -1,6 +1,6 @@
 using System.Text.RegularExpressions;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// SkiaSharp's SVG canvas names clip paths and embedded images from process-wide counters ("cl_16",

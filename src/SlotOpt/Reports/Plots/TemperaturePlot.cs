@@ -4,7 +4,7 @@ using SlotOpt.Tables;
 using SlotOpt.Design;
 using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// The temperature of the reference plate (current design or baseline) above the chosen plate, each in its own panel

@@ -4,7 +4,7 @@ using SlotOpt.Tables;
 using SlotOpt.Design;
 using SlotOpt.Runs;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// The chosen design's loss by origin beside the reference's, per part (and in total for several parts),

@@ -2,7 +2,7 @@ using System.Globalization;
 using ScottPlot;
 using ScottPlot.TickGenerators;
 
-namespace SlotOpt.Reports;
+namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// ScottPlot 5 has no logarithmic axis: the data are plotted as log10(value), and the axis gets ticks
