@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using SlotOpt.Reports.Plots;
 using System.Globalization;
 using SlotOpt.Tables;

@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using System.Globalization;
 using ScottPlot;
 using SlotOpt.Tables;

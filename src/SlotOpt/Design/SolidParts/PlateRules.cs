@@ -2,7 +2,7 @@ using System.Globalization;
 using SlotOpt.Materials;
 using SlotOpt.Plates.Geometry;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>
 /// Checks a slot pattern against a cutting process and the part's limits: smallest slot, strip and

@@ -1,7 +1,7 @@
 using SlotOpt.Materials;
 using SlotOpt.Plates.Geometry;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>Build cost of a plate: material bought (with scrap), the outline and slots cut, set-up.</summary>
 public static class PlateCost

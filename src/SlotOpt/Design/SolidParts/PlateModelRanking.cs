@@ -6,7 +6,7 @@ using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.ReducedBasis;
 using SlotOpt.Plates.Thermal;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>
 /// Gives every plate option that can be chosen, or sit on the trade-off curve, the number of the model its validity figures call for

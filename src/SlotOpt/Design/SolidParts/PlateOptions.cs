@@ -9,7 +9,7 @@ using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Plates.Thermal;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>
 /// Enumerates and evaluates every option of a plate part. The thin-plate solve is resistance-limited,

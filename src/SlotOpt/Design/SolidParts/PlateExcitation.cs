@@ -2,7 +2,7 @@ using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Plates.Sources;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>Over which travel the drag of a moving source is averaged.</summary>
 public enum TravelAverage

@@ -1,6 +1,6 @@
 using SlotOpt.Plates.Geometry;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>The kinds of slot pattern a plate can be given (see Plates/Geometry/SlotPatterns).</summary>
 public enum SlotPatternKind

@@ -1,4 +1,4 @@
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>
 /// The strip between two slots is a cantilever fixed at the uncut ligament. In a normal AC field the

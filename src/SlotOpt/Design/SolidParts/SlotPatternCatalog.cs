@@ -1,6 +1,6 @@
 using SlotOpt.Plates.Geometry;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>
 /// One kind of slot pattern, in one row: its word in problem and plate files, its words in descriptions,

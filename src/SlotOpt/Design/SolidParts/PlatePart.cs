@@ -3,7 +3,7 @@ using SlotOpt.Materials;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Thermal;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>
 /// A solid conductive part (clamp or tie plate, rail, carrier plate, shield) in an AC field or past

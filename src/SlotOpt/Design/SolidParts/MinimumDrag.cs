@@ -1,7 +1,7 @@
 using SlotOpt.Tables;
 using System.Globalization;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>
 /// A braking force the plate must reach at a named speed (min_drag, beside max_drag for the designer who wants the drag gone):

@@ -1,6 +1,6 @@
 using SlotOpt.Plates.Geometry;
 
-namespace SlotOpt.Design;
+namespace SlotOpt.Design.SolidParts;
 
 /// <summary>Builds the solver geometry of a plate outline with one slot choice (or none).</summary>
 public static class PlateGeometryFactory
