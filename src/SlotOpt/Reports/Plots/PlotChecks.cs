@@ -5,8 +5,9 @@ namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// What every report plot must satisfy once rendered, checked as it is drawn (a failure is a programming error,
-/// so it throws): no legend box covers a plotted point (a marker, a line's vertex, a bar's top), and every
-/// numeric axis is labelled with its unit in parentheses, "speed (m/s)".
+/// so it throws): no legend box covers a plotted point (a marker, a line's vertex, a bar's top), a single marker drawn
+/// inside the data area lies wholly inside it (not cut by the frame), and every numeric axis is labelled with its unit
+/// in parentheses, "speed (m/s)".
 /// </summary>
 public static partial class PlotChecks
 {
@@ -86,5 +87,19 @@ public static partial class PlotChecks
             foreach (var px in points)
                 if (px.X >= box.Left && px.X <= box.Right && px.Y >= box.Top && px.Y <= box.Bottom)
                     throw new InvalidOperationException($"{fileStem}: the legend box ({box.Left:0}-{box.Right:0}, {box.Top:0}-{box.Bottom:0} px) covers a plotted point at ({px.X:0}, {px.Y:0}) px");
+    }
+
+    /// <summary>Throws when a single marker (a circled point) whose centre the last render drew inside the data area is cut by the area's frame.</summary>
+    public static void MarkersInsideFrame(Plot plot, string fileStem)
+    {
+        var d = plot.RenderManager.LastRender.DataRect;
+        foreach (var m in plot.GetPlottables().OfType<ScottPlot.Plottables.Marker>().Where(m => m.IsVisible))
+        {
+            var px = plot.GetPixel(m.Location);
+            if (px.X < d.Left || px.X > d.Right || px.Y < d.Top || px.Y > d.Bottom) continue;
+            var r = m.MarkerStyle.Size / 2 + m.MarkerStyle.LineWidth / 2;
+            if (px.X - r < d.Left || px.X + r > d.Right || px.Y - r < d.Top || px.Y + r > d.Bottom)
+                throw new InvalidOperationException($"{fileStem}: a marker at ({px.X:0}, {px.Y:0}) px, radius {r:0.#} px, is cut by the data area's frame ({d.Left:0}-{d.Right:0}, {d.Top:0}-{d.Bottom:0} px)");
+        }
     }
 }

@@ -69,6 +69,7 @@ public static class PlotStyle
         var heightPx = panelHeightPx * panels.Count;
         var png = multiplot.Render(WidthPx, heightPx).GetImageBytes(ImageFormat.Png);
         foreach (var panel in panels) PlotChecks.LegendClearOfData(panel, fileStem);
+        foreach (var panel in panels) PlotChecks.MarkersInsideFrame(panel, fileStem);
         using var svg = new MemoryStream();
         using (var canvas = SkiaSharp.SKSvgCanvas.Create(new SkiaSharp.SKRect(0, 0, WidthPx, heightPx), svg))   // SkiaSharp's SVG canvas, as Plot.GetSvgXml uses
             multiplot.Render(canvas, new PixelRect(0, WidthPx, heightPx, 0));
@@ -84,6 +85,7 @@ public static class PlotStyle
         PlotChecks.AxisLabels(plot, fileStem, categoricalX);
         var png = plot.GetImageBytes(widthPx, heightPx, ImageFormat.Png);
         PlotChecks.LegendClearOfData(plot, fileStem);
+        PlotChecks.MarkersInsideFrame(plot, fileStem);
         return new Figure(fileStem, title, caption, png, SvgIds.Renumber(plot.GetSvgXml(widthPx, heightPx)));
     }
 }

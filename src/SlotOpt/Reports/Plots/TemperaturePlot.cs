@@ -19,14 +19,20 @@ public static class TemperaturePlot
     /// <summary>The fixed margins of every panel (pixels): the y axis on the left, the colour bar on the right, a two-line title on top, the x axis below.</summary>
     private static readonly PixelPadding Margins = new(left: 80, right: 170, bottom: 55, top: 70);
 
+    /// <summary>Pixels between the plate's outline and the panel's frame: more than the hottest-point circle's radius (6 px) and its line.</summary>
+    private const int ClearancePx = 10;
+    private const float HottestCircleDiameterPx = 12;
+
     public static Figure Build(int partIndex, PlatePart part, TemperatureMaps maps, bool referenceIsCurrent)
     {
         var panels = maps.Panels;
         var (min, max) = part.Outline.Bounds;
         double widthMm = (max.X - min.X) * 1e3, heightMm = (max.Y - min.Y) * 1e3;
-        double xLow = min.X * 1e3 - widthMm * 0.02, xHigh = max.X * 1e3 + widthMm * 0.02, yLow = min.Y * 1e3 - heightMm * 0.05, yHigh = max.Y * 1e3 + heightMm * 0.05;
         var dataWidthPx = PlotStyle.WidthPx - Margins.Left - Margins.Right;
-        var dataHeightPx = (int)Math.Clamp(dataWidthPx * (yHigh - yLow) / (xHigh - xLow), 60, 420);   // square units
+        var dataHeightPx = (int)Math.Clamp(dataWidthPx * heightMm / widthMm + 2 * ClearancePx, 60, 420);   // square units where the clamp allows
+        // room round the plate for the hottest-point circle, which may sit on the outline
+        double xPad = ClearancePx * widthMm / (dataWidthPx - 2 * ClearancePx), yPad = ClearancePx * heightMm / (dataHeightPx - 2 * ClearancePx);
+        double xLow = min.X * 1e3 - xPad, xHigh = max.X * 1e3 + xPad, yLow = min.Y * 1e3 - yPad, yHigh = max.Y * 1e3 + yPad;
         var panelHeightPx = (int)(dataHeightPx + Margins.Top + Margins.Bottom);
         // the colour scale: ambient to the hotter plate's hottest point (a flat plate still gets a visible range)
         double low = maps.ScaleMinC, high = Math.Max(maps.ScaleMaxC, maps.ScaleMinC + 0.1);
@@ -41,7 +47,7 @@ public static class TemperaturePlot
             plot.Axes.Title.Label.FontSize = 13;
             var heatmap = AddMap(plot, panel, low, high);
             DrawGeometry(plot, panel.Drawing);
-            var marker = plot.Add.Marker(panel.HottestXMm, panel.HottestYMm, MarkerShape.OpenCircle, 12, PlotStyle.Black);
+            var marker = plot.Add.Marker(panel.HottestXMm, panel.HottestYMm, MarkerShape.OpenCircle, HottestCircleDiameterPx, PlotStyle.Black);
             marker.LineWidth = 2;
             plot.Axes.SetLimits(xLow, xHigh, yLow, yHigh);
             plot.Layout.Fixed(Margins);
