@@ -51,8 +51,8 @@ public static class PlateReportContent
             { Approach: { } a } => $"damping force {Tables.Numbers.Newtons(a.Points[0].ForceN)} at a {N(a.Points[0].GapM * 1e3)} mm gap"
                 + (a.Points.Count > 1 ? $", {Tables.Numbers.Newtons(a.Points[^1].ForceN)} at {N(a.Points[^1].GapM * 1e3)} mm" : "")
                 + $", the magnets approaching at {Tables.Numbers.Of(a.SpeedMPerS, "m/s")} (loss {loss} at the first gap)",
-            { DiscAngle: { } d } => $"braking torque {Tables.Numbers.Of(d.MeanTorqueNm, "N m")} at {Tables.Numbers.Of(d.SpeedRpm, "rpm")}, loss {loss} (means over {d.AveragedOver})",
-            { Travel: { } t } => $"drag {Tables.Numbers.Newtons(t.MeanDragN)} at {Tables.Numbers.Of(t.SpeedMPerS, "m/s")}, loss {loss} (means over {t.AveragedOver})",
+            { DiscAngle: { } d } => $"braking torque {Tables.Numbers.Of(d.MeanTorqueNm, "N m")} at {Tables.Numbers.Of(d.SpeedRpm, "rpm")}, loss {loss}, means over {d.AveragedOver}",
+            { Travel: { } t } => $"drag {Tables.Numbers.Newtons(t.MeanDragN)} at {Tables.Numbers.Of(t.SpeedMPerS, "m/s")}, loss {loss}, means over {t.AveragedOver}",
             _ => $"loss {loss} (time average)",
         };
         return $"Result: {what}; {f.Model} model, {GridWords(f)}.";
@@ -63,7 +63,7 @@ public static class PlateReportContent
         var r = e.Result;
         b.Add(new Heading("The numbers"));
         b.Add(new Paragraph($"The plate: sheet conductance (conductivity times thickness) {N(e.Case.Sheet.SheetConductanceS)} S, {N(e.Case.Sheet.ThicknessM * 1e3)} mm thick; the source: {SourceWords(e)}. "
-            + $"The {f.Model} model made the loss and force figures, because {f.ModelReason}."));
+            + $"Model of the loss{(e.MeanDragN is null ? "" : " and force")} figures: {f.ModelReason}."));
         var rows = new List<IReadOnlyList<string>>();
         void Row(string quantity, string value, string model) => rows.Add([quantity, value, model]);
         var averaged = e.Case.MovingSource is null && e.Case.Rotation is null ? (e.Case.Approach is null ? "time average" : "at the first gap") : $"mean over {e.Case.AveragedOver}";

@@ -54,21 +54,46 @@ public static class CurrentDensityPlot
     private static (Vec2 Min, Vec2 Max) Bounds(IReadOnlyList<Vec2> outline) =>
         (new Vec2(outline.Min(v => v.X), outline.Min(v => v.Y)), new Vec2(outline.Max(v => v.X), outline.Max(v => v.Y)));
 
-    /// <summary>The plot limits around a plate's bounds (mm): a small margin on every side.</summary>
+    /// <summary>
+    /// The plot limits around a plate's bounds (mm): a small margin on every side, and square units: where the data area's
+    /// height is held to 60-420 px (<see cref="DataHeightPx"/>), the other axis is widened about its centre so a millimetre
+    /// is as long across as up (a disc stays round).
+    /// </summary>
     private static (double XLow, double XHigh, double YLow, double YHigh) LimitsMm((Vec2 Min, Vec2 Max) bounds)
+    {
+        var (xLow, xHigh, yLow, yHigh) = WithMarginsMm(bounds);
+        double mmPerPxAcross = (xHigh - xLow) / DataWidthPx, mmPerPxUp = (yHigh - yLow) / DataHeightPx(xHigh - xLow, yHigh - yLow);
+        if (mmPerPxUp > mmPerPxAcross)
+        {
+            var half = mmPerPxUp * DataWidthPx / 2;
+            (xLow, xHigh) = ((xLow + xHigh) / 2 - half, (xLow + xHigh) / 2 + half);
+        }
+        else
+        {
+            var half = mmPerPxAcross * DataHeightPx(xHigh - xLow, yHigh - yLow) / 2;
+            (yLow, yHigh) = ((yLow + yHigh) / 2 - half, (yLow + yHigh) / 2 + half);
+        }
+        return (xLow, xHigh, yLow, yHigh);
+    }
+
+    /// <summary>The plate's bounds in mm with a margin of 2 % of its width on each side and 5 % of its height above and below.</summary>
+    private static (double XLow, double XHigh, double YLow, double YHigh) WithMarginsMm((Vec2 Min, Vec2 Max) bounds)
     {
         var (min, max) = bounds;
         double widthMm = (max.X - min.X) * 1e3, heightMm = (max.Y - min.Y) * 1e3;
         return (min.X * 1e3 - widthMm * 0.02, max.X * 1e3 + widthMm * 0.02, min.Y * 1e3 - heightMm * 0.05, max.Y * 1e3 + heightMm * 0.05);
     }
 
-    /// <summary>A panel's height in pixels: square units, the data area as tall as the plate at the scale the width sets (within 60-420 px).</summary>
+    private static int DataWidthPx => PlotStyle.WidthPx - (int)Margins.Left - (int)Margins.Right;
+
+    /// <summary>The data area's height (pixels): as tall as the plate at the scale the width sets, within 60-420 px.</summary>
+    private static int DataHeightPx(double widthMm, double heightMm) => (int)Math.Clamp(DataWidthPx * heightMm / widthMm, 60, 420);
+
+    /// <summary>A panel's height in pixels: the data area (<see cref="DataHeightPx"/>) and the margins.</summary>
     private static int PanelHeightPx((Vec2 Min, Vec2 Max) bounds)
     {
-        var (xLow, xHigh, yLow, yHigh) = LimitsMm(bounds);
-        var dataWidthPx = PlotStyle.WidthPx - Margins.Left - Margins.Right;
-        var dataHeightPx = (int)Math.Clamp(dataWidthPx * (yHigh - yLow) / (xHigh - xLow), 60, 420);
-        return (int)(dataHeightPx + Margins.Top + Margins.Bottom);
+        var (xLow, xHigh, yLow, yHigh) = WithMarginsMm(bounds);
+        return (int)(DataHeightPx(xHigh - xLow, yHigh - yLow) + Margins.Top + Margins.Bottom);
     }
 
     /// <summary>One panel: the map, the outline, slots and grooves, and (on the last panel of a figure) the colour bar.</summary>
