@@ -26,33 +26,10 @@ public static class CurrentDensityPlot
     {
         var panels = maps.Panels;
         var peakAPerMm2 = panels.Max(p => p.PeakAPerM2) / 1e6;
-        var (min, max) = part.Outline.Bounds;
-        double widthMm = (max.X - min.X) * 1e3, heightMm = (max.Y - min.Y) * 1e3;
-        double xLow = min.X * 1e3 - widthMm * 0.02, xHigh = max.X * 1e3 + widthMm * 0.02, yLow = min.Y * 1e3 - heightMm * 0.05, yHigh = max.Y * 1e3 + heightMm * 0.05;
-        // square units: the data area is as tall as the plate at the scale the width sets
-        var dataWidthPx = PlotStyle.WidthPx - Margins.Left - Margins.Right;
-        var dataHeightPx = (int)Math.Clamp(dataWidthPx * (yHigh - yLow) / (xHigh - xLow), 60, 420);
-        var panelHeightPx = (int)(dataHeightPx + Margins.Top + Margins.Bottom);
-
-        var plots = new List<Plot>();
-        for (var k = 0; k < panels.Count; k++)
-        {
-            var panel = panels[k];
-            var option = panel.Option;
-            var plot = PlotStyle.NewPlot($"{Label(panel.Role)}: {option.Description}\nloss {Numbers.Watts(option.Loss.TotalW)}{(option.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}, peak {Numbers.CurrentDensity(panel.PeakAPerM2)}", "x (mm)", "y (mm)");
-            plot.Axes.Title.Label.FontSize = 13;
-            var heatmap = AddMap(plot, panel.Map, panel.Drawing, peakAPerMm2);
-            DrawGeometry(plot, panel.Drawing);
-            plot.Axes.SetLimits(xLow, xHigh, yLow, yHigh);
-            plot.Layout.Fixed(Margins);
-            if (k == panels.Count - 1)
-            {
-                var bar = plot.Add.ColorBar(heatmap);
-                bar.Label = "|J| (A/mm²)";
-                bar.LabelStyle.FontSize = 13;
-            }
-            plots.Add(plot);
-        }
+        var panelHeightPx = PanelHeightPx(part.Outline.Bounds);
+        var plots = panels.Select((panel, k) => Panel(
+            $"{Label(panel.Role)}: {panel.Option.Description}\nloss {Numbers.Watts(panel.Option.Loss.TotalW)}{(panel.Option.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}, peak {Numbers.CurrentDensity(panel.PeakAPerM2)}",
+            panel.Map, panel.Drawing, part.Outline.Bounds, peakAPerMm2, colourBar: k == panels.Count - 1)).ToList();
         var moving = part.Excitation.IsMoving;
         var caption = (moving
                 ? "The instantaneous current density at the travel position with the largest loss (the poles move along x). "
@@ -61,6 +38,81 @@ public static class CurrentDensityPlot
             + "one colour bar (beside the lower panel) serves both; metal with no current takes the scale's zero colour; slots are drawn white with a black edge, grooves with a grey edge. "
             + "Loss and drag are the means the search used.";
         return PlotStyle.RenderPanels(plots, FileStemFor(partIndex, part), $"Current density: {part.Name}", caption, panelHeightPx);
+    }
+
+    /// <summary>
+    /// One plate's map as a figure of one panel (the plate command's report): the same drawing as a run's panels, on the
+    /// plate's true coordinates with its outline and slots, the colour scale from zero to the map's peak.
+    /// </summary>
+    public static Figure BuildSingle(string fileStem, string figureTitle, string panelTitle, string caption, CurrentDensityMap map, PlateDrawing drawing, double peakAPerM2)
+    {
+        var bounds = Bounds(drawing.Outline);
+        var plot = Panel(panelTitle, map, drawing, bounds, peakAPerM2 / 1e6, colourBar: true);
+        return PlotStyle.RenderPanels([plot], fileStem, figureTitle, caption, PanelHeightPx(bounds));
+    }
+
+    private static (Vec2 Min, Vec2 Max) Bounds(IReadOnlyList<Vec2> outline) =>
+        (new Vec2(outline.Min(v => v.X), outline.Min(v => v.Y)), new Vec2(outline.Max(v => v.X), outline.Max(v => v.Y)));
+
+    /// <summary>
+    /// The plot limits around a plate's bounds (mm): a small margin on every side, and square units: where the data area's
+    /// height is held to 60-420 px (<see cref="DataHeightPx"/>), the other axis is widened about its centre so a millimetre
+    /// is as long across as up (a disc stays round).
+    /// </summary>
+    private static (double XLow, double XHigh, double YLow, double YHigh) LimitsMm((Vec2 Min, Vec2 Max) bounds)
+    {
+        var (xLow, xHigh, yLow, yHigh) = WithMarginsMm(bounds);
+        double mmPerPxAcross = (xHigh - xLow) / DataWidthPx, mmPerPxUp = (yHigh - yLow) / DataHeightPx(xHigh - xLow, yHigh - yLow);
+        if (mmPerPxUp > mmPerPxAcross)
+        {
+            var half = mmPerPxUp * DataWidthPx / 2;
+            (xLow, xHigh) = ((xLow + xHigh) / 2 - half, (xLow + xHigh) / 2 + half);
+        }
+        else
+        {
+            var half = mmPerPxAcross * DataHeightPx(xHigh - xLow, yHigh - yLow) / 2;
+            (yLow, yHigh) = ((yLow + yHigh) / 2 - half, (yLow + yHigh) / 2 + half);
+        }
+        return (xLow, xHigh, yLow, yHigh);
+    }
+
+    /// <summary>The plate's bounds in mm with a margin of 2 % of its width on each side and 5 % of its height above and below.</summary>
+    private static (double XLow, double XHigh, double YLow, double YHigh) WithMarginsMm((Vec2 Min, Vec2 Max) bounds)
+    {
+        var (min, max) = bounds;
+        double widthMm = (max.X - min.X) * 1e3, heightMm = (max.Y - min.Y) * 1e3;
+        return (min.X * 1e3 - widthMm * 0.02, max.X * 1e3 + widthMm * 0.02, min.Y * 1e3 - heightMm * 0.05, max.Y * 1e3 + heightMm * 0.05);
+    }
+
+    private static int DataWidthPx => PlotStyle.WidthPx - (int)Margins.Left - (int)Margins.Right;
+
+    /// <summary>The data area's height (pixels): as tall as the plate at the scale the width sets, within 60-420 px.</summary>
+    private static int DataHeightPx(double widthMm, double heightMm) => (int)Math.Clamp(DataWidthPx * heightMm / widthMm, 60, 420);
+
+    /// <summary>A panel's height in pixels: the data area (<see cref="DataHeightPx"/>) and the margins.</summary>
+    private static int PanelHeightPx((Vec2 Min, Vec2 Max) bounds)
+    {
+        var (xLow, xHigh, yLow, yHigh) = WithMarginsMm(bounds);
+        return (int)(DataHeightPx(xHigh - xLow, yHigh - yLow) + Margins.Top + Margins.Bottom);
+    }
+
+    /// <summary>One panel: the map, the outline, slots and grooves, and (on the last panel of a figure) the colour bar.</summary>
+    private static Plot Panel(string title, CurrentDensityMap map, PlateDrawing drawing, (Vec2 Min, Vec2 Max) bounds, double peakAPerMm2, bool colourBar)
+    {
+        var plot = PlotStyle.NewPlot(title, "x (mm)", "y (mm)");
+        plot.Axes.Title.Label.FontSize = 13;
+        var heatmap = AddMap(plot, map, drawing, peakAPerMm2);
+        DrawGeometry(plot, drawing);
+        var (xLow, xHigh, yLow, yHigh) = LimitsMm(bounds);
+        plot.Axes.SetLimits(xLow, xHigh, yLow, yHigh);
+        plot.Layout.Fixed(Margins);
+        if (colourBar)
+        {
+            var bar = plot.Add.ColorBar(heatmap);
+            bar.Label = "|J| (A/mm²)";
+            bar.LabelStyle.FontSize = 13;
+        }
+        return plot;
     }
 
     private static string Label(DesignRole role) => role == DesignRole.Chosen ? "chosen" : "solid plate, same sheet";
