@@ -26,7 +26,8 @@ namespace SlotOpt.Plates.Thermal;
 /// Each solve starts from the last rise (the first from the given start, scaled by the heat ratio, or the predicted mean).
 /// Converged when the step's linear solve was solved to <see cref="LinearCriterion"/> (with radiation or held edges, the first
 /// steps from a cold start solve only to <see cref="EarlyCriteria"/>), h at the solve's mean rise agrees
-/// with the h it was solved with within <see cref="RelativeTolerance"/>, and, with radiation, the linearisation's error
+/// with the h it was solved with closely enough that the rise moves by at most <see cref="RelativeTolerance"/> of the largest rise
+/// (a fraction e of h moves it by at most e h / (h + 4 eps sigma T_inf^3), radiation taking its share), and, with radiation, the linearisation's error
 /// is below <see cref="RelativeTolerance"/> of the largest rise: a node that moved by d from the rise it was linearised
 /// about misses at most (1/2) q_r'' d^2 = 6 eps sigma T_max^2 d^2 of radiated flux, and the operator (an M-matrix whose
 /// diagonal exceeds its off-diagonal row sum by at least 2 h A) turns a flux error e into a rise error of at most
@@ -178,13 +179,16 @@ public static class PlateTemperatureSolver
                 edgeNow += network.ConductanceToHeld(u) * rise[u];
             }
             double meanRise = weighted / totalArea;
-            double hMismatch = fluid is null ? 0 : Math.Abs(NaturalConvection.AverageCoefficient(fluid, cooling.AmbientK, meanRise, cooling.VerticalLengthM) - hConv) / hConv;
+            // h off by a fraction e moves the rise by at most e h / (h + q_r'(T_inf)) of the largest rise: d rise = -A^-1 (2 A rise) dh, and the
+            // M-matrix bound max |A^-1 v| <= max |v_n| / (2 A_n (h + q_r'(T_n))) with q_r' = 4 eps sigma T^3 no smaller than at ambient
+            double riseFromH = fluid is null ? 0 : Math.Abs(NaturalConvection.AverageCoefficient(fluid, cooling.AmbientK, meanRise, cooling.VerticalLengthM) - hConv) / hConv
+                * hConv / (hConv + 4 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * Math.Pow(cooling.AmbientK, 3));
             double hottest = cooling.AmbientK + largest + change;   // the hottest a node was between its linearisation point and now
             bool radiationSettled = !radiates || 6 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * hottest * hottest * change * change / hConv <= RelativeTolerance * largest;
-            if (largest == 0 || (tight && hMismatch <= RelativeTolerance && radiationSettled)) break;
+            if (largest == 0 || (tight && riseFromH <= RelativeTolerance && radiationSettled)) break;
             if (iterations >= MaxIterations)
                 throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
-                    $"plate temperature: the surface coefficients did not settle in {MaxIterations} iterations (h mismatch {hMismatch:G3}, last change {change:G3} K at a largest rise of {largest:G4} K)"));
+                    $"plate temperature: the surface coefficients did not settle in {MaxIterations} iterations (h moves the rise by up to {riseFromH:G3} of the largest, last change {change:G3} K at a largest rise of {largest:G4} K)"));
             lastMean = Math.Max(meanRise, 0);
             lastRadiated = radiatedNow / totalArea;
             lastEdge = edgeNow / (2 * totalArea);
