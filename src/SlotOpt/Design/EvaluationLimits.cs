@@ -33,14 +33,16 @@ public sealed record EvaluationLimits
 
     /// <summary>
     /// Cells one solve may have so that the run fits in MaxMemoryBytes (<see cref="MemoryModel"/>): the screening of a part with
-    /// <paramref name="geometries"/> slot geometries, and the own-field confirmation at its largest padded lattice (4 x 4 times the cells).
+    /// <paramref name="geometries"/> slot geometries (with a thermal section, <paramref name="thermalOptionsPerGeometry"/> thicknesses x
+    /// materials heated on each), and the own-field confirmation at its largest padded lattice (4 x 4 times the cells).
     /// </summary>
-    public long CellCap(int geometries)
+    public long CellCap(int geometries, int thermalOptionsPerGeometry = 0)
     {
         geometries = Math.Max(geometries, 1);
         double room = MaxMemoryBytes / MemoryModel.Margin - MemoryModel.RuntimeBytes;
         if (room <= 0) return 0;
-        double screening = room / (geometries * MemoryModel.ModelBytesPerCell + Math.Min(Threads, geometries) * MemoryModel.SolveBytesPerCell);
+        double screening = room / (geometries * (MemoryModel.ModelBytesPerCell + MemoryModel.ThermalKept(thermalOptionsPerGeometry))
+            + Math.Min(Threads, geometries) * (MemoryModel.SolveBytesPerCell + (thermalOptionsPerGeometry > 0 ? MemoryModel.ThermalSolveBytesPerCell : 0)));
         double ownField = room / (MemoryModel.ModelBytesPerCell + MemoryModel.SolveBytesPerCell + MemoryModel.GmresBytesPerCell + 16 * MemoryModel.OwnFieldBytesPerPaddedCell);
         return (long)Math.Min(screening, ownField);
     }
@@ -53,14 +55,14 @@ public sealed record EvaluationLimits
     }
 
     /// <summary>Throws when an explicit grid of a part with <paramref name="geometries"/> slot geometries would not fit in memory.</summary>
-    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, int geometries)
+    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, int geometries, int thermalOptionsPerGeometry = 0)
     {
         if (cellSizeM is not { } h) return;
         var (min, max) = outline.Bounds;
         var (nx, ny) = (Math.Ceiling((max.X - min.X) / h), Math.Ceiling((max.Y - min.Y) / h));
         var cells = (long)Math.Min(nx * ny, long.MaxValue / 2);
         geometries = Math.Max(geometries, 1);
-        var screening = MemoryModel.Screening(cells, geometries, Threads);
+        var screening = MemoryModel.Screening(cells, geometries, Threads, thermalOptionsPerGeometry);
         var estimate = Math.Max(screening, MemoryModel.OwnField((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4)));
         CheckMemory($"part {partName}: a {h * 1e3:G4} mm grid ({cells:E2} cells, {geometries} slot geometries kept, {Math.Min(Threads, geometries)} solved at once)",
             estimate, "choose a larger cell, fewer slot choices or fewer threads");

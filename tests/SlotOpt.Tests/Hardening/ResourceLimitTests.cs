@@ -16,8 +16,9 @@ public class ResourceLimitTests
     }
 
     // 900 x 150 mm at 0.2 mm cells is 3.38e6 cells (within the solver's cell limit); the memory model (MemoryModel: 13 slot
-    // geometries kept at 210 B per cell, two solves at work at 150 B per cell, times 1.25) gives about 13 GB, above a 4 GiB
-    // limit: refused before any grid is built, with the estimate.
+    // geometries kept at 210 B per cell plus, with the demo's [parts.thermal], 160 + 6 x 9 B of thermal screen and temperatures,
+    // two solves at work at 150 + 320 B per cell, times 1.25) gives about 27 GB, above a 4 GiB limit: refused before any grid
+    // is built, with the estimate.
     [Fact]
     public void A_grid_beyond_the_memory_limit_stops_the_run_with_the_estimate()
     {

@@ -23,12 +23,31 @@ public static class MemoryModel
     /// 2026-12-02 (`slotopt run`, tie-plate demo without its [parts.thermal] section, 13 geometries, one thread): peaks of 175 MB
     /// on 21.6 k cells and 358 MB on 86.4 k cells, 2.83 kB per added cell, of which 13 kept models take all but one solve's work:
     /// (2830 - 150) / 13 = about 210 B (was 400 B before the structured multigrid stopped storing the CSR matrix). The plate
-    /// temperature solve is not in this model: with the demo's [parts.thermal] the same runs peak at 681 MB and 2.97 GB.
+    /// temperature solves have their own terms (<see cref="ThermalKeptBytesPerCell"/> and the two after it).
     /// </summary>
     public const double ModelBytesPerCell = 210;
 
     /// <summary>One solve at work beyond the model it keeps: the four CG vectors and the right-hand sides (8 B each, a few more for the sweep).</summary>
     public const double SolveBytesPerCell = 150;
+
+    /// <summary>
+    /// With a thermal section, what each slot geometry keeps for the screening of its thicknesses and materials: the thermal network with
+    /// its cached multigrid (ThermalScreen; the kept temperatures reach them). Measured 2026-12-02 on the tie-plate demo's 21.6 k-cell grid
+    /// (ThermalMemoryTests, the managed heap after a full collection): 148 B per cell.
+    /// </summary>
+    public const double ThermalKeptBytesPerCell = 160;
+
+    /// <summary>Each thickness and material's temperature kept for the report: one double per node (nodes slightly outnumber cells); measured 8.2 B per cell.</summary>
+    public const double ThermalOptionBytesPerCell = 9;
+
+    /// <summary>
+    /// One thermal solve at work: everything its first solve on a geometry allocates (network, multigrid, the iteration's vectors, the
+    /// answer), a bound on what it holds at once. Measured 307 B per cell (ThermalMemoryTests, GC.GetTotalAllocatedBytes). End to end,
+    /// `slotopt run` on the tie-plate demo with --out (13 geometries x 6 thicknesses and materials, two threads, 2026-12-02): the thermal
+    /// section raised the peak resident size from 261 to 411 MB at 21.6 k cells and from 592 to 856 MB at 86.4 k cells, 1.8 kB per added
+    /// cell, within this model's 13 x (160 + 6 x 9) + 2 x 320 = 3.4 kB.
+    /// </summary>
+    public const double ThermalSolveBytesPerCell = 320;
 
     /// <summary>
     /// The own-field operator per cell of its zero-padded lattice, 16 B (a real and an imaginary double) for each of: the
@@ -49,9 +68,15 @@ public static class MemoryModel
     /// <summary>Factor over the fitted estimate: the garbage collector's headroom (a collected grid is not yet returned) and the scatter of the measurements.</summary>
     public const double Margin = 1.25;
 
-    /// <summary>The run's screening of one part: its geometries' kept models and Threads solves at once.</summary>
-    public static double Screening(long cellsPerSolve, int geometries, int threads) =>
-        Margin * (RuntimeBytes + cellsPerSolve * (geometries * ModelBytesPerCell + Math.Min(threads, geometries) * SolveBytesPerCell));
+    /// <summary>The run's screening of one part: its geometries' kept models and Threads solves at once; with a thermal section
+    /// (<paramref name="thermalOptionsPerGeometry"/> thicknesses x materials, 0 without) each geometry's thermal screen and temperatures too.</summary>
+    public static double Screening(long cellsPerSolve, int geometries, int threads, int thermalOptionsPerGeometry = 0) =>
+        Margin * (RuntimeBytes + cellsPerSolve * (geometries * (ModelBytesPerCell + ThermalKept(thermalOptionsPerGeometry))
+            + Math.Min(threads, geometries) * (SolveBytesPerCell + (thermalOptionsPerGeometry > 0 ? ThermalSolveBytesPerCell : 0))));
+
+    /// <summary>What one geometry keeps of its thermal screening per cell (0 without a thermal section).</summary>
+    public static double ThermalKept(int thermalOptionsPerGeometry) =>
+        thermalOptionsPerGeometry > 0 ? ThermalKeptBytesPerCell + thermalOptionsPerGeometry * ThermalOptionBytesPerCell : 0;
 
     /// <summary>One plate solved with its own field (the confirmation, `slotopt plate`): one model, its solve, the FFT lattice and the GMRES basis.</summary>
     public static double OwnField(int nodesX, int nodesY)

@@ -31,7 +31,7 @@ public static class PlateOptions
         using var _ = ownDeadline;
         var deadline = limits.Deadline!;
         var geometries = SlotChoices(part).ToList();
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count);
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count, ThermalOptionsPerGeometry(part));
         var solvedGeometries = new SolvedGeometry[geometries.Count];
         var heat = new Dictionary<(double, string), TemperatureBracket.Outcome>[geometries.Count];
         var done = 0;
@@ -155,11 +155,14 @@ public static class PlateOptions
     /// <summary>The solver model of one slot geometry: the part's cell size (automatic: resolving the plate's and the poles' features), automatic grids capped so that the part's run fits the memory limit.</summary>
     public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits) => SheetModel.Build(geometry, GridOf(part, limits));
 
+    /// <summary>The thicknesses x materials each slot geometry is heated for (0 without [parts.thermal]): the memory model's thermal terms.</summary>
+    private static int ThermalOptionsPerGeometry(PlatePart part) => part.Thermal is null ? 0 : part.ThicknessesM.Count * part.Materials.Count;
+
     /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
         var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Source.GridFeatures : [] };
-        var cap = limits.CellCap(SlotChoices(part).Count());
+        var cap = limits.CellCap(SlotChoices(part).Count(), ThermalOptionsPerGeometry(part));
         if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
         return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };
     }
@@ -176,7 +179,7 @@ public static class PlateOptions
     public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1);
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1, ThermalOptionsPerGeometry(part));
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits, Screen(part, solved)) : null;

@@ -149,8 +149,9 @@ public sealed class ThermalNetwork
         }
     }
 
-    /// <summary>The operator with surface loss as a sparse matrix (for dense references; the solver applies <see cref="ThermalOperator"/>):
-    /// rows in node order, each row's entries sorted (down, left, diagonal, right, up).</summary>
+    /// <summary>The operator with surface loss as a sparse matrix, kept only for the tests' references (MathNet's dense solve and the
+    /// lattice operator checked against it); the solver never assembles it, it applies <see cref="ThermalOperator"/>. Rows in node
+    /// order, each row's entries sorted (down, left, diagonal, right, up).</summary>
     public CsrMatrix Matrix(double[] surfaceCoefficientWPerM2K)
     {
         var diagonal = new double[Unknowns];

@@ -54,8 +54,8 @@ public class ThermalIterationTests
 
     // Insulated edges, no radiation: 2 h A r_mean = Q holds for the discrete solution, so the coefficient from the heat balance
     // is the converged one and one linear solve settles it. The answer is the fixed-h solve at that h (same network, same
-    // linear tolerance): tolerance 1e-7 of the largest rise (two solves each to a relative residual of 1e-9, the convergence
-    // test on h at 1e-6 moves the rise by under 1e-6 of it only through h, which here is exact to Brent's 1e-13 K).
+    // linear tolerance): tolerance 2 x PlateTemperatureSolver.RiseAccuracy of the largest rise (each solve within the accuracy
+    // the solver promises of the network's exact solution; h here is exact to Brent's 1e-13 K).
     [Fact]
     public void Natural_convection_with_insulated_edges_takes_one_solve_and_equals_the_fixed_h_solve()
     {
@@ -66,10 +66,11 @@ public class ThermalIterationTests
         Assert.Equal(1, t.Iterations);
         Assert.Equal(NaturalConvection.AverageCoefficient(CoolingFluid.MineralOil, AmbientK, t.MeanRiseK, 0.15), t.ConvectionCoefficientWPerM2K, t.ConvectionCoefficientWPerM2K * 1e-6);
         var atH = PlateTemperatureSolver.Solve(grid, loss, 16.2, 0.01, new PlateCooling(CoolingMedium.Fixed, AmbientK, 0, ThermalEdge.Insulated, t.ConvectionCoefficientWPerM2K));
-        Assert.InRange(MaxDifference(t, atH), 0, 1e-7 * t.MaxRiseK);
+        Assert.InRange(MaxDifference(t, atH), 0, 2 * PlateTemperatureSolver.RiseAccuracy * t.MaxRiseK);
     }
 
-    // Held edges and radiation: the iteration converges (h at the mean rise within 1e-6 of the h solved with) to the fixed-h
+    // Held edges and radiation: the iteration converges (h at the mean rise within 1e-6 (h + 4 eps sigma T_inf^3) / h of the h solved
+    // with: the solver's stopping rule, which holds the rise it moves within 1e-6 of the largest rise) to the fixed-h
     // solve at the converged h with the same radiation: tolerance 1e-5 of the largest rise (the stopping test bounds each
     // step's change by 1e-6 of the largest rise; the contraction of the iteration leaves the error a few times that).
     [Fact]
@@ -79,14 +80,16 @@ public class ThermalIterationTests
         var loss = Loss(grid, 3);
         var air = new PlateCooling(CoolingMedium.Air, 313.15, 0.8, ThermalEdge.Ambient, verticalLengthM: 0.15);
         var t = PlateTemperatureSolver.Solve(grid, loss, 16.2, 0.01, air);
-        Assert.Equal(NaturalConvection.AverageCoefficient(CoolingFluid.Air, 313.15, t.MeanRiseK, 0.15), t.ConvectionCoefficientWPerM2K, t.ConvectionCoefficientWPerM2K * 1e-6);
+        double radiationSlope = 4 * 0.8 * SurfaceRadiation.StefanBoltzmann * Math.Pow(313.15, 3);
+        Assert.Equal(NaturalConvection.AverageCoefficient(CoolingFluid.Air, 313.15, t.MeanRiseK, 0.15), t.ConvectionCoefficientWPerM2K, (t.ConvectionCoefficientWPerM2K + radiationSlope) * 1e-6);
         var atH = PlateTemperatureSolver.Solve(grid, loss, 16.2, 0.01, new PlateCooling(CoolingMedium.Fixed, 313.15, 0.8, ThermalEdge.Ambient, t.ConvectionCoefficientWPerM2K));
         Assert.InRange(MaxDifference(t, atH), 0, 1e-5 * t.MaxRiseK);
     }
 
     // The screen's reuse (one network rescaled to each k t, one preconditioner, warm starts from the last option) against a
-    // cold solve of each option on its own network: tolerance 1e-7 of the largest rise (both meet the same convergence
-    // criteria; they differ by the linear solves' residual of 1e-9 and the iteration's stopping error, both far below).
+    // cold solve of each option on its own network: tolerance 2 x (RiseAccuracy + RelativeTolerance) of the largest rise, 4e-6
+    // (each answer within the linear solves' promised accuracy of the network's exact solution, and within the iteration's
+    // stopping tolerance through h and the radiation's linearisation; measured: under 2e-7).
     [Theory]
     [InlineData(ThermalEdge.Insulated, 0.0)]
     [InlineData(ThermalEdge.Ambient, 0.9)]
@@ -100,7 +103,7 @@ public class ThermalIterationTests
             var loss = Loss(grid, scale);
             var reused = screen.Solve(loss, k, t, oil);
             var cold = PlateTemperatureSolver.Solve(grid, loss, k, t, oil);
-            Assert.InRange(MaxDifference(reused, cold), 0, 1e-7 * cold.MaxRiseK);
+            Assert.InRange(MaxDifference(reused, cold), 0, 2 * (PlateTemperatureSolver.RiseAccuracy + PlateTemperatureSolver.RelativeTolerance) * cold.MaxRiseK);
         }
     }
 

@@ -7,7 +7,8 @@ using SlotOpt.Plates.Thermal;
 namespace SlotOpt.Tests.Plates.Thermal;
 
 /// <summary>
-/// The temperature operator on the structured black-box multigrid (<see cref="StructuredMultigrid.ForNodeMatrix"/>) against
+/// The temperature operator (<see cref="ThermalOperator"/>) on the structured black-box multigrid built from its stencil
+/// (<see cref="StructuredMultigrid.ForNodeStencil"/>, through <see cref="ThermalNetwork.Preconditioner"/>) against
 /// MathNet.Numerics' dense Cholesky solve of the same matrix, on small plates with a cut-out (a hole without unknowns, insulated)
 /// and a comb of slots, with insulated edges and with edges held at ambient.
 /// </summary>
@@ -67,43 +68,25 @@ public class ThermalMultigridTests
         var loss = Loss(grid);
         double h = 50;
         var reference = DenseRise(network, h, loss);
-        var a = network.Matrix(Enumerable.Repeat(h, network.Unknowns).ToArray());
-        var multigrid = StructuredMultigrid.ForNodeMatrix(a, grid.Lattice.NodesX, grid.Lattice.NodesY, network.NodeUnknown);
+        var op = new ThermalOperator(network);
+        op.SetSurfaceCoefficients(Enumerable.Repeat(h, network.Unknowns).ToArray());
+        var multigrid = network.Preconditioner(op, h);
         var heat = network.NodeHeat(loss);
-        var b = new double[a.Rows];
+        var b = new double[network.Unknowns];
         for (int n = 0; n < heat.Length; n++) if (network.NodeUnknown[n] >= 0) b[network.NodeUnknown[n]] = heat[n];
-        var x = new double[a.Rows];
-        var report = ConjugateGradient.Solve(a, b, x, multigrid, new ConvergenceCriterion { RelativeResidual = 1e-12, MaxIterations = 100 });
+        var x = new double[network.Unknowns];
+        var report = ConjugateGradient.Solve(op, b, x, multigrid, new ConvergenceCriterion { RelativeResidual = 1e-12, MaxIterations = 100 });
         double largest = reference.AbsoluteMaximum();
         for (int u = 0; u < x.Length; u++) Assert.Equal(reference[u], x[u], largest * 1e-10);
         // a good preconditioner: a handful of V-cycles per decade of residual (common practice for black-box multigrid, no source)
         Assert.InRange(report.Iterations, 1, 40);
     }
 
-    // The multigrid's own lattice operator is the same matrix: applied to a random vector it matches the CSR product to 1e-12
-    // relative (the same few products summed in another order).
-    [Theory]
-    [MemberData(nameof(Plates))]
-    public void Lattice_operator_is_the_assembled_matrix(string plate, ThermalEdge edges)
-    {
-        var grid = Grid(plate);
-        var network = ThermalNetwork.Assemble(grid, 16.2, 0.008, edges);
-        var a = network.Matrix(Enumerable.Repeat(50.0, network.Unknowns).ToArray());
-        var multigrid = StructuredMultigrid.ForNodeMatrix(a, grid.Lattice.NodesX, grid.Lattice.NodesY, network.NodeUnknown);
-        var random = new Random(7);
-        var x = Enumerable.Range(0, a.Rows).Select(_ => random.NextDouble() - 0.5).ToArray();
-        var expected = new double[a.Rows];
-        var actual = new double[a.Rows];
-        a.Multiply(x, expected);
-        multigrid.Operator.Multiply(x, actual);
-        double scale = expected.Max(Math.Abs);
-        for (int u = 0; u < x.Length; u++) Assert.Equal(expected[u], actual[u], scale * 1e-12);
-    }
-
-    // The public solver (fixed h, one linear solve to a relative residual of 1e-9) against the dense solution: tolerance 1e-10
-    // of the largest rise, the agreement asked of the move from the algebraic to the structured multigrid. The residual target
-    // alone would bound the error only near 1e-6 (condition number ~1e3); the last V-cycle preconditioned CG step overshoots the
-    // target, and the agreement measured on these plates is within 1e-10.
+    // The public solver (fixed h, one linear solve to PlateTemperatureSolver.LinearCriterion, a relative residual of 1e-5) against
+    // the dense solution: tolerance PlateTemperatureSolver.RiseAccuracy, 1e-6 of the largest rise, what the solver promises (a
+    // hundredth of the last reported digit; the grid's discretisation error is of order a percent). The residual alone would bound
+    // the error only near 1e-2 (condition number ~1e3); CG with the multigrid leaves a rough residual that moves the smooth rise
+    // far less (measured on these plates below 1e-7 of the largest rise).
     [Theory]
     [MemberData(nameof(Plates))]
     public void Plate_temperature_solver_agrees_with_the_dense_solve(string plate, ThermalEdge edges)
@@ -113,11 +96,12 @@ public class ThermalMultigridTests
         var cooling = new PlateCooling(CoolingMedium.Fixed, AmbientK, 0, edges, 50);
         var t = PlateTemperatureSolver.Solve(grid, loss, 16.2, 0.008, cooling);
         var reference = DenseRise(t.Network, 50, loss);
-        double largest = reference.AbsoluteMaximum();
+        double largest = reference.AbsoluteMaximum(), worst = 0;
         for (int n = 0; n < t.NodeTemperatureK.Length; n++)
         {
             int u = t.Network.NodeUnknown[n];
-            if (u >= 0) Assert.Equal(reference[u], t.NodeTemperatureK[n] - AmbientK, largest * 1e-10);
+            if (u >= 0) worst = Math.Max(worst, Math.Abs(reference[u] - (t.NodeTemperatureK[n] - AmbientK)));
         }
+        Assert.InRange(worst, 0, PlateTemperatureSolver.RiseAccuracy * largest);
     }
 }

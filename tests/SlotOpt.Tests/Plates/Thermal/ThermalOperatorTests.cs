@@ -42,21 +42,20 @@ public class ThermalOperatorTests
         }
     }
 
-    // The multigrid from the stencil is the one from the matrix: its operator is the assembled matrix (1e-12 relative), and one
-    // V-cycle of each on the same residual agrees to 1e-12 relative (the same finest stencil, so the same hierarchy).
+    // The multigrid built from the stencil (StructuredMultigrid.ForNodeStencil) holds the assembled matrix as its finest operator:
+    // 1e-12 relative (the same few products summed in another order). Its V-cycle is checked through CG against MathNet's dense
+    // solve in ThermalMultigridTests.
     [Theory]
     [InlineData(ThermalEdge.Insulated)]
     [InlineData(ThermalEdge.Ambient)]
-    public void Stencil_multigrid_is_the_matrix_multigrid(ThermalEdge edges)
+    public void Stencil_multigrid_operator_is_the_assembled_matrix(ThermalEdge edges)
     {
         var network = Network(edges);
         var h = Enumerable.Repeat(50.0, network.Unknowns).ToArray();
         var op = new ThermalOperator(network);
         op.SetSurfaceCoefficients(h);
         var a = network.Matrix(h);
-        var l = network.Lattice;
         var fromStencil = network.Preconditioner(op, 50);
-        var fromMatrix = StructuredMultigrid.ForNodeMatrix(a, l.NodesX, l.NodesY, network.NodeUnknown);
         var random = new Random(5);
         var r = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
         var expected = new double[r.Length];
@@ -64,10 +63,6 @@ public class ThermalOperatorTests
         a.Multiply(r, expected);
         fromStencil.Operator.Multiply(r, actual);
         double largest = expected.Max(Math.Abs);
-        for (int u = 0; u < r.Length; u++) Assert.Equal(expected[u], actual[u], largest * 1e-12);
-        fromMatrix.Apply(r, expected);
-        fromStencil.Apply(r, actual);
-        largest = expected.Max(Math.Abs);
         for (int u = 0; u < r.Length; u++) Assert.Equal(expected[u], actual[u], largest * 1e-12);
     }
 }
