@@ -9,15 +9,27 @@ public delegate void RealMap(double[] x, double[] y);
 /// Givens rotations): the real twin of <see cref="ComplexGmres"/>, with the same stopping rule (the true
 /// relative residual |b - A x| / |b| at most criterion.RelativeResidual, confirmed at each restart and at
 /// the end), failing after criterion.MaxIterations inner iterations or on NaN/Inf. x holds the warm start
-/// on entry. Krylov vectors are allocated as the iteration reaches them.
+/// on entry. Krylov vectors are allocated as the iteration reaches them. The preconditioned vectors
+/// z_j = M^-1 v_j are kept, so the update is x += Z y without a further application of M^-1 (the storage of
+/// flexible GMRES: Y. Saad, "A flexible inner-outer preconditioned GMRES algorithm", SIAM J. Sci. Comput. 14 (1993)
+/// 461-469; with a fixed M it is the same iterate as x += M^-1 (V y)).
 /// </summary>
 public static class Gmres
 {
-    public static bool TrySolve(RealMap a, RealMap preconditioner, double[] b, double[] x, ConvergenceCriterion criterion, int restart, out SolveReport report)
+    public static bool TrySolve(RealMap a, RealMap preconditioner, double[] b, double[] x, ConvergenceCriterion criterion, int restart, out SolveReport report) =>
+        TrySolve(a, preconditioner, b, x, null, false, criterion, restart, out report);
+
+    /// <param name="image">null, or a buffer for A x: when <paramref name="imageHoldsGuess"/> it holds A x of the warm start on entry
+    /// (the image a previous solve returned for this x, saving the first application of A); on success it holds A x of the answer
+    /// (the one the final true residual was computed with)</param>
+    public static bool TrySolve(RealMap a, RealMap preconditioner, double[] b, double[] x, double[]? image, bool imageHoldsGuess,
+        ConvergenceCriterion criterion, int restart, out SolveReport report)
     {
+        if (image is not null && image.Length != b.Length) throw new ArgumentException($"the image has {image.Length} values for {b.Length} unknowns", nameof(image));
+        if (imageHoldsGuess && image is null) throw new ArgumentException("an image of the guess needs the image buffer", nameof(imageHoldsGuess));
         int n = b.Length;
         double normB = Norm(b);
-        if (normB == 0) { Array.Clear(x); report = new SolveReport(SolveStatus.Converged, 0, 0); return true; }
+        if (normB == 0) { Array.Clear(x); if (image is not null) Array.Clear(image); report = new SolveReport(SolveStatus.Converged, 0, 0); return true; }
         if (!double.IsFinite(normB)) { report = new SolveReport(SolveStatus.NonFinite, 0, double.NaN); return false; }
         restart = Math.Max(1, restart);
         double target = criterion.RelativeResidual * normB;
@@ -27,16 +39,23 @@ public static class Gmres
         var cs = new double[restart];
         var sn = new double[restart];
         var g = new double[restart + 1];
-        var z = new double[n];
+        var z = new double[restart][];    // z_j = M^-1 v_j, allocated as the iteration reaches them
         var w = new double[n];
         int iterations = 0;
+        bool known = imageHoldsGuess;
         while (true)
         {
-            a(x, w);
+            if (known) Array.Copy(image!, w, n); else a(x, w);
+            known = false;
             for (int i = 0; i < n; i++) v[0][i] = b[i] - w[i];
             double beta = Norm(v[0]);
             if (!double.IsFinite(beta)) { report = new SolveReport(SolveStatus.NonFinite, iterations, double.NaN); return false; }
-            if (beta <= target) { report = new SolveReport(SolveStatus.Converged, iterations, beta / normB); return true; }
+            if (beta <= target)
+            {
+                if (image is not null) Array.Copy(w, image, n);
+                report = new SolveReport(SolveStatus.Converged, iterations, beta / normB);
+                return true;
+            }
             if (iterations >= criterion.MaxIterations)
             {
                 report = new SolveReport(SolveStatus.IterationLimit, iterations, beta / normB);
@@ -49,8 +68,9 @@ public static class Gmres
             for (; j < restart && iterations < criterion.MaxIterations; j++)
             {
                 criterion.ThrowIfCancelled();
-                preconditioner(v[j], z);
-                a(z, w);
+                z[j] ??= new double[n];
+                preconditioner(v[j], z[j]);
+                a(z[j], w);
                 for (int i = 0; i <= j; i++)
                 {
                     double hij = Dot(v[i], w);
@@ -69,7 +89,7 @@ public static class Gmres
                 iterations++;
                 if (Math.Abs(g[j + 1]) <= target || hnext == 0) { j++; break; }
             }
-            // y = H^-1 g (upper triangular, j x j), x += M^-1 (V y)
+            // y = H^-1 g (upper triangular, j x j), x += Z y (= M^-1 (V y))
             var y = new double[j];
             for (int i = j - 1; i >= 0; i--)
             {
@@ -77,10 +97,7 @@ public static class Gmres
                 for (int k = i + 1; k < j; k++) s -= h[i, k] * y[k];
                 y[i] = s / h[i, i];
             }
-            Array.Clear(w);
-            for (int i = 0; i < j; i++) Axpy(y[i], v[i], w);
-            preconditioner(w, z);
-            for (int i = 0; i < n; i++) x[i] += z[i];
+            for (int i = 0; i < j; i++) Axpy(y[i], z[i], x);
         }
     }
 

@@ -22,8 +22,10 @@ namespace SlotOpt.Plates;
 public static class PlateModels
 {
     /// <param name="forcedKind">a model asked for by the user instead of the automatic choice (the reason then says what the figures call for)</param>
+    /// <param name="fftThreads">FFT workers of the reaction operator built here when none is given (the run's --threads; answers are the same for any count)</param>
     public static PlateSolution SolveAc(SheetModel model, IAcFieldSource source, ConductingSheet conductor,
-        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null,
+        int fftThreads = 1)
     {
         CheckOperator(model, reaction);
         var choice = ReactionModelChoice.Forced(ReactionModelChoice.ForAc(conductor, source.FrequencyHz, model.Grid.Geometry.CharacteristicWidthM, accuracy), forcedKind);
@@ -43,7 +45,7 @@ public static class PlateModels
                 (source is IDepthAcFieldSource ? "the source's field at each layer's depth" : "the source's plane field is used at every depth"));
             return new PlateSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes, thick.Iterations, thick.RelativeResidual, null);
         }
-        var s = ReactionSolver.SolveAc(reaction ?? ReactionOperator.Build(model), source, conductor, criterion);
+        var s = ReactionSolver.SolveAc(reaction ?? ReactionOperator.Build(model, fftThreads), source, conductor, criterion);
         notes.AddRange(s.Notes);
         return new PlateSolution(choice, Array.Empty<double>(), new[] { s.LossW }, null, null, new[] { s.ResistanceLimitedLossW }, notes, s.Iterations, s.RelativeResidual, null);
     }
@@ -51,9 +53,10 @@ public static class PlateModels
     /// <param name="sourceLengthM">the source's length scale for the moving skin depth: its height above the sheet, or the pole size</param>
     /// <param name="basis">a reduced basis of this model, source geometry and offsets (<see cref="MovingReducedBasis"/>): the coupled solve then reuses it across
     /// conductors and speeds instead of a GMRES solve per conductor (the same equations, to the same criterion)</param>
+    /// <param name="fftThreads">FFT workers of the reaction operator built here when none is given (answers are the same for any count)</param>
     public static PlateSolution SolveMoving(SheetModel model, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM, double sourceLengthM,
         double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null,
-        MovingReducedBasis? basis = null)
+        MovingReducedBasis? basis = null, int fftThreads = 1)
     {
         CheckOperator(model, reaction);
         if (basis is not null && (!ReferenceEquals(basis.Model, model) || !basis.OffsetsXM.SequenceEqual(offsetsXM)))
@@ -71,7 +74,7 @@ public static class PlateModels
             var drag = loss.Select(p => p / v).ToArray();                          // F = P / v
             return new PlateSolution(choice, offsetsXM.ToArray(), loss, drag, drag.Select(d => d * v / w).ToArray(), loss, notes, sweep.IterationsPerOffset.Sum(), sweep.Peak.RelativeResidual, sweep.Peak);
         }
-        var s = basis is not null ? basis.Solve(conductor, source.SpeedMPerS) : ReactionSolver.SolveMoving(reaction ?? ReactionOperator.Build(model), source, conductor, offsetsXM, criterion);
+        var s = basis is not null ? basis.Solve(conductor, source.SpeedMPerS) : ReactionSolver.SolveMoving(reaction ?? ReactionOperator.Build(model, fftThreads), source, conductor, offsetsXM, criterion);
         notes.AddRange(s.Notes);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
         return new PlateSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes, s.Iterations.Sum(), s.MaxRelativeResidual, null);

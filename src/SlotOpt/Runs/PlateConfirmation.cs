@@ -60,7 +60,8 @@ public sealed record PlateConfirmation(
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
-            solution = PlateModels.WithGridError(PlateModels.SolveAc(model, field.Source, conductor), model, m => PlateModels.SolveAc(m, field.Source, conductor));
+            solution = PlateModels.WithGridError(PlateModels.SolveAc(model, field.Source, conductor, fftThreads: limits.Threads), model,
+                m => PlateModels.SolveAc(m, field.Source, conductor, fftThreads: limits.Threads));
         }
         else throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         var ranked = PlateModelRanking.ModelOf(solution.Choice, part.Excitation.IsMoving);

@@ -49,7 +49,8 @@ public sealed record PlateFileEvaluation(
     /// <param name="limits">Memory: the estimate of the case's solve is checked before anything is built.</param>
     public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null, EvaluationLimits? limits = null)
     {
-        plate = WithinMemory(plate, limits ?? EvaluationLimits.Default);
+        limits ??= EvaluationLimits.Default;
+        plate = WithinMemory(plate, limits);
         if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind);
         if (plate.Approach is { } approach) return EvaluateApproach(plate, approach, criterion, forcedKind);
         if (plate.Thermal is not null)
@@ -62,16 +63,16 @@ public sealed record PlateFileEvaluation(
         var clock = Stopwatch.StartNew();
         if (plate.AcSource is { } ac)
         {
-            var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion, forcedKind: forcedKind);
-            solution = PlateModels.WithGridError(solution, model, m => PlateModels.SolveAc(m, ac, plate.Sheet, criterion: criterion, forcedKind: solution.Choice.Kind));
+            var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion, forcedKind: forcedKind, fftThreads: limits.Threads);
+            solution = PlateModels.WithGridError(solution, model, m => PlateModels.SolveAc(m, ac, plate.Sheet, criterion: criterion, forcedKind: solution.Choice.Kind, fftThreads: limits.Threads));
             var result = MapSolution(solution, () => ResistanceLimitedSolver.SolveAc(model, ac, criterion)).ScaleTo(plate.Sheet);
             return new PlateFileEvaluation(plate, solution.Choice, WithSolutionNotes(result, solution), solution.MeanLossW, null,
                 Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
                 { GridError = solution.GridError };
         }
         var source = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor a moving source");
-        var moving = PlateModels.SolveMoving(model, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: forcedKind);
-        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: moving.Choice.Kind));
+        var moving = PlateModels.SolveMoving(model, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: forcedKind, fftThreads: limits.Threads);
+        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: moving.Choice.Kind, fftThreads: limits.Threads));
         var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, source, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
         return new PlateFileEvaluation(plate, moving.Choice, WithSolutionNotes(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
             moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)

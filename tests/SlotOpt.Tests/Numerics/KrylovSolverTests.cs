@@ -165,4 +165,44 @@ public class KrylovSolverTests
         Assert.False(Gmres.TrySolve(apply, precondition, b, new double[n], Tight with { MaxIterations = 2 }, restart, out var limited));
         Assert.Equal(SolveStatus.IterationLimit, limited.Status);
     }
+
+    /// <summary>
+    /// A sequence of right-hand sides solved each from the previous answer with its kept image A x (as the moving own-field sweep
+    /// does): every answer matches MathNet's dense LU to 1e-9 relative (the class's tolerance), the returned image is A x of the answer
+    /// to rounding (1e-12 relative: one matrix-vector product's rounding), and each solve after the first applies A once less than
+    /// the same solve without the image (the first residual comes from the image).
+    /// </summary>
+    [Fact]
+    public void RealGmresWithKeptImageMatchesDenseLu()
+    {
+        const int n = 40;
+        var random = new Random(33);
+        var a = Matrix<double>.Build.Dense(n, n);
+        for (int i = 0; i < n; i++)
+            for (int j = 0; j < n; j++)
+                if (i != j && random.NextDouble() < 0.3) a[i, j] = 2 * random.NextDouble() - 1;
+        for (int i = 0; i < n; i++) a[i, i] = 1 + a.Row(i).Enumerate().Sum(Math.Abs);
+        int applications = 0;
+        RealMap apply = (x, y) => { applications++; (a * Vector.Build.DenseOfArray(x)).CopyTo(Vector.Build.Dense(y)); };
+        RealMap precondition = (r, z) => { for (int i = 0; i < r.Length; i++) z[i] = r[i] / a[i, i]; };
+        var x = new double[n];
+        var image = new double[n];
+        for (int k = 0; k < 4; k++)
+        {
+            var b = Enumerable.Range(0, n).Select(i => Math.Sin(0.3 * i + 0.5 * k) + 0.1 * k).ToArray();
+            var plain = (double[])x.Clone();
+            applications = 0;
+            var reference = Gmres.Solve(apply, precondition, b, plain, Tight);
+            int withoutImage = applications;
+            applications = 0;
+            Assert.True(Gmres.TrySolve(apply, precondition, b, x, image, imageHoldsGuess: k > 0, Tight, ComplexGmres.DefaultRestart, out var report));
+            Assert.Equal(reference.Iterations, report.Iterations);
+            Assert.Equal(k > 0 ? withoutImage - 1 : withoutImage, applications);
+            var expected = a.LU().Solve(Vector.Build.DenseOfArray(b));
+            double scale = expected.AbsoluteMaximum();
+            for (int i = 0; i < n; i++) Assert.True(Math.Abs(x[i] - expected[i]) <= 1e-9 * scale, $"b{k}: x[{i}] = {x[i]}, dense LU {expected[i]}");
+            var ax = a * Vector.Build.DenseOfArray(x);
+            for (int i = 0; i < n; i++) Assert.True(Math.Abs(image[i] - ax[i]) <= 1e-12 * ax.AbsoluteMaximum(), $"b{k}: image[{i}] = {image[i]}, A x {ax[i]}");
+        }
+    }
 }

@@ -65,19 +65,19 @@ public sealed class ReactionOperator
     {
         var c = _convolution;
         var re = c.Re; var im = c.Im;
-        int ix = c.Nx, mx = c.PaddedX;
-        for (int n = 0; n < _interiorUnknown.Length; n++)
-        {
-            int k = _interiorUnknown[n], p = n / ix * mx + n % ix;
-            if (k >= 0) { re[p] = u[k].Real; im[p] = u[k].Imaginary; } else { re[p] = 0; im[p] = 0; }
-        }
+        int ix = c.Nx, iy = c.Ny, mx = c.PaddedX;
+        var map = _interiorUnknown;
+        for (int j = 0, n = 0; j < iy; j++)
+            for (int p = j * mx, end = p + ix; p < end; p++, n++)
+            {
+                int k = map[n];
+                if (k >= 0) { re[p] = u[k].Real; im[p] = u[k].Imaginary; } else { re[p] = 0; im[p] = 0; }
+            }
         c.ConvolveComplex(_spectrumR);
         y.Clear();
-        for (int n = 0; n < _interiorUnknown.Length; n++)
-        {
-            int k = _interiorUnknown[n];
-            if (k >= 0) { int p = n / ix * mx + n % ix; y[k] += new Complex(re[p], im[p]); }   // transpose of the node replication: merged rows add up
-        }
+        for (int j = 0, n = 0; j < iy; j++)
+            for (int p = j * mx, end = p + ix; p < end; p++, n++)
+                if (map[n] is var k && k >= 0) y[k] += new Complex(re[p], im[p]);   // transpose of the node replication: merged rows add up
     }
 
     /// <summary>y = R u for a real u.</summary>
@@ -130,8 +130,8 @@ public sealed class ReactionOperator
     {
         var c = _convolution;
         var re = c.Re;
-        int ix = c.Nx, mx = c.PaddedX, nodesX = Model.Lattice.NodesX;
-        for (int n = 0; n < _interiorUnknown.Length; n++) re[n / ix * mx + n % ix] = nodeValues[(n / ix + 1) * nodesX + n % ix + 1];
+        int ix = c.Nx, iy = c.Ny, mx = c.PaddedX, nodesX = Model.Lattice.NodesX;
+        for (int j = 0; j < iy; j++) nodeValues.Slice((j + 1) * nodesX + 1, ix).CopyTo(re.AsSpan(j * mx, ix));
         c.ConvolveReal(_spectrumR);
         Gather(y);
     }
@@ -148,12 +148,11 @@ public sealed class ReactionOperator
     {
         var c = _convolution;
         var re = c.Re;
-        int ix = c.Nx, mx = c.PaddedX;
-        for (int n = 0; n < _interiorUnknown.Length; n++)
-        {
-            int k = _interiorUnknown[n];
-            re[n / ix * mx + n % ix] = k >= 0 ? u[k] : 0;
-        }
+        int ix = c.Nx, iy = c.Ny, mx = c.PaddedX;
+        var map = _interiorUnknown;
+        for (int j = 0, n = 0; j < iy; j++)
+            for (int p = j * mx, end = p + ix; p < end; p++, n++)
+                re[p] = map[n] is var k && k >= 0 ? u[k] : 0;
         c.ConvolveReal(spectrum);
         Gather(y);
     }
@@ -162,13 +161,12 @@ public sealed class ReactionOperator
     private void Gather(Span<double> y)
     {
         var re = _convolution.Re;
-        int ix = _convolution.Nx, mx = _convolution.PaddedX;
+        int ix = _convolution.Nx, iy = _convolution.Ny, mx = _convolution.PaddedX;
+        var map = _interiorUnknown;
         y.Clear();
-        for (int n = 0; n < _interiorUnknown.Length; n++)
-        {
-            int k = _interiorUnknown[n];
-            if (k >= 0) y[k] += re[n / ix * mx + n % ix];
-        }
+        for (int j = 0, n = 0; j < iy; j++)
+            for (int p = j * mx, end = p + ix; p < end; p++, n++)
+                if (map[n] is var k && k >= 0) y[k] += re[p];
     }
 
     /// <summary>DFT of the kernel placed with wrap-around at offsets |dx| &lt;= kx, |dy| &lt;= ky on the padded lattice (natural order, unscaled).</summary>

@@ -73,7 +73,8 @@ public static class ReactionSolver
 
     /// <summary>
     /// Source-frame steady state at each offset (the plate long in x, psi = 0 at its ends: make the plate
-    /// reach well behind the source, where the wake trails). Each offset starts from the previous solution.
+    /// reach well behind the source, where the wake trails). Each offset starts from the previous solution (and its image
+    /// under the coupled operator, kept from the previous solve's final residual).
     /// The system is real (<see cref="ConvectedOperator"/>): real GMRES (<see cref="Gmres"/>).
     /// </summary>
     public static bool TrySolveMoving(ReactionOperator reaction, IMovingSheetSource source, ConductingSheet conductor, IReadOnlyList<double> offsetsXM,
@@ -102,6 +103,7 @@ public static class ReactionSolver
         var gradient = new double[n];
         var low = new double[n];
         var u = new double[n];
+        var image = new double[n];      // op u of the last solution: the next offset's first residual without an application of op
         double[]? first = null;
         var loss = new double[offsetsXM.Count];
         var drag = new double[offsetsXM.Count];
@@ -122,7 +124,7 @@ public static class ReactionSolver
             double edgeLoss = source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]);
             dragLow[k] = g * (model.LossPerSiemens(low) + edgeLoss) / v;
             if (k == 0) Array.Copy(initialGuess ?? low, u, n);
-            if (!Gmres.TrySolve(op.Apply, op.Precondition, rhs, u, criterion, ComplexGmres.DefaultRestart, out var report))
+            if (!Gmres.TrySolve(op.Apply, op.Precondition, rhs, u, image, imageHoldsGuess: k > 0, criterion, ComplexGmres.DefaultRestart, out var report))
             {
                 failure = $"at offset {offsetsXM[k]} m, coupled moving solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
                 return false;
