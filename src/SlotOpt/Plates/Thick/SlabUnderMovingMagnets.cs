@@ -235,6 +235,8 @@ public sealed class SlabUnderMovingMagnets
             }
         var sums = new double[outputs];
         foreach (var (from, to) in radial)
+        {
+            ConvergenceCriterion.Default.ThrowIfCancelled();   // the run's time limit reaches the sweep once per radial panel
             for (int i = 0; i < GaussPoints; i++)
             {
                 double k = from + nodes[i] * (to - from), radialWeight = weights[i] * (to - from) * k;   // d^2k = k dk dtheta
@@ -245,6 +247,7 @@ public sealed class SlabUnderMovingMagnets
                     add(kx, ky, b2 * b2, sums, radialWeight * w);
                 }
             }
+        }
         return sums;
     }
 }
