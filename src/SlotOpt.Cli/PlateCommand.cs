@@ -25,10 +25,10 @@ public static class PlateCommand
         var model = new Option<string>("--model")
         {
             HelpName = "MODEL",
-            Description = "the plate model: auto (the validity figures choose), resistance-limited, own-field (thin sheet with its own field) or thick (layered, AC only)",
+            Description = "the plate model: auto (the validity figures choose), resistance-limited, own-field (thin sheet with its own field), thick (layered, AC only) or thick-slab (a wide plain block under sliding magnets: the exact infinite slab)",
             DefaultValueFactory = _ => "auto",
         };
-        model.AcceptOnlyFromAmong("auto", "resistance-limited", "own-field", "thick");
+        model.AcceptOnlyFromAmong("auto", "resistance-limited", "own-field", "thick", "thick-slab");
         var command = new Command("plate", "Eddy-current loss and drag of one conducting plate in a normal field, with the model its validity figures call for.");
         command.Arguments.Add(file);
         command.Options.Add(json);
@@ -70,6 +70,7 @@ public static class PlateCommand
         "resistance-limited" => SheetModelKind.ResistanceLimited,
         "own-field" => SheetModelKind.ThinSheetReaction,
         "thick" => SheetModelKind.BeyondThinSheet,
+        "thick-slab" => SheetModelKind.ThickSlab,
         _ => null,
     };
 
@@ -119,6 +120,11 @@ public static class PlateCommand
             ApproachSpeedMPerS = e.Case.Approach?.SpeedMPerS,
             ApproachGapsM = e.ApproachCurve?.Select(p => p.GapM).ToList(),
             ApproachForceN = e.ApproachCurve?.Select(p => p.ForceN).ToList(),
+            SlabSpeedsMPerS = e.SlabSpeedCurve?.Select(f => f.SpeedMPerS).ToList(),
+            SlabDragN = e.SlabSpeedCurve?.Select(f => f.DragN).ToList(),
+            SlabLiftN = e.SlabSpeedCurve?.Select(f => f.LiftN).ToList(),
+            SlabLossW = e.SlabSpeedCurve?.Select(f => f.LossW).ToList(),
+            SlabQuadratureError = e.SlabSpeedCurve?.Max(f => f.RelativeErrorEstimate),
         }.Serialize();
     }
 
@@ -135,6 +141,12 @@ public static class PlateCommand
         if (e.ApproachCurve is { } curve)
             foreach (var p in curve) s.AppendLine(c, $"  damping force        {Numbers.Newtons(p.ForceN)} at {Numbers.Of(p.GapM * 1e3, "mm")} gap, approaching at {Numbers.Of(e.Case.Approach!.SpeedMPerS, "m/s")}");
         else if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {Numbers.Newtons(drag)}{(e.Case.Rotation is null ? "" : " along the magnets' path")} (min {Numbers.Newtons(e.DragPerOffsetN.Min())}, max {Numbers.Newtons(e.DragPerOffsetN.Max())})");
+        if (e.SlabSpeedCurve is { } slab)
+        {
+            s.AppendLine(c, $"  lift                 {Numbers.Newtons(slab.First(f => f.SpeedMPerS == e.Case.MovingSource!.SpeedMPerS).LiftN)} (pushing the magnets away from the block)");
+            s.AppendLine(c, $"  against speed        (thick-slab, wavenumber quadrature error below {slab.Max(f => f.RelativeErrorEstimate):E1})");
+            foreach (var f in slab) s.AppendLine(c, $"    {Numbers.Of(f.SpeedMPerS, "m/s"),-14} drag {Numbers.Newtons(f.DragN),-12} lift {Numbers.Newtons(f.LiftN),-12} loss {Numbers.Watts(f.LossW)}");
+        }
         if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {grid.Relative:P2} of loss{(e.MeanDragN is null ? "" : " and drag")} (Richardson, {grid.CellM * 1e3:G3} mm against {grid.CoarseCellM * 1e3:G3} mm cells)");
         s.AppendLine(c, $"  current density      peak {Numbers.Sig(r.PeakCurrentDensityAPerM2 / 1e6)} A/mm2, rms {Numbers.Sig(r.RmsCurrentDensityAPerM2 / 1e6)} A/mm2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");

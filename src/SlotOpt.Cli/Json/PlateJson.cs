@@ -51,4 +51,10 @@ public sealed record PlateJson(
     public double? ApproachSpeedMPerS { get; init; }
     public IReadOnlyList<double>? ApproachGapsM { get; init; }
     public IReadOnlyList<double>? ApproachForceN { get; init; }
+    /// <summary>thick-slab: the speeds of the drag/lift curve (m/s), drag and lift on the magnets (N), loss in the block (W), the quadrature's relative error estimate.</summary>
+    public IReadOnlyList<double>? SlabSpeedsMPerS { get; init; }
+    public IReadOnlyList<double>? SlabDragN { get; init; }
+    public IReadOnlyList<double>? SlabLiftN { get; init; }
+    public IReadOnlyList<double>? SlabLossW { get; init; }
+    public double? SlabQuadratureError { get; init; }
 }

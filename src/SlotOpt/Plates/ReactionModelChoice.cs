@@ -52,6 +52,7 @@ public static class ReactionModelChoice
     {
         SheetModelKind.ResistanceLimited => "resistance-limited",
         SheetModelKind.ThinSheetReaction => "own-field",
+        SheetModelKind.ThickSlab => "thick-slab",
         _ => "thick",
     };
 

@@ -9,4 +9,6 @@ public enum SheetModelKind
     ThinSheetReaction,
     /// <summary>The plate is thick against the skin depth: neither thin-sheet model holds; AC cases use the layered thick-plate solver (<see cref="ThickPlateSolver"/>).</summary>
     BeyondThinSheet,
+    /// <summary>A wide plain block under sliding magnets: the exact laterally infinite slab (<see cref="Thick.SlabUnderMovingMagnets"/>), its own field and every depth included; plate edges and slots neglected.</summary>
+    ThickSlab,
 }

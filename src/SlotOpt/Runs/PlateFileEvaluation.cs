@@ -9,6 +9,7 @@ using SlotOpt.Plates.Sources;
 using SlotOpt.Plates.Sources.Magnets;
 using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Plates.Thermal;
+using SlotOpt.Plates.Thick;
 
 namespace SlotOpt.Runs;
 
@@ -45,12 +46,17 @@ public sealed record PlateFileEvaluation(
     /// <summary>Magnets approaching: the damping force at each gap of the case (MeanDragN is the one at the first gap).</summary>
     public IReadOnlyList<GapPoint>? ApproachCurve { get; init; }
 
+    /// <summary>Magnets sliding over a wide block (thick-slab): drag, lift and loss at speeds around the case's (<see cref="PlateThickSlab"/>).</summary>
+    public IReadOnlyList<SlabForces>? SlabSpeedCurve { get; init; }
+
     /// <param name="forcedKind">the model asked for (--model); null lets the validity figures choose</param>
     /// <param name="limits">Memory: the estimate of the case's solve is checked before anything is built.</param>
     public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
         plate = WithinMemory(plate, limits);
+        if (forcedKind == SheetModelKind.ThickSlab && plate.MovingSource is null)
+            throw new InputException($"{plate.Path}: --model thick-slab is for magnets sliding over a block; this plate's source is not a sliding one");
         if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind);
         if (plate.Approach is { } approach) return EvaluateApproach(plate, approach, criterion, forcedKind);
         if (plate.Thermal is not null)
@@ -71,6 +77,7 @@ public sealed record PlateFileEvaluation(
                 { GridError = solution.GridError };
         }
         var source = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor a moving source");
+        if (PlateThickSlab.Wanted(plate, forcedKind) is { } slab) return PlateThickSlab.Evaluate(plate, slab, model, criterion);
         var moving = PlateModels.SolveMoving(model, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: forcedKind, fftThreads: limits.Threads);
         moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: moving.Choice.Kind, fftThreads: limits.Threads));
         var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, source, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
