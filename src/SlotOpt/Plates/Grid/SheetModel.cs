@@ -54,10 +54,10 @@ public sealed class SheetModel
 
     /// <summary>Solves A psi = b; psi holds the warm start on entry. False (with the report) when it does not converge.</summary>
     public bool TrySolve(double[] b, double[] psi, ConvergenceCriterion criterion, out SolveReport report) =>
-        ConjugateGradient.TrySolve(Multigrid.Operator, b, psi, Multigrid, criterion, out report);
+        Multigrid.TrySolve(b, psi, criterion, out report);
 
     public SolveReport Solve(double[] b, double[] psi, ConvergenceCriterion criterion) =>
-        ConjugateGradient.Solve(Multigrid.Operator, b, psi, Multigrid, criterion);
+        TrySolve(b, psi, criterion, out var report) ? report : throw new NumericalFailureException($"sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
 
     /// <summary>Loss at unit reference sheet conductance, P = psi^T A psi (W per S of reference conductance; instantaneous for this psi).</summary>
     public double LossPerSiemens(double[] psi)

@@ -43,6 +43,8 @@ public sealed class StructuredMultigrid : IPreconditioner
     private readonly int[] _nodeUnknown;
     /// <summary>Nodes of merged regions, grouped by region: MergedNodes[MergedStart[m] .. MergedStart[m + 1]), region m is unknown MergedUnknown[m].</summary>
     private readonly int[] _mergedNodes, _mergedStart, _mergedUnknown;
+    /// <summary>The merged regions' residuals while <see cref="CycleInPlace"/> has them spread over their nodes.</summary>
+    private readonly double[] _mergedResidual;
 
     private StructuredMultigrid(StencilLevel[] levels, BandCholesky coarsest, bool coarsestColumnsFirst, int[] nodeUnknown, int[] mergedNodes, int[] mergedStart, int[] mergedUnknown, LatticeSheetOperator op)
     {
@@ -55,6 +57,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         _mergedNodes = mergedNodes;
         _mergedStart = mergedStart;
         _mergedUnknown = mergedUnknown;
+        _mergedResidual = new double[mergedUnknown.Length];
     }
 
     public int LevelCount => _levels.Length;
@@ -212,19 +215,26 @@ public sealed class StructuredMultigrid : IPreconditioner
     private static (StencilLevel Level, double[] OutsideWeight) FineLevel(PlateGrid grid, NodeRegions regions)
     {
         var l = grid.Lattice;
-        int nx = l.NodesX, ny = l.NodesY;
+        int nx = l.NodesX, ny = l.NodesY, cx = l.Nx, cy = l.Ny;
         var level = new StencilLevel(nx, ny, ninePoint: false);
         var map = regions.NodeUnknown;
         double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
+        var c = level.Centre; var w = level.West; var s = level.South;
+        // 1 / g per cell (0 for an empty cell), then each edge's resistance (as SheetOperator's) into w and s until the couplings replace it
+        var g = grid.Conductance;
+        var inverse = new double[g.Length];
+        for (int k = 0; k < g.Length; k++) inverse[k] = g[k] == 0 ? 0 : 1 / g[k];
         double largest = 0;
         for (int j = 0; j < ny; j++)
             for (int i = 0; i < nx; i++)
             {
-                if (i > 0) largest = Math.Max(largest, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i - 1, j, rx));
-                if (j > 0) largest = Math.Max(largest, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i, j - 1, ry));
+                int p = j * nx + i;
+                // edge (i - 1, j)-(i, j) between cells (i - 1, j - 1) and (i - 1, j); edge (i, j - 1)-(i, j) between cells (i - 1, j - 1) and (i, j - 1)
+                w[p] = i > 0 && j > 0 && j < cy ? Resistance(inverse[(j - 1) * cx + i - 1], inverse[j * cx + i - 1], rx) : 0;
+                s[p] = j > 0 && i > 0 && i < cx ? Resistance(inverse[(j - 1) * cx + i - 1], inverse[(j - 1) * cx + i], ry) : 0;
+                largest = Math.Max(largest, Math.Max(w[p], s[p]));
             }
         double glue = GlueFactor * largest;
-        var c = level.Centre; var w = level.West; var s = level.South;
         var outside = new double[nx * ny];
         if (regions.UnknownCount == 0) throw SheetOperator.NoFreeNode();
         var diagonal = new double[regions.UnknownCount];   // A's diagonal, to refuse an unknown with no conducting cell beside it
@@ -233,26 +243,31 @@ public sealed class StructuredMultigrid : IPreconditioner
             {
                 int p = j * nx + i;
                 if (map[p] < 0) c[p] += 1;   // outside: identity row
-                if (i > 0) Couple(p - 1, p, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i - 1, j, rx), w);
-                if (j > 0) Couple(p - nx, p, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i, j - 1, ry), s);
+                if (i > 0) w[p] = Couple(p - 1, p, w[p]);
+                if (j > 0) s[p] = Couple(p - nx, p, s[p]);
             }
         for (int u = 0; u < diagonal.Length; u++) if (!(diagonal[u] > 0)) throw SheetOperator.NoConductingCellBeside(u);
         return (level, outside);
 
-        // the edge between nodes a and p (p the stored side) with conductance r in the sheet operator
-        void Couple(int a, int p, double r, double[] store)
+        // the edge between nodes a and p (p the stored side) with conductance r in the sheet operator: adds to the diagonals, returns the stored coupling
+        double Couple(int a, int p, double r)
         {
             int ua = map[a], up = map[p];
-            if (ua < 0 && up < 0) return;
-            if (ua == up) { store[p] = -glue; c[a] += glue; c[p] += glue; return; }
-            if (r == 0) return;
+            if (ua < 0 && up < 0) return 0;
+            if (ua == up) { c[a] += glue; c[p] += glue; return -glue; }
+            if (r == 0) return 0;
             if (ua >= 0) { c[a] += r; diagonal[ua] += r; }
             if (up >= 0) { c[p] += r; diagonal[up] += r; }
-            if (ua >= 0 && up >= 0) store[p] = -r;
-            else if (ua >= 0) outside[a] += r;
+            if (ua >= 0 && up >= 0) return -r;
+            if (ua >= 0) outside[a] += r;
             else outside[p] += r;
+            return 0;
         }
     }
+
+    /// <summary>Edge resistance from the inverse conductances of the two cells beside it, as SheetOperator: aspect (1/g1 + 1/g2) / 2; 0 when either cell is empty.</summary>
+    private static double Resistance(double inverse1, double inverse2, double aspect) =>
+        inverse1 == 0 || inverse2 == 0 ? 0 : aspect * 0.5 * (inverse1 + inverse2);
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Apply(ReadOnlySpan<double> r, Span<double> z)
@@ -276,6 +291,46 @@ public sealed class StructuredMultigrid : IPreconditioner
             for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) sum += x[o + _mergedNodes[q]];
             z[_mergedUnknown[m]] = sum / (_mergedStart[m + 1] - _mergedStart[m]);
         }
+    }
+
+    /// <summary>The finest level, whose right-hand side and iterate <see cref="CycleInPlace"/> uses (the lattice conjugate gradients' r and z).</summary>
+    internal StencilLevel Finest => _levels[0];
+
+    /// <summary>
+    /// z = Q^T V Q r on the lattice in <see cref="LatticeConjugateGradient"/>'s layout: r in the finest level's right-hand side, z into
+    /// its iterate. A merged region's residual is spread evenly over its nodes for the cycle and put back after; its value in z is the
+    /// mean over its nodes, at its first node, 0 at the others.
+    /// </summary>
+    internal void CycleInPlace()
+    {
+        var top = _levels[0];
+        var b = top.B;
+        int o = top.Pad;
+        var kept = _mergedResidual;
+        for (int m = 0; m < _mergedUnknown.Length; m++)
+        {
+            int first = o + _mergedNodes[_mergedStart[m]];
+            kept[m] = b[first];
+            double share = kept[m] / (_mergedStart[m + 1] - _mergedStart[m]);
+            for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) b[o + _mergedNodes[q]] = share;
+        }
+        Cycle(0);
+        var x = top.X;
+        for (int m = 0; m < _mergedUnknown.Length; m++)
+        {
+            double sum = 0;
+            for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) { int i = o + _mergedNodes[q]; sum += x[i]; x[i] = 0; b[i] = 0; }
+            int first = o + _mergedNodes[_mergedStart[m]];
+            x[first] = sum / (_mergedStart[m + 1] - _mergedStart[m]);
+            b[first] = kept[m];
+        }
+    }
+
+    /// <summary>Solves A psi = b by conjugate gradients on the lattice with this V-cycle (see <see cref="LatticeConjugateGradient"/>); psi holds the warm start.</summary>
+    public bool TrySolve(ReadOnlySpan<double> b, Span<double> psi, ConvergenceCriterion criterion, out SolveReport report)
+    {
+        if (b.Length != Operator.Rows || psi.Length != Operator.Rows) throw new ArgumentException("one value per unknown", nameof(b));
+        return LatticeConjugateGradient.TrySolve(this, b, psi, criterion, out report);
     }
 
     private void Cycle(int k)
