@@ -98,85 +98,91 @@ internal static class BlackBoxCoarsening
     /// <summary>
     /// A_c(K, L) = phi_K^T A phi_L with phi_K coarse node K's prolongation (support: the 3 x 3 fine
     /// nodes around it); per coarse node A phi_K is formed on the 5 x 5 patch around it and dotted
-    /// with the basis functions of K and its west, south, south-west and south-east neighbours.
-    /// The weights of a fine node off the lattice are 0 in the prolongation arrays, so only the
-    /// lattice's low edges (I = 0, J = 0) need a test.
+    /// with the basis functions of K and its west, south, south-west and south-east neighbours
+    /// (each dot product spelled out over the fine nodes the two supports share).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void GalerkinOperator(StencilLevel f, StencilLevel c)
     {
         int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx;
-        Span<double> aPhi = stackalloc double[25];
-        Span<double> phi = stackalloc double[9];
-        Span<double> other = stackalloc double[9];
+        var phi = Bases(c);
+        Span<double> a = stackalloc double[25];   // A phi_K on K's 5 x 5 patch, row by row from the south-west corner
+        var cc = c.Centre; var cw = c.West; var cs = c.South; var csw = c.SouthWest!; var cse = c.SouthEast!;
         for (int J = 0; J < ncy; J++)
             for (int I = 0; I < ncx; I++)
             {
                 int k = J * ncx + I;
                 int p0 = 2 * J * fnx + 2 * I;
-                Basis(c, I, J, phi);
-                aPhi.Clear();
+                a.Clear();
                 for (int t = 0; t < 9; t++)
                 {
-                    double v = phi[t];
-                    if (v == 0) continue;
+                    double v = phi[9 * k + t];
+                    if (v == 0) continue;   // also every support node off the lattice
                     int mi = t % 3 - 1, mj = t / 3 - 1;
-                    var a = new Row(f, p0 + mj * fnx + mi);
+                    var row = new Row(f, p0 + mj * fnx + mi);
                     int centre = (mj + 2) * 5 + mi + 2;   // the support node's place in the 5 x 5 patch
-                    aPhi[centre] += a.C * v;
-                    aPhi[centre - 1] += a.W * v;
-                    aPhi[centre + 1] += a.E * v;
-                    aPhi[centre - 5] += a.S * v;
-                    aPhi[centre + 5] += a.N * v;
-                    aPhi[centre - 6] += a.SW * v;
-                    aPhi[centre + 6] += a.NE * v;
-                    aPhi[centre - 4] += a.SE * v;
-                    aPhi[centre + 4] += a.NW * v;
+                    a[centre] += row.C * v;
+                    a[centre - 1] += row.W * v;
+                    a[centre + 1] += row.E * v;
+                    a[centre - 5] += row.S * v;
+                    a[centre + 5] += row.N * v;
+                    a[centre - 6] += row.SW * v;
+                    a[centre + 6] += row.NE * v;
+                    a[centre - 4] += row.SE * v;
+                    a[centre + 4] += row.NW * v;
                 }
-                c.Centre[k] = Project(phi, aPhi, 0, 0);
-                if (I > 0) { Basis(c, I - 1, J, other); c.West[k] = Project(other, aPhi, -1, 0); }
+                int b = 9 * k;   // phi_K: patch places 6 7 8 / 11 12 13 / 16 17 18
+                cc[k] = phi[b] * a[6] + phi[b + 1] * a[7] + phi[b + 2] * a[8] + phi[b + 3] * a[11] + phi[b + 4] * a[12]
+                      + phi[b + 5] * a[13] + phi[b + 6] * a[16] + phi[b + 7] * a[17] + phi[b + 8] * a[18];
+                if (I > 0)
+                {
+                    b = 9 * (k - 1);   // the west neighbour's columns 0, 1 over K's patch columns 0, 1 (rows 1 to 3)
+                    cw[k] = phi[b + 1] * a[5] + phi[b + 2] * a[6] + phi[b + 4] * a[10] + phi[b + 5] * a[11] + phi[b + 7] * a[15] + phi[b + 8] * a[16];
+                }
                 if (J > 0)
                 {
-                    Basis(c, I, J - 1, other); c.South[k] = Project(other, aPhi, 0, -1);
-                    if (I > 0) { Basis(c, I - 1, J - 1, other); c.SouthWest![k] = Project(other, aPhi, -1, -1); }
-                    if (I + 1 < ncx) { Basis(c, I + 1, J - 1, other); c.SouthEast![k] = Project(other, aPhi, 1, -1); }
+                    b = 9 * (k - ncx);   // the south neighbour's rows 1, 2 over K's patch rows 0, 1 (columns 1 to 3)
+                    cs[k] = phi[b + 3] * a[1] + phi[b + 4] * a[2] + phi[b + 5] * a[3] + phi[b + 6] * a[6] + phi[b + 7] * a[7] + phi[b + 8] * a[8];
+                    if (I > 0)
+                    {
+                        b = 9 * (k - ncx - 1);   // south-west: its north-east 2 x 2 over K's patch corner 0, 1, 5, 6
+                        csw[k] = phi[b + 4] * a[0] + phi[b + 5] * a[1] + phi[b + 7] * a[5] + phi[b + 8] * a[6];
+                    }
+                    if (I + 1 < ncx)
+                    {
+                        b = 9 * (k - ncx + 1);   // south-east: its north-west 2 x 2 over K's patch corner 3, 4, 8, 9
+                        cse[k] = phi[b + 3] * a[3] + phi[b + 4] * a[4] + phi[b + 6] * a[8] + phi[b + 7] * a[9];
+                    }
                 }
             }
     }
 
-    /// <summary>Coarse node (I, J)'s prolongation weights at fine offsets (di, dj) into phi[(dj + 1) 3 + di + 1]; 0 off the lattice.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static void Basis(StencilLevel c, int I, int J, Span<double> phi)
+    /// <summary>
+    /// Every coarse node's prolongation weights at its 3 x 3 fine neighbourhood, phi[9 k + (dj + 1) 3 + di + 1] for offset (di, dj);
+    /// 0 off the lattice (the prolongation arrays hold 0 there, so only the low edges I = 0, J = 0 need a test).
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static float[] Bases(StencilLevel c)
     {
-        int ncx = c.Nx, k = J * ncx + I;
-        bool west = I > 0, south = J > 0;
-        phi[4] = 1;
-        phi[5] = c.XLow![k];
-        phi[3] = west ? c.XHigh![k - 1] : 0;
-        phi[7] = c.YLow![k];
-        phi[1] = south ? c.YHigh![k - ncx] : 0;
-        phi[8] = c.CentreSW![k];
-        phi[6] = west ? c.CentreSE![k - 1] : 0;
-        phi[2] = south ? c.CentreNW![k - ncx] : 0;
-        phi[0] = west && south ? c.CentreNE![k - ncx - 1] : 0;
-    }
-
-    /// <summary>phi_L^T (A phi_K) for L = K + (dI, dJ) with weights phi, over the fine nodes in K's 5 x 5 patch.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static double Project(ReadOnlySpan<double> phi, ReadOnlySpan<double> aPhi, int dI, int dJ)
-    {
-        double s = 0;
-        for (int dj = -1; dj <= 1; dj++)
-        {
-            int pj = 2 * dJ + dj + 2;
-            if (pj < 0 || pj > 4) continue;
-            for (int di = -1; di <= 1; di++)
+        int ncx = c.Nx, ncy = c.Ny;
+        var phi = new float[9 * ncx * ncy];
+        var xl = c.XLow!; var xh = c.XHigh!; var yl = c.YLow!; var yh = c.YHigh!;
+        var sw = c.CentreSW!; var se = c.CentreSE!; var nw = c.CentreNW!; var ne = c.CentreNE!;
+        for (int J = 0; J < ncy; J++)
+            for (int I = 0; I < ncx; I++)
             {
-                int pi = 2 * dI + di + 2;
-                if (pi < 0 || pi > 4) continue;
-                s += phi[(dj + 1) * 3 + di + 1] * aPhi[pj * 5 + pi];
+                int k = J * ncx + I, b = 9 * k;
+                bool west = I > 0, south = J > 0;
+                phi[b + 4] = 1;
+                phi[b + 5] = xl[k];
+                phi[b + 3] = west ? xh[k - 1] : 0;
+                phi[b + 7] = yl[k];
+                phi[b + 1] = south ? yh[k - ncx] : 0;
+                phi[b + 8] = sw[k];
+                phi[b + 6] = west ? se[k - 1] : 0;
+                phi[b + 2] = south ? nw[k - ncx] : 0;
+                phi[b + 0] = west && south ? ne[k - ncx - 1] : 0;
             }
-        }
-        return s;
+        return phi;
     }
 }
