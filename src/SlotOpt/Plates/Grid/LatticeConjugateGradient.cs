@@ -103,15 +103,26 @@ internal static class LatticeConjugateGradient
         return Dot(r, r, mg.Finest.Pad, mg.Finest.Nodes);
     }
 
+    /// <summary>a . b over [from, from + count), in four interleaved partial sums (so the additions do not wait on one another).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static double Dot(double[] a, double[] b, int from, int count)
     {
-        double s = 0;
-        for (int i = from, end = from + count; i < end; i++) s += a[i] * b[i];
-        return s;
+        ref double ar = ref MemoryMarshal.GetArrayDataReference(a);
+        ref double br = ref MemoryMarshal.GetArrayDataReference(b);
+        double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+        int i = from, end = from + count;
+        for (; i + 3 < end; i += 4)
+        {
+            s0 += Unsafe.Add(ref ar, i) * Unsafe.Add(ref br, i);
+            s1 += Unsafe.Add(ref ar, i + 1) * Unsafe.Add(ref br, i + 1);
+            s2 += Unsafe.Add(ref ar, i + 2) * Unsafe.Add(ref br, i + 2);
+            s3 += Unsafe.Add(ref ar, i + 3) * Unsafe.Add(ref br, i + 3);
+        }
+        for (; i < end; i++) s0 += Unsafe.Add(ref ar, i) * Unsafe.Add(ref br, i);
+        return (s0 + s1) + (s2 + s3);
     }
 
-    /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2.</summary>
+    /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2 (four interleaved partial sums, as <see cref="Dot"/>).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static double UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha, int from, int count)
     {
@@ -119,15 +130,27 @@ internal static class LatticeConjugateGradient
         ref double rr = ref MemoryMarshal.GetArrayDataReference(r);
         ref double pr = ref MemoryMarshal.GetArrayDataReference(p);
         ref double qr = ref MemoryMarshal.GetArrayDataReference(q);
-        double s = 0;
-        for (int i = from, end = from + count; i < end; i++)
+        double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+        int i = from, end = from + count;
+        for (; i + 3 < end; i += 4)
+        {
+            s0 += Step(ref xr, ref rr, ref pr, ref qr, alpha, i);
+            s1 += Step(ref xr, ref rr, ref pr, ref qr, alpha, i + 1);
+            s2 += Step(ref xr, ref rr, ref pr, ref qr, alpha, i + 2);
+            s3 += Step(ref xr, ref rr, ref pr, ref qr, alpha, i + 3);
+        }
+        for (; i < end; i++) s0 += Step(ref xr, ref rr, ref pr, ref qr, alpha, i);
+        return (s0 + s1) + (s2 + s3);
+
+        // one entry: x_i += alpha p_i, r_i -= alpha q_i; returns r_i^2
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        static double Step(ref double xr, ref double rr, ref double pr, ref double qr, double alpha, int i)
         {
             Unsafe.Add(ref xr, i) += alpha * Unsafe.Add(ref pr, i);
             double v = Unsafe.Add(ref rr, i) - alpha * Unsafe.Add(ref qr, i);
             Unsafe.Add(ref rr, i) = v;
-            s += v * v;
+            return v * v;
         }
-        return s;
     }
 
     /// <summary>p = z + beta p.</summary>
