@@ -96,6 +96,7 @@ internal static class LatticeConjugateGradient
     }
 
     /// <summary>r = b - A x on the lattice (q as scratch); returns |r|^2.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static double TrueResidual(StructuredMultigrid mg, double[] b, double[] x, double[] q, double[] r)
     {
         mg.Operator.MultiplyOnLattice(x, q);

@@ -116,6 +116,7 @@ public sealed class LatticeSheetOperator : ILinearOperator
     }
 
     /// <summary>Unknowns to <see cref="MultiplyOnLattice"/>'s layout on the padded lattice.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal void ToLattice(ReadOnlySpan<double> v, double[] lattice)
     {
         var map = _nodeUnknown;
@@ -127,6 +128,7 @@ public sealed class LatticeSheetOperator : ILinearOperator
     }
 
     /// <summary>Back from <see cref="MultiplyOnLattice"/>'s layout to unknowns.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal void FromLattice(double[] lattice, Span<double> v)
     {
         var map = _nodeUnknown;
@@ -135,6 +137,7 @@ public sealed class LatticeSheetOperator : ILinearOperator
         for (int m = 0; m < _mergedUnknown.Length; m++) v[_mergedUnknown[m]] = lattice[o + _mergedNodes[_mergedStart[m]]];
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r)
     {
         Multiply(x, r);

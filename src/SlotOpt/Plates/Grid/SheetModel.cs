@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using System.Runtime.CompilerServices;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Geometry;
 
@@ -43,6 +44,7 @@ public sealed class SheetModel
     }
 
     /// <summary>Right-hand side b = -s of A psi = -s from node integrals s of dBz/dt; merged nodes add up (Faraday's law around the hole).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double[] RightHandSide(double[] nodeIntegral)
     {
         var b = new double[Unknowns];

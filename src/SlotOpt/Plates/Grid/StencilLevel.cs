@@ -57,6 +57,7 @@ internal sealed class StencilLevel
     public void ReleaseCentre() => Centre = Array.Empty<double>();
 
     /// <summary>Call once the stencil is filled.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Complete()
     {
         InverseCentre = new double[Nodes];

@@ -69,6 +69,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// <summary>Bytes held: stencils, transfer weights, level vectors, the coarsest factor and the region lists.</summary>
     public long Bytes => _levels.Sum(l => l.Bytes) + Operator.Bytes + _coarsest.Bytes + 8L * _coarsestVector.Length + 4L * (_mergedNodes.Length + _mergedStart.Length + _mergedUnknown.Length);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static StructuredMultigrid Build(PlateGrid grid, NodeRegions regions)
     {
         var (fine, outsideWeight) = FineLevel(grid, regions);
@@ -176,6 +177,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     }
 
     /// <summary>The levels below a filled finest level, down to the coarsest and its band Cholesky factor.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static (StencilLevel[] Levels, BandCholesky Coarsest, bool ColumnsFirst) Hierarchy(StencilLevel fine)
     {
         fine.Complete();
@@ -302,6 +304,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// its iterate. A merged region's residual is spread evenly over its nodes for the cycle and put back after; its value in z is the
     /// mean over its nodes, at its first node, 0 at the others.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal void CycleInPlace()
     {
         var top = _levels[0];
@@ -350,6 +353,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         level.SmoothBackward();
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void SolveCoarsest(StencilLevel level)
     {
         var v = _coarsestVector;
@@ -408,6 +412,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     }
 
     /// <summary>One coarse node of <see cref="Restrict"/>, testing which of its fine neighbours lie on the lattice.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void RestrictAtEdge(StencilLevel f, StencilLevel c, int I, int J)
     {
         var r = f.R;
