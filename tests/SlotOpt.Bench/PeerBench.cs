@@ -16,7 +16,8 @@ namespace SlotOpt.Bench;
 /// and peer/solve_peer.py solves the same A x = b with CG + hypre BoomerAMG and CG + PETSc GAMG through
 /// petsc4py (one process, OMP_NUM_THREADS=1, default options of each, true relative residual 1e-8, as SlotOpt).
 /// Repeats interleave (SlotOpt, hypre, GAMG, SlotOpt, ...) so machine noise hits all sides alike; the table
-/// shows the best of the repeats. SlotOpt's seconds are setup (grid, merged regions, operator, multigrid) plus
+/// shows the best of the repeats, in wall seconds and in the process's CPU seconds (steadier on a shared machine: Process.TotalProcessorTime
+/// for SlotOpt, Python's time.process_time for the peers, each over the same span as its wall time). SlotOpt's seconds are setup (grid, merged regions, operator, multigrid) plus
 /// solve; the peers' are preconditioner setup plus solve (their matrix is assembled before the clock starts).
 /// Without petsc4py the SlotOpt columns still run and the bench says why the peer columns are missing.
 /// Usage: `SlotOpt.Bench peer [--sizes 256,512,1024] [--repeats 3]`.
@@ -31,8 +32,9 @@ public static class PeerBench
         if (peer is null) Console.WriteLine($"peer columns left out: {whyNot}");
         SlotOptOnce(64);   // JIT warm-up
         var c = CultureInfo.InvariantCulture;
-        Console.WriteLine("| N | unknowns | SlotOpt s (setup+solve) | SlotOpt iterations | hypre BoomerAMG + CG s | hypre iterations | PETSc GAMG + CG s | GAMG iterations | hypre / SlotOpt | GAMG / SlotOpt |");
-        Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|");
+        Console.WriteLine($"load average at start: {LoadAverage()}");
+        Console.WriteLine("| N | unknowns | SlotOpt s (setup+solve) | SlotOpt iterations | hypre BoomerAMG + CG s | hypre iterations | PETSc GAMG + CG s | GAMG iterations | hypre / SlotOpt | GAMG / SlotOpt | SlotOpt CPU s | hypre CPU s | GAMG CPU s | hypre / SlotOpt CPU | GAMG / SlotOpt CPU |");
+        Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|---|---|---|---|---|");
         var directory = Directory.CreateTempSubdirectory("slotopt-peer-");
         try
         {
@@ -58,17 +60,18 @@ public static class PeerBench
                 var ours = new Best(); var hypre = new Best(); var gamg = new Best();
                 for (int rep = 0; rep < repeats; rep++)
                 {
-                    var (seconds, iterations) = SlotOptOnce(n);
-                    ours.Add(seconds, iterations);
+                    var (seconds, cpuSeconds, iterations) = SlotOptOnce(n);
+                    ours.Add(seconds, cpuSeconds, iterations);
                     if (!peerReady) continue;
                     hypre.Add(peer!.Solve("hypre"));
                     gamg.Add(peer.Solve("gamg"));
                 }
                 Console.WriteLine(string.Create(c,
-                    $"| {n} | {unknowns} | {ours.Seconds:F3} | {ours.Iterations} | {hypre.Text} | {hypre.IterationText} | {gamg.Text} | {gamg.IterationText} | {Ratio(hypre, ours)} | {Ratio(gamg, ours)} |"));
+                    $"| {n} | {unknowns} | {ours.Seconds:F3} | {ours.Iterations} | {hypre.Text} | {hypre.IterationText} | {gamg.Text} | {gamg.IterationText} | {Ratio(hypre, ours)} | {Ratio(gamg, ours)} | {ours.CpuText} | {hypre.CpuText} | {gamg.CpuText} | {CpuRatio(hypre, ours)} | {CpuRatio(gamg, ours)} |"));
             }
         }
         finally { directory.Delete(true); }
+        Console.WriteLine($"load average at end: {LoadAverage()}");
         return 0;
     }
 
@@ -80,14 +83,22 @@ public static class PeerBench
 
     private static string Ratio(Best peer, Best ours) => peer.Valid ? (peer.Seconds / ours.Seconds).ToString("F2", CultureInfo.InvariantCulture) : "-";
 
-    /// <summary>SlotOpt end to end, as SheetsBench times it: build the model, one AC solve.</summary>
-    private static (double Seconds, int Iterations) SlotOptOnce(int n)
+    private static string CpuRatio(Best peer, Best ours) => peer.Valid ? (peer.CpuSeconds / ours.CpuSeconds).ToString("F2", CultureInfo.InvariantCulture) : "-";
+
+    private static string LoadAverage() => File.Exists("/proc/loadavg") ? string.Join(' ', File.ReadAllText("/proc/loadavg").Split(' ').Take(3)) : "unknown";
+
+    /// <summary>SlotOpt end to end, as SheetsBench times it: build the model, one AC solve; wall seconds and the process's CPU seconds.</summary>
+    private static (double Seconds, double CpuSeconds, int Iterations) SlotOptOnce(int n)
     {
         GC.Collect();
+        var process = Process.GetCurrentProcess();
+        var cpu = process.TotalProcessorTime;
         var clock = Stopwatch.StartNew();
         var model = SheetModel.Build(SheetsBench.Plate(), new GridOptions { CellSizeM = 1.0 / n });
         var solution = ResistanceLimitedSolver.SolveAc(model, new UniformAcField(1, 50));
-        return (clock.Elapsed.TotalSeconds, solution.Iterations);
+        double seconds = clock.Elapsed.TotalSeconds;
+        process.Refresh();
+        return (seconds, (process.TotalProcessorTime - cpu).TotalSeconds, solution.Iterations);
     }
 
     /// <summary>The right-hand side ResistanceLimitedSolver.SolveAc solves for a uniform field: its phase is uniform, so one real part.</summary>
@@ -123,20 +134,24 @@ public static class PeerBench
     private sealed class Best
     {
         public double Seconds { get; private set; } = double.PositiveInfinity;
+        /// <summary>The least CPU seconds of the repeats (taken on its own: the run with the least wall time need not have the least CPU time).</summary>
+        public double CpuSeconds { get; private set; } = double.PositiveInfinity;
         public int Iterations { get; private set; }
         public bool Valid => double.IsFinite(Seconds);
         public string Text => Valid ? Seconds.ToString("F3", CultureInfo.InvariantCulture) : "-";
+        public string CpuText => Valid ? CpuSeconds.ToString("F3", CultureInfo.InvariantCulture) : "-";
         public string IterationText => Valid ? Iterations.ToString(CultureInfo.InvariantCulture) : "-";
 
-        public void Add(double seconds, int iterations)
+        public void Add(double seconds, double cpuSeconds, int iterations)
         {
             if (seconds < Seconds) { Seconds = seconds; Iterations = iterations; }
+            CpuSeconds = Math.Min(CpuSeconds, cpuSeconds);
         }
 
         public void Add(JsonElement reply)
         {
             if (!reply.GetProperty("ok").GetBoolean()) { Console.WriteLine($"peer solve failed: {reply}"); return; }
-            Add(reply.GetProperty("seconds").GetDouble(), reply.GetProperty("iterations").GetInt32());
+            Add(reply.GetProperty("seconds").GetDouble(), reply.GetProperty("cpu_seconds").GetDouble(), reply.GetProperty("iterations").GetInt32());
         }
     }
 

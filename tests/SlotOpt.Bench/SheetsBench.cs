@@ -22,6 +22,11 @@ public static class SheetsBench
 {
     public static int Run(string[] args)
     {
+        if (args.Contains("--profile"))
+        {
+            int at = Array.IndexOf(args, "--sizes");
+            return SheetsProfile.Run(at >= 0 && at + 1 < args.Length ? args[at + 1].Split(',').Select(s => int.Parse(s, CultureInfo.InvariantCulture)).ToArray() : [256, 1024]);
+        }
         bool json = args.Contains("--json");
         var sizes = new[] { 128, 256, 512, 1024, 2048 };
         Measure(64);   // JIT warm-up

@@ -6,7 +6,8 @@ residual |b - A x| / |b| <= 1e-8 (unpreconditioned norm, absolute tolerance 0).
 Run by SlotOpt.Bench (case `peer`) as one long-lived process so that its repeats interleave with
 SlotOpt's. Protocol on stdin, one command a line, one JSON line back on stdout:
   load MATRIX.mtx RHS.mtx          -> {"ok": true, "rows": n, "nonzeros": nnz}
-  solve hypre|gamg                 -> {"ok": true, "seconds": setup+solve, "setup_seconds", "solve_seconds", "iterations", "relative_residual"}
+  solve hypre|gamg                 -> {"ok": true, "seconds": setup+solve, "cpu_seconds" (the process's CPU time over the same span),
+                                      "setup_seconds", "solve_seconds", "iterations", "relative_residual"}
   quit
 Setup = building the preconditioner (KSPSetUp); the matrix itself is assembled before the clock starts.
 Needs Debian's python3-petsc4py-real; its module sits under PETSc's directory, so PYTHONPATH must
@@ -95,11 +96,13 @@ class System:
         else:
             raise ValueError(f"unknown preconditioner {preconditioner}")
         ksp.setOperators(self.A)
+        cpu_start = time.process_time()
         start = time.perf_counter()
         ksp.setUp()
         set_up = time.perf_counter()
         ksp.solve(self.b, x)
         end = time.perf_counter()
+        cpu_end = time.process_time()
         r = self.b.duplicate()
         self.A.mult(x, r)
         r.aypx(-1.0, self.b)
@@ -108,6 +111,7 @@ class System:
         result = {
             "ok": bool(converged),
             "seconds": end - start,
+            "cpu_seconds": cpu_end - cpu_start,
             "setup_seconds": set_up - start,
             "solve_seconds": end - set_up,
             "iterations": ksp.getIterationNumber(),

@@ -15,6 +15,8 @@ namespace SlotOpt.Plates.Grid;
 ///       neighbours' prolongation taken from the two rules above (coarse nodes: 1).
 /// Where a slot, a hole's edge or a conductivity jump cuts a line the couplings across it are
 /// small, so the weight across falls with them and the coarse operator keeps the cut.
+/// Entries are read straight from the stencil arrays: a coupling that would leave the lattice is
+/// stored as 0 (see <see cref="StencilLevel"/>), so no read needs a bounds test.
 /// </summary>
 internal static class BlackBoxCoarsening
 {
@@ -29,10 +31,25 @@ internal static class BlackBoxCoarsening
 
     private static float Ratio(double numerator, double denominator) => denominator > 0 ? (float)(-numerator / denominator) : 0f;
 
+    /// <summary>The 9 entries of node p's row (0 for the corners of a 5-point level and off the lattice).</summary>
+    private readonly struct Row
+    {
+        public readonly double C, W, E, S, N, SW, SE, NW, NE;
+
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public Row(StencilLevel f, int p)
+        {
+            int nx = f.Nx;
+            C = f.Centre[p]; W = f.West[p]; E = f.West[p + 1]; S = f.South[p]; N = f.South[p + nx];
+            if (f.SouthWest is { } sw) { SW = sw[p]; NE = sw[p + nx + 1]; SE = f.SouthEast![p]; NW = f.SouthEast[p + nx - 1]; }
+            else { SW = 0; NE = 0; SE = 0; NW = 0; }
+        }
+    }
+
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void BuildProlongation(StencilLevel f, StencilLevel c)
     {
-        int ncx = c.Nx, ncy = c.Ny, nc = ncx * ncy;
+        int ncx = c.Nx, ncy = c.Ny, nc = ncx * ncy, fnx = f.Nx, fny = f.Ny;
         var xLow = new float[nc]; var xHigh = new float[nc]; var yLow = new float[nc]; var yHigh = new float[nc];
         var cSW = new float[nc]; var cSE = new float[nc]; var cNW = new float[nc]; var cNE = new float[nc];
         for (int J = 0; J < ncy; J++)
@@ -40,130 +57,132 @@ internal static class BlackBoxCoarsening
             {
                 int k = J * ncx + I;
                 int i = 2 * I + 1, j = 2 * J;
-                if (i < f.Nx)
+                if (i < fnx)
                 {
-                    double d = f.Entry(i, j, 0, 0) + f.Entry(i, j, 0, -1) + f.Entry(i, j, 0, 1);
-                    xLow[k] = Ratio(f.Entry(i, j, -1, 0) + f.Entry(i, j, -1, -1) + f.Entry(i, j, -1, 1), d);
-                    xHigh[k] = I + 1 < ncx ? Ratio(f.Entry(i, j, 1, 0) + f.Entry(i, j, 1, -1) + f.Entry(i, j, 1, 1), d) : 0;
+                    var a = new Row(f, j * fnx + i);
+                    double d = a.C + a.S + a.N;
+                    xLow[k] = Ratio(a.W + a.SW + a.NW, d);
+                    xHigh[k] = I + 1 < ncx ? Ratio(a.E + a.SE + a.NE, d) : 0;
                 }
                 i = 2 * I; j = 2 * J + 1;
-                if (j < f.Ny)
+                if (j < fny)
                 {
-                    double d = f.Entry(i, j, 0, 0) + f.Entry(i, j, -1, 0) + f.Entry(i, j, 1, 0);
-                    yLow[k] = Ratio(f.Entry(i, j, 0, -1) + f.Entry(i, j, -1, -1) + f.Entry(i, j, 1, -1), d);
-                    yHigh[k] = J + 1 < ncy ? Ratio(f.Entry(i, j, 0, 1) + f.Entry(i, j, -1, 1) + f.Entry(i, j, 1, 1), d) : 0;
+                    var a = new Row(f, j * fnx + i);
+                    double d = a.C + a.W + a.E;
+                    yLow[k] = Ratio(a.S + a.SW + a.SE, d);
+                    yHigh[k] = J + 1 < ncy ? Ratio(a.N + a.NW + a.NE, d) : 0;
                 }
             }
         for (int J = 0; J < ncy; J++)
             for (int I = 0; I < ncx; I++)
             {
                 int i = 2 * I + 1, j = 2 * J + 1;
-                if (i >= f.Nx || j >= f.Ny) continue;
+                if (i >= fnx || j >= fny) continue;
                 int k = J * ncx + I;
                 bool east = I + 1 < ncx, north = J + 1 < ncy;
-                double d = f.Entry(i, j, 0, 0);
-                double aW = f.Entry(i, j, -1, 0), aE = f.Entry(i, j, 1, 0), aS = f.Entry(i, j, 0, -1), aN = f.Entry(i, j, 0, 1);
+                var a = new Row(f, j * fnx + i);
                 // the x/y-line neighbours' weights towards each corner (0 where that line node or corner is off the lattice)
                 double wSouthLine = yLow[k], nWestLine = yHigh[k];                               // west neighbour (2I, 2J+1)
                 double eSouthLine = east ? yLow[k + 1] : 0, eNorthLine = east ? yHigh[k + 1] : 0; // east neighbour (2I+2, 2J+1)
                 double sWestLine = xLow[k], sEastLine = xHigh[k];                                // south neighbour (2I+1, 2J)
                 double nWest = north ? xLow[k + ncx] : 0, nEast = north ? xHigh[k + ncx] : 0;    // north neighbour (2I+1, 2J+2)
-                cSW[k] = Ratio(f.Entry(i, j, -1, -1) + aW * wSouthLine + aS * sWestLine, d);
-                cSE[k] = east ? Ratio(f.Entry(i, j, 1, -1) + aE * eSouthLine + aS * sEastLine, d) : 0;
-                cNW[k] = north ? Ratio(f.Entry(i, j, -1, 1) + aW * nWestLine + aN * nWest, d) : 0;
-                cNE[k] = east && north ? Ratio(f.Entry(i, j, 1, 1) + aE * eNorthLine + aN * nEast, d) : 0;
+                cSW[k] = Ratio(a.SW + a.W * wSouthLine + a.S * sWestLine, a.C);
+                cSE[k] = east ? Ratio(a.SE + a.E * eSouthLine + a.S * sEastLine, a.C) : 0;
+                cNW[k] = north ? Ratio(a.NW + a.W * nWestLine + a.N * nWest, a.C) : 0;
+                cNE[k] = east && north ? Ratio(a.NE + a.E * eNorthLine + a.N * nEast, a.C) : 0;
             }
         c.XLow = xLow; c.XHigh = xHigh; c.YLow = yLow; c.YHigh = yHigh;
         c.CentreSW = cSW; c.CentreSE = cSE; c.CentreNW = cNW; c.CentreNE = cNE;
     }
 
-    /// <summary>Prolongation weight of coarse node (I, J) at fine node (2I + di, 2J + dj), |di|, |dj| &lt;= 1.</summary>
-    private static double Weight(StencilLevel c, int I, int J, int di, int dj)
-    {
-        int ncx = c.Nx;
-        switch (dj * 3 + di)
-        {
-            case 0: return 1;
-            case 1: return c.XLow![J * ncx + I];
-            case -1: return I > 0 ? c.XHigh![J * ncx + I - 1] : 0;
-            case 3: return c.YLow![J * ncx + I];
-            case -3: return J > 0 ? c.YHigh![(J - 1) * ncx + I] : 0;
-            case 4: return c.CentreSW![J * ncx + I];
-            case 2: return I > 0 ? c.CentreSE![J * ncx + I - 1] : 0;
-            case -2: return J > 0 ? c.CentreNW![(J - 1) * ncx + I] : 0;
-            case -4: return I > 0 && J > 0 ? c.CentreNE![(J - 1) * ncx + I - 1] : 0;
-            default: throw new ArgumentOutOfRangeException(nameof(di));
-        }
-    }
-
     /// <summary>
     /// A_c(K, L) = phi_K^T A phi_L with phi_K coarse node K's prolongation (support: the 3 x 3 fine
     /// nodes around it); per coarse node A phi_K is formed on the 5 x 5 patch around it and dotted
-    /// with the basis functions of K and its west, south, south-west and south-east neighbours.
+    /// with the basis functions of K and its west, south, south-west and south-east neighbours
+    /// (each dot product spelled out over the fine nodes the two supports share).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void GalerkinOperator(StencilLevel f, StencilLevel c)
     {
-        int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx, fny = f.Ny;
-        // phi[9 k + t]: coarse node k's weight at fine offset t = (dj + 1) 3 + di + 1; 0 off the lattice
-        var phi = new double[9 * ncx * ncy];
-        for (int J = 0; J < ncy; J++)
-            for (int I = 0; I < ncx; I++)
-                for (int dj = -1; dj <= 1; dj++)
-                    for (int di = -1; di <= 1; di++)
-                    {
-                        int i = 2 * I + di, j = 2 * J + dj;
-                        if (i >= 0 && j >= 0 && i < fnx && j < fny) phi[9 * (J * ncx + I) + (dj + 1) * 3 + di + 1] = Weight(c, I, J, di, dj);
-                    }
-        var cw = f.West; var cs = f.South; var cc = f.Centre; var csw = f.SouthWest; var cse = f.SouthEast;
-        Span<double> aPhi = stackalloc double[25];
+        int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx;
+        var phi = Bases(c);
+        Span<double> a = stackalloc double[25];   // A phi_K on K's 5 x 5 patch, row by row from the south-west corner
+        var cc = c.Centre; var cw = c.West; var cs = c.South; var csw = c.SouthWest!; var cse = c.SouthEast!;
         for (int J = 0; J < ncy; J++)
             for (int I = 0; I < ncx; I++)
             {
                 int k = J * ncx + I;
                 int p0 = 2 * J * fnx + 2 * I;
-                aPhi.Clear();
+                a.Clear();
                 for (int t = 0; t < 9; t++)
                 {
                     double v = phi[9 * k + t];
-                    if (v == 0) continue;
+                    if (v == 0) continue;   // also every support node off the lattice
                     int mi = t % 3 - 1, mj = t / 3 - 1;
-                    int pm = p0 + mj * fnx + mi;
+                    var row = new Row(f, p0 + mj * fnx + mi);
                     int centre = (mj + 2) * 5 + mi + 2;   // the support node's place in the 5 x 5 patch
-                    aPhi[centre] += cc[pm] * v;
-                    aPhi[centre - 1] += cw[pm] * v;
-                    aPhi[centre + 1] += cw[pm + 1] * v;
-                    aPhi[centre - 5] += cs[pm] * v;
-                    aPhi[centre + 5] += cs[pm + fnx] * v;
-                    if (csw is null) continue;
-                    aPhi[centre - 6] += csw[pm] * v;
-                    aPhi[centre + 6] += csw[pm + fnx + 1] * v;
-                    aPhi[centre - 4] += cse![pm] * v;
-                    aPhi[centre + 4] += cse[pm + fnx - 1] * v;
+                    a[centre] += row.C * v;
+                    a[centre - 1] += row.W * v;
+                    a[centre + 1] += row.E * v;
+                    a[centre - 5] += row.S * v;
+                    a[centre + 5] += row.N * v;
+                    a[centre - 6] += row.SW * v;
+                    a[centre + 6] += row.NE * v;
+                    a[centre - 4] += row.SE * v;
+                    a[centre + 4] += row.NW * v;
                 }
-                c.Centre[k] = Project(phi, 9 * k, aPhi, 0, 0);
-                c.West[k] = I > 0 ? Project(phi, 9 * (k - 1), aPhi, -1, 0) : 0;
-                c.South[k] = J > 0 ? Project(phi, 9 * (k - ncx), aPhi, 0, -1) : 0;
-                c.SouthWest![k] = I > 0 && J > 0 ? Project(phi, 9 * (k - ncx - 1), aPhi, -1, -1) : 0;
-                c.SouthEast![k] = I + 1 < ncx && J > 0 ? Project(phi, 9 * (k - ncx + 1), aPhi, 1, -1) : 0;
+                int b = 9 * k;   // phi_K: patch places 6 7 8 / 11 12 13 / 16 17 18
+                cc[k] = phi[b] * a[6] + phi[b + 1] * a[7] + phi[b + 2] * a[8] + phi[b + 3] * a[11] + phi[b + 4] * a[12]
+                      + phi[b + 5] * a[13] + phi[b + 6] * a[16] + phi[b + 7] * a[17] + phi[b + 8] * a[18];
+                if (I > 0)
+                {
+                    b = 9 * (k - 1);   // the west neighbour's columns 0, 1 over K's patch columns 0, 1 (rows 1 to 3)
+                    cw[k] = phi[b + 1] * a[5] + phi[b + 2] * a[6] + phi[b + 4] * a[10] + phi[b + 5] * a[11] + phi[b + 7] * a[15] + phi[b + 8] * a[16];
+                }
+                if (J > 0)
+                {
+                    b = 9 * (k - ncx);   // the south neighbour's rows 1, 2 over K's patch rows 0, 1 (columns 1 to 3)
+                    cs[k] = phi[b + 3] * a[1] + phi[b + 4] * a[2] + phi[b + 5] * a[3] + phi[b + 6] * a[6] + phi[b + 7] * a[7] + phi[b + 8] * a[8];
+                    if (I > 0)
+                    {
+                        b = 9 * (k - ncx - 1);   // south-west: its north-east 2 x 2 over K's patch corner 0, 1, 5, 6
+                        csw[k] = phi[b + 4] * a[0] + phi[b + 5] * a[1] + phi[b + 7] * a[5] + phi[b + 8] * a[6];
+                    }
+                    if (I + 1 < ncx)
+                    {
+                        b = 9 * (k - ncx + 1);   // south-east: its north-west 2 x 2 over K's patch corner 3, 4, 8, 9
+                        cse[k] = phi[b + 3] * a[3] + phi[b + 4] * a[4] + phi[b + 6] * a[8] + phi[b + 7] * a[9];
+                    }
+                }
             }
     }
 
-    /// <summary>phi_L^T (A phi_K) for L = K + (dI, dJ) whose weights start at phi[at], over the fine nodes in K's 5 x 5 patch.</summary>
-    private static double Project(double[] phi, int at, ReadOnlySpan<double> aPhi, int dI, int dJ)
+    /// <summary>
+    /// Every coarse node's prolongation weights at its 3 x 3 fine neighbourhood, phi[9 k + (dj + 1) 3 + di + 1] for offset (di, dj);
+    /// 0 off the lattice (the prolongation arrays hold 0 there, so only the low edges I = 0, J = 0 need a test).
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static float[] Bases(StencilLevel c)
     {
-        double s = 0;
-        for (int dj = -1; dj <= 1; dj++)
-        {
-            int pj = 2 * dJ + dj + 2;
-            if (pj < 0 || pj > 4) continue;
-            for (int di = -1; di <= 1; di++)
+        int ncx = c.Nx, ncy = c.Ny;
+        var phi = new float[9 * ncx * ncy];
+        var xl = c.XLow!; var xh = c.XHigh!; var yl = c.YLow!; var yh = c.YHigh!;
+        var sw = c.CentreSW!; var se = c.CentreSE!; var nw = c.CentreNW!; var ne = c.CentreNE!;
+        for (int J = 0; J < ncy; J++)
+            for (int I = 0; I < ncx; I++)
             {
-                int pi = 2 * dI + di + 2;
-                if (pi < 0 || pi > 4) continue;
-                s += phi[at + (dj + 1) * 3 + di + 1] * aPhi[pj * 5 + pi];
+                int k = J * ncx + I, b = 9 * k;
+                bool west = I > 0, south = J > 0;
+                phi[b + 4] = 1;
+                phi[b + 5] = xl[k];
+                phi[b + 3] = west ? xh[k - 1] : 0;
+                phi[b + 7] = yl[k];
+                phi[b + 1] = south ? yh[k - ncx] : 0;
+                phi[b + 8] = sw[k];
+                phi[b + 6] = west ? se[k - 1] : 0;
+                phi[b + 2] = south ? nw[k - ncx] : 0;
+                phi[b + 0] = west && south ? ne[k - ncx - 1] : 0;
             }
-        }
-        return s;
+        return phi;
     }
 }

@@ -68,6 +68,76 @@ public sealed class LatticeSheetOperator : ILinearOperator
         }
     }
 
+    /// <summary>
+    /// q = A p with both on the padded lattice in <see cref="LatticeConjugateGradient"/>'s layout (a merged region's value at its first
+    /// node, 0 at its other nodes and the outside); returns p . q, summed in the same pass. The operator and the unknowns' layout
+    /// make the outside rows 0 (no coupling reaches an outside node, its weight to the outside is 0), so q is 0 there.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal double MultiplyOnLattice(double[] p, double[] q)
+    {
+        var f = _fine;
+        int o = f.Pad, nx = f.Nx, n = f.Nodes;
+        for (int m = 0; m < _mergedUnknown.Length; m++)   // E p: the region's value at all its nodes
+        {
+            double v = p[o + _mergedNodes[_mergedStart[m]]];
+            for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) p[o + _mergedNodes[k]] = v;
+        }
+        ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
+        ref double w = ref MemoryMarshal.GetArrayDataReference(f.West);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(f.South);
+        ref double xr = ref MemoryMarshal.GetArrayDataReference(p);
+        ref double yr = ref MemoryMarshal.GetArrayDataReference(q);
+        double dot = 0;   // (E p) . (L E p) = p . (E^T L E p)
+        for (int k = 0; k < n; k++)
+        {
+            int i = o + k;
+            double v = Unsafe.Add(ref xr, i);
+            double y = Unsafe.Add(ref d, k) * v
+                - Unsafe.Add(ref w, k) * (v - Unsafe.Add(ref xr, i - 1)) - Unsafe.Add(ref w, k + 1) * (v - Unsafe.Add(ref xr, i + 1))
+                - Unsafe.Add(ref s, k) * (v - Unsafe.Add(ref xr, i - nx)) - Unsafe.Add(ref s, k + nx) * (v - Unsafe.Add(ref xr, i + nx));
+            Unsafe.Add(ref yr, i) = y;
+            dot += v * y;
+        }
+        for (int m = 0; m < _mergedUnknown.Length; m++)   // E^T: the region's rows summed at its first node; p back to its layout
+        {
+            int first = o + _mergedNodes[_mergedStart[m]];
+            double sum = q[first];
+            for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++)
+            {
+                int i = o + _mergedNodes[k];
+                sum += q[i];
+                q[i] = 0;
+                p[i] = 0;
+            }
+            q[first] = sum;
+        }
+        return dot;
+    }
+
+    /// <summary>Unknowns to <see cref="MultiplyOnLattice"/>'s layout on the padded lattice.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal void ToLattice(ReadOnlySpan<double> v, double[] lattice)
+    {
+        var map = _nodeUnknown;
+        int o = _fine.Pad;
+        Array.Clear(lattice);
+        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) lattice[o + p] = v[u]; }
+        for (int m = 0; m < _mergedUnknown.Length; m++)
+            for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) lattice[o + _mergedNodes[k]] = 0;
+    }
+
+    /// <summary>Back from <see cref="MultiplyOnLattice"/>'s layout to unknowns.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal void FromLattice(double[] lattice, Span<double> v)
+    {
+        var map = _nodeUnknown;
+        int o = _fine.Pad;
+        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) v[u] = lattice[o + p]; }
+        for (int m = 0; m < _mergedUnknown.Length; m++) v[_mergedUnknown[m]] = lattice[o + _mergedNodes[_mergedStart[m]]];
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r)
     {
         Multiply(x, r);

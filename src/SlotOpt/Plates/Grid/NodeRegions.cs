@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Geometry;
 
@@ -28,6 +29,7 @@ public sealed class NodeRegions
         MergedCount = isMerged.Count(m => m);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static NodeRegions Build(PlateGrid grid)
     {
         var l = grid.Lattice;

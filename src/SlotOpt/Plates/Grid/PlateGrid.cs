@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using SlotOpt.Plates.Geometry;
 
 namespace SlotOpt.Plates.Grid;
@@ -37,6 +38,7 @@ public sealed class PlateGrid
         Notes = notes;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static PlateGrid Build(PlateGeometry geometry, GridOptions? options = null)
     {
         options ??= new GridOptions();

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using SlotOpt.Plates.Geometry;
 
 namespace SlotOpt.Plates.Grid;
@@ -13,6 +14,7 @@ namespace SlotOpt.Plates.Grid;
 internal static class PolygonCoverage
 {
     /// <summary>Adds weight * (area of polygon in cell) / (cell area) to target[j * nx + i].</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static void Accumulate(Polygon polygon, CellLattice lattice, double weight, double[] target)
     {
         var (min, max) = polygon.Bounds;

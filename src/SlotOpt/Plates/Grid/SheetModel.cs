@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using System.Runtime.CompilerServices;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Geometry;
 
@@ -43,6 +44,7 @@ public sealed class SheetModel
     }
 
     /// <summary>Right-hand side b = -s of A psi = -s from node integrals s of dBz/dt; merged nodes add up (Faraday's law around the hole).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public double[] RightHandSide(double[] nodeIntegral)
     {
         var b = new double[Unknowns];
@@ -54,10 +56,10 @@ public sealed class SheetModel
 
     /// <summary>Solves A psi = b; psi holds the warm start on entry. False (with the report) when it does not converge.</summary>
     public bool TrySolve(double[] b, double[] psi, ConvergenceCriterion criterion, out SolveReport report) =>
-        ConjugateGradient.TrySolve(Multigrid.Operator, b, psi, Multigrid, criterion, out report);
+        Multigrid.TrySolve(b, psi, criterion, out report);
 
     public SolveReport Solve(double[] b, double[] psi, ConvergenceCriterion criterion) =>
-        ConjugateGradient.Solve(Multigrid.Operator, b, psi, Multigrid, criterion);
+        TrySolve(b, psi, criterion, out var report) ? report : throw new NumericalFailureException($"sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
 
     /// <summary>Loss at unit reference sheet conductance, P = psi^T A psi (W per S of reference conductance; instantaneous for this psi).</summary>
     public double LossPerSiemens(double[] psi)

@@ -98,8 +98,6 @@ public sealed class SheetOperator
         new($"stream-function unknown {unknown} has no conducting cell beside it; the plate is disconnected at grid scale: refine the grid");
 
     /// <summary>Edge resistance between cells (i1, j1) and (i2, j2); 0 (no edge) when either is missing or empty.</summary>
-    internal static double EdgeResistance(double[] g, CellLattice l, int i1, int j1, int i2, int j2, double aspect) => Resistance(g, l, i1, j1, i2, j2, aspect);
-
     private static double Resistance(double[] g, CellLattice l, int i1, int j1, int i2, int j2, double aspect)
     {
         if (i1 < 0 || j1 < 0 || i2 >= l.Nx || j2 >= l.Ny || i2 < 0 || j2 < 0 || i1 >= l.Nx || j1 >= l.Ny) return 0;

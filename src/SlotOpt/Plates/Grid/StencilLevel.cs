@@ -57,6 +57,7 @@ internal sealed class StencilLevel
     public void ReleaseCentre() => Centre = Array.Empty<double>();
 
     /// <summary>Call once the stencil is filled.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Complete()
     {
         InverseCentre = new double[Nodes];
@@ -129,7 +130,8 @@ internal sealed class StencilLevel
                 {
                     int q = o + p;
                     double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx);
-                    Unsafe.Add(ref x, q) = (rest - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)) * Unsafe.Add(ref c, p);
+                    double inverse = Unsafe.Add(ref c, p);
+                    Unsafe.Add(ref x, q) = Math.FusedMultiplyAdd(-Unsafe.Add(ref w, p) * inverse, Unsafe.Add(ref x, q - 1), rest * inverse);
                 }
             if (j > 0)
                 for (int p = (j - 1) * nx, end = p + nx; p < end; p++)
@@ -160,7 +162,8 @@ internal sealed class StencilLevel
                     int q = o + p;
                     double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx)
                                   - Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1) - Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
-                    Unsafe.Add(ref x, q) = (rest - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)) * Unsafe.Add(ref c, p);
+                    double inverse = Unsafe.Add(ref c, p);
+                    Unsafe.Add(ref x, q) = Math.FusedMultiplyAdd(-Unsafe.Add(ref w, p) * inverse, Unsafe.Add(ref x, q - 1), rest * inverse);
                 }
             if (j > 0)
                 for (int p = (j - 1) * nx, end = p + nx; p < end; p++)
@@ -172,8 +175,9 @@ internal sealed class StencilLevel
         }
     }
 
-    // The neighbour the sweep has just updated is subtracted last, so the independent terms overlap
-    // with the previous node's update instead of waiting for it.
+    // The neighbour the sweep has just updated enters last, through one fused multiply-add
+    // (x = rest / a_C - (a_W / a_C) x_prev), so the chain from node to node is one instruction long
+    // and the independent terms overlap with the previous node's update instead of waiting for it.
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void SmoothFiveBackward()
     {
@@ -188,7 +192,8 @@ internal sealed class StencilLevel
             int q = o + p;
             double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)
                           - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx);
-            Unsafe.Add(ref x, q) = (rest - Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1)) * Unsafe.Add(ref c, p);
+            double inverse = Unsafe.Add(ref c, p);
+            Unsafe.Add(ref x, q) = Math.FusedMultiplyAdd(-Unsafe.Add(ref w, p + 1) * inverse, Unsafe.Add(ref x, q + 1), rest * inverse);
         }
     }
 
@@ -206,11 +211,14 @@ internal sealed class StencilLevel
         for (int p = n - 1; p >= 0; p--)
         {
             int q = o + p;
-            double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)
-                          - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx)
-                          - Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1) - Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1)
-                          - Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1) - Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
-            Unsafe.Add(ref x, q) = (rest - Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1)) * Unsafe.Add(ref c, p);
+            // the rows below and above summed apart, so the additions do not wait on one another
+            double below = Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) + Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1)
+                           + Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
+            double above = Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx) + Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1)
+                           + Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
+            double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1) - (below + above);
+            double inverse = Unsafe.Add(ref c, p);
+            Unsafe.Add(ref x, q) = Math.FusedMultiplyAdd(-Unsafe.Add(ref w, p + 1) * inverse, Unsafe.Add(ref x, q + 1), rest * inverse);
         }
     }
 }

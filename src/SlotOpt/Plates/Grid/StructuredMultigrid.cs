@@ -1,4 +1,5 @@
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using SlotOpt.Numerics;
 
 namespace SlotOpt.Plates.Grid;
@@ -43,6 +44,8 @@ public sealed class StructuredMultigrid : IPreconditioner
     private readonly int[] _nodeUnknown;
     /// <summary>Nodes of merged regions, grouped by region: MergedNodes[MergedStart[m] .. MergedStart[m + 1]), region m is unknown MergedUnknown[m].</summary>
     private readonly int[] _mergedNodes, _mergedStart, _mergedUnknown;
+    /// <summary>The merged regions' residuals while <see cref="CycleInPlace"/> has them spread over their nodes.</summary>
+    private readonly double[] _mergedResidual;
 
     private StructuredMultigrid(StencilLevel[] levels, BandCholesky coarsest, bool coarsestColumnsFirst, int[] nodeUnknown, int[] mergedNodes, int[] mergedStart, int[] mergedUnknown, LatticeSheetOperator op)
     {
@@ -55,6 +58,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         _mergedNodes = mergedNodes;
         _mergedStart = mergedStart;
         _mergedUnknown = mergedUnknown;
+        _mergedResidual = new double[mergedUnknown.Length];
     }
 
     public int LevelCount => _levels.Length;
@@ -65,6 +69,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// <summary>Bytes held: stencils, transfer weights, level vectors, the coarsest factor and the region lists.</summary>
     public long Bytes => _levels.Sum(l => l.Bytes) + Operator.Bytes + _coarsest.Bytes + 8L * _coarsestVector.Length + 4L * (_mergedNodes.Length + _mergedStart.Length + _mergedUnknown.Length);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static StructuredMultigrid Build(PlateGrid grid, NodeRegions regions)
     {
         var (fine, outsideWeight) = FineLevel(grid, regions);
@@ -172,6 +177,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     }
 
     /// <summary>The levels below a filled finest level, down to the coarsest and its band Cholesky factor.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static (StencilLevel[] Levels, BandCholesky Coarsest, bool ColumnsFirst) Hierarchy(StencilLevel fine)
     {
         fine.Complete();
@@ -212,19 +218,26 @@ public sealed class StructuredMultigrid : IPreconditioner
     private static (StencilLevel Level, double[] OutsideWeight) FineLevel(PlateGrid grid, NodeRegions regions)
     {
         var l = grid.Lattice;
-        int nx = l.NodesX, ny = l.NodesY;
+        int nx = l.NodesX, ny = l.NodesY, cx = l.Nx, cy = l.Ny;
         var level = new StencilLevel(nx, ny, ninePoint: false);
         var map = regions.NodeUnknown;
         double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
+        var c = level.Centre; var w = level.West; var s = level.South;
+        // 1 / g per cell (0 for an empty cell), then each edge's resistance (as SheetOperator's) into w and s until the couplings replace it
+        var g = grid.Conductance;
+        var inverse = new double[g.Length];
+        for (int k = 0; k < g.Length; k++) inverse[k] = g[k] == 0 ? 0 : 1 / g[k];
         double largest = 0;
         for (int j = 0; j < ny; j++)
             for (int i = 0; i < nx; i++)
             {
-                if (i > 0) largest = Math.Max(largest, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i - 1, j, rx));
-                if (j > 0) largest = Math.Max(largest, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i, j - 1, ry));
+                int p = j * nx + i;
+                // edge (i - 1, j)-(i, j) between cells (i - 1, j - 1) and (i - 1, j); edge (i, j - 1)-(i, j) between cells (i - 1, j - 1) and (i, j - 1)
+                w[p] = i > 0 && j > 0 && j < cy ? Resistance(inverse[(j - 1) * cx + i - 1], inverse[j * cx + i - 1], rx) : 0;
+                s[p] = j > 0 && i > 0 && i < cx ? Resistance(inverse[(j - 1) * cx + i - 1], inverse[(j - 1) * cx + i], ry) : 0;
+                largest = Math.Max(largest, Math.Max(w[p], s[p]));
             }
         double glue = GlueFactor * largest;
-        var c = level.Centre; var w = level.West; var s = level.South;
         var outside = new double[nx * ny];
         if (regions.UnknownCount == 0) throw SheetOperator.NoFreeNode();
         var diagonal = new double[regions.UnknownCount];   // A's diagonal, to refuse an unknown with no conducting cell beside it
@@ -233,26 +246,31 @@ public sealed class StructuredMultigrid : IPreconditioner
             {
                 int p = j * nx + i;
                 if (map[p] < 0) c[p] += 1;   // outside: identity row
-                if (i > 0) Couple(p - 1, p, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i - 1, j, rx), w);
-                if (j > 0) Couple(p - nx, p, SheetOperator.EdgeResistance(grid.Conductance, l, i - 1, j - 1, i, j - 1, ry), s);
+                if (i > 0) w[p] = Couple(p - 1, p, w[p]);
+                if (j > 0) s[p] = Couple(p - nx, p, s[p]);
             }
         for (int u = 0; u < diagonal.Length; u++) if (!(diagonal[u] > 0)) throw SheetOperator.NoConductingCellBeside(u);
         return (level, outside);
 
-        // the edge between nodes a and p (p the stored side) with conductance r in the sheet operator
-        void Couple(int a, int p, double r, double[] store)
+        // the edge between nodes a and p (p the stored side) with conductance r in the sheet operator: adds to the diagonals, returns the stored coupling
+        double Couple(int a, int p, double r)
         {
             int ua = map[a], up = map[p];
-            if (ua < 0 && up < 0) return;
-            if (ua == up) { store[p] = -glue; c[a] += glue; c[p] += glue; return; }
-            if (r == 0) return;
+            if (ua < 0 && up < 0) return 0;
+            if (ua == up) { c[a] += glue; c[p] += glue; return -glue; }
+            if (r == 0) return 0;
             if (ua >= 0) { c[a] += r; diagonal[ua] += r; }
             if (up >= 0) { c[p] += r; diagonal[up] += r; }
-            if (ua >= 0 && up >= 0) store[p] = -r;
-            else if (ua >= 0) outside[a] += r;
+            if (ua >= 0 && up >= 0) return -r;
+            if (ua >= 0) outside[a] += r;
             else outside[p] += r;
+            return 0;
         }
     }
+
+    /// <summary>Edge resistance from the inverse conductances of the two cells beside it, as SheetOperator: aspect (1/g1 + 1/g2) / 2; 0 when either cell is empty.</summary>
+    private static double Resistance(double inverse1, double inverse2, double aspect) =>
+        inverse1 == 0 || inverse2 == 0 ? 0 : aspect * 0.5 * (inverse1 + inverse2);
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Apply(ReadOnlySpan<double> r, Span<double> z)
@@ -278,6 +296,47 @@ public sealed class StructuredMultigrid : IPreconditioner
         }
     }
 
+    /// <summary>The finest level, whose right-hand side and iterate <see cref="CycleInPlace"/> uses (the lattice conjugate gradients' r and z).</summary>
+    internal StencilLevel Finest => _levels[0];
+
+    /// <summary>
+    /// z = Q^T V Q r on the lattice in <see cref="LatticeConjugateGradient"/>'s layout: r in the finest level's right-hand side, z into
+    /// its iterate. A merged region's residual is spread evenly over its nodes for the cycle and put back after; its value in z is the
+    /// mean over its nodes, at its first node, 0 at the others.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal void CycleInPlace()
+    {
+        var top = _levels[0];
+        var b = top.B;
+        int o = top.Pad;
+        var kept = _mergedResidual;
+        for (int m = 0; m < _mergedUnknown.Length; m++)
+        {
+            int first = o + _mergedNodes[_mergedStart[m]];
+            kept[m] = b[first];
+            double share = kept[m] / (_mergedStart[m + 1] - _mergedStart[m]);
+            for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) b[o + _mergedNodes[q]] = share;
+        }
+        Cycle(0);
+        var x = top.X;
+        for (int m = 0; m < _mergedUnknown.Length; m++)
+        {
+            double sum = 0;
+            for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) { int i = o + _mergedNodes[q]; sum += x[i]; x[i] = 0; b[i] = 0; }
+            int first = o + _mergedNodes[_mergedStart[m]];
+            x[first] = sum / (_mergedStart[m + 1] - _mergedStart[m]);
+            b[first] = kept[m];
+        }
+    }
+
+    /// <summary>Solves A psi = b by conjugate gradients on the lattice with this V-cycle (see <see cref="LatticeConjugateGradient"/>); psi holds the warm start.</summary>
+    public bool TrySolve(ReadOnlySpan<double> b, Span<double> psi, ConvergenceCriterion criterion, out SolveReport report)
+    {
+        if (b.Length != Operator.Rows || psi.Length != Operator.Rows) throw new ArgumentException("one value per unknown", nameof(b));
+        return LatticeConjugateGradient.TrySolve(this, b, psi, criterion, out report);
+    }
+
     private void Cycle(int k)
     {
         var level = _levels[k];
@@ -294,6 +353,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         level.SmoothBackward();
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void SolveCoarsest(StencilLevel level)
     {
         var v = _coarsestVector;
@@ -311,40 +371,71 @@ public sealed class StructuredMultigrid : IPreconditioner
         }
     }
 
-    /// <summary>b_c = P^T r_f: each coarse node gathers the residual of the up to 9 fine nodes its basis function covers.</summary>
+    /// <summary>
+    /// b_c = P^T r_f: each coarse node gathers the residual of the up to 9 fine nodes its basis function covers. Coarse nodes
+    /// whose 9 fine nodes all lie on the lattice take a loop without tests; the lattice's edges take <see cref="RestrictAtEdge"/>
+    /// (same terms, same grouping).
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Restrict(StencilLevel f, StencilLevel c)
     {
-        var r = f.R; var b = c.B;
         int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, ncy = c.Ny, fo = f.Pad, co = c.Pad;
-        var xl = c.XLow!; var xh = c.XHigh!; var yl = c.YLow!; var yh = c.YHigh!;
-        var sw = c.CentreSW!; var se = c.CentreSE!; var nw = c.CentreNW!; var ne = c.CentreNE!;
+        ref double r = ref MemoryMarshal.GetArrayDataReference(f.R);
+        ref double b = ref MemoryMarshal.GetArrayDataReference(c.B);
+        ref float xl = ref MemoryMarshal.GetArrayDataReference(c.XLow!); ref float xh = ref MemoryMarshal.GetArrayDataReference(c.XHigh!);
+        ref float yl = ref MemoryMarshal.GetArrayDataReference(c.YLow!); ref float yh = ref MemoryMarshal.GetArrayDataReference(c.YHigh!);
+        ref float sw = ref MemoryMarshal.GetArrayDataReference(c.CentreSW!); ref float se = ref MemoryMarshal.GetArrayDataReference(c.CentreSE!);
+        ref float nw = ref MemoryMarshal.GetArrayDataReference(c.CentreNW!); ref float ne = ref MemoryMarshal.GetArrayDataReference(c.CentreNE!);
+        int lastInner = (fnx - 2) / 2;   // the last coarse column with a fine column on its right
         for (int J = 0; J < ncy; J++)
         {
-            int j = 2 * J;
-            bool up = j + 1 < fny, down = J > 0;
-            for (int I = 0; I < ncx; I++)
+            if (J == 0 || 2 * J + 1 >= fny)
             {
-                int i = 2 * I, k = J * ncx + I, q = fo + j * fnx + i;
-                bool right = i + 1 < fnx, left = I > 0;
-                double v = r[q];
-                if (right) v += xl[k] * r[q + 1];
-                if (left) v += xh[k - 1] * r[q - 1];
-                if (up)
-                {
-                    v += yl[k] * r[q + fnx];
-                    if (right) v += sw[k] * r[q + fnx + 1];
-                    if (left) v += se[k - 1] * r[q + fnx - 1];
-                }
-                if (down)
-                {
-                    v += yh[k - ncx] * r[q - fnx];
-                    if (right) v += nw[k - ncx] * r[q - fnx + 1];
-                    if (left) v += ne[k - ncx - 1] * r[q - fnx - 1];
-                }
-                b[co + k] = v;
+                for (int I = 0; I < ncx; I++) RestrictAtEdge(f, c, I, J);
+                continue;
             }
+            RestrictAtEdge(f, c, 0, J);
+            for (int I = 1; I <= lastInner; I++)
+            {
+                int k = J * ncx + I, q = fo + 2 * J * fnx + 2 * I;
+                // three rows summed apart, so the additions do not wait on one another
+                double middle = Unsafe.Add(ref r, q) + Unsafe.Add(ref xl, k) * Unsafe.Add(ref r, q + 1) + Unsafe.Add(ref xh, k - 1) * Unsafe.Add(ref r, q - 1);
+                double above = Unsafe.Add(ref yl, k) * Unsafe.Add(ref r, q + fnx) + Unsafe.Add(ref sw, k) * Unsafe.Add(ref r, q + fnx + 1)
+                               + Unsafe.Add(ref se, k - 1) * Unsafe.Add(ref r, q + fnx - 1);
+                double below = Unsafe.Add(ref yh, k - ncx) * Unsafe.Add(ref r, q - fnx) + Unsafe.Add(ref nw, k - ncx) * Unsafe.Add(ref r, q - fnx + 1)
+                               + Unsafe.Add(ref ne, k - ncx - 1) * Unsafe.Add(ref r, q - fnx - 1);
+                double v = middle + above + below;
+                Unsafe.Add(ref b, co + k) = v;
+            }
+            for (int I = lastInner + 1; I < ncx; I++) RestrictAtEdge(f, c, I, J);
         }
+    }
+
+    /// <summary>One coarse node of <see cref="Restrict"/>, testing which of its fine neighbours lie on the lattice.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void RestrictAtEdge(StencilLevel f, StencilLevel c, int I, int J)
+    {
+        var r = f.R;
+        int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, fo = f.Pad;
+        int i = 2 * I, j = 2 * J, k = J * ncx + I, q = fo + j * fnx + i;
+        bool up = j + 1 < fny, down = J > 0, right = i + 1 < fnx, left = I > 0;
+        double middle = r[q], above = 0, below = 0;   // grouped as in the loop without tests
+        if (right) middle += c.XLow![k] * r[q + 1];
+        if (left) middle += c.XHigh![k - 1] * r[q - 1];
+        if (up)
+        {
+            above = c.YLow![k] * r[q + fnx];
+            if (right) above += c.CentreSW![k] * r[q + fnx + 1];
+            if (left) above += c.CentreSE![k - 1] * r[q + fnx - 1];
+        }
+        if (down)
+        {
+            below = c.YHigh![k - ncx] * r[q - fnx];
+            if (right) below += c.CentreNW![k - ncx] * r[q - fnx + 1];
+            if (left) below += c.CentreNE![k - ncx - 1] * r[q - fnx - 1];
+        }
+        double v = middle + above + below;
+        c.B[c.Pad + k] = v;
     }
 
     /// <summary>x_f += P x_c, row by row of the fine lattice.</summary>
@@ -377,7 +468,7 @@ public sealed class StructuredMultigrid : IPreconditioner
                     int k = k0 + I;
                     double a = xc[co + k], b = xc[co + k + 1], d = xc[co + k + ncx], e = xc[co + k + ncx + 1];
                     xf[row + 2 * I] += yl[k] * a + yh[k] * d;
-                    xf[row + 2 * I + 1] += sw[k] * a + se[k] * b + nw[k] * d + ne[k] * e;
+                    xf[row + 2 * I + 1] += (sw[k] * a + se[k] * b) + (nw[k] * d + ne[k] * e);
                 }
                 if ((fnx & 1) == 1) { int k = k0 + pairs; xf[row + fnx - 1] += yl[k] * xc[co + k] + yh[k] * xc[co + k + ncx]; }
             }
