@@ -104,44 +104,10 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// <summary>
     /// The V-cycle for any symmetric positive definite matrix whose unknowns sit one to a node of a nodesX x nodesY lattice
     /// and couple only to their 4 lattice neighbours (a 5-point stencil), such as the plate's temperature operator
-    /// (Plates/Thermal: conduction plus a positive diagonal). Nodes without an unknown (nodeUnknown -1: no metal, or held at
-    /// a given value) are identity rows, as the outside of the sheet operator; no merged regions. Its <see cref="Operator"/>
-    /// applies the same matrix on the lattice.
-    /// </summary>
-    public static StructuredMultigrid ForNodeMatrix(CsrMatrix matrix, int nodesX, int nodesY, int[] nodeUnknown)
-    {
-        if (nodeUnknown.Length != nodesX * nodesY) throw new ArgumentException("one entry per lattice node", nameof(nodeUnknown));
-        if (matrix.Rows == 0) throw SheetOperator.NoFreeNode();
-        var fine = new StencilLevel(nodesX, nodesY, ninePoint: false);
-        var node = new int[matrix.Rows];
-        for (int p = 0; p < nodeUnknown.Length; p++) if (nodeUnknown[p] >= 0) node[nodeUnknown[p]] = p;
-        var rowSum = new double[nodeUnknown.Length];   // the diagonal part no coupling carries, as the operator's outside weight
-        for (int p = 0; p < nodeUnknown.Length; p++)
-        {
-            int u = nodeUnknown[p];
-            if (u < 0) { fine.Centre[p] = 1; continue; }
-            for (int k = matrix.RowStart[u]; k < matrix.RowStart[u + 1]; k++)
-            {
-                int q = node[matrix.ColumnIndex[k]];
-                double a = matrix.Value[k];
-                rowSum[p] += a;
-                if (q == p) fine.Centre[p] = a;
-                else if (q == p - 1 && p % nodesX != 0) fine.West[p] = a;
-                else if (q == p - nodesX) fine.South[p] = a;
-                else if (!(q == p + 1 && q % nodesX != 0) && q != p + nodesX)
-                    throw new ArgumentException($"unknown {u} couples to a node that is not its lattice neighbour", nameof(matrix));
-            }
-            if (!(fine.Centre[p] > 0)) throw new ArgumentException($"unknown {u} has no positive diagonal", nameof(matrix));
-        }
-        var (levels, coarsest, columnsFirst) = Hierarchy(fine);
-        var op = new LatticeSheetOperator(fine, rowSum, matrix.Rows, nodeUnknown, [], [0], []);
-        return new StructuredMultigrid(levels, coarsest, columnsFirst, nodeUnknown, [], [0], [], op);
-    }
-
-    /// <summary>
-    /// As <see cref="ForNodeMatrix"/>, from the 5-point stencil itself instead of a sparse matrix: the entry between node p and
+    /// (Plates/Thermal: conduction plus a positive diagonal), built from the stencil itself: the entry between node p and
     /// p - 1 is -scale westConductance[p], between p and p - nodesX -scale southConductance[p] (0 unless both nodes carry
-    /// unknowns; arrays of at least nodesX nodesY + nodesX + 1 entries), the diagonal by unknown.
+    /// unknowns; arrays of at least nodesX nodesY + nodesX + 1 entries), the diagonal by unknown. Nodes without an unknown
+    /// (no metal, or held at a given value) are identity rows; no merged regions. Its <see cref="Operator"/> applies the same matrix.
     /// </summary>
     public static StructuredMultigrid ForNodeStencil(int nodesX, int nodesY, int[] nodeUnknown, double[] westConductance, double[] southConductance,
         double conductanceScale, double[] diagonal)
