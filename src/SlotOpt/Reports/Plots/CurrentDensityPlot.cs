@@ -54,7 +54,9 @@ public static class CurrentDensityPlot
             plots.Add(plot);
         }
         var moving = part.Excitation.IsMoving;
-        var caption = (moving
+        var caption = (part.Excitation is PlateExcitation.Turning
+                ? "The instantaneous current density at the disc angle with the largest loss (the disc turns under fixed magnets). "
+                : moving
                 ? "The instantaneous current density at the travel position with the largest loss (the poles move along x). "
                 : "The amplitude of the current density in the AC field. ")
             + (panels.Count > 1 ? "Both plates share the sheet (thickness and alloy) and one colour scale, so the colours compare directly; " : "")
