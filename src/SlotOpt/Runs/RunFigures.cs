@@ -39,7 +39,7 @@ public sealed record RunFigures(
                 case PlatePart plate when chosen is not null:
                     currentDensity.Add(CurrentDensityMaps.Of(parts[i], chosen[i], problem, limits));
                     if (plate.Excitation.IsMoving) dragSpeed.Add(DragSpeedLines.Of(parts[i], chosen[i], problem));
-                    if (plate.Excitation is PlateExcitation.Turning) torqueSpeed.Add(TorqueSpeedLines.Of(parts[i], chosen[i], problem));
+                    if (plate.Excitation is PlateExcitation.Turning) torqueSpeed.Add(TorqueSpeedLines.Of(parts[i], chosen[i], problem, limits));
                     if (TemperatureMaps.Of(plate.Name, heat) is { } maps) temperature.Add(maps);
                     break;
             }

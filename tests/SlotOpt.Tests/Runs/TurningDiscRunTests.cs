@@ -108,6 +108,26 @@ public class TurningDiscRunTests(Xunit.Abstractions.ITestOutputHelper output)
         }
     }
 
+    // The report's torque against speed comes from the same seam as the ranking (TurningDiscModel): resistance-limited, the torque is
+    // proportional to speed, T(n) = T(n0) n / n0 (Faraday's law is linear in omega, T = P / omega; common practice, no source), so every
+    // point of the chosen line over its speed equals the chosen option's torque over the run's speed. Tolerance 1e-12 relative (rounding).
+    [Fact]
+    public void Torque_against_speed_passes_through_the_chosen_option_and_is_linear_in_the_resistance_limited_model()
+    {
+        var r = Run.Value;
+        var lines = r.Figures.TorqueSpeedOf("brake disc");
+        var chosen = lines.Lines.Single(l => l.Role == DesignRole.Chosen);
+        Assert.Equal(r.Chosen![0].Id, chosen.Option.Id);
+        Assert.Equal(TorqueSpeedLines.Samples, chosen.Points.Count);
+        Assert.Null(chosen.PeakRpm);                                                        // the resistance-limited line has no peak
+        foreach (var p in chosen.Points.Where(p => p.Rpm > 0))
+        {
+            Assert.Equal(1, p.TorqueNm / p.Rpm / (chosen.Option.TorqueNm!.Value / RunRpm), 1e-12);
+            Assert.Equal("resistance-limited", p.Model);
+        }
+        Assert.True(lines.MaxRpm >= 1.25 * NamedRpm);                                       // the plot reaches the min_torque's speed
+    }
+
     private static string PlateFile(PlateChoice choice, double sigma)
     {
         var ci = CultureInfo.InvariantCulture;

@@ -12,15 +12,19 @@ public sealed record DiscNumber(OptionModel Model, double LossW, double TorqueNm
 /// unit-conductance loss scaled by G = sigma t (one solve per geometry serves every thickness and material), torque T = P / omega (power
 /// balance of a steady rotation). Its validity is that of a slide at the magnets' path speed v = omega r (Rm = mu0 sigma t v / 2,
 /// <see cref="ReactionModelChoice.ForMoving"/>); where that calls for the disc's own field, the model's reason says torque and loss are
-/// overstated. An own-field disc model replaces the body of <see cref="Evaluate"/> alone.
+/// overstated. At another speed n the resistance-limited loss scales as (n / n0)^2 (Faraday's law is linear in omega) and the torque as n / n0.
+/// An own-field disc model replaces the body of <see cref="Evaluate"/> alone.
 /// </summary>
 public static class TurningDiscModel
 {
-    public static DiscNumber Evaluate(PlatePart part, PlateOptions.SolvedGeometry solved, ConductingSheet sheet)
+    /// <param name="rpm">The disc's speed (null: the source's own); positive.</param>
+    public static DiscNumber Evaluate(PlatePart part, PlateOptions.SolvedGeometry solved, ConductingSheet sheet, double? rpm = null)
     {
-        var turning = part.Excitation as PlateExcitation.Turning ?? throw new InvalidOperationException($"part {part.Name} is not a turning disc");
+        var atSource = part.Excitation as PlateExcitation.Turning ?? throw new InvalidOperationException($"part {part.Name} is not a turning disc");
+        var turning = rpm is { } n && n != atSource.Rpm ? atSource with { Source = atSource.Source.AtSpeed(n * 2 * Math.PI / 60) } : atSource;
         var wanted = ValidityOf(turning, sheet);
-        var lossW = solved.LossPerSiemensW * sheet.SheetConductanceS;
+        var ratio = turning.AngularSpeedRadPerS / atSource.AngularSpeedRadPerS;
+        var lossW = solved.LossPerSiemensW * sheet.SheetConductanceS * (ratio == 1 ? 1 : ratio * ratio);          // P ~ omega^2
         var reason = wanted.Kind == SheetModelKind.ResistanceLimited
             ? "resistance-limited at the magnets' path speed: " + wanted.Reason
             : $"resistance-limited (the only turning-disc model here), though at the magnets' path speed its validity calls for {ReactionModelChoice.Name(wanted.Kind)} ({wanted.Reason}): torque and loss are overstated";
