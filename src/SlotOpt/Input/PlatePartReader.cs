@@ -23,8 +23,9 @@ public static class PlatePartReader
     {
         var name = s.RequiredString("name");
         s.OptionalString("kind");
-        var disc = s.OptionalChoice("shape", ["rectangle", "disc"]) == "disc" ? DiscReader.Read(s) : null;
-        var outline = s.OptionalString("shape") == "disc" ? disc?.Outline : ReadOutline(s);
+        var isDisc = s.OptionalChoice("shape", ["rectangle", "disc"]) == "disc";
+        var disc = isDisc ? DiscReader.Read(s) : null;
+        var outline = isDisc ? disc?.Outline : ReadOutline(s);
         var thicknesses = s.QuantityList("thicknesses", QuantityKind.Length, required: true);
         if (thicknesses is not null)
             foreach (var t in thicknesses.Where(t => !(t > 0))) s.Error("thicknesses", $"a thickness must be positive, got {t} m");
@@ -191,17 +192,19 @@ public static class PlatePartReader
         var process = s.OptionalString("process") ?? "laser";
         if (!shop.Processes.ContainsKey(process)) s.Error("process", $"unknown process \"{process}\"{NameSuggestion.DidYouMean(process, shop.Processes.Keys)}");
         SlotChoice? slots = null;
-        if (s.OptionalTable("slots") is { } slotTable && slotTable.OptionalString("pattern") == "radial")
+        if (s.OptionalTable("slots") is { } slotTable)
         {
-            var table = DiscReader.ReadKeys(slotTable, disc, oneValueEach: true, shapeTable: "the part's");
+            if (slotTable.OptionalString("pattern") == "radial")
+            {
+                var table = DiscReader.ReadKeys(slotTable, disc, oneValueEach: true, shapeTable: "the part's");
+                if (disc is not null && table is not null && DiscReader.Check(slotTable, disc, table) is [var radial]) slots = SlotChoice.RadialOn(disc, radial.Ring, radial.WidthM);
+            }
+            else
+            {
+                if (disc is not null) slotTable.Error("pattern", "a disc takes radial slots: pattern = \"radial\"");
+                slots = SlotTableReader.Read(slotTable, outline, oneValueEach: true)?.Single;
+            }
             slotTable.RejectUnknownKeys();
-            if (disc is not null && table is not null && DiscReader.Check(slotTable, disc, table) is [var radial]) slots = SlotChoice.RadialOn(disc, radial.Ring, radial.WidthM);
-        }
-        else if (s.OptionalTable("slots") is { } slotTable2)
-        {
-            if (disc is not null) slotTable2.Error("pattern", "a disc takes radial slots: pattern = \"radial\"");
-            slots = SlotTableReader.Read(slotTable2, outline, oneValueEach: true)?.Single;
-            slotTable2.RejectUnknownKeys();
         }
         s.RejectUnknownKeys();
         return thickness is null || material is null ? null : new PlateChoice(thickness.Value, library.TryGetConductor(material, out var c) ? c.Name : material, process, slots);
