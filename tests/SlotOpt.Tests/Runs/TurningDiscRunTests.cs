@@ -128,6 +128,18 @@ public class TurningDiscRunTests(Xunit.Abstractions.ITestOutputHelper output)
         Assert.True(lines.MaxRpm >= 1.25 * NamedRpm);                                       // the plot reaches the min_torque's speed
     }
 
+    // The report draws the line the run computed (reports never solve): one torque-speed figure for the disc, rendered through PlotChecks
+    // (legend clear of the data, axes with units: it throws otherwise), its speed axis in rpm.
+    [Fact]
+    public void The_report_draws_braking_torque_against_speed_for_the_disc()
+    {
+        var figures = SlotOpt.Reports.Plots.ReportFigures.Of(Run.Value);
+        var figure = Assert.Single(figures.All, f => f.FileStem.StartsWith("torque-speed-1-", StringComparison.Ordinal));
+        Assert.NotEmpty(figure.Png);
+        Assert.Contains("disc speed (rpm)", figure.Svg);
+        Assert.Contains("braking torque (N m)", figure.Svg);
+    }
+
     private static string PlateFile(PlateChoice choice, double sigma)
     {
         var ci = CultureInfo.InvariantCulture;
