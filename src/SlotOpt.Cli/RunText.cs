@@ -42,10 +42,12 @@ public static class RunText
             var reference = r.Parts[i].Reference;
             o.WriteLine($"  {chosen.PartName}");
             o.WriteLine(string.Create(ci, $"    chosen:  {chosen.Description}"));
-            o.WriteLine($"             loss {Numbers.Watts(chosen.Loss.TotalW)}{Drag(chosen.DragN)}, build cost {Numbers.Money(chosen.BuildCost, cur)}");
+            o.WriteLine($"             loss {Numbers.Watts(chosen.Loss.TotalW)}{Torque(chosen.TorqueNm)}{Drag(chosen.DragN)}, build cost {Numbers.Money(chosen.BuildCost, cur)}");
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
-            o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Drag(reference.DragN)}{(reference.Model is { } model ? $" ({model.Name} model)" : "")}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
+            o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Torque(reference.TorqueNm)}{Drag(reference.DragN)}{(reference.Model is { } model ? $" ({model.Name} model)" : "")}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {ReportContent.ConfirmationText(confirmed)}");
+            if (r.Confirmation(chosen.PartName)?.MinimumTorque is { } minimumTorque)
+                o.WriteLine(string.Create(ci, $"    minimum torque: {Numbers.Of(minimumTorque.TorqueNm, "N m")} at {minimumTorque.Rpm:0.##} rpm ({ReactionModelChoice.Name(minimumTorque.Model)}) {(minimumTorque.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Of(minimumTorque.RequiredNm, "N m")}"));
             if (r.Confirmation(chosen.PartName)?.MinimumDrag is { } minimum)
                 o.WriteLine($"    minimum drag: {Numbers.Newtons(minimum.DragN)} at {Numbers.Of(minimum.SpeedMPerS, "m/s")} ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Newtons(minimum.RequiredN)}");
             foreach (var role in new[] { DesignRole.Chosen, DesignRole.Reference })
@@ -84,4 +86,6 @@ public static class RunText
     }
 
     private static string Drag(double? dragN) => dragN is { } d ? $", drag {Numbers.Newtons(d)}" : "";
+
+    private static string Torque(double? torqueNm) => torqueNm is { } t ? $", braking torque {Numbers.Of(t, "N m")}" : "";
 }

@@ -24,6 +24,9 @@ public sealed record EvaluatedOption(
 
     /// <summary>Plates: the model that gave the loss and drag (null for cores).</summary>
     public OptionModel? Model { get; init; }
+
+    /// <summary>Turning discs: the mean braking torque (N m); DragN is then the tangential force at the magnets' radius, torque over that radius.</summary>
+    public double? TorqueNm { get; init; }
 }
 
 /// <summary>

@@ -27,6 +27,10 @@ public enum RuleKind
     GrainOrientedAcrossRollingDirection,
     /// <summary>The plate's hottest point above the part's temperature limit ([parts.thermal]).</summary>
     HotterThanLimit,
+    /// <summary>Braking torque on a turning disc above the part's limit (max_torque: the torque is unwanted).</summary>
+    TorqueAboveLimit,
+    /// <summary>Braking torque on a turning disc below the part's minimum at its named speed (min_torque: the torque is wanted).</summary>
+    TorqueBelowMinimum,
 }
 
 /// <summary>Why an option was rejected: the rule it breaks (a kind) and the reason with its numbers (a message).</summary>
@@ -49,6 +53,8 @@ public sealed record RuleBreak(RuleKind Kind, string Message)
         RuleKind.PatternDoesNotFit => "slot pattern does not fit the plate",
         RuleKind.GrainOrientedAcrossRollingDirection => "grain-oriented steel across its rolling direction",
         RuleKind.HotterThanLimit => "hotter than the part's limit",
+        RuleKind.TorqueAboveLimit => "torque above the part's limit",
+        RuleKind.TorqueBelowMinimum => "torque below the part's minimum",
         _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "unknown rule kind"),
     };
 

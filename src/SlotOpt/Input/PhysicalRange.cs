@@ -27,6 +27,7 @@ public static class PhysicalRange
         QuantityKind.Power => (1e12, 0),
         QuantityKind.Force => (1e12, 0),
         QuantityKind.Pressure => (1e13, 0),
+        QuantityKind.Torque => (1e12, 0),
         _ => null,
     };
 

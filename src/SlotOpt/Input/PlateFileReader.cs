@@ -98,26 +98,15 @@ public static class PlateFileReader
         return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Source, offsets, over, thermal);
     }
 
-    /// <summary>A disc plate's centre and rim radius.</summary>
-    private sealed record Disc(Vec2 Centre, double RadiusM, double BoreRadiusM);
-
-    private static (PlateGeometry?, ConductingSheet?, Disc?) ReadPlate(TomlSection t)
+    private static (PlateGeometry?, ConductingSheet?, DiscShape?) ReadPlate(TomlSection t)
     {
         PlateGeometry? geometry = null;
-        Disc? disc = null;
+        DiscShape? disc = null;
         var shape = t.OptionalChoice("shape", ["rectangle", "disc"]) ?? "rectangle";
         if (shape == "disc")
         {
-            if (t.Has("outline") || t.Has("width") || t.Has("height")) t.Error("shape", "a disc is given by its diameter (and bore), not by outline, width or height");
-            var diameter = t.PositiveQuantity("diameter", QuantityKind.Length, required: true);
-            var bore = t.PositiveQuantity("bore", QuantityKind.Length, required: false);
-            if (diameter is { } d && bore >= d) t.Error("bore", "must be smaller than the diameter");
-            else if (diameter is { } dd)
-            {
-                disc = new Disc(new Vec2(dd / 2, dd / 2), dd / 2, (bore ?? 0) / 2);
-                geometry = new PlateGeometry(Polygon.Circle(disc.Centre, disc.RadiusM));
-                if (bore is { } b) geometry.AddCutout(Polygon.Circle(disc.Centre, b / 2));
-            }
+            disc = DiscReader.Read(t);
+            geometry = disc?.Geometry();
         }
         else if (t.Has("outline"))
         {
@@ -192,7 +181,7 @@ public static class PlateFileReader
     }
 
     /// <returns>The number of radial slots read (0 for any other pattern).</returns>
-    private static int ReadSlots(TomlSection t, PlateGeometry geometry, Disc? disc)
+    private static int ReadSlots(TomlSection t, PlateGeometry geometry, DiscShape? disc)
     {
         if (t.OptionalString("pattern") == "radial") return ReadRadialSlots(t, geometry, disc);
         var table = SlotTableReader.Read(t, geometry.Outline, oneValueEach: true);
@@ -204,36 +193,14 @@ public static class PlateFileReader
         return 0;
     }
 
-    /// <summary>
-    /// count radial slots of width evenly round a disc, from the inner radius ("from") to the outer ("to"; default through the rim, an open
-    /// slot), the first along +x: they cut the current loops a ring of magnets drives round the disc.
-    /// </summary>
-    private static int ReadRadialSlots(TomlSection t, PlateGeometry geometry, Disc? disc)
+    /// <summary>Radial slots round a disc (<see cref="DiscReader"/>, one value each): they cut the current loops a ring of magnets drives round the disc.</summary>
+    private static int ReadRadialSlots(TomlSection t, PlateGeometry geometry, DiscShape? disc)
     {
-        if (disc is null) t.Error("pattern", "\"radial\" slots need a disc: [plate] shape = \"disc\"");
-        var count = t.OptionalInteger("count", 1, 720);
-        if (count is null && !t.Has("count")) t.Error("count", "missing: the number of radial slots");
-        var width = t.PositiveQuantity("width", QuantityKind.Length, required: true);
-        var from = t.PositiveQuantity("from", QuantityKind.Length, required: true);
-        var to = t.PositiveQuantity("to", QuantityKind.Length, required: false);
+        var table = DiscReader.ReadKeys(t, disc, oneValueEach: true);
         t.RejectUnknownKeys();
-        if (disc is null || count is null || width is null || from is null) return 0;
-        double outer = to ?? disc.RadiusM + width.Value;                                      // through the rim: past it by a slot width
-        if (!(outer > from)) { t.Error("to", "must be larger than from"); return 0; }
-        if (from >= disc.RadiusM) { t.Error("from", "starts the slots beyond the disc's rim"); return 0; }
-        if (count.Value * width.Value >= 2 * Math.PI * from.Value) { t.Error("width", $"{count} slots of this width do not fit round the inner radius"); return 0; }
-        var slots = Enumerable.Range(0, (int)count.Value).Select(k =>
-        {
-            double a = 2 * Math.PI * k / count.Value;
-            var u = new Vec2(Math.Cos(a), Math.Sin(a));
-            return new Slot(disc.Centre + from.Value * u, disc.Centre + outer * u, width.Value);
-        }).ToList();
-        double pitchAtInner = 2 * Math.PI * from.Value / count.Value;
-        if (from <= disc.BoreRadiusM) { t.Error("from", "starts the slots inside the bore: leave a ligament between them"); return 0; }
-        double ligament = to is null ? from.Value - disc.BoreRadiusM : Math.Min(from.Value - disc.BoreRadiusM, disc.RadiusM - outer);   // uncut ring inside (and outside) the slots
-        if (to is { } o && o >= disc.RadiusM) ligament = from.Value - disc.BoreRadiusM;
-        geometry.AddPattern(new SlotPattern(slots, [], pitchAtInner, pitchAtInner - width.Value, ligament));
-        return (int)count.Value;
+        if (disc is null || table is null || DiscReader.Check(t, disc, table) is not [var slots]) return 0;
+        geometry.AddPattern(disc.Cut(slots.Ring, slots.WidthM));
+        return slots.Ring.Count;
     }
 
     private static void ReadCut(TomlSection t, PlateGeometry geometry)

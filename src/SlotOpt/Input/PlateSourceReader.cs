@@ -16,12 +16,15 @@ namespace SlotOpt.Input;
 /// plate: shape = "cuboid" with length along the travel and width across | "cylinder" with diameter; height (the
 /// magnetised direction), remanence, gap from the magnets' face to the plate's near surface; speed; x, y of the
 /// first magnet's centre at offset 0, default the row centred on the plate; count, pitch (centre to centre),
-/// polarity = "alternating" (default) | "same"; positions; average). Shared by problem files and plate files.
+/// polarity = "alternating" (default) | "same"; positions; average). Shared by problem files and plate files. A disc part of a problem
+/// file turns under its magnets: motion = "rotation" with the keys of <see cref="MagnetSourceReader.Rotation"/> (radius, rotation_speed in
+/// rpm, count, pitch, polarity, gap, positions: disc angles over one slot pitch, default 1 for a solid disc and 8 for a slotted one).
 /// </summary>
 public static class PlateSourceReader
 {
     /// <param name="defaultAverage">The averaging when the file does not say (a single plate without slots has no pitch to average over).</param>
-    public static PlateExcitation? Read(TomlSection s, Polygon? outline, string baseDirectory, TravelAverage defaultAverage = TravelAverage.SlotPitch)
+    /// <param name="disc">A problem file's disc part (its magnets turn over it); null for a plate with an outline and for plate files, which read a rotation themselves.</param>
+    public static PlateExcitation? Read(TomlSection s, Polygon? outline, string baseDirectory, TravelAverage defaultAverage = TravelAverage.SlotPitch, DiscShape? disc = null)
     {
         var kind = s.OptionalChoice("kind", ["uniform_ac", "field_map", "moving_poles", "magnets"]);
         if (kind is null && !s.Has("kind")) s.Error("kind", "missing: \"uniform_ac\", \"field_map\", \"moving_poles\" or \"magnets\"");
@@ -30,7 +33,7 @@ public static class PlateSourceReader
             "uniform_ac" => UniformAc(s),
             "field_map" => FieldMapSource(s, baseDirectory),
             "moving_poles" => Moving(s, outline, defaultAverage),
-            "magnets" => Magnets(s, outline, defaultAverage),
+            "magnets" => Magnets(s, outline, defaultAverage, disc),
             _ => null,
         };
         s.RejectUnknownKeys();
@@ -108,10 +111,14 @@ public static class PlateSourceReader
         return poles is null ? null : new PlateExcitation.Moving(poles, averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
     }
 
-    private static PlateExcitation? Magnets(TomlSection s, Polygon? outline, TravelAverage defaultAverage)
+    private static PlateExcitation? Magnets(TomlSection s, Polygon? outline, TravelAverage defaultAverage, DiscShape? disc)
     {
-        if (s.OptionalChoice("motion", ["linear", "rotation", "approach"]) is "rotation" or "approach")
-            s.Error("motion", "a turning disc and an approaching magnet are for plate files (`slotopt plate`); a part of a problem file slides (motion = \"linear\")");
+        var motion = s.OptionalChoice("motion", ["linear", "rotation", "approach"]);
+        if (disc is not null && motion == "rotation") return Turning(s, disc);
+        if (disc is not null) s.Error("motion", "magnets over a disc part turn with it: motion = \"rotation\"");
+        else if (motion == "rotation") s.Error("motion", "a turning disc needs a disc part: shape = \"disc\" with its diameter");
+        else if (motion == "approach")
+            s.Error("motion", "an approaching magnet is for plate files (`slotopt plate`); a part of a problem file slides (motion = \"linear\") or turns (a disc, \"rotation\")");
         var magnet = MagnetSourceReader.Magnet(s);
         var gap = s.PositiveQuantity("gap", QuantityKind.Length, required: true);
         var speed = s.PositiveQuantity("speed", QuantityKind.Speed, required: true);
@@ -120,5 +127,12 @@ public static class PlateSourceReader
         var array = MagnetSourceReader.Row(s, magnet, gap, outline);
         if (array is null || speed is null) return null;
         return new PlateExcitation.Moving(new SlidingMagnets(array, speed.Value), averageText == "pass" ? TravelAverage.Pass : TravelAverage.SlotPitch, positions);
+    }
+
+    /// <summary>A ring of magnets over a turning disc, read as plate files read it (<see cref="MagnetSourceReader.Rotation"/>); the angles follow each slot option.</summary>
+    private static PlateExcitation? Turning(TomlSection s, DiscShape disc)
+    {
+        var rotation = MagnetSourceReader.Rotation(s, disc.Centre, disc.RadiusM, null);
+        return rotation is null ? null : new PlateExcitation.Turning(rotation.Source, s.Has("positions") ? rotation.AnglesRad.Count : null);
     }
 }

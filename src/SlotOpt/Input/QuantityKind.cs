@@ -18,4 +18,5 @@ public enum QuantityKind
     Conductivity,
     Duration,
     Information,
+    Torque,
 }

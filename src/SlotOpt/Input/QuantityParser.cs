@@ -29,6 +29,7 @@ public static partial class QuantityParser
         QuantityKind.Conductivity => "S/m",
         QuantityKind.Duration => "s",
         QuantityKind.Information => "B",
+        QuantityKind.Torque => "N m",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -49,6 +50,7 @@ public static partial class QuantityParser
         QuantityKind.Conductivity => "\"24.9 MS/m\"",
         QuantityKind.Duration => "\"10 min\"",
         QuantityKind.Information => "\"4 GB\"",
+        QuantityKind.Torque => "\"2.5 N m\"",
         _ => throw new ArgumentOutOfRangeException(nameof(kind)),
     };
 
@@ -175,6 +177,7 @@ public static partial class QuantityParser
         [QuantityKind.Conductivity] = [new("S/m", 1, Prefixing.Si), new("S/cm", 100, Prefixing.Si)],
         [QuantityKind.Duration] = [new("s", 1, Prefixing.Si), new("min", 60, Prefixing.None), new("h", 3600, Prefixing.None), new("d", 86400, Prefixing.None)],
         [QuantityKind.Information] = [new("B", 1, Prefixing.DecimalAndBinaryMultiples)],
+        [QuantityKind.Torque] = [new("N·m", 1, Prefixing.Si), new("Nm", 1, Prefixing.None)],
     };
 
     /// <summary>Every spelling of every kind with its scale; built once, refusing any spelling that would mean two things.</summary>

@@ -18,7 +18,7 @@ public static class CandidatesCsv
     public static readonly IReadOnlyList<string> LeadingColumns = ["part", "id", "description"];
 
     public static readonly IReadOnlyList<string> TrailingColumns =
-        ["loss_w", "hysteresis_w", "classical_w", "excess_w", "plate_eddy_w", "drag_power_w", "drag_n", "build_cost", "owning_cost", "feasible", "rejection", "chosen", "flags", "model"];
+        ["loss_w", "hysteresis_w", "classical_w", "excess_w", "plate_eddy_w", "drag_power_w", "drag_n", "torque_n_m", "build_cost", "owning_cost", "feasible", "rejection", "chosen", "flags", "model"];
 
     /// <summary>Added after the trailing columns when a part has [parts.thermal]: the option's temperature as the screen found it.</summary>
     public static readonly IReadOnlyList<string> TemperatureColumns = ["temperature_rise_max_k", "temperature_rise_mean_k", "hottest_c", "temperature_method"];
@@ -39,7 +39,7 @@ public static class CandidatesCsv
                 .Concat(attributeColumns.Select(c => o.Attributes.TryGetValue(c, out var v) ? v : ""))
                 .Concat([
                     N(o.Loss.TotalW), N(o.Loss.HysteresisW), N(o.Loss.ClassicalW), N(o.Loss.ExcessW), N(o.Loss.PlateEddyW), N(o.Loss.DragPowerW),
-                    o.DragN is { } d ? N(d) : "", N(o.BuildCost), N(o.BuildCost + r.Problem.ValuePerWattOf(o.PartName) * o.Loss.TotalW),
+                    o.DragN is { } d ? N(d) : "", o.TorqueNm is { } torque ? N(torque) : "", N(o.BuildCost), N(o.BuildCost + r.Problem.ValuePerWattOf(o.PartName) * o.Loss.TotalW),
                     o.IsFeasible ? "yes" : "no", o.Rejection?.Message ?? "", chosenIds.Contains(o.Id) ? "yes" : "no", string.Join("; ", o.Flags), o.Model?.Name ?? "",
                 ]).Concat(!hot ? [] : o.Temperature is { } t
                     ? [N(t.MaxRiseK), N(t.MeanRiseK), N(t.HottestK - 273.15), t.Method switch { TemperatureMethod.UpperBound => "upper_bound", TemperatureMethod.LowerBound => "lower_bound", _ => "coupled" }]

@@ -124,15 +124,22 @@ public static class ReportContent
         var (min, max) = p.Outline.Bounds;
         var source = p.Excitation switch
         {
+            PlateExcitation.Turning turning => F($"the disc turning at {turning.Rpm:0.##} rpm under {turning.Source.Words} (path speed {turning.PathSpeedMPerS:0.##} m/s)"),
             PlateExcitation.Moving { Source: var moving } => F($"{moving.Words} passing at {moving.SpeedMPerS:0.##} m/s"),
             PlateExcitation.AcField field => F($"AC field at {field.FrequencyHz:0.#} Hz") + (field.FieldMapFile is { } map ? $" from the field-map file {map}" : " (uniform)"),
             _ => throw new ArgumentOutOfRangeException(nameof(p), p.Excitation.GetType().Name, "unknown plate excitation"),
         };
-        return F($"plate {(max.X - min.X) * 1e3:0.#} x {(max.Y - min.Y) * 1e3:0.#} mm; {source}; {p.TemperatureK - 273.15:0} °C; thicknesses ")
+        var shape = p.Disc is { } disc ? F($"disc {2 * disc.RadiusM * 1e3:0.#} mm across") + (disc.BoreRadiusM > 0 ? F($", bore {2 * disc.BoreRadiusM * 1e3:0.#} mm") : "")
+            : F($"plate {(max.X - min.X) * 1e3:0.#} x {(max.Y - min.Y) * 1e3:0.#} mm");
+        return F($"{shape}; {source}; {p.TemperatureK - 273.15:0} °C; thicknesses ")
             + string.Join(", ", p.ThicknessesM.Select(t => F($"{t * 1e3:0.###} mm"))) + $"; materials {string.Join(", ", p.Materials)}; processes {string.Join(", ", p.Processes)}; "
-            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => $"{SlotPatternCatalog.Of(f.Pattern).Words} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
+            + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => f.Rings is { } rings
+                ? $"radial slots ({string.Join(", ", rings.Select(x => x.Count).Distinct())} round the disc)"
+                : $"{SlotPatternCatalog.Of(f.Pattern).Words} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
             + F($"; uncut ligament at least {p.MinLigamentM * 1e3:0.#} mm")
             + (p.MaxDragN is { } drag ? $"; drag limit {Numbers.Newtons(drag)}" : "")
+            + (p.MaxTorqueNm is { } torque ? $"; torque limit {Numbers.Of(torque, "N m")}" : "")
+            + (p.MinTorque is { } wanted ? F($"; minimum braking torque {Numbers.Of(wanted.TorqueNm, "N m")} at {wanted.Rpm:0.##} rpm") : "")
             + (p.MaxLossW is { } loss ? $"; loss limit {Numbers.Watts(loss)}" : "")
             + (p.Thermal is { } th ? "; " + CoolingWords(th) : "");
     }
@@ -167,9 +174,11 @@ public static class ReportContent
             ? "The search hit its time budget: the design below meets every limit, but a better one among the listed options may exist."
             : "The best among the listed options under the stated models, for the goal and within every limit (the search went through all of them; see the methods note)."));
         var withDrag = r.Chosen.Any(o => o.DragN is not null);
+        var withTorque = r.Chosen.Any(o => o.TorqueNm is not null);
         var rows = new List<IReadOnlyList<string>>();
         IReadOnlyList<string> Row(string part, string which, EvaluatedOption o, string design) =>
-            withDrag ? [part, which, design, N(o.Loss.TotalW), Drag(o.DragN), N(o.BuildCost)] : [part, which, design, N(o.Loss.TotalW), N(o.BuildCost)];
+            withTorque ? [part, which, design, N(o.Loss.TotalW), Drag(o.DragN), Drag(o.TorqueNm), N(o.BuildCost)]
+            : withDrag ? [part, which, design, N(o.Loss.TotalW), Drag(o.DragN), N(o.BuildCost)] : [part, which, design, N(o.Loss.TotalW), N(o.BuildCost)];
         for (var i = 0; i < r.Chosen.Count; i++)
         {
             var c = r.Chosen[i];
@@ -177,7 +186,9 @@ public static class ReportContent
             rows.Add(Row(c.PartName, "chosen", c, WorkshopWords.Of(c)));
             rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")));
         }
-        b.Add(withDrag
+        b.Add(withTorque
+            ? new Table(["part", "", "design", "loss (W)", "drag (N)", "torque (N m)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true, true])
+            : withDrag
             ? new Table(["part", "", "design", "loss (W)", "drag (N)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true])
             : new Table(["part", "", "design", "loss (W)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true]));
         if (r.Confirmations.Count > 0)
@@ -210,7 +221,7 @@ public static class ReportContent
 
     /// <summary>A chosen plate as confirmed, in the words the report and the console share: which model ran, its loss, drag and lift against the screen, its grid error, and why that model.</summary>
     public static string ConfirmationText(PlateConfirmation c) =>
-        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? F($"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
+        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.TorqueNm is { } t ? $", braking torque {Numbers.Of(t, "N m")}" : "")}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}{(c.TorqueNm is null ? "" : " at the magnets' radius")}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? F($"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
 
     private static string Drag(double? dragN) => dragN is { } d ? N(d) : "";
 
@@ -272,6 +283,9 @@ public static class ReportContent
             var part = r.Parts[i].Part;
             if (part is PlatePart { MaxDragN: { } maxDrag } && chosen[i].DragN is { } drag) checks.Add(Against($"{part.Name}: drag limit", drag, maxDrag, "N"));
             if (part.MaxLossW is { } maxLoss) checks.Add(Against($"{part.Name}: loss limit", chosen[i].Loss.TotalW, maxLoss, "W"));
+            if (part is PlatePart { MaxTorqueNm: { } maxTorque } && chosen[i].TorqueNm is { } torque) checks.Add(Against($"{part.Name}: torque limit", torque, maxTorque, "N m"));
+            if (r.Confirmation(part.Name)?.MinimumTorque is { } wantedTorque)
+                checks.Add(AtLeast(F($"{part.Name}: minimum braking torque at {wantedTorque.Rpm:0.##} rpm"), wantedTorque.TorqueNm, wantedTorque.RequiredNm, "N m"));
             if (r.Confirmation(part.Name)?.MinimumDrag is { } wanted) checks.Add(AtLeast($"{part.Name}: minimum drag at {Numbers.Of(wanted.SpeedMPerS, "m/s")}", wanted.DragN, wanted.RequiredN, "N"));
             if (r.HeatOf(part.Name, DesignRole.Chosen) is { Heating: { } heated, Limit: var limit })
             {
@@ -409,6 +423,10 @@ public static class ReportContent
         };
         if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.Excitation.IsMoving))
             items.Insert(4, "This problem has a moving source: if that drag ever slows, stops or holds a load, the design is part of a safety function and needs that analysis before use.");
+        if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.Excitation is PlateExcitation.Turning))
+            items.Insert(4, "Turning discs: the braking torque is resistance-limited (the eddy currents' own field neglected), valid while the magnetic Reynolds number at the magnets' radius stays small; above that the real torque is lower and passes a maximum. A disc at speed also stores energy and carries hoop stress: its burst speed and guarding are outside this report.");
+        if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.MinTorque is not null))
+            items.Insert(4, "A minimum braking torque (min_torque) makes the disc a brake: if it slows, stops or holds a load, it is part of a safety function. The torque here is an estimate, not a brake rating: size a real brake with margins, test it, and follow local codes and licensed engineering practice for brakes and load-holding devices.");
         var temperatures = r.Problem.Parts.Select(p => p.TemperatureK).ToList();
         if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.Thermal is not null))
             items.Insert(items.Count - 1, "Plate temperatures are steady-state estimates from natural-convection correlations for an isolated vertical plate in still fluid: real oil flow, nearby windings, tank walls and clamping structure change them, and the temperature limit applied is the problem file's reading of a standard. Whether a hot structural part is acceptable (insulation in contact, gassing of the oil, strength at temperature) is for local codes, the applicable standards and licensed engineering practice to decide, not this report.");

@@ -41,7 +41,7 @@ public sealed record PlateConfirmation(
     public static PlateConfirmation Confirm(PlatePart part, PlateChoice choice, MaterialLibrary library, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
-        var (geometry, _) = PlateGeometryFactory.Build(part.Outline, choice.Slots);
+        var (geometry, _) = PlateGeometryFactory.Build(part, choice.Slots);
         var model = PlateOptions.BuildModel(part, geometry, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
@@ -58,6 +58,8 @@ public sealed record PlateConfirmation(
             sweep = Sweep(reaction, source, conductor, offsets);
             if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
+        else if (part.Excitation is PlateExcitation.Turning turning)
+            return ConfirmDisc(part, choice, turning, conductor, model, limits);
         else if (part.Excitation is PlateExcitation.AcField field)
         {
             solution = PlateModels.WithGridError(PlateModels.SolveAc(model, field.Source, conductor, fftThreads: limits.Threads), model,
@@ -70,6 +72,39 @@ public sealed record PlateConfirmation(
         return new PlateConfirmation(part.Name, ranked.Kind, ranked.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
             solution.ResistanceLimitedLossW.Average(), notes, sweep, solution.GridError) { MinimumDrag = minimumDrag };
     }
+
+    /// <summary>
+    /// A turning disc: its number through the one seam (<see cref="TurningDiscModel"/>, the ranking's number), the tangential force at the
+    /// magnets' radius as its drag, and the grid error from the same disc solved on cells twice as large; with min_torque, the torque at its speed.
+    /// </summary>
+    private static PlateConfirmation ConfirmDisc(PlatePart part, PlateChoice choice, PlateExcitation.Turning turning, ConductingSheet conductor, SheetModel model, EvaluationLimits limits)
+    {
+        var solved = PlateOptions.Solve(part, choice.Slots, limits);
+        if (solved.Failure is { } failure) throw new InvalidOperationException($"{part.Name}: the chosen disc no longer solves: {failure.Message}");
+        var number = TurningDiscModel.Evaluate(part, solved, conductor);
+        var notes = new List<string>();
+        DiscretisationError? gridError = null;
+        double h = Math.Max(model.Lattice.Hx, model.Lattice.Hy);
+        try
+        {
+            var coarse = SheetModel.Build(model.Grid.Geometry, new GridOptions { CellSizeM = 2 * h });
+            var onCoarse = TurningDiscModel.Evaluate(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, coarse), conductor);
+            gridError = DiscretisationError.FromTwoGrids(number.LossW, onCoarse.LossW, h, Math.Max(coarse.Lattice.Hx, coarse.Lattice.Hy));
+            if (gridError.IsLarge) notes.Add(gridError.Warning);
+        }
+        catch (InputException) { notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell"); }
+        MinimumTorqueCheck? minimum = part.MinTorque is { } wanted
+            ? new MinimumTorqueCheck(wanted.Rpm, wanted.TorqueNm, wanted.ScreenTorqueNm(number.TorqueNm, turning.Rpm), number.Model.Kind)
+            : null;
+        return new PlateConfirmation(part.Name, number.Model.Kind, number.Model.Reason, number.LossW, number.TorqueNm / turning.Source.SourceRadiusM, null, solved.LossPerSiemensW * conductor.SheetConductanceS,
+            notes, null, gridError) { TorqueNm = number.TorqueNm, MinimumTorque = minimum };
+    }
+
+    /// <summary>A turning disc: the braking torque (N m); DragN is then the tangential force at the magnets' radius.</summary>
+    public double? TorqueNm { get; init; }
+
+    /// <summary>With min_torque: the chosen disc's torque at the minimum's speed.</summary>
+    public MinimumTorqueCheck? MinimumTorque { get; init; }
 
     /// <summary>With min_drag: the chosen plate's drag at the minimum's speed with the model its validity calls for there.</summary>
     public MinimumDragCheck? MinimumDrag { get; init; }
@@ -117,4 +152,10 @@ public sealed record PlateConfirmation(
 public sealed record MinimumDragCheck(double SpeedMPerS, double RequiredN, double DragN, SheetModelKind Model)
 {
     public bool Reached => DragN >= RequiredN;
+}
+
+/// <summary>The chosen disc's torque at a min_torque's speed (N m), the minimum it must reach, and the model that gave it.</summary>
+public sealed record MinimumTorqueCheck(double Rpm, double RequiredNm, double TorqueNm, SheetModelKind Model)
+{
+    public bool Reached => TorqueNm >= RequiredNm;
 }

@@ -16,7 +16,7 @@ public sealed record PlateHeat(string PartName, DesignRole Role, EvaluatedOption
     public static PlateHeat Of(PlatePart part, EvaluatedOption option, DesignRole role, Problem problem, EvaluationLimits? limits)
     {
         var choice = (PlateChoice)option.Choice;
-        var (geometry, _) = PlateGeometryFactory.Build(part.Outline, choice.Slots);
+        var (geometry, _) = PlateGeometryFactory.Build(part, choice.Slots);
         var material = problem.Library.GetConductor(choice.Material, part.Name);
         try
         {

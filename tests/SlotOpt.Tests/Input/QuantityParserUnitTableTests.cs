@@ -9,7 +9,7 @@ namespace SlotOpt.Tests.Input;
 /// 273.15: same, section 2.3.1; bar = 1e5 Pa and gauss = 1e-4 T: SI Brochure, 8th ed., 2006, Tables 8 and 9;
 /// inch = 25.4 mm and pound = 0.45359237 kg exactly: International Yard and Pound Agreement, 1959;
 /// degF: T/K = (t/degF + 459.67)/1.8, and 1 psi = 6.894757e3 Pa: NIST SP 811 (2008), B.8 and B.9;
-/// binary prefixes Ki = 1024, Mi = 1024^2, ...: IEC 80000-13:2008, section 4.
+/// binary prefixes Ki = 1024, Mi = 1024^2, ...: IEC 80000-13:2008, section 4; newton metre (moment of force): SI Brochure, 9th ed., Table 6 (table number from memory).
 /// Tolerance 1e-14 relative: a product of three doubles, each rounded (a few ulp).
 /// </summary>
 public class QuantityParserUnitTableTests
@@ -55,6 +55,7 @@ public class QuantityParserUnitTableTests
         new(QuantityKind.Conductivity, "S/m", 1, "si"), new(QuantityKind.Conductivity, "S/cm", 100, "si"),
         new(QuantityKind.Duration, "s", 1, "si"), new(QuantityKind.Duration, "min", 60, ""), new(QuantityKind.Duration, "h", 3600, ""), new(QuantityKind.Duration, "d", 86400, ""),
         new(QuantityKind.Information, "B", 1, "bytes"),
+        new(QuantityKind.Torque, "N·m", 1, "si"), new(QuantityKind.Torque, "Nm", 1, ""),
     ];
 
     public static TheoryData<QuantityKind, string> Units()

@@ -131,6 +131,7 @@ public class SourcesMagnetFileTests
             speed = "1 m/s"
             """;
         var e = Assert.Throws<InputException>(() => ProblemReader.Read(problem, "p.toml"));
-        Assert.Contains("p.toml:15: parts[1].source.motion: a turning disc and an approaching magnet are for plate files", e.Message);
+        // a problem file's part turns only as a disc (shape = "disc"); this one is a rectangle
+        Assert.Contains("p.toml:15: parts[1].source.motion: a turning disc needs a disc part: shape = \"disc\"", e.Message);
     }
 }

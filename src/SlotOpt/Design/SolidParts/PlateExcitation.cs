@@ -1,6 +1,7 @@
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Sources.Rotation;
 
 namespace SlotOpt.Design.SolidParts;
 
@@ -14,8 +15,8 @@ public enum TravelAverage
 }
 
 /// <summary>
-/// What drives the eddy currents in a plate: exactly one of an AC field (uniform or mapped) or poles moving
-/// past it at a speed. A closed family: the private constructor admits only the two cases below.
+/// What drives the eddy currents in a plate: exactly one of an AC field (uniform or mapped), poles moving
+/// past it at a speed, or a disc turning under fixed magnets. A closed family: the private constructor admits only the three cases below.
 /// </summary>
 public abstract record PlateExcitation
 {
@@ -46,6 +47,28 @@ public abstract record PlateExcitation
                 return Positions == 1 ? [0.0] : MovingSweepSolution.OffsetsAcross(min.X - rowMax, max.X - rowMin, Positions);
             }
             return MovingSweepSolution.OffsetsOverPitch(windowM ?? Source.ExtentX.MaxXM - Source.ExtentX.MinXM, Positions);
+        }
+    }
+
+    /// <summary>
+    /// A disc turning under fixed magnets (motion = "rotation"): the ring at its speed, and how many disc angles the torque is averaged
+    /// over (null: the plate file's default, one for a solid disc, eight for a slotted one). A slotted disc's angles spread over one slot
+    /// pitch (its torque repeats with it), a solid disc's round the whole turn, as in plate files.
+    /// </summary>
+    public sealed record Turning(RotatingSource Source, int? Positions) : PlateExcitation
+    {
+        public double AngularSpeedRadPerS => Source.AngularSpeedRadPerS;
+        /// <summary>The disc's speed in revolutions per minute.</summary>
+        public double Rpm => Source.AngularSpeedRadPerS * 60 / (2 * Math.PI);
+        /// <summary>The speed of the disc under the magnets' centres, v = omega r (the speed of the magnetic Reynolds number).</summary>
+        public double PathSpeedMPerS => Source.AngularSpeedRadPerS * Source.SourceRadiusM;
+
+        /// <summary>The disc angles of one slot layout (null: the solid disc): positions spread evenly from 0 over one slot pitch, or round the turn.</summary>
+        public IReadOnlyList<double> Angles(RadialSlots? ring)
+        {
+            var positions = Positions ?? (ring is null ? 1 : 8);
+            var period = ring?.PitchRad ?? 2 * Math.PI;
+            return Enumerable.Range(0, positions).Select(k => k * period / positions).ToArray();
         }
     }
 }

@@ -135,10 +135,12 @@ public static class PlateModelRanking
             var choice = part.Excitation switch
             {
                 PlateExcitation.Moving moving => ReactionModelChoice.ForMoving(sheet, moving.SpeedMPerS, moving.Source.LoopLengthXM),
+                PlateExcitation.Turning turning => TurningDiscModel.ValidityOf(turning, sheet),
                 PlateExcitation.AcField field => ReactionModelChoice.ForAc(sheet, field.FrequencyHz, solved.Geometry!.CharacteristicWidthM),
                 _ => throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation"),
             };
             var group = new Group(g, thicknessM, materialName, sheet, choice);
+            if (part.Excitation is PlateExcitation.Turning) { groups.Add(group); continue; }     // every disc number passes its one seam (TurningDiscModel)
             if (choice.Kind == SheetModelKind.ResistanceLimited)
                 group.Kept = new OptionModel(SheetModelKind.ResistanceLimited, choice.Reason);
             else if (options.All(o => o.Rejection is { } broken && !DependsOnLoss(broken.Kind)))
@@ -214,6 +216,10 @@ public static class PlateModelRanking
                     // loss and drag are what the selection sees: the lift is left to the chosen plate's confirmation
                     var coupled = basis.Solve(group.Sheet, moving.SpeedMPerS, withLift: false);
                     group.Solved = (ModelOf(group.Choice, moving: true), coupled.MeanLossW);
+                    continue;
+                case PlateExcitation.Turning:
+                    var disc = TurningDiscModel.Evaluate(part, solved, group.Sheet);
+                    group.Solved = (disc.Model, disc.LossW);
                     continue;
                 case PlateExcitation.AcField field when group.Choice.Kind == SheetModelKind.ThinSheetReaction:
                     // one reduced basis of the geometry serves every thickness and material (the same equations as ReactionSolver.SolveAc, to the same criterion)

@@ -7,6 +7,8 @@ using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Plates.Thermal;
 
 namespace SlotOpt.Design.SolidParts;
@@ -100,7 +102,7 @@ public static class PlateOptions
     public static HeatedPlate SolveHeated(PlatePart part, SlotChoice? slots, double thicknessM, Conductor material, EvaluationLimits limits)
     {
         var thermal = part.Thermal ?? throw new InvalidOperationException($"{part.Name} has no [parts.thermal]");
-        var (geometry, _) = PlateGeometryFactory.Build(part.Outline, slots);
+        var (geometry, _) = PlateGeometryFactory.Build(part, slots);
         var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), thicknessM, material.RelativePermeability);
         var thermalMaterial = PartThermal.MaterialOf(material, part.TemperatureK, part.Name);
         var grid = GridOf(part, limits);
@@ -118,12 +120,22 @@ public static class PlateOptions
         yield return null;
         var seen = new HashSet<SlotChoice>();
         foreach (var family in part.SlotFamilies)
+        {
+            if (family.Rings is { } rings)
+            {
+                var disc = part.Disc ?? throw new InvalidOperationException($"part {part.Name}: radial slots need a disc");
+                foreach (var ring in rings)
+                foreach (var width in family.WidthsM)
+                    if (SlotChoice.RadialOn(disc, ring, width) is var radial && seen.Add(radial)) yield return radial;
+                continue;
+            }
         foreach (var pitch in family.PitchesM)
         foreach (var depth in family.DepthsM)
         foreach (var width in family.WidthsM)
         {
             var choice = new SlotChoice(family.Pattern, family.Edge, pitch, depth, width, family.RemainingThicknessFraction);
             if (seen.Add(choice)) yield return choice;
+        }
         }
     }
 
@@ -133,7 +145,7 @@ public static class PlateOptions
         limits ??= EvaluationLimits.Default;
         PlateGeometry geometry;
         SlotPattern? pattern;
-        try { (geometry, pattern) = PlateGeometryFactory.Build(part.Outline, slots); }
+        try { (geometry, pattern) = PlateGeometryFactory.Build(part, slots); }
         catch (InputException e) { return new SolvedGeometry(slots, null, null, double.NaN, null, 0, 0, new RuleBreak(RuleKind.PatternDoesNotFit, e.Message)); }
         var model = BuildModel(part, geometry, limits);
         switch (part.Excitation)
@@ -144,12 +156,27 @@ public static class PlateOptions
             case PlateExcitation.Moving moving:
                 var sweep = ResistanceLimitedSolver.SolveMoving(model, moving.Source, TravelOffsets(part, slots));
                 return new SolvedGeometry(slots, pattern, geometry, sweep.MeanLossPerSiemensW, sweep.Peak, sweep.IterationsPerOffset.Sum(), model.Unknowns, null);
+            case PlateExcitation.Turning turning:
+                return SolveTurning(turning, slots, pattern, geometry, model);
             case PlateExcitation.AcField field:
                 var ac = ResistanceLimitedSolver.SolveAc(model, field.Source);
                 return new SolvedGeometry(slots, pattern, geometry, ac.LossPerSiemensW, ac, ac.Iterations, model.Unknowns, null, part.Thermal is null ? null : CellLossMap.Of(ac, 1.0));
             default:
                 throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         }
+    }
+
+    /// <summary>
+    /// A disc under its turning magnets at unit sheet conductance (<see cref="DiscTorque"/>, resistance-limited): the mean loss over the disc's
+    /// angles, and as Peak the angle with the most loss (its travel offset the arc the magnets' centre moved, as `slotopt plate` reports it).
+    /// </summary>
+    public static SolvedGeometry SolveTurning(PlateExcitation.Turning turning, SlotChoice? slots, SlotPattern? pattern, PlateGeometry geometry, SheetModel model)
+    {
+        var angles = turning.Angles(slots?.Radial);
+        var disc = DiscTorque.Solve(model, turning.Source, angles);
+        var peak = new UnitConductanceSolution(model, SourceKind.Moving, disc.PeakPsiPerSiemens, null, disc.LossPerSiemensW[disc.PeakIndex], 0, turning.PathSpeedMPerS,
+            angles[disc.PeakIndex] * turning.Source.SourceRadiusM, disc.Iterations, disc.MaxRelativeResidual, []);
+        return new SolvedGeometry(slots, pattern, geometry, disc.LossPerSiemensW.Average(), peak, disc.Iterations, model.Unknowns, null);
     }
 
     /// <summary>The solver model of one slot geometry: the part's cell size (automatic: resolving the plate's and the poles' features), automatic grids capped so that the part's run fits the memory limit.</summary>
@@ -161,7 +188,13 @@ public static class PlateOptions
     /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
-        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = part.Excitation is PlateExcitation.Moving m ? m.Source.GridFeatures : [] };
+        var features = part.Excitation switch
+        {
+            PlateExcitation.Moving m => m.Source.GridFeatures,
+            PlateExcitation.Turning t => t.Source.GridFeatures,
+            _ => [],
+        };
+        var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = features };
         var cap = limits.CellCap(SlotChoices(part).Count(), ThermalOptionsPerGeometry(part));
         if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
         return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };
@@ -209,7 +242,15 @@ public static class PlateOptions
             ["process"] = process.Name,
             ["slots"] = slotText,
         };
-        if (slots is not null)
+        if (slots?.Radial is { } ring)
+        {
+            attributes["pattern"] = slots.Pattern.ToString();
+            attributes["radial_slots"] = ring.Count.ToString(ci);
+            attributes["from_mm"] = (ring.FromM * 1e3).ToString("0.###", ci);
+            attributes["to_mm"] = ring.ToM is { } to ? (to * 1e3).ToString("0.###", ci) : "rim";
+            attributes["width_mm"] = (slots.WidthM * 1e3).ToString("0.###", ci);
+        }
+        else if (slots is not null)
         {
             attributes["pattern"] = slots.Pattern.ToString();
             attributes["edge"] = slots.Edge.ToString();
@@ -231,13 +272,17 @@ public static class PlateOptions
         var lossW = modelLossW ?? solved.LossPerSiemensW * sheet.SheetConductanceS;
         var moving = part.Excitation as PlateExcitation.Moving;
         var acField = part.Excitation as PlateExcitation.AcField;
-        double? drag = moving is null ? null : lossW / moving.SpeedMPerS;
-        var loss = new LossBreakdown(0, 0, 0, lossW, moving is null ? 0 : lossW);
-        var validity = moving is not null
-            ? Validity.ForMoving(sheet, moving.SpeedMPerS)
-            : Validity.ForAc(sheet, acField!.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
+        var turning = part.Excitation as PlateExcitation.Turning;
+        double? torque = turning is null ? null : lossW / turning.AngularSpeedRadPerS;                          // T = P / omega (steady rotation)
+        // drag: the force opposing the motion; on a disc the tangential force at the magnets' radius, F = T / r
+        double? drag = moving is not null ? lossW / moving.SpeedMPerS : torque / turning?.Source.SourceRadiusM;
+        var loss = new LossBreakdown(0, 0, 0, lossW, acField is null ? lossW : 0);
+        var validity = acField is null
+            ? Validity.ForMoving(sheet, moving?.SpeedMPerS ?? turning!.PathSpeedMPerS)
+            : Validity.ForAc(sheet, acField.FrequencyHz, solved.Geometry!.CharacteristicWidthM);
         // the validity warnings say the resistance-limited numbers are overstated: moot once the option carries another model's
-        var flags = modelLossW is not null ? [] : validity.Warnings.ToList();
+        var otherModel = modelLossW is not null && model?.Kind != SheetModelKind.ResistanceLimited;
+        var flags = otherModel || (modelLossW is not null && turning is null) ? [] : validity.Warnings.ToList();
         if (material.IsMagnetic) flags.Add($"{material.Name} is magnetic: the thin-plate model assumes a non-magnetic plate, so its loss here is indicative only");
         attributes["reynolds_number"] = validity.ReynoldsNumber.ToString("0.###", ci);
 
@@ -252,6 +297,14 @@ public static class PlateOptions
             if (rejection is null && minDrag.SpeedMPerS != moving.SpeedMPerS)
                 flags.AddRange(Validity.ForMoving(sheet, minDrag.SpeedMPerS).Warnings.Select(w => string.Create(ci, $"at {minDrag.SpeedMPerS:0.###} m/s: {w}")));
         }
+        if (rejection is null && part.MaxTorqueNm is { } maxTorque && torque > maxTorque)
+            rejection = new(RuleKind.TorqueAboveLimit, string.Create(ci, $"torque {Numbers.Of(torque!.Value, "N m")} exceeds the part's limit of {Numbers.Of(maxTorque, "N m")}"));
+        if (rejection is null && part.MinTorque is { } minTorque && torque is { } torqueNm)
+        {
+            rejection = minTorque.Check(torqueNm, turning!.Rpm);
+            if (rejection is null && minTorque.Rpm != turning.Rpm)
+                flags.AddRange(Validity.ForMoving(sheet, turning.PathSpeedMPerS * minTorque.Rpm / turning.Rpm).Warnings.Select(w => string.Create(ci, $"at {minTorque.Rpm:0.##} rpm: {w}")));
+        }
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {Numbers.Watts(loss.TotalW)} exceeds the part's limit of {Numbers.Watts(maxLoss)}"));
         if (heat is { Failure: { } why, Breach: null }) flags.Add($"temperature not computed: {why}");
@@ -260,13 +313,17 @@ public static class PlateOptions
         return new EvaluatedOption(part.Name, id, choice, description, attributes, cost.Total, loss, drag, flags, rejection, temperature)
         {
             Model = model ?? new OptionModel(SheetModelKind.ResistanceLimited, "the resistance-limited screen"),
+            TorqueNm = torque,
         };
     }
 
-    public static string Describe(SlotChoice s) => string.Create(CultureInfo.InvariantCulture,
+    public static string Describe(SlotChoice s) => s.Radial is { } ring
+        ? string.Create(CultureInfo.InvariantCulture, $"{ring.Count} radial slots from {ring.FromM * 1e3:0.###} mm {(ring.ToM is { } to ? $"to {to * 1e3:0.###} mm" : "through the rim")}, width {s.WidthM * 1e3:0.###} mm")
+        : string.Create(CultureInfo.InvariantCulture,
         $"{SlotPatternCatalog.Of(s.Pattern).Words} from {SlotPatternCatalog.Word(s.Edge)}, pitch {s.PitchM * 1e3:0.###} mm, depth {s.DepthM * 1e3:0.###} mm, width {s.WidthM * 1e3:0.###} mm{(s.Pattern == SlotPatternKind.Grooves ? $", {s.RemainingThicknessFraction:0.##} of thickness left" : "")}");
 
     private static bool Belongs(SlotFamily family, SlotChoice choice) =>
-        family.Pattern == choice.Pattern && family.Edge == choice.Edge && family.PitchesM.Contains(choice.PitchM)
+        family.Rings is { } rings ? choice.Radial is { } ring && rings.Contains(ring) && family.WidthsM.Contains(choice.WidthM)
+        : family.Pattern == choice.Pattern && family.Edge == choice.Edge && family.PitchesM.Contains(choice.PitchM)
         && family.DepthsM.Contains(choice.DepthM) && family.WidthsM.Contains(choice.WidthM);
 }

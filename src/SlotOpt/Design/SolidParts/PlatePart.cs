@@ -7,7 +7,8 @@ namespace SlotOpt.Design.SolidParts;
 
 /// <summary>
 /// A solid conductive part (clamp or tie plate, rail, carrier plate, shield) in an AC field or past
-/// moving poles. The choice is thickness x material x (solid, or one slot pattern of a family) x process.
+/// moving poles, or a disc turning under magnets (Disc set, <see cref="PlateExcitation.Turning"/>, with its torque limits).
+/// The choice is thickness x material x (solid, or one slot pattern of a family) x process.
 /// </summary>
 public sealed record PlatePart(
     string Name,
@@ -25,7 +26,10 @@ public sealed record PlatePart(
     double? CellSizeM,
     PlateChoice? Current,
     PartThermal? Thermal = null,
-    MinimumDrag? MinDrag = null) : Part(Name, Line, TemperatureK, MaxLossW)
+    MinimumDrag? MinDrag = null,
+    DiscShape? Disc = null,
+    double? MaxTorqueNm = null,
+    MinimumTorque? MinTorque = null) : Part(Name, Line, TemperatureK, MaxLossW)
 {
     /// <summary>thickness x material x (solid x processes + every slot option).</summary>
     public long OptionCount => (long)ThicknessesM.Count * Materials.Count * (Processes.Count + SlotFamilies.Sum(f => f.OptionCount));

@@ -177,6 +177,24 @@ public sealed class TomlSection
         return null;
     }
 
+    /// <summary>One whole number or an array of them, each between min and max.</summary>
+    public IReadOnlyList<long>? IntegerList(string key, long min, long max, bool required)
+    {
+        if (required && !Require(key)) return null;
+        var node = Get(key);
+        if (node is null) return null;
+        if (node is not TomlArray array) return OptionalInteger(key, min, max) is { } single ? [single] : null;
+        if (array.Items.Count == 0) { Error(key, "is an empty list"); return null; }
+        var values = new List<long>();
+        foreach (var item in array.Items)
+        {
+            if (item is not TomlScalar { Value: long n }) { Error(key, $"expected whole numbers, found {item.Describe()}"); return null; }
+            if (n < min || n > max) { Error(key, $"must lie between {min} and {max}, got {n}"); return null; }
+            values.Add(n);
+        }
+        return values;
+    }
+
     public long? OptionalInteger(string key, long min, long max)
     {
         var node = Get(key);

@@ -51,10 +51,20 @@ public sealed record ResultJson(
         Confirmation? Confirmed,
         int Options,
         IReadOnlyDictionary<string, int> Rejected,
-        Temperature? Temperature);
+        Temperature? Temperature)
+    {
+        /// <summary>A turning disc: the mean braking torque (drag_n is then the tangential force at the magnets' radius, torque over that radius).</summary>
+        [System.Text.Json.Serialization.JsonPropertyName("torque_n_m")]
+        public double? TorqueNm { get; init; }
+    }
 
     /// <summary>The part's current design, or its baseline; <see cref="Breaks"/> is the rule or limit it breaks; Model the plate model that gave its loss.</summary>
-    public sealed record ReferenceDesign(string Kind, string Design, double LossW, double? DragN, double BuildCost, string? Breaks, Temperature? Temperature, string? Model);
+    public sealed record ReferenceDesign(string Kind, string Design, double LossW, double? DragN, double BuildCost, string? Breaks, Temperature? Temperature, string? Model)
+    {
+        /// <summary>A turning disc: the reference disc's braking torque.</summary>
+        [System.Text.Json.Serialization.JsonPropertyName("torque_n_m")]
+        public double? TorqueNm { get; init; }
+    }
 
     /// <summary>
     /// A hot plate's coupled temperature (<see cref="PlateHeat"/>): rises above ambient, the hottest point (K, and x, y in m),
@@ -84,7 +94,12 @@ public sealed record ResultJson(
     }
 
     /// <summary>A chosen plate solved with the model its validity calls for (its name as `plate --model` spells it), with its lift and its grid-error estimate (relative, Richardson against cells twice as large).</summary>
-    public sealed record Confirmation(string Model, string Reason, double LossW, double? DragN, double? LiftN, double ResistanceLimitedLossW, double? DiscretisationError);
+    public sealed record Confirmation(string Model, string Reason, double LossW, double? DragN, double? LiftN, double ResistanceLimitedLossW, double? DiscretisationError)
+    {
+        /// <summary>A turning disc: the confirmed braking torque.</summary>
+        [System.Text.Json.Serialization.JsonPropertyName("torque_n_m")]
+        public double? TorqueNm { get; init; }
+    }
 
     public sealed record BaselineTotals(string Name, double Cost, double LossW, double OwningCost, IReadOnlyList<string> Breaks);
 
@@ -120,9 +135,9 @@ public sealed record ResultJson(
         o.Loss.TotalW, o.Loss.HysteresisW, o.Loss.ClassicalW, o.Loss.ExcessW, o.Loss.PlateEddyW, o.DragN, o.BuildCost, r.Problem.ValuePerWattOf(o.PartName), o.Flags,
         o.Model?.Name, o.Model?.Reason,
         new ReferenceDesign(part.ReferenceIsCurrent ? "current" : "baseline", part.Reference.Description, part.Reference.Loss.TotalW, part.Reference.DragN, part.Reference.BuildCost, part.Reference.Rejection?.Message,
-            Temperature.Of(r.HeatOf(o.PartName, DesignRole.Reference)), part.Reference.Model?.Name),
-        r.Confirmation(o.PartName) is { } c ? new Confirmation(c.ModelName, c.Reason, c.LossW, c.DragN, c.LiftN, c.ResistanceLimitedLossW, c.GridError?.Relative) : null,
+            Temperature.Of(r.HeatOf(o.PartName, DesignRole.Reference)), part.Reference.Model?.Name) { TorqueNm = part.Reference.TorqueNm },
+        r.Confirmation(o.PartName) is { } c ? new Confirmation(c.ModelName, c.Reason, c.LossW, c.DragN, c.LiftN, c.ResistanceLimitedLossW, c.GridError?.Relative) { TorqueNm = c.TorqueNm } : null,
         part.Options.Count,
         part.RejectionCounts,
-        Temperature.Of(r.HeatOf(o.PartName, DesignRole.Chosen)));
+        Temperature.Of(r.HeatOf(o.PartName, DesignRole.Chosen))) { TorqueNm = o.TorqueNm };
 }

@@ -31,7 +31,9 @@ public static class CurrentDensityPlot
             $"{Label(panel.Role)}: {panel.Option.Description}\nloss {Numbers.Watts(panel.Option.Loss.TotalW)}{(panel.Option.DragN is { } d ? $", drag {Numbers.Newtons(d)}" : "")}, peak {Numbers.CurrentDensity(panel.PeakAPerM2)}",
             panel.Map, panel.Drawing, part.Outline.Bounds, peakAPerMm2, colourBar: k == panels.Count - 1)).ToList();
         var moving = part.Excitation.IsMoving;
-        var caption = (moving
+        var caption = (part.Excitation is PlateExcitation.Turning
+                ? "The instantaneous current density at the disc angle with the largest loss (the disc turns under fixed magnets). "
+                : moving
                 ? "The instantaneous current density at the travel position with the largest loss (the poles move along x). "
                 : "The amplitude of the current density in the AC field. ")
             + (panels.Count > 1 ? "Both plates share the sheet (thickness and alloy) and one colour scale, so the colours compare directly; " : "")

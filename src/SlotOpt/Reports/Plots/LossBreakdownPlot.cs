@@ -85,12 +85,12 @@ public static class LossBreakdownPlot
                 plot.Legend.ManualItems.Add(new LegendItem { LabelText = name, FillColor = colour });
         plot.ShowLegend(Edge.Right);   // outside the axes: no bar can hide behind it
         var caption = "Each bar stacks the loss counted against the design; the number above it is the total. "
-            + (r.Parts.Any(p => IsMoving(p.Part)) ? "For a plate passed by moving poles the eddy loss is the drag power F v, stacked once. " : "")
+            + (r.Parts.Any(p => IsMoving(p.Part)) ? "For a plate passed by moving poles the eddy loss is the drag power F v (on a turning disc the braking power T ω), stacked once. " : "")
             + $"The {referenceWord} design is the one the savings are measured against.";
         return PlotStyle.Render(plot, FileStem, "Loss breakdown", caption, categoricalX: true);
     }
 
-    private static bool IsMoving(Part part) => part is PlatePart { Excitation.IsMoving: true };
+    private static bool IsMoving(Part part) => part is PlatePart { Excitation: PlateExcitation.Moving or PlateExcitation.Turning };   // a turning disc's eddy loss is its braking power T omega
 
     /// <summary>A part's loss with its plate eddy loss in one slot only: drag power for a moving source (where the two are the same watts), plate eddy otherwise; the parts then add up to their totals.</summary>
     private static LossBreakdown Split(LossBreakdown l, bool moving) => moving ? l with { PlateEddyW = 0 } : l with { DragPowerW = 0 };

@@ -8,7 +8,7 @@ namespace SlotOpt.Reports.Plots;
 /// <summary>
 /// Every plot of one run: the trade-off curve and the loss breakdown (when there is a front and a design),
 /// loss against frequency for each core part, and for each plate the current-density map (and drag
-/// against speed where a source moves, the temperature map where it has [parts.thermal]), drawn from the numbers the run computed (<see cref="RunFigures"/>).
+/// against speed where a source moves, braking torque against speed on a turning disc, the temperature map where it has [parts.thermal]), drawn from the numbers the run computed (<see cref="RunFigures"/>).
 /// </summary>
 public sealed record ReportFigures(
     Figure? TradeOff,
@@ -41,6 +41,7 @@ public sealed record ReportFigures(
                 case PlatePart plate when chosen is not null:
                     currentDensity.Add((plate, CurrentDensityPlot.Build(i, plate, r.Figures.CurrentDensityOf(plate.Name))));
                     if (plate.Excitation.IsMoving) dragSpeed.Add((plate, DragSpeedPlot.Build(i, evaluation, r.Figures.DragSpeedOf(plate.Name), r.Figures.LowSpeedReynoldsLimit)));
+                    if (plate.Excitation is PlateExcitation.Turning) dragSpeed.Add((plate, TorqueSpeedPlot.Build(i, evaluation, r.Figures.TorqueSpeedOf(plate.Name), r.Figures.LowSpeedReynoldsLimit)));
                     if (r.Figures.TemperatureOf(plate.Name) is { } maps) temperature.Add((plate, TemperaturePlot.Build(i, plate, maps, evaluation.ReferenceIsCurrent)));
                     if (r.Confirmation(plate.Name) is { SpeedSweep: not null } confirmed) dragSpeed.Add((plate, CoupledSpeedPlot.Build(i, plate, confirmed)));
                     break;

@@ -1,0 +1,67 @@
+using SlotOpt.Design.SolidParts;
+using SlotOpt.Design;
+using SlotOpt.Plates.Conductors;
+
+namespace SlotOpt.Runs;
+
+/// <summary>
+/// Braking torque against disc speed for a turning disc part: the chosen option, the solid disc of the same sheet (when the chosen one is
+/// slotted) and the reference (when it is neither), each disc solved again (<see cref="PlateOptions.Solve"/>) and its number at every speed taken
+/// from the one seam of turning-disc numbers (<see cref="TurningDiscModel"/>), with the model that gave it.
+/// Resistance-limited the torque is proportional to speed, T(n) = T(n0) n / n0, and has no peak; the model holds while the magnetic Reynolds
+/// number at the magnets' radius, mu0 sigma t (omega r) / 2, stays below <see cref="Validity.ReynoldsLimit"/>: each line carries the speed
+/// where its sheet reaches it. Points are the torque at <see cref="Samples"/> speeds from 0 to <see cref="MaxRpm"/>, each with its model.
+/// </summary>
+public sealed record TorqueSpeedLines(string PartName, double RunRpm, double MaxRpm, IReadOnlyList<TorqueSpeedLines.Line> Lines)
+{
+    public const int Samples = 41;
+
+    /// <summary>One speed of a line: disc speed (rpm), braking torque (N m) and the model that gave it.</summary>
+    public sealed record Point(double Rpm, double TorqueNm, string Model);
+
+    /// <summary>One design's torque against speed; PeakRpm where its model shows a peak (the resistance-limited line has none), ValidityEndRpm where Rm reaches the limit.</summary>
+    public sealed record Line(EvaluatedOption Option, DesignRole Role, IReadOnlyList<Point> Points, double ValidityEndRpm, double? PeakRpm);
+
+    public static TorqueSpeedLines Of(PartEvaluation plate, EvaluatedOption chosen, Problem problem, EvaluationLimits? limits = null)
+    {
+        var part = (PlatePart)plate.Part;
+        var turning = (PlateExcitation.Turning)part.Excitation;
+        var designs = new List<(EvaluatedOption Option, DesignRole Role)> { (chosen, DesignRole.Chosen) };
+        var solid = SolidCounterpart.Of(plate, chosen);
+        if (!ReferenceEquals(solid, chosen)) designs.Add((solid, DesignRole.SolidCounterpart));
+        if (!designs.Any(d => d.Option.Id == plate.Reference.Id)) designs.Add((plate.Reference, DesignRole.Reference));
+        var n0 = turning.Rpm;
+        var ends = designs.Select(d => ReynoldsLimitRpm(part, turning, d.Option, problem)).ToList();
+        var maxRpm = Math.Max(Math.Max(2 * n0, part.MinTorque?.Rpm * 1.25 ?? 0), Math.Min(1.25 * ends.Max(), 4 * n0));
+        var lines = designs.Select((d, k) =>
+        {
+            var choice = (PlateChoice)d.Option.Choice;
+            var solved = PlateOptions.Solve(part, choice.Slots, limits);
+            if (solved.Failure is { } failure) throw new InvalidOperationException($"{part.Name}: the disc solved during the run no longer solves: {failure.Message}");
+            var sheet = SheetOf(part, choice, problem);
+            var points = new List<Point>();
+            for (var i = 0; i < Samples; i++)
+            {
+                var n = maxRpm * i / (Samples - 1);
+                if (n == 0) { points.Add(new Point(0, 0, TurningDiscModel.Evaluate(part, solved, sheet).Model.Name)); continue; }   // no motion, no torque
+                var number = TurningDiscModel.Evaluate(part, solved, sheet, n);
+                points.Add(new Point(n, number.TorqueNm, number.Model.Name));
+            }
+            return new Line(d.Option, d.Role, points, ends[k], null);
+        }).ToList();
+        return new TorqueSpeedLines(part.Name, n0, maxRpm, lines);
+    }
+
+    /// <summary>The disc speed (rpm) at which this option's sheet reaches the Reynolds-number limit at the magnets' radius: Rm is proportional to speed.</summary>
+    private static double ReynoldsLimitRpm(PlatePart part, PlateExcitation.Turning turning, EvaluatedOption option, Problem problem)
+    {
+        var sheet = SheetOf(part, (PlateChoice)option.Choice, problem);
+        return turning.Rpm * Validity.ReynoldsLimit / Validity.ForMoving(sheet, turning.PathSpeedMPerS).ReynoldsNumber;
+    }
+
+    private static ConductingSheet SheetOf(PlatePart part, PlateChoice choice, Problem problem)
+    {
+        var material = problem.Library.GetConductor(choice.Material, part.Name);
+        return new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
+    }
+}
