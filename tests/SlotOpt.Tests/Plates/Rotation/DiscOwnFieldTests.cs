@@ -5,6 +5,7 @@ using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.Sources.Magnets;
 using SlotOpt.Plates.Sources.Rotation;
+using SlotOpt.Tests.Cli;
 
 namespace SlotOpt.Tests.Plates.Rotation;
 
@@ -63,5 +64,76 @@ public class DiscOwnFieldTests(Xunit.Abstractions.ITestOutputHelper output)
         double low = DiscTorque.Solve(model, source, [0.0]).MeanTorqueNm(Sheet.SheetConductanceS);
         output.WriteLine($"own-field {own.MeanTorqueNm:G8} N m, resistance-limited {low:G8} N m, ratio {own.MeanTorqueNm / low:F7}, {own.Iterations} iterations");
         Assert.InRange(own.MeanTorqueNm / low, 1 - 1.5e-4, 1);
+    }
+}
+
+/// <summary>`slotopt plate --speeds` on a turning disc: torque against speed with the model per point, and the peak.</summary>
+public class DiscSpeedCommandTests
+{
+    private const string CopperDisc = """
+        [plate]
+        shape = "disc"
+        diameter = "100 mm"
+        thickness = "1 mm"
+        conductivity = 5.8e7
+
+        [grid]
+        cell = "2 mm"
+
+        [source]
+        kind = "magnets"
+        motion = "rotation"
+        shape = "cylinder"
+        diameter = "10 mm"
+        height = "5 mm"
+        remanence = "1.2 T"
+        gap = "2 mm"
+        radius = "30 mm"
+        count = 1
+        rotation_speed = 100
+        """;
+
+    // Copper 1 mm: w = 2 / (mu0 sigma t) = 27.4 m/s, so omega R = w at 8735 rpm. At 100 rpm (Rm = 0.011) the model is resistance-limited and its
+    // torque is the file's own (same solve: 1e-12); at 4400 rpm and above own-field (Rm > 0.1, ReactionModelChoice). The peak lies between 8700
+    // and 17500 rpm (thin-sheet peak at 1.272 w = 11100 rpm, J. R. Reitz, J. Appl. Phys. 41 (1970) 2067) and is at least every point's torque.
+    [Fact]
+    public void Speeds_give_torque_against_speed_with_model_and_peak()
+    {
+        var path = Path.Combine(Path.GetTempPath(), "slotopt-discspeed-" + Guid.NewGuid().ToString("N") + ".toml");
+        File.WriteAllText(path, CopperDisc);
+        try
+        {
+            var run = SlotOptInProcess.Run("plate", path, "--json", "--speeds", "100,4400,8700,17500");
+            Assert.Equal(0, run.ExitCode);
+            using var json = System.Text.Json.JsonDocument.Parse(run.Stdout);
+            var curve = json.RootElement.GetProperty("torque_curve").EnumerateArray().ToList();
+            Assert.Equal(4, curve.Count);
+            Assert.Equal(["resistance-limited", "own-field", "own-field", "own-field"], curve.Select(p => p.GetProperty("model").GetString()));
+            double fileTorque = json.RootElement.GetProperty("torque_n_m").GetDouble();
+            Assert.Equal(fileTorque, curve[0].GetProperty("torque_n_m").GetDouble(), fileTorque * 1e-12);
+            Assert.Equal(curve[0].GetProperty("torque_n_m").GetDouble() / 0.03, curve[0].GetProperty("drag_n").GetDouble(), 1e-12);
+            var peak = json.RootElement.GetProperty("torque_peak");
+            double rpm = peak.GetProperty("rotation_speed_rpm").GetDouble(), torque = peak.GetProperty("torque_n_m").GetDouble();
+            Assert.InRange(rpm, 8700, 17500);
+            Assert.All(curve, p => Assert.True(p.GetProperty("torque_n_m").GetDouble() <= torque));
+        }
+        finally { File.Delete(path); }
+    }
+
+    [Theory]
+    [InlineData("fast", "--speeds: 'fast' is not a positive speed in rpm")]
+    [InlineData("100,-5", "--speeds: '-5' is not a positive speed in rpm")]
+    public void Bad_speeds_name_the_flag(string value, string expected)
+    {
+        var path = Path.Combine(Path.GetTempPath(), "slotopt-discspeed-" + Guid.NewGuid().ToString("N") + ".toml");
+        File.WriteAllText(path, CopperDisc);
+        try
+        {
+            var run = SlotOptInProcess.Run("plate", path, "--speeds", value);
+            Assert.Equal(2, run.ExitCode);   // ExitCodes.InvalidInput
+            Assert.Contains(expected, run.Stderr);
+            Assert.DoesNotContain("   at ", run.Stderr);
+        }
+        finally { File.Delete(path); }
     }
 }
