@@ -65,6 +65,50 @@ public class DiscOwnFieldTests(Xunit.Abstractions.ITestOutputHelper output)
         output.WriteLine($"own-field {own.MeanTorqueNm:G8} N m, resistance-limited {low:G8} N m, ratio {own.MeanTorqueNm / low:F7}, {own.Iterations} iterations");
         Assert.InRange(own.MeanTorqueNm / low, 1 - 1.5e-4, 1);
     }
+
+    // Reitz (1970), thin sheet, any axisymmetric source moving at v: F_D/F_D,low = (2 w^2/v^2)(1 - w/sqrt(v^2 + w^2)) (the reflection coefficient
+    // R = i s/(1 + i s), s = (v/w) cos(phi), does not depend on |k|); at the drag peak v = 1.27202 w it is 0.47214. A cylinder magnet 6 mm across,
+    // 1 mm from a copper disc 1 mm thick (w = 27.4 m/s), its centre at m = 24 mm on a disc 40 mm in radius, turning at omega m = 1.27202 w.
+    // The ratio is second order in the cell (measured at 1, 0.5, 0.25 mm: 0.50594, 0.48171, 0.47551, differences shrinking 3.9 times), so
+    // T(h/2) + (T(h/2) - T(h))/3: measured 0.47363 (from 0.5/0.25 mm: 0.47344), +0.3 % against Reitz. The sliding own-field solver on the equivalent
+    // straight strip (40 mm wide, 120 mm long, the magnet 24 mm from an edge) gives the same ratio on the same grid to 0.01 %, so the +0.3 % is the
+    // finite plate's, not the disc's curvature or the rotation's; a larger disc (80 mm, m = 50 mm) moves it by 0.25 %. Tolerance 0.5 %.
+    [Fact]
+    public void Torque_ratio_at_the_thin_sheet_peak_speed_follows_Reitz()
+    {
+        double a = 0.04, m = 0.024, omega = 1.27202 * W / m;
+        double Ratio(double cell)
+        {
+            var model = Disc(a, cell);
+            return DiscReaction.Solve(ReactionOperator.Build(model), Magnet(a, m, 0.006, 0.001, omega), Sheet, [0.0]).TorqueRatio;
+        }
+        double coarse = Ratio(0.001), fine = Ratio(0.0005), extrapolated = fine + (fine - coarse) / 3;
+        double reitz = 2 / (1.27202 * 1.27202) * (1 - 1 / Math.Sqrt(1 + 1.27202 * 1.27202));
+        output.WriteLine($"T/T_low at 1.272 w: {coarse:F5} (1 mm), {fine:F5} (0.5 mm), extrapolated {extrapolated:F5}, Reitz {reitz:F5}");
+        Assert.InRange(extrapolated / reitz - 1, -0.005, 0.005);
+    }
+
+    // The peak search (golden section on log speed, DiscSpeedCurve): on one grid the peak it returns is a maximum of that grid's torque curve
+    // (torque at 1.5 % above and below the peak speed is not larger: the search's bracket is 1 %), and it lies near the thin-sheet peak 1.27202 w
+    // of Reitz (1970). On this coarse grid (2 mm cells, 2 mm gap, 10 mm magnet, kept coarse for the suite's time) the peak is high by the grid error:
+    // measured 1.441 w (+13 %); on finer grids it converges to Reitz's at second order (REACTION.md: a 6 mm magnet 2 mm from the disc, 1.3375 w at
+    // 1 mm cells, 1.2913 w at 0.5 mm, extrapolated 1.276 w, +0.3 %). Tolerance 15 %: this test checks the search, the ratio test the accuracy.
+    [Fact]
+    public void Torque_peak_is_a_maximum_near_the_thin_sheet_peak()
+    {
+        double a = 0.04, m = 0.024;
+        var model = Disc(a, 0.002);
+        var source = Magnet(a, m, 0.01, 0.002, W / m);
+        var curve = DiscSpeedCurve.Solve(model, source, Sheet, [0.0], [W / m, 1.5 * W / m, 2.25 * W / m]);
+        var peak = Assert.IsType<DiscSpeedPoint>(curve.Peak);
+        var reaction = ReactionOperator.Build(model);
+        double Torque(double omega) => DiscReaction.Solve(reaction, source.AtSpeed(omega), Sheet, [0.0]).MeanTorqueNm;
+        double below = Torque(peak.AngularSpeedRadPerS / 1.015), above = Torque(peak.AngularSpeedRadPerS * 1.015);
+        output.WriteLine($"peak {peak.TorqueNm:G6} N m at omega m / w = {peak.AngularSpeedRadPerS * m / W:F4} ({curve.PeakSearch.Count} search solves); 1.5 % below {below:G6}, above {above:G6}");
+        Assert.Equal("own-field", peak.Model);
+        Assert.True(peak.TorqueNm >= below && peak.TorqueNm >= above);
+        Assert.InRange(peak.AngularSpeedRadPerS * m / W / 1.27202 - 1, -0.15, 0.15);
+    }
 }
 
 /// <summary>`slotopt plate --speeds` on a turning disc: torque against speed with the model per point, and the peak.</summary>
@@ -95,7 +139,8 @@ public class DiscSpeedCommandTests
 
     // Copper 1 mm: w = 2 / (mu0 sigma t) = 27.4 m/s, so omega R = w at 8735 rpm. At 100 rpm (Rm = 0.011) the model is resistance-limited and its
     // torque is the file's own (same solve: 1e-12); at 4400 rpm and above own-field (Rm > 0.1, ReactionModelChoice). The peak lies between 8700
-    // and 17500 rpm (thin-sheet peak at 1.272 w = 11100 rpm, J. R. Reitz, J. Appl. Phys. 41 (1970) 2067) and is at least every point's torque.
+    // and 26000 rpm (thin-sheet peak at 1.272 w = 11100 rpm, J. R. Reitz, J. Appl. Phys. 41 (1970) 2067; on this coarse grid about 1.5 w, see
+    // DiscOwnFieldTests) and is at least every point's torque.
     [Fact]
     public void Speeds_give_torque_against_speed_with_model_and_peak()
     {
@@ -103,7 +148,7 @@ public class DiscSpeedCommandTests
         File.WriteAllText(path, CopperDisc);
         try
         {
-            var run = SlotOptInProcess.Run("plate", path, "--json", "--speeds", "100,4400,8700,17500");
+            var run = SlotOptInProcess.Run("plate", path, "--json", "--speeds", "100,4400,8700,26000");
             Assert.Equal(0, run.ExitCode);
             using var json = System.Text.Json.JsonDocument.Parse(run.Stdout);
             var curve = json.RootElement.GetProperty("torque_curve").EnumerateArray().ToList();
@@ -114,7 +159,7 @@ public class DiscSpeedCommandTests
             Assert.Equal(curve[0].GetProperty("torque_n_m").GetDouble() / 0.03, curve[0].GetProperty("drag_n").GetDouble(), 1e-12);
             var peak = json.RootElement.GetProperty("torque_peak");
             double rpm = peak.GetProperty("rotation_speed_rpm").GetDouble(), torque = peak.GetProperty("torque_n_m").GetDouble();
-            Assert.InRange(rpm, 8700, 17500);
+            Assert.InRange(rpm, 8700, 26000);
             Assert.All(curve, p => Assert.True(p.GetProperty("torque_n_m").GetDouble() <= torque));
         }
         finally { File.Delete(path); }
