@@ -71,7 +71,7 @@ public class DiscOwnFieldTests(Xunit.Abstractions.ITestOutputHelper output)
     // 1 mm from a copper disc 1 mm thick (w = 27.4 m/s), its centre at m = 24 mm on a disc 40 mm in radius, turning at omega m = 1.27202 w.
     // The ratio is second order in the cell (measured at 1, 0.5, 0.25 mm: 0.50594, 0.48171, 0.47551, differences shrinking 3.9 times), so
     // T(h/2) + (T(h/2) - T(h))/3: measured 0.47363 (from 0.5/0.25 mm: 0.47344), +0.3 % against Reitz. The sliding own-field solver on the equivalent
-    // straight strip (40 mm wide, 120 mm long, the magnet 24 mm from an edge) gives the same ratio on the same grid to 0.01 %, so the +0.3 % is the
+    // straight strip (40 mm wide, 120 mm long, the magnet 24 mm from an edge) gives the same ratio on the same grid to 0.03 %, so the +0.3 % is the
     // finite plate's, not the disc's curvature or the rotation's; a larger disc (80 mm, m = 50 mm) moves it by 0.25 %. Tolerance 0.5 %.
     [Fact]
     public void Torque_ratio_at_the_thin_sheet_peak_speed_follows_Reitz()
@@ -83,9 +83,14 @@ public class DiscOwnFieldTests(Xunit.Abstractions.ITestOutputHelper output)
             return DiscReaction.Solve(ReactionOperator.Build(model), Magnet(a, m, 0.006, 0.001, omega), Sheet, [0.0]).TorqueRatio;
         }
         double coarse = Ratio(0.001), fine = Ratio(0.0005), extrapolated = fine + (fine - coarse) / 3;
+        // the equivalent straight strip on the 1 mm grid: width a, the magnet m from one edge and 2 a behind the front end, sliding at omega m
+        var strip = SheetModel.Build(new PlateGeometry(Polygon.Rectangle(0, 0, 3 * a, a)), new GridOptions { CellSizeM = 0.001 });
+        var magnets = new MagnetArray([new MagnetPlacement(new CylinderMagnet(0.006, 0.005, 1.2), new Vec2(2 * a, m), 1)], 0.001);
+        double sliding = ReactionSolver.SolveMoving(ReactionOperator.Build(strip), new SlidingMagnets(magnets, omega * m), Sheet, [0.0]).DragRatio;
         double reitz = 2 / (1.27202 * 1.27202) * (1 - 1 / Math.Sqrt(1 + 1.27202 * 1.27202));
-        output.WriteLine($"T/T_low at 1.272 w: {coarse:F5} (1 mm), {fine:F5} (0.5 mm), extrapolated {extrapolated:F5}, Reitz {reitz:F5}");
+        output.WriteLine($"T/T_low at 1.272 w: {coarse:F5} (1 mm), {fine:F5} (0.5 mm), extrapolated {extrapolated:F5}, Reitz {reitz:F5}; strip F/F_low at 1 mm {sliding:F5}");
         Assert.InRange(extrapolated / reitz - 1, -0.005, 0.005);
+        Assert.InRange(coarse / sliding - 1, -0.002, 0.002);   // measured 0.03 % (0.004 % at 0.25 mm in the study); 0.2 %: well below the 7 % grid error both share
     }
 
     // The peak search (golden section on log speed, DiscSpeedCurve): on one grid the peak it returns is a maximum of that grid's torque curve
