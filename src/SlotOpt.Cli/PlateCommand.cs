@@ -12,7 +12,7 @@ using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
 
-/// <summary>`slotopt plate FILE [--json] [--map FILE.csv]`: eddy-current loss (and drag) of one plate described in TOML.</summary>
+/// <summary>`slotopt plate FILE [--json] [--map FILE.csv] [--out DIR [--force]]`: eddy-current loss (and drag) of one plate described in TOML, and its report.</summary>
 public static class PlateCommand
 {
     public static Command Build()
@@ -20,6 +20,8 @@ public static class PlateCommand
         var file = new Argument<string>("file") { Description = "plate file (TOML): [plate], [grid], [source], [[cutout]], [[slots]], [[cut]], [thermal]" };
         var json = new Option<bool>("--json") { Description = "print one JSON object instead of text" };
         var map = new Option<string?>("--map") { HelpName = "FILE.csv", Description = "write the current-density map as CSV (x_m,y_m,j_a_per_m2)" };
+        var outDir = new Option<string?>("--out") { HelpName = "DIR", Description = "Write the plate's report (index.html, summary.md, result.json, plots) into this folder" };
+        var force = new Option<bool>("--force") { Description = "With --out: replace the folder if it holds an earlier report" };
         var model = new Option<string>("--model")
         {
             HelpName = "MODEL",
@@ -38,18 +40,32 @@ public static class PlateCommand
         command.Options.Add(map);
         command.Options.Add(model);
         command.Options.Add(speeds);
+        command.Options.Add(outDir);
+        command.Options.Add(force);
         var limitOptions = new RunLimitOptions();
         limitOptions.AddTo(command, parallel: false, search: false);
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
             var limits = limitOptions.Start(parseResult);
             using var deadline = limits.Deadline!;
+            var (reportDir, replace) = (parseResult.GetValue(outDir), parseResult.GetValue(force));
+            ReportOutput.Check(reportDir, replace, parseResult.GetValue(file)!);
             var plate = PlateFileReader.Read(parseResult.GetValue(file)!);
             var evaluation = deadline.Run("the plate solve", () => PlateFileEvaluation.Evaluate(plate, forcedKind: ModelKind(parseResult.GetValue(model)!), limits: limits,
                 discSweep: Sweep(parseResult.GetValue(speeds))));
             var mapPath = parseResult.GetValue(map);
             if (!string.IsNullOrEmpty(mapPath)) WriteMap(evaluation.Result.Map, mapPath);
             output.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
+            if (reportDir is not null)
+            {
+                var figures = PlateFigures.Of(evaluation);
+                if (ReportOutput.Write(reportDir, replace, deadline, folder => PlateReportWriter.Write(evaluation, figures, Json(evaluation), DateTimeOffset.UtcNow, folder)) is { } signalExit)
+                {
+                    error.WriteLine("interrupted: the report was not written");
+                    return signalExit;
+                }
+                error.WriteLine($"report: {Path.Combine(reportDir, ReportWriter.HtmlFile)}");
+            }
             return ExitCodes.Success;
         }));
         return command;

@@ -1,6 +1,4 @@
 using System.CommandLine;
-using System.Runtime.InteropServices;
-using SlotOpt.Design.Limits;
 using SlotOpt.Design;
 using SlotOpt.Input;
 using SlotOpt.Reports;
@@ -32,8 +30,7 @@ public static class RunCommand
             using var deadline = evaluationLimits.Deadline!;
             var reportDir = parseResult.GetValue(outDir);
             var replace = parseResult.GetValue(force);
-            if (replace && reportDir is null) throw new InputException("--force only applies with --out DIR");
-            if (reportDir is not null) ReportFolder.CheckTarget(reportDir, replace, parseResult.GetValue(file)!);
+            ReportOutput.Check(reportDir, replace, parseResult.GetValue(file)!);
             var problem = ProblemReader.ReadFile(parseResult.GetValue(file)!);
             foreach (var w in problem.Warnings) error.WriteLine($"warning: {w}");
             RunResult result;
@@ -43,7 +40,7 @@ public static class RunCommand
             else RunText.Write(result, output);
             if (reportDir is not null)
             {
-                if (WriteReport(result, reportDir, replace, deadline) is { } signalExit)
+                if (ReportOutput.Write(reportDir, replace, deadline, folder => ReportWriter.Write(result, DateTimeOffset.UtcNow, folder)) is { } signalExit)
                 {
                     error.WriteLine("interrupted: the report was not written");
                     return signalExit;
@@ -58,42 +55,5 @@ public static class RunCommand
             };
         }));
         return command;
-    }
-
-    /// <summary>Exit codes of a run stopped by a signal while it wrote the report: 128 + the signal's number, as shells report them.</summary>
-    private const int InterruptedExit = 130, TerminatedExit = 143;
-
-    /// <summary>
-    /// Writes the report atomically. SIGINT or SIGTERM while it is written deletes the unfinished folder
-    /// (the handlers are in place before the folder is made) and returns the exit code; null when written.
-    /// The time limit passing while it is written deletes the folder too, and ends the run with the limit's error.
-    /// </summary>
-    private static int? WriteReport(RunResult result, string reportDir, bool replace, RunDeadline deadline)
-    {
-        deadline.Check("the report");
-        using var folder = ReportFolder.Begin(reportDir, replace);
-        using var onDeadline = deadline.Token.Register(folder.Abandon);
-        int? signalExit = null;
-        void Stop(PosixSignalContext context, int exitCode)
-        {
-            context.Cancel = true;
-            signalExit = exitCode;
-            folder.Abandon();
-        }
-        using var onInterrupt = PosixSignalRegistration.Create(PosixSignal.SIGINT, c => Stop(c, InterruptedExit));
-        using var onTerminate = PosixSignalRegistration.Create(PosixSignal.SIGTERM, c => Stop(c, TerminatedExit));
-        try
-        {
-            ReportWriter.Write(result, DateTimeOffset.UtcNow, folder);
-            return null;
-        }
-        catch (InvalidOperationException) when (signalExit is not null)
-        {
-            return signalExit;   // the folder was abandoned under the writer
-        }
-        catch (InvalidOperationException) when (deadline.Token.IsCancellationRequested)
-        {
-            throw deadline.Passed("the report");   // abandoned under the writer by the deadline
-        }
     }
 }

@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using System.Globalization;
 using SlotOpt.Design;
 using SlotOpt.Input.Toml;

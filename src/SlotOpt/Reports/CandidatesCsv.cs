@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using System.Globalization;
 using System.Text;
 using SlotOpt.Design;

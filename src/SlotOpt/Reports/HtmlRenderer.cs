@@ -1,3 +1,4 @@
+using SlotOpt.Reports.Plots;
 using System.Globalization;
 using System.Net;
 using System.Text;

@@ -1,3 +1,4 @@
+using SlotOpt.Reports.Plots;
 using System.Text;
 
 namespace SlotOpt.Reports;

@@ -1,3 +1,5 @@
+using SlotOpt.Design.SolidParts;
+using SlotOpt.Reports.Plots;
 using System.Globalization;
 using SlotOpt.Tables;
 using SlotOpt.Design;

@@ -1,3 +1,5 @@
+using SlotOpt.Reports.Plots;
+
 namespace SlotOpt.Reports;
 
 /// <summary>The report as a sequence of blocks, written once and rendered twice (HTML and Markdown), so the two say the same thing.</summary>

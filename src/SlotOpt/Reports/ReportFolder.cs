@@ -34,7 +34,7 @@ public sealed class ReportFolder : IDisposable
     /// <summary>The file every report folder holds; only a folder holding it is ever replaced (--force).</summary>
     public const string MarkerFile = ".slotopt-report";
 
-    private const string MarkerText = "This folder is a report written by slotopt; `slotopt run ... --out THIS --force` may replace it whole.\n";
+    private const string MarkerText = "This folder is a report written by slotopt; `slotopt run FILE --out THIS --force` (or `slotopt plate FILE ...`) may replace it whole.\n";
 
     /// <summary>
     /// Checks a report target before any work, so that a run never ends by failing to write: the name is not

@@ -1,3 +1,4 @@
+using SlotOpt.Reports.Plots;
 using SlotOpt.Runs;
 using SlotOpt.Reports.Json;
 

@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using System.Diagnostics;
 using SlotOpt.Design;
 using SlotOpt.Design.Cores;

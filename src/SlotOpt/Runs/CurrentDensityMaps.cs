@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using SlotOpt.Design;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.ResistanceLimited;

@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using SlotOpt.Design.Limits;
 using SlotOpt.Design;
 using SlotOpt.Design.Cores;

@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using SlotOpt.Design;
 using SlotOpt.Materials;
 using SlotOpt.Plates;

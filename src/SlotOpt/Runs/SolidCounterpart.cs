@@ -1,3 +1,4 @@
+using SlotOpt.Design.SolidParts;
 using SlotOpt.Design;
 
 namespace SlotOpt.Runs;

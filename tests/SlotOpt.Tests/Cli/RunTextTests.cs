@@ -1,3 +1,4 @@
+using SlotOpt.Reports.Plots;
 using SlotOpt.Tables;
 using SlotOpt.Cli;
 using SlotOpt.Input;

@@ -1,3 +1,4 @@
+using SlotOpt.Reports.Plots;
 using System.Text.Json.Nodes;
 using System.Text.RegularExpressions;
 using System.Xml.Linq;

@@ -1,3 +1,4 @@
+using SlotOpt.Reports.Plots;
 using System.Globalization;
 using SlotOpt.Input;
 using SlotOpt.Reports;

@@ -1,6 +1,7 @@
+using SlotOpt.Reports.Plots;
 using ScottPlot;
 using SlotOpt.Reports;
-using PlotStyle = SlotOpt.Reports.PlotStyle;
+using PlotStyle = SlotOpt.Reports.Plots.PlotStyle;
 
 namespace SlotOpt.Tests.Reports;
 
@@ -70,5 +71,19 @@ public class PlotChecksTests
         plot.Add.ScatterLine(new double[] { 0, 1 }, new double[] { 0, 1 });
         var error = Assert.Throws<InvalidOperationException>(() => PlotStyle.Render(plot, "no-units", "t", "c"));
         Assert.Contains("x axis label \"speed\" names no unit", error.Message);
+    }
+
+    [Fact]
+    public void A_circled_point_cut_by_the_frame_is_refused_and_one_inside_passes()
+    {
+        var plot = PlotStyle.NewPlot("circled", "x (mm)", "y (mm)");
+        plot.Axes.SetLimits(0, 100, 0, 100);
+        var circle = plot.Add.Marker(50, 100, MarkerShape.OpenCircle, 12);   // centre on the top edge: half the circle outside
+        plot.GetImageBytes(400, 300, ImageFormat.Png);
+        var error = Assert.Throws<InvalidOperationException>(() => PlotChecks.MarkersInsideFrame(plot, "circled"));
+        Assert.Contains("cut by the data area's frame", error.Message);
+        circle.Location = new Coordinates(50, 90);   // about 20 px below the top edge of a ~200 px data area
+        plot.GetImageBytes(400, 300, ImageFormat.Png);
+        PlotChecks.MarkersInsideFrame(plot, "circled");
     }
 }
