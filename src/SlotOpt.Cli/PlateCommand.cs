@@ -29,11 +29,17 @@ public static class PlateCommand
             DefaultValueFactory = _ => "auto",
         };
         model.AcceptOnlyFromAmong("auto", "resistance-limited", "own-field", "thick", "thick-slab");
+        var speeds = new Option<string?>("--speeds")
+        {
+            HelpName = "RPM,RPM,...|auto",
+            Description = "a turning disc: torque against speed at these speeds (rpm), or auto for a sweep up to past the torque's peak; the peak is found between the sweep's points",
+        };
         var command = new Command("plate", "Eddy-current loss and drag of one conducting plate in a normal field, with the model its validity figures call for.");
         command.Arguments.Add(file);
         command.Options.Add(json);
         command.Options.Add(map);
         command.Options.Add(model);
+        command.Options.Add(speeds);
         command.Options.Add(outDir);
         command.Options.Add(force);
         var limitOptions = new RunLimitOptions();
@@ -45,7 +51,8 @@ public static class PlateCommand
             var (reportDir, replace) = (parseResult.GetValue(outDir), parseResult.GetValue(force));
             ReportOutput.Check(reportDir, replace, parseResult.GetValue(file)!);
             var plate = PlateFileReader.Read(parseResult.GetValue(file)!);
-            var evaluation = deadline.Run("the plate solve", () => PlateFileEvaluation.Evaluate(plate, forcedKind: ModelKind(parseResult.GetValue(model)!), limits: limits));
+            var evaluation = deadline.Run("the plate solve", () => PlateFileEvaluation.Evaluate(plate, forcedKind: ModelKind(parseResult.GetValue(model)!), limits: limits,
+                discSweep: Sweep(parseResult.GetValue(speeds))));
             var mapPath = parseResult.GetValue(map);
             if (!string.IsNullOrEmpty(mapPath)) WriteMap(evaluation.Result.Map, mapPath);
             output.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
@@ -62,6 +69,21 @@ public static class PlateCommand
             return ExitCodes.Success;
         }));
         return command;
+    }
+
+    /// <summary>The --speeds value: null without it, the default sweep for auto, else the listed speeds (rpm) in rad/s.</summary>
+    private static DiscSweep? Sweep(string? value)
+    {
+        if (value is null) return null;
+        if (value.Trim() == "auto") return new DiscSweep(null);
+        var speeds = new List<double>();
+        foreach (var word in value.Split(',', StringSplitOptions.TrimEntries))
+        {
+            if (!double.TryParse(word, NumberStyles.Float, CultureInfo.InvariantCulture, out var rpm) || !(rpm > 0) || !double.IsFinite(rpm))
+                throw new InputException($"--speeds: '{word}' is not a positive speed in rpm (give RPM,RPM,... or auto)");
+            speeds.Add(rpm * 2 * Math.PI / 60);
+        }
+        return new DiscSweep(speeds);
     }
 
     /// <summary>The --model word as a model kind; null for auto.</summary>
@@ -125,8 +147,13 @@ public static class PlateCommand
             SlabLiftN = e.SlabSpeedCurve?.Select(f => f.LiftN).ToList(),
             SlabLossW = e.SlabSpeedCurve?.Select(f => f.LossW).ToList(),
             SlabQuadratureError = e.SlabSpeedCurve?.Max(f => f.RelativeErrorEstimate),
+            TorqueCurve = e.SpeedCurve?.Points.Select(p => DiscSpeed(p, e)).ToList(),
+            TorquePeak = e.SpeedCurve?.Peak is { } peak ? DiscSpeed(peak, e) : null,
         }.Serialize();
     }
+
+    private static DiscSpeedJson DiscSpeed(DiscSpeedPoint p, PlateFileEvaluation e) =>
+        new(p.Rpm, p.TorqueNm, p.TorqueNm / e.Case.Rotation!.Source.SourceRadiusM, p.LossW, p.Model);
 
     private static string Text(PlateFileEvaluation e)
     {
@@ -138,6 +165,14 @@ public static class PlateCommand
         s.AppendLine(c, $"  loss                 {Numbers.Watts(e.LossW)}{(e.Case.MovingSource is null && e.Case.Rotation is null ? (e.Case.Approach is null ? " (time average)" : "") : $" (mean over {e.Case.AveragedOver})")}");
         if (e.TorqueNm is { } torque && e.Case.Rotation is { } rotation)
             s.AppendLine(c, $"  torque               {Numbers.Of(torque, "N m")} at {Numbers.Of(rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI), "rpm")} ({rotation.Source.Words})");
+        if (e.SpeedCurve is { } speedCurve)
+        {
+            s.AppendLine(c, $"  torque against speed ({e.Case.Rotation!.Source.Words}):");
+            foreach (var p in speedCurve.Points) s.AppendLine(c, $"    {Numbers.Of(p.Rpm, "rpm"),-16} {Numbers.Of(p.TorqueNm, "N m"),-14} loss {Numbers.Watts(p.LossW),-12} {p.Model}");
+            if (speedCurve.Peak is { } pk)
+                s.AppendLine(c, $"  torque peak          {Numbers.Of(pk.TorqueNm, "N m")} at {Numbers.Of(pk.Rpm, "rpm")} ({pk.Model}; golden-section search to {DiscSpeedCurve.PeakSpeedTolerance:P0} in speed, {speedCurve.PeakSearch.Count} solves)");
+            else s.AppendLine("  torque peak          not bracketed: the largest torque is at an end of the speeds given (extend them, or --speeds auto)");
+        }
         if (e.ApproachCurve is { } curve)
             foreach (var p in curve) s.AppendLine(c, $"  damping force        {Numbers.Newtons(p.ForceN)} at {Numbers.Of(p.GapM * 1e3, "mm")} gap, approaching at {Numbers.Of(e.Case.Approach!.SpeedMPerS, "m/s")}");
         else if (e.MeanDragN is { } drag) s.AppendLine(c, $"  drag                 {Numbers.Newtons(drag)}{(e.Case.Rotation is null ? "" : " along the magnets' path")} (min {Numbers.Newtons(e.DragPerOffsetN.Min())}, max {Numbers.Newtons(e.DragPerOffsetN.Max())})");

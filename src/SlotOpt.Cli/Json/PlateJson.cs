@@ -57,4 +57,15 @@ public sealed record PlateJson(
     public IReadOnlyList<double>? SlabLiftN { get; init; }
     public IReadOnlyList<double>? SlabLossW { get; init; }
     public double? SlabQuadratureError { get; init; }
+    /// <summary>A turning disc with --speeds: torque against speed (the model per point) and the peak when the speeds bracket it.</summary>
+    public IReadOnlyList<DiscSpeedJson>? TorqueCurve { get; init; }
+    public DiscSpeedJson? TorquePeak { get; init; }
 }
+
+/// <summary>One speed of a turning disc: torque, the force along the magnets' path (drag_n = torque over their radius), loss and the model that made them.</summary>
+public sealed record DiscSpeedJson(
+    double RotationSpeedRpm,
+    [property: System.Text.Json.Serialization.JsonPropertyName("torque_n_m")] double TorqueNM,
+    double DragN,
+    double LossW,
+    string Model);

@@ -5,6 +5,7 @@ using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.ReducedBasis;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Plates.Thick;
 
 namespace SlotOpt.Plates;
@@ -78,6 +79,33 @@ public static class PlateModels
         notes.AddRange(s.Notes);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered moving solver)");
         return new PlateSolution(choice, s.OffsetsXM, s.LossW, s.DragN, s.LiftN, s.ResistanceLimitedDragN.Select(d => d * v).ToArray(), notes, s.Iterations.Sum(), s.MaxRelativeResidual, null);
+    }
+
+    /// <summary>
+    /// A thin disc turning under a fixed source (<see cref="RotatingSource"/>, at its own angular speed) at each of anglesRad: torque and loss from the
+    /// model the validity figures call for at the source's path speed omega R (R = <see cref="RotatingSource.SourceRadiusM"/>, length scale
+    /// <see cref="RotatingSource.LoopLengthM"/>): resistance-limited (<see cref="DiscTorque"/>, scaled by G) or own-field (<see cref="DiscReaction"/>).
+    /// Beyond the thin sheet the own-field answer comes with a warning (no layered rotating solver).
+    /// </summary>
+    /// <param name="initialGuess">u = psi / G at the first angle for the own-field solve (<see cref="DiscSolution.OwnFieldU"/> of a nearby speed); ignored resistance-limited</param>
+    public static DiscSolution SolveDisc(SheetModel model, RotatingSource source, ConductingSheet conductor, IReadOnlyList<double> anglesRad,
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null,
+        double[]? initialGuess = null)
+    {
+        CheckOperator(model, reaction);
+        if (forcedKind == SheetModelKind.BeyondThinSheet) throw new InputException("the layered thick-plate model is for AC fields only: there is no layered rotating solver (use auto, resistance-limited or own-field)");
+        double omega = source.AngularSpeedRadPerS, g = conductor.SheetConductanceS;
+        var choice = ReactionModelChoice.Forced(ReactionModelChoice.ForMoving(conductor, omega * source.SourceRadiusM, source.LoopLengthM, accuracy), forcedKind);
+        var notes = new List<string> { choice.Reason };
+        if (choice.Kind == SheetModelKind.ResistanceLimited)
+        {
+            var low = DiscTorque.Solve(model, source, anglesRad, criterion);
+            var loss = low.LossPerSiemensW.Select(p => g * p).ToArray();       // P = G P_unit (resistance-limited scaling)
+            return new DiscSolution(choice, omega, anglesRad.ToArray(), loss, loss, notes, low.Iterations, low.MaxRelativeResidual, low, null);
+        }
+        var s = DiscReaction.Solve(reaction ?? ReactionOperator.Build(model), source, conductor, anglesRad, criterion, initialGuess);
+        if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered rotating solver)");
+        return new DiscSolution(choice, omega, s.AnglesRad, s.LossW, s.ResistanceLimitedLossW, notes, s.Iterations, s.MaxRelativeResidual, null, s.FirstU);
     }
 
     /// <summary>

@@ -43,6 +43,9 @@ public sealed record PlateFileEvaluation(
     /// <summary>A turning disc: the mean braking torque (N m); MeanDragN is then the torque over the magnets' radius, the force along their path.</summary>
     public double? TorqueNm { get; init; }
 
+    /// <summary>A turning disc with a sweep: torque against speed with the model per point, and the peak when the sweep brackets it.</summary>
+    public DiscSpeedCurve? SpeedCurve { get; init; }
+
     /// <summary>Magnets approaching: the damping force at each gap of the case (MeanDragN is the one at the first gap).</summary>
     public IReadOnlyList<GapPoint>? ApproachCurve { get; init; }
 
@@ -51,13 +54,16 @@ public sealed record PlateFileEvaluation(
 
     /// <param name="forcedKind">the model asked for (--model); null lets the validity figures choose</param>
     /// <param name="limits">Memory: the estimate of the case's solve is checked before anything is built.</param>
-    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null, EvaluationLimits? limits = null)
+    /// <param name="discSweep">a turning disc: torque against speed and its peak as well (null: the file's speed only); refused for other plates</param>
+    public static PlateFileEvaluation Evaluate(PlateCase plate, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null, EvaluationLimits? limits = null,
+        DiscSweep? discSweep = null)
     {
         limits ??= EvaluationLimits.Default;
         plate = WithinMemory(plate, limits);
         if (forcedKind == SheetModelKind.ThickSlab && plate.MovingSource is null)
             throw new InputException($"{plate.Path}: --model thick-slab is for magnets sliding over a block; this plate's source is not a sliding one");
-        if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind);
+        if (discSweep is not null && plate.Rotation is null) throw new InputException($"{plate.Path}: a torque-speed sweep (--speeds) is for a turning disc (motion = \"rotation\")");
+        if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind, discSweep);
         if (plate.Approach is { } approach) return EvaluateApproach(plate, approach, criterion, forcedKind);
         if (plate.Thermal is not null)
         {
@@ -87,31 +93,33 @@ public sealed record PlateFileEvaluation(
     }
 
     /// <summary>
-    /// A disc turning under fixed magnets, resistance-limited (<see cref="DiscTorque"/>; there is no own-field model for rotation): torque,
-    /// the force along the magnets' path (torque over their radius), loss, and the map at the angle with the most loss. The validity figures
-    /// are those of a slide at the magnets' path speed omega R; where they call for the plate's own field, a note says torque and loss are overstated.
+    /// A disc turning under fixed magnets (<see cref="PlateModels.SolveDisc"/>: resistance-limited or own-field, as the validity figures of a slide at the
+    /// magnets' path speed omega R call for, or as asked): torque, the force along the magnets' path (torque over their radius), loss, and the map at the
+    /// angle with the most loss (resistance-limited; a note says so when the own-field model ran). With a sweep, torque against speed and its peak
+    /// (<see cref="DiscSpeedCurve"/>).
     /// </summary>
-    private static PlateFileEvaluation EvaluateRotation(PlateCase plate, DiscRotation rotation, ConvergenceCriterion? criterion, SheetModelKind? forcedKind)
+    private static PlateFileEvaluation EvaluateRotation(PlateCase plate, DiscRotation rotation, ConvergenceCriterion? criterion, SheetModelKind? forcedKind, DiscSweep? sweep)
     {
-        ResistanceLimitedOnly(plate, forcedKind, "a turning disc");
+        if (plate.Thermal is not null) throw new InputException($"{plate.Path}: [thermal] is for plates under sliding sources and AC fields; a turning disc has no temperature coupling");
+        if (forcedKind == SheetModelKind.BeyondThinSheet) throw new InputException($"{plate.Path}: --model thick is for AC fields only: there is no layered rotating solver (use auto, resistance-limited or own-field)");
         var source = rotation.Source;
         var model = SheetModel.Build(plate.Geometry, plate.Grid with { SourceFeatures = source.GridFeatures });
         var clock = Stopwatch.StartNew();
         double g = plate.Sheet.SheetConductanceS, pathSpeed = source.AngularSpeedRadPerS * source.SourceRadiusM;
-        var wanted = ReactionModelChoice.ForMoving(plate.Sheet, pathSpeed, source.LoopLengthM);
-        var solution = DiscTorque.Solve(model, source, rotation.AnglesRad, criterion);
-        GridErrorOf(model, m => DiscTorque.Solve(m, source, rotation.AnglesRad, criterion).MeanLossW(g), solution.MeanLossW(g), out var gridError);
-        var notes = new List<string>();
-        if (wanted.Kind != SheetModelKind.ResistanceLimited)
-            notes.Add($"the turning disc is solved resistance-limited (there is no own-field model for rotation), but at the magnets' path speed its validity calls for another ({wanted.Reason}): torque and loss are overstated");
-        var peak = new UnitConductanceSolution(model, SourceKind.Moving, solution.PeakPsiPerSiemens, null, solution.LossPerSiemensW[solution.PeakIndex], 0, pathSpeed,
-            rotation.AnglesRad[solution.PeakIndex] * source.SourceRadiusM, solution.Iterations, solution.MaxRelativeResidual, notes).ScaleTo(plate.Sheet);
-        var torque = solution.TorqueNm(g);
-        var choice = wanted with { Kind = SheetModelKind.ResistanceLimited, Reason = "resistance-limited (the only model for a turning disc): " + wanted.Reason };
-        return new PlateFileEvaluation(plate, choice, WithGridNote(peak, gridError), solution.MeanLossW(g), solution.MeanTorqueNm(g) / source.SourceRadiusM,
+        var disc = PlateModels.SolveDisc(model, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: forcedKind);
+        GridErrorOf(model, m => PlateModels.SolveDisc(m, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: disc.Choice.Kind).MeanLossW, disc.MeanLossW, out var gridError);
+        var low = disc.ResistanceLimited ?? DiscTorque.Solve(model, source, rotation.AnglesRad, criterion);
+        var notes = disc.Notes.Skip(1).ToList();
+        if (disc.ResistanceLimited is null) notes.Add("the current-density map and its peak and RMS are from the resistance-limited model, which overstates them here; torque and loss are from the model that ran");
+        var peak = new UnitConductanceSolution(model, SourceKind.Moving, low.PeakPsiPerSiemens, null, low.LossPerSiemensW[low.PeakIndex], 0, pathSpeed,
+            rotation.AnglesRad[low.PeakIndex] * source.SourceRadiusM, low.Iterations, low.MaxRelativeResidual, notes).ScaleTo(plate.Sheet);
+        var torque = disc.TorqueNm;
+        var curve = sweep is null ? null
+            : DiscSpeedCurve.Solve(model, source, plate.Sheet, rotation.AnglesRad, sweep.SpeedsRadPerS ?? DiscSpeedCurve.DefaultSpeedsRadPerS(source, plate.Sheet), criterion: criterion, forcedKind: forcedKind);
+        return new PlateFileEvaluation(plate, disc.Choice, WithGridNote(peak, gridError), disc.MeanLossW, disc.MeanTorqueNm / source.SourceRadiusM,
             rotation.AnglesRad.Select(a => a * source.SourceRadiusM).ToArray(), torque.Select(t => t / source.SourceRadiusM).ToArray(),
-            solution.LossPerSiemensW.Select(p => p * g).ToArray(), solution.Iterations, solution.MaxRelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
-            { GridError = gridError, TorqueNm = solution.MeanTorqueNm(g) };
+            disc.LossW, disc.Iterations, disc.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
+            { GridError = gridError, TorqueNm = disc.MeanTorqueNm, SpeedCurve = curve };
     }
 
     /// <summary>

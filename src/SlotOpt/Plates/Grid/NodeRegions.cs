@@ -49,9 +49,11 @@ public sealed class NodeRegions
                 sets.Union(n00, n00 + nxn + 1);
             }
         foreach (var cut in grid.Geometry.Cuts) MergeAlong(cut, l, sets);
-        double cellLimit = 2 * Math.Max(l.Hx, l.Hy);
-        foreach (var slot in grid.Geometry.Slots)
-            if (slot.WidthM < cellLimit) MergeAlong(slot.CentreLine, l, sets);   // wider slots always leave empty cells
+        // Every slot is merged along its centre line, whatever its width: psi is one constant over a connected insulating region, and a slot
+        // two or three cells wide at an angle to the lattice need not leave a connected chain of empty cells (it breaks into islands joined
+        // by partly covered cells, a leaky slot with many merged unknowns that the multigrid converges on slowly); wider slots' centre
+        // lines lie in empty cells already, so merging them changes nothing there.
+        foreach (var slot in grid.Geometry.Slots) MergeAlong(slot.CentreLine, l, sets);
 
         var nodeUnknown = new int[nodes];
         var rootUnknown = new Dictionary<int, int>();

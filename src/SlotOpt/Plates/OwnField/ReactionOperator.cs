@@ -15,7 +15,7 @@ namespace SlotOpt.Plates.OwnField;
 /// A merged region (hole, cut) is one unknown whose basis is the sum of its nodes' hats: its row
 /// is the flux through the hole. Not thread-safe (one work buffer); build one per thread.
 /// </summary>
-public sealed class ReactionOperator
+public sealed partial class ReactionOperator
 {
     private readonly int[] _nodeUnknown;
     /// <summary>Per interior lattice node (in padded-lattice order of the input region): its unknown, or -1 outside.</summary>
