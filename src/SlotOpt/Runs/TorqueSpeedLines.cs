@@ -33,6 +33,14 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
         var n0 = turning.Rpm;
         var ends = designs.Select(d => ReynoldsLimitRpm(part, turning, d.Option, problem)).ToList();
         var maxRpm = Math.Max(Math.Max(2 * n0, part.MinTorque?.Rpm * 1.25 ?? 0), Math.Min(1.25 * ends.Max(), 4 * n0));
+        // a brake (min_torque): on to past the chosen disc's torque peak, which a thin sheet under a compact source shows near the path speed
+        // 1.272 w, w = 2 / (mu0 sigma t) (Reitz, J. Appl. Phys. 41 (1970) 2067, thin-sheet drag), capped at ten times the source's speed
+        if (part.MinTorque is not null)
+        {
+            var chosenSheet = SheetOf(part, (PlateChoice)chosen.Choice, problem);
+            var peakRpm = 1.272 * 2 / (Validity.Mu0 * chosenSheet.SheetConductanceS) / turning.Source.SourceRadiusM * 60 / (2 * Math.PI);
+            maxRpm = Math.Max(maxRpm, Math.Min(2 * peakRpm, 10 * n0));
+        }
         var lines = designs.Select((d, k) =>
         {
             var choice = (PlateChoice)d.Option.Choice;
@@ -47,7 +55,9 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
                 var number = TurningDiscModel.Evaluate(part, solved, sheet, n);
                 points.Add(new Point(n, number.TorqueNm, number.Model.Name));
             }
-            return new Line(d.Option, d.Role, points, ends[k], null);
+            var top = points.IndexOf(points.MaxBy(p => p.TorqueNm)!);
+            var peak = top > 0 && top < points.Count - 1 && points[top].Model != "resistance-limited" ? points[top].Rpm : (double?)null;   // an interior maximum of the own-field line
+            return new Line(d.Option, d.Role, points, ends[k], peak);
         }).ToList();
         return new TorqueSpeedLines(part.Name, n0, maxRpm, lines);
     }
