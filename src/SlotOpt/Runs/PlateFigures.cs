@@ -26,9 +26,9 @@ public sealed record PlateFigures(
     SpeedCurve? Speed,
     PlateTemperatureFigures? Temperature)
 {
-    /// <param name="speed">A curve against speed where the evaluation computed one (null: no such plot).</param>
-    public static PlateFigures Of(PlateFileEvaluation e, SpeedCurve? speed = null)
+    public static PlateFigures Of(PlateFileEvaluation e)
     {
+        var speed = SpeedCurveOf(e);
         var approach = e.ApproachCurve is { } points ? new ApproachCurve(points, e.Case.Approach!.SpeedMPerS) : null;
         TravelCurve? travel = null;
         DiscAngleCurve? disc = null;
@@ -48,6 +48,27 @@ public sealed record PlateFigures(
         return new PlateFigures(ReactionModelChoice.Name(e.Choice.Kind), e.Choice.Reason, grid?.Relative, grid?.CellM, grid?.CoarseCellM,
             ReactionModelChoice.Name(SheetModelKind.ResistanceLimited), e.Result.Map, e.Result.PeakCurrentDensityAPerM2, PlateDrawing.Of(e.Case.Geometry),
             approach, travel, disc, speed, temperature);
+    }
+
+    /// <summary>
+    /// The curve against speed the evaluation computed, if any: a turning disc's torque against speed (--speeds, the model per point and the
+    /// peak the search found), or the thick slab's drag against speed.
+    /// </summary>
+    private static SpeedCurve? SpeedCurveOf(PlateFileEvaluation e)
+    {
+        if (e.SpeedCurve is { } disc)
+        {
+            static SpeedCurvePoint Point(DiscSpeedPoint p) => new(p.Rpm, p.TorqueNm, p.Model);
+            var points = disc.Points.Concat(disc.PeakSearch).DistinctBy(p => p.AngularSpeedRadPerS).OrderBy(p => p.AngularSpeedRadPerS).Select(Point).ToList();   // the sweep and the peak search's solves
+            return new SpeedCurve("rotation speed", "rpm", "braking torque", "N m", points, disc.Peak is { } peak ? Point(peak) : null);
+        }
+        if (e.SlabSpeedCurve is { Count: > 0 } slab)
+        {
+            var points = slab.Select(f => new SpeedCurvePoint(f.SpeedMPerS, f.DragN, ReactionModelChoice.Name(SheetModelKind.ThickSlab))).ToList();
+            var top = points.IndexOf(points.MaxBy(p => p.Value)!);
+            return new SpeedCurve("speed", "m/s", "drag", "N", points, top > 0 && top < points.Count - 1 ? points[top] : null);
+        }
+        return null;
     }
 }
 
