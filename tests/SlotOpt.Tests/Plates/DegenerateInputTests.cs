@@ -36,14 +36,14 @@ public class DegenerateInputTests
         Assert.Contains("thickness must be positive", e.Message);
     }
 
-    // 1 m x 1 m at 0.1 mm cells is 1e8 cells; at GridOptions.BytesPerCellEstimate = 220 B (measured by the
-    // bench) that is 22.0 GB, far above the 4.2 M-cell limit. The message must carry that estimate.
+    // 1 m x 1 m at 0.1 mm cells is 1e8 cells; at GridOptions.BytesPerCellEstimate = 240 B (measured by the
+    // bench) that is 24.0 GB, far above the 4.2 M-cell limit. The message must carry that estimate.
     [Fact]
     public void Grid_beyond_the_memory_limit_is_refused_with_the_estimate()
     {
         var e = Assert.Throws<InputException>(() => SheetModel.Build(PlateGeometry.Rectangle(1, 1), new GridOptions { CellSizeM = 1e-4 }));
         Assert.Contains("1.00E+008 cells", e.Message);
-        Assert.Contains("22.0 GB", e.Message);
+        Assert.Contains("24.0 GB", e.Message);
     }
 
     // Automatic sizing wants 8 cells across the narrowest strip (0.1 mm strips on a 1 m plate would need

@@ -32,10 +32,10 @@ public sealed record GridOptions
 
     /// <summary>
     /// Memory of grid, operator, multigrid hierarchy and Krylov vectors per cell while one plate is built and solved:
-    /// the peak working-set growth of the sheets bench (SheetsBench, comb-slotted plate, 2026-12-02), 196-227 bytes per
-    /// unknown from 512² to 2048² (781 MB at 2048²), of which about 145 stay retained with the solved model.
+    /// the peak working-set growth of the sheets bench (SheetsBench, comb-slotted plate, 2026-12-02, CG on the node lattice),
+    /// 196-233 bytes per unknown from 512² to 2048² (841 MB at 2048²), of which about 145 stay retained with the solved model.
     /// </summary>
-    public const double BytesPerCellEstimate = 220;
+    public const double BytesPerCellEstimate = 240;
 
     public int CellsAcross(GridFeatureKind kind) => kind switch
     {
