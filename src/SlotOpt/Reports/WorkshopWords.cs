@@ -18,6 +18,8 @@ public static class WorkshopWords
                 return string.Create(ci, $"{a["sheets"]} sheets of {c.Grade}, {a["gauge_mm"]} mm gauge ({a["steel_mass_kg"]} kg of steel), cut by {c.Process}");
             case PlateChoice { Slots: null } p:
                 return string.Create(ci, $"{p.Material} plate {p.ThicknessM * 1e3:0.###} mm thick, solid (no slots), cut by {p.Process}");
+            case PlateChoice { Slots.Radial: not null } p:   // a disc: the slot words carry their count ("32 radial slots from 45 mm ...")
+                return string.Create(ci, $"{p.Material} disc {p.ThicknessM * 1e3:0.###} mm thick, cut by {p.Process}; {PlateOptions.Describe(p.Slots!)}");
             case PlateChoice p:
                 var slots = p.Slots!;
                 var count = a.TryGetValue("slot_count", out var n) ? n : "?";

@@ -88,6 +88,18 @@ public class TurningDiscRunTests(Xunit.Abstractions.ITestOutputHelper output)
         Assert.True(Run.Value.Confirmation("brake disc")!.MinimumTorque!.Reached);
     }
 
+    // The report names a radially slotted disc as a workshop orders it: a disc, its sheet, and the slot words once, with their count
+    // (wording of our own; common practice, no source).
+    [Fact]
+    public void A_radially_slotted_option_is_named_as_a_disc_with_its_slots_once()
+    {
+        var slotted = Run.Value.Parts[0].Options.First(o => o.Choice is PlateChoice { Slots.Radial.Count: 8, ThicknessM: 0.002, Material: "Cu-ETP" });
+        var words = SlotOpt.Reports.WorkshopWords.Of(slotted);
+        Assert.StartsWith("Cu-ETP disc 2 mm thick, cut by ", words);
+        Assert.Single(System.Text.RegularExpressions.Regex.Matches(words, "radial slots"));
+        Assert.DoesNotContain("slots:", words);
+    }
+
     // The same disc as a plate file (`slotopt plate`): the same model (resistance-limited DiscTorque), the same grid (2 mm cells), the same
     // disc angles, so loss and torque agree to rounding. Tolerance 1e-9 relative: only the order of a few sums could differ.
     [Fact]
