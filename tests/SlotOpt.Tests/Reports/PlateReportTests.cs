@@ -280,6 +280,24 @@ public sealed class PlateReportTests : IDisposable
         Assert.True(PlotChecks.HasUnit(xLabel) && PlotChecks.HasUnit(yLabel));
     }
 
+    /// <summary>A solid disc is solved at one angle: a curve over angles would be one point on a zero-width axis, so there is no motion plot.</summary>
+    [Fact]
+    public void A_disc_solved_at_one_angle_has_no_torque_angle_plot()
+    {
+        var solid = DiscFile.Replace("""
+            [[slots]]
+            pattern = "radial"
+            count = 8
+            width = "4 mm"
+            from = "25 mm"
+            """, "");
+        Assert.DoesNotContain("radial", solid);
+        var e = PlateFileEvaluation.Evaluate(PlateFileReader.Parse(solid, "solid.toml"));
+        Assert.Single(e.Case.Rotation!.AnglesRad);
+        var figures = PlateReportFigures.Of(PlateFigures.Of(e), "solid", sourceMoves: true);
+        Assert.Null(figures.Motion);
+    }
+
     /// <summary>
     /// The neutral curve against speed: points marked one colour a model, the peak ringed and named in the legend. The series is
     /// the shape of the thin-sheet drag against speed, F(v) proportional to v w / (v^2 + w^2), which peaks at v = w (Reitz,

@@ -5,7 +5,8 @@ namespace SlotOpt.Reports.Plots;
 
 /// <summary>
 /// Every plot of one plate report, drawn from the numbers the plate evaluation computed (<see cref="PlateFigures"/>): the
-/// curve of the case's motion (damping force against gap, drag along the travel, or torque against disc angle), the curve
+/// curve of the case's motion (damping force against gap, drag along the travel, or torque against disc angle, where the
+/// evaluation has more than one travel position or angle), the curve
 /// against speed where there is one, and the current-density map.
 /// </summary>
 public sealed record PlateReportFigures(Figure? Motion, Figure? Speed, Figure CurrentDensity)
@@ -16,9 +17,10 @@ public sealed record PlateReportFigures(Figure? Motion, Figure? Speed, Figure Cu
 
     public static PlateReportFigures Of(PlateFigures f, string plateName, bool sourceMoves)
     {
+        // a curve over disc angles or travel positions needs more than one of them (a solid disc is solved at one angle)
         Figure? motion = f.Approach is { } approach ? ApproachForcePlot.Build(approach, f.Model)
-            : f.DiscAngle is { } disc ? DiscTorquePlot.Build(disc, f.Model)
-            : f.Travel is { } travel ? TravelDragPlot.Build(travel, f.Model)
+            : f.DiscAngle is { AnglesRad.Count: > 1 } disc ? DiscTorquePlot.Build(disc, f.Model)
+            : f.Travel is { PositionsM.Count: > 1 } travel ? TravelDragPlot.Build(travel, f.Model)
             : null;
         var speed = f.Speed is { } curve ? SpeedCurvePlot.Build(curve) : null;
         var when = f.Approach is not null ? "at the first gap"
