@@ -93,8 +93,10 @@ public sealed record PlateConfirmation(
             if (gridError.IsLarge) notes.Add(gridError.Warning);
         }
         catch (InputException) { notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell"); }
-        MinimumTorqueCheck? minimum = part.MinTorque is { } wanted
-            ? new MinimumTorqueCheck(wanted.Rpm, wanted.TorqueNm, wanted.ScreenTorqueNm(number.TorqueNm, turning.Rpm), number.Model.Kind)
+        // min_torque: the disc solved at the minimum's own speed by the model its validity calls for there (the screen scaled linearly,
+        // which the own field does not: as MinimumDrag is confirmed at its speed)
+        MinimumTorqueCheck? minimum = part.MinTorque is { } wanted && TurningDiscModel.Evaluate(part, solved, conductor, wanted.Rpm) is var atWanted
+            ? new MinimumTorqueCheck(wanted.Rpm, wanted.TorqueNm, atWanted.TorqueNm, atWanted.Model.Kind)
             : null;
         return new PlateConfirmation(part.Name, number.Model.Kind, number.Model.Reason, number.LossW, number.TorqueNm / turning.Source.SourceRadiusM, null, solved.LossPerSiemensW * conductor.SheetConductanceS,
             notes, null, gridError) { TorqueNm = number.TorqueNm, MinimumTorque = minimum };
