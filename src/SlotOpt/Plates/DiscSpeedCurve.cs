@@ -34,7 +34,7 @@ public sealed record DiscSpeedCurve(IReadOnlyList<DiscSpeedPoint> Points, DiscSp
     }
 
     public static DiscSpeedCurve Solve(SheetModel model, RotatingSource source, ConductingSheet conductor, IReadOnlyList<double> anglesRad, IReadOnlyList<double> speedsRadPerS,
-        double accuracy = ReactionModelChoice.DefaultAccuracy, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null, bool findPeak = true)
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
     {
         if (speedsRadPerS.Count == 0) throw new InputException("a torque-speed sweep needs at least one speed");
         var speeds = speedsRadPerS.OrderBy(s => s).ToArray();
@@ -52,7 +52,7 @@ public sealed record DiscSpeedCurve(IReadOnlyList<DiscSpeedPoint> Points, DiscSp
         var points = speeds.Select(At).ToList();
         int best = 0;
         for (int k = 1; k < points.Count; k++) if (points[k].TorqueNm > points[best].TorqueNm) best = k;
-        if (!findPeak || best == 0 || best == points.Count - 1) return new DiscSpeedCurve(points, null, []);
+        if (best == 0 || best == points.Count - 1) return new DiscSpeedCurve(points, null, []);
         var search = new List<DiscSpeedPoint>();
         var peak = GoldenSection(Math.Log(speeds[best - 1]), Math.Log(speeds[best + 1]), x => { var p = At(Math.Exp(x)); search.Add(p); return p; });
         if (points[best].TorqueNm > peak.TorqueNm) peak = points[best];

@@ -1,5 +1,6 @@
 using SlotOpt.Design.SolidParts;
 using SlotOpt.Design;
+using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
 
 namespace SlotOpt.Runs;
@@ -51,7 +52,7 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
             for (var i = 0; i < Samples; i++)
             {
                 var n = maxRpm * i / (Samples - 1);
-                if (n == 0) { points.Add(new Point(0, 0, TurningDiscModel.Evaluate(part, solved, sheet).Model.Name)); continue; }   // no motion, no torque
+                if (n == 0) { points.Add(new Point(0, 0, ReactionModelChoice.Name(TurningDiscModel.ValidityOf(turning, sheet).Kind))); continue; }   // no motion, no torque: the run speed's model names the point
                 var number = TurningDiscModel.Evaluate(part, solved, sheet, n);
                 points.Add(new Point(n, number.TorqueNm, number.Model.Name));
             }

@@ -106,7 +106,7 @@ internal static class LatticeConjugateGradient
 
     /// <summary>a . b over [from, from + count), in four interleaved partial sums (so the additions do not wait on one another).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal static double Dot(double[] a, double[] b, int from, int count)
+    private static double Dot(double[] a, double[] b, int from, int count)
     {
         ref double ar = ref MemoryMarshal.GetArrayDataReference(a);
         ref double br = ref MemoryMarshal.GetArrayDataReference(b);
@@ -125,7 +125,7 @@ internal static class LatticeConjugateGradient
 
     /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2 (four interleaved partial sums, as <see cref="Dot"/>).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal static double UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha, int from, int count)
+    private static double UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha, int from, int count)
     {
         ref double xr = ref MemoryMarshal.GetArrayDataReference(x);
         ref double rr = ref MemoryMarshal.GetArrayDataReference(r);

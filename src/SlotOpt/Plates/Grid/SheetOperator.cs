@@ -103,6 +103,10 @@ public sealed class SheetOperator
         if (i1 < 0 || j1 < 0 || i2 >= l.Nx || j2 >= l.Ny || i2 < 0 || j2 < 0 || i1 >= l.Nx || j1 >= l.Ny) return 0;
         double g1 = g[j1 * l.Nx + i1], g2 = g[j2 * l.Nx + i2];
         if (g1 == 0 || g2 == 0) return 0;
-        return aspect * 0.5 * (1 / g1 + 1 / g2);
+        return EdgeResistance(1 / g1, 1 / g2, aspect);
     }
+
+    /// <summary>The resistance of the grid edge between two cells from their inverse relative conductances: aspect (1/g1 + 1/g2) / 2, the two half cells in series; 0 when either cell is empty (inverse 0).</summary>
+    internal static double EdgeResistance(double inverse1, double inverse2, double aspect) =>
+        inverse1 == 0 || inverse2 == 0 ? 0 : aspect * 0.5 * (inverse1 + inverse2);
 }

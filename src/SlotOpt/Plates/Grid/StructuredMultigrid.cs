@@ -199,8 +199,8 @@ public sealed class StructuredMultigrid : IPreconditioner
             {
                 int p = j * nx + i;
                 // edge (i - 1, j)-(i, j) between cells (i - 1, j - 1) and (i - 1, j); edge (i, j - 1)-(i, j) between cells (i - 1, j - 1) and (i, j - 1)
-                w[p] = i > 0 && j > 0 && j < cy ? Resistance(inverse[(j - 1) * cx + i - 1], inverse[j * cx + i - 1], rx) : 0;
-                s[p] = j > 0 && i > 0 && i < cx ? Resistance(inverse[(j - 1) * cx + i - 1], inverse[(j - 1) * cx + i], ry) : 0;
+                w[p] = i > 0 && j > 0 && j < cy ? SheetOperator.EdgeResistance(inverse[(j - 1) * cx + i - 1], inverse[j * cx + i - 1], rx) : 0;
+                s[p] = j > 0 && i > 0 && i < cx ? SheetOperator.EdgeResistance(inverse[(j - 1) * cx + i - 1], inverse[(j - 1) * cx + i], ry) : 0;
                 largest = Math.Max(largest, Math.Max(w[p], s[p]));
             }
         double glue = GlueFactor * largest;
@@ -233,10 +233,6 @@ public sealed class StructuredMultigrid : IPreconditioner
             return 0;
         }
     }
-
-    /// <summary>Edge resistance from the inverse conductances of the two cells beside it, as SheetOperator: aspect (1/g1 + 1/g2) / 2; 0 when either cell is empty.</summary>
-    private static double Resistance(double inverse1, double inverse2, double aspect) =>
-        inverse1 == 0 || inverse2 == 0 ? 0 : aspect * 0.5 * (inverse1 + inverse2);
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Apply(ReadOnlySpan<double> r, Span<double> z)

@@ -57,9 +57,6 @@ public sealed class SlabUnderMovingMagnets
     public double ThicknessM { get; }
     public bool IsHalfSpace => double.IsPositiveInfinity(ThicknessM);
 
-    /// <summary>The reflection coefficient r of mode (kx, ky) at speed v (the slab's field above it is r b e^{-k z}).</summary>
-    public Complex Reflection(double kx, double ky, double speedMPerS) => Mode(kx, ky, speedMPerS).Reflection;
-
     /// <summary>Drag, lift and loss at each speed, with the slab's own field.</summary>
     public bool TrySolve(SurfaceFieldSpectrum source, IReadOnlyList<double> speedsMPerS, double relativeAccuracy, out SlabForces[]? forces, out string failure)
     {

@@ -19,13 +19,12 @@ public sealed class SurfaceFieldSpectrum
 {
     private readonly Func<double, double, Complex> transform;
 
-    private SurfaceFieldSpectrum(Func<double, double, Complex> transform, double nearestSourceHeightM, double spanXM, double spanYM, string description)
+    private SurfaceFieldSpectrum(Func<double, double, Complex> transform, double nearestSourceHeightM, double spanXM, double spanYM)
     {
         this.transform = transform;
         NearestSourceHeightM = nearestSourceHeightM;
         SpanXM = spanXM;
         SpanYM = spanYM;
-        Description = description;
     }
 
     /// <summary>Height of the nearest source above the plate's top surface: every mode decays at least as e^{-k h} (sets the wavenumbers needed).</summary>
@@ -34,7 +33,6 @@ public sealed class SurfaceFieldSpectrum
     public double SpanXM { get; }
     /// <summary>The sources' span along y.</summary>
     public double SpanYM { get; }
-    public string Description { get; }
 
     /// <summary>b(kx, ky) in tesla square metres.</summary>
     public Complex At(double kx, double ky) => transform(kx, ky);
@@ -48,7 +46,7 @@ public sealed class SurfaceFieldSpectrum
         {
             double k = Math.Sqrt(kx * kx + ky * ky);
             return Validity.Mu0 * momentAm2 / 2 * k * Math.Exp(-k * heightM);   // b = (mu0 m / 2) k e^{-k h}
-        }, heightM, heightM, heightM, $"normal dipole {momentAm2:G4} A m^2 at {heightM * 1000:G4} mm");
+        }, heightM, heightM, heightM);
     }
 
     /// <summary>The magnets of an array, their near faces at the array's gap.</summary>
@@ -56,7 +54,7 @@ public sealed class SurfaceFieldSpectrum
     {
         var terms = magnets.Magnets.Select(p => (Footprint: Footprint(p.Magnet), Amplitude: p.Sign * p.Magnet.RemanenceT / 2, p.Magnet.HeightM, p.Centre)).ToArray();
         double gap = magnets.GapM;
-        double minX = magnets.Magnets.Min(p => p.Centre.X - p.Magnet.HalfLengthXM), maxX = magnets.Magnets.Max(p => p.Centre.X + p.Magnet.HalfLengthXM);
+        var (minX, maxX) = magnets.ExtentX;
         double minY = magnets.Magnets.Min(p => p.Centre.Y - p.Magnet.HalfWidthYM), maxY = magnets.Magnets.Max(p => p.Centre.Y + p.Magnet.HalfWidthYM);
         return new SurfaceFieldSpectrum((kx, ky) =>
         {
@@ -70,7 +68,7 @@ public sealed class SurfaceFieldSpectrum
                 sum += t.Amplitude * t.Footprint(kx, ky) * depthFactor * new Complex(Math.Cos(phase), Math.Sin(phase));
             }
             return sum;
-        }, gap, maxX - minX, maxY - minY, $"{magnets.Magnets.Count} magnet(s) at {gap * 1000:G4} mm gap");
+        }, gap, maxX - minX, maxY - minY);
     }
 
     /// <summary>The Fourier transform of a magnet's footprint (its indicator function in the x-y plane, centred).</summary>

@@ -76,7 +76,6 @@ public sealed record DiscReactionSolution(double[] AnglesRad, double[] LossW, do
 {
     public double MeanLossW => LossW.Average();
     public double MeanTorqueNm => MeanLossW / AngularSpeedRadPerS;
-    public double[] TorqueNm => LossW.Select(p => p / AngularSpeedRadPerS).ToArray();
     /// <summary>Own-field over resistance-limited torque (1 at low speed, falling as the own field screens the source).</summary>
     public double TorqueRatio => ResistanceLimitedLossW.Average() is var p && p > 0 ? MeanLossW / p : 1;
 }
