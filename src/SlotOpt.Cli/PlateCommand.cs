@@ -1,13 +1,13 @@
 using System.CommandLine;
 using System.Globalization;
 using System.Text;
-using System.Text.Json;
 using SlotOpt.Tables;
 using SlotOpt.Input;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Reports;
+using SlotOpt.Reports.Json;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
@@ -55,11 +55,11 @@ public static class PlateCommand
                 discSweep: Sweep(parseResult.GetValue(speeds))));
             var mapPath = parseResult.GetValue(map);
             if (!string.IsNullOrEmpty(mapPath)) WriteMap(evaluation.Result.Map, mapPath);
-            output.Write(parseResult.GetValue(json) ? Json(evaluation) : Text(evaluation));
+            output.Write(parseResult.GetValue(json) ? PlateJson.From(evaluation).Serialize() : Text(evaluation));
             if (reportDir is not null)
             {
                 var figures = PlateFigures.Of(evaluation);
-                if (ReportOutput.Write(reportDir, replace, deadline, folder => PlateReportWriter.Write(evaluation, figures, Json(evaluation), DateTimeOffset.UtcNow, folder)) is { } signalExit)
+                if (ReportOutput.Write(reportDir, replace, deadline, folder => ReportWriter.Write(evaluation, figures, DateTimeOffset.UtcNow, folder)) is { } signalExit)
                 {
                     error.WriteLine("interrupted: the report was not written");
                     return signalExit;
@@ -95,65 +95,6 @@ public static class PlateCommand
         "thick-slab" => SheetModelKind.ThickSlab,
         _ => null,
     };
-
-    private static string Json(PlateFileEvaluation e)
-    {
-        var r = e.Result;
-        var heating = e.Heating;
-        var t = heating?.Temperature;
-        var limit = e.Case.Thermal?.Limit;
-        return new PlateJson(
-            e.Case.Path,
-            ReactionModelChoice.Name(e.Choice.Kind),
-            e.Choice.Reason,
-            e.LossW,
-            e.MeanDragN,
-            e.GridError?.Relative,
-            e.Case.MovingSource is null && e.Case.Rotation is null ? null : e.Case.AveragedOver,
-            e.OffsetsXM,
-            e.DragPerOffsetN,
-            e.LossPerOffsetW,
-            r.PeakCurrentDensityAPerM2,
-            r.RmsCurrentDensityAPerM2,
-            r.Validity.ReynoldsNumber,
-            r.Validity.ThicknessToSkinDepth,
-            e.Case.Sheet.SheetConductanceS,
-            r.Unknowns,
-            e.TotalIterations,
-            e.RelativeResidual,
-            t?.MaxRiseK,
-            t?.MeanRiseK,
-            t?.HottestK,
-            t is null ? null : [t.HottestXM, t.HottestYM],
-            t?.AmbientK,
-            t?.ConvectionCoefficientWPerM2K,
-            t?.ConvectedW,
-            t?.RadiatedW,
-            t?.EdgeW,
-            heating?.LossWeightedTemperatureK,
-            heating is null ? null : [heating.ResistivityMinK, heating.ResistivityMaxK],
-            heating?.CouplingIterations,
-            t is not null && limit is { IsSet: true } ? limit.Breach(t) is not null : null,
-            r.Validity.Warnings,
-            r.Notes)
-        {
-            TorqueNM = e.TorqueNm,
-            RotationSpeedRpm = e.Case.Rotation is { } rotation ? rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI) : null,
-            ApproachSpeedMPerS = e.Case.Approach?.SpeedMPerS,
-            ApproachGapsM = e.ApproachCurve?.Select(p => p.GapM).ToList(),
-            ApproachForceN = e.ApproachCurve?.Select(p => p.ForceN).ToList(),
-            SlabSpeedsMPerS = e.SlabSpeedCurve?.Select(f => f.SpeedMPerS).ToList(),
-            SlabDragN = e.SlabSpeedCurve?.Select(f => f.DragN).ToList(),
-            SlabLiftN = e.SlabSpeedCurve?.Select(f => f.LiftN).ToList(),
-            SlabLossW = e.SlabSpeedCurve?.Select(f => f.LossW).ToList(),
-            SlabQuadratureError = e.SlabSpeedCurve?.Max(f => f.RelativeErrorEstimate),
-            TorqueCurve = e.SpeedCurve?.Points.Select(p => DiscSpeed(p, e)).ToList(),
-            TorquePeak = e.SpeedCurve?.Peak is { } peak ? DiscSpeed(peak, e) : null,
-        }.Serialize();
-    }
-
-    private static DiscSpeedJson DiscSpeed(DiscSpeedPoint p, PlateFileEvaluation e) =>
-        new(p.Rpm, p.TorqueNm, p.TorqueNm / e.Case.Rotation!.Source.SourceRadiusM, p.LossW, p.Model);
 
     private static string Text(PlateFileEvaluation e)
     {

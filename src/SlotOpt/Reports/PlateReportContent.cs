@@ -20,9 +20,6 @@ public static class PlateReportContent
     /// <summary>Above this hottest temperature (kelvin) the report gives the hot-part caution: 100 °C (common practice, no source).</summary>
     public const double HotAboveK = 373.15;
 
-    public static string StampLine(PlateFileEvaluation e, DateTimeOffset generatedAt) => string.Create(Ci,
-        $"Generated {generatedAt.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC by slotopt plate; the solve took {e.SetupSeconds + e.SolveSeconds:0.0} s.");
-
     public static ReportDocument Build(PlateFileEvaluation e, PlateFigures f, PlateReportFigures figures, string stampLine)
     {
         var blocks = new List<ReportBlock> { new StampLine(stampLine), new Verdict(ResultLine(e, f)) };

@@ -19,8 +19,8 @@ public sealed record PlateReportFigures(Figure? Motion, Figure? Speed, Figure Cu
     {
         // a curve over disc angles or travel positions needs more than one of them (a solid disc is solved at one angle)
         Figure? motion = f.Approach is { } approach ? ApproachForcePlot.Build(approach, f.Model)
-            : f.DiscAngle is { AnglesRad.Count: > 1 } disc ? DiscTorquePlot.Build(disc, f.Model)
-            : f.Travel is { PositionsM.Count: > 1 } travel ? TravelDragPlot.Build(travel, f.Model)
+            : f.DiscAngle is { AnglesRad.Count: > 1 } disc ? PositionCurvePlot.DiscAngle(disc, f.Model)
+            : f.Travel is { PositionsM.Count: > 1 } travel ? PositionCurvePlot.Travel(travel, f.Model)
             : null;
         var speed = f.Speed is { } curve ? SpeedCurvePlot.Build(curve) : null;
         var when = f.Approach is not null ? "at the first gap"

@@ -1,0 +1,161 @@
+using SlotOpt.Design.SolidParts;
+using System.Globalization;
+using ScottPlot;
+using SlotOpt.Tables;
+using SlotOpt.Design;
+using SlotOpt.Runs;
+
+namespace SlotOpt.Reports.Plots;
+
+/// <summary>
+/// A plate part's force against speed, one line a design: the chosen option, the solid sheet of the same kind and the reference, from the
+/// numbers the run computed (reports never solve). Drag of a plate passed by moving poles (<see cref="Drag"/>, <see cref="DragSpeedLines"/>)
+/// and braking torque of a turning disc (<see cref="Torque"/>, <see cref="TorqueSpeedLines"/>) are the same picture in other words: each
+/// line holds while its model's validity lasts (the magnetic Reynolds number reaching the low-speed limit) and is faded beyond; where a
+/// line's model shows a peak it is marked, otherwise the speed where its validity ends is. What differs between the two is data
+/// (<see cref="Words"/>): the quantity, its unit, the speed's unit and the sentences.
+/// </summary>
+public static class SpeedLinesPlot
+{
+    public static string DragFileStem(int partIndex, PlatePart part) => $"drag-speed-{partIndex + 1}-{FileNames.Slug(part.Name)}";
+
+    public static string TorqueFileStem(int partIndex, PlatePart part) => $"torque-speed-{partIndex + 1}-{FileNames.Slug(part.Name)}";
+
+    /// <summary>
+    /// Drag against speed for a plate passed by moving poles. In the resistance-limited (low-speed) model drag is proportional to
+    /// speed, F(v) = F(v0) v / v0, so each line runs straight from the option's drag at the run's speed; it holds while the magnetic
+    /// Reynolds number mu0 sigma t v / 2 stays below the model's limit.
+    /// </summary>
+    /// <param name="reynoldsLimit">The low-speed model's limit on the magnetic Reynolds number (<see cref="RunFigures.LowSpeedReynoldsLimit"/>).</param>
+    public static Figure Drag(int partIndex, PartEvaluation plate, DragSpeedLines speedLines, double reynoldsLimit)
+    {
+        var part = (PlatePart)plate.Part;
+        var v0 = speedLines.RunSpeedMPerS;
+        var vMax = Math.Max(2 * v0, Math.Min(1.25 * speedLines.Lines.Max(l => l.ReynoldsLimitSpeedMPerS), 4 * v0));
+        var lines = speedLines.Lines.Select(l => new Line(l.Option, l.Role, l.Option.DragN!.Value,
+            [new Point(0, 0, null), new Point(vMax, l.Option.DragN!.Value / v0 * vMax, null)], l.ReynoldsLimitSpeedMPerS, null)).ToList();
+        var words = new Words("drag", "N", "m/s", "drag limit", "plate", "", "the low-speed model holds below, faded above");
+        var offPlot = lines.Where(l => l.ValidityEnd > vMax).Select(l => l.ValidityEnd).ToList();
+        var caption = string.Create(CultureInfo.InvariantCulture,
+            $"Drag scaled from each option's drag at the run's {v0:0.##} m/s (dots); the designs are described in full above. The low-speed model (drag proportional to speed) holds while the magnetic Reynolds number μ0σtv/2 stays below {reynoldsLimit}; each line is faded beyond the speed where it reaches it")
+            + (offPlot.Count > 0 ? $" (for some sheets only above {Numbers.Of(offPlot.Min(), "m/s")}, off the plot)" : "")
+            + string.Create(CultureInfo.InvariantCulture, $". The model neglects the eddy currents' own field; above Rm = {reynoldsLimit} it overstates the drag (by about 6-9 % at 0.3, more above), and at high speed real drag passes a maximum and falls. Not a brake rating.");
+        var plot = PlotStyle.NewPlot($"{part.Name}: drag against speed (low-speed model)", "speed (m/s)", "drag (N)");
+        Draw(plot, words, lines, v0, vMax, plate.ReferenceIsCurrent, reynoldsLimit, part.MaxDragN, minimum: null);
+        var legendPx = PlotStyle.LegendBelow(plot);
+        return PlotStyle.Render(plot, DragFileStem(partIndex, part), $"Drag against speed: {part.Name}", caption, heightPx: PlotStyle.HeightPx + legendPx);
+    }
+
+    /// <summary>
+    /// Braking torque against speed for a turning disc, each point labelled with the model that gave it. The resistance-limited line has no
+    /// peak (torque proportional to speed), so the speed where its validity ends (the magnetic Reynolds number at the magnets' radius
+    /// reaching the limit) is marked instead.
+    /// </summary>
+    public static Figure Torque(int partIndex, PartEvaluation plate, TorqueSpeedLines speedLines, double reynoldsLimit)
+    {
+        var part = (PlatePart)plate.Part;
+        var n0 = speedLines.RunRpm;
+        var nMax = speedLines.MaxRpm;
+        var lines = speedLines.Lines.Select(l => new Line(l.Option, l.Role, l.Option.TorqueNm!.Value,
+            l.Points.Select(p => new Point(p.Rpm, p.TorqueNm, p.Model)).ToList(), l.ValidityEndRpm, l.PeakRpm)).ToList();
+        var words = new Words("braking torque", "N m", "rpm", "torque limit", "disc", " at the magnets' radius", "the resistance-limited line holds below, faded above; it shows no peak");
+        var offPlot = lines.Where(l => l.ValidityEnd > nMax).Select(l => l.ValidityEnd).ToList();
+        var caption = string.Create(CultureInfo.InvariantCulture,
+            $"Braking torque of each disc against its speed, computed in the run from the model named in the legend (dots: the run's {n0:0.##} rpm). The resistance-limited model neglects the eddy currents' own field: torque rises in proportion to speed and shows no peak. It holds while the magnetic Reynolds number at the magnets' radius, μ0σt(ωr)/2, stays below {reynoldsLimit}; each line is faded beyond the speed where it reaches it")
+            + (offPlot.Count > 0 ? string.Create(CultureInfo.InvariantCulture, $" (for some sheets only above {offPlot.Min():0} rpm, off the plot)") : "")
+            + ". Above it the real torque is lower, passes a maximum and falls. Not a brake rating.";
+        var plot = PlotStyle.NewPlot($"{part.Name}: braking torque against speed", "disc speed (rpm)", "braking torque (N m)");
+        Draw(plot, words, lines, n0, nMax, plate.ReferenceIsCurrent, reynoldsLimit, part.MaxTorqueNm, part.MinTorque is { } wanted ? new Point(wanted.Rpm, wanted.TorqueNm, null) : null);
+        var legendPx = PlotStyle.LegendBelow(plot);
+        return PlotStyle.Render(plot, TorqueFileStem(partIndex, part), $"Braking torque against speed: {part.Name}", caption, heightPx: PlotStyle.HeightPx + legendPx);
+    }
+
+    /// <summary>The words of one kind of plot: quantity and unit ("drag", "N"), the speed's unit, the limit's name, the part's shape, where Rm is taken, and what holds below it.</summary>
+    private sealed record Words(string Quantity, string Unit, string SpeedUnit, string LimitName, string Shape, string ReynoldsWhere, string HoldsBelow);
+
+    /// <summary>A point of a line (speed and value in the plot's units) and the model that gave it (null where the line names none).</summary>
+    private sealed record Point(double Speed, double Value, string? Model);
+
+    /// <summary>One design's line: its option and role, its value at the run's speed, its points, the speed where its model's validity ends and its peak (if its model shows one).</summary>
+    private sealed record Line(EvaluatedOption Option, DesignRole Role, double RunValue, IReadOnlyList<Point> Points, double ValidityEnd, double? Peak);
+
+    /// <summary>Every line (solid while valid, faded beyond), its dot at the run's speed, its peak or validity end; the run's speed, the limit and the wanted minimum.</summary>
+    private static void Draw(Plot plot, Words w, IReadOnlyList<Line> lines, double runSpeed, double maxSpeed, bool referenceIsCurrent, double reynoldsLimit, double? limitValue, Point? minimum)
+    {
+        var marked = new HashSet<double>();
+        var top = 0.0;
+        for (var k = 0; k < lines.Count; k++)
+        {
+            var line = lines[k];
+            var colour = PlotStyle.Series[k % PlotStyle.Series.Count];
+            var sheet = (PlateChoice)line.Option.Choice;
+            var sheetWords = $"{Numbers.Sig(sheet.ThicknessM * 1e3)} mm {sheet.Material}";
+            var end = line.ValidityEnd;
+            var valid = line.Points.Where(p => p.Speed <= end).ToList();
+            var beyond = line.Points.Where(p => p.Speed >= end).ToList();
+            if (end < maxSpeed && valid.Count > 0 && valid[^1].Speed < end) valid.Add(Interpolated(line.Points, end));
+            if (beyond.Count > 0 && beyond[0].Speed > end) beyond.Insert(0, Interpolated(line.Points, end));
+            var models = line.Points.Select(p => p.Model).OfType<string>().Distinct().ToList();
+            var label = $"{Label(line.Role, w.Shape, referenceIsCurrent)}: {sheetWords}, {(sheet.Slots is null ? "solid" : "slotted")}, {Numbers.Of(line.RunValue, w.Unit)} at {Numbers.Of(runSpeed, w.SpeedUnit)}"
+                + (models.Count > 0 ? $" ({string.Join(", ", models)})" : "");
+            if (valid.Count > 1)
+            {
+                var solid = plot.Add.ScatterLine(valid.Select(p => p.Speed).ToArray(), valid.Select(p => p.Value).ToArray());
+                solid.Color = colour;
+                solid.LineWidth = 2.5f;
+                solid.LegendText = label;
+            }
+            if (beyond.Count > 1)
+            {
+                var faded = plot.Add.ScatterLine(beyond.Select(p => p.Speed).ToArray(), beyond.Select(p => p.Value).ToArray());
+                faded.Color = colour.WithAlpha(0.3);   // faded, not dashed: see PlotStyle
+                faded.LineWidth = 2.5f;
+                if (valid.Count <= 1) faded.LegendText = label + ", outside its validity";
+            }
+            plot.Add.Marker(runSpeed, line.RunValue, MarkerShape.FilledCircle, 9, colour);
+            top = Math.Max(top, line.Points.Max(p => p.Value));
+            if (line.Peak is { } peak)
+            {
+                var at = Interpolated(line.Points, peak);
+                var marker = plot.Add.Marker(peak, at.Value, MarkerShape.OpenDiamond, 12, colour);
+                marker.LegendText = $"peak at {Numbers.Of(peak, w.SpeedUnit)} ({at.Model})";
+            }
+            else if (end <= maxSpeed && marked.Add(Math.Round(end, 6)))
+            {
+                var rm = plot.Add.VerticalLine(end, 1, colour);
+                rm.LegendText = $"Rm = {Numbers.Sig(reynoldsLimit)}{w.ReynoldsWhere} at {Numbers.Of(end, w.SpeedUnit)} ({sheetWords}): {w.HoldsBelow}";
+            }
+        }
+        var run = plot.Add.VerticalLine(runSpeed, 1, PlotStyle.Grey);
+        run.LegendText = $"run speed {Numbers.Of(runSpeed, w.SpeedUnit)}";
+        if (limitValue is { } limit)
+        {
+            var limitLine = plot.Add.HorizontalLine(limit, 2, PlotStyle.Black);
+            limitLine.LegendText = $"{w.LimitName} {Numbers.Of(limit, w.Unit)}";
+            top = Math.Max(top, limit);
+        }
+        if (minimum is { } wanted)
+        {
+            var marker = plot.Add.Marker(wanted.Speed, wanted.Value, MarkerShape.OpenSquare, 12, PlotStyle.Black);
+            marker.LegendText = $"minimum {w.Quantity} {Numbers.Of(wanted.Value, w.Unit)} at {Numbers.Of(wanted.Speed, w.SpeedUnit)}";
+            top = Math.Max(top, wanted.Value);
+        }
+        plot.Axes.SetLimits(0, maxSpeed, 0, top * 1.1);
+    }
+
+    /// <summary>The line's value at a speed between its points (straight between neighbours), with the model of the point below.</summary>
+    private static Point Interpolated(IReadOnlyList<Point> points, double speed)
+    {
+        var i = Math.Clamp(points.Count(p => p.Speed <= speed) - 1, 0, points.Count - 2);
+        var (a, b) = (points[i], points[i + 1]);
+        var f = (speed - a.Speed) / (b.Speed - a.Speed);
+        return new Point(speed, a.Value + f * (b.Value - a.Value), a.Model);
+    }
+
+    private static string Label(DesignRole role, string shape, bool referenceIsCurrent) => role switch
+    {
+        DesignRole.Chosen => "chosen",
+        DesignRole.SolidCounterpart => $"solid {shape}, same sheet",
+        _ => referenceIsCurrent ? "current design" : "baseline",
+    };
+}
