@@ -26,9 +26,9 @@ public static class RunCommand
         limits.AddTo(command);
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
-            var evaluationLimits = limits.Start(parseResult);   // flags first: a bad flag is reported before any work
-            using var deadline = evaluationLimits.Deadline!;
             var reportDir = parseResult.GetValue(outDir);
+            var evaluationLimits = limits.Start(parseResult) with { WritesReport = reportDir is not null };   // flags first: a bad flag is reported before any work
+            using var deadline = evaluationLimits.Deadline!;
             var replace = parseResult.GetValue(force);
             ReportOutput.Check(reportDir, replace, parseResult.GetValue(file)!);
             var problem = ProblemReader.ReadFile(parseResult.GetValue(file)!);

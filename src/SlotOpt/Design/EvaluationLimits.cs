@@ -1,5 +1,6 @@
 using SlotOpt.Design.Limits;
 using SlotOpt.Plates.Geometry;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Design;
 
@@ -32,39 +33,51 @@ public sealed record EvaluationLimits
     }
 
     /// <summary>
+    /// A report is written after the work (`--out`): every estimate checked (<see cref="CheckMemory"/>) includes its bytes
+    /// (<see cref="MemoryModel.ReportBytes"/>). The automatic grids' cap (<see cref="CellCap"/>) leaves it out, so that a run chooses the same grid,
+    /// and gives the same numbers, with and without a report: a grid at the cap holds MaxMemoryBytes / <see cref="MemoryModel.Margin"/> at most, so
+    /// the report still fits under any limit of at least Margin / (Margin - 1) x ReportBytes = 250 MB.
+    /// </summary>
+    public bool WritesReport { get; init; }
+
+    /// <summary>
     /// Cells one solve may have so that the run fits in MaxMemoryBytes (<see cref="MemoryModel"/>): the screening of a part with
     /// <paramref name="geometries"/> slot geometries (with a thermal section, <paramref name="thermalOptionsPerGeometry"/> thicknesses x
-    /// materials heated on each), and the own-field confirmation at its largest padded lattice (4 x 4 times the cells).
+    /// materials heated on each; for a moving source over <paramref name="travelPositions"/> positions, its coupled ranking), and the
+    /// own-field confirmation at its largest padded lattice (<see cref="MemoryModel.OwnFieldBytesPerCellBound"/>).
     /// </summary>
-    public long CellCap(int geometries, int thermalOptionsPerGeometry = 0)
+    public long CellCap(int geometries, int thermalOptionsPerGeometry = 0, int travelPositions = 0)
     {
         geometries = Math.Max(geometries, 1);
-        double room = MaxMemoryBytes / MemoryModel.Margin - MemoryModel.RuntimeBytes;
-        if (room <= 0) return 0;
-        double screening = room / (geometries * (MemoryModel.ModelBytesPerCell + MemoryModel.ThermalKept(thermalOptionsPerGeometry))
-            + Math.Min(Threads, geometries) * (MemoryModel.SolveBytesPerCell + (thermalOptionsPerGeometry > 0 ? MemoryModel.ThermalSolveBytesPerCell : 0)));
-        double ownField = room / (MemoryModel.ModelBytesPerCell + MemoryModel.SolveBytesPerCell + MemoryModel.GmresBytesPerCell + 16 * MemoryModel.OwnFieldBytesPerPaddedCell);
+        var screening = MemoryModel.CellsWithin(MaxMemoryBytes,
+            MemoryModel.ScreeningBytesPerCell(geometries, Threads, thermalOptionsPerGeometry) + MemoryModel.RankingBytesPerCell(geometries, Threads, travelPositions));
+        var ownField = MemoryModel.CellsWithin(MaxMemoryBytes, MemoryModel.OwnFieldBytesPerCellBound);
         return (long)Math.Min(screening, ownField);
     }
 
-    /// <summary>Throws, before anything is built, when an estimate (<see cref="MemoryModel"/>) is over the limit.</summary>
+    /// <summary>Throws, before anything is built, when an estimate (<see cref="MemoryModel"/>, with its margin), and the report's bytes when one is written, is over the limit.</summary>
     public void CheckMemory(string what, double estimateBytes, string remedy)
     {
-        if (estimateBytes > MaxMemoryBytes)
-            throw new ResourceLimitException($"{what} needs about {MemoryModel.Words(estimateBytes)} (estimate with margin); the memory limit is {MemoryModel.Words(MaxMemoryBytes)} (--max-memory): {remedy} or raise the limit");
+        var total = estimateBytes + (WritesReport ? MemoryModel.Margin * MemoryModel.ReportBytes : 0);
+        if (total > MaxMemoryBytes)
+            throw new ResourceLimitException($"{what} needs about {MemoryModel.Words(total)} (estimate with margin{(WritesReport ? ", the report included" : "")}); the memory limit is {MemoryModel.Words(MaxMemoryBytes)} (--max-memory): {remedy} or raise the limit");
     }
 
-    /// <summary>Throws when an explicit grid of a part with <paramref name="geometries"/> slot geometries would not fit in memory.</summary>
-    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, int geometries, int thermalOptionsPerGeometry = 0)
+    /// <summary>
+    /// Throws when an explicit grid of a part with <paramref name="geometries"/> slot geometries would not fit in memory (the screening, the
+    /// ranking of a moving source over <paramref name="travelPositions"/> positions with its actual padded lattice, or the own-field confirmation).
+    /// </summary>
+    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, int geometries, int thermalOptionsPerGeometry = 0, int travelPositions = 0)
     {
         if (cellSizeM is not { } h) return;
         var (min, max) = outline.Bounds;
         var (nx, ny) = (Math.Ceiling((max.X - min.X) / h), Math.Ceiling((max.Y - min.Y) / h));
         var cells = (long)Math.Min(nx * ny, long.MaxValue / 2);
+        var (nodesX, nodesY) = ((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4));
         geometries = Math.Max(geometries, 1);
-        var screening = MemoryModel.Screening(cells, geometries, Threads, thermalOptionsPerGeometry);
-        var estimate = Math.Max(screening, MemoryModel.OwnField((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4)));
-        CheckMemory($"part {partName}: a {h * 1e3:G4} mm grid ({cells:E2} cells, {geometries} slot geometries kept, {Math.Min(Threads, geometries)} solved at once)",
+        var screening = MemoryModel.Screening(cells, geometries, Threads, thermalOptionsPerGeometry, travelPositions, MemoryModel.PaddedCells(nodesX, nodesY) / Math.Max(cells, 1));
+        var estimate = Math.Max(screening, MemoryModel.OwnField(nodesX, nodesY));
+        CheckMemory($"part {partName}: a {Numbers.Of(h * 1e3, "mm")} grid ({Numbers.Sig(cells)} cells, {geometries} slot geometries kept, {Math.Min(Threads, geometries)} solved at once)",
             estimate, "choose a larger cell, fewer slot choices or fewer threads");
     }
 }

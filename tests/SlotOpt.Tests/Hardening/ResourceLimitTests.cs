@@ -24,7 +24,7 @@ public class ResourceLimitTests
     {
         var limits = new EvaluationLimits { Threads = 2, MaxMemoryBytes = 4L << 30 };
         var e = Assert.Throws<ResourceLimitException>(() => DesignRun.Execute(TiePlate("0.2 mm"), limits: limits));
-        Assert.Contains("3.38E+006 cells", e.Message);
+        Assert.Contains("3375000 cells", e.Message);
         Assert.Contains("--max-memory", e.Message);
     }
 

@@ -1,4 +1,5 @@
 using SlotOpt.Plates.OwnField;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Design.Limits;
 
@@ -68,24 +69,86 @@ public static class MemoryModel
     /// <summary>Factor over the fitted estimate: the garbage collector's headroom (a collected grid is not yet returned) and the scatter of the measurements.</summary>
     public const double Margin = 1.25;
 
-    /// <summary>The run's screening of one part: its geometries' kept models and Threads solves at once; with a thermal section
-    /// (<paramref name="thermalOptionsPerGeometry"/> thicknesses x materials, 0 without) each geometry's thermal screen and temperatures too.</summary>
-    public static double Screening(long cellsPerSolve, int geometries, int threads, int thermalOptionsPerGeometry = 0) =>
-        Margin * (RuntimeBytes + cellsPerSolve * (geometries * (ModelBytesPerCell + ThermalKept(thermalOptionsPerGeometry))
-            + Math.Min(threads, geometries) * (SolveBytesPerCell + (thermalOptionsPerGeometry > 0 ? ThermalSolveBytesPerCell : 0))));
+    /// <summary>
+    /// The coupled ranking of a part passed by a moving source (PlateModelRanking, after the screening): every slot geometry keeps a reduced
+    /// basis for the loss bounds, per travel position three basis vectors and their products with the sheet operator (6 x 8 B per cell),
+    /// next to its own reaction operator (the zero-padded FFT lattice, <see cref="OwnFieldBytesPerPaddedCell"/>).
+    /// </summary>
+    public const double RankingKeptBytesPerCellPerPosition = 6 * 8;
+
+    /// <summary>
+    /// One geometry's reduced basis grown until its options converge, per travel position, beyond what it keeps: basis vectors and their
+    /// products, 16 B per step per cell, taken at 64 steps. Fitted, not a bound (a basis may grow to MovingReducedBasis.MaxSteps = 400 steps):
+    /// with it the conveyor-rail demo's estimate covers its measured peaks (<see cref="RankingBytesPerCell"/>).
+    /// </summary>
+    public const double RankingSolveBytesPerCellPerPosition = 64 * 16;
+
+    /// <summary>
+    /// A zero-padded FFT lattice has at most 4 x 4 the cells of the grid (ReactionOperator.PaddedLength below 4 n a side): the bound the
+    /// per-cell forms use where the grid's sides are not known yet.
+    /// </summary>
+    public const double PaddedCellsPerCellBound = 16;
+
+    /// <summary>
+    /// Writing the report (`--out`): the drawing library and its bitmaps, the figures' PNG and SVG, the pages with the images embedded.
+    /// Measured 2026-12-02 as the peak resident size with --out less the same command's without it: `slotopt plate` on the approach-damper demo
+    /// (25.6 k cells, two figures and the map) 25 and 43 MB over 65 MB in two pairs of runs; `slotopt run` on the conveyor-rail demo 33 MB
+    /// (660 against 627 MB, 2 threads). The report is written after the screening, whose models the collector may not have returned yet, so
+    /// the term is added to the run's largest phase.
+    /// </summary>
+    public const double ReportBytes = 50e6;
+
+    /// <summary>What the screening of one part holds per cell of one solve: its geometries' kept models and Threads solves at once; with a thermal
+    /// section (<paramref name="thermalOptionsPerGeometry"/> thicknesses x materials, 0 without) each geometry's thermal screen and temperatures too.</summary>
+    public static double ScreeningBytesPerCell(int geometries, int threads, int thermalOptionsPerGeometry = 0) =>
+        geometries * (ModelBytesPerCell + ThermalKept(thermalOptionsPerGeometry))
+        + Math.Min(threads, geometries) * (SolveBytesPerCell + (thermalOptionsPerGeometry > 0 ? ThermalSolveBytesPerCell : 0));
+
+    /// <summary>
+    /// What the coupled ranking of a moving part adds per cell of one solve, with <paramref name="paddedCellsPerCell"/> cells of the padded
+    /// lattice per grid cell: every geometry's bound basis and reaction operator, and Threads bases grown to convergence. Measured
+    /// 2026-12-02, `slotopt run` on the conveyor-rail demo (12 k cells, 25 geometries, 8 travel positions, padded 2.7 x): with the collector
+    /// held to a hard heap limit (DOTNET_GCHeapHardLimit) the run fails at 300 MB in the ranking's bounds and completes at 375 MB (peak 414 MB
+    /// resident, 1 or 2 threads); unlimited it peaks at 615 to 660 MB resident with 2 threads, and once at 803 MB with 1 thread (the collector
+    /// grows its heap where memory is free: a measure of the machine as much as of the run). This term, times the margin, covers the 2-thread peaks.
+    /// </summary>
+    public static double RankingBytesPerCell(int geometries, int threads, int travelPositions, double paddedCellsPerCell = PaddedCellsPerCellBound) =>
+        travelPositions <= 0 ? 0
+        : geometries * (travelPositions * RankingKeptBytesPerCellPerPosition + paddedCellsPerCell * OwnFieldBytesPerPaddedCell)
+          + Math.Min(threads, geometries) * travelPositions * RankingSolveBytesPerCellPerPosition;
+
+    /// <summary>The own-field solve per cell of its grid, the padded lattice at its bound (<see cref="PaddedCellsPerCellBound"/>).</summary>
+    public const double OwnFieldBytesPerCellBound = ModelBytesPerCell + SolveBytesPerCell + GmresBytesPerCell + PaddedCellsPerCellBound * OwnFieldBytesPerPaddedCell;
+
+    /// <summary>The run's screening of one part (and, for a moving source over <paramref name="travelPositions"/> positions, its coupled ranking).</summary>
+    public static double Screening(long cellsPerSolve, int geometries, int threads, int thermalOptionsPerGeometry = 0, int travelPositions = 0, double paddedCellsPerCell = PaddedCellsPerCellBound) =>
+        WithMargin(cellsPerSolve * (ScreeningBytesPerCell(geometries, threads, thermalOptionsPerGeometry) + RankingBytesPerCell(geometries, threads, travelPositions, paddedCellsPerCell)));
 
     /// <summary>What one geometry keeps of its thermal screening per cell (0 without a thermal section).</summary>
     public static double ThermalKept(int thermalOptionsPerGeometry) =>
         thermalOptionsPerGeometry > 0 ? ThermalKeptBytesPerCell + thermalOptionsPerGeometry * ThermalOptionBytesPerCell : 0;
 
     /// <summary>One plate solved with its own field (the confirmation, `slotopt plate`): one model, its solve, the FFT lattice and the GMRES basis.</summary>
-    public static double OwnField(int nodesX, int nodesY)
+    public static double OwnField(int nodesX, int nodesY) =>
+        WithMargin((double)nodesX * nodesY * (ModelBytesPerCell + SolveBytesPerCell + GmresBytesPerCell) + PaddedCells(nodesX, nodesY) * OwnFieldBytesPerPaddedCell);
+
+    /// <summary>Cells of the zero-padded FFT lattice of a grid of nodesX x nodesY nodes.</summary>
+    public static double PaddedCells(int nodesX, int nodesY) =>
+        (double)ReactionOperator.PaddedLength(Math.Max(nodesX - 2, 1)) * ReactionOperator.PaddedLength(Math.Max(nodesY - 2, 1));
+
+    /// <summary>An estimate of what is held, with the runtime and the margin; with <paramref name="report"/> the report's bytes too.</summary>
+    public static double WithMargin(double heldBytes, bool report = false) => Margin * (RuntimeBytes + heldBytes + (report ? ReportBytes : 0));
+
+    /// <summary>
+    /// Cells one solve may have so that <paramref name="bytesPerCell"/> a cell, the runtime (and the report) fit in <paramref name="limitBytes"/> with
+    /// the margin: the inverse of <see cref="WithMargin"/>; 0 when even no cells do not fit.
+    /// </summary>
+    public static double CellsWithin(long limitBytes, double bytesPerCell, bool report = false)
     {
-        double cells = (double)nodesX * nodesY;
-        double padded = (double)ReactionOperator.PaddedLength(Math.Max(nodesX - 2, 1)) * ReactionOperator.PaddedLength(Math.Max(nodesY - 2, 1));
-        return Margin * (RuntimeBytes + cells * (ModelBytesPerCell + SolveBytesPerCell + GmresBytesPerCell) + padded * OwnFieldBytesPerPaddedCell);
+        var room = limitBytes / Margin - RuntimeBytes - (report ? ReportBytes : 0);
+        return room <= 0 ? 0 : room / bytesPerCell;
     }
 
     /// <summary>"1.2 GB" or "350 MB".</summary>
-    public static string Words(double bytes) => bytes >= 1e9 ? $"{bytes / 1e9:F1} GB" : $"{bytes / 1e6:F0} MB";
+    public static string Words(double bytes) => bytes >= 1e9 ? Numbers.Of(bytes / 1e9, "GB") : Numbers.Of(bytes / 1e6, "MB");
 }

@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using SlotOpt.Numerics;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Design.Limits;
 
@@ -54,7 +55,7 @@ public sealed class RunDeadline : IDisposable
     }
 
     public ResourceLimitException Passed(string phase) =>
-        new($"the run passed its time limit of {LimitSeconds:0.###} s (--time-limit) during {phase}, {ElapsedSeconds:0.#} s after it started; raise the limit, coarsen the grid or list fewer options");
+        new($"the run passed its time limit of {Numbers.Of(LimitSeconds, "s")} (--time-limit) during {phase}, {Numbers.Of(ElapsedSeconds, "s")} after it started; raise the limit, coarsen the grid or list fewer options");
 
     public void Dispose() => source.Dispose();
 }
