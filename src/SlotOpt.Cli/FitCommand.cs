@@ -4,6 +4,7 @@ using SlotOpt.Design.Limits;
 using SlotOpt.Input;
 using SlotOpt.Lamination;
 using SlotOpt.Reports;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Cli;
 
@@ -47,13 +48,12 @@ public static class FitCommand
                 return ExitCodes.Success;
             }
             var o = output;
-            var ci = CultureInfo.InvariantCulture;
-            o.WriteLine(string.Create(ci, $"Fit of P = kh f B^alpha + kc f^2 B^2 + ke (f B)^1.5 to {data.Count} points of {path}"));
-            o.WriteLine(string.Create(ci, $"  kh    = {fit.HysteresisCoefficient:0.000000} +/- {fit.HysteresisCoefficientError:0.000000} W/(kg Hz T^alpha)"));
-            o.WriteLine(string.Create(ci, $"  alpha = {fit.HysteresisExponent:0.0000} +/- {fit.HysteresisExponentError:0.0000}"));
-            o.WriteLine(string.Create(ci, $"  ke    = {fit.ExcessCoefficient:0.00000000} +/- {fit.ExcessCoefficientError:0.00000000} W/(kg (T/s)^1.5)"));
-            o.WriteLine(string.Create(ci, $"  kc    = {fit.ClassicalCoefficient:0.000e+00} W/(kg Hz^2 T^2) (from theory, fixed{(mu is null ? "" : $", skin corrected at mu_r {mu}")})"));
-            o.WriteLine(string.Create(ci, $"  R^2 = {fit.RSquared:0.00000}, worst relative error {fit.WorstRelativeError * 100:0.00} %"));
+            o.WriteLine($"Fit of P = kh f B^alpha + kc f^2 B^2 + ke (f B)^1.5 to {data.Count} points of {path}");
+            o.WriteLine($"  kh    = {Numbers.Sig(fit.HysteresisCoefficient)} +/- {Numbers.Sig(fit.HysteresisCoefficientError)} W/(kg Hz T^alpha)");
+            o.WriteLine($"  alpha = {Numbers.Sig(fit.HysteresisExponent)} +/- {Numbers.Sig(fit.HysteresisExponentError)}");
+            o.WriteLine($"  ke    = {Numbers.Sig(fit.ExcessCoefficient)} +/- {Numbers.Sig(fit.ExcessCoefficientError)} W/(kg (T/s)^1.5)");
+            o.WriteLine($"  kc    = {Numbers.Sig(fit.ClassicalCoefficient)} W/(kg Hz^2 T^2) (from theory, fixed{(mu is null ? "" : $", skin corrected at mu_r {Numbers.Sig(mu.Value)}")})");
+            o.WriteLine($"  R^2 = {Numbers.Sig(fit.RSquared)}, worst relative error {Numbers.Sig(fit.WorstRelativeError * 100)} %");
             if (fit.Warnings.Count > 0) o.WriteLine($"  {fit.Warnings.Count} warning(s), printed above: read them before using these coefficients");
             return ExitCodes.Success;
         }));

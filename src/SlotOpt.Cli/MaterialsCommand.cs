@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using SlotOpt.Materials;
 using SlotOpt.Reports;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Cli;
 
@@ -31,16 +32,15 @@ public static class MaterialsCommand
                 return ExitCodes.Success;
             }
             var o = output;
-            var ci = CultureInfo.InvariantCulture;
             o.WriteLine("Lamination grades (limit = the standard's maximum specific loss at its specification point)");
             o.WriteLine($"{"grade",-10} {"family",-16} {"t mm",5} {"rho uOhm m",10} {"limit W/kg",10} {"at",12} {"SF",5} {"kh",8} {"alpha",6} {"ke",9} {"price/kg",8}");
             foreach (var s in steels)
-                o.WriteLine(string.Create(ci, $"{s.Grade + (IsOwnDesignation(s) ? "*" : ""),-10} {FamilyWords(s.Family),-16} {s.ThicknessM * 1e3,5:0.00} {s.Resistivity20COhmM * 1e6,10:0.00} {s.SpecMaxLossWPerKg,10:0.00} {$"{s.SpecPeakT:0.0} T {s.SpecFrequencyHz:0} Hz",12} {s.StackingFactor,5:0.00} {s.HysteresisCoefficient,8:0.00000} {s.HysteresisExponent,6:0.000} {s.ExcessCoefficient,9:0.000000} {s.PricePerKg,8:0.00}"));
+                o.WriteLine($"{s.Grade + (IsOwnDesignation(s) ? "*" : ""),-10} {FamilyWords(s.Family),-16} {Numbers.Sig(s.ThicknessM * 1e3),5} {Numbers.Sig(s.Resistivity20COhmM * 1e6),10} {Numbers.Sig(s.SpecMaxLossWPerKg),10} {$"{Numbers.Of(s.SpecPeakT, "T")} {Numbers.Of(s.SpecFrequencyHz, "Hz")}",12} {Numbers.Sig(s.StackingFactor),5} {Numbers.Sig(s.HysteresisCoefficient),8} {Numbers.Sig(s.HysteresisExponent),6} {Numbers.Sig(s.ExcessCoefficient),9} {Numbers.Sig(s.PricePerKg),8}");
             o.WriteLine();
             o.WriteLine("Plate conductors (resistivity at 20 degC)");
             o.WriteLine($"{"name",-13} {"rho uOhm m",10} {"alpha 1/K",9} {"kg/m3",6} {"magnetic",8} {"temperature model",-22} {"price/kg",8}");
             foreach (var c in conductors)
-                o.WriteLine(string.Create(ci, $"{c.Name,-13} {c.Resistivity20COhmM * 1e6,10:0.000000} {c.Alpha20PerK,9:0.00000} {c.DensityKgPerM3,6:0} {(c.IsMagnetic ? "yes" : "no"),8} {TemperatureModelWords(c.TemperatureModel),-22} {c.PricePerKg,8:0.00}"));
+                o.WriteLine($"{c.Name,-13} {Numbers.Sig(c.Resistivity20COhmM * 1e6),10} {Numbers.Sig(c.Alpha20PerK),9} {Numbers.Sig(c.DensityKgPerM3),6} {(c.IsMagnetic ? "yes" : "no"),8} {TemperatureModelWords(c.TemperatureModel),-22} {Numbers.Sig(c.PricePerKg),8}");
             o.WriteLine();
             o.WriteLine("* our own designation, not a standard grade name (see its source in `slotopt materials --json`).");
             o.WriteLine("Prices are invented demo prices. Coefficients are derived from the standards' limits (see Materials/Data/README.md); fit your own with `slotopt fit`.");

@@ -46,9 +46,9 @@ public static class PlateCommand
         limitOptions.AddTo(command, parallel: false, search: false);
         command.SetAction(parseResult => CommandRunner.Run(parseResult, (output, error) =>
         {
-            var limits = limitOptions.Start(parseResult);
-            using var deadline = limits.Deadline!;
             var (reportDir, replace) = (parseResult.GetValue(outDir), parseResult.GetValue(force));
+            var limits = limitOptions.Start(parseResult) with { WritesReport = reportDir is not null };
+            using var deadline = limits.Deadline!;
             ReportOutput.Check(reportDir, replace, parseResult.GetValue(file)!);
             var plate = PlateFileReader.Read(parseResult.GetValue(file)!);
             var evaluation = deadline.Run("the plate solve", () => PlateFileEvaluation.Evaluate(plate, forcedKind: ModelKind(parseResult.GetValue(model)!), limits: limits,
@@ -101,7 +101,7 @@ public static class PlateCommand
         var r = e.Result;
         var c = CultureInfo.InvariantCulture;
         var s = new StringBuilder();
-        s.AppendLine(c, $"plate {e.Case.Path}: sheet conductance {e.Case.Sheet.SheetConductanceS:G4} S");
+        s.AppendLine(c, $"plate {e.Case.Path}: sheet conductance {Numbers.Of(e.Case.Sheet.SheetConductanceS, "S")}");
         s.AppendLine(c, $"  model                {ReactionModelChoice.Name(e.Choice.Kind)}: {e.Choice.Reason}");
         s.AppendLine(c, $"  loss                 {Numbers.Watts(e.LossW)}{(e.Case.MovingSource is null && e.Case.Rotation is null ? (e.Case.Approach is null ? " (time average)" : "") : $" (mean over {e.Case.AveragedOver})")}");
         if (e.TorqueNm is { } torque && e.Case.Rotation is { } rotation)
@@ -120,15 +120,15 @@ public static class PlateCommand
         if (e.SlabSpeedCurve is { } slab)
         {
             s.AppendLine(c, $"  lift                 {Numbers.Newtons(slab.First(f => f.SpeedMPerS == e.Case.MovingSource!.SpeedMPerS).LiftN)} (pushing the magnets away from the block)");
-            s.AppendLine(c, $"  against speed        (thick-slab, wavenumber quadrature error below {slab.Max(f => f.RelativeErrorEstimate):E1})");
+            s.AppendLine(c, $"  against speed        (thick-slab, wavenumber quadrature error below {Numbers.Sig(slab.Max(f => f.RelativeErrorEstimate))})");
             foreach (var f in slab) s.AppendLine(c, $"    {Numbers.Of(f.SpeedMPerS, "m/s"),-14} drag {Numbers.Newtons(f.DragN),-12} lift {Numbers.Newtons(f.LiftN),-12} loss {Numbers.Watts(f.LossW)}");
         }
-        if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {grid.Relative:P2} of loss{(e.MeanDragN is null ? "" : " and drag")} (Richardson, {grid.CellM * 1e3:G3} mm against {grid.CoarseCellM * 1e3:G3} mm cells)");
+        if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {Numbers.Sig(grid.Relative * 100)} % of loss{(e.MeanDragN is null ? "" : " and drag")} (Richardson, {Numbers.Of(grid.CellM * 1e3, "mm")} against {Numbers.Of(grid.CoarseCellM * 1e3, "mm")} cells)");
         s.AppendLine(c, $"  current density      peak {Numbers.Sig(r.PeakCurrentDensityAPerM2 / 1e6)} A/mm2, rms {Numbers.Sig(r.RmsCurrentDensityAPerM2 / 1e6)} A/mm2");
-        s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
-        s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");
+        s.Append($"  magnetic Reynolds    {Numbers.Sig(r.Validity.ReynoldsNumber)}");
+        s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? $", thickness/skin depth {Numbers.Sig(td)}" : "");
         PlateTemperatureOutput.AppendText(s, e);
-        s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {e.RelativeResidual:E1}, {e.SetupSeconds + e.SolveSeconds:F2} s");
+        s.AppendLine(c, $"  solver               {r.Unknowns} unknowns, {e.TotalIterations} iterations, residual {Numbers.Sig(e.RelativeResidual)}, {Numbers.Of(e.SetupSeconds + e.SolveSeconds, "s")}");
         foreach (var w in r.Validity.Warnings) s.AppendLine($"  warning: {w}");
         foreach (var n in r.Notes) s.AppendLine($"  note: {n}");
         return s.ToString();

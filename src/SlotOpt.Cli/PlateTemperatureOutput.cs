@@ -1,4 +1,4 @@
-using System.Globalization;
+using SlotOpt.Tables;
 using System.Text;
 using SlotOpt.Plates.Thermal;
 using SlotOpt.Runs;
@@ -11,19 +11,18 @@ internal static class PlateTemperatureOutput
     public static void AppendText(StringBuilder s, PlateFileEvaluation e)
     {
         if (e.Heating is not { } h) return;
-        var c = CultureInfo.InvariantCulture;
         var t = h.Temperature;
         var cooling = e.Case.Thermal!.Cooling;
         string how = cooling.Medium switch
         {
-            CoolingMedium.Fixed => string.Create(c, $"h {t.ConvectionCoefficientWPerM2K:G3} W/m2K given"),
-            var m => string.Create(c, $"natural convection in {(m == CoolingMedium.Air ? "air" : "oil")}, h {t.ConvectionCoefficientWPerM2K:G3} W/m2K at the mean rise (Churchill-Chu, height {cooling.VerticalLengthM * 1e3:G4} mm)"),
+            CoolingMedium.Fixed => $"h {Numbers.Sig(t.ConvectionCoefficientWPerM2K)} W/m2K given",
+            var m => $"natural convection in {(m == CoolingMedium.Air ? "air" : "oil")}, h {Numbers.Sig(t.ConvectionCoefficientWPerM2K)} W/m2K at the mean rise (Churchill-Chu, height {Numbers.Of(cooling.VerticalLengthM * 1e3, "mm")})",
         };
-        s.AppendLine(c, $"  hottest point        {t.HottestK - 273.15:0.#} degC (rise {t.MaxRiseK:G3} K) at x {t.HottestXM * 1e3:G4} mm, y {t.HottestYM * 1e3:G4} mm");
-        s.AppendLine(c, $"  mean rise            {t.MeanRiseK:G3} K above ambient {t.AmbientK - 273.15:0.#} degC");
-        s.AppendLine(c, $"  resistivity at       the local temperature, {h.ResistivityMinK - 273.15:0.#} to {h.ResistivityMaxK - 273.15:0.#} degC (loss-weighted mean {h.LossWeightedTemperatureK - 273.15:0.#} degC), {h.CouplingIterations} coupling iterations");
-        s.AppendLine(c, $"  cooling              {how}; radiation {(cooling.Emissivity > 0 ? string.Create(c, $"emissivity {cooling.Emissivity:G3}") : "off")}; edges {(cooling.Edges == ThermalEdge.Ambient ? "held at ambient" : "insulated")}");
-        s.AppendLine(c, $"  heat out             convected {t.ConvectedW:G4} W, radiated {t.RadiatedW:G4} W, to edges {t.EdgeW:G4} W");
+        s.AppendLine($"  hottest point        {Numbers.Celsius(t.HottestK, "degC")} (rise {Numbers.Kelvin(t.MaxRiseK)}) at x {Numbers.Of(t.HottestXM * 1e3, "mm")}, y {Numbers.Of(t.HottestYM * 1e3, "mm")}");
+        s.AppendLine($"  mean rise            {Numbers.Kelvin(t.MeanRiseK)} above ambient {Numbers.Celsius(t.AmbientK, "degC")}");
+        s.AppendLine($"  resistivity at       the local temperature, {Numbers.Celsius(h.ResistivityMinK, "degC")} to {Numbers.Celsius(h.ResistivityMaxK, "degC")} (loss-weighted mean {Numbers.Celsius(h.LossWeightedTemperatureK, "degC")}), {h.CouplingIterations} coupling iterations");
+        s.AppendLine($"  cooling              {how}; radiation {(cooling.Emissivity > 0 ? $"emissivity {Numbers.Sig(cooling.Emissivity)}" : "off")}; edges {(cooling.Edges == ThermalEdge.Ambient ? "held at ambient" : "insulated")}");
+        s.AppendLine($"  heat out             convected {Numbers.Watts(t.ConvectedW)}, radiated {Numbers.Watts(t.RadiatedW)}, to edges {Numbers.Watts(t.EdgeW)}");
         s.AppendLine($"  material             {e.Case.Thermal.Material.Description}");
         var limit = e.Case.Thermal.Limit;
         if (limit.IsSet) s.AppendLine($"  temperature limit    {limit.Breach(t) ?? "met"}");

@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using SlotOpt.Design;
 using SlotOpt.Reports;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Cli;
 
@@ -27,7 +28,7 @@ public static class ProcessesCommand
             output.WriteLine("Cutting processes (a problem file may override any value in [manufacturing])");
             output.WriteLine($"{"name",-14} {"min slot mm",11} {"strip/t",7} {"ligament/t",10} {"max slots",9} {"per m per mm",12} {"per slot",8} {"setup",7} {"per sheet",9}");
             foreach (var p in processes)
-                output.WriteLine(string.Create(ci, $"{p.Name,-14} {p.MinSlotWidthM * 1e3,11:G3} {p.MinStripOverThickness,7:G3} {p.MinLigamentOverThickness,10:G3} {p.MaxSlots,9} {p.CostPerMetrePerMmThickness,12:G3} {p.CostPerSlot,8:G3} {p.SetupCost,7:G3} {p.CostPerSheet,9:G3}"));
+                output.WriteLine(string.Create(ci, $"{p.Name,-14} {Numbers.Sig(p.MinSlotWidthM * 1e3),11} {Numbers.Sig(p.MinStripOverThickness),7} {Numbers.Sig(p.MinLigamentOverThickness),10} {p.MaxSlots,9} {Numbers.Sig(p.CostPerMetrePerMmThickness),12} {Numbers.Sig(p.CostPerSlot),8} {Numbers.Sig(p.SetupCost),7} {Numbers.Sig(p.CostPerSheet),9}"));
             output.WriteLine();
             output.WriteLine("Sources:");
             foreach (var p in processes) output.WriteLine($"  {p.Name}: {p.Origin}");

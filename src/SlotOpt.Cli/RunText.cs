@@ -21,7 +21,7 @@ public static class RunText
         var economics = r.Problem.Economics;
         var cur = economics.Currency;
         o.WriteLine(r.Problem.Name);
-        o.WriteLine(string.Create(ci, $"  {r.Parts.Sum(p => p.Options.Count)} options evaluated ({r.Parts.Sum(p => p.Feasible.Count)} within the rules), {r.SheetSolves} plate solves in {r.EvaluationSeconds:0.0} s; selection {r.Outcome.Effort.SolverCalls} solver calls, {r.Outcome.Effort.WallSeconds:0.00} s"));
+        o.WriteLine(string.Create(ci, $"  {r.Parts.Sum(p => p.Options.Count)} options evaluated ({r.Parts.Sum(p => p.Feasible.Count)} within the rules), {r.SheetSolves} plate solves in {Numbers.Of(r.EvaluationSeconds, "s")}; selection {r.Outcome.Effort.SolverCalls} solver calls, {Numbers.Of(r.Outcome.Effort.WallSeconds, "s")}"));
         foreach (var p in r.Parts)
             foreach (var (rule, count) in p.RejectionCounts)
                 o.WriteLine($"  {p.Part.Name}: {count} options dropped: {rule}");
@@ -47,7 +47,7 @@ public static class RunText
             o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Torque(reference.TorqueNm)}{Drag(reference.DragN)}{(reference.Model is { } model ? $" ({model.Name} model)" : "")}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {ReportContent.ConfirmationText(confirmed)}");
             if (r.Confirmation(chosen.PartName)?.MinimumTorque is { } minimumTorque)
-                o.WriteLine(string.Create(ci, $"    minimum torque: {Numbers.Of(minimumTorque.TorqueNm, "N m")} at {minimumTorque.Rpm:0.##} rpm ({ReactionModelChoice.Name(minimumTorque.Model)}) {(minimumTorque.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Of(minimumTorque.RequiredNm, "N m")}"));
+                o.WriteLine($"    minimum torque: {Numbers.Of(minimumTorque.TorqueNm, "N m")} at {Numbers.Of(minimumTorque.Rpm, "rpm")} ({ReactionModelChoice.Name(minimumTorque.Model)}) {(minimumTorque.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Of(minimumTorque.RequiredNm, "N m")}");
             if (r.Confirmation(chosen.PartName)?.MinimumDrag is { } minimum)
                 o.WriteLine($"    minimum drag: {Numbers.Newtons(minimum.DragN)} at {Numbers.Of(minimum.SpeedMPerS, "m/s")} ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Newtons(minimum.RequiredN)}");
             foreach (var role in new[] { DesignRole.Chosen, DesignRole.Reference })
@@ -82,7 +82,7 @@ public static class RunText
         if (heat.Heating is not { } h) return $"no steady state ({heat.Failure})";
         var t = h.Temperature;
         return string.Create(CultureInfo.InvariantCulture,
-            $"hottest {Numbers.Celsius(t.HottestK, "degC")} (rise {Numbers.Kelvin(t.MaxRiseK)}) at x {t.HottestXM * 1e3:0} mm, y {t.HottestYM * 1e3:0} mm; mean rise {Numbers.Kelvin(t.MeanRiseK)}; resistivity at {Numbers.Celsius(h.LossWeightedTemperatureK, "degC")} (loss-weighted); {(heat.Limit.IsSet ? heat.Breach ?? "within the limit" : "no limit set")}");
+            $"hottest {Numbers.Celsius(t.HottestK, "degC")} (rise {Numbers.Kelvin(t.MaxRiseK)}) at x {Numbers.Of(t.HottestXM * 1e3, "mm")}, y {Numbers.Of(t.HottestYM * 1e3, "mm")}; mean rise {Numbers.Kelvin(t.MeanRiseK)}; resistivity at {Numbers.Celsius(h.LossWeightedTemperatureK, "degC")} (loss-weighted); {(heat.Limit.IsSet ? heat.Breach ?? "within the limit" : "no limit set")}");
     }
 
     private static string Drag(double? dragN) => dragN is { } d ? $", drag {Numbers.Newtons(d)}" : "";

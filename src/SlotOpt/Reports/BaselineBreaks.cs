@@ -1,6 +1,7 @@
 using System.Globalization;
 using SlotOpt.Design;
 using SlotOpt.Runs;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Reports;
 
@@ -12,9 +13,9 @@ public static class BaselineBreaks
         var broken = b.Breaks.ToList();
         var cur = r.Problem.Economics.Currency;
         if (r.Problem.Limits.Budget is { } budget && b.BuildCost > budget)
-            broken.Add(string.Create(CultureInfo.InvariantCulture, $"build cost {b.BuildCost:0.00} {cur} is over the budget of {budget:0.00} {cur}"));
+            broken.Add($"build cost {Numbers.Money(b.BuildCost, cur)} is over the budget of {Numbers.Money(budget, cur)}");
         if (r.Problem.Limits.TotalLossCapW is { } cap && b.LossW > cap)
-            broken.Add(string.Create(CultureInfo.InvariantCulture, $"loss {b.LossW:0.###} W is over the loss cap of {cap:0.###} W"));
+            broken.Add($"loss {Numbers.Watts(b.LossW)} is over the loss cap of {Numbers.Watts(cap)}");
         return broken;
     }
 

@@ -53,7 +53,7 @@ public static class ReportContent
             return r.Outcome.Status == SelectionStatus.Infeasible
                 ? "Verdict: no design meets every limit" + (r.Outcome.Diagnosis?.Explain() is [var first, ..] ? ": " + first : ".")
                 : "Verdict: the search ran out of its time budget before finding a design that meets every limit.";
-        var design = r.Chosen.Count == 1 ? WorkshopWords.Of(r.Chosen[0]) : string.Join("; ", r.Chosen.Select(o => $"{o.PartName}: {WorkshopWords.Of(o)}"));
+        var design = r.Chosen.Count == 1 ? WorkshopWords.Of(r.Chosen[0], r.Parts[0].Part) : string.Join("; ", r.Chosen.Select((o, i) => $"{o.PartName}: {WorkshopWords.Of(o, r.Parts[i].Part)}"));
         var reference = r.Reference;
         var savedOwning = reference.OwningCost(r.Problem) - r.OwningCost;
         var savedW = reference.LossW - r.TotalLossW;
@@ -89,8 +89,8 @@ public static class ReportContent
               + (e.LoadEnergyShare is { } share ? F($", since load loss is paid at (per-unit load)^2 x loss factor = {N(share)} of the energised hours (IEEE C57.120 A and B factors)") : "")
             : F($"A watt of continuous loss is worth {N(e.ValuePerWatt)} {e.Currency} over the life");
         if (e.EnergyPricePerKWh is { } price && e.HoursPerYear is { } hours)
-            economics += F($" (energy at {N(price)} {e.Currency}/kWh for {hours:0} h a year") + (e.Years is { } years ? F($", {years:0.#} years") : "")
-                + (e.DiscountRate is { } rate ? F($" discounted at {rate * 100:0.#} %") : "") + ")";
+            economics += F($" (energy at {N(price)} {e.Currency}/kWh for {N(hours)} h a year") + (e.Years is { } years ? F($", {N(years)} years") : "")
+                + (e.DiscountRate is { } rate ? F($" discounted at {N(rate * 100)} %") : "") + ")";
         b.Add(new Paragraph(economics + "."));
         var rows = r.Parts.Select(pe => (IReadOnlyList<string>)[pe.Part.Name, Inputs(pe.Part), pe.Options.Count.ToString(Ci), pe.Feasible.Count.ToString(Ci)]).ToList();
         b.Add(new Table(["part", "inputs", "options evaluated", "within the rules"], rows, [false, false, true, true]));
@@ -111,8 +111,8 @@ public static class ReportContent
 
     private static string Inputs(Part part) => part switch
     {
-        CorePart c => F($"laminated core: {c.LaminationAreaM2 * 1e4:0.##} cm² lamination area, {c.StackHeightM * 1e3:0.#} mm stack; {N(c.Flux.PeakT)} T peak at {c.Flux.FundamentalHz:0.#} Hz, {(c.Flux.IsSinusoidal ? "sine" : "non-sinusoidal waveform")}; {c.TemperatureK - 273.15:0} °C")
-            + (double.IsFinite(c.FeatureWidthM) ? F($"; narrowest feature {c.FeatureWidthM * 1e3:0.##} mm") : "")
+        CorePart c => F($"laminated core: {N(c.LaminationAreaM2 * 1e4)} cm² lamination area, {N(c.StackHeightM * 1e3)} mm stack; {N(c.Flux.PeakT)} T peak at {N(c.Flux.FundamentalHz)} Hz, {(c.Flux.IsSinusoidal ? "sine" : "non-sinusoidal waveform")}; {Numbers.Celsius(c.TemperatureK)}")
+            + (double.IsFinite(c.FeatureWidthM) ? F($"; narrowest feature {N(c.FeatureWidthM * 1e3)} mm") : "")
             + $"; grades {string.Join(", ", c.Grades)}; processes {string.Join(", ", c.Processes)}"
             + (c.MaxLossW is { } max ? $"; loss limit {Numbers.Watts(max)}" : ""),
         PlatePart pl => PlateInputs(pl),
@@ -124,22 +124,22 @@ public static class ReportContent
         var (min, max) = p.Outline.Bounds;
         var source = p.Excitation switch
         {
-            PlateExcitation.Turning turning => F($"the disc turning at {turning.Rpm:0.##} rpm under {turning.Source.Words} (path speed {turning.PathSpeedMPerS:0.##} m/s)"),
-            PlateExcitation.Moving { Source: var moving } => F($"{moving.Words} passing at {moving.SpeedMPerS:0.##} m/s"),
-            PlateExcitation.AcField field => F($"AC field at {field.FrequencyHz:0.#} Hz") + (field.FieldMapFile is { } map ? $" from the field-map file {map}" : " (uniform)"),
+            PlateExcitation.Turning turning => $"the disc turning at {Numbers.Of(turning.Rpm, "rpm")} under {turning.Source.Words} (path speed {Numbers.Of(turning.PathSpeedMPerS, "m/s")})",
+            PlateExcitation.Moving { Source: var moving } => $"{moving.Words} passing at {Numbers.Of(moving.SpeedMPerS, "m/s")}",
+            PlateExcitation.AcField field => $"AC field at {Numbers.Of(field.FrequencyHz, "Hz")}" + (field.FieldMapFile is { } map ? $" from the field-map file {map}" : " (uniform)"),
             _ => throw new ArgumentOutOfRangeException(nameof(p), p.Excitation.GetType().Name, "unknown plate excitation"),
         };
-        var shape = p.Disc is { } disc ? F($"disc {2 * disc.RadiusM * 1e3:0.#} mm across") + (disc.BoreRadiusM > 0 ? F($", bore {2 * disc.BoreRadiusM * 1e3:0.#} mm") : "")
-            : F($"plate {(max.X - min.X) * 1e3:0.#} x {(max.Y - min.Y) * 1e3:0.#} mm");
-        return F($"{shape}; {source}; {p.TemperatureK - 273.15:0} °C; thicknesses ")
-            + string.Join(", ", p.ThicknessesM.Select(t => F($"{t * 1e3:0.###} mm"))) + $"; materials {string.Join(", ", p.Materials)}; processes {string.Join(", ", p.Processes)}; "
+        var shape = p.Disc is { } disc ? $"disc {N(2 * disc.RadiusM * 1e3)} mm across" + (disc.BoreRadiusM > 0 ? $", bore {N(2 * disc.BoreRadiusM * 1e3)} mm" : "")
+            : $"plate {N((max.X - min.X) * 1e3)} x {N((max.Y - min.Y) * 1e3)} mm";
+        return $"{shape}; {source}; {Numbers.Celsius(p.TemperatureK)}; thicknesses "
+            + string.Join(", ", p.ThicknessesM.Select(t => $"{N(t * 1e3)} mm")) + $"; materials {string.Join(", ", p.Materials)}; processes {string.Join(", ", p.Processes)}; "
             + (p.SlotFamilies.Count == 0 ? "no slot patterns" : string.Join(", ", p.SlotFamilies.Select(f => f.Rings is { } rings
                 ? $"radial slots ({string.Join(", ", rings.Select(x => x.Count).Distinct())} round the disc)"
                 : $"{SlotPatternCatalog.Of(f.Pattern).Words} slots from the {f.Edge.ToString().ToLowerInvariant()} edge")))
-            + F($"; uncut ligament at least {p.MinLigamentM * 1e3:0.#} mm")
+            + $"; uncut ligament at least {N(p.MinLigamentM * 1e3)} mm"
             + (p.MaxDragN is { } drag ? $"; drag limit {Numbers.Newtons(drag)}" : "")
             + (p.MaxTorqueNm is { } torque ? $"; torque limit {Numbers.Of(torque, "N m")}" : "")
-            + (p.MinTorque is { } wanted ? F($"; minimum braking torque {Numbers.Of(wanted.TorqueNm, "N m")} at {wanted.Rpm:0.##} rpm") : "")
+            + (p.MinTorque is { } wanted ? $"; minimum braking torque {Numbers.Of(wanted.TorqueNm, "N m")} at {Numbers.Of(wanted.Rpm, "rpm")}" : "")
             + (p.MaxLossW is { } loss ? $"; loss limit {Numbers.Watts(loss)}" : "")
             + (p.Thermal is { } th ? "; " + CoolingWords(th) : "");
     }
@@ -147,9 +147,9 @@ public static class ReportContent
     private static string CoolingWords(PartThermal th)
     {
         var c = th.Cooling;
-        var medium = c.Medium switch { CoolingMedium.Air => "natural convection in air", CoolingMedium.Oil => "natural convection in oil", _ => F($"h {c.FixedCoefficientWPerM2K:0.#} W/m²K") };
-        var limit = th.Limit.MaxTemperatureK is { } mt ? F($"hottest point at most {mt - 273.15:0.#} °C") : th.Limit.MaxRiseK is { } mr ? F($"hottest rise at most {mr:0.#} K") : "no temperature limit";
-        return F($"cooled by {medium} at {c.AmbientK - 273.15:0.#} °C, {limit}");
+        var medium = c.Medium switch { CoolingMedium.Air => "natural convection in air", CoolingMedium.Oil => "natural convection in oil", _ => $"h {N(c.FixedCoefficientWPerM2K!.Value)} W/m²K" };
+        var limit = th.Limit.MaxTemperatureK is { } mt ? $"hottest point at most {Numbers.Celsius(mt)}" : th.Limit.MaxRiseK is { } mr ? $"hottest rise at most {Numbers.Kelvin(mr)}" : "no temperature limit";
+        return $"cooled by {medium} at {Numbers.Celsius(c.AmbientK)}, {limit}";
     }
 
     private static IEnumerable<string> SharedLimitLines(Problem p)
@@ -183,8 +183,8 @@ public static class ReportContent
         {
             var c = r.Chosen[i];
             var reference = r.Parts[i].Reference;
-            rows.Add(Row(c.PartName, "chosen", c, WorkshopWords.Of(c)));
-            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")));
+            rows.Add(Row(c.PartName, "chosen", c, WorkshopWords.Of(c, r.Parts[i].Part)));
+            rows.Add(Row("", r.Parts[i].ReferenceIsCurrent ? "current" : "baseline", reference, WorkshopWords.Of(reference, r.Parts[i].Part) + (reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")));
         }
         b.Add(withTorque
             ? new Table(["part", "", "design", "loss (W)", "drag (N)", "torque (N m)", $"build cost ({Cur(r)})"], rows, [false, false, false, true, true, true, true])
@@ -212,7 +212,7 @@ public static class ReportContent
         var who = h.Role == DesignRole.Chosen ? "chosen" : "reference";
         if (h.Heating is not { } heated) return $"{h.PartName}, {who} ({h.Option.Description}): no steady state ({h.Failure})";
         var t = heated.Temperature;
-        return F($"{h.PartName}, {who} ({h.Option.Description}): hottest {Numbers.Celsius(t.HottestK)} (rise {Numbers.Kelvin(t.MaxRiseK)}) at x {t.HottestXM * 1e3:0} mm, y {t.HottestYM * 1e3:0} mm; mean rise {Numbers.Kelvin(t.MeanRiseK)} above {Numbers.Celsius(t.AmbientK)}; resistivity at {Numbers.Celsius(heated.LossWeightedTemperatureK)} (loss-weighted), coupled loss {Numbers.Watts(heated.LossW)}; ")
+        return F($"{h.PartName}, {who} ({h.Option.Description}): hottest {Numbers.Celsius(t.HottestK)} (rise {Numbers.Kelvin(t.MaxRiseK)}) at x {N(t.HottestXM * 1e3)} mm, y {N(t.HottestYM * 1e3)} mm; mean rise {Numbers.Kelvin(t.MeanRiseK)} above {Numbers.Celsius(t.AmbientK)}; resistivity at {Numbers.Celsius(heated.LossWeightedTemperatureK)} (loss-weighted), coupled loss {Numbers.Watts(heated.LossW)}; ")
             + (h.Limit.IsSet ? h.Breach ?? "within the limit" : "no limit set");
     }
 
@@ -221,7 +221,7 @@ public static class ReportContent
 
     /// <summary>A chosen plate as confirmed, in the words the report and the console share: which model ran, its loss, drag and lift against the screen, its grid error, and why that model.</summary>
     public static string ConfirmationText(PlateConfirmation c) =>
-        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.TorqueNm is { } t ? $", braking torque {Numbers.Of(t, "N m")}" : "")}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}{(c.TorqueNm is null ? "" : " at the magnets' radius")}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? F($"; estimated grid error {e.Relative:P2}") : "")}. {c.Reason}";
+        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.TorqueNm is { } t ? $", braking torque {Numbers.Of(t, "N m")}" : "")}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}{(c.TorqueNm is null ? "" : " at the magnets' radius")}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? $"; estimated grid error {N(e.Relative * 100)} %" : "")}. {c.Reason}";
 
     private static string Drag(double? dragN) => dragN is { } d ? N(d) : "";
 
@@ -243,7 +243,7 @@ public static class ReportContent
             {
                 var savedYearly = referenceYearly - chosenYearly;
                 text += $" = {Money(r, savedYearly)} a year";
-                if (extraCost > 0 && savedYearly > 0) text += F($" (its extra build cost of {Money(r, extraCost)} is paid back in {extraCost / savedYearly:0.#} years, undiscounted)");
+                if (extraCost > 0 && savedYearly > 0) text += $" (its extra build cost of {Money(r, extraCost)} is paid back in {N(extraCost / savedYearly)} years, undiscounted)";
             }
             else text += " (the energy price and hours are not given, so no figure per year)";
             text += F($", and {(savedOwning >= 0 ? "saves" : "adds")} {Money(r, Math.Abs(savedOwning))} of owning cost over the life ") + (r.Problem.Economics.SeparatesLoadLoss
@@ -285,7 +285,7 @@ public static class ReportContent
             if (part.MaxLossW is { } maxLoss) checks.Add(Against($"{part.Name}: loss limit", chosen[i].Loss.TotalW, maxLoss, "W"));
             if (part is PlatePart { MaxTorqueNm: { } maxTorque } && chosen[i].TorqueNm is { } torque) checks.Add(Against($"{part.Name}: torque limit", torque, maxTorque, "N m"));
             if (r.Confirmation(part.Name)?.MinimumTorque is { } wantedTorque)
-                checks.Add(AtLeast(F($"{part.Name}: minimum braking torque at {wantedTorque.Rpm:0.##} rpm"), wantedTorque.TorqueNm, wantedTorque.RequiredNm, "N m"));
+                checks.Add(AtLeast($"{part.Name}: minimum braking torque at {Numbers.Of(wantedTorque.Rpm, "rpm")}", wantedTorque.TorqueNm, wantedTorque.RequiredNm, "N m"));
             if (r.Confirmation(part.Name)?.MinimumDrag is { } wanted) checks.Add(AtLeast($"{part.Name}: minimum drag at {Numbers.Of(wanted.SpeedMPerS, "m/s")}", wanted.DragN, wanted.RequiredN, "N"));
             if (r.HeatOf(part.Name, DesignRole.Chosen) is { Heating: { } heated, Limit: var limit })
             {
@@ -303,7 +303,7 @@ public static class ReportContent
         if (r.HasDesign && lines.Count == 0) lines.Add("The problem sets no limits: the goal alone picked the design.");
         if (!r.HasDesign) lines.AddRange(r.Outcome.Diagnosis?.Explain() ?? ["no diagnosis: the search ran out of its time budget"]);
         b.Add(new BulletList(lines));
-        if (r.HasDesign) b.Add(new Paragraph(F($"A limit is said to bind when the design uses it to within {BindingFraction * 100:0.#} %; a limit with room left did not shape the choice.")));
+        if (r.HasDesign) b.Add(new Paragraph($"A limit is said to bind when the design uses it to within {N(BindingFraction * 100)} %; a limit with room left did not shape the choice."));
     }
 
     /// <summary>A limit used to within this fraction of itself is reported as binding.</summary>
@@ -358,7 +358,7 @@ public static class ReportContent
             b.Add(new FigureBlock(figure));
             b.Add(new BulletList(curves.Crossings.Count == 0
                 ? ["no gauge overtakes another between a tenth and ten times the operating frequency"]
-                : curves.Crossings.Select(c => F($"above {c.FrequencyHz:0.#} Hz {c.BetterAbove} loses less than {c.BetterBelow} ({Numbers.Watts(c.LossW)} at the crossing)")).ToList()));
+                : curves.Crossings.Select(c => $"above {Numbers.Of(c.FrequencyHz, "Hz")} {c.BetterAbove} loses less than {c.BetterBelow} ({Numbers.Watts(c.LossW)} at the crossing)").ToList()));
         }
         foreach (var (part, figure) in figures.CurrentDensity)
         {

@@ -100,7 +100,7 @@ public class TurningDiscRunTests(Xunit.Abstractions.ITestOutputHelper output)
     public void A_radially_slotted_option_is_named_as_a_disc_with_its_slots_once()
     {
         var slotted = Run.Value.Parts[0].Options.First(o => o.Choice is PlateChoice { Slots.Radial.Count: 8, ThicknessM: 0.002, Material: "Cu-ETP" });
-        var words = SlotOpt.Reports.WorkshopWords.Of(slotted);
+        var words = SlotOpt.Reports.WorkshopWords.Of(slotted, Run.Value.Parts[0].Part);
         Assert.StartsWith("Cu-ETP disc 2 mm thick, cut by ", words);
         Assert.Single(System.Text.RegularExpressions.Regex.Matches(words, "radial slots"));
         Assert.DoesNotContain("slots:", words);

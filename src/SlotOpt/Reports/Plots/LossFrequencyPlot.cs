@@ -27,7 +27,7 @@ public static class LossFrequencyPlot
             line.LegendText = $"core loss with {c.Grade} ({Numbers.Sig(c.GaugeMm)} mm gauge){(c.Grade == chosenGrade ? ", the chosen grade" : "")}";
         }
         var operating = plot.Add.VerticalLine(Math.Log10(f0), 1.5f, PlotStyle.Black);
-        operating.LegendText = string.Create(CultureInfo.InvariantCulture, $"operating frequency {f0:0.#} Hz");
+        operating.LegendText = $"operating frequency {Numbers.Of(f0, "Hz")}";
         if (curves.Crossings.Count > 0)
         {
             var marks = plot.Add.Markers(LogAxis.Log10(curves.Crossings.Select(c => c.FrequencyHz)), LogAxis.Log10(curves.Crossings.Select(c => c.LossW)), MarkerShape.OpenCircle, 11, PlotStyle.Black);
@@ -37,7 +37,7 @@ public static class LossFrequencyPlot
         LogAxis.Apply(plot.Axes.Left, curves.Curves.SelectMany(c => c.LossW));
         var legendPx = PlotStyle.LegendBelow(plot);
         var caption = string.Create(CultureInfo.InvariantCulture,
-            $"The part's own flux waveform (peak {part.Flux.PeakT:0.###} T, {(part.Flux.IsSinusoidal ? "sine" : "non-sinusoidal")}) moved to each frequency, times each grade's steel mass in the part; same temperature and feature width. ")
+            $"The part's own flux waveform (peak {Numbers.Of(part.Flux.PeakT, "T")}, {(part.Flux.IsSinusoidal ? "sine" : "non-sinusoidal")}) moved to each frequency, times each grade's steel mass in the part; same temperature and feature width. ")
             + (curves.Crossings.Count > 0 ? "Open circles mark where two curves cross; the list below says which grade loses less above each crossing." : "No two curves cross in this range: the order of the grades holds from a tenth to ten times the operating frequency.");
         return PlotStyle.Render(plot, FileStemFor(partIndex, part), $"Loss against frequency: {part.Name}", caption, heightPx: PlotStyle.HeightPx + legendPx);
     }

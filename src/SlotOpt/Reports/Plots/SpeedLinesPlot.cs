@@ -1,5 +1,4 @@
 using SlotOpt.Design.SolidParts;
-using System.Globalization;
 using ScottPlot;
 using SlotOpt.Tables;
 using SlotOpt.Design;
@@ -36,10 +35,9 @@ public static class SpeedLinesPlot
             [new Point(0, 0, null), new Point(vMax, l.Option.DragN!.Value / v0 * vMax, null)], l.ReynoldsLimitSpeedMPerS, null)).ToList();
         var words = new Words("drag", "N", "m/s", "drag limit", "plate", "", "the low-speed model holds below, faded above");
         var offPlot = lines.Where(l => l.ValidityEnd > vMax).Select(l => l.ValidityEnd).ToList();
-        var caption = string.Create(CultureInfo.InvariantCulture,
-            $"Drag scaled from each option's drag at the run's {v0:0.##} m/s (dots); the designs are described in full above. The low-speed model (drag proportional to speed) holds while the magnetic Reynolds number μ0σtv/2 stays below {reynoldsLimit}; each line is faded beyond the speed where it reaches it")
+        var caption = $"Drag scaled from each option's drag at the run's {Numbers.Of(v0, "m/s")} (dots); the designs are described in full above. The low-speed model (drag proportional to speed) holds while the magnetic Reynolds number μ0σtv/2 stays below {Numbers.Sig(reynoldsLimit)}; each line is faded beyond the speed where it reaches it"
             + (offPlot.Count > 0 ? $" (for some sheets only above {Numbers.Of(offPlot.Min(), "m/s")}, off the plot)" : "")
-            + string.Create(CultureInfo.InvariantCulture, $". The model neglects the eddy currents' own field; above Rm = {reynoldsLimit} it overstates the drag (by about 6-9 % at 0.3, more above), and at high speed real drag passes a maximum and falls. Not a brake rating.");
+            + $". The model neglects the eddy currents' own field; above Rm = {Numbers.Sig(reynoldsLimit)} it overstates the drag (by about 6-9 % at 0.3, more above), and at high speed real drag passes a maximum and falls. Not a brake rating.";
         var plot = PlotStyle.NewPlot($"{part.Name}: drag against speed (low-speed model)", "speed (m/s)", "drag (N)");
         Draw(plot, words, lines, v0, vMax, plate.ReferenceIsCurrent, reynoldsLimit, part.MaxDragN, minimum: null);
         var legendPx = PlotStyle.LegendBelow(plot);
@@ -60,9 +58,8 @@ public static class SpeedLinesPlot
             l.Points.Select(p => new Point(p.Rpm, p.TorqueNm, p.Model)).ToList(), l.ValidityEndRpm, l.PeakRpm)).ToList();
         var words = new Words("braking torque", "N m", "rpm", "torque limit", "disc", " at the magnets' radius", "the resistance-limited line holds below, faded above; it shows no peak");
         var offPlot = lines.Where(l => l.ValidityEnd > nMax).Select(l => l.ValidityEnd).ToList();
-        var caption = string.Create(CultureInfo.InvariantCulture,
-            $"Braking torque of each disc against its speed, computed in the run from the model named in the legend (dots: the run's {n0:0.##} rpm). The resistance-limited model neglects the eddy currents' own field: torque rises in proportion to speed and shows no peak. It holds while the magnetic Reynolds number at the magnets' radius, μ0σt(ωr)/2, stays below {reynoldsLimit}; each line is faded beyond the speed where it reaches it")
-            + (offPlot.Count > 0 ? string.Create(CultureInfo.InvariantCulture, $" (for some sheets only above {offPlot.Min():0} rpm, off the plot)") : "")
+        var caption = $"Braking torque of each disc against its speed, computed in the run from the model named in the legend (dots: the run's {Numbers.Of(n0, "rpm")}). The resistance-limited model neglects the eddy currents' own field: torque rises in proportion to speed and shows no peak. It holds while the magnetic Reynolds number at the magnets' radius, μ0σt(ωr)/2, stays below {Numbers.Sig(reynoldsLimit)}; each line is faded beyond the speed where it reaches it"
+            + (offPlot.Count > 0 ? $" (for some sheets only above {Numbers.Of(offPlot.Min(), "rpm")}, off the plot)" : "")
             + ". Above it the real torque is lower, passes a maximum and falls. Not a brake rating.";
         var plot = PlotStyle.NewPlot($"{part.Name}: braking torque against speed", "disc speed (rpm)", "braking torque (N m)");
         Draw(plot, words, lines, n0, nMax, plate.ReferenceIsCurrent, reynoldsLimit, part.MaxTorqueNm, part.MinTorque is { } wanted ? new Point(wanted.Rpm, wanted.TorqueNm, null) : null);

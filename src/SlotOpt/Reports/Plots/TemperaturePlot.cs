@@ -43,7 +43,7 @@ public static class TemperaturePlot
             var option = panel.Option;
             var who = panel.Role == DesignRole.Chosen ? "chosen" : referenceIsCurrent ? "current" : "baseline";
             var plot = PlotStyle.NewPlot(string.Create(CultureInfo.InvariantCulture,
-                $"{who}: {option.Description}\nhottest {panel.HottestC:0.0} °C (circled) at x {panel.HottestXMm:0} mm, y {panel.HottestYMm:0} mm; mean rise {panel.MeanRiseK:0.0} K"), "x (mm)", "y (mm)");
+                $"{who}: {option.Description}\nhottest {panel.HottestC:0.0} °C (circled) at x {Numbers.Of(panel.HottestXMm, "mm")}, y {Numbers.Of(panel.HottestYMm, "mm")}; mean rise {Numbers.Kelvin(panel.MeanRiseK)}"), "x (mm)", "y (mm)");
             plot.Axes.Title.Label.FontSize = 13;
             var heatmap = AddMap(plot, panel, low, high);
             DrawGeometry(plot, panel.Drawing);

@@ -82,7 +82,8 @@ public static class TradeOffPlot
         var tips = front.Points.Select(p =>
         {
             var px = plot.GetPixel(new Coordinates(p.BuildCost, Y(p.LossW)));
-            var designs = p.CandidateIds.Select(id => r.Parts.Count == 1 ? WorkshopWords.Of(r.Option(id)) : $"{r.Option(id).PartName}: {WorkshopWords.Of(r.Option(id))}");
+            var designs = p.CandidateIds.Select(r.Option).Select(o => (Option: o, Words: WorkshopWords.Of(o, r.Parts.First(pe => pe.Part.Name == o.PartName).Part)))
+                .Select(d => r.Parts.Count == 1 ? d.Words : $"{d.Option.PartName}: {d.Words}");
             var text = $"{(chosenIds is not null && p.CandidateIds.SequenceEqual(chosenIds) ? "chosen design: " : "")}build cost {Numbers.Money(p.BuildCost, cur)}, loss {Numbers.Watts(p.LossW)}, owning cost {Numbers.Money(ReportContent.FrontOwningCost(r, p), cur)}\n"
                 + string.Join("\n", designs);
             return ((double)px.X, (double)px.Y, text);
