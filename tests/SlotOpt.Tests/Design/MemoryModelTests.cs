@@ -8,9 +8,9 @@ namespace SlotOpt.Tests.Design;
 /// <summary>
 /// The memory model against measurements of the real process (`slotopt run problems/conveyor-rail.toml`, 2026-12-02, peak resident size from
 /// `/usr/bin/time -v`, the machine's 2 threads; the demo: a 600 x 80 mm rail at 2 mm cells, 300 x 40 = 12 000 cells, 4 x 3 x 2 slot geometries
-/// and the solid one, 8 travel positions). Measured: 615 and 627 MB without a report, 660 MB with --out; with the collector's heap held to
-/// DOTNET_GCHeapHardLimit = 300 MB the run fails for memory in the coupled ranking, with 375 MB it completes (peak 414 MB resident, 1 or 2
-/// threads; unlimited, one 1-thread run peaked at 803 MB: the collector grows its heap where memory is free, which no model of the run bounds).
+/// and the solid one, 8 travel positions). Measured: 615 and 627 MB without a report, 616 and 660 MB with --out (two more runs, at 803 MB with
+/// one thread and 927 MB with two, show the collector growing its heap where memory is free; they bound no model); with the collector's heap held to
+/// DOTNET_GCHeapHardLimit = 300 MB the run fails for memory in the coupled ranking, with 375 MB it completes (peak 414 MB resident, 1 or 2 threads).
 /// The estimate (with its margin) must be at least each measured peak, and what it says is held (without the margin and the runtime) must
 /// exceed the heap the run failed in: both are measured bounds, not the model's own numbers.
 /// </summary>

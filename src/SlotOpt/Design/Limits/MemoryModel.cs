@@ -109,8 +109,9 @@ public static class MemoryModel
     /// lattice per grid cell: every geometry's bound basis and reaction operator, and Threads bases grown to convergence. Measured
     /// 2026-12-02, `slotopt run` on the conveyor-rail demo (12 k cells, 25 geometries, 8 travel positions, padded 2.7 x): with the collector
     /// held to a hard heap limit (DOTNET_GCHeapHardLimit) the run fails at 300 MB in the ranking's bounds and completes at 375 MB (peak 414 MB
-    /// resident, 1 or 2 threads); unlimited it peaks at 615 to 660 MB resident with 2 threads, and once at 803 MB with 1 thread (the collector
-    /// grows its heap where memory is free: a measure of the machine as much as of the run). This term, times the margin, covers the 2-thread peaks.
+    /// resident, 1 or 2 threads). Unlimited, six runs peaked at 615, 616, 627 and 660 MB resident with 2 threads, but one 2-thread run at 927 MB
+    /// and one 1-thread run at 803 MB: the collector grows its heap where memory is free, which no model of what the run holds bounds. This
+    /// term, times the margin, covers the four typical peaks and the held heap (above 300 MB).
     /// </summary>
     public static double RankingBytesPerCell(int geometries, int threads, int travelPositions, double paddedCellsPerCell = PaddedCellsPerCellBound) =>
         travelPositions <= 0 ? 0
