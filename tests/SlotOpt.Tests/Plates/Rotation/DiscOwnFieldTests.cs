@@ -87,6 +87,30 @@ public class DiscOwnFieldTests(Xunit.Abstractions.ITestOutputHelper output)
         Assert.True(own.MeanLossW < own.ResistanceLimitedLossW.Average());   // the own field lowers the loss at omega m = w (Lenz)
     }
 
+    // The source keeps the summed edge moments of each lattice and angle and shares them with its copies at other speeds: the rate a copy
+    // integrates from them must be the one a fresh source at that speed integrates, bit for bit (omega times the same sums), on two lattices
+    // and at more angles than the source keeps (the rest integrated each time). Exact.
+    [Fact]
+    public void Kept_source_rates_equal_a_fresh_integration_at_any_speed()
+    {
+        double a = 0.04, m = 0.024, omega = 50, faster = 3.7 * omega;
+        var source = Magnet(a, m, 0.01, 0.002, omega);
+        foreach (var cell in new[] { 0.002, 0.004 })
+        {
+            var lattice = Disc(a, cell).Lattice;
+            for (int k = 0; k < RotatingSource.KeptRates + 4; k++)
+            {
+                double angle = 0.01 * k;
+                var kept = new double[lattice.NodeCount];
+                var fresh = new double[lattice.NodeCount];
+                source.IntegrateRate(lattice, angle, kept);                     // fills the kept sums (while there is room)
+                source.AtSpeed(faster).IntegrateRate(lattice, angle, kept);
+                Magnet(a, m, 0.01, 0.002, faster).IntegrateRate(lattice, angle, fresh);
+                Assert.Equal(fresh, kept);
+            }
+        }
+    }
+
     // --threads: the own-field disc and its torque-speed curve give the same numbers bit for bit with 1 and 2 FFT workers (PaddedConvolution
     // splits rows and column strips, each transformed whole by one worker; common practice, no source). Exact.
     [Fact]
