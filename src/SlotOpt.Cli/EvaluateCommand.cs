@@ -8,7 +8,7 @@ using SlotOpt.Runs;
 
 namespace SlotOpt.Cli;
 
-/// <summary>`slotopt evaluate FILE`: loss, drag and cost of the design the file fixes (or the baseline).</summary>
+/// <summary>`slotopt evaluate FILE`: loss, drag (and a turning disc's torque) and cost of the design the file fixes (or the baseline).</summary>
 public static class EvaluateCommand
 {
     public static Command Build()
@@ -52,7 +52,10 @@ public static class EvaluateCommand
             foreach (var r in rows)
             {
                 output.WriteLine(string.Create(ci, $"  {r.Part.Name} ({(r.IsCurrent ? "current design" : "baseline")}): {r.Option.Description}"));
-                output.WriteLine($"      loss {Numbers.Watts(r.Option.Loss.TotalW),12}{(r.Option.DragN is { } d ? $"   drag {Numbers.Newtons(d)}" : "")}   build cost {Numbers.Money(r.Option.BuildCost, cur),12}");
+                // a turning disc: its braking torque, and its drag is the tangential force at the magnets' radius
+                var torque = r.Option.TorqueNm is { } t ? $"   torque {Numbers.Of(t, "N m")}" : "";
+                var drag = r.Option.DragN is { } d ? $"   drag {Numbers.Newtons(d)}{(r.Option.TorqueNm is null ? "" : " at the magnets' radius")}" : "";
+                output.WriteLine($"      loss {Numbers.Watts(r.Option.Loss.TotalW),12}{torque}{drag}   build cost {Numbers.Money(r.Option.BuildCost, cur),12}");
                 if (r.Option.Rejection is { } broken) output.WriteLine($"      breaks a rule: {broken.Message}");
                 foreach (var flag in r.Option.Flags) output.WriteLine($"      warning: {flag}");
             }

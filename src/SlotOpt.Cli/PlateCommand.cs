@@ -6,6 +6,7 @@ using SlotOpt.Input;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Reports;
 using SlotOpt.Reports.Json;
 using SlotOpt.Runs;
@@ -81,7 +82,7 @@ public static class PlateCommand
         {
             if (!double.TryParse(word, NumberStyles.Float, CultureInfo.InvariantCulture, out var rpm) || !(rpm > 0) || !double.IsFinite(rpm))
                 throw new InputException($"--speeds: '{word}' is not a positive speed in rpm (give RPM,RPM,... or auto)");
-            speeds.Add(rpm * 2 * Math.PI / 60);
+            speeds.Add(RotationalSpeed.RadPerSFromRpm(rpm));
         }
         return new DiscSweep(speeds);
     }
@@ -105,7 +106,7 @@ public static class PlateCommand
         s.AppendLine(c, $"  model                {ReactionModelChoice.Name(e.Choice.Kind)}: {e.Choice.Reason}");
         s.AppendLine(c, $"  loss                 {Numbers.Watts(e.LossW)}{(e.Case.MovingSource is null && e.Case.Rotation is null ? (e.Case.Approach is null ? " (time average)" : "") : $" (mean over {e.Case.AveragedOver})")}");
         if (e.TorqueNm is { } torque && e.Case.Rotation is { } rotation)
-            s.AppendLine(c, $"  torque               {Numbers.Of(torque, "N m")} at {Numbers.Of(rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI), "rpm")} ({rotation.Source.Words})");
+            s.AppendLine(c, $"  torque               {Numbers.Of(torque, "N m")} at {Numbers.Of(RotationalSpeed.RpmFromRadPerS(rotation.Source.AngularSpeedRadPerS), "rpm")} ({rotation.Source.Words})");
         if (e.SpeedCurve is { } speedCurve)
         {
             s.AppendLine(c, $"  torque against speed ({e.Case.Rotation!.Source.Words}):");

@@ -92,15 +92,14 @@ public static class MagnetSourceReader
         var count = (int)(s.OptionalInteger("count", 1, 1000) ?? 1);
         var pitch = s.PositiveQuantity("pitch", QuantityKind.Length, required: false);
         var polarity = Polarity(s);
-        var positions = (int)(s.OptionalInteger("positions", 1, 10_000) ?? (anglePeriodRad is null ? 1 : 8));
+        var positions = (int)(s.OptionalInteger("positions", 1, 10_000) ?? DiscAngles.DefaultPositions(anglePeriodRad));
         if (radius is { } r && discRadiusM is { } a && r >= a) s.Error("radius", string.Create(CultureInfo.InvariantCulture, $"puts the magnets' centres ({r * 1e3:0.###} mm) beyond the disc's rim ({a * 1e3:0.###} mm)"));
         if (magnet is null || gap is null || radius is null || rpm is not (> 0 and <= 1e6) || axis is null || discRadiusM is null || radius >= discRadiusM) return null;
         double pitchRad = pitch is { } p ? p / radius.Value : 2 * Math.PI / count;
-        double omega = rpm.Value * 2 * Math.PI / 60;                                           // rad/s from revolutions per minute
+        double omega = RotationalSpeed.RadPerSFromRpm(rpm.Value);
         var ring = s.Guard<RotatingSource>(pitch is null ? "count" : "pitch", () => new RotatingMagnets(magnet, radius.Value, count, pitchRad, polarity, gap.Value, axis.Value, omega));
         if (ring is null) return null;
-        var period = anglePeriodRad ?? 2 * Math.PI;
-        var angles = Enumerable.Range(0, positions).Select(k => k * period / positions).ToArray();
+        var angles = DiscAngles.Spread(anglePeriodRad, positions);
         var over = anglePeriodRad is null ? (positions == 1 ? "one angle" : $"{positions} angles round the disc")
             : string.Create(CultureInfo.InvariantCulture, $"one slot pitch ({anglePeriodRad.Value * 180 / Math.PI:0.##} deg, {positions} angles)");
         return new DiscRotation(ring, angles, over);

@@ -9,7 +9,7 @@ namespace SlotOpt.Plates;
 /// <summary>Torque and loss of a turning disc at one speed, with the model that made them (`resistance-limited` or `own-field`).</summary>
 public sealed record DiscSpeedPoint(double AngularSpeedRadPerS, double TorqueNm, double LossW, string Model, int Iterations)
 {
-    public double Rpm => AngularSpeedRadPerS * 60 / (2 * Math.PI);
+    public double Rpm => RotationalSpeed.RpmFromRadPerS(AngularSpeedRadPerS);
 }
 
 /// <summary>
@@ -25,16 +25,17 @@ public sealed record DiscSpeedCurve(IReadOnlyList<DiscSpeedPoint> Points, DiscSp
 {
     public const double PeakSpeedTolerance = 0.01;
 
-    /// <summary>The default sweep: path speeds omega R = w x 2^k for k = -4..2 (w = 2 / (mu0 sigma t), the receding-image speed; the thin-sheet peak lies near 1.27 w).</summary>
+    /// <summary>The default sweep: path speeds omega R = w x 2^k for k = -4..2 (w the receding-image speed <see cref="ConductingSheet.RecedingImageSpeedMPerS"/>; the thin-sheet peak lies near 1.27 w).</summary>
     public static double[] DefaultSpeedsRadPerS(RotatingSource source, ConductingSheet conductor)
     {
         if (!(source.SourceRadiusM > 0)) throw new InputException("a torque-speed sweep needs the source off the axis (its radius on the disc is zero)");
-        double w = 2 / (Validity.Mu0 * conductor.RelativePermeability * conductor.SheetConductanceS);
+        double w = conductor.RecedingImageSpeedMPerS;
         return Enumerable.Range(-4, 7).Select(k => w * Math.Pow(2, k) / source.SourceRadiusM).ToArray();
     }
 
+    /// <param name="fftThreads">FFT workers of the one reaction operator the own-field speeds share (the run's --threads; answers are the same for any count)</param>
     public static DiscSpeedCurve Solve(SheetModel model, RotatingSource source, ConductingSheet conductor, IReadOnlyList<double> anglesRad, IReadOnlyList<double> speedsRadPerS,
-        double accuracy = ReactionModelChoice.DefaultAccuracy, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null)
+        double accuracy = ReactionModelChoice.DefaultAccuracy, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null, int fftThreads = 1)
     {
         if (speedsRadPerS.Count == 0) throw new InputException("a torque-speed sweep needs at least one speed");
         var speeds = speedsRadPerS.OrderBy(s => s).ToArray();
@@ -44,7 +45,7 @@ public sealed record DiscSpeedCurve(IReadOnlyList<DiscSpeedPoint> Points, DiscSp
         {
             var s = source.AtSpeed(omega);
             var choice = ReactionModelChoice.Forced(ReactionModelChoice.ForMoving(conductor, omega * s.SourceRadiusM, s.LoopLengthM, accuracy), forcedKind);
-            if (choice.Kind != SheetModelKind.ResistanceLimited) reaction ??= ReactionOperator.Build(model);
+            if (choice.Kind != SheetModelKind.ResistanceLimited) reaction ??= ReactionOperator.Build(model, fftThreads);
             var d = PlateModels.SolveDisc(model, s, conductor, anglesRad, accuracy, reaction, criterion, forcedKind, guess);
             guess = d.OwnFieldU ?? guess;
             return new DiscSpeedPoint(omega, d.MeanTorqueNm, d.MeanLossW, d.ModelName, d.Iterations);

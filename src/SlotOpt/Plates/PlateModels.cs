@@ -70,7 +70,7 @@ public static class PlateModels
         {
             var sweep = ResistanceLimitedSolver.SolveMoving(model, source, offsetsXM, criterion);
             notes.AddRange(sweep.Notes);
-            double w = 2 / (Validity.Mu0 * g);                                    // receding-image speed
+            double w = conductor.RecedingImageSpeedMPerS;
             var loss = sweep.LossPerSiemensW.Select(p => g * p).ToArray();         // P = G P_unit (resistance-limited scaling)
             var drag = loss.Select(p => p / v).ToArray();                          // F = P / v
             return new PlateSolution(choice, offsetsXM.ToArray(), loss, drag, drag.Select(d => d * v / w).ToArray(), loss, notes, sweep.IterationsPerOffset.Sum(), sweep.Peak.RelativeResidual, sweep.Peak);
@@ -88,9 +88,10 @@ public static class PlateModels
     /// Beyond the thin sheet the own-field answer comes with a warning (no layered rotating solver).
     /// </summary>
     /// <param name="initialGuess">u = psi / G at the first angle for the own-field solve (<see cref="DiscSolution.OwnFieldU"/> of a nearby speed); ignored resistance-limited</param>
+    /// <param name="fftThreads">FFT workers of the reaction operator built here when none is given (the run's --threads; answers are the same for any count)</param>
     public static DiscSolution SolveDisc(SheetModel model, RotatingSource source, ConductingSheet conductor, IReadOnlyList<double> anglesRad,
         double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null,
-        double[]? initialGuess = null)
+        double[]? initialGuess = null, int fftThreads = 1)
     {
         CheckOperator(model, reaction);
         if (forcedKind == SheetModelKind.BeyondThinSheet) throw new InputException("the layered thick-plate model is for AC fields only: there is no layered rotating solver (use auto, resistance-limited or own-field)");
@@ -103,9 +104,9 @@ public static class PlateModels
             var loss = low.LossPerSiemensW.Select(p => g * p).ToArray();       // P = G P_unit (resistance-limited scaling)
             return new DiscSolution(choice, omega, anglesRad.ToArray(), loss, loss, notes, low.Iterations, low.MaxRelativeResidual, low, null);
         }
-        var s = DiscReaction.Solve(reaction ?? ReactionOperator.Build(model), source, conductor, anglesRad, criterion, initialGuess);
+        var s = DiscReaction.Solve(reaction ?? ReactionOperator.Build(model, fftThreads), source, conductor, anglesRad, criterion, initialGuess);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered rotating solver)");
-        return new DiscSolution(choice, omega, s.AnglesRad, s.LossW, s.ResistanceLimitedLossW, notes, s.Iterations, s.MaxRelativeResidual, null, s.FirstU);
+        return new DiscSolution(choice, omega, s.AnglesRad, s.LossW, s.ResistanceLimitedLossW, notes, s.Iterations, s.MaxRelativeResidual, s.ResistanceLimited, s.FirstU);
     }
 
     /// <summary>

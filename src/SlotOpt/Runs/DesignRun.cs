@@ -54,12 +54,13 @@ public static class DesignRun
                 parts[i] = parts[i] with { Options = parts[i].Options.Select(o => o.Id == option.Id ? o with { Rejection = new RuleBreak(RuleKind.HotterThanLimit, $"{reason} (coupled solve of a plate the screen passed)") } : o).ToList() };
         }
         var confirmations = new List<PlateConfirmation>();
+        var geometries = new SolvedGeometries(limits);      // the chosen, solid and reference plates' geometries, solved once for the confirmation and the figures
         if (chosen is not null)
             // the chosen plates with the model their validity calls for (the ranking's number), their lift, grid error and speed sweep
             foreach (var option in chosen)
-                if (problem.Parts.First(p => p.Name == option.PartName) is PlatePart plate && option.Choice is PlateChoice choice)
-                    confirmations.Add(deadline.Run($"the confirmation of part {plate.Name}", () => PlateConfirmation.Confirm(plate, choice, problem.Library, limits)));
-        var figures = deadline.Run("the report's figures", () => RunFigures.Compute(problem, parts, chosen, heat, limits));
+                if (problem.Parts.First(p => p.Name == option.PartName) is PlatePart plate && option.Choice is PlateChoice)
+                    confirmations.Add(deadline.Run($"the confirmation of part {plate.Name}", () => PlateConfirmation.Confirm(plate, option, problem.Library, geometries)));
+        var figures = deadline.Run("the report's figures", () => RunFigures.Compute(problem, parts, chosen, heat, geometries));
         var baselines = deadline.Run("the baselines", () => Baselines(problem, parts, limits));
         return new RunResult(problem, parts, outcome, chosen, baselines, evaluated.SheetSolves, evaluated.Seconds, confirmations, figures, heat);
     }

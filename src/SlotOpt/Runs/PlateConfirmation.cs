@@ -37,14 +37,20 @@ public sealed record PlateConfirmation(
 
     /// <summary>Travel positions each sweep speed averages (a window of the run's offsets; the sweep shows the trend, the run's offsets give the figures).</summary>
     public const int SweepPositions = 2;
-    /// <summary>Solves the choice with the model its validity figures call for (accuracy 1 %, ReactionModelChoice), on the part's grid and on cells twice as large.</summary>
-    public static PlateConfirmation Confirm(PlatePart part, PlateChoice choice, MaterialLibrary library, EvaluationLimits? limits = null)
+    /// <summary>
+    /// Solves the chosen option with the model its validity figures call for (accuracy 1 %, ReactionModelChoice), on the part's grid and on cells
+    /// twice as large. A turning disc's geometry comes from (and stays in) geometries, and its number at the run's speed is the ranking's, not solved again.
+    /// </summary>
+    public static PlateConfirmation Confirm(PlatePart part, EvaluatedOption chosen, MaterialLibrary library, SolvedGeometries geometries)
     {
-        limits ??= EvaluationLimits.Default;
-        var (geometry, _) = PlateGeometryFactory.Build(part, choice.Slots);
-        var model = PlateOptions.BuildModel(part, geometry, limits);
+        var limits = geometries.Limits;
+        var choice = (PlateChoice)chosen.Choice;
         var material = library.GetConductor(choice.Material, part.Name);
         var conductor = new ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
+        if (part.Excitation is PlateExcitation.Turning turning)
+            return ConfirmDisc(part, chosen, choice, turning, conductor, geometries);
+        var (geometry, _) = PlateGeometryFactory.Build(part, choice.Slots);
+        var model = PlateOptions.BuildModel(part, geometry, limits);
         PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
         MinimumDragCheck? minimumDrag = null;
@@ -58,8 +64,6 @@ public sealed record PlateConfirmation(
             sweep = Sweep(reaction, source, conductor, offsets);
             if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
-        else if (part.Excitation is PlateExcitation.Turning turning)
-            return ConfirmDisc(part, choice, turning, conductor, model, limits);
         else if (part.Excitation is PlateExcitation.AcField field)
         {
             solution = PlateModels.WithGridError(PlateModels.SolveAc(model, field.Source, conductor, fftThreads: limits.Threads), model,
@@ -74,28 +78,33 @@ public sealed record PlateConfirmation(
     }
 
     /// <summary>
-    /// A turning disc: its number through the one seam (<see cref="TurningDiscModel"/>, the ranking's number), the tangential force at the
-    /// magnets' radius as its drag, and the grid error from the same disc solved on cells twice as large; with min_torque, the torque at its speed.
+    /// A turning disc: its number through the one seam (<see cref="TurningDiscModel"/>: the ranking's number, which the chosen option carries),
+    /// the tangential force at the magnets' radius as its drag, and the grid error from the same disc solved on cells twice as large; with
+    /// min_torque, the torque at its speed.
     /// </summary>
-    private static PlateConfirmation ConfirmDisc(PlatePart part, PlateChoice choice, PlateExcitation.Turning turning, ConductingSheet conductor, SheetModel model, EvaluationLimits limits)
+    private static PlateConfirmation ConfirmDisc(PlatePart part, EvaluatedOption chosen, PlateChoice choice, PlateExcitation.Turning turning, ConductingSheet conductor,
+        SolvedGeometries geometries)
     {
-        var solved = PlateOptions.Solve(part, choice.Slots, limits);
+        var solved = geometries.Of(part, choice.Slots);
         if (solved.Failure is { } failure) throw new InvalidOperationException($"{part.Name}: the chosen disc no longer solves: {failure.Message}");
-        var number = TurningDiscModel.Evaluate(part, solved, conductor);
+        var model = solved.Peak!.Model;
+        var threads = geometries.Limits.Threads;
+        var number = new DiscNumber(chosen.Model ?? throw new InvalidOperationException($"{part.Name}: the chosen disc carries no model"), chosen.Loss.TotalW,
+            chosen.TorqueNm ?? throw new InvalidOperationException($"{part.Name}: the chosen disc carries no torque"));
         var notes = new List<string>();
         DiscretisationError? gridError = null;
         double h = Math.Max(model.Lattice.Hx, model.Lattice.Hy);
         try
         {
             var coarse = SheetModel.Build(model.Grid.Geometry, new GridOptions { CellSizeM = 2 * h });
-            var onCoarse = TurningDiscModel.Evaluate(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, coarse), conductor);
+            var onCoarse = new TurningDiscModel(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, coarse), threads).Evaluate(conductor);
             gridError = DiscretisationError.FromTwoGrids(number.LossW, onCoarse.LossW, h, Math.Max(coarse.Lattice.Hx, coarse.Lattice.Hy));
             if (gridError.IsLarge) notes.Add(gridError.Warning);
         }
         catch (InputException) { notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell"); }
         // min_torque: the disc solved at the minimum's own speed by the model its validity calls for there (the screen scaled linearly,
         // which the own field does not: as MinimumDrag is confirmed at its speed)
-        MinimumTorqueCheck? minimum = part.MinTorque is { } wanted && TurningDiscModel.Evaluate(part, solved, conductor, wanted.Rpm) is var atWanted
+        MinimumTorqueCheck? minimum = part.MinTorque is { } wanted && new TurningDiscModel(part, solved, threads).Evaluate(conductor, wanted.Rpm) is var atWanted
             ? new MinimumTorqueCheck(wanted.Rpm, wanted.TorqueNm, atWanted.TorqueNm, atWanted.Model.Kind)
             : null;
         return new PlateConfirmation(part.Name, number.Model.Kind, number.Model.Reason, number.LossW, number.TorqueNm / turning.Source.SourceRadiusM, null, solved.LossPerSiemensW * conductor.SheetConductanceS,
@@ -126,7 +135,7 @@ public sealed record PlateConfirmation(
     /// </summary>
     private static IReadOnlyList<SpeedPoint> Sweep(ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor, IReadOnlyList<double> offsets)
     {
-        var w = 2 / (Validity.Mu0 * conductor.SheetConductanceS);   // receding-image speed (Saslow, "Maxwell's theory of eddy currents in thin conducting sheets...", Am. J. Phys. 60(8):693-711, 1992)
+        var w = conductor.RecedingImageSpeedMPerS;
         var basis = MovingReducedBasis.Start(reaction, source, offsets.Take(SweepPositions).ToList());
         var points = new List<SpeedPoint>();
         foreach (var m in SweepOverW)

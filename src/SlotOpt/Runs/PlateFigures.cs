@@ -1,5 +1,6 @@
 using SlotOpt.Plates;
 using SlotOpt.Plates.ResistanceLimited;
+using SlotOpt.Plates.Sources.Rotation;
 
 namespace SlotOpt.Runs;
 
@@ -37,7 +38,7 @@ public sealed record PlateFigures(
             // the evaluation gives the force along the magnets' path, F = T / R; the torque is that force times R
             var radiusM = rotation.Source.SourceRadiusM;
             disc = new DiscAngleCurve(rotation.AnglesRad, e.DragPerOffsetN.Select(f => f * radiusM).ToList(), e.TorqueNm!.Value,
-                rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI), e.Case.AveragedOver);
+                RotationalSpeed.RpmFromRadPerS(rotation.Source.AngularSpeedRadPerS), e.Case.AveragedOver);
         }
         else if (e.Case.MovingSource is not null && e.MeanDragN is { } meanDrag)
             travel = new TravelCurve(e.OffsetsXM, e.DragPerOffsetN, e.LossPerOffsetW, meanDrag, e.Case.MovingSource.SpeedMPerS, e.Case.AveragedOver);

@@ -7,7 +7,6 @@ using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Plates.Sources;
 using SlotOpt.Plates.Sources.Magnets;
-using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Plates.Thermal;
 using SlotOpt.Plates.Thick;
 
@@ -63,7 +62,7 @@ public sealed record PlateFileEvaluation(
         if (forcedKind == SheetModelKind.ThickSlab && plate.MovingSource is null)
             throw new InputException($"{plate.Path}: --model thick-slab is for magnets sliding over a block; this plate's source is not a sliding one");
         if (discSweep is not null && plate.Rotation is null) throw new InputException($"{plate.Path}: a torque-speed sweep (--speeds) is for a turning disc (motion = \"rotation\")");
-        if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind, discSweep);
+        if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind, discSweep, limits.Threads);
         if (plate.Approach is { } approach) return EvaluateApproach(plate, approach, criterion, forcedKind);
         if (plate.Thermal is not null)
         {
@@ -95,10 +94,11 @@ public sealed record PlateFileEvaluation(
     /// <summary>
     /// A disc turning under fixed magnets (<see cref="PlateModels.SolveDisc"/>: resistance-limited or own-field, as the validity figures of a slide at the
     /// magnets' path speed omega R call for, or as asked): torque, the force along the magnets' path (torque over their radius), loss, and the map at the
-    /// angle with the most loss (resistance-limited; a note says so when the own-field model ran). With a sweep, torque against speed and its peak
-    /// (<see cref="DiscSpeedCurve"/>).
+    /// angle with the most loss (resistance-limited: the own-field solve's starts when that model ran, and a note says so). With a sweep, torque against
+    /// speed and its peak (<see cref="DiscSpeedCurve"/>). fftThreads: the reaction operators' FFT workers (--threads; answers are the same for any count).
     /// </summary>
-    private static PlateFileEvaluation EvaluateRotation(PlateCase plate, DiscRotation rotation, ConvergenceCriterion? criterion, SheetModelKind? forcedKind, DiscSweep? sweep)
+    private static PlateFileEvaluation EvaluateRotation(PlateCase plate, DiscRotation rotation, ConvergenceCriterion? criterion, SheetModelKind? forcedKind, DiscSweep? sweep,
+        int fftThreads)
     {
         if (plate.Thermal is not null) throw new InputException($"{plate.Path}: [thermal] is for plates under sliding sources and AC fields; a turning disc has no temperature coupling");
         if (forcedKind == SheetModelKind.BeyondThinSheet) throw new InputException($"{plate.Path}: --model thick is for AC fields only: there is no layered rotating solver (use auto, resistance-limited or own-field)");
@@ -106,16 +106,18 @@ public sealed record PlateFileEvaluation(
         var model = SheetModel.Build(plate.Geometry, plate.Grid with { SourceFeatures = source.GridFeatures });
         var clock = Stopwatch.StartNew();
         double g = plate.Sheet.SheetConductanceS, pathSpeed = source.AngularSpeedRadPerS * source.SourceRadiusM;
-        var disc = PlateModels.SolveDisc(model, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: forcedKind);
-        GridErrorOf(model, m => PlateModels.SolveDisc(m, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: disc.Choice.Kind).MeanLossW, disc.MeanLossW, out var gridError);
-        var low = disc.ResistanceLimited ?? DiscTorque.Solve(model, source, rotation.AnglesRad, criterion);
+        var disc = PlateModels.SolveDisc(model, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: forcedKind, fftThreads: fftThreads);
+        GridErrorOf(model, m => PlateModels.SolveDisc(m, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: disc.Choice.Kind, fftThreads: fftThreads).MeanLossW,
+            disc.MeanLossW, out var gridError);
+        var low = disc.ResistanceLimited;
         var notes = disc.Notes.Skip(1).ToList();
-        if (disc.ResistanceLimited is null) notes.Add("the current-density map and its peak and RMS are from the resistance-limited model, which overstates them here; torque and loss are from the model that ran");
+        if (disc.Choice.Kind != SheetModelKind.ResistanceLimited) notes.Add("the current-density map and its peak and RMS are from the resistance-limited model, which overstates them here; torque and loss are from the model that ran");
         var peak = new UnitConductanceSolution(model, SourceKind.Moving, low.PeakPsiPerSiemens, null, low.LossPerSiemensW[low.PeakIndex], 0, pathSpeed,
             rotation.AnglesRad[low.PeakIndex] * source.SourceRadiusM, low.Iterations, low.MaxRelativeResidual, notes).ScaleTo(plate.Sheet);
         var torque = disc.TorqueNm;
         var curve = sweep is null ? null
-            : DiscSpeedCurve.Solve(model, source, plate.Sheet, rotation.AnglesRad, sweep.SpeedsRadPerS ?? DiscSpeedCurve.DefaultSpeedsRadPerS(source, plate.Sheet), criterion: criterion, forcedKind: forcedKind);
+            : DiscSpeedCurve.Solve(model, source, plate.Sheet, rotation.AnglesRad, sweep.SpeedsRadPerS ?? DiscSpeedCurve.DefaultSpeedsRadPerS(source, plate.Sheet), criterion: criterion,
+                forcedKind: forcedKind, fftThreads: fftThreads);
         return new PlateFileEvaluation(plate, disc.Choice, WithGridNote(peak, gridError), disc.MeanLossW, disc.MeanTorqueNm / source.SourceRadiusM,
             rotation.AnglesRad.Select(a => a * source.SourceRadiusM).ToArray(), torque.Select(t => t / source.SourceRadiusM).ToArray(),
             disc.LossW, disc.Iterations, disc.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)

@@ -22,7 +22,8 @@ public sealed record RunFigures(
     public IReadOnlyList<TorqueSpeedLines> TorqueSpeed { get; init; } = [];
 
     /// <param name="chosen">The chosen option of each part, in part order; null when the run found no design.</param>
-    public static RunFigures Compute(Problem problem, IReadOnlyList<PartEvaluation> parts, IReadOnlyList<EvaluatedOption>? chosen, IReadOnlyList<PlateHeat> heat, EvaluationLimits? limits = null)
+    /// <param name="geometries">the plate geometries solved after the selection, shared with the confirmation</param>
+    public static RunFigures Compute(Problem problem, IReadOnlyList<PartEvaluation> parts, IReadOnlyList<EvaluatedOption>? chosen, IReadOnlyList<PlateHeat> heat, SolvedGeometries geometries)
     {
         var lossFrequency = new List<LossFrequencyCurves>();
         var currentDensity = new List<CurrentDensityMaps>();
@@ -37,9 +38,9 @@ public sealed record RunFigures(
                     lossFrequency.Add(LossFrequencyCurves.Of(core, problem));
                     break;
                 case PlatePart plate when chosen is not null:
-                    currentDensity.Add(CurrentDensityMaps.Of(parts[i], chosen[i], problem, limits));
+                    currentDensity.Add(CurrentDensityMaps.Of(parts[i], chosen[i], problem, geometries));
                     if (plate.Excitation.IsMoving) dragSpeed.Add(DragSpeedLines.Of(parts[i], chosen[i], problem));
-                    if (plate.Excitation is PlateExcitation.Turning) torqueSpeed.Add(TorqueSpeedLines.Of(parts[i], chosen[i], problem, limits));
+                    if (plate.Excitation is PlateExcitation.Turning) torqueSpeed.Add(TorqueSpeedLines.Of(parts[i], chosen[i], problem, geometries));
                     if (TemperatureMaps.Of(plate.Name, heat) is { } maps) temperature.Add(maps);
                     break;
             }

@@ -2,13 +2,15 @@ using SlotOpt.Design.SolidParts;
 using SlotOpt.Design;
 using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
+using SlotOpt.Plates.Sources.Rotation;
 
 namespace SlotOpt.Runs;
 
 /// <summary>
 /// Braking torque against disc speed for a turning disc part: the chosen option, the solid disc of the same sheet (when the chosen one is
-/// slotted) and the reference (when it is neither), each disc solved again (<see cref="PlateOptions.Solve"/>) and its number at every speed taken
-/// from the one seam of turning-disc numbers (<see cref="TurningDiscModel"/>), with the model that gave it.
+/// slotted) and the reference (when it is neither), each disc geometry solved again once a run (<see cref="SolvedGeometries"/>) and its number
+/// at every speed taken from the one seam of turning-disc numbers (<see cref="TurningDiscModel"/>, one per line: its reaction operator serves
+/// every own-field speed), with the model that gave it.
 /// Resistance-limited the torque is proportional to speed, T(n) = T(n0) n / n0, and has no peak; the model holds while the magnetic Reynolds
 /// number at the magnets' radius, mu0 sigma t (omega r) / 2, stays below <see cref="Validity.ReynoldsLimit"/>: each line carries the speed
 /// where its sheet reaches it. Points are the torque at <see cref="Samples"/> speeds from 0 to <see cref="MaxRpm"/>, each with its model.
@@ -23,7 +25,7 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
     /// <summary>One design's torque against speed; PeakRpm where its model shows a peak (the resistance-limited line has none), ValidityEndRpm where Rm reaches the limit.</summary>
     public sealed record Line(EvaluatedOption Option, DesignRole Role, IReadOnlyList<Point> Points, double ValidityEndRpm, double? PeakRpm);
 
-    public static TorqueSpeedLines Of(PartEvaluation plate, EvaluatedOption chosen, Problem problem, EvaluationLimits? limits = null)
+    public static TorqueSpeedLines Of(PartEvaluation plate, EvaluatedOption chosen, Problem problem, SolvedGeometries geometries)
     {
         var part = (PlatePart)plate.Part;
         var turning = (PlateExcitation.Turning)part.Excitation;
@@ -35,25 +37,26 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
         var ends = designs.Select(d => ReynoldsLimitRpm(part, turning, d.Option, problem)).ToList();
         var maxRpm = Math.Max(Math.Max(2 * n0, part.MinTorque?.Rpm * 1.25 ?? 0), Math.Min(1.25 * ends.Max(), 4 * n0));
         // a brake (min_torque): on to past the chosen disc's torque peak, which a thin sheet under a compact source shows near the path speed
-        // 1.272 w, w = 2 / (mu0 sigma t) (Reitz, J. Appl. Phys. 41 (1970) 2067, thin-sheet drag), capped at ten times the source's speed
+        // 1.272 w, w the receding-image speed (Reitz, J. Appl. Phys. 41 (1970) 2067, thin-sheet drag), capped at ten times the source's speed
         if (part.MinTorque is not null)
         {
             var chosenSheet = SheetOf(part, (PlateChoice)chosen.Choice, problem);
-            var peakRpm = 1.272 * 2 / (Validity.Mu0 * chosenSheet.SheetConductanceS) / turning.Source.SourceRadiusM * 60 / (2 * Math.PI);
+            var peakRpm = RotationalSpeed.RpmFromRadPerS(1.272 * chosenSheet.RecedingImageSpeedMPerS / turning.Source.SourceRadiusM);
             maxRpm = Math.Max(maxRpm, Math.Min(2 * peakRpm, 10 * n0));
         }
         var lines = designs.Select((d, k) =>
         {
             var choice = (PlateChoice)d.Option.Choice;
-            var solved = PlateOptions.Solve(part, choice.Slots, limits);
+            var solved = geometries.Of(part, choice.Slots);
             if (solved.Failure is { } failure) throw new InvalidOperationException($"{part.Name}: the disc solved during the run no longer solves: {failure.Message}");
+            var disc = new TurningDiscModel(part, solved, geometries.Limits.Threads);
             var sheet = SheetOf(part, choice, problem);
             var points = new List<Point>();
             for (var i = 0; i < Samples; i++)
             {
                 var n = maxRpm * i / (Samples - 1);
                 if (n == 0) { points.Add(new Point(0, 0, ReactionModelChoice.Name(TurningDiscModel.ValidityOf(turning, sheet).Kind))); continue; }   // no motion, no torque: the run speed's model names the point
-                var number = TurningDiscModel.Evaluate(part, solved, sheet, n);
+                var number = disc.Evaluate(sheet, n);
                 points.Add(new Point(n, number.TorqueNm, number.Model.Name));
             }
             var top = points.IndexOf(points.MaxBy(p => p.TorqueNm)!);

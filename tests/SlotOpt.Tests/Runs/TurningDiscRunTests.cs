@@ -96,6 +96,28 @@ public class TurningDiscRunTests(Xunit.Abstractions.ITestOutputHelper output)
 
     // The report names a radially slotted disc as a workshop orders it: a disc, its sheet, and the slot words once, with their count
     // (wording of our own; common practice, no source).
+    // `slotopt evaluate` prints a disc part's braking torque beside its loss, as it prints drag: the baseline disc's T = P / omega of the printed
+    // loss at 1000 rpm (power balance of a steady rotation, common practice, no source), and its drag as the force at the magnets' 25 mm radius,
+    // F = T / r. Tolerance 1e-3: the printed numbers carry four significant figures.
+    [Fact]
+    public void Evaluate_prints_the_disc_torque_beside_the_loss()
+    {
+        var path = Path.Combine(Path.GetTempPath(), "slotopt-evaluate-disc-" + Guid.NewGuid().ToString("N") + ".toml");
+        File.WriteAllText(path, Brake);
+        try
+        {
+            var run = SlotOpt.Tests.Cli.SlotOptInProcess.Run("evaluate", path);
+            Assert.Equal(0, run.ExitCode);
+            var line = System.Text.RegularExpressions.Regex.Match(run.Stdout, @"loss\s+(\S+) W\s+torque (\S+) N m\s+drag (\S+) N at the magnets' radius");
+            Assert.True(line.Success, run.Stdout);
+            double Value(int group) => double.Parse(line.Groups[group].Value, CultureInfo.InvariantCulture);
+            double loss = Value(1), torque = Value(2), drag = Value(3), omega = RunRpm * 2 * Math.PI / 60;
+            Assert.Equal(1, torque / (loss / omega), 1e-3);
+            Assert.Equal(1, drag / (torque / 0.025), 1e-3);
+        }
+        finally { File.Delete(path); }
+    }
+
     [Fact]
     public void A_radially_slotted_option_is_named_as_a_disc_with_its_slots_once()
     {

@@ -59,16 +59,11 @@ public abstract record PlateExcitation
     {
         public double AngularSpeedRadPerS => Source.AngularSpeedRadPerS;
         /// <summary>The disc's speed in revolutions per minute.</summary>
-        public double Rpm => Source.AngularSpeedRadPerS * 60 / (2 * Math.PI);
+        public double Rpm => RotationalSpeed.RpmFromRadPerS(Source.AngularSpeedRadPerS);
         /// <summary>The speed of the disc under the magnets' centres, v = omega r (the speed of the magnetic Reynolds number).</summary>
         public double PathSpeedMPerS => Source.AngularSpeedRadPerS * Source.SourceRadiusM;
 
         /// <summary>The disc angles of one slot layout (null: the solid disc): positions spread evenly from 0 over one slot pitch, or round the turn.</summary>
-        public IReadOnlyList<double> Angles(RadialSlots? ring)
-        {
-            var positions = Positions ?? (ring is null ? 1 : 8);
-            var period = ring?.PitchRad ?? 2 * Math.PI;
-            return Enumerable.Range(0, positions).Select(k => k * period / positions).ToArray();
-        }
+        public IReadOnlyList<double> Angles(RadialSlots? ring) => DiscAngles.Spread(ring?.PitchRad, Positions);
     }
 }

@@ -31,7 +31,7 @@ namespace SlotOpt.Design.SolidParts;
 /// 1/(1 + j omega G k_i), so |u|_A &lt;= |u0|_A (the eddy currents' field opposes the applied field, Lenz). Moving: (A - v G Dx R) u = -s with
 /// Dx R skew-symmetric, so (I - c K) with K skew has singular values &gt;= 1 and again |u|_A &lt;= |u0|_A. Hence an option the screen passed
 /// within a loss or drag limit stays within it, and the screen's temperature (from its loss) is an upper bound.</para>
-/// Reuse: the screen's sheet model, one <see cref="ReactionOperator"/> per geometry, and one reduced basis per geometry serving every
+/// Reuse: the screen's sheet model, one <see cref="ReactionOperator"/> per geometry (turning discs: in their <see cref="TurningDiscModel"/>), and one reduced basis per geometry serving every
 /// thickness and material: <see cref="MovingReducedBasis"/> (bounds first, grown to the converged solve only for the options that need it)
 /// or <see cref="AcReducedBasis"/> (thin sheets with their own field in an AC field; thick plates go to the layered solver one by one).
 /// </summary>
@@ -204,6 +204,7 @@ public static class PlateModelRanking
         MovingReducedBasis? basis = kept.Basis;
         AcReducedBasis? acBasis = null;
         ReactionOperator? reaction = basis?.Reaction;
+        TurningDiscModel? disc = null;                  // one per geometry: its reaction operator serves every thickness and material
         foreach (var group in groups.Where(x => x.Needed))
         {
             PlateSolution solution;
@@ -218,8 +219,9 @@ public static class PlateModelRanking
                     group.Solved = (ModelOf(group.Choice, moving: true), coupled.MeanLossW);
                     continue;
                 case PlateExcitation.Turning:
-                    var disc = TurningDiscModel.Evaluate(part, solved, group.Sheet);
-                    group.Solved = (disc.Model, disc.LossW);
+                    disc ??= new TurningDiscModel(part, solved);
+                    var number = disc.Evaluate(group.Sheet);
+                    group.Solved = (number.Model, number.LossW);
                     continue;
                 case PlateExcitation.AcField field when group.Choice.Kind == SheetModelKind.ThinSheetReaction:
                     // one reduced basis of the geometry serves every thickness and material (the same equations as ReactionSolver.SolveAc, to the same criterion)

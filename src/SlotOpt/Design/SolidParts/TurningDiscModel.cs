@@ -1,5 +1,7 @@
 using SlotOpt.Plates;
 using SlotOpt.Plates.Conductors;
+using SlotOpt.Plates.OwnField;
+using SlotOpt.Plates.Sources.Rotation;
 
 namespace SlotOpt.Design.SolidParts;
 
@@ -12,25 +14,42 @@ public sealed record DiscNumber(OptionModel Model, double LossW, double TorqueNm
 /// (Rm = mu0 sigma t v / 2, <see cref="ReactionModelChoice.ForMoving"/>). Resistance-limited (<see cref="Plates.Sources.Rotation.DiscTorque"/>):
 /// the geometry's unit-conductance loss scaled by G = sigma t (one solve per geometry serves every thickness and material; at another speed n
 /// the loss scales as (n / n0)^2, Faraday's law being linear in omega). Where the validity calls for the disc's own field, the own-field
-/// turning-disc solve of that sheet (<see cref="PlateModels.SolveDisc"/>, the same call `slotopt plate` makes). Torque T = P / omega
-/// (power balance of a steady rotation).
+/// turning-disc solve of that sheet (<see cref="PlateModels.SolveDisc"/>, the same call `slotopt plate` makes) on one
+/// <see cref="ReactionOperator"/> of the geometry, built at the first such solve and kept for every sheet and speed after it.
+/// Torque T = P / omega (power balance of a steady rotation). Not thread-safe (the operator has one work buffer): one per geometry and thread.
 /// </summary>
-public static class TurningDiscModel
+public sealed class TurningDiscModel
 {
-    /// <param name="rpm">The disc's speed (null: the source's own); positive.</param>
-    public static DiscNumber Evaluate(PlatePart part, PlateOptions.SolvedGeometry solved, ConductingSheet sheet, double? rpm = null)
+    private readonly PlatePart _part;
+    private readonly PlateOptions.SolvedGeometry _solved;
+    private readonly PlateExcitation.Turning _atSource;
+    private readonly int _fftThreads;
+    private ReactionOperator? _reaction;
+
+    /// <param name="solved">the disc geometry solved at unit conductance (<see cref="PlateOptions.Solve"/>)</param>
+    /// <param name="fftThreads">FFT workers of the reaction operator (the run's --threads where one disc is solved at a time; answers are the same for any count)</param>
+    public TurningDiscModel(PlatePart part, PlateOptions.SolvedGeometry solved, int fftThreads = 1)
     {
-        var atSource = part.Excitation as PlateExcitation.Turning ?? throw new InvalidOperationException($"part {part.Name} is not a turning disc");
-        var turning = rpm is { } n && n != atSource.Rpm ? atSource with { Source = atSource.Source.AtSpeed(n * 2 * Math.PI / 60) } : atSource;
+        _atSource = part.Excitation as PlateExcitation.Turning ?? throw new InvalidOperationException($"part {part.Name} is not a turning disc");
+        _part = part;
+        _solved = solved;
+        _fftThreads = fftThreads;
+    }
+
+    /// <param name="rpm">The disc's speed (null: the source's own); positive.</param>
+    public DiscNumber Evaluate(ConductingSheet sheet, double? rpm = null)
+    {
+        var turning = rpm is { } n && n != _atSource.Rpm ? _atSource with { Source = _atSource.Source.AtSpeed(RotationalSpeed.RadPerSFromRpm(n)) } : _atSource;
         var wanted = ValidityOf(turning, sheet);
         if (wanted.Kind != SheetModelKind.ResistanceLimited)
         {
-            var model = solved.Peak?.Model ?? throw new InvalidOperationException($"part {part.Name}: no solved disc geometry");
-            var disc = PlateModels.SolveDisc(model, turning.Source, sheet, turning.Angles(solved.Slots?.Radial));
+            var model = _solved.Peak?.Model ?? throw new InvalidOperationException($"part {_part.Name}: no solved disc geometry");
+            _reaction ??= ReactionOperator.Build(model, _fftThreads);
+            var disc = PlateModels.SolveDisc(model, turning.Source, sheet, turning.Angles(_solved.Slots?.Radial), reaction: _reaction);
             return new DiscNumber(new OptionModel(disc.Choice.Kind, string.Join("; ", disc.Notes)), disc.MeanLossW, disc.MeanTorqueNm);
         }
-        var ratio = turning.AngularSpeedRadPerS / atSource.AngularSpeedRadPerS;
-        var lossW = solved.LossPerSiemensW * sheet.SheetConductanceS * (ratio == 1 ? 1 : ratio * ratio);          // P ~ omega^2
+        var ratio = turning.AngularSpeedRadPerS / _atSource.AngularSpeedRadPerS;
+        var lossW = _solved.LossPerSiemensW * sheet.SheetConductanceS * (ratio == 1 ? 1 : ratio * ratio);          // P ~ omega^2
         return new DiscNumber(new OptionModel(SheetModelKind.ResistanceLimited, "resistance-limited at the magnets' path speed: " + wanted.Reason),
             lossW, lossW / turning.AngularSpeedRadPerS);   // T = P / omega
     }

@@ -1,4 +1,5 @@
 using SlotOpt.Plates;
+using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Reports.Json;
@@ -105,7 +106,7 @@ public sealed record PlateJson(
             r.Notes)
         {
             TorqueNM = e.TorqueNm,
-            RotationSpeedRpm = e.Case.Rotation is { } rotation ? rotation.Source.AngularSpeedRadPerS * 60 / (2 * Math.PI) : null,
+            RotationSpeedRpm = e.Case.Rotation is { } rotation ? RotationalSpeed.RpmFromRadPerS(rotation.Source.AngularSpeedRadPerS) : null,
             ApproachSpeedMPerS = e.Case.Approach?.SpeedMPerS,
             ApproachGapsM = e.ApproachCurve?.Select(p => p.GapM).ToList(),
             ApproachForceN = e.ApproachCurve?.Select(p => p.ForceN).ToList(),

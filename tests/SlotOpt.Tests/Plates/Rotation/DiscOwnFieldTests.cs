@@ -66,6 +66,70 @@ public class DiscOwnFieldTests(Xunit.Abstractions.ITestOutputHelper output)
         Assert.InRange(own.MeanTorqueNm / low, 1 - 1.5e-4, 1);
     }
 
+    // The own-field solve starts every angle from its resistance-limited solution and keeps it for the current-density map: it must be the
+    // resistance-limited disc's own answer (DiscTorque: the same equations from the same starts), so the map of an own-field disc is the one
+    // a resistance-limited solve gives, without solving again. Exact (bit for bit): the same operations in the same order. A slotted disc at
+    // three angles, so the peak angle and the carried-over starts count.
+    [Fact]
+    public void Own_field_solve_keeps_the_resistance_limited_solution_of_every_angle()
+    {
+        var geometry = new PlateGeometry(Polygon.Circle(new Vec2(0.04, 0.04), 0.04));
+        geometry.AddCutout(Polygon.Rectangle(0.04 - 0.001, 0.055, 0.04 + 0.001, 0.08));
+        var model = SheetModel.Build(geometry, new GridOptions { CellSizeM = 0.002 });
+        var source = Magnet(0.04, 0.024, 0.01, 0.002, W / 0.024);
+        double[] angles = [0.0, 0.3, 0.6];
+        var own = DiscReaction.Solve(ReactionOperator.Build(model), source, Sheet, angles);
+        var low = DiscTorque.Solve(model, source, angles);
+        Assert.Equal(low.LossPerSiemensW, own.ResistanceLimited.LossPerSiemensW);
+        Assert.Equal(low.PeakIndex, own.ResistanceLimited.PeakIndex);
+        Assert.Equal(low.PeakPsiPerSiemens, own.ResistanceLimited.PeakPsiPerSiemens);
+        Assert.Equal(low.Iterations, own.ResistanceLimited.Iterations);
+        Assert.True(own.MeanLossW < own.ResistanceLimitedLossW.Average());   // the own field lowers the loss at omega m = w (Lenz)
+    }
+
+    // The source keeps the summed edge moments of each lattice and angle and shares them with its copies at other speeds: the rate a copy
+    // integrates from them must be the one a fresh source at that speed integrates, bit for bit (omega times the same sums), on two lattices
+    // and at more angles than the source keeps (the rest integrated each time). Exact.
+    [Fact]
+    public void Kept_source_rates_equal_a_fresh_integration_at_any_speed()
+    {
+        double a = 0.04, m = 0.024, omega = 50, faster = 3.7 * omega;
+        var source = Magnet(a, m, 0.01, 0.002, omega);
+        foreach (var cell in new[] { 0.002, 0.004 })
+        {
+            var lattice = Disc(a, cell).Lattice;
+            for (int k = 0; k < RotatingSource.KeptRates + 4; k++)
+            {
+                double angle = 0.01 * k;
+                var kept = new double[lattice.NodeCount];
+                var fresh = new double[lattice.NodeCount];
+                source.IntegrateRate(lattice, angle, kept);                     // fills the kept sums (while there is room)
+                source.AtSpeed(faster).IntegrateRate(lattice, angle, kept);
+                Magnet(a, m, 0.01, 0.002, faster).IntegrateRate(lattice, angle, fresh);
+                Assert.Equal(fresh, kept);
+            }
+        }
+    }
+
+    // --threads: the own-field disc and its torque-speed curve give the same numbers bit for bit with 1 and 2 FFT workers (PaddedConvolution
+    // splits rows and column strips, each transformed whole by one worker; common practice, no source). Exact.
+    [Fact]
+    public void Disc_solves_are_bit_identical_with_one_and_two_threads()
+    {
+        double a = 0.04, m = 0.024;
+        var model = Disc(a, 0.002);
+        var source = Magnet(a, m, 0.01, 0.002, W / m);
+        var one = PlateModels.SolveDisc(model, source, Sheet, [0.0], fftThreads: 1);
+        var two = PlateModels.SolveDisc(model, source, Sheet, [0.0], fftThreads: 2);
+        Assert.Equal("own-field", one.ModelName);
+        Assert.Equal(one.LossW, two.LossW);
+        Assert.Equal(one.Iterations, two.Iterations);
+        var speeds = new[] { 0.5 * W / m, W / m };
+        var curveOne = DiscSpeedCurve.Solve(model, source, Sheet, [0.0], speeds, fftThreads: 1);
+        var curveTwo = DiscSpeedCurve.Solve(model, source, Sheet, [0.0], speeds, fftThreads: 2);
+        Assert.Equal(curveOne.Points.Select(p => p.TorqueNm), curveTwo.Points.Select(p => p.TorqueNm));
+    }
+
     // Reitz (1970), thin sheet, any axisymmetric source moving at v: F_D/F_D,low = (2 w^2/v^2)(1 - w/sqrt(v^2 + w^2)) (the reflection coefficient
     // R = i s/(1 + i s), s = (v/w) cos(phi), does not depend on |k|); at the drag peak v = 1.27202 w it is 0.47214. A cylinder magnet 6 mm across,
     // 1 mm from a copper disc 1 mm thick (w = 27.4 m/s), its centre at m = 24 mm on a disc 40 mm in radius, turning at omega m = 1.27202 w.

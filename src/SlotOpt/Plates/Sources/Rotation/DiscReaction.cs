@@ -8,7 +8,7 @@ namespace SlotOpt.Plates.Sources.Rotation;
 /// The braking torque on a thin disc turning under a fixed source with the eddy currents' own field (model `own-field`): per angle, the
 /// coupled steady state (A + omega G M) u = -s of <see cref="RotatingOwnFieldOperator"/> (u = psi / G) by right-preconditioned real GMRES
 /// (<see cref="Gmres"/>, restart <see cref="ComplexGmres.DefaultRestart"/>), started from the resistance-limited solution of the same angle
-/// (<see cref="DiscTorque"/>'s equation) or from the caller's guess. The loss is P = G u^T A u and the torque T = P / omega (power balance of a
+/// (<see cref="DiscTorque"/>'s equation, solved as DiscTorque solves it and kept: <see cref="DiscReactionSolution.ResistanceLimited"/>) or from the caller's guess. The loss is P = G u^T A u and the torque T = P / omega (power balance of a
 /// steady rotation; exact in the discrete model because M is skew-symmetric). Not linear in G: one solve per conductor and speed.
 /// Non-convergence, NaN or Inf: false with the reason (TrySolve) or <see cref="NumericalFailureException"/> (Solve).
 /// </summary>
@@ -31,9 +31,10 @@ public static class DiscReaction
         var u = new double[n];
         double[]? first = null;
         var loss = new double[anglesRad.Count];
-        var lossLow = new double[anglesRad.Count];
-        int iterations = 0;
-        double worst = 0;
+        var lowPerSiemens = new double[anglesRad.Count];
+        int iterations = 0, lowIterations = 0, lowPeak = 0;
+        double worst = 0, lowWorst = 0;
+        double[]? lowPeakPsi = null;
         for (int k = 0; k < anglesRad.Count; k++)
         {
             string at = $"turning disc at {anglesRad[k] * 180 / Math.PI:0.##} deg, {omega:G4} rad/s";
@@ -44,7 +45,11 @@ public static class DiscReaction
                 failure = $"{at}, resistance-limited start: {r0.Reason} (relative residual {r0.RelativeResidual:E2} after {r0.Iterations} iterations)";
                 return false;
             }
-            lossLow[k] = g * model.LossPerSiemens(low);
+            // the resistance-limited solve of this angle, as DiscTorque.TrySolve makes it (zero start, then the previous angle's): its loss and the map's angle
+            lowPerSiemens[k] = model.LossPerSiemens(low);
+            lowIterations += r0.Iterations;
+            lowWorst = Math.Max(lowWorst, r0.RelativeResidual);
+            if (lowPeakPsi is null || lowPerSiemens[k] > lowPerSiemens[lowPeak]) { lowPeakPsi = (double[])low.Clone(); lowPeak = k; }
             if (k == 0) Array.Copy(initialGuess ?? low, u, n);
             if (!Gmres.TrySolve(op.Apply, op.Precondition, rhs, u, criterion, ComplexGmres.DefaultRestart, out var report))
             {
@@ -57,7 +62,8 @@ public static class DiscReaction
             loss[k] = g * model.LossPerSiemens(u);     // P = G u^T A u
             if (!double.IsFinite(loss[k])) { failure = $"{at}: the loss is not finite"; return false; }
         }
-        solution = new DiscReactionSolution(anglesRad.ToArray(), loss, lossLow, omega, iterations, worst, first!);
+        var resistanceLimited = new DiscTorqueSolution(anglesRad.ToArray(), lowPerSiemens, omega, lowIterations, lowWorst, lowPeak, lowPeakPsi!);
+        solution = new DiscReactionSolution(anglesRad.ToArray(), loss, resistanceLimited, g, omega, iterations, worst, first!);
         failure = "";
         return true;
     }
@@ -68,12 +74,16 @@ public static class DiscReaction
 }
 
 /// <summary>
-/// The own-field turning-disc solves for one conductor and speed: loss per angle (W) with the eddy currents' own field and, for comparison,
-/// resistance-limited (the same angle's start); torque T = P / omega. FirstU is u = psi / G at the first angle (the warm start for a nearby speed).
+/// The own-field turning-disc solves for one conductor and speed: loss per angle (W) with the eddy currents' own field and, for comparison
+/// and the current-density map, the resistance-limited solves at unit conductance (the same angles' starts, <see cref="DiscTorque"/>'s answer);
+/// torque T = P / omega. Iterations and MaxRelativeResidual are the own-field solves'. FirstU is u = psi / G at the first angle (the warm start for a nearby speed).
 /// </summary>
-public sealed record DiscReactionSolution(double[] AnglesRad, double[] LossW, double[] ResistanceLimitedLossW, double AngularSpeedRadPerS,
+public sealed record DiscReactionSolution(double[] AnglesRad, double[] LossW, DiscTorqueSolution ResistanceLimited, double SheetConductanceS, double AngularSpeedRadPerS,
     int Iterations, double MaxRelativeResidual, double[] FirstU)
 {
+    /// <summary>The resistance-limited loss per angle (W) at this conductance, P = G P_unit.</summary>
+    public double[] ResistanceLimitedLossW => ResistanceLimited.LossPerSiemensW.Select(p => SheetConductanceS * p).ToArray();
+
     public double MeanLossW => LossW.Average();
     public double MeanTorqueNm => MeanLossW / AngularSpeedRadPerS;
     /// <summary>Own-field over resistance-limited torque (1 at low speed, falling as the own field screens the source).</summary>

@@ -45,10 +45,6 @@ public static class DiscTorque
 
     public static DiscTorqueSolution Solve(SheetModel model, RotatingSource source, IReadOnlyList<double> anglesRad, ConvergenceCriterion? criterion = null) =>
         TrySolve(model, source, anglesRad, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
-
-    /// <summary>Angles spread evenly over one slot pitch of a slotted disc (count of them, from 0).</summary>
-    public static IReadOnlyList<double> AnglesOverPitch(double pitchRad, int count) =>
-        Enumerable.Range(0, count).Select(k => k * pitchRad / count).ToArray();
 }
 
 /// <summary>

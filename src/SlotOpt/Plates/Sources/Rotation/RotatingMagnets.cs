@@ -53,7 +53,7 @@ public sealed class RotatingMagnets : RotatingSource
     ];
 
     public override RotatingSource AtSpeed(double angularSpeedRadPerS) =>
-        new RotatingMagnets(Magnet, RadiusM, Count, PitchRad, Polarity, GapM, Axis, angularSpeedRadPerS, LineQuadratureOrder);
+        SharingRates(new RotatingMagnets(Magnet, RadiusM, Count, PitchRad, Polarity, GapM, Axis, angularSpeedRadPerS, LineQuadratureOrder));
 
     public override string Words => string.Create(CultureInfo.InvariantCulture,
         $"{Count} magnet{(Count == 1 ? "" : "s")} at {RadiusM * 1e3:0.##} mm radius, {GapM * 1e3:0.##} mm gap");

@@ -27,7 +27,7 @@ public sealed class RotatingPole : RotatingSource
 
     public override IReadOnlyList<GridFeature> GridFeatures => [new(GridFeatureKind.Pole, "the pole's diameter", 2 * PoleRadiusM)];
 
-    public override RotatingSource AtSpeed(double angularSpeedRadPerS) => new RotatingPole(Axis, SourceRadiusM, PoleRadiusM, FluxDensityT, angularSpeedRadPerS);
+    public override RotatingSource AtSpeed(double angularSpeedRadPerS) => SharingRates(new RotatingPole(Axis, SourceRadiusM, PoleRadiusM, FluxDensityT, angularSpeedRadPerS));
 
     public override string Words => string.Create(CultureInfo.InvariantCulture, $"a pole {2 * PoleRadiusM * 1e3:0.##} mm across at {SourceRadiusM * 1e3:0.##} mm radius");
 

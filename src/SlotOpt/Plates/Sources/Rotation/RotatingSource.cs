@@ -16,6 +16,9 @@ namespace SlotOpt.Plates.Sources.Rotation;
 /// The dual-cell integral of omega dBz/dtheta is exact on the cell's edges: dBz/dtheta = d(x Bz)/dy - d(y Bz)/dx (x, y from the axis),
 /// so by Gauss's theorem it is omega (integral of x Bz dx along the top edge - along the bottom - integral of y Bz dy along the right
 /// edge + along the left); neighbouring cells share their edges, so the integrals telescope as for the sliding sources.
+/// The edge moments do not depend on the speed: the summed moments of a lattice and angle (the rate at 1 rad/s) are kept, up to
+/// <see cref="KeptRates"/> of them, and shared with the copies <see cref="AtSpeed"/> makes, so a disc solved at many speeds, or several
+/// slot geometries on one lattice at the same angles, integrate the source once (each rate is omega times the kept sum, bit for bit).
 /// </summary>
 public abstract class RotatingSource
 {
@@ -25,6 +28,19 @@ public abstract class RotatingSource
         if (!double.IsFinite(axis.X) || !double.IsFinite(axis.Y)) throw new InputException("the disc's axis is not finite");
         Axis = axis;
         AngularSpeedRadPerS = angularSpeedRadPerS;
+    }
+
+    /// <summary>How many lattice-and-angle rates a source and its speed copies keep (a bound on the memory: one double per lattice node each).</summary>
+    public const int KeptRates = 32;
+
+    /// <summary>The summed edge moments per node (the rate at 1 rad/s) by lattice and angle, shared with the AtSpeed copies; thread-safe.</summary>
+    private System.Collections.Concurrent.ConcurrentDictionary<(CellLattice Lattice, double AngleRad), double[]> _unitRates = new();
+
+    /// <summary>For <see cref="AtSpeed"/>: the copy at another speed shares this source's kept rates (the same field, so the same moments).</summary>
+    protected T SharingRates<T>(T copy) where T : RotatingSource
+    {
+        copy._unitRates = _unitRates;
+        return copy;
     }
 
     /// <summary>The disc's centre in the plate's plane (metres).</summary>
@@ -47,6 +63,18 @@ public abstract class RotatingSource
     /// <summary>Per lattice node, the dual-cell integral of dBz/dt = omega dBz/dtheta (volts) with the source turned by angleRad about the axis.</summary>
     public void IntegrateRate(CellLattice l, double angleRad, double[] node)
     {
+        if (!_unitRates.TryGetValue((l, angleRad), out var unit))
+        {
+            unit = UnitRate(l, angleRad);
+            if (_unitRates.Count < KeptRates) _unitRates.TryAdd((l, angleRad), unit);
+        }
+        double w = AngularSpeedRadPerS;
+        for (int n = 0; n < unit.Length; n++) node[n] = w * unit[n];
+    }
+
+    /// <summary>Per lattice node, the summed edge moments of its dual cell (the rate at 1 rad/s, tesla m^2 per radian).</summary>
+    private double[] UnitRate(CellLattice l, double angleRad)
+    {
         int nx = l.NodesX, ny = l.NodesY;
         var vertical = new double[(nx + 1) * ny];     // along x = x_k - hx/2, for node row j
         var horizontal = new double[nx * (ny + 1)];   // along y = y_k - hy/2, for node column i
@@ -64,9 +92,10 @@ public abstract class RotatingSource
                 horizontal[k * nx + i] = MomentAlongX(y, x0, x0 + l.Hx, angleRad);
             }
         }
-        double w = AngularSpeedRadPerS;
+        var unit = new double[nx * ny];
         for (int j = 0; j < ny; j++)
             for (int i = 0; i < nx; i++)
-                node[j * nx + i] = w * (horizontal[(j + 1) * nx + i] - horizontal[j * nx + i] - vertical[j * (nx + 1) + i + 1] + vertical[j * (nx + 1) + i]);
+                unit[j * nx + i] = horizontal[(j + 1) * nx + i] - horizontal[j * nx + i] - vertical[j * (nx + 1) + i + 1] + vertical[j * (nx + 1) + i];
+        return unit;
     }
 }
