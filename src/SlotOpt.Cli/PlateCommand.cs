@@ -109,6 +109,7 @@ public static class PlateCommand
             e.LossW,
             e.MeanDragN,
             e.GridError?.Relative,
+            e.GridError?.MethodName,
             e.Case.MovingSource is null && e.Case.Rotation is null ? null : e.Case.AveragedOver,
             e.OffsetsXM,
             e.DragPerOffsetN,
@@ -182,7 +183,7 @@ public static class PlateCommand
             s.AppendLine(c, $"  against speed        (thick-slab, wavenumber quadrature error below {slab.Max(f => f.RelativeErrorEstimate):E1})");
             foreach (var f in slab) s.AppendLine(c, $"    {Numbers.Of(f.SpeedMPerS, "m/s"),-14} drag {Numbers.Newtons(f.DragN),-12} lift {Numbers.Newtons(f.LiftN),-12} loss {Numbers.Watts(f.LossW)}");
         }
-        if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {grid.Relative:P2} of loss{(e.MeanDragN is null ? "" : " and drag")} (Richardson, {grid.CellM * 1e3:G3} mm against {grid.CoarseCellM * 1e3:G3} mm cells)");
+        if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {grid.Relative:P2} of loss{(e.MeanDragN is null ? "" : " and drag")} ({grid.Description})");
         s.AppendLine(c, $"  current density      peak {Numbers.Sig(r.PeakCurrentDensityAPerM2 / 1e6)} A/mm2, rms {Numbers.Sig(r.RmsCurrentDensityAPerM2 / 1e6)} A/mm2");
         s.Append(c, $"  magnetic Reynolds    {r.Validity.ReynoldsNumber:G3}");
         s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? string.Create(c, $", thickness/skin depth {td:G3}") : "");

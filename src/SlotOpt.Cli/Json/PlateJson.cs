@@ -4,7 +4,7 @@ namespace SlotOpt.Cli;
 
 /// <summary>
 /// `slotopt plate --json`: the model and why, loss and drag (per source position when it moves), current density,
-/// the grid-error estimate (relative, Richardson against cells twice as large), validity figures, the solver's reproducible effort (no wall times), and the temperature keys when the file has [thermal]
+/// the grid-error estimate (relative) and its method (three-grid, three-grid-order-unconfirmed or two-grid: Plates/DiscretisationError), validity figures, the solver's reproducible effort (no wall times), and the temperature keys when the file has [thermal]
 /// (temperature_limit_exceeded only when it sets a limit).
 /// Absent values are left out, never written as null.
 /// </summary>
@@ -15,6 +15,7 @@ public sealed record PlateJson(
     double LossW,
     double? DragN,
     double? DiscretisationError,
+    string? GridErrorMethod,
     string? AveragedOver,
     IReadOnlyList<double> PositionsM,
     IReadOnlyList<double> DragPerPositionN,

@@ -13,7 +13,7 @@ namespace SlotOpt.Runs;
 /// <summary>
 /// A chosen plate design with what the report shows beyond its ranked number: the model its validity figures call for
 /// (the same model, and the same loss and drag, the ranking gave it: <see cref="PlateModelRanking"/>), its lift, its grid error
-/// (Richardson from the solve on cells twice as large, <see cref="DiscretisationError"/>), and under moving poles drag and lift
+/// (from the solves on cells twice and four times as large, <see cref="DiscretisationError"/>), and under moving poles drag and lift
 /// against speed with the plate's own field. ResistanceLimitedLossW is the screen's number of the same plate.
 /// </summary>
 public sealed record PlateConfirmation(
@@ -37,7 +37,7 @@ public sealed record PlateConfirmation(
 
     /// <summary>Travel positions each sweep speed averages (a window of the run's offsets; the sweep shows the trend, the run's offsets give the figures).</summary>
     public const int SweepPositions = 2;
-    /// <summary>Solves the choice with the model its validity figures call for (accuracy 1 %, ReactionModelChoice), on the part's grid and on cells twice as large.</summary>
+    /// <summary>Solves the choice with the model its validity figures call for (accuracy 1 %, ReactionModelChoice), on the part's grid and on coarser ones for its grid error.</summary>
     public static PlateConfirmation Confirm(PlatePart part, PlateChoice choice, MaterialLibrary library, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
@@ -75,7 +75,7 @@ public sealed record PlateConfirmation(
 
     /// <summary>
     /// A turning disc: its number through the one seam (<see cref="TurningDiscModel"/>, the ranking's number), the tangential force at the
-    /// magnets' radius as its drag, and the grid error from the same disc solved on cells twice as large; with min_torque, the torque at its speed.
+    /// magnets' radius as its drag, and the grid error from the same disc solved on coarser cells (<see cref="DiscretisationError.Estimate"/>); with min_torque, the torque at its speed.
     /// </summary>
     private static PlateConfirmation ConfirmDisc(PlatePart part, PlateChoice choice, PlateExcitation.Turning turning, ConductingSheet conductor, SheetModel model, EvaluationLimits limits)
     {
@@ -83,16 +83,10 @@ public sealed record PlateConfirmation(
         if (solved.Failure is { } failure) throw new InvalidOperationException($"{part.Name}: the chosen disc no longer solves: {failure.Message}");
         var number = TurningDiscModel.Evaluate(part, solved, conductor);
         var notes = new List<string>();
-        DiscretisationError? gridError = null;
-        double h = Math.Max(model.Lattice.Hx, model.Lattice.Hy);
-        try
-        {
-            var coarse = SheetModel.Build(model.Grid.Geometry, new GridOptions { CellSizeM = 2 * h });
-            var onCoarse = TurningDiscModel.Evaluate(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, coarse), conductor);
-            gridError = DiscretisationError.FromTwoGrids(number.LossW, onCoarse.LossW, h, Math.Max(coarse.Lattice.Hx, coarse.Lattice.Hy));
-            if (gridError.IsLarge) notes.Add(gridError.Warning);
-        }
-        catch (InputException) { notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell"); }
+        var gridError = DiscretisationError.Estimate(model, number.LossW,
+            coarse => TurningDiscModel.Evaluate(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, coarse), conductor).LossW);
+        if (gridError is null) notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell");
+        else if (gridError.IsLarge) notes.Add(gridError.Warning);
         // min_torque: the disc solved at the minimum's own speed by the model its validity calls for there (the screen scaled linearly,
         // which the own field does not: as MinimumDrag is confirmed at its speed)
         MinimumTorqueCheck? minimum = part.MinTorque is { } wanted && TurningDiscModel.Evaluate(part, solved, conductor, wanted.Rpm) is var atWanted
