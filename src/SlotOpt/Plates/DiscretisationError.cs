@@ -184,7 +184,7 @@ public sealed record DiscretisationError(
             .Concat(geometry.Slots.Select((s, k) => (Name: $"slot {k + 1}", s.WidthM, Needed: CellsAcrossCutout)));
         var worst = widths.Where(w => w.WidthM / cell < w.Needed).OrderBy(w => w.WidthM / cell / w.Needed).FirstOrDefault();
         return worst.Name is null ? null
-            : $"{Millimetres(cell)} mm cells leave {worst.Name} ({Millimetres(worst.WidthM)} mm) {Numbers.Sig(worst.WidthM / cell)} cells across, under the {worst.Needed} that resolve it";
+            : $"{Millimetres(cell)} mm cells put {Numbers.Sig(worst.WidthM / cell)} across {worst.Name} ({Millimetres(worst.WidthM)} mm), under the {worst.Needed} that resolve it";
     }
 
     private static double CellOf(SheetModel model) => Math.Sqrt(model.Lattice.Hx * model.Lattice.Hy);
