@@ -110,18 +110,12 @@ public static class PlateModels
     }
 
     /// <summary>
-    /// The solution with its grid-error estimate (<see cref="DiscretisationError"/>): the same model solved again
-    /// on cells twice as large (solveOn gets that coarser model); the caller shows <see cref="DiscretisationError.Warning"/>
-    /// when it exceeds 1 %. Where no coarser grid exists (fewer than 2 cells across, or nothing conducting left) GridError stays null.
+    /// The solution with its grid-error estimate (<see cref="DiscretisationError.Estimate"/>): the same model solved again on cells twice
+    /// and, where that grid resolves the plate, four times as large (solveOn gets each coarser model); the caller shows
+    /// <see cref="DiscretisationError.Warning"/> when it exceeds 1 %. Where no coarser grid exists (fewer than 2 cells across, or nothing conducting left) GridError stays null.
     /// </summary>
-    public static PlateSolution WithGridError(PlateSolution fine, SheetModel model, Func<SheetModel, PlateSolution> solveOn)
-    {
-        double h = Math.Max(model.Lattice.Hx, model.Lattice.Hy);
-        SheetModel coarse;
-        try { coarse = SheetModel.Build(model.Grid.Geometry, new GridOptions { CellSizeM = 2 * h }); }
-        catch (InputException) { return fine; }
-        return fine with { GridError = DiscretisationError.FromTwoGrids(fine.MeanLossW, solveOn(coarse).MeanLossW, h, Math.Max(coarse.Lattice.Hx, coarse.Lattice.Hy)) };
-    }
+    public static PlateSolution WithGridError(PlateSolution fine, SheetModel model, Func<SheetModel, PlateSolution> solveOn) =>
+        fine with { GridError = DiscretisationError.Estimate(model, fine.MeanLossW, coarse => solveOn(coarse).MeanLossW) };
 
     private static void CheckOperator(SheetModel model, ReactionOperator? reaction)
     {

@@ -221,7 +221,7 @@ public static class ReportContent
 
     /// <summary>A chosen plate as confirmed, in the words the report and the console share: which model ran, its loss, drag and lift against the screen, its grid error, and why that model.</summary>
     public static string ConfirmationText(PlateConfirmation c) =>
-        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.TorqueNm is { } t ? $", braking torque {Numbers.Of(t, "N m")}" : "")}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}{(c.TorqueNm is null ? "" : " at the magnets' radius")}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? $"; estimated grid error {N(e.Relative * 100)} %" : "")}. {c.Reason}";
+        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.TorqueNm is { } t ? $", braking torque {Numbers.Of(t, "N m")}" : "")}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}{(c.TorqueNm is null ? "" : " at the magnets' radius")}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? $"; estimated grid error {N(e.Relative * 100)} % ({e.Description})" : "")}. {c.Reason}";
 
     private static string Drag(double? dragN) => dragN is { } d ? N(d) : "";
 

@@ -13,7 +13,7 @@ namespace SlotOpt.Runs;
 /// <summary>
 /// A chosen plate design with what the report shows beyond its ranked number: the model its validity figures call for
 /// (the same model, and the same loss and drag, the ranking gave it: <see cref="PlateModelRanking"/>), its lift, its grid error
-/// (Richardson from the solve on cells twice as large, <see cref="DiscretisationError"/>), and under moving poles drag and lift
+/// (from the solves on cells twice and four times as large, <see cref="DiscretisationError"/>), and under moving poles drag and lift
 /// against speed with the plate's own field. ResistanceLimitedLossW is the screen's number of the same plate.
 /// </summary>
 public sealed record PlateConfirmation(
@@ -38,8 +38,8 @@ public sealed record PlateConfirmation(
     /// <summary>Travel positions each sweep speed averages (a window of the run's offsets; the sweep shows the trend, the run's offsets give the figures).</summary>
     public const int SweepPositions = 2;
     /// <summary>
-    /// Solves the chosen option with the model its validity figures call for (accuracy 1 %, ReactionModelChoice), on the part's grid and on cells
-    /// twice as large. A turning disc's geometry comes from (and stays in) geometries, and its number at the run's speed is the ranking's, not solved again.
+    /// Solves the chosen option with the model its validity figures call for (accuracy 1 %, ReactionModelChoice), on the part's grid and on coarser
+    /// ones for its grid error. A turning disc's geometry comes from (and stays in) geometries, and its number at the run's speed is the ranking's, not solved again.
     /// </summary>
     public static PlateConfirmation Confirm(PlatePart part, EvaluatedOption chosen, MaterialLibrary library, SolvedGeometries geometries)
     {
@@ -79,7 +79,7 @@ public sealed record PlateConfirmation(
 
     /// <summary>
     /// A turning disc: its number through the one seam (<see cref="TurningDiscModel"/>: the ranking's number, which the chosen option carries),
-    /// the tangential force at the magnets' radius as its drag, and the grid error from the same disc solved on cells twice as large; with
+    /// the tangential force at the magnets' radius as its drag, and the grid error from the same disc solved on coarser cells (<see cref="DiscretisationError.Estimate"/>); with
     /// min_torque, the torque at its speed.
     /// </summary>
     private static PlateConfirmation ConfirmDisc(PlatePart part, EvaluatedOption chosen, PlateChoice choice, PlateExcitation.Turning turning, ConductingSheet conductor,
@@ -92,16 +92,10 @@ public sealed record PlateConfirmation(
         var number = new DiscNumber(chosen.Model ?? throw new InvalidOperationException($"{part.Name}: the chosen disc carries no model"), chosen.Loss.TotalW,
             chosen.TorqueNm ?? throw new InvalidOperationException($"{part.Name}: the chosen disc carries no torque"));
         var notes = new List<string>();
-        DiscretisationError? gridError = null;
-        double h = Math.Max(model.Lattice.Hx, model.Lattice.Hy);
-        try
-        {
-            var coarse = SheetModel.Build(model.Grid.Geometry, new GridOptions { CellSizeM = 2 * h });
-            var onCoarse = new TurningDiscModel(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, coarse), threads).Evaluate(conductor);
-            gridError = DiscretisationError.FromTwoGrids(number.LossW, onCoarse.LossW, h, Math.Max(coarse.Lattice.Hx, coarse.Lattice.Hy));
-            if (gridError.IsLarge) notes.Add(gridError.Warning);
-        }
-        catch (InputException) { notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell"); }
+        var gridError = DiscretisationError.Estimate(model, number.LossW,
+            coarse => new TurningDiscModel(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, coarse), threads).Evaluate(conductor).LossW);
+        if (gridError is null) notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell");
+        else if (gridError.IsLarge) notes.Add(gridError.Warning);
         // min_torque: the disc solved at the minimum's own speed by the model its validity calls for there (the screen scaled linearly,
         // which the own field does not: as MinimumDrag is confirmed at its speed)
         MinimumTorqueCheck? minimum = part.MinTorque is { } wanted && new TurningDiscModel(part, solved, threads).Evaluate(conductor, wanted.Rpm) is var atWanted

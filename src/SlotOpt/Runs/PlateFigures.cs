@@ -15,8 +15,7 @@ public sealed record PlateFigures(
     string Model,
     string ModelReason,
     double? GridErrorRelative,
-    double? GridCellM,
-    double? GridCoarseCellM,
+    string? GridErrorWords,
     string MapModel,
     CurrentDensityMap Map,
     double PeakCurrentDensityAPerM2,
@@ -46,7 +45,7 @@ public sealed record PlateFigures(
         var temperature = e.Heating?.Temperature is { } t && e.Case.Thermal is { } thermal
             ? new PlateTemperatureFigures(t.AmbientK, t.HottestK, t.MeanRiseK, thermal.Limit.IsSet ? thermal.Limit.Breach(t) : null, thermal.Limit.IsSet)
             : null;
-        return new PlateFigures(ReactionModelChoice.Name(e.Choice.Kind), e.Choice.Reason, grid?.Relative, grid?.CellM, grid?.CoarseCellM,
+        return new PlateFigures(ReactionModelChoice.Name(e.Choice.Kind), e.Choice.Reason, grid?.Relative, grid?.Description,
             ReactionModelChoice.Name(SheetModelKind.ResistanceLimited), e.Result.Map, e.Result.PeakCurrentDensityAPerM2, PlateDrawing.Of(e.Case.Geometry),
             approach, travel, disc, speed, temperature);
     }

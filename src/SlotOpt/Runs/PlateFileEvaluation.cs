@@ -36,7 +36,7 @@ public sealed record PlateFileEvaluation(
     double SolveSeconds,
     HeatedPlate? Heating = null)
 {
-    /// <summary>The grid-error estimate of the loss and mean drag (Richardson against cells twice as large); null with [thermal].</summary>
+    /// <summary>The grid-error estimate of the loss and mean drag (DiscretisationError.Estimate: cells of 2h and 4h); null with [thermal].</summary>
     public DiscretisationError? GridError { get; init; }
 
     /// <summary>A turning disc: the mean braking torque (N m); MeanDragN is then the torque over the magnets' radius, the force along their path.</summary>
@@ -107,8 +107,8 @@ public sealed record PlateFileEvaluation(
         var clock = Stopwatch.StartNew();
         double g = plate.Sheet.SheetConductanceS, pathSpeed = source.AngularSpeedRadPerS * source.SourceRadiusM;
         var disc = PlateModels.SolveDisc(model, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: forcedKind, fftThreads: fftThreads);
-        GridErrorOf(model, m => PlateModels.SolveDisc(m, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: disc.Choice.Kind, fftThreads: fftThreads).MeanLossW,
-            disc.MeanLossW, out var gridError);
+        var gridError = DiscretisationError.Estimate(model, disc.MeanLossW,
+            m => PlateModels.SolveDisc(m, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: disc.Choice.Kind, fftThreads: fftThreads).MeanLossW);
         var low = disc.ResistanceLimited;
         var notes = disc.Notes.Skip(1).ToList();
         if (disc.Choice.Kind != SheetModelKind.ResistanceLimited) notes.Add("the current-density map and its peak and RMS are from the resistance-limited model, which overstates them here; torque and loss are from the model that ran");
@@ -148,7 +148,7 @@ public sealed record PlateFileEvaluation(
             residual = Math.Max(residual, s.RelativeResidual);
             curve.Add(new GapPoint(gap, s.DampingForceN(g), g * s.LossPerSiemensW));
         }
-        GridErrorOf(model, m => g * ApproachDamping.Solve(m, first, v, criterion).LossPerSiemensW, curve[0].LossW, out var gridError);
+        var gridError = DiscretisationError.Estimate(model, curve[0].LossW, m => g * ApproachDamping.Solve(m, first, v, criterion).LossPerSiemensW);
         var notes = new List<string> { "the damping force is normal to the plate: it pushes the magnets back as they approach" };
         if (wanted.Kind != SheetModelKind.ResistanceLimited)
             notes.Add($"the approach is solved resistance-limited (there is no own-field model for it), but at this speed the validity calls for another ({wanted.Reason}): the force is overstated");
@@ -163,17 +163,6 @@ public sealed record PlateFileEvaluation(
         if (forcedKind is { } k && k != SheetModelKind.ResistanceLimited)
             throw new InputException($"{plate.Path}: {what} is solved resistance-limited only; --model {ReactionModelChoice.Name(k)} cannot be used with it");
         if (plate.Thermal is not null) throw new InputException($"{plate.Path}: [thermal] is for plates under sliding sources and AC fields; {what} has no temperature coupling");
-    }
-
-    /// <summary>The loss solved again on cells twice as large (Richardson, <see cref="DiscretisationError"/>); null where no coarser grid exists.</summary>
-    private static void GridErrorOf(SheetModel model, Func<SheetModel, double> lossOn, double fineLossW, out DiscretisationError? error)
-    {
-        error = null;
-        double h = Math.Max(model.Lattice.Hx, model.Lattice.Hy);
-        SheetModel coarse;
-        try { coarse = SheetModel.Build(model.Grid.Geometry, new GridOptions { CellSizeM = 2 * h }); }
-        catch (InputException) { return; }
-        error = DiscretisationError.FromTwoGrids(fineLossW, lossOn(coarse), h, Math.Max(coarse.Lattice.Hx, coarse.Lattice.Hy));
     }
 
     private static PlateResult WithGridNote(PlateResult result, DiscretisationError? error) =>

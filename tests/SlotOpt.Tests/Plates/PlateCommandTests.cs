@@ -68,6 +68,9 @@ public class PlateCommandTests
         Assert.InRange(loss / expected - 1, -0.01, 0.01);
         Assert.True(doc.RootElement.GetProperty("unknowns").GetInt32() > 0);
         Assert.True(doc.RootElement.GetProperty("iterations").GetInt32() > 0);
+        // the grid error and its method (the 4 mm grid leaves 25 cells across: three grids, DiscretisationError)
+        Assert.True(doc.RootElement.GetProperty("discretisation_error").GetDouble() > 0);
+        Assert.Equal("three-grid", doc.RootElement.GetProperty("grid_error_method").GetString());
         // Rm = mu0 sigma t omega L / 2 with L = 0.1 m (the smaller side): 1.2566e-6 * 1e7 * 1e-3 * 314.16 * 0.1 / 2 = 0.19739 [D]
         Assert.Equal(0.19739, doc.RootElement.GetProperty("reynolds_number").GetDouble(), 4e-5);
     }

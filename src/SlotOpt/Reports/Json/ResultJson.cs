@@ -93,9 +93,12 @@ public sealed record ResultJson(
         }
     }
 
-    /// <summary>A chosen plate solved with the model its validity calls for (its name as `plate --model` spells it), with its lift and its grid-error estimate (relative, Richardson against cells twice as large).</summary>
+    /// <summary>A chosen plate solved with the model its validity calls for (its name as `plate --model` spells it), with its lift and its grid-error estimate (relative) and the method that made it (three-grid, three-grid-order-unconfirmed or two-grid: Plates/DiscretisationError).</summary>
     public sealed record Confirmation(string Model, string Reason, double LossW, double? DragN, double? LiftN, double ResistanceLimitedLossW, double? DiscretisationError)
     {
+        /// <summary>How DiscretisationError was estimated; absent with it.</summary>
+        public string? GridErrorMethod { get; init; }
+
         /// <summary>A turning disc: the confirmed braking torque.</summary>
         [System.Text.Json.Serialization.JsonPropertyName("torque_n_m")]
         public double? TorqueNm { get; init; }
@@ -136,7 +139,7 @@ public sealed record ResultJson(
         o.Model?.Name, o.Model?.Reason,
         new ReferenceDesign(part.ReferenceIsCurrent ? "current" : "baseline", part.Reference.Description, part.Reference.Loss.TotalW, part.Reference.DragN, part.Reference.BuildCost, part.Reference.Rejection?.Message,
             Temperature.Of(r.HeatOf(o.PartName, DesignRole.Reference)), part.Reference.Model?.Name) { TorqueNm = part.Reference.TorqueNm },
-        r.Confirmation(o.PartName) is { } c ? new Confirmation(c.ModelName, c.Reason, c.LossW, c.DragN, c.LiftN, c.ResistanceLimitedLossW, c.GridError?.Relative) { TorqueNm = c.TorqueNm } : null,
+        r.Confirmation(o.PartName) is { } c ? new Confirmation(c.ModelName, c.Reason, c.LossW, c.DragN, c.LiftN, c.ResistanceLimitedLossW, c.GridError?.Relative) { TorqueNm = c.TorqueNm, GridErrorMethod = c.GridError?.MethodName } : null,
         part.Options.Count,
         part.RejectionCounts,
         Temperature.Of(r.HeatOf(o.PartName, DesignRole.Chosen))) { TorqueNm = o.TorqueNm };
