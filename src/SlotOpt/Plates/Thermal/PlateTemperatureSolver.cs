@@ -125,6 +125,7 @@ public static class PlateTemperatureSolver
         bool iterates = radiates || (fluid is not null && network.HeldNode.Contains(true));   // more than one step is to be expected
         int iterations = 0, linear = 0;
         double residual = 0;
+        double weighted = 0, radiatedNow = 0, edgeNow = 0;   // the last solve's sums of A r, A q_r(r) and the heat into held edges (W)
         while (unknowns > 0)   // none when every metal node is held at ambient (a plate a cell or two wide)
         {
             iterations++;
@@ -175,7 +176,8 @@ public static class PlateTemperatureSolver
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
             residual = report.RelativeResidual;
-            double largest = 0, change = 0, weighted = 0, radiatedNow = 0, edgeNow = 0;
+            double largest = 0, change = 0;
+            weighted = 0; radiatedNow = 0; edgeNow = 0;
             for (int n = 0; n < map.Length; n++)
             {
                 int u = map[n];
@@ -204,19 +206,12 @@ public static class PlateTemperatureSolver
             lastEdge = edgeNow / (2 * totalArea);
         }
 
+        // the balance from the last solve's sums: convection 2 h A r and radiation 2 A q_r(r) from both faces (the exact law, not its
+        // linearisation), the loss on held nodes and the heat their links take
+        double convected = 2 * hConv * weighted, radiated = 2 * radiatedNow, edge = heldHeat + edgeNow;
         var temperature = new double[map.Length];
-        double convected = 0, radiated = 0, edge = 0;
         for (int n = 0; n < map.Length; n++)
-        {
-            int u = map[n];
-            if (u >= 0) temperature[n] = cooling.AmbientK + rise[pad + n];
-            else if (network.HeldNode[n]) { temperature[n] = cooling.AmbientK; edge += nodeHeat[n]; }
-            else { temperature[n] = double.NaN; continue; }
-            double r = temperature[n] - cooling.AmbientK;
-            convected += 2 * hConv * network.NodeAreaM2[n] * r;
-            radiated += 2 * network.NodeAreaM2[n] * SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, temperature[n], cooling.AmbientK);
-        }
-        for (int n = 0; n < map.Length; n++) if (map[n] >= 0) edge += network.ConductanceToHeld(map[n]) * rise[pad + n];
+            temperature[n] = map[n] >= 0 ? ambient + rise[pad + n] : network.HeldNode[n] ? ambient : double.NaN;
         double imbalance = Math.Abs(convected + radiated + edge - heatIn);
         if (heatIn > 0 && imbalance > BalanceTolerance * heatIn)
             throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,

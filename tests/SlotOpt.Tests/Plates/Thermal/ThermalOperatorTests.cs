@@ -125,4 +125,35 @@ public class ThermalOperatorTests
         Assert.InRange(misfit, 0, expected.Max(Math.Abs) * 1e-12);
         Assert.Equal(0, elsewhere);
     }
+
+    // Conjugate gradients' fused pass (ThermalOperator.MultiplyNextDirection: p = z + beta p, q = A p, p . q) against the two steps done
+    // apart with the assembled matrix: 1e-12 relative (the same few products summed in another order).
+    [Theory]
+    [InlineData(ThermalEdge.Insulated)]
+    [InlineData(ThermalEdge.Ambient)]
+    public void Next_direction_and_its_product_in_one_pass(ThermalEdge edges)
+    {
+        var network = Network(edges);
+        var random = new Random(7);
+        var op = new ThermalOperator(network);
+        var h = Enumerable.Range(0, network.Unknowns).Select(u => 20 + 30 * Math.Sin(u)).ToArray();
+        op.SetSurfaceCoefficients(h);
+        var z = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var p = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+        const double beta = 0.37;
+        var direction = z.Zip(p, (a, b) => a + beta * b).ToArray();
+        var expected = new double[direction.Length];
+        network.Matrix(h).Multiply(direction, expected);
+        var pOnLattice = OnLattice(op, p);
+        var q = new double[op.LatticeLength];
+        double dot = op.MultiplyNextDirection(OnLattice(op, z), beta, pOnLattice, q);
+        double largest = expected.Max(Math.Abs);
+        var (misfit, elsewhere) = Misfit(op, q, expected);
+        Assert.InRange(misfit, 0, largest * 1e-12);
+        Assert.Equal(0, elsewhere);
+        var (directionMisfit, _) = Misfit(op, pOnLattice, direction);
+        Assert.InRange(directionMisfit, 0, 1e-15);
+        double expectedDot = direction.Zip(expected, (a, b) => a * b).Sum();
+        Assert.Equal(expectedDot, dot, Math.Abs(expectedDot) * 1e-12);
+    }
 }
