@@ -106,7 +106,8 @@ public static class PlateTemperatureSolver
         int pad = op.Pad;
         var previous = new double[map.Length];
         double heldHeat = 0;   // the loss put on nodes held at ambient goes straight into the edge
-        for (int n = 0; n < map.Length; n++) if (network.HeldNode[n]) heldHeat += nodeHeat[n];
+        bool anyHeld = false;
+        for (int n = 0; n < map.Length; n++) if (network.HeldNode[n]) { heldHeat += nodeHeat[n]; anyHeld = true; }
         double perFace = Math.Max(heatIn - heldHeat, 0) / (2 * totalArea);   // W/m^2 each face would shed with no other heat into edges
         double lastMean = 0, lastRadiated = 0, lastEdge = 0;   // the last solve's mean rise and its radiated and edge heat per face (W/m^2)
         double hConv = 0;
@@ -122,7 +123,7 @@ public static class PlateTemperatureSolver
         double Other(double r) =>
             (lastMean > 0 && Uniform(lastMean) > 0 ? lastRadiated * Uniform(r) / Uniform(lastMean) : Uniform(r))
             + (lastMean > 0 ? lastEdge * r / lastMean : 0);
-        bool iterates = radiates || (fluid is not null && network.HeldNode.Contains(true));   // more than one step is to be expected
+        bool iterates = radiates || (fluid is not null && anyHeld);   // more than one step is to be expected
         int iterations = 0, linear = 0;
         double residual = 0;
         double weighted = 0, radiatedNow = 0, edgeNow = 0;   // the last solve's sums of A r, A q_r(r) and the heat into held edges (W)
@@ -137,6 +138,8 @@ public static class PlateTemperatureSolver
                 predictedMean = perFace > 0 && (radiates || lastEdge > 0) ? Brent.FindRoot(r => (hConv * r + Other(r)) / perFace - 1, 0, perFace / hConv, 1e-13, 200) : perFace / hConv;
             }
             bool first = iterations == 1;
+            // the first steps from a cold start only point the way when more steps follow; only a tight step can end the iteration
+            bool tight = !iterates || warm || iterations > EarlyCriteria.Count;
             // the step's diagonal and right-hand side by node; from the second step on, the residual follows the change (cg.Update)
             double sumH = 0;
             for (int n = 0; n < map.Length; n++)
@@ -144,7 +147,7 @@ public static class PlateTemperatureSolver
                 if (map[n] < 0) continue;
                 int q = pad + n;
                 if (first && !warm) rise[q] = predictedMean;
-                previous[n] = rise[q];
+                if (tight) previous[n] = rise[q];   // what the step moves, for its stopping test
                 double h = hConv, heat = nodeHeat[n];
                 if (radiates)
                 {
@@ -161,9 +164,8 @@ public static class PlateTemperatureSolver
             }
             if (first) cg.StartResidual();
             var multigrid = network.Preconditioner(op, sumH / unknowns);   // kept while h / (k t) moves little: an SPD preconditioner either way
-            // the first steps from a cold start only point the way when more steps follow; a later step reduces its starting residual
-            // at least tenfold, so that a small move of h or of the radiation's linearisation is still resolved (an inexact fixed-point iteration)
-            bool tight = !iterates || warm || iterations > EarlyCriteria.Count;
+            // a later step reduces its starting residual at least tenfold, so that a small move of h or of the radiation's linearisation is
+            // still resolved (an inexact fixed-point iteration)
             var criterion = tight ? LinearCriterion : EarlyCriteria[iterations - 1];
             if (!first)
             {
@@ -185,7 +187,7 @@ public static class PlateTemperatureSolver
                 double value = rise[pad + n];
                 if (!double.IsFinite(value)) throw new NumericalFailureException("plate temperature: the solution is not finite");
                 largest = Math.Max(largest, Math.Abs(value));
-                change = Math.Max(change, Math.Abs(value - previous[n]));
+                if (tight) change = Math.Max(change, Math.Abs(value - previous[n]));
                 weighted += area[n] * value;
                 if (radiates) radiatedNow += area[n] * SurfaceRadiation.HeatFluxWPerM2(emissivity, ambient + value, ambient);
                 edgeNow += network.ConductanceToHeld(u) * value;
