@@ -9,8 +9,9 @@ namespace SlotOpt.Plates.Thermal;
 /// <summary>
 /// Steady plate temperature from a loss map (W per cell): the <see cref="ThermalNetwork"/> solved for
 /// the rise above ambient by CG preconditioned with the eddy-current solve's black-box multigrid
-/// (<see cref="StructuredMultigrid.ForNodeStencil"/>: the same 5-point stencil, holes and held nodes as identity rows), applied on the
-/// node lattice (<see cref="ThermalOperator"/>: between steps only its diagonal changes).
+/// (<see cref="StructuredMultigrid.ForNodeStencil"/>: the same 5-point stencil, holes and held nodes as identity rows), all on the
+/// node lattice (<see cref="ThermalOperator"/>, <see cref="ThermalConjugateGradient"/>): between steps only the diagonal and the
+/// right-hand side change, so each step starts from the last rise with the residual updated for the change, in the pass that sets them.
 /// Natural convection gives one h for the whole plate from its mean rise, and radiation depends on the local
 /// temperature, so the linear solve may be repeated:
 /// <list type="bullet">
@@ -93,20 +94,20 @@ public static class PlateTemperatureSolver
         var nodeHeat = network.NodeHeat(cellLossW);
         var map = network.NodeUnknown;
         int unknowns = network.Unknowns;
-        var b = new double[unknowns];
-        for (int n = 0; n < map.Length; n++) if (map[n] >= 0) b[map[n]] = nodeHeat[n];
         double totalArea = network.NodeAreaM2.Sum();
         var fluid = cooling.Medium switch { CoolingMedium.Air => CoolingFluid.Air, CoolingMedium.Oil => CoolingFluid.MineralOil, _ => null };
         bool radiates = cooling.Emissivity > 0;
+        double emissivity = cooling.Emissivity, ambient = cooling.AmbientK;   // locals, not the fields the outflow model's closure holds
+        var area = network.NodeAreaM2;
 
         var op = new ThermalOperator(network);
-        var rise = new double[unknowns];
-        var h = new double[unknowns];
-        var rhs = new double[unknowns];
-        var previous = new double[unknowns];
-        var residualVector = new double[unknowns];
+        var cg = new ThermalConjugateGradient(op);
+        var rise = cg.X;   // the rise by node on the padded lattice: node n at pad + n
+        int pad = op.Pad;
+        var previous = new double[map.Length];
         double heldHeat = 0;   // the loss put on nodes held at ambient goes straight into the edge
-        for (int n = 0; n < map.Length; n++) if (network.HeldNode[n]) heldHeat += nodeHeat[n];
+        bool anyHeld = false;
+        for (int n = 0; n < map.Length; n++) if (network.HeldNode[n]) { heldHeat += nodeHeat[n]; anyHeld = true; }
         double perFace = Math.Max(heatIn - heldHeat, 0) / (2 * totalArea);   // W/m^2 each face would shed with no other heat into edges
         double lastMean = 0, lastRadiated = 0, lastEdge = 0;   // the last solve's mean rise and its radiated and edge heat per face (W/m^2)
         double hConv = 0;
@@ -115,16 +116,17 @@ public static class PlateTemperatureSolver
         {
             double scale = heatIn / start!.HeatInW;
             for (int n = 0; n < map.Length; n++)
-                if (map[n] >= 0 && double.IsFinite(start.NodeTemperatureK[n])) rise[map[n]] = scale * (start.NodeTemperatureK[n] - start.AmbientK);
+                if (map[n] >= 0 && double.IsFinite(start.NodeTemperatureK[n])) rise[pad + n] = scale * (start.NodeTemperatureK[n] - start.AmbientK);
         }
         // radiation of a face at a uniform rise r, and the model of the outflows other than convection at a mean rise r (W/m^2)
         double Uniform(double r) => SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, cooling.AmbientK + r, cooling.AmbientK);
         double Other(double r) =>
             (lastMean > 0 && Uniform(lastMean) > 0 ? lastRadiated * Uniform(r) / Uniform(lastMean) : Uniform(r))
             + (lastMean > 0 ? lastEdge * r / lastMean : 0);
-        bool iterates = radiates || (fluid is not null && network.HeldNode.Contains(true));   // more than one step is to be expected
+        bool iterates = radiates || (fluid is not null && anyHeld);   // more than one step is to be expected
         int iterations = 0, linear = 0;
         double residual = 0;
+        double weighted = 0, radiatedNow = 0, edgeNow = 0;   // the last solve's sums of A r, A q_r(r) and the heat into held edges (W)
         while (unknowns > 0)   // none when every metal node is held at ambient (a plate a cell or two wide)
         {
             iterations++;
@@ -135,48 +137,60 @@ public static class PlateTemperatureSolver
                 hConv = cooling.FixedCoefficientWPerM2K!.Value;
                 predictedMean = perFace > 0 && (radiates || lastEdge > 0) ? Brent.FindRoot(r => (hConv * r + Other(r)) / perFace - 1, 0, perFace / hConv, 1e-13, 200) : perFace / hConv;
             }
-            if (iterations == 1 && !warm) Array.Fill(rise, predictedMean);
-            Array.Copy(b, rhs, unknowns);
-            Array.Copy(rise, previous, unknowns);
+            bool first = iterations == 1;
+            // the first steps from a cold start only point the way when more steps follow; only a tight step can end the iteration
+            bool tight = !iterates || warm || iterations > EarlyCriteria.Count;
+            // the step's diagonal and right-hand side by node; from the second step on, the residual follows the change (cg.Update)
+            double sumH = 0;
             for (int n = 0; n < map.Length; n++)
             {
-                int u = map[n];
-                if (u < 0) continue;
-                h[u] = hConv;
-                if (!radiates) continue;
-                // Newton step on the radiation of both faces: q_r(r) ~ q_r(r0) + q_r'(r0) (r - r0), q_r' = 4 eps sigma T0^3
-                double r0 = Math.Max(rise[u], 0), t0 = cooling.AmbientK + r0;
-                double slope = 4 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * t0 * t0 * t0;
-                h[u] += slope;
-                rhs[u] -= 2 * network.NodeAreaM2[n] * (SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, t0, cooling.AmbientK) - slope * r0);
+                if (map[n] < 0) continue;
+                int q = pad + n;
+                if (first && !warm) rise[q] = predictedMean;
+                if (tight) previous[n] = rise[q];   // what the step moves, for its stopping test
+                double h = hConv, heat = nodeHeat[n];
+                if (radiates)
+                {
+                    // Newton step on the radiation of both faces: q_r(r) ~ q_r(r0) + q_r'(r0) (r - r0), q_r' = 4 eps sigma T0^3
+                    double r0 = Math.Max(rise[q], 0), t0 = ambient + r0;
+                    double slope = 4 * emissivity * SurfaceRadiation.StefanBoltzmann * t0 * t0 * t0;
+                    h += slope;
+                    heat -= 2 * area[n] * (SurfaceRadiation.HeatFluxWPerM2(emissivity, t0, ambient) - slope * r0);
+                }
+                sumH += h;
+                double diagonal = network.DiagonalAt(n, h);
+                if (first) { op.DiagonalWPerK[n] = diagonal; cg.B[q] = heat; }
+                else cg.Update(n, diagonal, heat);
             }
-            op.SetSurfaceCoefficients(h);   // the conduction stays; only the diagonal moves with h and the radiation's linearisation
-            var multigrid = network.Preconditioner(op, h.Average());   // kept while h / (k t) moves little: an SPD preconditioner either way
-            // the first steps from a cold start only point the way when more steps follow; a later step reduces its starting residual
-            // at least tenfold, so that a small move of h or of the radiation's linearisation is still resolved (an inexact fixed-point iteration)
-            bool tight = !iterates || warm || iterations > EarlyCriteria.Count;
+            if (first) cg.StartResidual();
+            var multigrid = network.Preconditioner(op, sumH / unknowns);   // kept while h / (k t) moves little: an SPD preconditioner either way
+            // a later step reduces its starting residual at least tenfold, so that a small move of h or of the radiation's linearisation is
+            // still resolved (an inexact fixed-point iteration)
             var criterion = tight ? LinearCriterion : EarlyCriteria[iterations - 1];
-            if (iterations > 1)
+            if (!first)
             {
-                op.Residual(rhs, rise, residualVector);
-                double target = Math.Max(StepReduction * ConjugateGradient.Norm(residualVector) / ConjugateGradient.Norm(rhs), RoundingResidual);
+                var (startResidual, normB) = cg.Norms();
+                double target = Math.Max(StepReduction * startResidual / normB, RoundingResidual);
                 if (target < criterion.RelativeResidual) criterion = criterion with { RelativeResidual = target };
             }
-            if (!ConjugateGradient.TrySolve(op, rhs, rise, multigrid, criterion, out var report))
+            // only a tight step can end the iteration: it confirms its residual against a fresh b - A x
+            if (!cg.TrySolve(multigrid, criterion, confirm: tight, out var report))
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
             residual = report.RelativeResidual;
-            double largest = 0, change = 0, weighted = 0, radiatedNow = 0, edgeNow = 0;
+            double largest = 0, change = 0;
+            weighted = 0; radiatedNow = 0; edgeNow = 0;
             for (int n = 0; n < map.Length; n++)
             {
                 int u = map[n];
                 if (u < 0) continue;
-                if (!double.IsFinite(rise[u])) throw new NumericalFailureException("plate temperature: the solution is not finite");
-                largest = Math.Max(largest, Math.Abs(rise[u]));
-                change = Math.Max(change, Math.Abs(rise[u] - previous[u]));
-                weighted += network.NodeAreaM2[n] * rise[u];
-                if (radiates) radiatedNow += network.NodeAreaM2[n] * Uniform(rise[u]);
-                edgeNow += network.ConductanceToHeld(u) * rise[u];
+                double value = rise[pad + n];
+                if (!double.IsFinite(value)) throw new NumericalFailureException("plate temperature: the solution is not finite");
+                largest = Math.Max(largest, Math.Abs(value));
+                if (tight) change = Math.Max(change, Math.Abs(value - previous[n]));
+                weighted += area[n] * value;
+                if (radiates) radiatedNow += area[n] * SurfaceRadiation.HeatFluxWPerM2(emissivity, ambient + value, ambient);
+                edgeNow += network.ConductanceToHeld(u) * value;
             }
             double meanRise = weighted / totalArea;
             // h off by a fraction e moves the rise by at most e h / (h + q_r'(T_inf)) of the largest rise: d rise = -A^-1 (2 A rise) dh, and the
@@ -194,19 +208,12 @@ public static class PlateTemperatureSolver
             lastEdge = edgeNow / (2 * totalArea);
         }
 
+        // the balance from the last solve's sums: convection 2 h A r and radiation 2 A q_r(r) from both faces (the exact law, not its
+        // linearisation), the loss on held nodes and the heat their links take
+        double convected = 2 * hConv * weighted, radiated = 2 * radiatedNow, edge = heldHeat + edgeNow;
         var temperature = new double[map.Length];
-        double convected = 0, radiated = 0, edge = 0;
         for (int n = 0; n < map.Length; n++)
-        {
-            int u = map[n];
-            if (u >= 0) temperature[n] = cooling.AmbientK + rise[u];
-            else if (network.HeldNode[n]) { temperature[n] = cooling.AmbientK; edge += nodeHeat[n]; }
-            else { temperature[n] = double.NaN; continue; }
-            double r = temperature[n] - cooling.AmbientK;
-            convected += 2 * hConv * network.NodeAreaM2[n] * r;
-            radiated += 2 * network.NodeAreaM2[n] * SurfaceRadiation.HeatFluxWPerM2(cooling.Emissivity, temperature[n], cooling.AmbientK);
-        }
-        for (int u = 0; u < unknowns; u++) edge += network.ConductanceToHeld(u) * rise[u];
+            temperature[n] = map[n] >= 0 ? ambient + rise[pad + n] : network.HeldNode[n] ? ambient : double.NaN;
         double imbalance = Math.Abs(convected + radiated + edge - heatIn);
         if (heatIn > 0 && imbalance > BalanceTolerance * heatIn)
             throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,

@@ -141,13 +141,16 @@ public sealed class ThermalNetwork
     /// <summary>The diagonal with surface loss: conduction plus 2 h_u A_u (h per unknown, W/m^2K), into <paramref name="diagonal"/> (W/K).</summary>
     public void Diagonal(double[] surfaceCoefficientWPerM2K, double[] diagonal)
     {
-        double kt = ConductanceScaleWPerK;
         for (int n = 0; n < NodeUnknown.Length; n++)
         {
             int u = NodeUnknown[n];
-            if (u >= 0) diagonal[u] = kt * UnitDiagonal[u] + 2 * surfaceCoefficientWPerM2K[u] * NodeAreaM2[n];
+            if (u >= 0) diagonal[u] = DiagonalAt(n, surfaceCoefficientWPerM2K[u]);
         }
     }
+
+    /// <summary>The diagonal entry of node n (which has an unknown) with surface coefficient h (W/m^2K): k t times its unit conduction plus 2 h A (W/K).</summary>
+    public double DiagonalAt(int node, double surfaceCoefficientWPerM2K) =>
+        ConductanceScaleWPerK * UnitDiagonal[NodeUnknown[node]] + 2 * surfaceCoefficientWPerM2K * NodeAreaM2[node];
 
     /// <summary>The operator with surface loss as a sparse matrix, kept only for the tests' references (MathNet's dense solve and the
     /// lattice operator checked against it); the solver never assembles it, it applies <see cref="ThermalOperator"/>. Rows in node
@@ -184,7 +187,9 @@ public sealed class ThermalNetwork
     }
 
     /// <summary>
-    /// The multigrid preconditioner for this network's operator with surface coefficients about h (W/m^2K). Built
+    /// The multigrid preconditioner for this network's operator on the node lattice (<see cref="ThermalOperator"/>: one unknown per
+    /// node, the nodes without an unknown of the network as identity rows, as the multigrid keeps them anyway), with surface
+    /// coefficients about h (W/m^2K), built from the operator's current diagonal. Built
     /// once and kept, with the networks of the same grid (<see cref="WithConductivity"/>), while h / (k t) stays within
     /// a factor <see cref="PreconditionerReuseFactor"/> of the one it was built for: the black-box hierarchy of c M is c
     /// times that of M, and conjugate gradients does not see a constant factor on the preconditioner, so only the ratio of
@@ -196,7 +201,8 @@ public sealed class ThermalNetwork
         double ratio = surfaceCoefficientWPerM2K / ConductanceScaleWPerK;
         if (_cache.Multigrid is null || !(Math.Abs(Math.Log(ratio / _cache.Ratio)) <= Math.Log(PreconditionerReuseFactor)))
         {
-            _cache.Multigrid = StructuredMultigrid.ForNodeStencil(Lattice.NodesX, Lattice.NodesY, NodeUnknown, UnitWest, UnitSouth, ConductanceScaleWPerK, op.DiagonalWPerK);
+            _cache.EveryNode ??= Enumerable.Range(0, Lattice.NodeCount).ToArray();
+            _cache.Multigrid = StructuredMultigrid.ForNodeStencil(Lattice.NodesX, Lattice.NodesY, _cache.EveryNode, UnitWest, UnitSouth, ConductanceScaleWPerK, op.DiagonalWPerK);
             _cache.Ratio = ratio;
         }
         return _cache.Multigrid;
@@ -210,6 +216,8 @@ public sealed class ThermalNetwork
     {
         public StructuredMultigrid? Multigrid;
         public double Ratio;
+        /// <summary>The multigrid's node-to-unknown map: node p is unknown p.</summary>
+        public int[]? EveryNode;
     }
 
     /// <summary>Heat per node from a loss per cell: a quarter of each cell's loss to each of its corners.</summary>

@@ -1,64 +1,128 @@
 using System.Runtime.CompilerServices;
-using SlotOpt.Numerics;
+using System.Runtime.InteropServices;
 
 namespace SlotOpt.Plates.Thermal;
 
 /// <summary>
-/// The matrix of a <see cref="ThermalNetwork"/> applied on the node lattice instead of from a stored matrix: row u of node p is
-/// d_u x_u - k t (w_p x_(p-1) + w_(p+1) x_(p+1) + s_p x_(p-NodesX) + s_(p+NodesX) x_(p+NodesX)), the network's unit conduction
-/// stencil (w, s) and a diagonal d that the solver sets for each step of its iteration (<see cref="SetSurfaceCoefficients"/>):
-/// the conduction stays, only the surface term 2 h A on the diagonal changes with h and the radiation's linearisation.
-/// Same matrix as <see cref="ThermalNetwork.Matrix"/> (each row summed in another order), without storing it. Not for
-/// concurrent products (it holds a lattice vector).
+/// The matrix of a <see cref="ThermalNetwork"/> on the node lattice itself: vectors hold one value per lattice node, node p at
+/// <see cref="Pad"/> + p of an array of <see cref="LatticeLength"/> (zeros round it), so no product gathers or scatters through the
+/// node-to-unknown map. Row p of a node with an unknown is d_p x_p - k t (w_p x_(p-1) + w_(p+1) x_(p+1) + s_p x_(p-NodesX)
+/// + s_(p+NodesX) x_(p+NodesX)), the network's unit conduction stencil (w, s) and a diagonal d (conduction plus 2 h A) that the
+/// solver sets for each step of its iteration: the conduction stays, only the surface term moves with h and the radiation's
+/// linearisation. A node without an unknown (no metal, or held at ambient) is an identity row with no links (d = 1), so a right-hand
+/// side that is 0 there keeps the solution 0 there, and the lattice system is the network's system with those rows added.
+/// On the unknowns, the same products as <see cref="ThermalNetwork.Matrix"/> summed in the same order (down, left, diagonal, right, up).
 /// </summary>
-public sealed class ThermalOperator : ILinearOperator
+public sealed class ThermalOperator
 {
     private readonly ThermalNetwork _network;
-    /// <summary>x spread on the lattice, padded with NodesX + 1 zeros on both sides (node p at Pad + p).</summary>
-    private readonly double[] _lattice;
 
     public ThermalOperator(ThermalNetwork network)
     {
         _network = network;
-        DiagonalWPerK = new double[network.Unknowns];
-        _lattice = new double[network.Lattice.NodeCount + 2 * (network.Lattice.NodesX + 1)];
+        Pad = network.Lattice.NodesX + 1;
+        LatticeLength = network.Lattice.NodeCount + 2 * Pad;
+        DiagonalWPerK = new double[network.Lattice.NodeCount];
+        for (int n = 0; n < DiagonalWPerK.Length; n++) if (network.NodeUnknown[n] < 0) DiagonalWPerK[n] = 1;
     }
 
-    public int Rows => _network.Unknowns;
+    public ThermalNetwork Network => _network;
 
-    /// <summary>The diagonal by unknown (W/K): conduction plus 2 h A.</summary>
+    /// <summary>Zeros before node 0 and after the last node (NodesX + 1): every neighbour of a node may be read.</summary>
+    public int Pad { get; }
+
+    /// <summary>Length of a vector on the padded lattice.</summary>
+    public int LatticeLength { get; }
+
+    /// <summary>The diagonal by node (W/K): conduction plus 2 h A where the node has an unknown (<see cref="ThermalNetwork.DiagonalAt"/>), 1 elsewhere.</summary>
     public double[] DiagonalWPerK { get; }
 
     /// <summary>Sets the diagonal for surface coefficients h by unknown (W/m^2K).</summary>
-    public void SetSurfaceCoefficients(double[] surfaceCoefficientWPerM2K) => _network.Diagonal(surfaceCoefficientWPerM2K, DiagonalWPerK);
-
-    /// <summary>y = A x.</summary>
-    public void Multiply(ReadOnlySpan<double> x, Span<double> y) => Apply(default, x, y, residual: false);
-
-    /// <summary>r = b - A x.</summary>
-    public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r) => Apply(b, x, r, residual: true);
-
-    /// <summary>Each row's terms in the order of the matrix's row (down, left, diagonal, right, up), so the products are those of
-    /// <see cref="ThermalNetwork.Matrix"/> to the last bit.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void Apply(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> y, bool residual)
+    public void SetSurfaceCoefficients(double[] surfaceCoefficientWPerM2K)
     {
         var map = _network.NodeUnknown;
-        var w = _network.UnitWest;
-        var s = _network.UnitSouth;
-        var d = DiagonalWPerK;
-        var v = _lattice;
-        int nx = _network.Lattice.NodesX, pad = nx + 1, n = map.Length;
+        for (int n = 0; n < map.Length; n++) if (map[n] >= 0) DiagonalWPerK[n] = _network.DiagonalAt(n, surfaceCoefficientWPerM2K[map[n]]);
+    }
+
+    /// <summary>y = A x on the padded lattice; returns x . y (conjugate gradients' p . A p, in the same pass).</summary>
+    public double Multiply(double[] x, double[] y) => Apply(default, x, y, residual: false);
+
+    /// <summary>r = b - A x on the padded lattice; returns r . r.</summary>
+    public double Residual(double[] b, double[] x, double[] r) => Apply(b, x, r, residual: true);
+
+    /// <summary>Conjugate gradients' next direction and its product in one pass: p = z + beta p, q = A p; returns p . q. The pass updates
+    /// p a row ahead of the product, so every neighbour is new when it is read.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public double MultiplyNextDirection(double[] z, double beta, double[] p, double[] q)
+    {
+        int nx = _network.Lattice.NodesX, pad = Pad, n = DiagonalWPerK.Length;
+        Check(z); Check(p); Check(q);
+        for (int i = pad; i < pad + Math.Min(nx, n); i++) p[i] = z[i] + beta * p[i];
+        ref double w = ref MemoryMarshal.GetArrayDataReference(_network.UnitWest);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(_network.UnitSouth);
+        ref double d = ref MemoryMarshal.GetArrayDataReference(DiagonalWPerK);
+        ref double v = ref MemoryMarshal.GetArrayDataReference(p);
+        ref double zr = ref MemoryMarshal.GetArrayDataReference(z);
+        ref double y = ref MemoryMarshal.GetArrayDataReference(q);
         double kt = _network.ConductanceScaleWPerK;
-        for (int p = 0; p < n; p++) { int u = map[p]; v[pad + p] = u >= 0 ? x[u] : 0; }
-        for (int p = 0; p < n; p++)
+        double s0 = 0, s1 = 0;
+        int ahead = n - nx;   // nodes whose row above is still to be updated
+        int k = 0;
+        for (; k < ahead; k++)
         {
-            int u = map[p];
-            if (u < 0) continue;
-            int q = pad + p;
-            double down = -(kt * s[p]) * v[q - nx], left = -(kt * w[p]) * v[q - 1], centre = d[u] * v[q],
-                right = -(kt * w[p + 1]) * v[q + 1], up = -(kt * s[p + nx]) * v[q + nx];
-            y[u] = residual ? b[u] - down - left - centre - right - up : down + left + centre + right + up;
+            int i = pad + k, a = i + nx;
+            Unsafe.Add(ref v, a) = Unsafe.Add(ref zr, a) + beta * Unsafe.Add(ref v, a);
+            double value = Row(ref w, ref s, ref d, ref v, kt, nx, k, i);
+            Unsafe.Add(ref y, i) = value;
+            if ((k & 1) == 0) s0 += Unsafe.Add(ref v, i) * value; else s1 += Unsafe.Add(ref v, i) * value;
         }
+        for (; k < n; k++)
+        {
+            int i = pad + k;
+            double value = Row(ref w, ref s, ref d, ref v, kt, nx, k, i);
+            Unsafe.Add(ref y, i) = value;
+            if ((k & 1) == 0) s0 += Unsafe.Add(ref v, i) * value; else s1 += Unsafe.Add(ref v, i) * value;
+        }
+        return s0 + s1;
+    }
+
+    private void Check(double[] v)
+    {
+        if (v.Length != LatticeLength) throw new ArgumentException("one value per node of the padded lattice");
+    }
+
+    /// <summary>Row of node k (at lattice index i) applied to v: the terms in the order of the matrix's row (down, left, diagonal, right, up).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static double Row(ref double w, ref double s, ref double d, ref double v, double kt, int nx, int k, int i)
+    {
+        double down = -(kt * Unsafe.Add(ref s, k)) * Unsafe.Add(ref v, i - nx), left = -(kt * Unsafe.Add(ref w, k)) * Unsafe.Add(ref v, i - 1),
+            centre = Unsafe.Add(ref d, k) * Unsafe.Add(ref v, i),
+            right = -(kt * Unsafe.Add(ref w, k + 1)) * Unsafe.Add(ref v, i + 1), up = -(kt * Unsafe.Add(ref s, k + nx)) * Unsafe.Add(ref v, i + nx);
+        return down + left + centre + right + up;
+    }
+
+    /// <summary>One pass over the nodes: y = A x (returns x . y) or y = b - A x (returns y . y).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private double Apply(ReadOnlySpan<double> b, double[] x, double[] y, bool residual)
+    {
+        Check(x); Check(y);
+        if (residual && b.Length != LatticeLength) throw new ArgumentException("one value per node of the padded lattice");
+        ref double w = ref MemoryMarshal.GetArrayDataReference(_network.UnitWest);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(_network.UnitSouth);
+        ref double d = ref MemoryMarshal.GetArrayDataReference(DiagonalWPerK);
+        ref double v = ref MemoryMarshal.GetArrayDataReference(x);
+        int nx = _network.Lattice.NodesX, pad = Pad, n = DiagonalWPerK.Length;
+        double kt = _network.ConductanceScaleWPerK;
+        double s0 = 0, s1 = 0;
+        for (int k = 0; k < n; k++)
+        {
+            int i = pad + k;
+            double product = Row(ref w, ref s, ref d, ref v, kt, nx, k, i);
+            double value = residual ? b[i] - product : product;
+            y[i] = value;
+            double term = (residual ? value : Unsafe.Add(ref v, i)) * value;
+            if ((k & 1) == 0) s0 += term; else s1 += term;
+        }
+        return s0 + s1;
     }
 }

@@ -18,8 +18,29 @@ public class ThermalOperatorTests
         return ThermalNetwork.Assemble(PlateGrid.Build(g, new GridOptions { CellSizeM = 0.004 }), 16.2, 0.008, edges);
     }
 
+    /// <summary>Values by unknown spread on the operator's padded lattice (0 at nodes without an unknown).</summary>
+    private static double[] OnLattice(ThermalOperator op, double[] byUnknown)
+    {
+        var v = new double[op.LatticeLength];
+        var map = op.Network.NodeUnknown;
+        for (int n = 0; n < map.Length; n++) if (map[n] >= 0) v[op.Pad + n] = byUnknown[map[n]];
+        return v;
+    }
+
+    /// <summary>Largest |lattice value - expected value| over the nodes with an unknown, and largest |lattice value| elsewhere (the identity rows).</summary>
+    private static (double Unknowns, double Elsewhere) Misfit(ThermalOperator op, double[] lattice, double[] expected)
+    {
+        double unknowns = 0, elsewhere = 0;
+        var map = op.Network.NodeUnknown;
+        for (int n = 0; n < map.Length; n++)
+            if (map[n] >= 0) unknowns = Math.Max(unknowns, Math.Abs(lattice[op.Pad + n] - expected[map[n]]));
+            else elsewhere = Math.Max(elsewhere, Math.Abs(lattice[op.Pad + n]));
+        return (unknowns, elsewhere);
+    }
+
     // The same matrix applied to a random vector, with an uneven h and after the diagonal is changed in place: 1e-12 relative
-    // (the same few products summed in another order).
+    // (the same few products summed in another order); the pass's dot product x . Ax to the same relative tolerance; the nodes
+    // without an unknown (identity rows) stay 0.
     [Theory]
     [InlineData(ThermalEdge.Insulated)]
     [InlineData(ThermalEdge.Ambient)]
@@ -29,22 +50,59 @@ public class ThermalOperatorTests
         var random = new Random(11);
         var x = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
         var op = new ThermalOperator(network);
+        var onLattice = OnLattice(op, x);
         foreach (double scale in new[] { 1.0, 7.0 })
         {
             var h = Enumerable.Range(0, network.Unknowns).Select(u => scale * (20 + 30 * Math.Sin(u))).ToArray();
             op.SetSurfaceCoefficients(h);
             var expected = new double[x.Length];
-            var actual = new double[x.Length];
             network.Matrix(h).Multiply(x, expected);
-            op.Multiply(x, actual);
+            var actual = new double[op.LatticeLength];
+            double dot = op.Multiply(onLattice, actual);
             double largest = expected.Max(Math.Abs);
-            for (int u = 0; u < x.Length; u++) Assert.Equal(expected[u], actual[u], largest * 1e-12);
+            var (misfit, elsewhere) = Misfit(op, actual, expected);
+            Assert.InRange(misfit, 0, largest * 1e-12);
+            Assert.Equal(0, elsewhere);
+            double expectedDot = x.Zip(expected, (a, b) => a * b).Sum();
+            Assert.Equal(expectedDot, dot, Math.Abs(expectedDot) * 1e-12);
         }
     }
 
-    // The multigrid built from the stencil (StructuredMultigrid.ForNodeStencil) holds the assembled matrix as its finest operator:
-    // 1e-12 relative (the same few products summed in another order). Its V-cycle is checked through CG against MathNet's dense
-    // solve in ThermalMultigridTests.
+    // The conjugate gradients' residual kept across a change of diagonal and right-hand side (ThermalConjugateGradient.Update: r += db
+    // - dd x, the conduction unchanged) against b' - A' x from the assembled matrix with the new h: 1e-12 of |b'| (rounding of a few
+    // products of terms no larger than |b'| and |A' x|).
+    [Theory]
+    [InlineData(ThermalEdge.Insulated)]
+    [InlineData(ThermalEdge.Ambient)]
+    public void Residual_follows_a_change_of_diagonal_and_right_hand_side(ThermalEdge edges)
+    {
+        var network = Network(edges);
+        var random = new Random(3);
+        var op = new ThermalOperator(network);
+        var cg = new ThermalConjugateGradient(op);
+        var x = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble()).ToArray();
+        var b = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble()).ToArray();
+        var h = Enumerable.Range(0, network.Unknowns).Select(u => 20 + 30 * Math.Sin(u)).ToArray();
+        op.SetSurfaceCoefficients(h);
+        Array.Copy(OnLattice(op, x), cg.X, op.LatticeLength);
+        Array.Copy(OnLattice(op, b), cg.B, op.LatticeLength);
+        cg.StartResidual();
+        var hNew = h.Select((v, u) => v + 5 + 3 * Math.Cos(u)).ToArray();
+        var bNew = b.Select((v, u) => v * (1 + 0.1 * Math.Sin(3 * u))).ToArray();
+        var map = network.NodeUnknown;
+        for (int n = 0; n < map.Length; n++) if (map[n] >= 0) cg.Update(n, network.DiagonalAt(n, hNew[map[n]]), bNew[map[n]]);
+        var ax = new double[x.Length];
+        network.Matrix(hNew).Multiply(x, ax);
+        var expected = bNew.Zip(ax, (p, q) => p - q).ToArray();
+        var (misfit, elsewhere) = Misfit(op, cg.R, expected);
+        double normB = Math.Sqrt(bNew.Sum(v => v * v));
+        Assert.InRange(misfit, 0, normB * 1e-12);
+        Assert.Equal(0, elsewhere);
+    }
+
+    // The multigrid built from the stencil (StructuredMultigrid.ForNodeStencil, one unknown per lattice node) holds the assembled
+    // matrix as its finest operator, with identity rows at the nodes without an unknown: 1e-12 relative (the same few products summed
+    // in another order). Its V-cycle is checked through CG against MathNet's dense solve in ThermalMultigridTests.
     [Theory]
     [InlineData(ThermalEdge.Insulated)]
     [InlineData(ThermalEdge.Ambient)]
@@ -59,10 +117,43 @@ public class ThermalOperatorTests
         var random = new Random(5);
         var r = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
         var expected = new double[r.Length];
-        var actual = new double[r.Length];
         a.Multiply(r, expected);
-        fromStencil.Operator.Multiply(r, actual);
+        int nodes = network.Lattice.NodeCount;
+        var actual = new double[op.LatticeLength];
+        fromStencil.Operator.Multiply(OnLattice(op, r).AsSpan(op.Pad, nodes), actual.AsSpan(op.Pad, nodes));
+        var (misfit, elsewhere) = Misfit(op, actual, expected);
+        Assert.InRange(misfit, 0, expected.Max(Math.Abs) * 1e-12);
+        Assert.Equal(0, elsewhere);
+    }
+
+    // Conjugate gradients' fused pass (ThermalOperator.MultiplyNextDirection: p = z + beta p, q = A p, p . q) against the two steps done
+    // apart with the assembled matrix: 1e-12 relative (the same few products summed in another order).
+    [Theory]
+    [InlineData(ThermalEdge.Insulated)]
+    [InlineData(ThermalEdge.Ambient)]
+    public void Next_direction_and_its_product_in_one_pass(ThermalEdge edges)
+    {
+        var network = Network(edges);
+        var random = new Random(7);
+        var op = new ThermalOperator(network);
+        var h = Enumerable.Range(0, network.Unknowns).Select(u => 20 + 30 * Math.Sin(u)).ToArray();
+        op.SetSurfaceCoefficients(h);
+        var z = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var p = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+        const double beta = 0.37;
+        var direction = z.Zip(p, (a, b) => a + beta * b).ToArray();
+        var expected = new double[direction.Length];
+        network.Matrix(h).Multiply(direction, expected);
+        var pOnLattice = OnLattice(op, p);
+        var q = new double[op.LatticeLength];
+        double dot = op.MultiplyNextDirection(OnLattice(op, z), beta, pOnLattice, q);
         double largest = expected.Max(Math.Abs);
-        for (int u = 0; u < r.Length; u++) Assert.Equal(expected[u], actual[u], largest * 1e-12);
+        var (misfit, elsewhere) = Misfit(op, q, expected);
+        Assert.InRange(misfit, 0, largest * 1e-12);
+        Assert.Equal(0, elsewhere);
+        var (directionMisfit, _) = Misfit(op, pOnLattice, direction);
+        Assert.InRange(directionMisfit, 0, 1e-15);
+        double expectedDot = direction.Zip(expected, (a, b) => a * b).Sum();
+        Assert.Equal(expectedDot, dot, Math.Abs(expectedDot) * 1e-12);
     }
 }

@@ -1,0 +1,150 @@
+using System.Runtime.CompilerServices;
+using SlotOpt.Numerics;
+
+namespace SlotOpt.Plates.Thermal;
+
+/// <summary>
+/// Preconditioned conjugate gradients (R. Barrett et al., "Templates for the Solution of Linear Systems", SIAM, 1994, section 2.3.1,
+/// Figure 2.5) for the <see cref="ThermalOperator"/> on the node lattice, with the multigrid through its public preconditioner
+/// (<see cref="IPreconditioner.Apply"/> on one unknown per node). The vectors live across the steps of the temperature solver's
+/// iteration, whose steps change only the diagonal and the right-hand side: the solution <see cref="X"/> and its residual
+/// <see cref="R"/> (= <see cref="B"/> - A X) stay, so a step starts warm from the last rise with the residual updated for the change
+/// (<see cref="Update"/>, one pass without the stencil) instead of recomputed. Operator and p . Ap share one pass, as do the updates
+/// of x and r and |r|. Stopping: the relative residual |r| / |b| at most the criterion's; with <c>confirm</c> the true residual is
+/// recomputed then and the iteration restarts from it when it misses (as <see cref="ConjugateGradient"/>); without, the recursive
+/// residual stands (a step that only points the way; the last step confirms). Not for concurrent solves.
+/// </summary>
+public sealed class ThermalConjugateGradient
+{
+    private readonly ThermalOperator _a;
+    private readonly int _pad;
+    private readonly double[] _diagonal, _x, _r, _b, _z, _p, _q;
+
+    public ThermalConjugateGradient(ThermalOperator a)
+    {
+        _a = a;
+        _pad = a.Pad;
+        _diagonal = a.DiagonalWPerK;
+        int length = a.LatticeLength;
+        _x = new double[length];
+        _r = new double[length];
+        _b = new double[length];
+        _z = new double[length];
+        _p = new double[length];
+        _q = new double[length];
+    }
+
+    /// <summary>The solution (the starting guess before a solve), on the padded lattice.</summary>
+    public double[] X => _x;
+    /// <summary>The right-hand side on the padded lattice (0 at nodes without an unknown).</summary>
+    public double[] B => _b;
+    /// <summary>The residual B - A X: set by <see cref="StartResidual"/>, kept by the solve and <see cref="Update"/>.</summary>
+    public double[] R => _r;
+
+    /// <summary>R = B - A X (one operator pass).</summary>
+    public void StartResidual() => _a.Residual(B, X, R);
+
+    /// <summary>Node p's diagonal and right-hand side change to the given values, and R follows: r += (b' - b) - (d' - d) x, exact
+    /// as far as rounding goes (the conduction, the rest of the row, did not move).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    public void Update(int node, double diagonal, double rightHandSide)
+    {
+        int q = _pad + node;
+        _r[q] += (rightHandSide - _b[q]) - (diagonal - _diagonal[node]) * _x[q];
+        _diagonal[node] = diagonal;
+        _b[q] = rightHandSide;
+    }
+
+    /// <summary>|R| and |B|.</summary>
+    public (double Residual, double RightHandSide) Norms()
+    {
+        double rr = 0, bb = 0;
+        for (int i = 0; i < R.Length; i++) { rr += R[i] * R[i]; bb += B[i] * B[i]; }
+        return (Math.Sqrt(rr), Math.Sqrt(bb));
+    }
+
+    /// <summary>Solves from X and R (R = B - A X on entry) until |R| &lt;= criterion |B|; see the type's summary for <paramref name="confirm"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public bool TrySolve(IPreconditioner m, ConvergenceCriterion criterion, bool confirm, out SolveReport report)
+    {
+        var (start, normB) = Norms();
+        var x = X; var r = R; var z = _z; var p = _p; var q = _q;
+        if (normB == 0)
+        {
+            Array.Clear(x);
+            Array.Clear(r);
+            report = new SolveReport(SolveStatus.Converged, 0, 0);
+            return true;
+        }
+        if (!double.IsFinite(normB) || !double.IsFinite(start)) { report = new SolveReport(SolveStatus.NonFinite, 0, double.NaN); return false; }
+        int pad = _a.Pad, nodes = _a.DiagonalWPerK.Length;
+        double target = criterion.RelativeResidual * normB;
+        double rn = start;
+        int iterations = 0;
+        while (true)
+        {
+            if (rn <= target)
+            {
+                if (!confirm) { report = new SolveReport(SolveStatus.Converged, iterations, rn / normB); return true; }
+                double trueNorm = Math.Sqrt(_a.Residual(B, x, r));
+                if (trueNorm <= target) { report = new SolveReport(SolveStatus.Converged, iterations, trueNorm / normB); return true; }
+                rn = trueNorm;
+            }
+            if (iterations >= criterion.MaxIterations)
+            {
+                report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(_a.Residual(B, x, r)) / normB);
+                return false;
+            }
+            // (re)start: p = z = M^-1 r
+            m.Apply(r.AsSpan(pad, nodes), z.AsSpan(pad, nodes));
+            Array.Copy(z, p, p.Length);
+            double rz = Dot(r, z);
+            double pq = _a.Multiply(p, q);
+            while (iterations < criterion.MaxIterations)
+            {
+                criterion.ThrowIfCancelled();
+                if (!double.IsFinite(pq) || !double.IsFinite(rz)) { report = new SolveReport(SolveStatus.NonFinite, iterations, rn / normB); return false; }
+                if (!(pq > 0)) { report = new SolveReport(SolveStatus.NotPositiveDefinite, iterations, rn / normB); return false; }
+                double alpha = rz / pq;
+                rn = Math.Sqrt(UpdateSolutionAndResidual(x, r, p, q, alpha));
+                iterations++;
+                if (!double.IsFinite(rn) || rn > criterion.DivergenceFactor * Math.Max(start, normB))
+                {
+                    report = new SolveReport(double.IsFinite(rn) ? SolveStatus.Diverged : SolveStatus.NonFinite, iterations, rn / normB);
+                    return false;
+                }
+                if (rn <= target) break;
+                m.Apply(r.AsSpan(pad, nodes), z.AsSpan(pad, nodes));
+                double rzNew = Dot(r, z);
+                double beta = rzNew / rz;
+                rz = rzNew;
+                pq = _a.MultiplyNextDirection(z, beta, p, q);
+            }
+        }
+    }
+
+    /// <summary>a . b in two interleaved partial sums (so the additions do not all wait on one another).</summary>
+    private static double Dot(double[] a, double[] b)
+    {
+        double s0 = 0, s1 = 0;
+        int i = 0;
+        for (; i + 1 < a.Length; i += 2) { s0 += a[i] * b[i]; s1 += a[i + 1] * b[i + 1]; }
+        if (i < a.Length) s0 += a[i] * b[i];
+        return s0 + s1;
+    }
+
+    /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static double UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha)
+    {
+        double s0 = 0, s1 = 0;
+        for (int i = 0; i < x.Length; i++)
+        {
+            x[i] += alpha * p[i];
+            double v = r[i] - alpha * q[i];
+            r[i] = v;
+            if ((i & 1) == 0) s0 += v * v; else s1 += v * v;
+        }
+        return s0 + s1;
+    }
+}
