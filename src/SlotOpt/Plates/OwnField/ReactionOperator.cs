@@ -57,7 +57,7 @@ public sealed partial class ReactionOperator
         return new ReactionOperator(model, kernel, convolution, spectrum);
     }
 
-    /// <summary>The smallest power of two at least 2 n (so at least 2 n - 1: linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
+    /// <summary>The smallest 2^k or 3 x 2^k at least 2 n (so at least 2 n - 1: linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
     public static int PaddedLength(int n) => PaddedConvolution.PaddedLength(n);
 
     /// <summary>y = R u (webers per ampere of psi times u): the flux of the layer u through each unknown's basis.</summary>
@@ -167,16 +167,5 @@ public sealed partial class ReactionOperator
         for (int j = 0, n = 0; j < iy; j++)
             for (int p = j * mx, end = p + ix; p < end; p++, n++)
                 if (map[n] is var k && k >= 0) y[k] += re[p];
-    }
-
-    /// <summary>DFT of the kernel placed with wrap-around at offsets |dx| &lt;= kx, |dy| &lt;= ky on the padded lattice (natural order, unscaled).</summary>
-    internal static Complex[] Spectrum(int mx, int my, int kx, int ky, Func<int, int, double> kernel)
-    {
-        var a = new Complex[mx * my];
-        for (int dy = -ky; dy <= ky; dy++)
-            for (int dx = -kx; dx <= kx; dx++)
-                a[((dy + my) % my) * mx + (dx + mx) % mx] = kernel(dx, dy);
-        new Fft2D(my, mx).Forward(a);
-        return a;
     }
 }
