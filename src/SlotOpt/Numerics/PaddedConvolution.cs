@@ -208,9 +208,12 @@ internal sealed class PaddedConvolution
         }
     }
 
+    /// <summary>A spectrum serves every convolution of the same input region and padded lattice (its layout depends on nothing else).</summary>
     private void Check(KernelSpectrum spectrum)
     {
-        if (!ReferenceEquals(spectrum.Owner, this)) throw new ArgumentException("the spectrum belongs to another convolution lattice", nameof(spectrum));
+        var o = spectrum.Owner;
+        if (!ReferenceEquals(o, this) && (o.Nx != Nx || o.Ny != Ny || o.PaddedX != PaddedX || o.PaddedY != PaddedY))
+            throw new ArgumentException("the spectrum belongs to another convolution lattice", nameof(spectrum));
     }
 
     /// <summary>body(from, to, worker) over [0, count) in Threads contiguous parts, at once when Threads &gt; 1.</summary>
