@@ -532,18 +532,27 @@ internal sealed class PaddedConvolution
         }
     }
 
-    /// <summary>Radix-2 decimation-in-frequency stages h, h/2, .., 1 down the rows [first, first + length) of one column strip.</summary>
+    /// <summary>
+    /// Radix-2 decimation-in-frequency stages h, h/2, .., 1 down the rows [first, first + length) of one column strip, two stages
+    /// a pass where two remain (the same butterflies on each element in the same order, so the same numbers, with half the loads and stores).
+    /// </summary>
     private void DifColumnStages(double[] re, double[] im, int c0, int width, int first, int length, int h)
     {
         int n = PaddedY, mx = PaddedX;
         var c = _colCos; var s = _colSin;
-        for (; h >= 1; h >>= 1)
+        for (; h >= 2; h >>= 2)
         {
-            int step = n / (2 * h);
+            int step = n / (2 * h), q = h / 2;
             for (int g = first; g < first + length; g += 2 * h)
-                for (int t = 0; t < h; t++)
-                    DifButterfly(re, im, (g + t) * mx + c0, (g + t + h) * mx + c0, width, c[t * step], -s[t * step]);
+                for (int t = 0; t < q; t++)
+                {
+                    int r0 = (g + t) * mx + c0, r1 = r0 + q * mx, r2 = r1 + q * mx, r3 = r2 + q * mx;
+                    DifButterflyPair(re, im, r0, r1, r2, r3, width, c[t * step], -s[t * step], c[(t + q) * step], -s[(t + q) * step], c[2 * t * step], -s[2 * t * step]);
+                }
         }
+        if (h == 1)
+            for (int g = first; g < first + length; g += 2)
+                DifButterfly(re, im, g * mx + c0, (g + 1) * mx + c0, width, c[0], -s[0]);
     }
 
     /// <summary>Inverse DFT (unscaled) along every column from the transform's row order to natural rows; the last stage computes only rows below <paramref name="needed"/> (&lt;= PaddedY/2).</summary>
@@ -573,12 +582,26 @@ internal sealed class PaddedConvolution
         }
     }
 
-    /// <summary>Radix-2 decimation-in-time stages 1, 2, .., below <paramref name="below"/> down the rows [first, first + length) of one column strip.</summary>
+    /// <summary>
+    /// Radix-2 decimation-in-time stages 1, 2, .., below <paramref name="below"/> down the rows [first, first + length) of one column
+    /// strip, two stages a pass where two remain (the mirror of <see cref="DifColumnStages"/>: the same numbers as one stage a pass).
+    /// </summary>
     private void DitColumnStages(double[] re, double[] im, int c0, int width, int first, int length, int below)
     {
         int n = PaddedY, mx = PaddedX;
         var c = _colCos; var s = _colSin;
-        for (int h = 1; h < below; h <<= 1)
+        int h = 1;
+        for (; 2 * h < below; h <<= 2)
+        {
+            int inner = n / (2 * h), outer = n / (4 * h);
+            for (int g = first; g < first + length; g += 4 * h)
+                for (int t = 0; t < h; t++)
+                {
+                    int r0 = (g + t) * mx + c0, r1 = r0 + h * mx, r2 = r1 + h * mx, r3 = r2 + h * mx;
+                    DitButterflyPair(re, im, r0, r1, r2, r3, width, c[t * inner], s[t * inner], c[t * outer], s[t * outer], c[(t + h) * outer], s[(t + h) * outer]);
+                }
+        }
+        if (h < below)
         {
             int step = n / (2 * h);
             for (int g = first; g < first + length; g += 2 * h)
@@ -666,6 +689,104 @@ internal sealed class PaddedConvolution
         {
             double ar = re[a + k], ai = im[a + k];
             re[b + k] = ar * wr - ai * wi; im[b + k] = ar * wi + ai * wr;
+        }
+    }
+
+    /// <summary>
+    /// Two decimation-in-frequency stages on rows r0..r3 (a quarter of the group apart): (r0, r2) with w1 and (r1, r3) with w2, then
+    /// (r0, r1) and (r2, r3) with w3, each pair as <see cref="DifButterfly"/>; SIMD across columns.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void DifButterflyPair(double[] re, double[] im, int r0, int r1, int r2, int r3, int width,
+        double w1r, double w1i, double w2r, double w2i, double w3r, double w3i)
+    {
+        int k = 0, v = Vector<double>.Count;
+        if (width >= v)
+        {
+            var a1r = new Vector<double>(w1r); var a1i = new Vector<double>(w1i);
+            var a2r = new Vector<double>(w2r); var a2i = new Vector<double>(w2i);
+            var a3r = new Vector<double>(w3r); var a3i = new Vector<double>(w3i);
+            for (; k <= width - v; k += v)
+            {
+                var x0r = new Vector<double>(re, r0 + k); var x0i = new Vector<double>(im, r0 + k);
+                var x1r = new Vector<double>(re, r1 + k); var x1i = new Vector<double>(im, r1 + k);
+                var x2r = new Vector<double>(re, r2 + k); var x2i = new Vector<double>(im, r2 + k);
+                var x3r = new Vector<double>(re, r3 + k); var x3i = new Vector<double>(im, r3 + k);
+                var dr = x0r - x2r; var di = x0i - x2i;
+                var y0r = x0r + x2r; var y0i = x0i + x2i;
+                var y2r = dr * a1r - di * a1i; var y2i = dr * a1i + di * a1r;
+                dr = x1r - x3r; di = x1i - x3i;
+                var y1r = x1r + x3r; var y1i = x1i + x3i;
+                var y3r = dr * a2r - di * a2i; var y3i = dr * a2i + di * a2r;
+                (y0r + y1r).CopyTo(re, r0 + k); (y0i + y1i).CopyTo(im, r0 + k);
+                dr = y0r - y1r; di = y0i - y1i;
+                (dr * a3r - di * a3i).CopyTo(re, r1 + k); (dr * a3i + di * a3r).CopyTo(im, r1 + k);
+                (y2r + y3r).CopyTo(re, r2 + k); (y2i + y3i).CopyTo(im, r2 + k);
+                dr = y2r - y3r; di = y2i - y3i;
+                (dr * a3r - di * a3i).CopyTo(re, r3 + k); (dr * a3i + di * a3r).CopyTo(im, r3 + k);
+            }
+        }
+        for (; k < width; k++)
+        {
+            double x0r = re[r0 + k], x0i = im[r0 + k], x1r = re[r1 + k], x1i = im[r1 + k];
+            double x2r = re[r2 + k], x2i = im[r2 + k], x3r = re[r3 + k], x3i = im[r3 + k];
+            double dr = x0r - x2r, di = x0i - x2i;
+            double y0r = x0r + x2r, y0i = x0i + x2i, y2r = dr * w1r - di * w1i, y2i = dr * w1i + di * w1r;
+            dr = x1r - x3r; di = x1i - x3i;
+            double y1r = x1r + x3r, y1i = x1i + x3i, y3r = dr * w2r - di * w2i, y3i = dr * w2i + di * w2r;
+            re[r0 + k] = y0r + y1r; im[r0 + k] = y0i + y1i;
+            dr = y0r - y1r; di = y0i - y1i;
+            re[r1 + k] = dr * w3r - di * w3i; im[r1 + k] = dr * w3i + di * w3r;
+            re[r2 + k] = y2r + y3r; im[r2 + k] = y2i + y3i;
+            dr = y2r - y3r; di = y2i - y3i;
+            re[r3 + k] = dr * w3r - di * w3i; im[r3 + k] = dr * w3i + di * w3r;
+        }
+    }
+
+    /// <summary>
+    /// Two decimation-in-time stages on rows r0..r3 (a quarter of the group apart): (r0, r1) and (r2, r3) with w1, then (r0, r2) with
+    /// w2 and (r1, r3) with w3, each pair as <see cref="DitButterfly"/>; SIMD across columns.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void DitButterflyPair(double[] re, double[] im, int r0, int r1, int r2, int r3, int width,
+        double w1r, double w1i, double w2r, double w2i, double w3r, double w3i)
+    {
+        int k = 0, v = Vector<double>.Count;
+        if (width >= v)
+        {
+            var a1r = new Vector<double>(w1r); var a1i = new Vector<double>(w1i);
+            var a2r = new Vector<double>(w2r); var a2i = new Vector<double>(w2i);
+            var a3r = new Vector<double>(w3r); var a3i = new Vector<double>(w3i);
+            for (; k <= width - v; k += v)
+            {
+                var x0r = new Vector<double>(re, r0 + k); var x0i = new Vector<double>(im, r0 + k);
+                var x1r = new Vector<double>(re, r1 + k); var x1i = new Vector<double>(im, r1 + k);
+                var x2r = new Vector<double>(re, r2 + k); var x2i = new Vector<double>(im, r2 + k);
+                var x3r = new Vector<double>(re, r3 + k); var x3i = new Vector<double>(im, r3 + k);
+                var tr = x1r * a1r - x1i * a1i; var ti = x1r * a1i + x1i * a1r;
+                var y0r = x0r + tr; var y0i = x0i + ti; var y1r = x0r - tr; var y1i = x0i - ti;
+                tr = x3r * a1r - x3i * a1i; ti = x3r * a1i + x3i * a1r;
+                var y2r = x2r + tr; var y2i = x2i + ti; var y3r = x2r - tr; var y3i = x2i - ti;
+                tr = y2r * a2r - y2i * a2i; ti = y2r * a2i + y2i * a2r;
+                (y0r + tr).CopyTo(re, r0 + k); (y0i + ti).CopyTo(im, r0 + k);
+                (y0r - tr).CopyTo(re, r2 + k); (y0i - ti).CopyTo(im, r2 + k);
+                tr = y3r * a3r - y3i * a3i; ti = y3r * a3i + y3i * a3r;
+                (y1r + tr).CopyTo(re, r1 + k); (y1i + ti).CopyTo(im, r1 + k);
+                (y1r - tr).CopyTo(re, r3 + k); (y1i - ti).CopyTo(im, r3 + k);
+            }
+        }
+        for (; k < width; k++)
+        {
+            double x0r = re[r0 + k], x0i = im[r0 + k], x1r = re[r1 + k], x1i = im[r1 + k];
+            double x2r = re[r2 + k], x2i = im[r2 + k], x3r = re[r3 + k], x3i = im[r3 + k];
+            double tr = x1r * w1r - x1i * w1i, ti = x1r * w1i + x1i * w1r;
+            double y1r = x0r - tr, y1i = x0i - ti, y0r = x0r + tr, y0i = x0i + ti;
+            tr = x3r * w1r - x3i * w1i; ti = x3r * w1i + x3i * w1r;
+            double y3r = x2r - tr, y3i = x2i - ti, y2r = x2r + tr, y2i = x2i + ti;
+            tr = y2r * w2r - y2i * w2i; ti = y2r * w2i + y2i * w2r;
+            re[r2 + k] = y0r - tr; im[r2 + k] = y0i - ti; re[r0 + k] = y0r + tr; im[r0 + k] = y0i + ti;
+            tr = y3r * w3r - y3i * w3i; ti = y3r * w3i + y3i * w3r;
+            re[r3 + k] = y1r - tr; im[r3 + k] = y1i - ti; re[r1 + k] = y1r + tr; im[r1 + k] = y1i + ti;
         }
     }
 
