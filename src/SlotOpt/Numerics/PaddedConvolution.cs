@@ -5,32 +5,40 @@ namespace SlotOpt.Numerics;
 
 /// <summary>
 /// Linear 2-D convolution of a field on an Nx x Ny lattice with a kernel of offsets |dx| &lt; Nx, |dy| &lt; Ny, by
-/// radix-2 FFT on a lattice zero-padded to PaddedX x PaddedY (powers of two at least 2 N, so the circular
+/// FFT on a lattice zero-padded to PaddedX x PaddedY (each the smallest 2^k or 3 x 2^k at least 2 N, so the circular
 /// convolution there is the linear one). The field sits in <see cref="Re"/> (and <see cref="Im"/> for a complex
 /// field), row-major with row stride PaddedX, in rows 0..Ny-1 and columns 0..Nx-1; write that whole region before
 /// each convolution (the rest is never read), read the result from the same region.
 /// <para>
-/// Work saved against a plain 2-D FFT, all exact: the padding is never transformed (the first butterfly stage of
-/// the forward transform sees zeros in its upper half, the last stage of the inverse computes only the rows and
-/// columns read back); rows are transformed in natural order, columns (a butterfly over whole row segments, SIMD
-/// across columns, in cache-sized column strips) without the bit-reversal permutation: forward by decimation in
-/// frequency (natural in, bit-reversed out), inverse by decimation in time (bit-reversed in, natural out), with the
-/// kernel's spectrum stored in the same order (J. W. Cooley, J. W. Tukey, Math. Comp. 19 (1965) 297-301; the
-/// DIF/DIT pair without reordering: E. O. Brigham, "The Fast Fourier Transform and its Applications", 1988, ch. 11).
-/// A real field (<see cref="ConvolveReal"/>) transforms its rows two at a time as one complex row
-/// z = x_a + i x_b and splits them by X_a[k] = (Z[k] + conj Z[-k]) / 2, X_b[k] = (Z[k] - conj Z[-k]) / 2i,
-/// then transforms only the PaddedX/2 + 1 columns of the Hermitian half (W. H. Press et al., "Numerical Recipes",
-/// 3rd ed., 2007, section 12.3): about half the work of a complex field.
+/// A length N = f m (f = 1 or 3, m a power of two) is transformed without reordering: forward by decimation in frequency
+/// (natural in, scrambled out: for f = 3 a radix-3 stage across the thirds of the sequence, then radix-2 stages within each
+/// third), inverse by decimation in time (scrambled in, natural out), its exact mirror (J. W. Cooley, J. W. Tukey, Math. Comp.
+/// 19 (1965) 297-301; mixed radices: R. C. Singleton, IEEE Trans. Audio Electroacoust. 17 (1969) 93-103; the DIF/DIT pair
+/// without reordering: E. O. Brigham, "The Fast Fourier Transform and its Applications", 1988, ch. 11). Frequency f k + r
+/// sits at position r m + bitreverse_m(k). Work saved against a plain 2-D FFT, all exact: the padding is never transformed
+/// (zero inputs skip or shorten the first stage, the last inverse stage computes only the rows and columns read back); a
+/// 3 x 2^k length where a power of two would be 4/3 as long (the padded area falls by up to 44 %); rows are transformed
+/// with SIMD along the row, columns as butterflies over whole row segments (SIMD across columns, in cache-sized column strips).
+/// A real field (<see cref="ConvolveReal"/>) transforms its rows two at a time as one complex row z = x_a + i x_b and splits
+/// them by X_a[k] = (Z[k] + conj Z[-k]) / 2, X_b[k] = (Z[k] - conj Z[-k]) / 2i, then transforms only the PaddedX/2 + 1
+/// columns of the Hermitian half (W. H. Press et al., "Numerical Recipes", 3rd ed., 2007, section 12.3): about half the work
+/// of a complex field. Spectra keep their columns in natural order and their rows in the transform's order.
 /// </para>
 /// Buffers are allocated once; a convolution allocates only its workers' delegates. Not thread-safe: one per thread
 /// (its own workers, <see cref="Threads"/>, are its business).
 /// </summary>
 internal sealed class PaddedConvolution
 {
-    private readonly double[] _colCos, _colSin;       // e^{-2 pi i t / N} = cos - i sin, t < N/2 (N = PaddedY)
-    private readonly double[] _stageCos, _stageSin;   // rows, stage h at [h, 2h): e^{-2 pi i t / 2h} = cos - i sin, t < h
-    private readonly int[] _rowReverse;
-    private readonly double[][] _lineRe, _lineIm;   // one row buffer per worker
+    private const double HalfRootThree = 0.86602540378443864676;       // sin(2 pi / 3)
+
+    private readonly int _factorX, _blockX, _factorY, _blockY;       // padded length = factor x block, factor 1 or 3, block a power of two
+    private readonly double[] _colCos, _colSin;       // e^{-2 pi i t / N} = cos - i sin, t < N (N = PaddedY)
+    private readonly double[] _stageCos, _stageSin;   // rows, radix-2 stage h at [h, 2h): e^{-2 pi i t / 2h} = cos - i sin, t < h
+    private readonly double[] _thirdCos, _thirdSin;   // rows, radix-3 stage: e^{-2 pi i r t / N} at (r - 1) m + t, r = 1, 2, t < m
+    private readonly int[] _rowPosition;              // natural frequency -> its position in a row transform
+    private readonly int[] _rowFrequency;             // position in a row transform -> natural frequency
+    private readonly int[] _colFrequency;             // row of a spectrum -> natural frequency
+    private readonly double[][] _lineRe, _lineIm;     // one row buffer per worker
     private readonly int _strip;
 
     public int Nx { get; }
@@ -41,7 +49,8 @@ internal sealed class PaddedConvolution
     public double[] Im { get; }
     /// <summary>Workers the transforms split their rows and column strips over (1: the calling thread only). Results do not depend on it: every row and column is transformed by the same operations whichever worker takes it.</summary>
     public int Threads { get; }
-    public long Bytes => 8L * (Re.Length + Im.Length + 2L * Threads * PaddedX + _stageCos.Length + _stageSin.Length + _colCos.Length + _colSin.Length) + 4L * _rowReverse.Length;
+    public long Bytes => 8L * (Re.Length + Im.Length + 2L * Threads * PaddedX + _stageCos.Length + _stageSin.Length + _thirdCos.Length + _thirdSin.Length
+        + _colCos.Length + _colSin.Length) + 4L * (_rowPosition.Length + _rowFrequency.Length + _colFrequency.Length);
 
     public PaddedConvolution(int nx, int ny, int threads = 1)
     {
@@ -50,11 +59,17 @@ internal sealed class PaddedConvolution
         Nx = nx; Ny = ny; Threads = threads;
         PaddedX = PaddedLength(nx);
         PaddedY = PaddedLength(ny);
+        (_factorX, _blockX) = Factor(PaddedX);
+        (_factorY, _blockY) = Factor(PaddedY);
         Re = new double[PaddedX * PaddedY];
         Im = new double[PaddedX * PaddedY];
-        (_stageCos, _stageSin) = StageTwiddles(PaddedX);
+        (_stageCos, _stageSin) = StageTwiddles(_blockX);
+        (_thirdCos, _thirdSin) = ThirdTwiddles(PaddedX, _factorX == 3 ? _blockX : 0);
         (_colCos, _colSin) = Twiddles(PaddedY);
-        _rowReverse = BitReversal(PaddedX);
+        _rowFrequency = Frequencies(_factorX, _blockX);
+        _rowPosition = new int[PaddedX];
+        for (int s = 0; s < PaddedX; s++) _rowPosition[_rowFrequency[s]] = s;
+        _colFrequency = Frequencies(_factorY, _blockY);
         _lineRe = Enumerable.Range(0, threads).Select(_ => new double[PaddedX]).ToArray();
         _lineIm = Enumerable.Range(0, threads).Select(_ => new double[PaddedX]).ToArray();
         // a column strip of both arrays over all rows in about 128 kB (level-2 cache), whole SIMD vectors wide
@@ -62,17 +77,21 @@ internal sealed class PaddedConvolution
         _strip = Math.Min(width, PaddedX);
     }
 
-    /// <summary>The smallest power of two at least 2 n (so at least 2 n - 1 for the linear convolution, and at least 2).</summary>
+    /// <summary>The smallest 2^k or 3 x 2^k at least 2 n (so at least 2 n - 1 for the linear convolution, and at least 2).</summary>
     public static int PaddedLength(int n)
     {
-        int m = 2;
-        while (m < 2 * n) m <<= 1;
-        return m;
+        int power = 2, three = 3;
+        while (power < 2 * n) power <<= 1;
+        while (three < 2 * n) three <<= 1;
+        return Math.Min(power, three);
     }
+
+    /// <summary>(f, m) with n = f m, f = 1 for a power of two and 3 otherwise.</summary>
+    private static (int Factor, int Block) Factor(int n) => (n & (n - 1)) == 0 ? (1, n) : (3, n / 3);
 
     /// <summary>
     /// The kernel k(dx, dy), |dx| &lt;= kx &lt; Nx, |dy| &lt;= ky &lt; Ny, as the spectrum this convolution multiplies by (its
-    /// DFT on the padded lattice in the column order of the transforms, scaled by 1 / (PaddedX PaddedY) for the inverse).
+    /// DFT on the padded lattice in the row order of the transforms, scaled by 1 / (PaddedX PaddedY) for the inverse).
     /// </summary>
     public KernelSpectrum Spectrum(int kx, int ky, Func<int, int, double> kernel)
     {
@@ -83,7 +102,11 @@ internal sealed class PaddedConvolution
         for (int dy = -ky; dy <= ky; dy++)
             for (int dx = -kx; dx <= kx; dx++)
                 re[((dy + my) % my) * mx + (dx + mx) % mx] = kernel(dx, dy);
-        for (int j = 0; j < my; j++) ForwardRow(re, im, j * mx, mx);
+        for (int j = 0; j < my; j++)
+        {
+            ForwardRow(re, im, j * mx, mx);
+            RowToNatural(re, im, j * mx, 0);
+        }
         ForwardColumns(re, im, mx, my);
         double scale = 1.0 / ((double)mx * my);
         for (int i = 0; i < re.Length; i++) { re[i] *= scale; im[i] *= scale; }
@@ -91,27 +114,37 @@ internal sealed class PaddedConvolution
     }
 
     /// <summary>Row-major frequency index (q * PaddedX + p, natural order) of each stored spectrum entry.</summary>
-    public int FrequencyIndex(int stored)
-    {
-        int row = stored / PaddedX, p = stored % PaddedX;
-        return ReverseBits(row, PaddedY) * PaddedX + p;
-    }
+    public int FrequencyIndex(int stored) => _colFrequency[stored / PaddedX] * PaddedX + stored % PaddedX;
 
     /// <summary>Re + i Im := kernel * (Re + i Im) on the input region.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void ConvolveComplex(KernelSpectrum spectrum)
     {
         Check(spectrum);
-        int mx = PaddedX, my = PaddedY;
-        Split(Ny, (from, to, _) => { for (int j = from; j < to; j++) ForwardRow(Re, Im, j * mx, Nx); });
+        TransformComplex();
+        Multiply(spectrum, PaddedX);
+        InverseTransformComplex();
+    }
+
+    /// <summary>
+    /// Re + i Im := the DFT of the field on the input region (the whole padded lattice, rows in the transforms' order, as a
+    /// <see cref="KernelSpectrum"/>), so that sums of products with spectra can be formed before <see cref="InverseTransformComplex"/>.
+    /// </summary>
+    public void TransformComplex()
+    {
+        int mx = PaddedX;
+        Split(Ny, (from, to, worker) => { for (int j = from; j < to; j++) { ForwardRow(Re, Im, j * mx, Nx); RowToNatural(Re, Im, j * mx, worker); } });
         ForwardColumns(Re, Im, mx, Ny);
-        Multiply(spectrum, mx);
+    }
+
+    /// <summary>Re + i Im := the unscaled inverse DFT of the whole padded lattice (as <see cref="TransformComplex"/> leaves it), computed on the input region only.</summary>
+    public void InverseTransformComplex()
+    {
+        int mx = PaddedX;
         InverseColumns(Re, Im, mx, Ny);
-        Split(Ny, (from, to, _) => { for (int j = from; j < to; j++) InverseRow(Re, Im, j * mx, Nx); });
+        Split(Ny, (from, to, worker) => { for (int j = from; j < to; j++) { RowFromNatural(Re, Im, j * mx, worker); InverseRow(Re, Im, j * mx, Nx); } });
     }
 
     /// <summary>Re := kernel * Re on the input region, for a real field and a real kernel (Im is scratch).</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void ConvolveReal(KernelSpectrum spectrum)
     {
         Check(spectrum);
@@ -127,6 +160,7 @@ internal sealed class PaddedConvolution
     private void ForwardRowPairs(int from, int to, double[] lr, double[] li)
     {
         int mx = PaddedX, columns = mx / 2 + 1;
+        var at = _rowPosition;
         for (int a = 2 * from; a < 2 * to; a += 2)
         {
             int b = a + 1;
@@ -134,11 +168,11 @@ internal sealed class PaddedConvolution
             Array.Copy(Re, a * mx, lr, 0, Nx);
             if (pair) Array.Copy(Re, b * mx, li, 0, Nx); else Array.Clear(li, 0, Nx);
             ForwardRow(lr, li, 0, Nx);
-            // X_a[k] = (Z[k] + conj Z[-k]) / 2, X_b[k] = (Z[k] - conj Z[-k]) / 2i
+            // X_a[k] = (Z[k] + conj Z[-k]) / 2, X_b[k] = (Z[k] - conj Z[-k]) / 2i (Z in the transform's order)
             for (int k = 0; k < columns; k++)
             {
-                int minus = (mx - k) & (mx - 1);
-                double zr = lr[k], zi = li[k], wr = lr[minus], wi = li[minus];
+                int plus = at[k], minus = at[k == 0 ? 0 : mx - k];
+                double zr = lr[plus], zi = li[plus], wr = lr[minus], wi = li[minus];
                 Re[a * mx + k] = 0.5 * (zr + wr);
                 Im[a * mx + k] = 0.5 * (zi - wi);
                 if (pair)
@@ -154,17 +188,19 @@ internal sealed class PaddedConvolution
     private void InverseRowPairs(int from, int to, double[] lr, double[] li)
     {
         int mx = PaddedX, half = mx / 2, columns = half + 1;
+        var at = _rowPosition;
         for (int a = 2 * from; a < 2 * to; a += 2)
         {
             int b = a + 1;
             bool pair = b < Ny;
-            // Z[k] = X_a[k] + i X_b[k], with X[-k] = conj X[k] for the upper half
+            // Z[k] = X_a[k] + i X_b[k], with X[-k] = conj X[k] for the upper half, put in the transform's order
             for (int k = 0; k < columns; k++)
             {
                 double ar = Re[a * mx + k], ai = Im[a * mx + k];
                 double br = pair ? Re[b * mx + k] : 0, bi = pair ? Im[b * mx + k] : 0;
-                lr[k] = ar - bi; li[k] = ai + br;
-                if (k > 0 && k < half) { lr[mx - k] = ar + bi; li[mx - k] = br - ai; }
+                int plus = at[k];
+                lr[plus] = ar - bi; li[plus] = ai + br;
+                if (k > 0 && k < half) { int minus = at[mx - k]; lr[minus] = ar + bi; li[minus] = br - ai; }
             }
             InverseRow(lr, li, 0, Nx);
             Array.Copy(lr, 0, Re, a * mx, Nx);
@@ -172,9 +208,12 @@ internal sealed class PaddedConvolution
         }
     }
 
+    /// <summary>A spectrum serves every convolution of the same input region and padded lattice (its layout depends on nothing else).</summary>
     private void Check(KernelSpectrum spectrum)
     {
-        if (!ReferenceEquals(spectrum.Owner, this)) throw new ArgumentException("the spectrum belongs to another convolution lattice", nameof(spectrum));
+        var o = spectrum.Owner;
+        if (!ReferenceEquals(o, this) && (o.Nx != Nx || o.Ny != Ny || o.PaddedX != PaddedX || o.PaddedY != PaddedY))
+            throw new ArgumentException("the spectrum belongs to another convolution lattice", nameof(spectrum));
     }
 
     /// <summary>body(from, to, worker) over [0, count) in Threads contiguous parts, at once when Threads &gt; 1.</summary>
@@ -188,6 +227,7 @@ internal sealed class PaddedConvolution
     private void Multiply(KernelSpectrum spectrum, int columns) =>
         Split(PaddedY, (from, to, _) => MultiplyRows(spectrum, columns, from, to));
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void MultiplyRows(KernelSpectrum spectrum, int columns, int from, int to)
     {
         int mx = PaddedX;
@@ -212,12 +252,19 @@ internal sealed class PaddedConvolution
         }
     }
 
-    /// <summary>Forward DFT of the row at re/im[o .. o + PaddedX) in natural order; entries from <paramref name="nonzero"/> on are taken as zero (nonzero &lt;= N/2 or = N).</summary>
+    /// <summary>Forward DFT of the row at re/im[o .. o + PaddedX), natural in, the transform's order out; entries from <paramref name="nonzero"/> on are taken as zero (nonzero &lt;= N/2 or = N).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ForwardRow(double[] re, double[] im, int o, int nonzero)
     {
-        int n = PaddedX;
+        int n = PaddedX, m = _blockX;
         var c = _stageCos; var s = _stageSin;
+        if (_factorX == 3)
+        {
+            if (nonzero < n) { Array.Clear(re, o + nonzero, n - nonzero); Array.Clear(im, o + nonzero, n - nonzero); }
+            ForwardThirdsRow(re, im, o, m);
+            for (int block = o; block < o + n; block += m) DifRowStages(re, im, block, m, m / 2, c, s);
+            return;
+        }
         int h = n / 2;
         if (nonzero <= h)
         {
@@ -227,30 +274,140 @@ internal sealed class PaddedConvolution
             Array.Clear(re, o + h + nonzero, h - nonzero); Array.Clear(im, o + h + nonzero, h - nonzero);
             h >>= 1;
         }
-        for (; h >= 1; h >>= 1)
-            for (int g = o; g < o + n; g += 2 * h) DifRowButterflies(re, im, g, g + h, h, c, s);
-        Permute(re, im, o);
+        DifRowStages(re, im, o, n, h, c, s);
     }
 
-    /// <summary>Inverse DFT (unscaled) of the row at re/im[o ..) in natural order; only entries below <paramref name="needed"/> (&lt;= N/2) are computed in the last stage.</summary>
+    /// <summary>Inverse DFT (unscaled) of the row at re/im[o ..), the transform's order in, natural out; only entries below <paramref name="needed"/> (&lt;= N/2) are computed in the last stage.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void InverseRow(double[] re, double[] im, int o, int needed)
     {
-        int n = PaddedX, last = n / 2;
+        int n = PaddedX, m = _blockX;
         var c = _stageCos; var s = _stageSin;
-        Permute(re, im, o);
-        for (int h = 1; h < last; h <<= 1)
-            for (int g = o; g < o + n; g += 2 * h) DitRowButterflies(re, im, g, g + h, h, c, s);
+        if (_factorX == 3)
+        {
+            for (int block = o; block < o + n; block += m) DitRowStages(re, im, block, m, m, c, s);
+            InverseThirdsRow(re, im, o, m, needed);
+            return;
+        }
+        int last = n / 2;
+        DitRowStages(re, im, o, n, last, c, s);
         DitRowHalf(re, im, o, o + last, Math.Min(needed, last), c, s, last);
     }
 
-    private void Permute(double[] re, double[] im, int o)
+    /// <summary>Radix-2 decimation-in-frequency stages h, h/2, .., 1 over the sequence at [o, o + length).</summary>
+    private static void DifRowStages(double[] re, double[] im, int o, int length, int h, double[] c, double[] s)
     {
-        var rev = _rowReverse;
-        for (int i = 0; i < rev.Length; i++)
+        for (; h >= 1; h >>= 1)
+            for (int g = o; g < o + length; g += 2 * h) DifRowButterflies(re, im, g, g + h, h, c, s);
+    }
+
+    /// <summary>Radix-2 decimation-in-time stages 1, 2, .., below <paramref name="below"/> over the sequence at [o, o + length).</summary>
+    private static void DitRowStages(double[] re, double[] im, int o, int length, int below, double[] c, double[] s)
+    {
+        for (int h = 1; h < below; h <<= 1)
+            for (int g = o; g < o + length; g += 2 * h) DitRowButterflies(re, im, g, g + h, h, c, s);
+    }
+
+    /// <summary>The row at o from the transform's order to natural order (the worker's line buffer as scratch).</summary>
+    private void RowToNatural(double[] re, double[] im, int o, int worker)
+    {
+        var sr = _lineRe[worker]; var si = _lineIm[worker];
+        Array.Copy(re, o, sr, 0, PaddedX); Array.Copy(im, o, si, 0, PaddedX);
+        var frequency = _rowFrequency;
+        for (int p = 0; p < frequency.Length; p++) { re[o + frequency[p]] = sr[p]; im[o + frequency[p]] = si[p]; }
+    }
+
+    /// <summary>The row at o from natural order to the transform's order (the worker's line buffer as scratch).</summary>
+    private void RowFromNatural(double[] re, double[] im, int o, int worker)
+    {
+        var sr = _lineRe[worker]; var si = _lineIm[worker];
+        Array.Copy(re, o, sr, 0, PaddedX); Array.Copy(im, o, si, 0, PaddedX);
+        var frequency = _rowFrequency;
+        for (int p = 0; p < frequency.Length; p++) { re[o + p] = sr[frequency[p]]; im[o + p] = si[frequency[p]]; }
+    }
+
+    /// <summary>
+    /// The forward radix-3 stage over the thirds of the row at o (third m long): y_r = sum_j x[t + j m] e^{-2 pi i j r / 3}, stored
+    /// times e^{-2 pi i r t / N} at t + r m, so each third's length-m DFT gives X[3 k + r]; SIMD along the row.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private void ForwardThirdsRow(double[] re, double[] im, int o, int m)
+    {
+        var c = _thirdCos; var s = _thirdSin;
+        int t = 0, v = Vector<double>.Count;
+        if (m >= v)
         {
-            int j = rev[i];
-            if (j > i) { (re[o + i], re[o + j]) = (re[o + j], re[o + i]); (im[o + i], im[o + j]) = (im[o + j], im[o + i]); }
+            var half = new Vector<double>(0.5); var root = new Vector<double>(HalfRootThree);
+            for (; t <= m - v; t += v)
+            {
+                int a = o + t, b = a + m, d = b + m;
+                var ar = new Vector<double>(re, a); var ai = new Vector<double>(im, a);
+                var sr = new Vector<double>(re, b) + new Vector<double>(re, d); var si = new Vector<double>(im, b) + new Vector<double>(im, d);
+                var dr = root * (new Vector<double>(re, b) - new Vector<double>(re, d)); var di = root * (new Vector<double>(im, b) - new Vector<double>(im, d));
+                var tr = ar - half * sr; var ti = ai - half * si;
+                (ar + sr).CopyTo(re, a); (ai + si).CopyTo(im, a);
+                var yr = tr + di; var yi = ti - dr;                      // y1 = t - i (sqrt 3 / 2)(b - c)
+                var wr = new Vector<double>(c, t); var wi = -new Vector<double>(s, t);
+                (yr * wr - yi * wi).CopyTo(re, b); (yr * wi + yi * wr).CopyTo(im, b);
+                yr = tr - di; yi = ti + dr;                              // y2 = t + i (sqrt 3 / 2)(b - c)
+                wr = new Vector<double>(c, m + t); wi = -new Vector<double>(s, m + t);
+                (yr * wr - yi * wi).CopyTo(re, d); (yr * wi + yi * wr).CopyTo(im, d);
+            }
+        }
+        for (; t < m; t++)
+        {
+            int a = o + t, b = a + m, d = b + m;
+            double ar = re[a], ai = im[a];
+            double sr = re[b] + re[d], si = im[b] + im[d], dr = HalfRootThree * (re[b] - re[d]), di = HalfRootThree * (im[b] - im[d]);
+            double tr = ar - 0.5 * sr, ti = ai - 0.5 * si;
+            re[a] = ar + sr; im[a] = ai + si;
+            double yr = tr + di, yi = ti - dr, wr = c[t], wi = -s[t];
+            re[b] = yr * wr - yi * wi; im[b] = yr * wi + yi * wr;
+            yr = tr - di; yi = ti + dr; wr = c[m + t]; wi = -s[m + t];
+            re[d] = yr * wr - yi * wi; im[d] = yr * wi + yi * wr;
+        }
+    }
+
+    /// <summary>
+    /// The inverse radix-3 stage, the mirror of <see cref="ForwardThirdsRow"/>: with b' = Y_1[t] e^{2 pi i t / N}, c' = Y_2[t] e^{4 pi i t / N},
+    /// x[t + j m] = Y_0[t] + b' e^{2 pi i j / 3} + c' e^{4 pi i j / 3}, computed only below <paramref name="needed"/>.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private void InverseThirdsRow(double[] re, double[] im, int o, int m, int needed)
+    {
+        var c = _thirdCos; var s = _thirdSin;
+        int count = Math.Min(m, needed), t = 0, v = Vector<double>.Count;
+        var half = new Vector<double>(0.5); var root = new Vector<double>(HalfRootThree);
+        for (; t <= count - v; t += v)
+        {
+            int a = o + t, b = a + m, d = b + m;
+            var xr = new Vector<double>(re, b); var xi = new Vector<double>(im, b);
+            var wr = new Vector<double>(c, t); var wi = new Vector<double>(s, t);
+            var br = xr * wr - xi * wi; var bi = xr * wi + xi * wr;
+            xr = new Vector<double>(re, d); xi = new Vector<double>(im, d);
+            wr = new Vector<double>(c, m + t); wi = new Vector<double>(s, m + t);
+            var cr = xr * wr - xi * wi; var ci = xr * wi + xi * wr;
+            var ar = new Vector<double>(re, a); var ai = new Vector<double>(im, a);
+            var sr = br + cr; var si = bi + ci; var dr = root * (br - cr); var di = root * (bi - ci);
+            var tr = ar - half * sr; var ti = ai - half * si;
+            (ar + sr).CopyTo(re, a); (ai + si).CopyTo(im, a);
+            if (t + v + m <= needed) { (tr - di).CopyTo(re, b); (ti + dr).CopyTo(im, b); }
+            else
+                for (int k = 0; k < v && t + k + m < needed; k++) { re[b + k] = tr[k] - di[k]; im[b + k] = ti[k] + dr[k]; }
+            if (t + 2 * m < needed)
+                for (int k = 0; k < v && t + k + 2 * m < needed; k++) { re[d + k] = tr[k] + di[k]; im[d + k] = ti[k] - dr[k]; }
+        }
+        for (; t < count; t++)
+        {
+            int a = o + t, b = a + m, d = b + m;
+            double br = re[b] * c[t] - im[b] * s[t], bi = re[b] * s[t] + im[b] * c[t];
+            double cr = re[d] * c[m + t] - im[d] * s[m + t], ci = re[d] * s[m + t] + im[d] * c[m + t];
+            double ar = re[a], ai = im[a];
+            double sr = br + cr, si = bi + ci, dr = HalfRootThree * (br - cr), di = HalfRootThree * (bi - ci);
+            double tr = ar - 0.5 * sr, ti = ai - 0.5 * si;
+            re[a] = ar + sr; im[a] = ai + si;
+            if (t + m < needed) { re[b] = tr - di; im[b] = ti + dr; }      // x[t + m] = t + i (sqrt 3 / 2)(b' - c')
+            if (t + 2 * m < needed) { re[d] = tr + di; im[d] = ti - dr; }  // x[t + 2m] = t - i (sqrt 3 / 2)(b' - c')
         }
     }
 
@@ -334,19 +491,32 @@ internal sealed class PaddedConvolution
 
     /// <summary>
     /// Forward DFT along every column (first <paramref name="columns"/> of each row), decimation in frequency, output rows
-    /// in bit-reversed order; rows from <paramref name="nonzero"/> on are taken as zero (nonzero &lt;= PaddedY/2 or = PaddedY).
+    /// in the transform's order; rows from <paramref name="nonzero"/> on are taken as zero (nonzero &lt;= PaddedY/2 or = PaddedY).
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ForwardColumns(double[] re, double[] im, int columns, int nonzero) =>
         Split((columns + _strip - 1) / _strip, (from, to, _) => ForwardColumnStrips(re, im, columns, nonzero, from, to));
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ForwardColumnStrips(double[] re, double[] im, int columns, int nonzero, int fromStrip, int toStrip)
     {
-        int n = PaddedY, mx = PaddedX;
+        int n = PaddedY, mx = PaddedX, m = _blockY;
         var c = _colCos; var s = _colSin;
         for (int c0 = fromStrip * _strip; c0 < Math.Min(columns, toStrip * _strip); c0 += _strip)
         {
             int width = Math.Min(_strip, columns - c0);
+            if (_factorY == 3)
+            {
+                for (int t = 0; t < m; t++)
+                {
+                    int a = t * mx + c0, b = (t + m) * mx + c0, d = (t + 2 * m) * mx + c0;
+                    if (t + m >= nonzero) { Array.Clear(re, b, width); Array.Clear(im, b, width); }
+                    if (t + 2 * m >= nonzero) { Array.Clear(re, d, width); Array.Clear(im, d, width); }
+                    if (t >= nonzero) { Array.Clear(re, a, width); Array.Clear(im, a, width); }
+                    ForwardThirdsSegment(re, im, a, b, d, width, c[t], -s[t], c[2 * t], -s[2 * t]);
+                }
+                for (int block = 0; block < n; block += m) DifColumnStages(re, im, c0, width, block, m, m / 2);
+                continue;
+            }
             int h = n / 2;
             if (nonzero <= h)
             {
@@ -358,37 +528,157 @@ internal sealed class PaddedConvolution
                 }
                 h >>= 1;
             }
-            for (; h >= 1; h >>= 1)
-            {
-                int step = n / (2 * h);
-                for (int g = 0; g < n; g += 2 * h)
-                    for (int t = 0; t < h; t++)
-                        DifButterfly(re, im, (g + t) * mx + c0, (g + t + h) * mx + c0, width, c[t * step], -s[t * step]);
-            }
+            DifColumnStages(re, im, c0, width, 0, n, h);
         }
     }
 
-    /// <summary>Inverse DFT (unscaled) along every column from bit-reversed rows to natural rows; the last stage computes only rows below <paramref name="needed"/> (&lt;= PaddedY/2).</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    /// <summary>
+    /// Radix-2 decimation-in-frequency stages h, h/2, .., 1 down the rows [first, first + length) of one column strip, two stages
+    /// a pass where two remain (the same butterflies on each element in the same order, so the same numbers, with half the loads and stores).
+    /// </summary>
+    private void DifColumnStages(double[] re, double[] im, int c0, int width, int first, int length, int h)
+    {
+        int n = PaddedY, mx = PaddedX;
+        var c = _colCos; var s = _colSin;
+        for (; h >= 2; h >>= 2)
+        {
+            int step = n / (2 * h), q = h / 2;
+            for (int g = first; g < first + length; g += 2 * h)
+                for (int t = 0; t < q; t++)
+                {
+                    int r0 = (g + t) * mx + c0, r1 = r0 + q * mx, r2 = r1 + q * mx, r3 = r2 + q * mx;
+                    DifButterflyPair(re, im, r0, r1, r2, r3, width, c[t * step], -s[t * step], c[(t + q) * step], -s[(t + q) * step], c[2 * t * step], -s[2 * t * step]);
+                }
+        }
+        if (h == 1)
+            for (int g = first; g < first + length; g += 2)
+                DifButterfly(re, im, g * mx + c0, (g + 1) * mx + c0, width, c[0], -s[0]);
+    }
+
+    /// <summary>Inverse DFT (unscaled) along every column from the transform's row order to natural rows; the last stage computes only rows below <paramref name="needed"/> (&lt;= PaddedY/2).</summary>
     private void InverseColumns(double[] re, double[] im, int columns, int needed) =>
         Split((columns + _strip - 1) / _strip, (from, to, _) => InverseColumnStrips(re, im, columns, needed, from, to));
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void InverseColumnStrips(double[] re, double[] im, int columns, int needed, int fromStrip, int toStrip)
     {
-        int n = PaddedY, mx = PaddedX, last = n / 2;
+        int n = PaddedY, mx = PaddedX, m = _blockY;
         var c = _colCos; var s = _colSin;
         for (int c0 = fromStrip * _strip; c0 < Math.Min(columns, toStrip * _strip); c0 += _strip)
         {
             int width = Math.Min(_strip, columns - c0);
-            for (int h = 1; h < last; h <<= 1)
+            if (_factorY == 3)
             {
-                int step = n / (2 * h);
-                for (int g = 0; g < n; g += 2 * h)
-                    for (int t = 0; t < h; t++)
-                        DitButterfly(re, im, (g + t) * mx + c0, (g + t + h) * mx + c0, width, c[t * step], s[t * step]);
+                for (int block = 0; block < n; block += m) DitColumnStages(re, im, c0, width, block, m, m);
+                for (int t = 0; t < Math.Min(m, needed); t++)
+                    InverseThirdsSegment(re, im, t * mx + c0, (t + m) * mx + c0, (t + 2 * m) * mx + c0, width, c[t], s[t], c[2 * t], s[2 * t],
+                        t + m < needed, t + 2 * m < needed);
+                continue;
             }
+            int last = n / 2;
+            DitColumnStages(re, im, c0, width, 0, n, last);
             for (int t = 0; t < Math.Min(needed, last); t++)
                 DitHalf(re, im, t * mx + c0, (t + last) * mx + c0, width, c[t], s[t]);
+        }
+    }
+
+    /// <summary>
+    /// Radix-2 decimation-in-time stages 1, 2, .., below <paramref name="below"/> down the rows [first, first + length) of one column
+    /// strip, two stages a pass where two remain (the mirror of <see cref="DifColumnStages"/>: the same numbers as one stage a pass).
+    /// </summary>
+    private void DitColumnStages(double[] re, double[] im, int c0, int width, int first, int length, int below)
+    {
+        int n = PaddedY, mx = PaddedX;
+        var c = _colCos; var s = _colSin;
+        int h = 1;
+        for (; 2 * h < below; h <<= 2)
+        {
+            int inner = n / (2 * h), outer = n / (4 * h);
+            for (int g = first; g < first + length; g += 4 * h)
+                for (int t = 0; t < h; t++)
+                {
+                    int r0 = (g + t) * mx + c0, r1 = r0 + h * mx, r2 = r1 + h * mx, r3 = r2 + h * mx;
+                    DitButterflyPair(re, im, r0, r1, r2, r3, width, c[t * inner], s[t * inner], c[t * outer], s[t * outer], c[(t + h) * outer], s[(t + h) * outer]);
+                }
+        }
+        if (h < below)
+        {
+            int step = n / (2 * h);
+            for (int g = first; g < first + length; g += 2 * h)
+                for (int t = 0; t < h; t++)
+                    DitButterfly(re, im, (g + t) * mx + c0, (g + t + h) * mx + c0, width, c[t * step], s[t * step]);
+        }
+    }
+
+    /// <summary>The forward radix-3 butterfly over three row segments (as <see cref="ForwardThirdsRow"/>, twiddles w1 on b, w2 on d), SIMD across columns.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void ForwardThirdsSegment(double[] re, double[] im, int a, int b, int d, int width, double w1r, double w1i, double w2r, double w2i)
+    {
+        int k = 0, v = Vector<double>.Count;
+        if (width >= v)
+        {
+            var half = new Vector<double>(0.5); var root = new Vector<double>(HalfRootThree);
+            var v1r = new Vector<double>(w1r); var v1i = new Vector<double>(w1i); var v2r = new Vector<double>(w2r); var v2i = new Vector<double>(w2i);
+            for (; k <= width - v; k += v)
+            {
+                var ar = new Vector<double>(re, a + k); var ai = new Vector<double>(im, a + k);
+                var br = new Vector<double>(re, b + k); var bi = new Vector<double>(im, b + k);
+                var xr = new Vector<double>(re, d + k); var xi = new Vector<double>(im, d + k);
+                var sr = br + xr; var si = bi + xi; var dr = root * (br - xr); var di = root * (bi - xi);
+                var tr = ar - half * sr; var ti = ai - half * si;
+                (ar + sr).CopyTo(re, a + k); (ai + si).CopyTo(im, a + k);
+                var yr = tr + di; var yi = ti - dr;
+                (yr * v1r - yi * v1i).CopyTo(re, b + k); (yr * v1i + yi * v1r).CopyTo(im, b + k);
+                yr = tr - di; yi = ti + dr;
+                (yr * v2r - yi * v2i).CopyTo(re, d + k); (yr * v2i + yi * v2r).CopyTo(im, d + k);
+            }
+        }
+        for (; k < width; k++)
+        {
+            double ar = re[a + k], ai = im[a + k];
+            double sr = re[b + k] + re[d + k], si = im[b + k] + im[d + k], dr = HalfRootThree * (re[b + k] - re[d + k]), di = HalfRootThree * (im[b + k] - im[d + k]);
+            double tr = ar - 0.5 * sr, ti = ai - 0.5 * si;
+            re[a + k] = ar + sr; im[a + k] = ai + si;
+            double yr = tr + di, yi = ti - dr;
+            re[b + k] = yr * w1r - yi * w1i; im[b + k] = yr * w1i + yi * w1r;
+            yr = tr - di; yi = ti + dr;
+            re[d + k] = yr * w2r - yi * w2i; im[d + k] = yr * w2i + yi * w2r;
+        }
+    }
+
+    /// <summary>The inverse radix-3 butterfly over three row segments (as <see cref="InverseThirdsRow"/>, twiddles w1 on b, w2 on d), writing b and d only where read back.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void InverseThirdsSegment(double[] re, double[] im, int a, int b, int d, int width, double w1r, double w1i, double w2r, double w2i, bool writeB, bool writeD)
+    {
+        int k = 0, v = Vector<double>.Count;
+        if (width >= v)
+        {
+            var half = new Vector<double>(0.5); var root = new Vector<double>(HalfRootThree);
+            var v1r = new Vector<double>(w1r); var v1i = new Vector<double>(w1i); var v2r = new Vector<double>(w2r); var v2i = new Vector<double>(w2i);
+            for (; k <= width - v; k += v)
+            {
+                var xr = new Vector<double>(re, b + k); var xi = new Vector<double>(im, b + k);
+                var br = xr * v1r - xi * v1i; var bi = xr * v1i + xi * v1r;
+                xr = new Vector<double>(re, d + k); xi = new Vector<double>(im, d + k);
+                var cr = xr * v2r - xi * v2i; var ci = xr * v2i + xi * v2r;
+                var ar = new Vector<double>(re, a + k); var ai = new Vector<double>(im, a + k);
+                var sr = br + cr; var si = bi + ci; var dr = root * (br - cr); var di = root * (bi - ci);
+                var tr = ar - half * sr; var ti = ai - half * si;
+                (ar + sr).CopyTo(re, a + k); (ai + si).CopyTo(im, a + k);
+                if (writeB) { (tr - di).CopyTo(re, b + k); (ti + dr).CopyTo(im, b + k); }
+                if (writeD) { (tr + di).CopyTo(re, d + k); (ti - dr).CopyTo(im, d + k); }
+            }
+        }
+        for (; k < width; k++)
+        {
+            double br = re[b + k] * w1r - im[b + k] * w1i, bi = re[b + k] * w1i + im[b + k] * w1r;
+            double cr = re[d + k] * w2r - im[d + k] * w2i, ci = re[d + k] * w2i + im[d + k] * w2r;
+            double ar = re[a + k], ai = im[a + k];
+            double sr = br + cr, si = bi + ci, dr = HalfRootThree * (br - cr), di = HalfRootThree * (bi - ci);
+            double tr = ar - 0.5 * sr, ti = ai - 0.5 * si;
+            re[a + k] = ar + sr; im[a + k] = ai + si;
+            if (writeB) { re[b + k] = tr - di; im[b + k] = ti + dr; }
+            if (writeD) { re[d + k] = tr + di; im[d + k] = ti - dr; }
         }
     }
 
@@ -399,6 +689,104 @@ internal sealed class PaddedConvolution
         {
             double ar = re[a + k], ai = im[a + k];
             re[b + k] = ar * wr - ai * wi; im[b + k] = ar * wi + ai * wr;
+        }
+    }
+
+    /// <summary>
+    /// Two decimation-in-frequency stages on rows r0..r3 (a quarter of the group apart): (r0, r2) with w1 and (r1, r3) with w2, then
+    /// (r0, r1) and (r2, r3) with w3, each pair as <see cref="DifButterfly"/>; SIMD across columns.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void DifButterflyPair(double[] re, double[] im, int r0, int r1, int r2, int r3, int width,
+        double w1r, double w1i, double w2r, double w2i, double w3r, double w3i)
+    {
+        int k = 0, v = Vector<double>.Count;
+        if (width >= v)
+        {
+            var a1r = new Vector<double>(w1r); var a1i = new Vector<double>(w1i);
+            var a2r = new Vector<double>(w2r); var a2i = new Vector<double>(w2i);
+            var a3r = new Vector<double>(w3r); var a3i = new Vector<double>(w3i);
+            for (; k <= width - v; k += v)
+            {
+                var x0r = new Vector<double>(re, r0 + k); var x0i = new Vector<double>(im, r0 + k);
+                var x1r = new Vector<double>(re, r1 + k); var x1i = new Vector<double>(im, r1 + k);
+                var x2r = new Vector<double>(re, r2 + k); var x2i = new Vector<double>(im, r2 + k);
+                var x3r = new Vector<double>(re, r3 + k); var x3i = new Vector<double>(im, r3 + k);
+                var dr = x0r - x2r; var di = x0i - x2i;
+                var y0r = x0r + x2r; var y0i = x0i + x2i;
+                var y2r = dr * a1r - di * a1i; var y2i = dr * a1i + di * a1r;
+                dr = x1r - x3r; di = x1i - x3i;
+                var y1r = x1r + x3r; var y1i = x1i + x3i;
+                var y3r = dr * a2r - di * a2i; var y3i = dr * a2i + di * a2r;
+                (y0r + y1r).CopyTo(re, r0 + k); (y0i + y1i).CopyTo(im, r0 + k);
+                dr = y0r - y1r; di = y0i - y1i;
+                (dr * a3r - di * a3i).CopyTo(re, r1 + k); (dr * a3i + di * a3r).CopyTo(im, r1 + k);
+                (y2r + y3r).CopyTo(re, r2 + k); (y2i + y3i).CopyTo(im, r2 + k);
+                dr = y2r - y3r; di = y2i - y3i;
+                (dr * a3r - di * a3i).CopyTo(re, r3 + k); (dr * a3i + di * a3r).CopyTo(im, r3 + k);
+            }
+        }
+        for (; k < width; k++)
+        {
+            double x0r = re[r0 + k], x0i = im[r0 + k], x1r = re[r1 + k], x1i = im[r1 + k];
+            double x2r = re[r2 + k], x2i = im[r2 + k], x3r = re[r3 + k], x3i = im[r3 + k];
+            double dr = x0r - x2r, di = x0i - x2i;
+            double y0r = x0r + x2r, y0i = x0i + x2i, y2r = dr * w1r - di * w1i, y2i = dr * w1i + di * w1r;
+            dr = x1r - x3r; di = x1i - x3i;
+            double y1r = x1r + x3r, y1i = x1i + x3i, y3r = dr * w2r - di * w2i, y3i = dr * w2i + di * w2r;
+            re[r0 + k] = y0r + y1r; im[r0 + k] = y0i + y1i;
+            dr = y0r - y1r; di = y0i - y1i;
+            re[r1 + k] = dr * w3r - di * w3i; im[r1 + k] = dr * w3i + di * w3r;
+            re[r2 + k] = y2r + y3r; im[r2 + k] = y2i + y3i;
+            dr = y2r - y3r; di = y2i - y3i;
+            re[r3 + k] = dr * w3r - di * w3i; im[r3 + k] = dr * w3i + di * w3r;
+        }
+    }
+
+    /// <summary>
+    /// Two decimation-in-time stages on rows r0..r3 (a quarter of the group apart): (r0, r1) and (r2, r3) with w1, then (r0, r2) with
+    /// w2 and (r1, r3) with w3, each pair as <see cref="DitButterfly"/>; SIMD across columns.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void DitButterflyPair(double[] re, double[] im, int r0, int r1, int r2, int r3, int width,
+        double w1r, double w1i, double w2r, double w2i, double w3r, double w3i)
+    {
+        int k = 0, v = Vector<double>.Count;
+        if (width >= v)
+        {
+            var a1r = new Vector<double>(w1r); var a1i = new Vector<double>(w1i);
+            var a2r = new Vector<double>(w2r); var a2i = new Vector<double>(w2i);
+            var a3r = new Vector<double>(w3r); var a3i = new Vector<double>(w3i);
+            for (; k <= width - v; k += v)
+            {
+                var x0r = new Vector<double>(re, r0 + k); var x0i = new Vector<double>(im, r0 + k);
+                var x1r = new Vector<double>(re, r1 + k); var x1i = new Vector<double>(im, r1 + k);
+                var x2r = new Vector<double>(re, r2 + k); var x2i = new Vector<double>(im, r2 + k);
+                var x3r = new Vector<double>(re, r3 + k); var x3i = new Vector<double>(im, r3 + k);
+                var tr = x1r * a1r - x1i * a1i; var ti = x1r * a1i + x1i * a1r;
+                var y0r = x0r + tr; var y0i = x0i + ti; var y1r = x0r - tr; var y1i = x0i - ti;
+                tr = x3r * a1r - x3i * a1i; ti = x3r * a1i + x3i * a1r;
+                var y2r = x2r + tr; var y2i = x2i + ti; var y3r = x2r - tr; var y3i = x2i - ti;
+                tr = y2r * a2r - y2i * a2i; ti = y2r * a2i + y2i * a2r;
+                (y0r + tr).CopyTo(re, r0 + k); (y0i + ti).CopyTo(im, r0 + k);
+                (y0r - tr).CopyTo(re, r2 + k); (y0i - ti).CopyTo(im, r2 + k);
+                tr = y3r * a3r - y3i * a3i; ti = y3r * a3i + y3i * a3r;
+                (y1r + tr).CopyTo(re, r1 + k); (y1i + ti).CopyTo(im, r1 + k);
+                (y1r - tr).CopyTo(re, r3 + k); (y1i - ti).CopyTo(im, r3 + k);
+            }
+        }
+        for (; k < width; k++)
+        {
+            double x0r = re[r0 + k], x0i = im[r0 + k], x1r = re[r1 + k], x1i = im[r1 + k];
+            double x2r = re[r2 + k], x2i = im[r2 + k], x3r = re[r3 + k], x3i = im[r3 + k];
+            double tr = x1r * w1r - x1i * w1i, ti = x1r * w1i + x1i * w1r;
+            double y1r = x0r - tr, y1i = x0i - ti, y0r = x0r + tr, y0i = x0i + ti;
+            tr = x3r * w1r - x3i * w1i; ti = x3r * w1i + x3i * w1r;
+            double y3r = x2r - tr, y3i = x2i - ti, y2r = x2r + tr, y2i = x2i + ti;
+            tr = y2r * w2r - y2i * w2i; ti = y2r * w2i + y2i * w2r;
+            re[r2 + k] = y0r - tr; im[r2 + k] = y0i - ti; re[r0 + k] = y0r + tr; im[r0 + k] = y0i + ti;
+            tr = y3r * w3r - y3i * w3i; ti = y3r * w3i + y3i * w3r;
+            re[r3 + k] = y1r - tr; im[r3 + k] = y1i - ti; re[r1 + k] = y1r + tr; im[r1 + k] = y1i + ti;
         }
     }
 
@@ -476,28 +864,41 @@ internal sealed class PaddedConvolution
         }
     }
 
+    /// <summary>e^{-2 pi i t / n} = cos - i sin for t &lt; n.</summary>
     private static (double[] Cos, double[] Sin) Twiddles(int n)
-    {
-        var cos = new double[Math.Max(1, n / 2)];
-        var sin = new double[cos.Length];
-        for (int t = 0; t < n / 2; t++) { cos[t] = Math.Cos(2 * Math.PI * t / n); sin[t] = Math.Sin(2 * Math.PI * t / n); }
-        return (cos, sin);
-    }
-
-    private static (double[] Cos, double[] Sin) StageTwiddles(int n)
     {
         var cos = new double[n];
         var sin = new double[n];
-        for (int h = 1; h < n; h <<= 1)
+        for (int t = 0; t < n; t++) { cos[t] = Math.Cos(2 * Math.PI * t / n); sin[t] = Math.Sin(2 * Math.PI * t / n); }
+        return (cos, sin);
+    }
+
+    /// <summary>Radix-2 stages of a block of length m: e^{-2 pi i t / 2h} = cos - i sin at [h + t], h &lt; m, t &lt; h.</summary>
+    private static (double[] Cos, double[] Sin) StageTwiddles(int m)
+    {
+        var cos = new double[m];
+        var sin = new double[m];
+        for (int h = 1; h < m; h <<= 1)
             for (int t = 0; t < h; t++) { cos[h + t] = Math.Cos(Math.PI * t / h); sin[h + t] = Math.Sin(Math.PI * t / h); }
         return (cos, sin);
     }
 
-    private static int[] BitReversal(int n)
+    /// <summary>The radix-3 stage of a row of length n = 3 m: e^{-2 pi i r t / n} = cos - i sin at (r - 1) m + t, r = 1, 2, t &lt; m (empty for m = 0).</summary>
+    private static (double[] Cos, double[] Sin) ThirdTwiddles(int n, int m)
     {
-        var rev = new int[n];
-        for (int i = 0; i < n; i++) rev[i] = ReverseBits(i, n);
-        return rev;
+        var cos = new double[2 * m];
+        var sin = new double[2 * m];
+        for (int r = 1; r <= 2; r++)
+            for (int t = 0; t < m; t++) { cos[(r - 1) * m + t] = Math.Cos(2 * Math.PI * r * t / n); sin[(r - 1) * m + t] = Math.Sin(2 * Math.PI * r * t / n); }
+        return (cos, sin);
+    }
+
+    /// <summary>The natural frequency at each position of a transform of length f m: f bitreverse_m(p mod m) + p / m.</summary>
+    private static int[] Frequencies(int factor, int block)
+    {
+        var frequency = new int[factor * block];
+        for (int p = 0; p < frequency.Length; p++) frequency[p] = factor * ReverseBits(p % block, block) + p / block;
+        return frequency;
     }
 
     private static int ReverseBits(int i, int n)

@@ -1,4 +1,5 @@
 using System.Numerics;
+using MathNet.Numerics.IntegralTransforms;
 using SlotOpt.Numerics;
 
 namespace SlotOpt.Tests.Numerics;
@@ -65,23 +66,94 @@ public class PaddedConvolutionTests
         }
     }
 
-    // The padded length is the smallest power of two at least 2 n: the circular convolution there cannot wrap
+    // The padded length is the smallest 2^k or 3 x 2^k at least 2 n: the circular convolution there cannot wrap
     // a kernel of 2 n - 1 taps onto the n samples (the property the linear convolution above relies on).
     [Theory]
     [InlineData(1, 2)]
     [InlineData(2, 4)]
+    [InlineData(3, 6)]
     [InlineData(255, 512)]
     [InlineData(256, 512)]
-    [InlineData(257, 1024)]
-    public void Padded_length_is_the_smallest_power_of_two_at_least_twice_n(int n, int expected) =>
+    [InlineData(257, 768)]
+    [InlineData(299, 768)]
+    [InlineData(385, 1024)]
+    public void Padded_length_is_the_smallest_power_of_two_or_three_times_one_at_least_twice_n(int n, int expected) =>
         Assert.Equal(expected, PaddedConvolution.PaddedLength(n));
+
+    // The transform pair against MathNet's general-length FFT (MathNet.Numerics.IntegralTransforms.Fourier, Matlab convention:
+    // forward e^{-2 pi i k n / N} unscaled, inverse scaled by 1/N), row by row then column by column over the whole padded
+    // lattice: lengths 2^k and 3 x 2^k in each direction (the rail of the conveyor demo pads 299 x 39 nodes to 768 x 96), blocks
+    // long enough for the SIMD paths and a single row. Tolerance 1e-12 relative to the largest coefficient: rounding is about
+    // 1e-16 times log N per coefficient; a wrong twiddle, a misplaced frequency or a skipped stage is off by order 1.
+    [Theory]
+    [InlineData(299, 39)]
+    [InlineData(150, 20)]
+    [InlineData(40, 64)]
+    [InlineData(3, 1)]
+    public void Transforms_match_MathNet_fft_on_the_padded_lattice(int nx, int ny)
+    {
+        var random = new Random(nx * 1000 + ny);
+        var conv = new PaddedConvolution(nx, ny);
+        int mx = conv.PaddedX, my = conv.PaddedY;
+        var field = new Complex[mx * my];
+        for (int j = 0; j < ny; j++)
+            for (int i = 0; i < nx; i++) field[j * mx + i] = new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5);
+        var expected = Transform2D(field, mx, my, forward: true);
+        for (int k = 0; k < field.Length; k++) { conv.Re[k] = field[k].Real; conv.Im[k] = field[k].Imaginary; }
+        conv.TransformComplex();
+        double scale = expected.Max(c => c.Magnitude);
+        for (int stored = 0; stored < field.Length; stored++)
+        {
+            var want = expected[conv.FrequencyIndex(stored)];
+            var got = new Complex(conv.Re[stored], conv.Im[stored]);
+            Assert.True((got - want).Magnitude <= 1e-12 * scale, $"forward {mx} x {my}, stored {stored}: {got} against {want}");
+        }
+
+        var spectrum = Enumerable.Range(0, mx * my).Select(_ => new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5)).ToArray();
+        for (int stored = 0; stored < spectrum.Length; stored++)
+        {
+            var value = spectrum[conv.FrequencyIndex(stored)];
+            conv.Re[stored] = value.Real; conv.Im[stored] = value.Imaginary;
+        }
+        conv.InverseTransformComplex();
+        var back = Transform2D(spectrum, mx, my, forward: false);
+        double total = (double)mx * my;
+        scale = back.Max(c => c.Magnitude) * total;
+        for (int j = 0; j < ny; j++)
+            for (int i = 0; i < nx; i++)
+            {
+                var want = back[j * mx + i] * total;                                  // the transform's inverse is unscaled
+                var got = new Complex(conv.Re[j * mx + i], conv.Im[j * mx + i]);
+                Assert.True((got - want).Magnitude <= 1e-12 * scale, $"inverse {mx} x {my}, ({i}, {j}): {got} against {want}");
+            }
+    }
+
+    private static Complex[] Transform2D(Complex[] a, int columns, int rows, bool forward)
+    {
+        var result = (Complex[])a.Clone();
+        var row = new Complex[columns];
+        for (int r = 0; r < rows; r++)
+        {
+            Array.Copy(result, r * columns, row, 0, columns);
+            if (forward) Fourier.Forward(row, FourierOptions.Matlab); else Fourier.Inverse(row, FourierOptions.Matlab);
+            Array.Copy(row, 0, result, r * columns, columns);
+        }
+        var column = new Complex[rows];
+        for (int c = 0; c < columns; c++)
+        {
+            for (int r = 0; r < rows; r++) column[r] = result[r * columns + c];
+            if (forward) Fourier.Forward(column, FourierOptions.Matlab); else Fourier.Inverse(column, FourierOptions.Matlab);
+            for (int r = 0; r < rows; r++) result[r * columns + c] = column[r];
+        }
+        return result;
+    }
 
     // Two workers split the rows and column strips; every element sees the same operations in the same order, so the
     // result must equal the one-worker result bit for bit (the project's rule: the same numbers for 1 and 2 threads).
     [Fact]
     public void Two_workers_give_the_one_worker_result_bit_for_bit()
     {
-        const int nx = 37, ny = 300;   // 1024 padded rows: column strips of 8, so the columns are split too
+        const int nx = 37, ny = 300;   // 96 x 768 padded (radix 3 both ways): column strips of 8, so the columns are split too
         var random = new Random(5);
         var x = Enumerable.Range(0, nx * ny).Select(_ => (random.NextDouble() - 0.5, random.NextDouble() - 0.5)).ToArray();
         double[] Run(int threads, bool real)

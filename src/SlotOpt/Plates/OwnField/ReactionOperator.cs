@@ -13,7 +13,9 @@ namespace SlotOpt.Plates.OwnField;
 /// the lattice's border nodes are always outside, psi = 0), so the convolution is linear, not circular
 /// (the finite, slotted plate is exact up to discretisation), O(N log N) per application.
 /// A merged region (hole, cut) is one unknown whose basis is the sum of its nodes' hats: its row
-/// is the flux through the hole. Not thread-safe (one work buffer); build one per thread.
+/// is the flux through the hole. Not thread-safe (one work buffer); build one per thread. The kernel and its spectra
+/// depend only on the lattice (cell sizes and node counts), not on the plate's outline or slots, so operators on one
+/// lattice share them (<see cref="LatticeSpectra"/>): every slot pattern of a run's part costs one kernel and one spectrum.
 /// </summary>
 public sealed partial class ReactionOperator
 {
@@ -21,22 +23,23 @@ public sealed partial class ReactionOperator
     /// <summary>Per interior lattice node (in padded-lattice order of the input region): its unknown, or -1 outside.</summary>
     private readonly int[] _interiorUnknown;
     private readonly PaddedConvolution _convolution;
+    private readonly LatticeSpectra _shared;
     private readonly KernelSpectrum _spectrumR;
-    private KernelSpectrum? _spectrumDxR;
 
     public SheetModel Model { get; }
     public ReactionKernel Kernel { get; }
     public int PaddedX => _convolution.PaddedX;
     public int PaddedY => _convolution.PaddedY;
     /// <summary>Bytes held: the padded lattice's buffers and the kernel spectra built so far.</summary>
-    public long Bytes => _convolution.Bytes + _spectrumR.Bytes + (_spectrumDxR?.Bytes ?? 0) + 4L * _interiorUnknown.Length;
+    public long Bytes => _convolution.Bytes + _shared.Bytes + 4L * _interiorUnknown.Length;
 
-    private ReactionOperator(SheetModel model, ReactionKernel kernel, PaddedConvolution convolution, KernelSpectrum spectrumR)
+    private ReactionOperator(SheetModel model, PaddedConvolution convolution, LatticeSpectra shared)
     {
         Model = model;
-        Kernel = kernel;
+        Kernel = shared.Kernel;
         _convolution = convolution;
-        _spectrumR = spectrumR;
+        _shared = shared;
+        _spectrumR = shared.R;
         _nodeUnknown = model.Regions.NodeUnknown;
         var l = model.Lattice;
         int ix = l.NodesX - 2, iy = l.NodesY - 2;
@@ -51,13 +54,10 @@ public sealed partial class ReactionOperator
         var l = model.Lattice;
         int ix = l.NodesX - 2, iy = l.NodesY - 2;           // interior nodes: the border is outside (NodeRegions)
         var convolution = new PaddedConvolution(ix, iy, threads);
-        // one extra offset in x for the central difference of the convected form
-        var kernel = ReactionKernel.Build(l.Hx, l.Hy, ix, iy - 1);
-        var spectrum = convolution.Spectrum(ix - 1, iy - 1, (dx, dy) => kernel[dx, dy]);
-        return new ReactionOperator(model, kernel, convolution, spectrum);
+        return new ReactionOperator(model, convolution, LatticeSpectra.For(l, convolution));
     }
 
-    /// <summary>The smallest power of two at least 2 n (so at least 2 n - 1: linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
+    /// <summary>The smallest 2^k or 3 x 2^k at least 2 n (so at least 2 n - 1: linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>
     public static int PaddedLength(int n) => PaddedConvolution.PaddedLength(n);
 
     /// <summary>y = R u (webers per ampere of psi times u): the flux of the layer u through each unknown's basis.</summary>
@@ -86,17 +86,7 @@ public sealed partial class ReactionOperator
     /// <summary>y = Dx R u: the central x-difference (per metre) of R u, the convected reaction flux of a source moving along x (real: R's kernel is real).</summary>
     public void ApplyDxR(ReadOnlySpan<double> u, Span<double> y) => ApplyReal(u, y, SpectrumDxR());
 
-    private KernelSpectrum SpectrumDxR()
-    {
-        if (_spectrumDxR is null)
-        {
-            var l = Model.Lattice;
-            double h2 = 2 * l.Hx;
-            // (Dx R)(d) = (R(dx + 1, dy) - R(dx - 1, dy)) / (2 hx): odd in dx, so Dx R is skew-symmetric
-            _spectrumDxR = _convolution.Spectrum(l.NodesX - 3, l.NodesY - 3, (dx, dy) => (Kernel[dx + 1, dy] - Kernel[dx - 1, dy]) / h2);
-        }
-        return _spectrumDxR;
-    }
+    private KernelSpectrum SpectrumDxR() => _shared.DxR(_convolution);
 
     /// <summary>
     /// The free-lattice factor Phi = A^ / (A^ + c S^) of the coupled operator A + c R (or A + c Dx R when convected),
@@ -168,15 +158,63 @@ public sealed partial class ReactionOperator
             for (int p = j * mx, end = p + ix; p < end; p++, n++)
                 if (map[n] is var k && k >= 0) y[k] += re[p];
     }
+}
 
-    /// <summary>DFT of the kernel placed with wrap-around at offsets |dx| &lt;= kx, |dy| &lt;= ky on the padded lattice (natural order, unscaled).</summary>
-    internal static Complex[] Spectrum(int mx, int my, int kx, int ky, Func<int, int, double> kernel)
+/// <summary>
+/// The reaction kernel of one lattice (cell sizes, interior node counts) and its spectra R and Dx R on the padded lattice, shared
+/// by every <see cref="ReactionOperator"/> built on that lattice while any of them lives (weakly held here, so an unused entry is
+/// the garbage collector's). Read-only once built; Dx R is built on first use under a lock. The numbers do not depend on sharing:
+/// a spectrum is the same computation whichever operator's convolution makes it (and for any worker count).
+/// </summary>
+internal sealed class LatticeSpectra
+{
+    private static readonly Dictionary<(double Hx, double Hy, int Nx, int Ny), WeakReference<LatticeSpectra>> Live = new();
+    private readonly object _gate = new();
+    private KernelSpectrum? _dxR;
+
+    public ReactionKernel Kernel { get; }
+    public KernelSpectrum R { get; }
+    public long Bytes => R.Bytes + (_dxR?.Bytes ?? 0);
+
+    private LatticeSpectra(ReactionKernel kernel, KernelSpectrum r)
     {
-        var a = new Complex[mx * my];
-        for (int dy = -ky; dy <= ky; dy++)
-            for (int dx = -kx; dx <= kx; dx++)
-                a[((dy + my) % my) * mx + (dx + mx) % mx] = kernel(dx, dy);
-        new Fft2D(my, mx).Forward(a);
-        return a;
+        Kernel = kernel;
+        R = r;
+    }
+
+    /// <summary>The spectra of the lattice l (interior nodes as the convolution's input region), built with convolution if no live operator holds them.</summary>
+    public static LatticeSpectra For(CellLattice l, PaddedConvolution convolution)
+    {
+        var key = (l.Hx, l.Hy, convolution.Nx, convolution.Ny);
+        lock (Live)
+        {
+            if (Live.TryGetValue(key, out var weak) && weak.TryGetTarget(out var live)) return live;
+            foreach (var dead in Live.Where(e => !e.Value.TryGetTarget(out _)).Select(e => e.Key).ToList()) Live.Remove(dead);
+        }
+        int ix = convolution.Nx, iy = convolution.Ny;
+        // one extra offset in x for the central difference of the convected form
+        var kernel = ReactionKernel.Build(l.Hx, l.Hy, ix, iy - 1);
+        var built = new LatticeSpectra(kernel, convolution.Spectrum(ix - 1, iy - 1, (dx, dy) => kernel[dx, dy]));
+        lock (Live)
+        {
+            if (Live.TryGetValue(key, out var weak) && weak.TryGetTarget(out var first)) return first;   // another thread built it meanwhile: one copy
+            Live[key] = new WeakReference<LatticeSpectra>(built);
+            return built;
+        }
+    }
+
+    /// <summary>The spectrum of Dx R, (Dx R)(d) = (R(dx + 1, dy) - R(dx - 1, dy)) / (2 hx): odd in dx, so Dx R is skew-symmetric.</summary>
+    public KernelSpectrum DxR(PaddedConvolution convolution)
+    {
+        lock (_gate)
+        {
+            if (_dxR is null)
+            {
+                double h2 = 2 * Kernel.Hx;
+                var kernel = Kernel;
+                _dxR = convolution.Spectrum(convolution.Nx - 1, convolution.Ny - 1, (dx, dy) => (kernel[dx + 1, dy] - kernel[dx - 1, dy]) / h2);
+            }
+            return _dxR;
+        }
     }
 }

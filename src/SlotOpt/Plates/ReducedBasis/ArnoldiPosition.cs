@@ -68,7 +68,8 @@ internal sealed class ArnoldiPosition
         _h.Add(column);
         // an invariant subspace (the new direction is rounding against the step's size): the projection is exact
         if (norm <= 1e-13 * before) { column[V.Count] = 0; _exhausted = true; failure = ""; return true; }
-        Add(z.Select(x => x / norm).ToArray(), az.Select(x => x / norm).ToArray());
+        for (int u = 0; u < z.Length; u++) { z[u] /= norm; az[u] /= norm; }   // in place: both are this step's own arrays
+        Add(z, az);
         failure = "";
         return true;
     }

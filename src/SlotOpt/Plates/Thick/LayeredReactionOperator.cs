@@ -10,16 +10,16 @@ namespace SlotOpt.Plates.Thick;
 /// top face, each with the plate's in-plane geometry (slots through the full thickness). Layer m's dipole
 /// layer psi_m sends through layer l's basis the flux R^(|l - m|) psi_m, with R^(s) the mutual-inductance
 /// kernel between layers s dz apart (<see cref="ReactionKernel"/>; in Fourier space the in-plane kernel
-/// times e^{-|k| s dz}). Applied by FFT: L forward transforms, L^2 spectral products, L inverse transforms.
+/// times e^{-|k| s dz}). Applied by FFT on the plane's zero-padded lattice (<see cref="PaddedConvolution"/>): L forward
+/// transforms, L^2 spectral products, L inverse transforms.
 /// Currents are in-plane in every layer (no vertical current): right for a plate wide against its thickness.
 /// </summary>
 public sealed class LayeredReactionOperator
 {
-    private readonly Complex[][] _spectra;   // by separation s = 0..L-1
-    private readonly Complex[][] _transformed;
-    private readonly Complex[] _accumulate;
-    private readonly Fft2D _fft;
-    private readonly int[] _nodeUnknown;
+    private readonly PaddedConvolution _convolution;
+    private readonly KernelSpectrum[] _spectra;   // by separation s = 0..L-1
+    private readonly double[][] _transformedRe, _transformedIm;
+    private readonly int[] _interiorUnknown;      // per interior lattice node (row-major): its unknown, or -1 outside
 
     public SheetModel Model { get; }
     public ReactionOperator Plane { get; }
@@ -27,18 +27,22 @@ public sealed class LayeredReactionOperator
     public double ThicknessM { get; }
     public double LayerThicknessM => ThicknessM / Layers;
 
-    private LayeredReactionOperator(SheetModel model, ReactionOperator plane, int layers, double thicknessM, Complex[][] spectra)
+    private LayeredReactionOperator(SheetModel model, ReactionOperator plane, int layers, double thicknessM, PaddedConvolution convolution, KernelSpectrum[] spectra)
     {
         Model = model;
         Plane = plane;
         Layers = layers;
         ThicknessM = thicknessM;
+        _convolution = convolution;
         _spectra = spectra;
-        int size = plane.PaddedX * plane.PaddedY;
-        _transformed = Enumerable.Range(0, layers).Select(_ => new Complex[size]).ToArray();
-        _accumulate = new Complex[size];
-        _fft = new Fft2D(plane.PaddedY, plane.PaddedX);
-        _nodeUnknown = model.Regions.NodeUnknown;
+        int size = convolution.PaddedX * convolution.PaddedY;
+        _transformedRe = Enumerable.Range(0, layers).Select(_ => new double[size]).ToArray();
+        _transformedIm = Enumerable.Range(0, layers).Select(_ => new double[size]).ToArray();
+        var l = model.Lattice;
+        var nodeUnknown = model.Regions.NodeUnknown;
+        _interiorUnknown = new int[convolution.Nx * convolution.Ny];
+        for (int j = 0; j < convolution.Ny; j++)
+            for (int i = 0; i < convolution.Nx; i++) _interiorUnknown[j * convolution.Nx + i] = nodeUnknown[(j + 1) * l.NodesX + i + 1];
     }
 
     public static LayeredReactionOperator Build(SheetModel model, int layers, double thicknessM, ReactionOperator? plane = null)
@@ -47,47 +51,56 @@ public sealed class LayeredReactionOperator
         if (!(thicknessM > 0) || !double.IsFinite(thicknessM)) throw new InputException($"the plate thickness must be positive (got {thicknessM} m)");
         plane ??= ReactionOperator.Build(model);
         var l = model.Lattice;
-        int kx = l.NodesX - 3, ky = l.NodesY - 3;
-        var spectra = new Complex[layers][];
+        int kx = l.NodesX - 3, ky = l.NodesY - 3;           // interior nodes less one: the border is outside (as the plane's operator)
+        var convolution = new PaddedConvolution(kx + 1, ky + 1);
+        var spectra = new KernelSpectrum[layers];
         for (int s = 0; s < layers; s++)
         {
             var kernel = s == 0 ? plane.Kernel : ReactionKernel.Build(l.Hx, l.Hy, kx, ky, s * thicknessM / layers);
-            spectra[s] = ReactionOperator.Spectrum(plane.PaddedX, plane.PaddedY, kx, ky, (dx, dy) => kernel[dx, dy]);
+            spectra[s] = convolution.Spectrum(kx, ky, (dx, dy) => kernel[dx, dy]);
         }
-        return new LayeredReactionOperator(model, plane, layers, thicknessM, spectra);
+        return new LayeredReactionOperator(model, plane, layers, thicknessM, convolution, spectra);
     }
 
     /// <summary>y = R u for the stacked vector u (layer l's unknowns at l * N .. (l + 1) * N - 1).</summary>
     public void Apply(Complex[] u, Complex[] y)
     {
         int n = Model.Unknowns;
+        var c = _convolution;
+        var re = c.Re; var im = c.Im;
+        int nx = c.Nx, ny = c.Ny, mx = c.PaddedX;
+        var map = _interiorUnknown;
         for (int layer = 0; layer < Layers; layer++)
         {
-            var t = _transformed[layer];
-            Array.Clear(t);
-            for (int node = 0; node < _nodeUnknown.Length; node++)
-            {
-                int k = _nodeUnknown[node];
-                if (k >= 0) t[Plane.PaddedIndex(node)] = u[layer * n + k];
-            }
-            _fft.Forward(t);
+            for (int j = 0, node = 0; j < ny; j++)
+                for (int p = j * mx, end = p + nx; p < end; p++, node++)
+                {
+                    int k = map[node];
+                    if (k >= 0) { re[p] = u[layer * n + k].Real; im[p] = u[layer * n + k].Imaginary; } else { re[p] = 0; im[p] = 0; }
+                }
+            c.TransformComplex();
+            Array.Copy(re, _transformedRe[layer], re.Length);
+            Array.Copy(im, _transformedIm[layer], im.Length);
         }
         Array.Clear(y);
         for (int layer = 0; layer < Layers; layer++)
         {
-            Array.Clear(_accumulate);
+            // the layer's flux in Fourier space: sum over source layers m of R^(|layer - m|)^ times psi_m^
+            Array.Clear(re); Array.Clear(im);
             for (int m = 0; m < Layers; m++)
             {
                 var s = _spectra[Math.Abs(layer - m)];
-                var t = _transformed[m];
-                for (int i = 0; i < _accumulate.Length; i++) _accumulate[i] += s[i] * t[i];
+                double[] sr = s.Re, si = s.Im, tr = _transformedRe[m], ti = _transformedIm[m];
+                for (int i = 0; i < re.Length; i++)
+                {
+                    re[i] += sr[i] * tr[i] - si[i] * ti[i];
+                    im[i] += sr[i] * ti[i] + si[i] * tr[i];
+                }
             }
-            _fft.Inverse(_accumulate);
-            for (int node = 0; node < _nodeUnknown.Length; node++)
-            {
-                int k = _nodeUnknown[node];
-                if (k >= 0) y[layer * n + k] += _accumulate[Plane.PaddedIndex(node)];
-            }
+            c.InverseTransformComplex();
+            for (int j = 0, node = 0; j < ny; j++)
+                for (int p = j * mx, end = p + nx; p < end; p++, node++)
+                    if (map[node] is var k && k >= 0) y[layer * n + k] += new Complex(re[p], im[p]);   // merged rows add up
         }
     }
 }

@@ -135,4 +135,36 @@ public class ReactionDenseReferenceTests
         Assert.Equal(sweep.LossW, twoWorkers.LossW);
         Assert.Equal(sweep.LiftN, twoWorkers.LiftN);
     }
+
+    // Operators on one lattice share the kernel and its spectra (ReactionOperator's LatticeSpectra); each must still apply R
+    // and Dx R restricted to its own plate, and a lattice with the same node counts but other cell sizes must get its own
+    // kernel. Checked against the dense node-pair sums as above, to 1e-12 relative (the FFT's rounding is about 1e-15 here;
+    // a spectrum of the wrong lattice is off by order 1: the kernel scales with the cell size).
+    [Fact]
+    public void Operators_sharing_a_lattice_each_apply_their_own_plate_and_other_cell_sizes_do_not_share()
+    {
+        var holed = Model();
+        var plain = SheetModel.Build(new PlateGeometry(Polygon.Rectangle(-0.03, -0.02, 0.03, 0.02)), new GridOptions { CellSizeM = 0.004 });
+        var half = SheetModel.Build(new PlateGeometry(Polygon.Rectangle(-0.015, -0.01, 0.015, 0.01)), new GridOptions { CellSizeM = 0.002 });
+        Assert.Equal(holed.Lattice.NodeCount, half.Lattice.NodeCount);
+        var operators = new[] { holed, plain, half }.Select(m => ReactionOperator.Build(m)).ToArray();
+        foreach (var reaction in operators)
+        {
+            var model = reaction.Model;
+            var random = new Random(model.Unknowns);
+            var u = Enumerable.Range(0, model.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+            var uVector = MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(u);
+            double h2 = 2 * model.Lattice.Hx;
+            var own = ReactionKernel.Build(model.Lattice.Hx, model.Lattice.Hy, model.Lattice.NodesX, model.Lattice.NodesY);
+            var expectedR = Dense(model, (dx, dy) => own[dx, dy]) * uVector;
+            var expectedDxR = Dense(model, (dx, dy) => (own[dx + 1, dy] - own[dx - 1, dy]) / h2) * uVector;
+            var r = new double[model.Unknowns]; var dxR = new double[model.Unknowns];
+            reaction.ApplyR(u, r);
+            reaction.ApplyDxR(u, dxR);
+            double errorR = (MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(r) - expectedR).L2Norm() / expectedR.L2Norm();
+            double errorDxR = (MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(dxR) - expectedDxR).L2Norm() / expectedDxR.L2Norm();
+            Assert.True(errorR < 1e-12, $"R on {model.Unknowns} unknowns, cells {model.Lattice.Hx} m: {errorR:E2}");
+            Assert.True(errorDxR < 1e-12, $"Dx R on {model.Unknowns} unknowns, cells {model.Lattice.Hx} m: {errorDxR:E2}");
+        }
+    }
 }
