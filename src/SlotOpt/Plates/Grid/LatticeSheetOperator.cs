@@ -12,8 +12,7 @@ namespace SlotOpt.Plates.Grid;
 /// the outside. An edge inside a merged region joins two copies of the same value, so it adds exactly
 /// 0 however strongly the multigrid glues it; E^T sums a region's node rows into its Faraday-law row.
 /// Same matrix as the CSR assembly (each row summed in another order), without storing it: 16 bytes an
-/// unknown instead of about 64. The node vectors are the finest level's X and R, so this operator and
-/// the preconditioner must be applied in turn, never at once (as conjugate gradients does).
+/// unknown instead of about 64 (and a lattice vector of its own once <see cref="Multiply"/> is first called).
 /// </summary>
 public sealed class LatticeSheetOperator : ILinearOperator
 {
@@ -33,38 +32,38 @@ public sealed class LatticeSheetOperator : ILinearOperator
         _mergedUnknown = mergedUnknown;
     }
 
+    /// <summary><see cref="Multiply"/>'s x on the padded lattice, allocated on its first call (the lattice conjugate gradients never make one).</summary>
+    private double[]? _latticeX;
+
     public int Rows { get; }
 
-    public long Bytes => 8L * _outsideWeight.Length;
+    public long Bytes => 8L * (_outsideWeight.Length + (_latticeX?.Length ?? 0));
 
+    /// <summary>y = A x in the unknowns' numbering: x copied to its nodes, each node's row of L added to its unknown's entry of y (E^T).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Multiply(ReadOnlySpan<double> x, Span<double> y)
     {
         var f = _fine;
         var map = _nodeUnknown;
         int o = f.Pad, nx = f.Nx, n = f.Nodes;
-        var xs = f.X; var ys = f.R;
+        var xs = _latticeX ??= new double[n + 2 * o];
         for (int p = 0; p < n; p++) { int u = map[p]; xs[o + p] = u >= 0 ? x[u] : 0; }
+        y.Clear();
         ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
         ref double w = ref MemoryMarshal.GetArrayDataReference(f.West);
         ref double s = ref MemoryMarshal.GetArrayDataReference(f.South);
         ref double xr = ref MemoryMarshal.GetArrayDataReference(xs);
-        ref double yr = ref MemoryMarshal.GetArrayDataReference(ys);
+        ref int mr = ref MemoryMarshal.GetArrayDataReference(map);
         for (int p = 0; p < n; p++)
         {
+            int u = Unsafe.Add(ref mr, p);
+            if (u < 0) continue;
             int q = o + p;
             double v = Unsafe.Add(ref xr, q);
-            // stored couplings are the matrix entries -w
-            Unsafe.Add(ref yr, q) = Unsafe.Add(ref d, p) * v
+            // stored couplings are the matrix entries -w; a merged region's rows summed in node order
+            y[u] += Unsafe.Add(ref d, p) * v
                 - Unsafe.Add(ref w, p) * (v - Unsafe.Add(ref xr, q - 1)) - Unsafe.Add(ref w, p + 1) * (v - Unsafe.Add(ref xr, q + 1))
                 - Unsafe.Add(ref s, p) * (v - Unsafe.Add(ref xr, q - nx)) - Unsafe.Add(ref s, p + nx) * (v - Unsafe.Add(ref xr, q + nx));
-        }
-        for (int p = 0; p < n; p++) { int u = map[p]; if (u >= 0) y[u] = ys[o + p]; }
-        for (int m = 0; m < _mergedUnknown.Length; m++)
-        {
-            double sum = 0;
-            for (int k = _mergedStart[m]; k < _mergedStart[m + 1]; k++) sum += ys[o + _mergedNodes[k]];
-            y[_mergedUnknown[m]] = sum;
         }
     }
 
@@ -115,26 +114,26 @@ public sealed class LatticeSheetOperator : ILinearOperator
         return dot;
     }
 
-    /// <summary>Unknowns to <see cref="MultiplyOnLattice"/>'s layout on the padded lattice.</summary>
+    /// <summary>Unknowns times <paramref name="scale"/> to <see cref="MultiplyOnLattice"/>'s layout on the padded lattice.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal void ToLattice(ReadOnlySpan<double> v, double[] lattice)
+    internal void ToLattice(ReadOnlySpan<double> v, double[] lattice, double scale)
     {
         var map = _nodeUnknown;
         int o = _fine.Pad;
         Array.Clear(lattice);
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) lattice[o + p] = v[u]; }
+        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) lattice[o + p] = scale * v[u]; }
         for (int m = 0; m < _mergedUnknown.Length; m++)
             for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) lattice[o + _mergedNodes[k]] = 0;
     }
 
-    /// <summary>Back from <see cref="MultiplyOnLattice"/>'s layout to unknowns.</summary>
+    /// <summary>Back from <see cref="MultiplyOnLattice"/>'s layout to unknowns, times <paramref name="scale"/>.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal void FromLattice(double[] lattice, Span<double> v)
+    internal void FromLattice(double[] lattice, Span<double> v, double scale)
     {
         var map = _nodeUnknown;
         int o = _fine.Pad;
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) v[u] = lattice[o + p]; }
-        for (int m = 0; m < _mergedUnknown.Length; m++) v[_mergedUnknown[m]] = lattice[o + _mergedNodes[_mergedStart[m]]];
+        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) v[u] = scale * lattice[o + p]; }
+        for (int m = 0; m < _mergedUnknown.Length; m++) v[_mergedUnknown[m]] = scale * lattice[o + _mergedNodes[_mergedStart[m]]];
     }
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
