@@ -13,8 +13,8 @@ namespace SlotOpt.Plates.Grid;
 /// and 0 at the region's other nodes and the outside: inner products over the lattice are then the
 /// unknowns' inner products. The V-cycle reads the residual r where it is and writes the preconditioned
 /// residual z into the finest level's iterate (single precision: the preconditioner's output is rounded
-/// there, see <see cref="StencilLevel"/>; r, x, p, q and every inner product stay double). Operator and
-/// dot product p.Ap share one pass over the lattice, as do the updates of x and r and |r|. The iteration
+/// there, see <see cref="StencilLevel"/>; r, x, p, q and every inner product stay double). The next direction
+/// p = z + beta p, the operator and the dot product p.Ap share one pass over the lattice (p updated a row ahead), as do the updates of x and r and |r|. The iteration
 /// runs on b / |b| and psi / |b| (|b| rounded to a power of two, so the scaling is exact), which keeps the
 /// single-precision cycle within a few decades of 1 whatever the units; the stopping rule is relative.
 /// </summary>
@@ -62,14 +62,14 @@ internal static class LatticeConjugateGradient
                     report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(TrueResidual(mg, bl, x, q, r)) / normB);
                     return false;
                 }
-                // (re)start: p = z = M^-1 r
+                // (re)start: p = z = M^-1 r (beta 0; p holds zeros or the last finite direction)
                 mg.CycleInPlace(r);
-                for (int i = 0; i < length; i++) p[i] = z[i];
                 double rz = Dot(r, z, top.Pad, top.Nodes);
+                double beta = 0;
                 while (iterations < criterion.MaxIterations)
                 {
                     criterion.ThrowIfCancelled();
-                    double pq = mg.Operator.MultiplyOnLattice(p, q);
+                    double pq = mg.Operator.NextDirectionAndMultiply(p, z, beta, q);   // p = z + beta p, q = A p
                     if (!double.IsFinite(pq) || !double.IsFinite(rz))
                     {
                         report = new SolveReport(SolveStatus.NonFinite, iterations, Math.Sqrt(Dot(r, r, top.Pad, top.Nodes)) / normB);
@@ -91,9 +91,8 @@ internal static class LatticeConjugateGradient
                     if (rn <= target) break;
                     mg.CycleInPlace(r);
                     double rzNew = Dot(r, z, top.Pad, top.Nodes);
-                    double beta = rzNew / rz;
+                    beta = rzNew / rz;
                     rz = rzNew;
-                    NextDirection(p, z, beta, top.Pad, top.Nodes);
                 }
             }
         }
@@ -176,12 +175,5 @@ internal static class LatticeConjugateGradient
             Unsafe.Add(ref rr, i) = v;
             return v * v;
         }
-    }
-
-    /// <summary>p = z + beta p.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void NextDirection(double[] p, float[] z, double beta, int from, int count)
-    {
-        for (int i = from, end = from + count; i < end; i++) p[i] = z[i] + beta * p[i];
     }
 }
