@@ -184,7 +184,7 @@ internal sealed class StencilLevel
 
     /// <summary>
     /// <see cref="SmoothFromZeroThenResidual"/> on the 5-point finest level, with the right-hand side <paramref name="rhs"/> in double
-    /// (padded like the level's vectors) times <paramref name="rhsScale"/> (the stencil's scale times the caller's).
+    /// (padded like the level's vectors) times <paramref name="rhsScale"/>.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void SmoothFiveFromZeroThenResidual(double[] rhs, double rhsScale)

@@ -10,7 +10,8 @@ namespace SlotOpt.Plates.Grid;
 /// 5-point stencil storage on the finest level, 9-point Galerkin stencils below (see
 /// <see cref="BlackBoxCoarsening"/>), coarsest level by band Cholesky.
 ///
-/// The lattice carries every node. Nodes of the outside (psi = 0) are decoupled identity rows, their
+/// The lattice carries every node. Nodes of the outside (psi = 0) are decoupled rows (a diagonal on the
+/// matrix's own scale, so the single-precision scaling fits them too; the cycle returns 0 there for their 0 residual), their
 /// edges folded into their neighbours' diagonals. A merged region (a hole, an enclosed slot or cut:
 /// one unknown of the sheet operator) stays a cluster of lattice nodes whose mutual edges get a
 /// conductance <see cref="GlueFactor"/> times the largest edge conductance of the plate, so the
@@ -41,7 +42,10 @@ public sealed class StructuredMultigrid : IPreconditioner
     private const int CoarsestNodes = 300;
 
     private readonly StencilLevel[] _levels;
-    /// <summary>The power of two the single-precision stencils are scaled by (see <see cref="StencilLevel.ToSinglePrecision"/>); right-hand sides are scaled alike.</summary>
+    /// <summary>
+    /// The power of two s the single-precision stencils are scaled by (see <see cref="StencilLevel.ToSinglePrecision"/>): the cycle
+    /// solves (s A) x' = r, so x' = x / s stays near r in size (s A has diagonals up to about 1) whatever the units of A.
+    /// </summary>
     private readonly double _stencilScale;
     private readonly BandCholesky _coarsest;
     private readonly double[] _coarsestVector;
@@ -116,7 +120,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// (Plates/Thermal: conduction plus a positive diagonal), built from the stencil itself: the entry between node p and
     /// p - 1 is -scale westConductance[p], between p and p - nodesX -scale southConductance[p] (0 unless both nodes carry
     /// unknowns; arrays of at least nodesX nodesY + nodesX + 1 entries), the diagonal by unknown. Nodes without an unknown
-    /// (no metal, or held at a given value) are identity rows; no merged regions. Its <see cref="Operator"/> applies the same matrix.
+    /// (no metal, or held at a given value) are decoupled rows (diagonal: the largest of the given ones); no merged regions. Its <see cref="Operator"/> applies the same matrix.
     /// </summary>
     public static StructuredMultigrid ForNodeStencil(int nodesX, int nodesY, int[] nodeUnknown, double[] westConductance, double[] southConductance,
         double conductanceScale, double[] diagonal)
@@ -130,7 +134,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         for (int p = 0; p < nodes; p++)
         {
             int u = nodeUnknown[p];
-            if (u < 0) { c[p] = 1; continue; }
+            if (u < 0) continue;   // decoupled; its diagonal below
             c[p] = diagonal[u];
             if (!(c[p] > 0)) throw new ArgumentException($"unknown {u} has no positive diagonal", nameof(diagonal));
             if (westConductance[p] != 0)
@@ -144,6 +148,8 @@ public sealed class StructuredMultigrid : IPreconditioner
                 s[p] = -conductanceScale * southConductance[p];
             }
         }
+        double largestDiagonal = diagonal.Max();
+        for (int p = 0; p < nodes; p++) if (nodeUnknown[p] < 0) c[p] = largestDiagonal;
         var rowSum = new double[nodes];   // the diagonal part no coupling carries, as the operator's outside weight
         for (int p = 0; p < nodes; p++) if (nodeUnknown[p] >= 0) rowSum[p] = c[p] + w[p] + w[p + 1] + s[p] + s[p + nodesX];
         var (levels, scale, coarsest, columnsFirst) = Hierarchy(fine);
@@ -192,7 +198,7 @@ public sealed class StructuredMultigrid : IPreconditioner
 
     /// <summary>
     /// The finest level: edge weights as in <see cref="SheetOperator"/> (same resistances, the
-    /// same node lattice), outside nodes as identity rows, merged regions glued; and each node's
+    /// same node lattice), outside nodes as decoupled rows (diagonal: the glue), merged regions glued; and each node's
     /// weight of edges to the outside (the diagonal part of A that no coupling carries).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -226,7 +232,7 @@ public sealed class StructuredMultigrid : IPreconditioner
             for (int i = 0; i < nx; i++)
             {
                 int p = j * nx + i;
-                if (map[p] < 0) c[p] += 1;   // outside: identity row
+                if (map[p] < 0) c[p] += glue;   // outside: a decoupled row on the matrix's scale
                 if (i > 0) w[p] = Couple(p - 1, p, w[p]);
                 if (j > 0) s[p] = Couple(p - nx, p, s[p]);
             }
@@ -251,8 +257,8 @@ public sealed class StructuredMultigrid : IPreconditioner
 
     /// <summary>
     /// z = M^-1 r in the unknowns' numbering. The cycle runs on r times a power of two that brings its largest entry near 1 (exact,
-    /// and it keeps single precision clear of overflow and denormals whatever the units), z is scaled back; so z is the same as
-    /// <see cref="CycleInPlace"/> gives for the same r.
+    /// and with the stencil's own scale it keeps single precision clear of overflow and denormals whatever the units); z is scaled
+    /// back, so it is the same as <see cref="CycleInPlace"/> gives for the same r, but for that exact power-of-two factor.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Apply(ReadOnlySpan<double> r, Span<double> z)
@@ -273,7 +279,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         }
         Cycle(b, scale);
         var x = top.X;
-        double back = 1 / scale;
+        double back = _stencilScale / scale;   // x' = scale x / s
         for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) z[u] = x[o + p] * back; }
         for (int m = 0; m < _mergedUnknown.Length; m++)
         {
@@ -289,8 +295,9 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// <summary>
     /// z = Q^T V Q r on the lattice in <see cref="LatticeConjugateGradient"/>'s layout: r given (padded lattice, double), z into
     /// the finest level's iterate (single precision). A merged region's residual is spread evenly over its nodes for the cycle and put
-    /// back after; its value in z is the mean over its nodes, at its first node, 0 at the others. The caller keeps r within a few
-    /// decades of 1 (the lattice conjugate gradients solve for b / |b|).
+    /// back after; its value in z is the mean over its nodes, at its first node, 0 at the others. z comes out divided by the stencil's
+    /// scale s (a constant factor, to which conjugate gradients are blind). The caller keeps r within a few decades of 1 (the lattice
+    /// conjugate gradients solve for b / |b|).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal void CycleInPlace(double[] b)
@@ -324,23 +331,22 @@ public sealed class StructuredMultigrid : IPreconditioner
         return LatticeConjugateGradient.TrySolve(this, b, psi, criterion, out report);
     }
 
-    /// <summary>The V-cycle from the finest level, whose right-hand side is <paramref name="rhs"/> times <paramref name="rhsScale"/> (padded lattice, double).</summary>
+    /// <summary>The V-cycle for s A from the finest level, whose right-hand side is <paramref name="rhsScale"/> times <paramref name="rhs"/> (padded lattice, double).</summary>
     private void Cycle(double[] rhs, double rhsScale)
     {
         var top = _levels[0];
-        double scale = _stencilScale * rhsScale;
         if (_levels.Length == 1)
         {
             var v = _coarsestVector;
-            for (int p = 0; p < top.Nodes; p++) v[CoarsestIndex(top, p)] = scale * rhs[top.Pad + p];
+            for (int p = 0; p < top.Nodes; p++) v[CoarsestIndex(top, p)] = rhsScale * rhs[top.Pad + p];
             SolveCoarsest(top);
             return;
         }
-        top.SmoothFiveFromZeroThenResidual(rhs, scale);
+        top.SmoothFiveFromZeroThenResidual(rhs, rhsScale);
         Restrict(top, _levels[1]);
         CycleBelow(1);
         ProlongAdd(_levels[1], top);
-        top.SmoothFiveBackward(rhs, scale);
+        top.SmoothFiveBackward(rhs, rhsScale);
     }
 
     /// <summary>The V-cycle from coarse level k, its right-hand side in its B.</summary>
