@@ -68,8 +68,6 @@ internal sealed class StencilLevel
         R = new float[padded];
     }
 
-    public bool IsNinePoint => SouthWest is not null || SingleSouthWest.Length > 0;
-
     /// <summary>
     /// The single-precision copy of the stencil for the smoother, scaled by <paramref name="scale"/> (a power of two, so the scaling
     /// itself is exact, chosen to bring the largest diagonal near 1, far from single precision's overflow and denormals);
