@@ -26,7 +26,6 @@ public class BlackBoxCoarseningTests
                 if (j > 0) { double s = Math.Pow(10, 3 * random.NextDouble() - 2); level.South[p] = -s; level.Centre[p] += s; level.Centre[p - nx] += s; }
                 level.Centre[p] += 0.01 * random.NextDouble();
             }
-        level.Complete();
         return level;
     }
 
@@ -134,7 +133,6 @@ public class BlackBoxCoarseningTests
             double scale = galerkin.Enumerate().Max(Math.Abs);
             double error = (ours - galerkin).Enumerate().Max(Math.Abs);
             Assert.True(error <= 1e-13 * scale, $"step {step}: coarse operator differs from P^T A P by {error / scale:E2} of its largest entry");
-            coarse.Complete();
             fine = coarse;
         }
     }

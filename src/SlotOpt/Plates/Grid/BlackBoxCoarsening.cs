@@ -1,4 +1,5 @@
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 
 namespace SlotOpt.Plates.Grid;
 
@@ -16,7 +17,8 @@ namespace SlotOpt.Plates.Grid;
 /// Where a slot, a hole's edge or a conductivity jump cuts a line the couplings across it are
 /// small, so the weight across falls with them and the coarse operator keeps the cut.
 /// Entries are read straight from the stencil arrays: a coupling that would leave the lattice is
-/// stored as 0 (see <see cref="StencilLevel"/>), so no read needs a bounds test.
+/// stored as 0 (see <see cref="StencilLevel"/>), so no read needs a bounds test (and the reads skip
+/// the runtime's: every index lies in [0, nodes + nx + 1], within the stored length).
 /// </summary>
 internal static class BlackBoxCoarsening
 {
@@ -37,12 +39,36 @@ internal static class BlackBoxCoarsening
         public readonly double C, W, E, S, N, SW, SE, NW, NE;
 
         [MethodImpl(MethodImplOptions.AggressiveInlining)]
-        public Row(StencilLevel f, int p)
+        public Row(in Stencil f, int p)
         {
             int nx = f.Nx;
-            C = f.Centre[p]; W = f.West[p]; E = f.West[p + 1]; S = f.South[p]; N = f.South[p + nx];
-            if (f.SouthWest is { } sw) { SW = sw[p]; NE = sw[p + nx + 1]; SE = f.SouthEast![p]; NW = f.SouthEast[p + nx - 1]; }
+            C = Unsafe.Add(ref f.Centre, p); W = Unsafe.Add(ref f.West, p); E = Unsafe.Add(ref f.West, p + 1);
+            S = Unsafe.Add(ref f.South, p); N = Unsafe.Add(ref f.South, p + nx);
+            if (f.NinePoint)
+            {
+                SW = Unsafe.Add(ref f.SouthWest, p); NE = Unsafe.Add(ref f.SouthWest, p + nx + 1);
+                SE = Unsafe.Add(ref f.SouthEast, p); NW = Unsafe.Add(ref f.SouthEast, p + nx - 1);
+            }
             else { SW = 0; NE = 0; SE = 0; NW = 0; }
+        }
+    }
+
+    /// <summary>A level's double stencil arrays as references (the corner ones point at the centre's on a 5-point level, never read).</summary>
+    private readonly ref struct Stencil
+    {
+        public readonly ref double Centre, West, South, SouthWest, SouthEast;
+        public readonly int Nx;
+        public readonly bool NinePoint;
+
+        public Stencil(StencilLevel f)
+        {
+            Nx = f.Nx;
+            Centre = ref MemoryMarshal.GetArrayDataReference(f.Centre);
+            West = ref MemoryMarshal.GetArrayDataReference(f.West);
+            South = ref MemoryMarshal.GetArrayDataReference(f.South);
+            NinePoint = f.SouthWest is not null;
+            SouthWest = ref NinePoint ? ref MemoryMarshal.GetArrayDataReference(f.SouthWest!) : ref Centre;
+            SouthEast = ref NinePoint ? ref MemoryMarshal.GetArrayDataReference(f.SouthEast!) : ref Centre;
         }
     }
 
@@ -52,6 +78,7 @@ internal static class BlackBoxCoarsening
         int ncx = c.Nx, ncy = c.Ny, nc = ncx * ncy, fnx = f.Nx, fny = f.Ny;
         var xLow = new float[nc]; var xHigh = new float[nc]; var yLow = new float[nc]; var yHigh = new float[nc];
         var cSW = new float[nc]; var cSE = new float[nc]; var cNW = new float[nc]; var cNE = new float[nc];
+        var stencil = new Stencil(f);
         for (int J = 0; J < ncy; J++)
             for (int I = 0; I < ncx; I++)
             {
@@ -59,7 +86,7 @@ internal static class BlackBoxCoarsening
                 int i = 2 * I + 1, j = 2 * J;
                 if (i < fnx)
                 {
-                    var a = new Row(f, j * fnx + i);
+                    var a = new Row(stencil, j * fnx + i);
                     double d = a.C + a.S + a.N;
                     xLow[k] = Ratio(a.W + a.SW + a.NW, d);
                     xHigh[k] = I + 1 < ncx ? Ratio(a.E + a.SE + a.NE, d) : 0;
@@ -67,7 +94,7 @@ internal static class BlackBoxCoarsening
                 i = 2 * I; j = 2 * J + 1;
                 if (j < fny)
                 {
-                    var a = new Row(f, j * fnx + i);
+                    var a = new Row(stencil, j * fnx + i);
                     double d = a.C + a.W + a.E;
                     yLow[k] = Ratio(a.S + a.SW + a.SE, d);
                     yHigh[k] = J + 1 < ncy ? Ratio(a.N + a.NW + a.NE, d) : 0;
@@ -80,7 +107,7 @@ internal static class BlackBoxCoarsening
                 if (i >= fnx || j >= fny) continue;
                 int k = J * ncx + I;
                 bool east = I + 1 < ncx, north = J + 1 < ncy;
-                var a = new Row(f, j * fnx + i);
+                var a = new Row(stencil, j * fnx + i);
                 // the x/y-line neighbours' weights towards each corner (0 where that line node or corner is off the lattice)
                 double wSouthLine = yLow[k], nWestLine = yHigh[k];                               // west neighbour (2I, 2J+1)
                 double eSouthLine = east ? yLow[k + 1] : 0, eNorthLine = east ? yHigh[k + 1] : 0; // east neighbour (2I+2, 2J+1)
@@ -105,53 +132,58 @@ internal static class BlackBoxCoarsening
     private static void GalerkinOperator(StencilLevel f, StencilLevel c)
     {
         int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx;
-        var phi = Bases(c);
-        Span<double> a = stackalloc double[25];   // A phi_K on K's 5 x 5 patch, row by row from the south-west corner
+        var phiArray = Bases(c);
+        ref float phi = ref MemoryMarshal.GetArrayDataReference(phiArray);
+        Span<double> patch = stackalloc double[25];   // A phi_K on K's 5 x 5 patch, row by row from the south-west corner
+        ref double a = ref MemoryMarshal.GetReference(patch);
         var cc = c.Centre; var cw = c.West; var cs = c.South; var csw = c.SouthWest!; var cse = c.SouthEast!;
+        var stencil = new Stencil(f);
+        bool nine = stencil.NinePoint;
         for (int J = 0; J < ncy; J++)
             for (int I = 0; I < ncx; I++)
             {
                 int k = J * ncx + I;
                 int p0 = 2 * J * fnx + 2 * I;
-                a.Clear();
+                patch.Clear();
                 for (int t = 0; t < 9; t++)
                 {
-                    double v = phi[9 * k + t];
+                    double v = Unsafe.Add(ref phi, 9 * k + t);
                     if (v == 0) continue;   // also every support node off the lattice
                     int mi = t % 3 - 1, mj = t / 3 - 1;
-                    var row = new Row(f, p0 + mj * fnx + mi);
+                    var row = new Row(stencil, p0 + mj * fnx + mi);
                     int centre = (mj + 2) * 5 + mi + 2;   // the support node's place in the 5 x 5 patch
-                    a[centre] += row.C * v;
-                    a[centre - 1] += row.W * v;
-                    a[centre + 1] += row.E * v;
-                    a[centre - 5] += row.S * v;
-                    a[centre + 5] += row.N * v;
-                    a[centre - 6] += row.SW * v;
-                    a[centre + 6] += row.NE * v;
-                    a[centre - 4] += row.SE * v;
-                    a[centre + 4] += row.NW * v;
+                    Unsafe.Add(ref a, centre) += row.C * v;
+                    Unsafe.Add(ref a, centre - 1) += row.W * v;
+                    Unsafe.Add(ref a, centre + 1) += row.E * v;
+                    Unsafe.Add(ref a, centre - 5) += row.S * v;
+                    Unsafe.Add(ref a, centre + 5) += row.N * v;
+                    if (!nine) continue;   // a 5-point level has no corner couplings
+                    Unsafe.Add(ref a, centre - 6) += row.SW * v;
+                    Unsafe.Add(ref a, centre + 6) += row.NE * v;
+                    Unsafe.Add(ref a, centre - 4) += row.SE * v;
+                    Unsafe.Add(ref a, centre + 4) += row.NW * v;
                 }
                 int b = 9 * k;   // phi_K: patch places 6 7 8 / 11 12 13 / 16 17 18
-                cc[k] = phi[b] * a[6] + phi[b + 1] * a[7] + phi[b + 2] * a[8] + phi[b + 3] * a[11] + phi[b + 4] * a[12]
-                      + phi[b + 5] * a[13] + phi[b + 6] * a[16] + phi[b + 7] * a[17] + phi[b + 8] * a[18];
+                cc[k] = phiArray[b] * patch[6] + phiArray[b + 1] * patch[7] + phiArray[b + 2] * patch[8] + phiArray[b + 3] * patch[11] + phiArray[b + 4] * patch[12]
+                      + phiArray[b + 5] * patch[13] + phiArray[b + 6] * patch[16] + phiArray[b + 7] * patch[17] + phiArray[b + 8] * patch[18];
                 if (I > 0)
                 {
                     b = 9 * (k - 1);   // the west neighbour's columns 0, 1 over K's patch columns 0, 1 (rows 1 to 3)
-                    cw[k] = phi[b + 1] * a[5] + phi[b + 2] * a[6] + phi[b + 4] * a[10] + phi[b + 5] * a[11] + phi[b + 7] * a[15] + phi[b + 8] * a[16];
+                    cw[k] = phiArray[b + 1] * patch[5] + phiArray[b + 2] * patch[6] + phiArray[b + 4] * patch[10] + phiArray[b + 5] * patch[11] + phiArray[b + 7] * patch[15] + phiArray[b + 8] * patch[16];
                 }
                 if (J > 0)
                 {
                     b = 9 * (k - ncx);   // the south neighbour's rows 1, 2 over K's patch rows 0, 1 (columns 1 to 3)
-                    cs[k] = phi[b + 3] * a[1] + phi[b + 4] * a[2] + phi[b + 5] * a[3] + phi[b + 6] * a[6] + phi[b + 7] * a[7] + phi[b + 8] * a[8];
+                    cs[k] = phiArray[b + 3] * patch[1] + phiArray[b + 4] * patch[2] + phiArray[b + 5] * patch[3] + phiArray[b + 6] * patch[6] + phiArray[b + 7] * patch[7] + phiArray[b + 8] * patch[8];
                     if (I > 0)
                     {
                         b = 9 * (k - ncx - 1);   // south-west: its north-east 2 x 2 over K's patch corner 0, 1, 5, 6
-                        csw[k] = phi[b + 4] * a[0] + phi[b + 5] * a[1] + phi[b + 7] * a[5] + phi[b + 8] * a[6];
+                        csw[k] = phiArray[b + 4] * patch[0] + phiArray[b + 5] * patch[1] + phiArray[b + 7] * patch[5] + phiArray[b + 8] * patch[6];
                     }
                     if (I + 1 < ncx)
                     {
                         b = 9 * (k - ncx + 1);   // south-east: its north-west 2 x 2 over K's patch corner 3, 4, 8, 9
-                        cse[k] = phi[b + 3] * a[3] + phi[b + 4] * a[4] + phi[b + 6] * a[8] + phi[b + 7] * a[9];
+                        cse[k] = phiArray[b + 3] * patch[3] + phiArray[b + 4] * patch[4] + phiArray[b + 6] * patch[8] + phiArray[b + 7] * patch[9];
                     }
                 }
             }

@@ -11,9 +11,12 @@ namespace SlotOpt.Plates.Grid;
 /// step gathers or scatters through the node-to-unknown map. A vector of unknowns is held on the padded
 /// lattice with each unknown at its node, a merged region's at the first of its nodes (its representative)
 /// and 0 at the region's other nodes and the outside: inner products over the lattice are then the
-/// unknowns' inner products. The residual lives in the finest level's right-hand side and the
-/// preconditioned residual in its iterate, so the V-cycle reads and writes them in place. Operator and
-/// dot product p.Ap share one pass over the lattice, as do the updates of x and r and |r|.
+/// unknowns' inner products. The V-cycle reads the residual r where it is and writes the preconditioned
+/// residual z into the finest level's iterate (single precision: the preconditioner's output is rounded
+/// there, see <see cref="StencilLevel"/>; r, x, p, q and every inner product stay double). The next direction
+/// p = z + beta p, the operator and the dot product p.Ap share one pass over the lattice (p updated a row ahead), as do the updates of x and r and |r|. The iteration
+/// runs on b / |b| and psi / |b| (|b| rounded to a power of two, so the scaling is exact), which keeps the
+/// single-precision cycle within a few decades of 1 whatever the units; the stopping rule is relative.
 /// </summary>
 internal static class LatticeConjugateGradient
 {
@@ -30,14 +33,16 @@ internal static class LatticeConjugateGradient
         if (!double.IsFinite(normB)) { report = new SolveReport(SolveStatus.NonFinite, 0, double.NaN); return false; }
         var top = mg.Finest;
         int length = top.X.Length;
-        var r = top.B;                 // residual
         var z = top.X;                 // preconditioned residual
+        var r = new double[length];
         var bl = new double[length];
         var x = new double[length];
         var p = new double[length];
         var q = new double[length];
-        mg.Operator.ToLattice(b, bl);
-        mg.Operator.ToLattice(psi, x);
+        double scale = Math.ScaleB(1, -Math.ILogB(normB));
+        mg.Operator.ToLattice(b, bl, scale);
+        mg.Operator.ToLattice(psi, x, scale);
+        normB *= scale;
         TrueResidual(mg, bl, x, q, r);
         double target = criterion.RelativeResidual * normB;
         double start = Math.Sqrt(Dot(r, r, top.Pad, top.Nodes));
@@ -57,14 +62,14 @@ internal static class LatticeConjugateGradient
                     report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(TrueResidual(mg, bl, x, q, r)) / normB);
                     return false;
                 }
-                // (re)start: p = z = M^-1 r
-                mg.CycleInPlace();
-                Array.Copy(z, p, length);
+                // (re)start: p = z = M^-1 r (beta 0; p holds zeros or the last finite direction)
+                mg.CycleInPlace(r);
                 double rz = Dot(r, z, top.Pad, top.Nodes);
+                double beta = 0;
                 while (iterations < criterion.MaxIterations)
                 {
                     criterion.ThrowIfCancelled();
-                    double pq = mg.Operator.MultiplyOnLattice(p, q);
+                    double pq = mg.Operator.NextDirectionAndMultiply(p, z, beta, q);   // p = z + beta p, q = A p
                     if (!double.IsFinite(pq) || !double.IsFinite(rz))
                     {
                         report = new SolveReport(SolveStatus.NonFinite, iterations, Math.Sqrt(Dot(r, r, top.Pad, top.Nodes)) / normB);
@@ -84,15 +89,14 @@ internal static class LatticeConjugateGradient
                         return false;
                     }
                     if (rn <= target) break;
-                    mg.CycleInPlace();
+                    mg.CycleInPlace(r);
                     double rzNew = Dot(r, z, top.Pad, top.Nodes);
-                    double beta = rzNew / rz;
+                    beta = rzNew / rz;
                     rz = rzNew;
-                    NextDirection(p, z, beta, top.Pad, top.Nodes);
                 }
             }
         }
-        finally { mg.Operator.FromLattice(x, psi); }
+        finally { mg.Operator.FromLattice(x, psi, 1 / scale); }
     }
 
     /// <summary>r = b - A x on the lattice (q as scratch); returns |r|^2.</summary>
@@ -102,6 +106,25 @@ internal static class LatticeConjugateGradient
         mg.Operator.MultiplyOnLattice(x, q);
         for (int i = 0; i < r.Length; i++) r[i] = b[i] - q[i];
         return Dot(r, r, mg.Finest.Pad, mg.Finest.Nodes);
+    }
+
+    /// <summary>a . b over [from, from + count), b in single precision, in four interleaved partial sums (as the double one).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static double Dot(double[] a, float[] b, int from, int count)
+    {
+        ref double ar = ref MemoryMarshal.GetArrayDataReference(a);
+        ref float br = ref MemoryMarshal.GetArrayDataReference(b);
+        double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+        int i = from, end = from + count;
+        for (; i + 3 < end; i += 4)
+        {
+            s0 += Unsafe.Add(ref ar, i) * Unsafe.Add(ref br, i);
+            s1 += Unsafe.Add(ref ar, i + 1) * Unsafe.Add(ref br, i + 1);
+            s2 += Unsafe.Add(ref ar, i + 2) * Unsafe.Add(ref br, i + 2);
+            s3 += Unsafe.Add(ref ar, i + 3) * Unsafe.Add(ref br, i + 3);
+        }
+        for (; i < end; i++) s0 += Unsafe.Add(ref ar, i) * Unsafe.Add(ref br, i);
+        return (s0 + s1) + (s2 + s3);
     }
 
     /// <summary>a . b over [from, from + count), in four interleaved partial sums (so the additions do not wait on one another).</summary>
@@ -152,12 +175,5 @@ internal static class LatticeConjugateGradient
             Unsafe.Add(ref rr, i) = v;
             return v * v;
         }
-    }
-
-    /// <summary>p = z + beta p.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void NextDirection(double[] p, double[] z, double beta, int from, int count)
-    {
-        for (int i = from, end = from + count; i < end; i++) p[i] = z[i] + beta * p[i];
     }
 }

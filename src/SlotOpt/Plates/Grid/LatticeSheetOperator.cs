@@ -12,8 +12,7 @@ namespace SlotOpt.Plates.Grid;
 /// the outside. An edge inside a merged region joins two copies of the same value, so it adds exactly
 /// 0 however strongly the multigrid glues it; E^T sums a region's node rows into its Faraday-law row.
 /// Same matrix as the CSR assembly (each row summed in another order), without storing it: 16 bytes an
-/// unknown instead of about 64. The node vectors are the finest level's X and R, so this operator and
-/// the preconditioner must be applied in turn, never at once (as conjugate gradients does).
+/// unknown instead of about 64 (and a lattice vector of its own once <see cref="Multiply"/> is first called).
 /// </summary>
 public sealed class LatticeSheetOperator : ILinearOperator
 {
@@ -21,6 +20,9 @@ public sealed class LatticeSheetOperator : ILinearOperator
     private readonly double[] _outsideWeight;
     private readonly int[] _nodeUnknown;
     private readonly int[] _mergedNodes, _mergedStart, _mergedUnknown;
+    /// <summary>The merged regions' nodes in node order with the region of each, and each region's new direction (<see cref="NextDirectionAndMultiply"/>).</summary>
+    private readonly int[] _mergedNodesInOrder, _regionInOrder;
+    private readonly double[] _regionDirection;
 
     internal LatticeSheetOperator(StencilLevel fine, double[] outsideWeight, int unknowns, int[] nodeUnknown, int[] mergedNodes, int[] mergedStart, int[] mergedUnknown)
     {
@@ -31,40 +33,46 @@ public sealed class LatticeSheetOperator : ILinearOperator
         _mergedNodes = mergedNodes;
         _mergedStart = mergedStart;
         _mergedUnknown = mergedUnknown;
+        _regionDirection = new double[mergedUnknown.Length];
+        _mergedNodesInOrder = (int[])mergedNodes.Clone();
+        _regionInOrder = new int[mergedNodes.Length];
+        for (int m = 0; m < mergedUnknown.Length; m++)
+            for (int k = mergedStart[m]; k < mergedStart[m + 1]; k++) _regionInOrder[k] = m;
+        Array.Sort(_mergedNodesInOrder, _regionInOrder);
     }
+
+    /// <summary><see cref="Multiply"/>'s x on the padded lattice, allocated on its first call (the lattice conjugate gradients never make one).</summary>
+    private double[]? _latticeX;
 
     public int Rows { get; }
 
-    public long Bytes => 8L * _outsideWeight.Length;
+    public long Bytes => 8L * (_outsideWeight.Length + (_latticeX?.Length ?? 0) + _regionDirection.Length) + 4L * (_mergedNodesInOrder.Length + _regionInOrder.Length);
 
+    /// <summary>y = A x in the unknowns' numbering: x copied to its nodes, each node's row of L added to its unknown's entry of y (E^T).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Multiply(ReadOnlySpan<double> x, Span<double> y)
     {
         var f = _fine;
         var map = _nodeUnknown;
         int o = f.Pad, nx = f.Nx, n = f.Nodes;
-        var xs = f.X; var ys = f.R;
+        var xs = _latticeX ??= new double[n + 2 * o];
         for (int p = 0; p < n; p++) { int u = map[p]; xs[o + p] = u >= 0 ? x[u] : 0; }
+        y.Clear();
         ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
         ref double w = ref MemoryMarshal.GetArrayDataReference(f.West);
         ref double s = ref MemoryMarshal.GetArrayDataReference(f.South);
         ref double xr = ref MemoryMarshal.GetArrayDataReference(xs);
-        ref double yr = ref MemoryMarshal.GetArrayDataReference(ys);
+        ref int mr = ref MemoryMarshal.GetArrayDataReference(map);
         for (int p = 0; p < n; p++)
         {
+            int u = Unsafe.Add(ref mr, p);
+            if (u < 0) continue;
             int q = o + p;
             double v = Unsafe.Add(ref xr, q);
-            // stored couplings are the matrix entries -w
-            Unsafe.Add(ref yr, q) = Unsafe.Add(ref d, p) * v
+            // stored couplings are the matrix entries -w; a merged region's rows summed in node order
+            y[u] += Unsafe.Add(ref d, p) * v
                 - Unsafe.Add(ref w, p) * (v - Unsafe.Add(ref xr, q - 1)) - Unsafe.Add(ref w, p + 1) * (v - Unsafe.Add(ref xr, q + 1))
                 - Unsafe.Add(ref s, p) * (v - Unsafe.Add(ref xr, q - nx)) - Unsafe.Add(ref s, p + nx) * (v - Unsafe.Add(ref xr, q + nx));
-        }
-        for (int p = 0; p < n; p++) { int u = map[p]; if (u >= 0) y[u] = ys[o + p]; }
-        for (int m = 0; m < _mergedUnknown.Length; m++)
-        {
-            double sum = 0;
-            for (int k = _mergedStart[m]; k < _mergedStart[m + 1]; k++) sum += ys[o + _mergedNodes[k]];
-            y[_mergedUnknown[m]] = sum;
         }
     }
 
@@ -76,20 +84,69 @@ public sealed class LatticeSheetOperator : ILinearOperator
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal double MultiplyOnLattice(double[] p, double[] q)
     {
-        var f = _fine;
-        int o = f.Pad, nx = f.Nx, n = f.Nodes;
         for (int m = 0; m < _mergedUnknown.Length; m++)   // E p: the region's value at all its nodes
         {
-            double v = p[o + _mergedNodes[_mergedStart[m]]];
-            for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) p[o + _mergedNodes[k]] = v;
+            double v = p[_fine.Pad + _mergedNodes[_mergedStart[m]]];
+            for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) p[_fine.Pad + _mergedNodes[k]] = v;
         }
+        double dot = ProductOfRows(p, q, 0, _fine.Ny);
+        FoldRegions(p, q);
+        return dot;
+    }
+
+    /// <summary>
+    /// The conjugate gradients' next direction p = z + beta p fused with q = A p (layout as <see cref="MultiplyOnLattice"/>, z the
+    /// preconditioned residual in single precision): p is updated one row ahead of the product, which reads the rows on either side,
+    /// so each row of p is read and written once while in cache. A merged region's new value (from its first node) is set at all its
+    /// nodes as the update reaches them (E p). Returns p . q.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal double NextDirectionAndMultiply(double[] p, float[] z, double beta, double[] q)
+    {
+        int o = _fine.Pad, nx = _fine.Nx, ny = _fine.Ny;
+        for (int m = 0; m < _mergedUnknown.Length; m++)
+        {
+            int first = o + _mergedNodes[_mergedStart[m]];
+            _regionDirection[m] = z[first] + beta * p[first];
+        }
+        int next = 0;   // the next merged node, in node order
+        NextDirectionRow(p, z, beta, 0, ref next);
+        double dot = 0;
+        for (int j = 0; j < ny; j++)
+        {
+            if (j + 1 < ny) NextDirectionRow(p, z, beta, j + 1, ref next);
+            dot += ProductOfRows(p, q, j, j + 1);
+        }
+        FoldRegions(p, q);
+        return dot;
+    }
+
+    /// <summary>p = z + beta p on lattice row j, then the merged regions' nodes of that row set to their region's new value.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void NextDirectionRow(double[] p, float[] z, double beta, int j, ref int next)
+    {
+        int nx = _fine.Nx, o = _fine.Pad;
+        ref double pr = ref MemoryMarshal.GetArrayDataReference(p);
+        ref float zr = ref MemoryMarshal.GetArrayDataReference(z);
+        for (int i = o + j * nx, end = i + nx; i < end; i++) Unsafe.Add(ref pr, i) = Unsafe.Add(ref zr, i) + beta * Unsafe.Add(ref pr, i);
+        int rowEnd = (j + 1) * nx;
+        for (; next < _mergedNodesInOrder.Length && _mergedNodesInOrder[next] < rowEnd; next++)
+            p[o + _mergedNodesInOrder[next]] = _regionDirection[_regionInOrder[next]];
+    }
+
+    /// <summary>q = L p on lattice rows [fromRow, toRow) (p spread over merged regions: E p); returns the rows' share of p . q.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private double ProductOfRows(double[] p, double[] q, int fromRow, int toRow)
+    {
+        var f = _fine;
+        int o = f.Pad, nx = f.Nx;
         ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
         ref double w = ref MemoryMarshal.GetArrayDataReference(f.West);
         ref double s = ref MemoryMarshal.GetArrayDataReference(f.South);
         ref double xr = ref MemoryMarshal.GetArrayDataReference(p);
         ref double yr = ref MemoryMarshal.GetArrayDataReference(q);
         double dot = 0;   // (E p) . (L E p) = p . (E^T L E p)
-        for (int k = 0; k < n; k++)
+        for (int k = fromRow * nx, end = toRow * nx; k < end; k++)
         {
             int i = o + k;
             double v = Unsafe.Add(ref xr, i);
@@ -99,7 +156,14 @@ public sealed class LatticeSheetOperator : ILinearOperator
             Unsafe.Add(ref yr, i) = y;
             dot += v * y;
         }
-        for (int m = 0; m < _mergedUnknown.Length; m++)   // E^T: the region's rows summed at its first node; p back to its layout
+        return dot;
+    }
+
+    /// <summary>E^T: each merged region's rows summed at its first node; p back to its layout (0 at the region's other nodes).</summary>
+    private void FoldRegions(double[] p, double[] q)
+    {
+        int o = _fine.Pad;
+        for (int m = 0; m < _mergedUnknown.Length; m++)
         {
             int first = o + _mergedNodes[_mergedStart[m]];
             double sum = q[first];
@@ -112,29 +176,28 @@ public sealed class LatticeSheetOperator : ILinearOperator
             }
             q[first] = sum;
         }
-        return dot;
     }
 
-    /// <summary>Unknowns to <see cref="MultiplyOnLattice"/>'s layout on the padded lattice.</summary>
+    /// <summary>Unknowns times <paramref name="scale"/> to <see cref="MultiplyOnLattice"/>'s layout on the padded lattice.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal void ToLattice(ReadOnlySpan<double> v, double[] lattice)
+    internal void ToLattice(ReadOnlySpan<double> v, double[] lattice, double scale)
     {
         var map = _nodeUnknown;
         int o = _fine.Pad;
         Array.Clear(lattice);
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) lattice[o + p] = v[u]; }
+        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) lattice[o + p] = scale * v[u]; }
         for (int m = 0; m < _mergedUnknown.Length; m++)
             for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) lattice[o + _mergedNodes[k]] = 0;
     }
 
-    /// <summary>Back from <see cref="MultiplyOnLattice"/>'s layout to unknowns.</summary>
+    /// <summary>Back from <see cref="MultiplyOnLattice"/>'s layout to unknowns, times <paramref name="scale"/>.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal void FromLattice(double[] lattice, Span<double> v)
+    internal void FromLattice(double[] lattice, Span<double> v, double scale)
     {
         var map = _nodeUnknown;
         int o = _fine.Pad;
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) v[u] = lattice[o + p]; }
-        for (int m = 0; m < _mergedUnknown.Length; m++) v[_mergedUnknown[m]] = lattice[o + _mergedNodes[_mergedStart[m]]];
+        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) v[u] = scale * lattice[o + p]; }
+        for (int m = 0; m < _mergedUnknown.Length; m++) v[_mergedUnknown[m]] = scale * lattice[o + _mergedNodes[_mergedStart[m]]];
     }
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]

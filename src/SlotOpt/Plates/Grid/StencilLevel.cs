@@ -1,5 +1,6 @@
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
+using SlotOpt.Numerics;
 
 namespace SlotOpt.Plates.Grid;
 
@@ -14,6 +15,18 @@ namespace SlotOpt.Plates.Grid;
 /// kind of fine node (Dendy's notation): between two coarse nodes in x (XLow, XHigh), in y
 /// (YLow, YHigh), and at a coarse cell's centre (CentreSW, CentreSE, CentreNW, CentreNE), indexed
 /// by the coarse node at the low corner.
+///
+/// Two precisions. The stencil is built in double (Centre, West, ...: the Galerkin products and the
+/// prolongation weights are formed from it); once the next coarser level exists,
+/// <see cref="ToSinglePrecision"/> keeps a single-precision copy for the smoother (couplings times a
+/// power-of-two scale, the inverse diagonal) and drops the double one, except the finest level's
+/// couplings, which the sheet operator applies in double. The cycle's vectors X, B, R are single
+/// precision; the finest level's right-hand side is the caller's double vector (the conjugate
+/// gradients' residual). The kernels compute in single precision too: mixed-precision
+/// multigrid, whose rounding error S. F. McCormick, J. Benzaken and R. Tamstorf ("Algebraic error
+/// analysis for mixed-precision multigrid solvers", SIAM J. Sci. Comput. 43 (2021) S392, arXiv:2007.06614)
+/// bound by the precision times cond(A)^1/2 in energy, harmless in a preconditioner whose outer
+/// conjugate gradients keep the residual in double.
 /// </summary>
 internal sealed class StencilLevel
 {
@@ -21,18 +34,22 @@ internal sealed class StencilLevel
     public int Ny { get; }
     public int Nodes => Nx * Ny;
     public int Pad => Nx + 1;
-    /// <summary>The diagonal; released (empty) once the level below is built, see <see cref="ReleaseCentre"/>.</summary>
+    /// <summary>The double stencil for the setup; released by <see cref="ToSinglePrecision"/> (the finest level keeps West and South).</summary>
     public double[] Centre { get; private set; }
-    /// <summary>1 / Centre, set by <see cref="Complete"/> once the stencil is filled (the smoother multiplies instead of dividing).</summary>
-    public double[] InverseCentre { get; private set; } = Array.Empty<double>();
-    public double[] West { get; }
-    public double[] South { get; }
-    public double[]? SouthWest { get; }
-    public double[]? SouthEast { get; }
-    /// <summary>Iterate, right-hand side and residual (padded).</summary>
-    public double[] X { get; }
-    public double[] B { get; }
-    public double[] R { get; }
+    public double[] West { get; private set; }
+    public double[] South { get; private set; }
+    public double[]? SouthWest { get; private set; }
+    public double[]? SouthEast { get; private set; }
+    /// <summary>The smoother's stencil in single precision: scale times the couplings, 1 / (scale times the diagonal).</summary>
+    public float[] SingleInverseCentre { get; private set; } = [];
+    public float[] SingleWest { get; private set; } = [];
+    public float[] SingleSouth { get; private set; } = [];
+    public float[] SingleSouthWest { get; private set; } = [];
+    public float[] SingleSouthEast { get; private set; } = [];
+    /// <summary>Iterate and residual (padded); right-hand side (padded; empty on the finest level, whose right-hand side the caller passes in double).</summary>
+    public float[] X { get; }
+    public float[] B { get; }
+    public float[] R { get; }
 
     /// <summary>Prolongation weights in single precision (they lie in [0, 1]; the Galerkin product uses these same values, so the cycle stays symmetric).</summary>
     public float[]? XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE;
@@ -46,35 +63,60 @@ internal sealed class StencilLevel
         South = new double[stored];
         if (ninePoint) { SouthWest = new double[stored]; SouthEast = new double[stored]; }
         int padded = nx * ny + 2 * Pad;
-        X = new double[padded];
-        B = new double[padded];
-        R = new double[padded];
+        X = new float[padded];
+        B = ninePoint ? new float[padded] : [];
+        R = new float[padded];
     }
 
-    public bool IsNinePoint => SouthWest is not null;
-
-    /// <summary>Drops the diagonal once only the smoother (which uses <see cref="InverseCentre"/>) needs the level.</summary>
-    public void ReleaseCentre() => Centre = Array.Empty<double>();
-
-    /// <summary>Call once the stencil is filled.</summary>
+    /// <summary>
+    /// The single-precision copy of the stencil for the smoother, scaled by <paramref name="scale"/> (a power of two, so the scaling
+    /// itself is exact, chosen to bring the largest diagonal near 1, far from single precision's overflow and denormals);
+    /// the double stencil is released, but for the couplings of the finest level when <paramref name="keepDoubleCouplings"/>.
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public void Complete()
+    public void ToSinglePrecision(double scale, bool keepDoubleCouplings)
     {
-        InverseCentre = new double[Nodes];
-        for (int p = 0; p < Nodes; p++) InverseCentre[p] = 1 / Centre[p];
+        int stored = West.Length;
+        SingleInverseCentre = new float[Nodes];
+        for (int p = 0; p < Nodes; p++)
+        {
+            float v = (float)(1 / (scale * Centre[p]));
+            if (!float.IsNormal(v) || v < 0) throw new NumericalFailureException($"multigrid level {Nx} x {Ny}: diagonal {Centre[p]:G3} at node {p} is outside single precision's range after scaling by {scale:G3} (coupling contrast too large)");
+            SingleInverseCentre[p] = v;
+        }
+        SingleWest = Single(West, scale, stored);
+        SingleSouth = Single(South, scale, stored);
+        if (SouthWest is not null) { SingleSouthWest = Single(SouthWest, scale, stored); SingleSouthEast = Single(SouthEast!, scale, stored); }
+        Centre = [];
+        SouthWest = null; SouthEast = null;
+        if (!keepDoubleCouplings) { West = []; South = []; }
+
+        static float[] Single(double[] v, double scale, int stored)
+        {
+            var s = new float[stored];
+            for (int p = 0; p < stored; p++) s[p] = (float)(scale * v[p]);
+            return s;
+        }
+    }
+
+    /// <summary>Releases the double stencil of the coarsest level (its band Cholesky factor replaces it; the cycle never smooths there).</summary>
+    public void ReleaseStencil()
+    {
+        Centre = []; West = []; South = []; SouthWest = null; SouthEast = null;
     }
 
     public long Bytes
     {
         get
         {
-            long b = 8L * (Centre.Length + West.Length * (IsNinePoint ? 4 : 2) + InverseCentre.Length + X.Length + B.Length + R.Length);
+            long b = 8L * (Centre.Length + West.Length + South.Length + (SouthWest?.Length ?? 0) + (SouthEast?.Length ?? 0));
+            b += 4L * (SingleInverseCentre.Length + SingleWest.Length + SingleSouth.Length + SingleSouthWest.Length + SingleSouthEast.Length + X.Length + B.Length + R.Length);
             foreach (var p in new[] { XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE }) b += 4L * (p?.Length ?? 0);
             return b;
         }
     }
 
-    /// <summary>Matrix entry between node (i, j) and (i + di, j + dj), |di|, |dj| &lt;= 1; 0 off the lattice.</summary>
+    /// <summary>Matrix entry between node (i, j) and (i + di, j + dj), |di|, |dj| &lt;= 1, from the double stencil; 0 off the lattice.</summary>
     public double Entry(int i, int j, int di, int dj)
     {
         int ii = i + di, jj = j + dj;
@@ -95,130 +137,143 @@ internal sealed class StencilLevel
         }
     }
 
-    /// <summary>One backward Gauss–Seidel sweep on A x = b (lexicographic order reversed): the post-smoother, the transpose of the forward pre-smoother.</summary>
-    public void SmoothBackward()
-    {
-        if (IsNinePoint) SmoothNineBackward(); else SmoothFiveBackward();
-    }
-
     /// <summary>
-    /// The forward sweep from x = 0, followed row by row (one row behind, while the rows are in cache)
-    /// by the residual R = B - A X. The neighbours ahead of the sweep are still 0 when a node is
-    /// updated, so only those behind it are read and X need not be cleared first; and since the sweep
-    /// solves (D + L) X = B, the residual is R = -U X, the couplings to the neighbours ahead.
+    /// The forward sweep from x = 0 on a 9-point level (right-hand side in B), followed row by row (one row behind, while the rows are
+    /// in cache) by the residual R = B - A X. The neighbours ahead of the sweep are still 0 when a node is updated, so only those behind
+    /// it are read and X need not be cleared first; and since the sweep solves (D + L) X = B, the residual is R = -U X, the couplings
+    /// to the neighbours ahead.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void SmoothFromZeroThenResidual()
     {
-        if (IsNinePoint) NineFromZeroThenResidual(); else FiveFromZeroThenResidual();
-    }
-
-    // Rows past the last read zeros from the padding of X and of the stencil arrays.
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void FiveFromZeroThenResidual()
-    {
-        ref double c = ref MemoryMarshal.GetArrayDataReference(InverseCentre);
-        ref double w = ref MemoryMarshal.GetArrayDataReference(West);
-        ref double s = ref MemoryMarshal.GetArrayDataReference(South);
-        ref double x = ref MemoryMarshal.GetArrayDataReference(X);
-        ref double b = ref MemoryMarshal.GetArrayDataReference(B);
-        ref double r = ref MemoryMarshal.GetArrayDataReference(R);
+        ref float c = ref MemoryMarshal.GetArrayDataReference(SingleInverseCentre);
+        ref float w = ref MemoryMarshal.GetArrayDataReference(SingleWest);
+        ref float s = ref MemoryMarshal.GetArrayDataReference(SingleSouth);
+        ref float sw = ref MemoryMarshal.GetArrayDataReference(SingleSouthWest);
+        ref float se = ref MemoryMarshal.GetArrayDataReference(SingleSouthEast);
+        ref float x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref float b = ref MemoryMarshal.GetArrayDataReference(B);
+        ref float r = ref MemoryMarshal.GetArrayDataReference(R);
         int nx = Nx, ny = Ny, o = Pad;
         for (int j = 0; j <= ny; j++)
         {
             if (j < ny)
+            {
+                float previous = 0;   // the node just updated, carried in a register (its west neighbour is padding or the row's first node)
                 for (int p = j * nx, end = p + nx; p < end; p++)
                 {
                     int q = o + p;
-                    double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx);
-                    double inverse = Unsafe.Add(ref c, p);
-                    Unsafe.Add(ref x, q) = Math.FusedMultiplyAdd(-Unsafe.Add(ref w, p) * inverse, Unsafe.Add(ref x, q - 1), rest * inverse);
+                    float rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx)
+                                  - Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1) - Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
+                    float inverse = Unsafe.Add(ref c, p);
+                    previous = MathF.FusedMultiplyAdd(-Unsafe.Add(ref w, p) * inverse, previous, rest * inverse);
+                    Unsafe.Add(ref x, q) = previous;
                 }
+            }
             if (j > 0)
                 for (int p = (j - 1) * nx, end = p + nx; p < end; p++)
                 {
                     int q = o + p;
-                    Unsafe.Add(ref r, q) = -Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx);
+                    Unsafe.Add(ref r, q) = (-Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx)
+                        - Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1) - Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1));
                 }
         }
     }
 
+    /// <summary>
+    /// <see cref="SmoothFromZeroThenResidual"/> on the 5-point finest level, with the right-hand side <paramref name="rhs"/> in double
+    /// (padded like the level's vectors) times <paramref name="rhsScale"/>.
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void NineFromZeroThenResidual()
+    public void SmoothFiveFromZeroThenResidual(double[] rhs, double rhsScale)
     {
-        ref double c = ref MemoryMarshal.GetArrayDataReference(InverseCentre);
-        ref double w = ref MemoryMarshal.GetArrayDataReference(West);
-        ref double s = ref MemoryMarshal.GetArrayDataReference(South);
-        ref double sw = ref MemoryMarshal.GetArrayDataReference(SouthWest!);
-        ref double se = ref MemoryMarshal.GetArrayDataReference(SouthEast!);
-        ref double x = ref MemoryMarshal.GetArrayDataReference(X);
-        ref double b = ref MemoryMarshal.GetArrayDataReference(B);
-        ref double r = ref MemoryMarshal.GetArrayDataReference(R);
+        ref float c = ref MemoryMarshal.GetArrayDataReference(SingleInverseCentre);
+        ref float w = ref MemoryMarshal.GetArrayDataReference(SingleWest);
+        ref float s = ref MemoryMarshal.GetArrayDataReference(SingleSouth);
+        ref float x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref double b = ref MemoryMarshal.GetArrayDataReference(rhs);
+        ref float r = ref MemoryMarshal.GetArrayDataReference(R);
         int nx = Nx, ny = Ny, o = Pad;
         for (int j = 0; j <= ny; j++)
         {
             if (j < ny)
+            {
+                float previous = 0;
                 for (int p = j * nx, end = p + nx; p < end; p++)
                 {
                     int q = o + p;
-                    double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx)
-                                  - Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1) - Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
-                    double inverse = Unsafe.Add(ref c, p);
-                    Unsafe.Add(ref x, q) = Math.FusedMultiplyAdd(-Unsafe.Add(ref w, p) * inverse, Unsafe.Add(ref x, q - 1), rest * inverse);
+                    float rest = (float)(Unsafe.Add(ref b, q) * rhsScale) - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx);
+                    float inverse = Unsafe.Add(ref c, p);
+                    previous = MathF.FusedMultiplyAdd(-Unsafe.Add(ref w, p) * inverse, previous, rest * inverse);
+                    Unsafe.Add(ref x, q) = previous;
                 }
+            }
             if (j > 0)
                 for (int p = (j - 1) * nx, end = p + nx; p < end; p++)
                 {
                     int q = o + p;
-                    Unsafe.Add(ref r, q) = -Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx)
-                        - Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1) - Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
+                    Unsafe.Add(ref r, q) = (-Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx));
                 }
         }
     }
 
     // The neighbour the sweep has just updated enters last, through one fused multiply-add
-    // (x = rest / a_C - (a_W / a_C) x_prev), so the chain from node to node is one instruction long
-    // and the independent terms overlap with the previous node's update instead of waiting for it.
+    // (x = rest / a_C - (a_W / a_C) x_prev), carried in a register, so the chain from node to node is one
+    // instruction long and the independent terms overlap with the previous node's update instead of waiting for it.
+
+    /// <summary>One backward Gauss–Seidel sweep on the 5-point finest level, right-hand side as in <see cref="SmoothFiveFromZeroThenResidual"/>: the post-smoother, the transpose of the forward pre-smoother.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void SmoothFiveBackward()
+    public void SmoothFiveBackward(double[] rhs, double rhsScale)
     {
-        ref double c = ref MemoryMarshal.GetArrayDataReference(InverseCentre);
-        ref double w = ref MemoryMarshal.GetArrayDataReference(West);
-        ref double s = ref MemoryMarshal.GetArrayDataReference(South);
-        ref double x = ref MemoryMarshal.GetArrayDataReference(X);
-        ref double b = ref MemoryMarshal.GetArrayDataReference(B);
-        int nx = Nx, n = Nodes, o = Pad;
-        for (int p = n - 1; p >= 0; p--)
+        ref float c = ref MemoryMarshal.GetArrayDataReference(SingleInverseCentre);
+        ref float w = ref MemoryMarshal.GetArrayDataReference(SingleWest);
+        ref float s = ref MemoryMarshal.GetArrayDataReference(SingleSouth);
+        ref float x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref double b = ref MemoryMarshal.GetArrayDataReference(rhs);
+        int nx = Nx, o = Pad;
+        for (int j = Ny - 1; j >= 0; j--)
         {
-            int q = o + p;
-            double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)
-                          - Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) - Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx);
-            double inverse = Unsafe.Add(ref c, p);
-            Unsafe.Add(ref x, q) = Math.FusedMultiplyAdd(-Unsafe.Add(ref w, p + 1) * inverse, Unsafe.Add(ref x, q + 1), rest * inverse);
+            float previous = 0;   // the east neighbour of the row's last node is 0 (no coupling)
+            for (int p = j * nx + nx - 1, start = j * nx; p >= start; p--)
+            {
+                int q = o + p;
+                float rest = (float)(Unsafe.Add(ref b, q) * rhsScale) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)
+                              - (Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) + Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx));
+                float inverse = Unsafe.Add(ref c, p);
+                previous = MathF.FusedMultiplyAdd(-Unsafe.Add(ref w, p + 1) * inverse, previous, rest * inverse);
+                Unsafe.Add(ref x, q) = previous;
+            }
         }
     }
 
+    /// <summary>One backward Gauss–Seidel sweep on a 9-point level (right-hand side in B).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void SmoothNineBackward()
+    public void SmoothBackward()
     {
-        ref double c = ref MemoryMarshal.GetArrayDataReference(InverseCentre);
-        ref double w = ref MemoryMarshal.GetArrayDataReference(West);
-        ref double s = ref MemoryMarshal.GetArrayDataReference(South);
-        ref double sw = ref MemoryMarshal.GetArrayDataReference(SouthWest!);
-        ref double se = ref MemoryMarshal.GetArrayDataReference(SouthEast!);
-        ref double x = ref MemoryMarshal.GetArrayDataReference(X);
-        ref double b = ref MemoryMarshal.GetArrayDataReference(B);
-        int nx = Nx, n = Nodes, o = Pad;
-        for (int p = n - 1; p >= 0; p--)
+        ref float c = ref MemoryMarshal.GetArrayDataReference(SingleInverseCentre);
+        ref float w = ref MemoryMarshal.GetArrayDataReference(SingleWest);
+        ref float s = ref MemoryMarshal.GetArrayDataReference(SingleSouth);
+        ref float sw = ref MemoryMarshal.GetArrayDataReference(SingleSouthWest);
+        ref float se = ref MemoryMarshal.GetArrayDataReference(SingleSouthEast);
+        ref float x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref float b = ref MemoryMarshal.GetArrayDataReference(B);
+        int nx = Nx, o = Pad;
+        for (int j = Ny - 1; j >= 0; j--)
         {
-            int q = o + p;
-            // the rows below and above summed apart, so the additions do not wait on one another
-            double below = Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) + Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1)
-                           + Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
-            double above = Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx) + Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1)
-                           + Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
-            double rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1) - (below + above);
-            double inverse = Unsafe.Add(ref c, p);
-            Unsafe.Add(ref x, q) = Math.FusedMultiplyAdd(-Unsafe.Add(ref w, p + 1) * inverse, Unsafe.Add(ref x, q + 1), rest * inverse);
+            float previous = 0;
+            for (int p = j * nx + nx - 1, start = j * nx; p >= start; p--)
+            {
+                int q = o + p;
+                // the rows below and above summed apart, so the additions do not wait on one another
+                float below = Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) + Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1)
+                               + Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
+                float above = Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx) + Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1)
+                               + Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
+                float rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1) - (below + above);
+                float inverse = Unsafe.Add(ref c, p);
+                previous = MathF.FusedMultiplyAdd(-Unsafe.Add(ref w, p + 1) * inverse, previous, rest * inverse);
+                Unsafe.Add(ref x, q) = previous;
+            }
         }
     }
 }

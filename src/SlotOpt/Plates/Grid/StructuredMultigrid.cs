@@ -10,7 +10,8 @@ namespace SlotOpt.Plates.Grid;
 /// 5-point stencil storage on the finest level, 9-point Galerkin stencils below (see
 /// <see cref="BlackBoxCoarsening"/>), coarsest level by band Cholesky.
 ///
-/// The lattice carries every node. Nodes of the outside (psi = 0) are decoupled identity rows, their
+/// The lattice carries every node. Nodes of the outside (psi = 0) are decoupled rows (a diagonal on the
+/// matrix's own scale, so the single-precision scaling fits them too; the cycle returns 0 there for their 0 residual), their
 /// edges folded into their neighbours' diagonals. A merged region (a hole, an enclosed slot or cut:
 /// one unknown of the sheet operator) stays a cluster of lattice nodes whose mutual edges get a
 /// conductance <see cref="GlueFactor"/> times the largest edge conductance of the plate, so the
@@ -21,6 +22,9 @@ namespace SlotOpt.Plates.Grid;
 /// residual evenly over its k nodes (Q = E / k, so E^T Q = I) and V the V-cycle of L_g. Q^T V Q is
 /// symmetric positive definite, as conjugate gradients needs: one forward Gauss–Seidel sweep before
 /// and one backward after the coarse correction (V is symmetric), zero start.
+/// The hierarchy is built in double and kept in single precision for the cycle (stencils, level
+/// vectors, transfer weights; see <see cref="StencilLevel"/>), the operator and the conjugate gradients
+/// stay in double; the output M^-1 r is rounded to single precision the same way on every path.
 /// All buffers are allocated once; a cycle allocates nothing.
 /// </summary>
 public sealed class StructuredMultigrid : IPreconditioner
@@ -38,6 +42,11 @@ public sealed class StructuredMultigrid : IPreconditioner
     private const int CoarsestNodes = 300;
 
     private readonly StencilLevel[] _levels;
+    /// <summary>
+    /// The power of two s the single-precision stencils are scaled by (see <see cref="StencilLevel.ToSinglePrecision"/>): the cycle
+    /// solves (s A) x' = r, so x' = x / s stays near r in size (s A has diagonals up to about 1) whatever the units of A.
+    /// </summary>
+    private readonly double _stencilScale;
     private readonly BandCholesky _coarsest;
     private readonly double[] _coarsestVector;
     private readonly bool _coarsestColumnsFirst;
@@ -46,11 +55,14 @@ public sealed class StructuredMultigrid : IPreconditioner
     private readonly int[] _mergedNodes, _mergedStart, _mergedUnknown;
     /// <summary>The merged regions' residuals while <see cref="CycleInPlace"/> has them spread over their nodes.</summary>
     private readonly double[] _mergedResidual;
+    /// <summary><see cref="Apply"/>'s right-hand side on the padded lattice, allocated on its first call (the thin-plate solves never make one).</summary>
+    private double[]? _applyRightHandSide;
 
-    private StructuredMultigrid(StencilLevel[] levels, BandCholesky coarsest, bool coarsestColumnsFirst, int[] nodeUnknown, int[] mergedNodes, int[] mergedStart, int[] mergedUnknown, LatticeSheetOperator op)
+    private StructuredMultigrid(StencilLevel[] levels, double stencilScale, BandCholesky coarsest, bool coarsestColumnsFirst, int[] nodeUnknown, int[] mergedNodes, int[] mergedStart, int[] mergedUnknown, LatticeSheetOperator op)
     {
         Operator = op;
         _levels = levels;
+        _stencilScale = stencilScale;
         _coarsest = coarsest;
         _coarsestColumnsFirst = coarsestColumnsFirst;
         _coarsestVector = new double[levels[^1].Nodes];
@@ -67,13 +79,14 @@ public sealed class StructuredMultigrid : IPreconditioner
     public LatticeSheetOperator Operator { get; }
 
     /// <summary>Bytes held: stencils, transfer weights, level vectors, the coarsest factor and the region lists.</summary>
-    public long Bytes => _levels.Sum(l => l.Bytes) + Operator.Bytes + _coarsest.Bytes + 8L * _coarsestVector.Length + 4L * (_mergedNodes.Length + _mergedStart.Length + _mergedUnknown.Length);
+    public long Bytes => _levels.Sum(l => l.Bytes) + Operator.Bytes + _coarsest.Bytes + 8L * (_coarsestVector.Length + (_applyRightHandSide?.Length ?? 0))
+        + 4L * (_mergedNodes.Length + _mergedStart.Length + _mergedUnknown.Length);
 
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static StructuredMultigrid Build(PlateGrid grid, NodeRegions regions)
     {
         var (fine, outsideWeight) = FineLevel(grid, regions);
-        var (levels, coarsest, columnsFirst) = Hierarchy(fine);
+        var (levels, scale, coarsest, columnsFirst) = Hierarchy(fine);
 
         // merged regions: their nodes, grouped
         var map = regions.NodeUnknown;
@@ -98,7 +111,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         }
         var merged = mergedUnknown.ToArray();
         var op = new LatticeSheetOperator(fine, outsideWeight, regions.UnknownCount, map, nodes, start, merged);
-        return new StructuredMultigrid(levels, coarsest, columnsFirst, map, nodes, start, merged, op);
+        return new StructuredMultigrid(levels, scale, coarsest, columnsFirst, map, nodes, start, merged, op);
     }
 
     /// <summary>
@@ -107,7 +120,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// (Plates/Thermal: conduction plus a positive diagonal), built from the stencil itself: the entry between node p and
     /// p - 1 is -scale westConductance[p], between p and p - nodesX -scale southConductance[p] (0 unless both nodes carry
     /// unknowns; arrays of at least nodesX nodesY + nodesX + 1 entries), the diagonal by unknown. Nodes without an unknown
-    /// (no metal, or held at a given value) are identity rows; no merged regions. Its <see cref="Operator"/> applies the same matrix.
+    /// (no metal, or held at a given value) are decoupled rows (diagonal: the largest of the given ones); no merged regions. Its <see cref="Operator"/> applies the same matrix.
     /// </summary>
     public static StructuredMultigrid ForNodeStencil(int nodesX, int nodesY, int[] nodeUnknown, double[] westConductance, double[] southConductance,
         double conductanceScale, double[] diagonal)
@@ -121,7 +134,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         for (int p = 0; p < nodes; p++)
         {
             int u = nodeUnknown[p];
-            if (u < 0) { c[p] = 1; continue; }
+            if (u < 0) continue;   // decoupled; its diagonal below
             c[p] = diagonal[u];
             if (!(c[p] > 0)) throw new ArgumentException($"unknown {u} has no positive diagonal", nameof(diagonal));
             if (westConductance[p] != 0)
@@ -135,26 +148,34 @@ public sealed class StructuredMultigrid : IPreconditioner
                 s[p] = -conductanceScale * southConductance[p];
             }
         }
+        double largestDiagonal = diagonal.Max();
+        for (int p = 0; p < nodes; p++) if (nodeUnknown[p] < 0) c[p] = largestDiagonal;
         var rowSum = new double[nodes];   // the diagonal part no coupling carries, as the operator's outside weight
         for (int p = 0; p < nodes; p++) if (nodeUnknown[p] >= 0) rowSum[p] = c[p] + w[p] + w[p + 1] + s[p] + s[p + nodesX];
-        var (levels, coarsest, columnsFirst) = Hierarchy(fine);
+        var (levels, scale, coarsest, columnsFirst) = Hierarchy(fine);
         var op = new LatticeSheetOperator(fine, rowSum, diagonal.Length, nodeUnknown, [], [0], []);
-        return new StructuredMultigrid(levels, coarsest, columnsFirst, nodeUnknown, [], [0], [], op);
+        return new StructuredMultigrid(levels, scale, coarsest, columnsFirst, nodeUnknown, [], [0], [], op);
     }
 
-    /// <summary>The levels below a filled finest level, down to the coarsest and its band Cholesky factor.</summary>
+    /// <summary>
+    /// The levels below a filled finest level, down to the coarsest and its band Cholesky factor; each level is turned to single
+    /// precision once the next is built (the finest keeps its double couplings for the operator). The scale is the power of two
+    /// nearest 1 / (the largest diagonal of the finest level).
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static (StencilLevel[] Levels, BandCholesky Coarsest, bool ColumnsFirst) Hierarchy(StencilLevel fine)
+    private static (StencilLevel[] Levels, double Scale, BandCholesky Coarsest, bool ColumnsFirst) Hierarchy(StencilLevel fine)
     {
-        fine.Complete();
+        double largest = 0;
+        for (int p = 0; p < fine.Nodes; p++) largest = Math.Max(largest, fine.Centre[p]);
+        if (!double.IsFinite(largest) || !(largest > 0)) throw new NumericalFailureException($"multigrid: largest diagonal {largest} is not a positive finite number");
+        double scale = Math.ScaleB(1, -Math.ILogB(largest));
         var levels = new List<StencilLevel> { fine };
         var current = fine;
         while (current.Nx >= MinimumSide && current.Ny >= MinimumSide && current.Nodes > CoarsestNodes)
         {
             var next = BlackBoxCoarsening.Coarsen(current);
-            current.ReleaseCentre();   // the smoother needs only 1 / Centre once the next level is built
+            current.ToSinglePrecision(scale, keepDoubleCouplings: current == fine);
             current = next;
-            current.Complete();
             levels.Add(current);
         }
         // coarsest: numbered with the shorter side fastest, so the half-bandwidth is that side + 1
@@ -166,10 +187,10 @@ public sealed class StructuredMultigrid : IPreconditioner
             var (ia, ja) = Position(a, fast, columnsFirst);
             var (ib, jb) = Position(b, fast, columnsFirst);
             int di = ib - ia, dj = jb - ja;
-            return Math.Abs(di) <= 1 && Math.Abs(dj) <= 1 ? last.Entry(ia, ja, di, dj) : 0;
+            return Math.Abs(di) <= 1 && Math.Abs(dj) <= 1 ? scale * last.Entry(ia, ja, di, dj) : 0;
         });
-        last.ReleaseCentre();
-        return (levels.ToArray(), coarsest, columnsFirst);
+        if (last != fine) last.ReleaseStencil();
+        return (levels.ToArray(), scale, coarsest, columnsFirst);
     }
 
     private static (int I, int J) Position(int index, int fast, bool columnsFirst) =>
@@ -177,7 +198,7 @@ public sealed class StructuredMultigrid : IPreconditioner
 
     /// <summary>
     /// The finest level: edge weights as in <see cref="SheetOperator"/> (same resistances, the
-    /// same node lattice), outside nodes as identity rows, merged regions glued; and each node's
+    /// same node lattice), outside nodes as decoupled rows (diagonal: the glue), merged regions glued; and each node's
     /// weight of edges to the outside (the diagonal part of A that no coupling carries).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -211,7 +232,7 @@ public sealed class StructuredMultigrid : IPreconditioner
             for (int i = 0; i < nx; i++)
             {
                 int p = j * nx + i;
-                if (map[p] < 0) c[p] += 1;   // outside: identity row
+                if (map[p] < 0) c[p] += glue;   // outside: a decoupled row on the matrix's scale
                 if (i > 0) w[p] = Couple(p - 1, p, w[p]);
                 if (j > 0) s[p] = Couple(p - nx, p, s[p]);
             }
@@ -234,27 +255,37 @@ public sealed class StructuredMultigrid : IPreconditioner
         }
     }
 
+    /// <summary>
+    /// z = M^-1 r in the unknowns' numbering. The cycle runs on r times a power of two that brings its largest entry near 1 (exact,
+    /// and with the stencil's own scale it keeps single precision clear of overflow and denormals whatever the units); z is scaled
+    /// back, so it is the same as <see cref="CycleInPlace"/> gives for the same r, but for that exact power-of-two factor.
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Apply(ReadOnlySpan<double> r, Span<double> z)
     {
         var top = _levels[0];
-        var b = top.B;
+        var b = _applyRightHandSide ??= new double[top.X.Length];
         var map = _nodeUnknown;
         int o = top.Pad;
+        double largest = 0;
+        for (int u = 0; u < r.Length; u++) largest = Math.Max(largest, Math.Abs(r[u]));
+        if (largest == 0) { z.Clear(); return; }
+        double scale = double.IsFinite(largest) ? Math.ScaleB(1, -Math.ILogB(largest)) : 1;   // not finite: the NaN or infinity goes through to z, for the caller to see
         for (int p = 0; p < map.Length; p++) { int u = map[p]; b[o + p] = u >= 0 ? r[u] : 0; }
         for (int m = 0; m < _mergedUnknown.Length; m++)
         {
             double share = r[_mergedUnknown[m]] / (_mergedStart[m + 1] - _mergedStart[m]);
             for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) b[o + _mergedNodes[q]] = share;
         }
-        Cycle(0);
+        Cycle(b, scale);
         var x = top.X;
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) z[u] = x[o + p]; }
+        double back = _stencilScale / scale;   // x' = scale x / s
+        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) z[u] = x[o + p] * back; }
         for (int m = 0; m < _mergedUnknown.Length; m++)
         {
             double sum = 0;
             for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) sum += x[o + _mergedNodes[q]];
-            z[_mergedUnknown[m]] = sum / (_mergedStart[m + 1] - _mergedStart[m]);
+            z[_mergedUnknown[m]] = (float)(sum / (_mergedStart[m + 1] - _mergedStart[m])) * back;   // rounded as CycleInPlace stores it
         }
     }
 
@@ -262,15 +293,16 @@ public sealed class StructuredMultigrid : IPreconditioner
     internal StencilLevel Finest => _levels[0];
 
     /// <summary>
-    /// z = Q^T V Q r on the lattice in <see cref="LatticeConjugateGradient"/>'s layout: r in the finest level's right-hand side, z into
-    /// its iterate. A merged region's residual is spread evenly over its nodes for the cycle and put back after; its value in z is the
-    /// mean over its nodes, at its first node, 0 at the others.
+    /// z = Q^T V Q r on the lattice in <see cref="LatticeConjugateGradient"/>'s layout: r given (padded lattice, double), z into
+    /// the finest level's iterate (single precision). A merged region's residual is spread evenly over its nodes for the cycle and put
+    /// back after; its value in z is the mean over its nodes, at its first node, 0 at the others. z comes out divided by the stencil's
+    /// scale s (a constant factor, to which conjugate gradients are blind). The caller keeps r within a few decades of 1 (the lattice
+    /// conjugate gradients solve for b / |b|).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal void CycleInPlace()
+    internal void CycleInPlace(double[] b)
     {
         var top = _levels[0];
-        var b = top.B;
         int o = top.Pad;
         var kept = _mergedResidual;
         for (int m = 0; m < _mergedUnknown.Length; m++)
@@ -280,14 +312,14 @@ public sealed class StructuredMultigrid : IPreconditioner
             double share = kept[m] / (_mergedStart[m + 1] - _mergedStart[m]);
             for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) b[o + _mergedNodes[q]] = share;
         }
-        Cycle(0);
+        Cycle(b, 1);
         var x = top.X;
         for (int m = 0; m < _mergedUnknown.Length; m++)
         {
             double sum = 0;
             for (int q = _mergedStart[m]; q < _mergedStart[m + 1]; q++) { int i = o + _mergedNodes[q]; sum += x[i]; x[i] = 0; b[i] = 0; }
             int first = o + _mergedNodes[_mergedStart[m]];
-            x[first] = sum / (_mergedStart[m + 1] - _mergedStart[m]);
+            x[first] = (float)(sum / (_mergedStart[m + 1] - _mergedStart[m]));
             b[first] = kept[m];
         }
     }
@@ -299,38 +331,54 @@ public sealed class StructuredMultigrid : IPreconditioner
         return LatticeConjugateGradient.TrySolve(this, b, psi, criterion, out report);
     }
 
-    private void Cycle(int k)
+    /// <summary>The V-cycle for s A from the finest level, whose right-hand side is <paramref name="rhsScale"/> times <paramref name="rhs"/> (padded lattice, double).</summary>
+    private void Cycle(double[] rhs, double rhsScale)
+    {
+        var top = _levels[0];
+        if (_levels.Length == 1)
+        {
+            var v = _coarsestVector;
+            for (int p = 0; p < top.Nodes; p++) v[CoarsestIndex(top, p)] = rhsScale * rhs[top.Pad + p];
+            SolveCoarsest(top);
+            return;
+        }
+        top.SmoothFiveFromZeroThenResidual(rhs, rhsScale);
+        Restrict(top, _levels[1]);
+        CycleBelow(1);
+        ProlongAdd(_levels[1], top);
+        top.SmoothFiveBackward(rhs, rhsScale);
+    }
+
+    /// <summary>The V-cycle from coarse level k, its right-hand side in its B.</summary>
+    private void CycleBelow(int k)
     {
         var level = _levels[k];
         if (k == _levels.Length - 1)
         {
+            var v = _coarsestVector;
+            for (int p = 0; p < level.Nodes; p++) v[CoarsestIndex(level, p)] = level.B[level.Pad + p];
             SolveCoarsest(level);
             return;
         }
         level.SmoothFromZeroThenResidual();
         var coarse = _levels[k + 1];
         Restrict(level, coarse);
-        Cycle(k + 1);
+        CycleBelow(k + 1);
         ProlongAdd(coarse, level);
         level.SmoothBackward();
     }
 
+    /// <summary>Node p of the coarsest level in the band Cholesky factor's numbering (the shorter side fastest).</summary>
+    private int CoarsestIndex(StencilLevel level, int p) => _coarsestColumnsFirst ? (p % level.Nx) * level.Ny + p / level.Nx : p;
+
+    /// <summary>Solves the coarsest level for the right-hand side in <see cref="_coarsestVector"/> (Cholesky numbering) into its X.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void SolveCoarsest(StencilLevel level)
     {
         var v = _coarsestVector;
-        int fast = _coarsestColumnsFirst ? level.Ny : level.Nx, o = level.Pad;
-        for (int p = 0; p < level.Nodes; p++)
-        {
-            var (i, j) = (p % level.Nx, p / level.Nx);
-            v[_coarsestColumnsFirst ? i * fast + j : p] = level.B[o + p];
-        }
+        int o = level.Pad;
         _coarsest.Solve(v);
-        for (int p = 0; p < level.Nodes; p++)
-        {
-            var (i, j) = (p % level.Nx, p / level.Nx);
-            level.X[o + p] = v[_coarsestColumnsFirst ? i * fast + j : p];
-        }
+        for (int p = 0; p < level.Nodes; p++) level.X[o + p] = (float)v[CoarsestIndex(level, p)];
     }
 
     /// <summary>
@@ -342,8 +390,8 @@ public sealed class StructuredMultigrid : IPreconditioner
     private static void Restrict(StencilLevel f, StencilLevel c)
     {
         int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, ncy = c.Ny, fo = f.Pad, co = c.Pad;
-        ref double r = ref MemoryMarshal.GetArrayDataReference(f.R);
-        ref double b = ref MemoryMarshal.GetArrayDataReference(c.B);
+        ref float r = ref MemoryMarshal.GetArrayDataReference(f.R);
+        ref float b = ref MemoryMarshal.GetArrayDataReference(c.B);
         ref float xl = ref MemoryMarshal.GetArrayDataReference(c.XLow!); ref float xh = ref MemoryMarshal.GetArrayDataReference(c.XHigh!);
         ref float yl = ref MemoryMarshal.GetArrayDataReference(c.YLow!); ref float yh = ref MemoryMarshal.GetArrayDataReference(c.YHigh!);
         ref float sw = ref MemoryMarshal.GetArrayDataReference(c.CentreSW!); ref float se = ref MemoryMarshal.GetArrayDataReference(c.CentreSE!);
@@ -361,12 +409,12 @@ public sealed class StructuredMultigrid : IPreconditioner
             {
                 int k = J * ncx + I, q = fo + 2 * J * fnx + 2 * I;
                 // three rows summed apart, so the additions do not wait on one another
-                double middle = Unsafe.Add(ref r, q) + Unsafe.Add(ref xl, k) * Unsafe.Add(ref r, q + 1) + Unsafe.Add(ref xh, k - 1) * Unsafe.Add(ref r, q - 1);
-                double above = Unsafe.Add(ref yl, k) * Unsafe.Add(ref r, q + fnx) + Unsafe.Add(ref sw, k) * Unsafe.Add(ref r, q + fnx + 1)
+                float middle = Unsafe.Add(ref r, q) + Unsafe.Add(ref xl, k) * Unsafe.Add(ref r, q + 1) + Unsafe.Add(ref xh, k - 1) * Unsafe.Add(ref r, q - 1);
+                float above = Unsafe.Add(ref yl, k) * Unsafe.Add(ref r, q + fnx) + Unsafe.Add(ref sw, k) * Unsafe.Add(ref r, q + fnx + 1)
                                + Unsafe.Add(ref se, k - 1) * Unsafe.Add(ref r, q + fnx - 1);
-                double below = Unsafe.Add(ref yh, k - ncx) * Unsafe.Add(ref r, q - fnx) + Unsafe.Add(ref nw, k - ncx) * Unsafe.Add(ref r, q - fnx + 1)
+                float below = Unsafe.Add(ref yh, k - ncx) * Unsafe.Add(ref r, q - fnx) + Unsafe.Add(ref nw, k - ncx) * Unsafe.Add(ref r, q - fnx + 1)
                                + Unsafe.Add(ref ne, k - ncx - 1) * Unsafe.Add(ref r, q - fnx - 1);
-                double v = middle + above + below;
+                float v = middle + above + below;
                 Unsafe.Add(ref b, co + k) = v;
             }
             for (int I = lastInner + 1; I < ncx; I++) RestrictAtEdge(f, c, I, J);
@@ -381,7 +429,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, fo = f.Pad;
         int i = 2 * I, j = 2 * J, k = J * ncx + I, q = fo + j * fnx + i;
         bool up = j + 1 < fny, down = J > 0, right = i + 1 < fnx, left = I > 0;
-        double middle = r[q], above = 0, below = 0;   // grouped as in the loop without tests
+        float middle = r[q], above = 0, below = 0;   // grouped as in the loop without tests
         if (right) middle += c.XLow![k] * r[q + 1];
         if (left) middle += c.XHigh![k - 1] * r[q - 1];
         if (up)
@@ -396,7 +444,7 @@ public sealed class StructuredMultigrid : IPreconditioner
             if (right) below += c.CentreNW![k - ncx] * r[q - fnx + 1];
             if (left) below += c.CentreNE![k - ncx - 1] * r[q - fnx - 1];
         }
-        double v = middle + above + below;
+        float v = middle + above + below;
         c.B[c.Pad + k] = v;
     }
 
@@ -417,7 +465,7 @@ public sealed class StructuredMultigrid : IPreconditioner
                 for (int I = 0; I < pairs; I++)
                 {
                     int k = k0 + I;
-                    double low = xc[co + k], high = xc[co + k + 1];
+                    float low = xc[co + k], high = xc[co + k + 1];
                     xf[row + 2 * I] += low;
                     xf[row + 2 * I + 1] += xl[k] * low + xh[k] * high;
                 }
@@ -428,7 +476,7 @@ public sealed class StructuredMultigrid : IPreconditioner
                 for (int I = 0; I < pairs; I++)
                 {
                     int k = k0 + I;
-                    double a = xc[co + k], b = xc[co + k + 1], d = xc[co + k + ncx], e = xc[co + k + ncx + 1];
+                    float a = xc[co + k], b = xc[co + k + 1], d = xc[co + k + ncx], e = xc[co + k + ncx + 1];
                     xf[row + 2 * I] += yl[k] * a + yh[k] * d;
                     xf[row + 2 * I + 1] += (sw[k] * a + se[k] * b) + (nw[k] * d + ne[k] * e);
                 }
