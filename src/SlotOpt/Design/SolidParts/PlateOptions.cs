@@ -33,7 +33,7 @@ public static class PlateOptions
         using var _ = ownDeadline;
         var deadline = limits.Deadline!;
         var geometries = SlotChoices(part).ToList();
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count, ThermalOptionsPerGeometry(part));
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count, ThermalOptionsPerGeometry(part), TravelPositions(part));
         var solvedGeometries = new SolvedGeometry[geometries.Count];
         var heat = new Dictionary<(double, string), TemperatureBracket.Outcome>[geometries.Count];
         var done = 0;
@@ -185,6 +185,9 @@ public static class PlateOptions
     /// <summary>The thicknesses x materials each slot geometry is heated for (0 without [parts.thermal]): the memory model's thermal terms.</summary>
     private static int ThermalOptionsPerGeometry(PlatePart part) => part.Thermal is null ? 0 : part.ThicknessesM.Count * part.Materials.Count;
 
+    /// <summary>The travel positions a moving source's coupled ranking keeps per geometry (0 for other excitations): the memory model's ranking term.</summary>
+    private static int TravelPositions(PlatePart part) => part.Excitation is PlateExcitation.Moving moving ? moving.Positions : 0;
+
     /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
@@ -195,7 +198,7 @@ public static class PlateOptions
             _ => [],
         };
         var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = features };
-        var cap = limits.CellCap(SlotChoices(part).Count(), ThermalOptionsPerGeometry(part));
+        var cap = limits.CellCap(SlotChoices(part).Count(), ThermalOptionsPerGeometry(part), TravelPositions(part));
         if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
         return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };
     }
@@ -212,7 +215,7 @@ public static class PlateOptions
     public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1, ThermalOptionsPerGeometry(part));
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1, ThermalOptionsPerGeometry(part), TravelPositions(part));
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits, Screen(part, solved)) : null;
