@@ -11,8 +11,12 @@ public delegate void ComplexMap(Complex[] x, Complex[] y);
 /// modified Gram-Schmidt Arnoldi, complex Givens rotations). x holds the warm start on entry.
 /// Stops when the true relative residual |b - A x| / |b| is at most criterion.RelativeResidual
 /// (the Arnoldi estimate is confirmed by a true residual at each restart and at the end), fails
-/// after criterion.MaxIterations inner iterations or on NaN/Inf. The update is x += M^-1 (V y), so
-/// only the Krylov basis (at most m + 1 vectors, allocated as the iteration reaches them) is stored.
+/// after criterion.MaxIterations inner iterations or on NaN/Inf. The preconditioned vectors z_j = M^-1 v_j are
+/// kept and the update is x += Z y (flexible GMRES: Y. Saad, "A flexible inner-outer preconditioned GMRES algorithm",
+/// SIAM J. Sci. Comput. 14 (1993) 461-469; with an exact fixed M the same iterate as x += M^-1 (V y)), so the Arnoldi
+/// relation A Z = V H holds for the vectors actually used even when M^-1 is applied in single precision: the true
+/// residual then follows the Arnoldi estimate instead of stalling at the preconditioner's rounding. The basis and the
+/// preconditioned vectors (at most 2 m + 1 vectors) are allocated as the iteration reaches them.
 /// </summary>
 public static class ComplexGmres
 {
@@ -32,7 +36,7 @@ public static class ComplexGmres
         var cs = new double[restart];
         var sn = new Complex[restart];
         var g = new Complex[restart + 1];
-        var z = new Complex[n];
+        var z = new Complex[restart][];    // z_j = M^-1 v_j, allocated as the iteration reaches them
         var w = new Complex[n];
         int iterations = 0;
         while (true)
@@ -53,8 +57,9 @@ public static class ComplexGmres
             for (; j < restart && iterations < criterion.MaxIterations; j++)
             {
                 criterion.ThrowIfCancelled();
-                preconditioner(v[j], z);
-                a(z, w);
+                z[j] ??= new Complex[n];
+                preconditioner(v[j], z[j]);
+                a(z[j], w);
                 for (int i = 0; i <= j; i++)
                 {
                     Complex hij = Dot(v[i], w);
@@ -73,7 +78,7 @@ public static class ComplexGmres
                 iterations++;
                 if (g[j + 1].Magnitude <= target || hnext == 0) { j++; break; }
             }
-            // y = H^-1 g (upper triangular, j x j), x += M^-1 (V y)
+            // y = H^-1 g (upper triangular, j x j), x += Z y
             var y = new Complex[j];
             for (int i = j - 1; i >= 0; i--)
             {
@@ -81,10 +86,7 @@ public static class ComplexGmres
                 for (int k = i + 1; k < j; k++) s -= h[i, k] * y[k];
                 y[i] = s / h[i, i];
             }
-            Array.Clear(w);
-            for (int i = 0; i < j; i++) Axpy(y[i], v[i], w);
-            preconditioner(w, z);
-            for (int i = 0; i < n; i++) x[i] += z[i];
+            for (int i = 0; i < j; i++) Axpy(y[i], z[i], x);
         }
     }
 

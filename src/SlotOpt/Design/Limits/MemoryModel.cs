@@ -61,10 +61,11 @@ public static class MemoryModel
     public const double OwnFieldBytesPerPaddedCell = 4 * 16;
 
     /// <summary>
-    /// The own-field solve's GMRES basis per unknown, at most restart + 1 complex vectors (16 B each): the bound, as the basis
-    /// is allocated only as far as the iteration reaches (13-16 vectors in the benches).
+    /// The own-field solve's GMRES vectors per unknown, at most restart + 1 basis vectors and restart preconditioned ones
+    /// (flexible GMRES), complex, 16 B each: the bound, as both are allocated only as far as the iteration reaches
+    /// (16-22 of each in the benches).
     /// </summary>
-    public const double GmresBytesPerCell = (ComplexGmresRestart + 1) * 16;
+    public const double GmresBytesPerCell = (2 * ComplexGmresRestart + 1) * 16;
 
     private const int ComplexGmresRestart = SlotOpt.Numerics.ComplexGmres.DefaultRestart;
 
