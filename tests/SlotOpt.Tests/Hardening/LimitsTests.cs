@@ -89,7 +89,7 @@ public sealed class LimitsTests : IDisposable
     {
         var run = RunMeasured("plate", Plate("[grid]\ncell = \"0.5 mm\""), "--max-memory", "300 MB");
         Assert.True(run.ExitCode == 5, $"exit {run.ExitCode}: {run.Stderr}");
-        Assert.Matches(@"needs about [\d.]+ MB .*the memory limit is 300 MB \(--max-memory\)", run.Stderr);
+        Assert.Matches(@"needs about [\d.]+ (MB|GB) .*the memory limit is 300 MB \(--max-memory\)", run.Stderr);
         Assert.True(run.PeakBytes < 300e6, $"peak {run.PeakBytes / 1e6:F0} MB");
     }
 
