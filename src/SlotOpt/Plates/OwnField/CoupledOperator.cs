@@ -55,6 +55,16 @@ internal sealed class CoupledOperator
         for (int i = 0; i < y.Length; i++) y[i] = new Complex(_zRe[i], _zIm[i]) + _coefficient * _work[i];
     }
 
+    /// <summary>y = A x (the resistance-limited part alone, on the real and imaginary parts).</summary>
+    public void ApplySheet(Complex[] x, Complex[] y)
+    {
+        Split(x);
+        var a = _model.Multigrid.Operator;
+        a.Multiply(_re, _zRe);
+        a.Multiply(_im, _zIm);
+        for (int i = 0; i < y.Length; i++) y[i] = new Complex(_zRe[i], _zIm[i]);
+    }
+
     /// <summary>z = M^-1 r: one multigrid V-cycle of A on each of the real and imaginary parts.</summary>
     public void Precondition(Complex[] r, Complex[] z)
     {
