@@ -21,6 +21,8 @@ internal sealed class CoarseOwnFieldLevel
     public LatticeTransfer Transfer { get; }
     /// <summary>Fine over coarse cell area: a smooth field's flux through a fine hat over that through a coarse hat at the same place.</summary>
     public double FluxScale { get; }
+    /// <summary>Bytes held: the coarse multigrid, reaction operator and the transfer.</summary>
+    public long Bytes => Model.Multigrid.Bytes + Reaction.Bytes + Transfer.Bytes;
 
     private CoarseOwnFieldLevel(SheetModel model, ReactionOperator reaction, LatticeTransfer transfer, double fluxScale)
     {

@@ -25,6 +25,7 @@ internal sealed class LatticeTransfer
 
     public int FineUnknowns => _valueShare.Length;
     public int CoarseUnknowns => _coarseWeight.Length;
+    public long Bytes => 4L * (_fineUnknown.Length + _coarseUnknown.Length) + 8L * (_weight.Length + _valueShare.Length + _coarseWeight.Length);
 
     public LatticeTransfer(SheetModel fine, SheetModel coarse)
     {

@@ -33,8 +33,8 @@ public sealed partial class ReactionOperator
     public ReactionKernel Kernel { get; }
     public int PaddedX => _convolution.PaddedX;
     public int PaddedY => _convolution.PaddedY;
-    /// <summary>Bytes held: the padded lattice's buffers and the kernel spectra built so far.</summary>
-    public long Bytes => _convolution.Bytes + _shared.Bytes + 4L * _interiorUnknown.Length;
+    /// <summary>Bytes held: the padded lattice's buffers, the kernel spectra built so far and the AC coarse level once built.</summary>
+    public long Bytes => _convolution.Bytes + _shared.Bytes + 4L * _interiorUnknown.Length + (_coarseLevel?.Bytes ?? 0);
 
     private ReactionOperator(SheetModel model, PaddedConvolution convolution, LatticeSpectra shared)
     {
