@@ -18,6 +18,14 @@ namespace SlotOpt.Plates.OwnField;
 /// free-lattice factor Phi = A^/(A^ + c S^) by FFT (<see cref="ReactionOperator.CoupledFactor"/>, exact on an
 /// unbounded uniform sheet): measured, it halves the iterations at v = w (bench: 21 to 10 per offset). For AC
 /// it saved too few iterations (16 to 17 on the slotted bench plate, 17 to 12 on a disc) to pay for its FFT.
+/// AC solves on lattices of 64 cells a side or more use the two-grid cycle of <see cref="TwoLevelAcPreconditioner"/> instead
+/// (bench plate: 16 to 7 outer iterations). Why a coarse lattice rather than a few deflated modes: on the bench plate (128 x 128
+/// cells) the preconditioned spectrum 1 + j c mu is a continuum, c mu from 0 to 1.6 with 40 values above 0.2, not a few outliers;
+/// GMRES on such a segment converges by a factor 1/|w0 + sqrt(w0^2 - 1)| = 0.30 an iteration (w0 = -1 + 2j/(c mu_max), the segment
+/// mapped to [-1, 1]), 15 iterations to 1e-8 as observed. Deflating the top 10, 20, 40 Ritz vectors of A^-1 R (60 Lanczos steps)
+/// left 13, 12, 12 iterations (10 each with an exact A^-1), for a per-geometry cost of many solves. The additive two-level form
+/// M^-1 = V + P (K_H^-1 - A_H^-1) P^T (no fine product, which would deflate exactly for Galerkin coarse operators on an invariant
+/// space) made it worse with rediscretised coarse operators: 19 iterations at 4x coarser, 25 at 8x.
 /// </summary>
 internal sealed class CoupledOperator
 {
@@ -53,6 +61,16 @@ internal sealed class CoupledOperator
         a.Multiply(_re, _zRe);
         a.Multiply(_im, _zIm);
         for (int i = 0; i < y.Length; i++) y[i] = new Complex(_zRe[i], _zIm[i]) + _coefficient * _work[i];
+    }
+
+    /// <summary>y = A x (the resistance-limited part alone, on the real and imaginary parts).</summary>
+    public void ApplySheet(Complex[] x, Complex[] y)
+    {
+        Split(x);
+        var a = _model.Multigrid.Operator;
+        a.Multiply(_re, _zRe);
+        a.Multiply(_im, _zIm);
+        for (int i = 0; i < y.Length; i++) y[i] = new Complex(_zRe[i], _zIm[i]);
     }
 
     /// <summary>z = M^-1 r: one multigrid V-cycle of A on each of the real and imaginary parts.</summary>

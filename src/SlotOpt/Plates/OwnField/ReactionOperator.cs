@@ -26,12 +26,15 @@ public sealed partial class ReactionOperator
     private readonly LatticeSpectra _shared;
     private readonly KernelSpectrum _spectrumR;
 
+    private CoarseOwnFieldLevel? _coarseLevel;
+    private bool _coarseLevelBuilt;
+
     public SheetModel Model { get; }
     public ReactionKernel Kernel { get; }
     public int PaddedX => _convolution.PaddedX;
     public int PaddedY => _convolution.PaddedY;
-    /// <summary>Bytes held: the padded lattice's buffers and the kernel spectra built so far.</summary>
-    public long Bytes => _convolution.Bytes + _shared.Bytes + 4L * _interiorUnknown.Length;
+    /// <summary>Bytes held: the padded lattice's buffers, the kernel spectra built so far and the AC coarse level once built.</summary>
+    public long Bytes => _convolution.Bytes + _shared.Bytes + 4L * _interiorUnknown.Length + (_coarseLevel?.Bytes ?? 0);
 
     private ReactionOperator(SheetModel model, PaddedConvolution convolution, LatticeSpectra shared)
     {
@@ -55,6 +58,19 @@ public sealed partial class ReactionOperator
         int ix = l.NodesX - 2, iy = l.NodesY - 2;           // interior nodes: the border is outside (NodeRegions)
         var convolution = new PaddedConvolution(ix, iy, threads);
         return new ReactionOperator(model, convolution, LatticeSpectra.For(l, convolution));
+    }
+
+    /// <summary>
+    /// The plate on a coarser lattice for the AC solves' two-grid preconditioner (<see cref="TwoLevelAcPreconditioner"/>), built on first
+    /// use and kept (it depends only on the geometry); null when the lattice is too small for one (the V-cycle alone then).
+    /// </summary>
+    internal CoarseOwnFieldLevel? CoarseLevel
+    {
+        get
+        {
+            if (!_coarseLevelBuilt) { _coarseLevel = CoarseOwnFieldLevel.For(this); _coarseLevelBuilt = true; }
+            return _coarseLevel;
+        }
     }
 
     /// <summary>The smallest 2^k or 3 x 2^k at least 2 n (so at least 2 n - 1: linear, not circular, convolution of n samples with a kernel of 2 n - 1 taps).</summary>

@@ -20,6 +20,10 @@ public static class ReactionSolver
         out ReactionAcSolution? solution, out string failure) =>
         TrySolveAc(reaction, source, conductor, criterion, null, out solution, out failure);
 
+    /// <summary>
+    /// The preconditioner is the two-grid cycle of <see cref="TwoLevelAcPreconditioner"/> on lattices of 64 cells a side or more
+    /// (the coarse level built on the operator's first AC solve and kept), the V-cycle of A alone below.
+    /// </summary>
     /// <param name="initialGuess">
     /// u = psi / G to start the coupled iteration from (one per unknown of the reaction operator's model), e.g. the
     /// <see cref="ReactionAcSolution.U"/> of the same plate at a nearby conductivity, thickness or frequency; null starts
@@ -52,8 +56,10 @@ public static class ReactionSolver
         var u = new Complex[model.Unknowns];
         CheckGuess(initialGuess?.Length, model);
         for (int i = 0; i < b.Length; i++) { b[i] = new Complex(bRe[i], bIm[i]); u[i] = initialGuess?[i] ?? new Complex(u0Re[i], u0Im[i]); }
-        var op = CoupledOperator.Ac(model, reaction, 2 * Math.PI * source.FrequencyHz, g);
-        if (!ComplexGmres.TrySolve(op.Apply, op.Precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
+        double omega = 2 * Math.PI * source.FrequencyHz;
+        var op = CoupledOperator.Ac(model, reaction, omega, g);
+        ComplexMap precondition = reaction.CoarseLevel is { } coarse ? new TwoLevelAcPreconditioner(op, coarse, omega, g).Apply : op.Precondition;
+        if (!ComplexGmres.TrySolve(op.Apply, precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
         {
             failure = $"coupled AC solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
             return false;
