@@ -35,10 +35,10 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
         if (!designs.Any(d => d.Option.Id == plate.Reference.Id)) designs.Add((plate.Reference, DesignRole.Reference));
         var n0 = turning.Rpm;
         var ends = designs.Select(d => ReynoldsLimitRpm(part, turning, d.Option, problem)).ToList();
-        var maxRpm = Math.Max(Math.Max(2 * n0, part.MinTorque?.Rpm * 1.25 ?? 0), Math.Min(1.25 * ends.Max(), 4 * n0));
+        var maxRpm = Math.Max(Math.Max(2 * n0, part.MinBraking?.Speed * 1.25 ?? 0), Math.Min(1.25 * ends.Max(), 4 * n0));
         // a brake (min_torque): on to past the chosen disc's torque peak, which a thin sheet under a compact source shows near the path speed
         // 1.272 w, w the receding-image speed (Reitz, J. Appl. Phys. 41 (1970) 2067, thin-sheet drag), capped at ten times the source's speed
-        if (part.MinTorque is not null)
+        if (part.MinBraking is not null)
         {
             var chosenSheet = SheetOf(part, (PlateChoice)chosen.Choice, problem);
             var peakRpm = RotationalSpeed.RpmFromRadPerS(1.272 * chosenSheet.RecedingImageSpeedMPerS / turning.Source.SourceRadiusM);

@@ -68,7 +68,7 @@ public static class PlateOptions
                 screened[g].Add(Scale(part, solvedGeometries[g], thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop,
                     heat[g].GetValueOrDefault((thickness, materialName))));
         }
-        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null && part.MinDrag is null, processCapped);
+        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null && part.MinBraking is null, processCapped);
     }
 
     /// <summary>With [parts.thermal]: the temperature verdict of every thickness and material of one solved geometry (the process does not heat the plate).</summary>
@@ -294,19 +294,16 @@ public static class PlateOptions
             rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, acField?.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {Numbers.Of(drag!.Value, "N")} exceeds the part's limit of {Numbers.Of(maxDrag, "N")}"));
-        if (rejection is null && part.MinDrag is { } minDrag && drag is { } dragN)
-        {
-            rejection = minDrag.Check(dragN, moving!.SpeedMPerS);
-            if (rejection is null && minDrag.SpeedMPerS != moving.SpeedMPerS)
-                flags.AddRange(Validity.ForMoving(sheet, minDrag.SpeedMPerS).Warnings.Select(w => string.Create(ci, $"at {minDrag.SpeedMPerS:0.###} m/s: {w}")));
-        }
         if (rejection is null && part.MaxTorqueNm is { } maxTorque && torque > maxTorque)
             rejection = new(RuleKind.TorqueAboveLimit, string.Create(ci, $"torque {Numbers.Of(torque!.Value, "N m")} exceeds the part's limit of {Numbers.Of(maxTorque, "N m")}"));
-        if (rejection is null && part.MinTorque is { } minTorque && torque is { } torqueNm)
+        if (rejection is null && part.MinBraking is { } minimum && (minimum.Quantity == BrakingQuantity.Drag ? drag : torque) is { } braking)
         {
-            rejection = minTorque.Check(torqueNm, turning!.Rpm);
-            if (rejection is null && minTorque.Rpm != turning.Rpm)
-                flags.AddRange(Validity.ForMoving(sheet, turning.PathSpeedMPerS * minTorque.Rpm / turning.Rpm).Warnings.Select(w => string.Create(ci, $"at {minTorque.Rpm:0.##} rpm: {w}")));
+            // the source's own speed (m/s, or rpm for a disc) and the plate's path speed at the minimum's speed, for the validity there
+            var (sourceSpeed, pathSpeedMPerS) = minimum.Quantity == BrakingQuantity.Drag ? (moving!.SpeedMPerS, minimum.Speed)
+                : (turning!.Rpm, turning.PathSpeedMPerS * minimum.Speed / turning.Rpm);
+            rejection = minimum.Check(braking, sourceSpeed);
+            if (rejection is null && minimum.Speed != sourceSpeed)
+                flags.AddRange(Validity.ForMoving(sheet, pathSpeedMPerS).Warnings.Select(w => $"at {minimum.SpeedWords}: {w}"));
         }
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {Numbers.Watts(loss.TotalW)} exceeds the part's limit of {Numbers.Watts(maxLoss)}"));

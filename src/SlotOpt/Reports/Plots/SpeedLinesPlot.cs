@@ -62,7 +62,7 @@ public static class SpeedLinesPlot
             + (offPlot.Count > 0 ? $" (for some sheets only above {Numbers.Of(offPlot.Min(), "rpm")}, off the plot)" : "")
             + ". Above it the real torque is lower, passes a maximum and falls. Not a brake rating.";
         var plot = PlotStyle.NewPlot($"{part.Name}: braking torque against speed", "disc speed (rpm)", "braking torque (N m)");
-        Draw(plot, words, lines, n0, nMax, plate.ReferenceIsCurrent, reynoldsLimit, part.MaxTorqueNm, part.MinTorque is { } wanted ? new Point(wanted.Rpm, wanted.TorqueNm, null) : null);
+        Draw(plot, words, lines, n0, nMax, plate.ReferenceIsCurrent, reynoldsLimit, part.MaxTorqueNm, part.MinBraking is { } wanted ? new Point(wanted.Speed, wanted.Value, null) : null);
         var legendPx = PlotStyle.LegendBelow(plot);
         return PlotStyle.Render(plot, TorqueFileStem(partIndex, part), $"Braking torque against speed: {part.Name}", caption, heightPx: PlotStyle.HeightPx + legendPx);
     }
