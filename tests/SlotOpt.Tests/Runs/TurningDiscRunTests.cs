@@ -118,6 +118,29 @@ public class TurningDiscRunTests(Xunit.Abstractions.ITestOutputHelper output)
         finally { File.Delete(path); }
     }
 
+    // `slotopt evaluate --json` carries the disc's braking torque under torque_n_m, the key result.json uses: T = P / omega of the part's loss
+    // at 1000 rpm and drag_n = T / r at the magnets' 25 mm radius (power balance of a steady rotation, common practice, no source). Tolerance
+    // 1e-12: the same doubles divided once, only rounding. A part that does not turn has no torque_n_m key at all.
+    [Fact]
+    public void Evaluate_json_gives_the_disc_torque_and_no_torque_for_other_parts()
+    {
+        var path = Path.Combine(Path.GetTempPath(), "slotopt-evaluate-disc-json-" + Guid.NewGuid().ToString("N") + ".toml");
+        File.WriteAllText(path, Brake);
+        try
+        {
+            var run = SlotOpt.Tests.Cli.SlotOptInProcess.Run("evaluate", path, "--json");
+            Assert.Equal(0, run.ExitCode);
+            var disc = System.Text.Json.JsonDocument.Parse(run.Stdout).RootElement.GetProperty("parts")[0];
+            double loss = disc.GetProperty("loss_w").GetDouble(), torque = disc.GetProperty("torque_n_m").GetDouble(), omega = RunRpm * 2 * Math.PI / 60;
+            Assert.Equal(1, torque / (loss / omega), 12);
+            Assert.Equal(1, disc.GetProperty("drag_n").GetDouble() / (torque / 0.025), 12);
+        }
+        finally { File.Delete(path); }
+        var plates = SlotOpt.Tests.Cli.SlotOptInProcess.Run("evaluate", SlotOpt.Tests.Reports.ReportRuns.ProblemPath("actuator-product"), "--json");
+        Assert.Equal(0, plates.ExitCode);
+        Assert.All(System.Text.Json.JsonDocument.Parse(plates.Stdout).RootElement.GetProperty("parts").EnumerateArray(), p => Assert.False(p.TryGetProperty("torque_n_m", out _)));
+    }
+
     [Fact]
     public void A_radially_slotted_option_is_named_as_a_disc_with_its_slots_once()
     {
