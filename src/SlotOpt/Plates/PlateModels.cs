@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Grid;
@@ -42,7 +43,7 @@ public static class PlateModels
         {
             var depthSource = source as IDepthAcFieldSource ?? new DepthIndependentField(source);
             var thick = ThickPlateSolver.SolveAcConverged(model, depthSource, conductor, accuracy, criterion);
-            notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {thick.LayerError:P2}); " +
+            notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {Numbers.Percent(thick.LayerError)}); " +
                 (source is IDepthAcFieldSource ? "the source's field at each layer's depth" : "the source's plane field is used at every depth"));
             return new PlateSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes, thick.Iterations, thick.RelativeResidual, null);
         }

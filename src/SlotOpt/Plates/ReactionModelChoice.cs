@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using SlotOpt.Plates.Conductors;
 
 namespace SlotOpt.Plates;
@@ -64,11 +65,11 @@ public static class ReactionModelChoice
         double rmLimit = ReynoldsThreshold(accuracy), tLimit = ThicknessThreshold(accuracy);
         if (thicknessToSkinDepth > tLimit)
             return new ModelChoice(SheetModelKind.BeyondThinSheet, reynoldsNumber, thicknessToSkinDepth, rmLimit, tLimit,
-                $"t/delta = {thicknessToSkinDepth:G3} > {tLimit:G3}: the field does not cross the thickness uniformly and the thin-sheet models do not hold; AC cases need the layered thick-plate model");
+                $"t/delta = {Numbers.Sig(thicknessToSkinDepth)} > {Numbers.Sig(tLimit)}: the field does not cross the thickness uniformly and the thin-sheet models do not hold; AC cases need the layered thick-plate model");
         if (reynoldsNumber > rmLimit)
             return new ModelChoice(SheetModelKind.ThinSheetReaction, reynoldsNumber, thicknessToSkinDepth, rmLimit, tLimit,
-                $"Rm = {reynoldsNumber:G3} > {rmLimit:G3}: the eddy currents' own field changes loss and drag by more than {accuracy:P0}");
+                $"Rm = {Numbers.Sig(reynoldsNumber)} > {Numbers.Sig(rmLimit)}: the eddy currents' own field changes loss and drag by more than {Numbers.Percent(accuracy)}");
         return new ModelChoice(SheetModelKind.ResistanceLimited, reynoldsNumber, thicknessToSkinDepth, rmLimit, tLimit,
-            $"Rm = {reynoldsNumber:G3} <= {rmLimit:G3} and t/delta = {thicknessToSkinDepth:G3} <= {tLimit:G3}: the resistance-limited model is within {accuracy:P0}");
+            $"Rm = {Numbers.Sig(reynoldsNumber)} <= {Numbers.Sig(rmLimit)} and t/delta = {Numbers.Sig(thicknessToSkinDepth)} <= {Numbers.Sig(tLimit)}: the resistance-limited model is within {Numbers.Percent(accuracy)}");
     }
 }
