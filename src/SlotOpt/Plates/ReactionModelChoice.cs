@@ -43,6 +43,19 @@ public static class ReactionModelChoice
         return Choose(v.ReynoldsNumber, conductor.ThicknessM / deltaC, accuracy);
     }
 
+    /// <summary>
+    /// The speed (m/s) above which <see cref="ForMoving"/> leaves the resistance-limited model: the lower of the speed where Rm = mu0 sigma t v / 2
+    /// reaches <see cref="ReynoldsThreshold"/> (Rm grows as v) and the one where t / delta_c, delta_c = sqrt(2 L / (mu0 mu_r sigma v)), reaches
+    /// <see cref="ThicknessThreshold"/> (it grows as sqrt v); both figures rise with speed, so the choice is resistance-limited at and below it.
+    /// </summary>
+    public static double ResistanceLimitedEndSpeed(ConductingSheet conductor, double sourceLengthM, double accuracy = DefaultAccuracy)
+    {
+        double mu0Sigma = Validity.Mu0 * conductor.ConductivitySPerM, t = conductor.ThicknessM, tLimit = ThicknessThreshold(accuracy);
+        double byReynolds = 2 * ReynoldsThreshold(accuracy) / (mu0Sigma * t);                                          // mu0 sigma t v / 2 = Rm limit
+        double byThickness = 2 * sourceLengthM * tLimit * tLimit / (mu0Sigma * conductor.RelativePermeability * t * t);   // t / delta_c = t/delta limit
+        return Math.Min(byReynolds, byThickness);
+    }
+
     /// <summary>The automatic choice, or the model the user asked for with what the validity figures call for in its reason.</summary>
     public static ModelChoice Forced(ModelChoice automatic, SheetModelKind? asked) =>
         asked is not { } kind || kind == automatic.Kind ? automatic

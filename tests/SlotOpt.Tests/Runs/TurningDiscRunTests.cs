@@ -198,6 +198,33 @@ public class TurningDiscRunTests(Xunit.Abstractions.ITestOutputHelper output)
         Assert.True(lines.MaxRpm >= 1.25 * NamedRpm);                                       // the plot reaches the min_torque's speed
     }
 
+    // One rule for the speed where a disc's torque line changes model and the model its points carry: the seam (TurningDiscModel.ValidityOf,
+    // ReactionModelChoice at 1 %: Rm = mu0 sigma t v / 2 <= sqrt(0.01) and t / delta_c <= (6.3)^(1/4)) is resistance-limited just below
+    // ModelSwitchRpm and not just above it (1e-9 relative either side: the thresholds are met exactly there), and every point of every line
+    // is resistance-limited exactly when it lies at or below its line's switch. The switch is never above the speed where Rm = 0.1 at the
+    // magnets' 25 mm radius, v = 2 x 0.1 / (mu0 sigma t) (Saslow, Am. J. Phys. 60 (1992) 693: Rm = v / w, w = 2 / (mu0 sigma t)); 1e-12, rounding.
+    [Fact]
+    public void The_torque_lines_mark_the_speed_where_the_disc_model_switches()
+    {
+        var r = Run.Value;
+        var part = (PlatePart)r.Parts[0].Part;
+        var turning = (PlateExcitation.Turning)part.Excitation;
+        foreach (var line in r.Figures.TorqueSpeedOf("brake disc").Lines)
+        {
+            var choice = (PlateChoice)line.Option.Choice;
+            var material = r.Problem.Library.GetConductor(choice.Material, part.Name);
+            var sheet = new SlotOpt.Plates.Conductors.ConductingSheet(material.ConductivityAt(part.TemperatureK), choice.ThicknessM, material.RelativePermeability);
+            PlateExcitation.Turning At(double rpm) => turning with { Source = turning.Source.AtSpeed(SlotOpt.Plates.Sources.Rotation.RotationalSpeed.RadPerSFromRpm(rpm)) };
+            Assert.Equal(TurningDiscModel.ModelSwitchRpm(turning, sheet), line.ModelSwitchRpm);
+            Assert.Equal(SlotOpt.Plates.SheetModelKind.ResistanceLimited, TurningDiscModel.ValidityOf(At(line.ModelSwitchRpm * (1 - 1e-9)), sheet).Kind);
+            Assert.NotEqual(SlotOpt.Plates.SheetModelKind.ResistanceLimited, TurningDiscModel.ValidityOf(At(line.ModelSwitchRpm * (1 + 1e-9)), sheet).Kind);
+            foreach (var p in line.Points.Where(p => p.Rpm > 0))
+                Assert.Equal(p.Rpm <= line.ModelSwitchRpm, p.Model == "resistance-limited");
+            double reynoldsSwitchRpm = 2 * 0.1 / (4e-7 * Math.PI * sheet.ConductivitySPerM * sheet.ThicknessM) / 0.025 * 60 / (2 * Math.PI);
+            Assert.InRange(line.ModelSwitchRpm, 0, reynoldsSwitchRpm * (1 + 1e-12));
+        }
+    }
+
     // The report draws the line the run computed (reports never solve): one torque-speed figure for the disc, rendered through PlotChecks
     // (legend clear of the data, axes with units: it throws otherwise), its speed axis in rpm.
     [Fact]
