@@ -142,7 +142,7 @@ public static class PlateModels
         bool thickAgainstGap = t >= gap;
         if (!asked && auto.Kind != SheetModelKind.BeyondThinSheet && !thickAgainstGap) return null;
         string why = auto.Kind == SheetModelKind.BeyondThinSheet ? auto.Reason
-            : thickAgainstGap ? $"the block ({t * 1e3:G3} mm) is at least as thick as the gap ({gap * 1e3:G3} mm): the field changes across it; {auto.Reason}"
+            : thickAgainstGap ? $"the block ({Numbers.Of(t * 1e3, "mm")}) is at least as thick as the gap ({Numbers.Of(gap * 1e3, "mm")}): the field changes across it; {auto.Reason}"
             : $"asked for; the validity figures call for {ReactionModelChoice.Name(auto.Kind)} ({auto.Reason})";
         return auto with { Kind = SheetModelKind.ThickSlab, Reason = $"exact wide slab under sliding magnets, every depth and its own field: {why}" };
     }
@@ -152,7 +152,7 @@ public static class PlateModels
     {
         if (g.Cutouts.Count + g.Slots.Count + g.Cuts.Count + g.Grooves.Count + g.Zones.Count + g.Patterns.Count > 0 || g.ConductivityFactorAt is not null)
             return "the plate has slots, cut-outs, cuts, grooves or zones, and the slab model is a plain block";
-        if (sheet.RelativePermeability != 1) return $"the block is magnetic (relative permeability {sheet.RelativePermeability:G3}) and the slab model is for mu = mu0";
+        if (sheet.RelativePermeability != 1) return $"the block is magnetic (relative permeability {Numbers.Sig(sheet.RelativePermeability)}) and the slab model is for mu = mu0";
         var array = magnets.Magnets;
         double reach = SlabEdgeClearanceInSourceHeights * (array.GapM + array.Magnets.Max(m => m.Magnet.HeightM));
         var (min, max) = g.Bounds;
@@ -160,7 +160,7 @@ public static class PlateModels
         double bottom = array.Magnets.Min(m => m.Centre.Y - m.Magnet.HalfWidthYM) - min.Y, top = max.Y - array.Magnets.Max(m => m.Centre.Y + m.Magnet.HalfWidthYM);
         double clearance = Math.Min(Math.Min(left, right), Math.Min(bottom, top));
         return clearance < reach
-            ? $"the plate's edge comes within {clearance * 1e3:G3} mm of the magnets' footprint, less than {SlabEdgeClearanceInSourceHeights} far-face heights ({reach * 1e3:G3} mm): the block is not wide against the magnets"
+            ? $"the plate's edge comes within {Numbers.Of(clearance * 1e3, "mm")} of the magnets' footprint, less than {SlabEdgeClearanceInSourceHeights} far-face heights ({Numbers.Of(reach * 1e3, "mm")}): the block is not wide against the magnets"
             : null;
     }
 
