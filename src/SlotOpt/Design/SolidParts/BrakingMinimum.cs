@@ -1,5 +1,4 @@
 using SlotOpt.Tables;
-using System.Globalization;
 
 namespace SlotOpt.Design.SolidParts;
 
@@ -52,9 +51,7 @@ public sealed record BrakingMinimum
     public string SpeedUnit => Quantity == BrakingQuantity.Drag ? "m/s" : "rpm";
 
     /// <summary>The named speed with its unit, as warnings and rule breaks print it.</summary>
-    public string SpeedWords => Quantity == BrakingQuantity.Drag
-        ? string.Create(CultureInfo.InvariantCulture, $"{Speed:0.###} m/s")
-        : string.Create(CultureInfo.InvariantCulture, $"{Speed:0.##} rpm");
+    public string SpeedWords => Numbers.Of(Speed, SpeedUnit);
 
     /// <summary>The resistance-limited number at this speed from the one at the source's speed: X(v) = X(v0) v / v0 (the loss grows as v^2, F = P / v, T = P / omega).</summary>
     public double ScreenValue(double atSourceSpeed, double sourceSpeed) => atSourceSpeed * Speed / sourceSpeed;
