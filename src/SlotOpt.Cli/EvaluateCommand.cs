@@ -39,7 +39,7 @@ public static class EvaluateCommand
                     rows.Select(r => new EvaluateJson.Part(
                         r.Part.Name, r.IsCurrent ? "current" : "baseline", r.Option.Description,
                         r.Option.Loss.TotalW, r.Option.Loss.HysteresisW, r.Option.Loss.ClassicalW, r.Option.Loss.ExcessW, r.Option.Loss.PlateEddyW,
-                        r.Option.DragN, r.Option.BuildCost, r.Option.Rejection?.Message, r.Option.Flags)).ToList(),
+                        r.Option.DragN, r.Option.BuildCost, r.Option.Rejection?.Message, r.Option.Flags) { TorqueNm = r.Option.TorqueNm }).ToList(),
                     totalLoss,
                     totalCost,
                     problem.Economics.ValuePerWatt,

@@ -46,10 +46,8 @@ public static class RunText
             o.WriteLine(string.Create(ci, $"    {(r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")}: {reference.Description}"));
             o.WriteLine($"             loss {Numbers.Watts(reference.Loss.TotalW)}{Torque(reference.TorqueNm)}{Drag(reference.DragN)}{(reference.Model is { } model ? $" ({model.Name} model)" : "")}, build cost {Numbers.Money(reference.BuildCost, cur)}{(reference.Rejection is null ? "" : $" (breaks: {reference.Rejection.Message})")}");
             if (r.Confirmation(chosen.PartName) is { } confirmed) o.WriteLine($"    confirmed: {ReportContent.ConfirmationText(confirmed)}");
-            if (r.Confirmation(chosen.PartName)?.MinimumTorque is { } minimumTorque)
-                o.WriteLine($"    minimum torque: {Numbers.Of(minimumTorque.TorqueNm, "N m")} at {Numbers.Of(minimumTorque.Rpm, "rpm")} ({ReactionModelChoice.Name(minimumTorque.Model)}) {(minimumTorque.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Of(minimumTorque.RequiredNm, "N m")}");
-            if (r.Confirmation(chosen.PartName)?.MinimumDrag is { } minimum)
-                o.WriteLine($"    minimum drag: {Numbers.Newtons(minimum.DragN)} at {Numbers.Of(minimum.SpeedMPerS, "m/s")} ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Newtons(minimum.RequiredN)}");
+            if (r.Confirmation(chosen.PartName)?.Minimum is { Wanted: var wanted } minimum)
+                o.WriteLine($"    minimum {wanted.Name}: {Numbers.Of(minimum.Achieved, wanted.Unit)} at {Numbers.Of(wanted.Speed, wanted.SpeedUnit)} ({ReactionModelChoice.Name(minimum.Model)}) {(minimum.Reached ? "reaches" : "FALLS SHORT of")} the required {Numbers.Of(wanted.Value, wanted.Unit)}");
             foreach (var role in new[] { DesignRole.Chosen, DesignRole.Reference })
                 if (r.HeatOf(chosen.PartName, role) is { } heat) o.WriteLine($"    {(role == DesignRole.Chosen ? "chosen" : r.Parts[i].ReferenceIsCurrent ? "current" : "baseline")} temperature: {Temperature(heat)}");
             foreach (var flag in chosen.Flags) o.WriteLine($"    warning: {flag}");

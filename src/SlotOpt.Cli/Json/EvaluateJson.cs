@@ -2,7 +2,7 @@ using SlotOpt.Reports.Json;
 
 namespace SlotOpt.Cli;
 
-/// <summary>`slotopt evaluate --json`: each part's current design (or baseline), its loss by origin, drag and cost, and the totals.</summary>
+/// <summary>`slotopt evaluate --json`: each part's current design (or baseline), its loss by origin, drag (a turning disc's torque) and cost, and the totals.</summary>
 public sealed record EvaluateJson(
     string Problem,
     string Currency,
@@ -25,5 +25,10 @@ public sealed record EvaluateJson(
         double? DragN,
         double BuildCost,
         string? Breaks,
-        IReadOnlyList<string> Flags);
+        IReadOnlyList<string> Flags)
+    {
+        /// <summary>A turning disc: the braking torque (drag_n is then the tangential force at the magnets' radius); absent for other parts.</summary>
+        [System.Text.Json.Serialization.JsonPropertyName("torque_n_m")]
+        public double? TorqueNm { get; init; }
+    }
 }

@@ -46,11 +46,11 @@ public sealed record EvaluationLimits
     /// materials heated on each; for a moving source over <paramref name="travelPositions"/> positions, its coupled ranking), and the
     /// own-field confirmation at its largest padded lattice (<see cref="MemoryModel.OwnFieldBytesPerCellBound"/>).
     /// </summary>
-    public long CellCap(int geometries, int thermalOptionsPerGeometry = 0, int travelPositions = 0)
+    public long CellCap(int geometries, int thermalOptionsPerGeometry = 0, int travelPositions = 0, int rotatingRateSets = 0)
     {
         geometries = Math.Max(geometries, 1);
         var screening = MemoryModel.CellsWithin(MaxMemoryBytes,
-            MemoryModel.ScreeningBytesPerCell(geometries, Threads, thermalOptionsPerGeometry) + MemoryModel.RankingBytesPerCell(geometries, Threads, travelPositions));
+            MemoryModel.ScreeningBytesPerCell(geometries, Threads, thermalOptionsPerGeometry, rotatingRateSets) + MemoryModel.RankingBytesPerCell(geometries, Threads, travelPositions));
         var ownField = MemoryModel.CellsWithin(MaxMemoryBytes, MemoryModel.OwnFieldBytesPerCellBound);
         return (long)Math.Min(screening, ownField);
     }
@@ -67,7 +67,7 @@ public sealed record EvaluationLimits
     /// Throws when an explicit grid of a part with <paramref name="geometries"/> slot geometries would not fit in memory (the screening, the
     /// ranking of a moving source over <paramref name="travelPositions"/> positions with its actual padded lattice, or the own-field confirmation).
     /// </summary>
-    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, int geometries, int thermalOptionsPerGeometry = 0, int travelPositions = 0)
+    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, int geometries, int thermalOptionsPerGeometry = 0, int travelPositions = 0, int rotatingRateSets = 0)
     {
         if (cellSizeM is not { } h) return;
         var (min, max) = outline.Bounds;
@@ -75,7 +75,7 @@ public sealed record EvaluationLimits
         var cells = (long)Math.Min(nx * ny, long.MaxValue / 2);
         var (nodesX, nodesY) = ((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4));
         geometries = Math.Max(geometries, 1);
-        var screening = MemoryModel.Screening(cells, geometries, Threads, thermalOptionsPerGeometry, travelPositions, MemoryModel.PaddedCells(nodesX, nodesY) / Math.Max(cells, 1));
+        var screening = MemoryModel.Screening(cells, geometries, Threads, thermalOptionsPerGeometry, travelPositions, MemoryModel.PaddedCells(nodesX, nodesY) / Math.Max(cells, 1), rotatingRateSets);
         var estimate = Math.Max(screening, MemoryModel.OwnField(nodesX, nodesY));
         CheckMemory($"part {partName}: a {Numbers.Of(h * 1e3, "mm")} grid ({Numbers.Sig(cells)} cells, {geometries} slot geometries kept, {Math.Min(Threads, geometries)} solved at once)",
             estimate, "choose a larger cell, fewer slot choices or fewer threads");

@@ -69,21 +69,20 @@ public static class PlatePartReader
             foreach (var key in new[] { "max_torque", "min_torque", "min_torque_speed" }.Where(s.Has))
                 s.Error(key, "a torque is for a turning disc (shape = \"disc\", [parts.source] motion = \"rotation\"); sliding parts take max_drag and min_drag");
         if (minTorqueRpm is not null && minTorqueNm is null) s.Error("min_torque_speed", "names the speed of a min_torque: give min_torque as well");
-        MinimumTorque? minTorque = null;
+        BrakingMinimum? minBraking = null;
         if (turning is not null && minTorqueNm is { } wantedTorque && minTorqueRpm is null or (> 0 and <= 1e6))
         {
             var rpm = minTorqueRpm ?? turning.Rpm;
-            minTorque = new MinimumTorque(wantedTorque, rpm);
+            minBraking = BrakingMinimum.Torque(wantedTorque, rpm);
             if (maxTorque is { } limit && minTorqueRpm is null && wantedTorque > limit)
                 s.Error("min_torque", $"{wantedTorque:0.###} N m is above max_torque ({limit:0.###} N m) at the same speed: no option can meet both");
         }
         if (maxDrag is not null && excitation is { IsMoving: false } && turning is null) s.Error("max_drag", "a drag limit needs a moving source ([parts.source] kind = \"moving_poles\" or \"magnets\")");
-        MinimumDrag? minDrag = null;
         if (minDragSpeed is not null && minDragN is null) s.Error("min_drag_speed", "names the speed of a min_drag: give min_drag as well");
         if (minDragN is { } force && excitation is PlateExcitation.Moving moving)
         {
             var speed = minDragSpeed ?? moving.SpeedMPerS;
-            minDrag = new MinimumDrag(force, speed);
+            minBraking = BrakingMinimum.Drag(force, speed);
             if (maxDrag is { } limit && speed == moving.SpeedMPerS && force > limit)
                 s.Error("min_drag", $"{force:0.###} N is above max_drag ({limit:0.###} N) at the same speed: no option can meet both");
         }
@@ -98,7 +97,7 @@ public static class PlatePartReader
         }
         if (name is null || outline is null || thicknesses is null || materials.Count == 0 || excitation is null) return null;
         return new PlatePart(name, s.Line, temperature, maxLoss, outline, thicknesses, materials, excitation, families, processes,
-            maxDrag, minLigament, cell, current, thermal, minDrag, disc, maxTorque, minTorque) { DeclaredLossKind = lossKind };
+            maxDrag, minLigament, cell, current, thermal, disc, maxTorque, minBraking) { DeclaredLossKind = lossKind };
     }
 
     private static Polygon? ReadOutline(TomlSection s)

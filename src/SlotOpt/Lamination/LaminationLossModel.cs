@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using SlotOpt.Materials;
 using SlotOpt.Waveforms;
 
@@ -84,20 +85,20 @@ public static class LaminationLossModel
     }
 
     private static ValidityFlag BeyondGrade(ElectricalSteel steel, double peak) =>
-        new("flux-beyond-grade", () => $"peak {peak:0.###} T exceeds the {steel.MaxFluxT:0.##} T that {steel.Grade} carries at 10 kA/m: the steel saturates and the loss model does not hold");
+        new("flux-beyond-grade", () => $"peak {Numbers.Of(peak, "T")} exceeds the {Numbers.Of(steel.MaxFluxT, "T")} that {steel.Grade} carries at 10 kA/m: the steel saturates and the loss model does not hold");
 
     private static ValidityFlag NearSaturation(ElectricalSteel steel, double peak) =>
-        new("flux-near-saturation", () => $"peak {peak:0.###} T is above the knee ({steel.KneeFluxT:0.##} T, the polarisation at 5 kA/m) of {steel.Grade}: magnetising current and loss rise steeply");
+        new("flux-near-saturation", () => $"peak {Numbers.Of(peak, "T")} is above the knee ({Numbers.Of(steel.KneeFluxT, "T")}, the polarisation at 5 kA/m) of {steel.Grade}: magnetising current and loss rise steeply");
 
     private static ValidityFlag ThickAgainstSkinDepth(ElectricalSteel steel, double f, double ratio, double skinFactor) =>
-        new("thick-against-skin-depth", () => $"thickness is {ratio:0.##} skin depths at {f:0.#} Hz (mu_r {steel.RelativePermeability:0}): classical loss corrected by {skinFactor:0.###}, with linear permeability assumed");
+        new("thick-against-skin-depth", () => $"thickness is {Numbers.Sig(ratio)} skin depths at {Numbers.Of(f, "Hz")} (mu_r {Numbers.Sig(steel.RelativePermeability)}): classical loss corrected by {Numbers.Sig(skinFactor)}, with linear permeability assumed");
 
     private static ValidityFlag SkinInHarmonics(SpectralSkinFactor spectral) =>
-        new("skin-effect-in-harmonics", () => $"the harmonics of the waveform are skin-limited: classical loss over the full spectrum ({spectral.OrdersSummed} harmonics, then the asymptotic tail) corrected by {spectral.Factor:0.###}, with linear permeability assumed");
+        new("skin-effect-in-harmonics", () => $"the harmonics of the waveform are skin-limited: classical loss over the full spectrum ({spectral.OrdersSummed} harmonics, then the asymptotic tail) corrected by {Numbers.Sig(spectral.Factor)}, with linear permeability assumed");
 
     private static ValidityFlag SpectrumTruncated(SpectralSkinFactor spectral) =>
-        new("spectrum-truncated", () => $"the skin correction stopped at {spectral.OrdersSummed} harmonics holding {spectral.CoveredFraction:P3} of the mean square dB/dt; the tail estimate may be off by up to {spectral.TailBound:P2}");
+        new("spectrum-truncated", () => $"the skin correction stopped at {spectral.OrdersSummed} harmonics holding {Numbers.Percent(spectral.CoveredFraction)} of the mean square dB/dt; the tail estimate may be off by up to {Numbers.Percent(spectral.TailBound)}");
 
     private static ValidityFlag Extrapolated(ElectricalSteel steel, double f) =>
-        new("coefficients-extrapolated", () => $"{f:0.#} Hz is far from the {steel.CoefficientsFrequencyHz:0.#} Hz data the hysteresis and excess coefficients of {steel.Grade} came from");
+        new("coefficients-extrapolated", () => $"{Numbers.Of(f, "Hz")} is far from the {Numbers.Of(steel.CoefficientsFrequencyHz, "Hz")} data the hysteresis and excess coefficients of {steel.Grade} came from");
 }

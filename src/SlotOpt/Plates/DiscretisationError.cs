@@ -1,4 +1,3 @@
-using System.Globalization;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Tables;
@@ -134,7 +133,7 @@ public sealed record DiscretisationError(
     };
 
     public string Warning =>
-        $"estimated grid error {Relative.ToString("P1", CultureInfo.InvariantCulture)} ({Description}) exceeds {WarningThreshold.ToString("P0", CultureInfo.InvariantCulture)}: give a smaller [grid] cell";
+        $"estimated grid error {Numbers.Percent(Relative)} ({Description}) exceeds {Numbers.Percent(WarningThreshold)}: give a smaller [grid] cell";
 
     private static DiscretisationError Unconfirmed(double relative, double r21, double[] values, double[] cells, double? observed, string why) =>
         new(UnconfirmedOrderSafetyFactor * relative / (Math.Pow(r21, AssumedOrder) - 1), GridErrorMethod.ThreeGridOrderUnconfirmed, values, cells, observed,

@@ -1,10 +1,13 @@
+using SlotOpt.Tables;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
+using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.ReducedBasis;
 using SlotOpt.Plates.ResistanceLimited;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Plates.Sources.Magnets;
 using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Plates.Thick;
 
@@ -42,7 +45,7 @@ public static class PlateModels
         {
             var depthSource = source as IDepthAcFieldSource ?? new DepthIndependentField(source);
             var thick = ThickPlateSolver.SolveAcConverged(model, depthSource, conductor, accuracy, criterion);
-            notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {thick.LayerError:P2}); " +
+            notes.Add($"layered thick-plate model: {thick.Layers} layers (estimated layer error {Numbers.Percent(thick.LayerError)}); " +
                 (source is IDepthAcFieldSource ? "the source's field at each layer's depth" : "the source's plane field is used at every depth"));
             return new PlateSolution(choice, Array.Empty<double>(), new[] { thick.LossW }, null, null, new[] { thick.ResistanceLimitedLossW }, notes, thick.Iterations, thick.RelativeResidual, null);
         }
@@ -114,6 +117,53 @@ public static class PlateModels
     /// and, where that grid resolves the plate, four times as large (solveOn gets each coarser model); the caller shows
     /// <see cref="DiscretisationError.Warning"/> when it exceeds 1 %. Where no coarser grid exists (fewer than 2 cells across, or nothing conducting left) GridError stays null.
     /// </summary>
+    /// <summary>Edge clearance, in far-face heights, beyond which the fringing field is a few per cent of its peak (common practice, no source: the field of a magnet face falls off as a dipole's beyond about its height).</summary>
+    public const double SlabEdgeClearanceInSourceHeights = 3;
+
+    /// <summary>
+    /// Whether magnets sliding over a plate go to the exact laterally infinite slab (<see cref="SlabUnderMovingMagnets"/>, model thick-slab),
+    /// with the reason; null when they do not. Chosen automatically when the validity figures find the plate beyond the thin-sheet models
+    /// (t / delta_c above the threshold) or the plate is at least as thick as the gap (the field then changes across the thickness even at
+    /// low speed), and the block is plain (no slots, cut-outs, cuts, grooves or zones), non-magnetic and wide: its edges lie at least
+    /// <see cref="SlabEdgeClearanceInSourceHeights"/> times the magnets' far-face height (gap + magnet height) beyond the magnets' footprint at
+    /// every travel offset. Asked for (<paramref name="forcedKind"/> thick-slab) where it cannot apply, it throws an InputException saying why.
+    /// </summary>
+    public static ModelChoice? ThickSlabChoice(PlateGeometry geometry, ConductingSheet sheet, IMovingSheetSource? source, IReadOnlyList<double> offsetsXM, SheetModelKind? forcedKind)
+    {
+        bool asked = forcedKind == SheetModelKind.ThickSlab;
+        if (forcedKind is { } && !asked) return null;
+        if (source is not SlidingMagnets magnets)
+            return asked ? throw new InputException("--model thick-slab is for magnets sliding over a block ([source] kind = \"magnets\"); this [source] is not") : null;
+        var auto = ReactionModelChoice.ForMoving(sheet, magnets.SpeedMPerS, magnets.LoopLengthXM);
+        string? obstacle = SlabObstacle(geometry, sheet, magnets, offsetsXM);
+        if (obstacle is not null)
+            return asked ? throw new InputException($"--model thick-slab cannot be used: {obstacle}") : null;
+        double gap = magnets.Magnets.GapM, t = sheet.ThicknessM;
+        bool thickAgainstGap = t >= gap;
+        if (!asked && auto.Kind != SheetModelKind.BeyondThinSheet && !thickAgainstGap) return null;
+        string why = auto.Kind == SheetModelKind.BeyondThinSheet ? auto.Reason
+            : thickAgainstGap ? $"the block ({Numbers.Of(t * 1e3, "mm")}) is at least as thick as the gap ({Numbers.Of(gap * 1e3, "mm")}): the field changes across it; {auto.Reason}"
+            : $"asked for; the validity figures call for {ReactionModelChoice.Name(auto.Kind)} ({auto.Reason})";
+        return auto with { Kind = SheetModelKind.ThickSlab, Reason = $"exact wide slab under sliding magnets, every depth and its own field: {why}" };
+    }
+
+    /// <summary>Why the slab does not describe this plate, or null: slots and holes, a magnetic block, edges too near the magnets.</summary>
+    private static string? SlabObstacle(PlateGeometry g, ConductingSheet sheet, SlidingMagnets magnets, IReadOnlyList<double> offsetsXM)
+    {
+        if (g.Cutouts.Count + g.Slots.Count + g.Cuts.Count + g.Grooves.Count + g.Zones.Count + g.Patterns.Count > 0 || g.ConductivityFactorAt is not null)
+            return "the plate has slots, cut-outs, cuts, grooves or zones, and the slab model is a plain block";
+        if (sheet.RelativePermeability != 1) return $"the block is magnetic (relative permeability {Numbers.Sig(sheet.RelativePermeability)}) and the slab model is for mu = mu0";
+        var array = magnets.Magnets;
+        double reach = SlabEdgeClearanceInSourceHeights * (array.GapM + array.Magnets.Max(m => m.Magnet.HeightM));
+        var (min, max) = g.Bounds;
+        double left = array.ExtentX.MinXM + offsetsXM.Min() - min.X, right = max.X - (array.ExtentX.MaxXM + offsetsXM.Max());
+        double bottom = array.Magnets.Min(m => m.Centre.Y - m.Magnet.HalfWidthYM) - min.Y, top = max.Y - array.Magnets.Max(m => m.Centre.Y + m.Magnet.HalfWidthYM);
+        double clearance = Math.Min(Math.Min(left, right), Math.Min(bottom, top));
+        return clearance < reach
+            ? $"the plate's edge comes within {Numbers.Of(clearance * 1e3, "mm")} of the magnets' footprint, less than {SlabEdgeClearanceInSourceHeights} far-face heights ({Numbers.Of(reach * 1e3, "mm")}): the block is not wide against the magnets"
+            : null;
+    }
+
     public static PlateSolution WithGridError(PlateSolution fine, SheetModel model, Func<SheetModel, PlateSolution> solveOn) =>
         fine with { GridError = DiscretisationError.Estimate(model, fine.MeanLossW, coarse => solveOn(coarse).MeanLossW) };
 

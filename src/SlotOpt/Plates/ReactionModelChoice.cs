@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using SlotOpt.Plates.Conductors;
 
 namespace SlotOpt.Plates;
@@ -42,6 +43,19 @@ public static class ReactionModelChoice
         return Choose(v.ReynoldsNumber, conductor.ThicknessM / deltaC, accuracy);
     }
 
+    /// <summary>
+    /// The speed (m/s) above which <see cref="ForMoving"/> leaves the resistance-limited model: the lower of the speed where Rm = mu0 sigma t v / 2
+    /// reaches <see cref="ReynoldsThreshold"/> (Rm grows as v) and the one where t / delta_c, delta_c = sqrt(2 L / (mu0 mu_r sigma v)), reaches
+    /// <see cref="ThicknessThreshold"/> (it grows as sqrt v); both figures rise with speed, so the choice is resistance-limited at and below it.
+    /// </summary>
+    public static double ResistanceLimitedEndSpeed(ConductingSheet conductor, double sourceLengthM, double accuracy = DefaultAccuracy)
+    {
+        double mu0Sigma = Validity.Mu0 * conductor.ConductivitySPerM, t = conductor.ThicknessM, tLimit = ThicknessThreshold(accuracy);
+        double byReynolds = 2 * ReynoldsThreshold(accuracy) / (mu0Sigma * t);                                          // mu0 sigma t v / 2 = Rm limit
+        double byThickness = 2 * sourceLengthM * tLimit * tLimit / (mu0Sigma * conductor.RelativePermeability * t * t);   // t / delta_c = t/delta limit
+        return Math.Min(byReynolds, byThickness);
+    }
+
     /// <summary>The automatic choice, or the model the user asked for with what the validity figures call for in its reason.</summary>
     public static ModelChoice Forced(ModelChoice automatic, SheetModelKind? asked) =>
         asked is not { } kind || kind == automatic.Kind ? automatic
@@ -64,11 +78,11 @@ public static class ReactionModelChoice
         double rmLimit = ReynoldsThreshold(accuracy), tLimit = ThicknessThreshold(accuracy);
         if (thicknessToSkinDepth > tLimit)
             return new ModelChoice(SheetModelKind.BeyondThinSheet, reynoldsNumber, thicknessToSkinDepth, rmLimit, tLimit,
-                $"t/delta = {thicknessToSkinDepth:G3} > {tLimit:G3}: the field does not cross the thickness uniformly and the thin-sheet models do not hold; AC cases need the layered thick-plate model");
+                $"t/delta = {Numbers.Sig(thicknessToSkinDepth)} > {Numbers.Sig(tLimit)}: the field does not cross the thickness uniformly and the thin-sheet models do not hold; AC cases need the layered thick-plate model");
         if (reynoldsNumber > rmLimit)
             return new ModelChoice(SheetModelKind.ThinSheetReaction, reynoldsNumber, thicknessToSkinDepth, rmLimit, tLimit,
-                $"Rm = {reynoldsNumber:G3} > {rmLimit:G3}: the eddy currents' own field changes loss and drag by more than {accuracy:P0}");
+                $"Rm = {Numbers.Sig(reynoldsNumber)} > {Numbers.Sig(rmLimit)}: the eddy currents' own field changes loss and drag by more than {Numbers.Percent(accuracy)}");
         return new ModelChoice(SheetModelKind.ResistanceLimited, reynoldsNumber, thicknessToSkinDepth, rmLimit, tLimit,
-            $"Rm = {reynoldsNumber:G3} <= {rmLimit:G3} and t/delta = {thicknessToSkinDepth:G3} <= {tLimit:G3}: the resistance-limited model is within {accuracy:P0}");
+            $"Rm = {Numbers.Sig(reynoldsNumber)} <= {Numbers.Sig(rmLimit)} and t/delta = {Numbers.Sig(thicknessToSkinDepth)} <= {Numbers.Sig(tLimit)}: the resistance-limited model is within {Numbers.Percent(accuracy)}");
     }
 }

@@ -139,10 +139,13 @@ public static class ReportContent
             + $"; uncut ligament at least {N(p.MinLigamentM * 1e3)} mm"
             + (p.MaxDragN is { } drag ? $"; drag limit {Numbers.Newtons(drag)}" : "")
             + (p.MaxTorqueNm is { } torque ? $"; torque limit {Numbers.Of(torque, "N m")}" : "")
-            + (p.MinTorque is { } wanted ? $"; minimum braking torque {Numbers.Of(wanted.TorqueNm, "N m")} at {Numbers.Of(wanted.Rpm, "rpm")}" : "")
+            + (p.MinBraking is { Quantity: BrakingQuantity.Torque } wanted ? $"; minimum {BrakingWords(wanted)} {Numbers.Of(wanted.Value, wanted.Unit)} at {Numbers.Of(wanted.Speed, wanted.SpeedUnit)}" : "")
             + (p.MaxLossW is { } loss ? $"; loss limit {Numbers.Watts(loss)}" : "")
             + (p.Thermal is { } th ? "; " + CoolingWords(th) : "");
     }
+
+    /// <summary>A wanted braking quantity in the report's words: "drag", or "braking torque" for a disc.</summary>
+    private static string BrakingWords(BrakingMinimum wanted) => wanted.Quantity == BrakingQuantity.Torque ? "braking torque" : wanted.Name;
 
     private static string CoolingWords(PartThermal th)
     {
@@ -284,9 +287,8 @@ public static class ReportContent
             if (part is PlatePart { MaxDragN: { } maxDrag } && chosen[i].DragN is { } drag) checks.Add(Against($"{part.Name}: drag limit", drag, maxDrag, "N"));
             if (part.MaxLossW is { } maxLoss) checks.Add(Against($"{part.Name}: loss limit", chosen[i].Loss.TotalW, maxLoss, "W"));
             if (part is PlatePart { MaxTorqueNm: { } maxTorque } && chosen[i].TorqueNm is { } torque) checks.Add(Against($"{part.Name}: torque limit", torque, maxTorque, "N m"));
-            if (r.Confirmation(part.Name)?.MinimumTorque is { } wantedTorque)
-                checks.Add(AtLeast($"{part.Name}: minimum braking torque at {Numbers.Of(wantedTorque.Rpm, "rpm")}", wantedTorque.TorqueNm, wantedTorque.RequiredNm, "N m"));
-            if (r.Confirmation(part.Name)?.MinimumDrag is { } wanted) checks.Add(AtLeast($"{part.Name}: minimum drag at {Numbers.Of(wanted.SpeedMPerS, "m/s")}", wanted.DragN, wanted.RequiredN, "N"));
+            if (r.Confirmation(part.Name)?.Minimum is { Wanted: var wanted } minimum)
+                checks.Add(AtLeast($"{part.Name}: minimum {BrakingWords(wanted)} at {Numbers.Of(wanted.Speed, wanted.SpeedUnit)}", minimum.Achieved, wanted.Value, wanted.Unit));
             if (r.HeatOf(part.Name, DesignRole.Chosen) is { Heating: { } heated, Limit: var limit })
             {
                 if (limit.MaxTemperatureK is { } maxK) checks.Add(Against($"{part.Name}: temperature limit", heated.Temperature.HottestK - 273.15, maxK - 273.15, "°C"));
@@ -425,7 +427,7 @@ public static class ReportContent
             items.Insert(4, "This problem has a moving source: if that drag ever slows, stops or holds a load, the design is part of a safety function and needs that analysis before use.");
         if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.Excitation is PlateExcitation.Turning))
             items.Insert(4, "Turning discs: the braking torque is resistance-limited (the eddy currents' own field neglected), valid while the magnetic Reynolds number at the magnets' radius stays small; above that the real torque is lower and passes a maximum. A disc at speed also stores energy and carries hoop stress: its burst speed and guarding are outside this report.");
-        if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.MinTorque is not null))
+        if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.MinBraking is { Quantity: BrakingQuantity.Torque }))
             items.Insert(4, "A minimum braking torque (min_torque) makes the disc a brake: if it slows, stops or holds a load, it is part of a safety function. The torque here is an estimate, not a brake rating: size a real brake with margins, test it, and follow local codes and licensed engineering practice for brakes and load-holding devices.");
         var temperatures = r.Problem.Parts.Select(p => p.TemperatureK).ToList();
         if (r.Problem.Parts.OfType<PlatePart>().Any(p => p.Thermal is not null))

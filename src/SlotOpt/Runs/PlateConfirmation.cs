@@ -53,7 +53,7 @@ public sealed record PlateConfirmation(
         var model = PlateOptions.BuildModel(part, geometry, limits);
         PlateSolution solution;
         IReadOnlyList<SpeedPoint>? sweep = null;
-        MinimumDragCheck? minimumDrag = null;
+        BrakingMinimumCheck? minimum = null;
         if (part.Excitation is PlateExcitation.Moving { Source: var source })
         {
             var offsets = PlateOptions.TravelOffsets(part, choice.Slots);
@@ -62,7 +62,7 @@ public sealed record PlateConfirmation(
                 PlateModels.SolveMoving(m, source, conductor, offsets, source.LoopLengthXM, reaction: r, basis: MovingReducedBasis.Start(r, source, offsets));
             solution = PlateModels.WithGridError(SolveOn(model, reaction), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse, limits.Threads)));
             sweep = Sweep(reaction, source, conductor, offsets);
-            if (part.MinDrag is { } wanted) minimumDrag = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
+            if (part.MinBraking is { } wanted) minimum = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
@@ -74,7 +74,7 @@ public sealed record PlateConfirmation(
         var notes = solution.Notes.ToList();
         if (solution.GridError is { IsLarge: true } large) notes.Add(large.Warning);
         return new PlateConfirmation(part.Name, ranked.Kind, ranked.Reason, solution.MeanLossW, solution.MeanDragN, solution.MeanLiftN,
-            solution.ResistanceLimitedLossW.Average(), notes, sweep, solution.GridError) { MinimumDrag = minimumDrag };
+            solution.ResistanceLimitedLossW.Average(), notes, sweep, solution.GridError) { Minimum = minimum };
     }
 
     /// <summary>
@@ -97,30 +97,27 @@ public sealed record PlateConfirmation(
         if (gridError is null) notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell");
         else if (gridError.IsLarge) notes.Add(gridError.Warning);
         // min_torque: the disc solved at the minimum's own speed by the model its validity calls for there (the screen scaled linearly,
-        // which the own field does not: as MinimumDrag is confirmed at its speed)
-        MinimumTorqueCheck? minimum = part.MinTorque is { } wanted && new TurningDiscModel(part, solved, threads).Evaluate(conductor, wanted.Rpm) is var atWanted
-            ? new MinimumTorqueCheck(wanted.Rpm, wanted.TorqueNm, atWanted.TorqueNm, atWanted.Model.Kind)
+        // which the own field does not: as a min_drag is confirmed at its speed)
+        BrakingMinimumCheck? minimum = part.MinBraking is { } wanted && new TurningDiscModel(part, solved, threads).Evaluate(conductor, wanted.Speed) is var atWanted
+            ? new BrakingMinimumCheck(wanted, atWanted.TorqueNm, atWanted.Model.Kind)
             : null;
         return new PlateConfirmation(part.Name, number.Model.Kind, number.Model.Reason, number.LossW, number.TorqueNm / turning.Source.SourceRadiusM, null, solved.LossPerSiemensW * conductor.SheetConductanceS,
-            notes, null, gridError) { TorqueNm = number.TorqueNm, MinimumTorque = minimum };
+            notes, null, gridError) { TorqueNm = number.TorqueNm, Minimum = minimum };
     }
 
     /// <summary>A turning disc: the braking torque (N m); DragN is then the tangential force at the magnets' radius.</summary>
     public double? TorqueNm { get; init; }
 
-    /// <summary>With min_torque: the chosen disc's torque at the minimum's speed.</summary>
-    public MinimumTorqueCheck? MinimumTorque { get; init; }
-
-    /// <summary>With min_drag: the chosen plate's drag at the minimum's speed with the model its validity calls for there.</summary>
-    public MinimumDragCheck? MinimumDrag { get; init; }
+    /// <summary>With min_drag or min_torque: the chosen design's drag or torque at the minimum's speed with the model its validity calls for there.</summary>
+    public BrakingMinimumCheck? Minimum { get; init; }
 
     /// <summary>The chosen design's drag at the minimum's speed with the model its validity calls for there (the screen's resistance-limited drag overstates it once the own field matters).</summary>
-    private static MinimumDragCheck CheckMinimumDrag(MinimumDrag wanted, Plates.Grid.SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
+    private static BrakingMinimumCheck CheckMinimumDrag(BrakingMinimum wanted, Plates.Grid.SheetModel model, ReactionOperator reaction, ITravellingSource source, ConductingSheet conductor,
         IReadOnlyList<double> offsets, PlateSolution atSourceSpeed)
     {
-        var at = wanted.SpeedMPerS == source.SpeedMPerS ? atSourceSpeed
-            : PlateModels.SolveMoving(model, source.AtSpeed(wanted.SpeedMPerS), conductor, offsets, source.LoopLengthXM, reaction: reaction);
-        return new MinimumDragCheck(wanted.SpeedMPerS, wanted.ForceN, at.MeanDragN!.Value, at.Choice.Kind);
+        var at = wanted.Speed == source.SpeedMPerS ? atSourceSpeed
+            : PlateModels.SolveMoving(model, source.AtSpeed(wanted.Speed), conductor, offsets, source.LoopLengthXM, reaction: reaction);
+        return new BrakingMinimumCheck(wanted, at.MeanDragN!.Value, at.Choice.Kind);
     }
 
     /// <summary>
@@ -153,14 +150,8 @@ public sealed record PlateConfirmation(
     };
 }
 
-/// <summary>The chosen plate's confirmed drag at a min_drag's speed (newtons), the minimum it must reach, and the model that ran.</summary>
-public sealed record MinimumDragCheck(double SpeedMPerS, double RequiredN, double DragN, SheetModelKind Model)
+/// <summary>The chosen design's confirmed drag (N) or torque (N m) at a min_drag's or min_torque's speed, the minimum it must reach, and the model that gave it.</summary>
+public sealed record BrakingMinimumCheck(BrakingMinimum Wanted, double Achieved, SheetModelKind Model)
 {
-    public bool Reached => DragN >= RequiredN;
-}
-
-/// <summary>The chosen disc's torque at a min_torque's speed (N m), the minimum it must reach, and the model that gave it.</summary>
-public sealed record MinimumTorqueCheck(double Rpm, double RequiredNm, double TorqueNm, SheetModelKind Model)
-{
-    public bool Reached => TorqueNm >= RequiredNm;
+    public bool Reached => Achieved >= Wanted.Value;
 }

@@ -11,9 +11,9 @@ namespace SlotOpt.Runs;
 /// slotted) and the reference (when it is neither), each disc geometry solved again once a run (<see cref="SolvedGeometries"/>) and its number
 /// at every speed taken from the one seam of turning-disc numbers (<see cref="TurningDiscModel"/>, one per line: its reaction operator serves
 /// every own-field speed), with the model that gave it.
-/// Resistance-limited the torque is proportional to speed, T(n) = T(n0) n / n0, and has no peak; the model holds while the magnetic Reynolds
-/// number at the magnets' radius, mu0 sigma t (omega r) / 2, stays below <see cref="Validity.ReynoldsLimit"/>: each line carries the speed
-/// where its sheet reaches it. Points are the torque at <see cref="Samples"/> speeds from 0 to <see cref="MaxRpm"/>, each with its model.
+/// Resistance-limited the torque is proportional to speed, T(n) = T(n0) n / n0, and has no peak; the seam keeps that model up to the speed where
+/// the disc's validity figures call for its own field (<see cref="TurningDiscModel.ModelSwitchRpm"/>): each line carries that speed, the one
+/// rule the points' models follow. Points are the torque at <see cref="Samples"/> speeds from 0 to <see cref="MaxRpm"/>, each with its model.
 /// </summary>
 public sealed record TorqueSpeedLines(string PartName, double RunRpm, double MaxRpm, IReadOnlyList<TorqueSpeedLines.Line> Lines)
 {
@@ -22,8 +22,8 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
     /// <summary>One speed of a line: disc speed (rpm), braking torque (N m) and the model that gave it.</summary>
     public sealed record Point(double Rpm, double TorqueNm, string Model);
 
-    /// <summary>One design's torque against speed; PeakRpm where its model shows a peak (the resistance-limited line has none), ValidityEndRpm where Rm reaches the limit.</summary>
-    public sealed record Line(EvaluatedOption Option, DesignRole Role, IReadOnlyList<Point> Points, double ValidityEndRpm, double? PeakRpm);
+    /// <summary>One design's torque against speed; PeakRpm where its model shows a peak (the resistance-limited line has none), ModelSwitchRpm where its points leave the resistance-limited model.</summary>
+    public sealed record Line(EvaluatedOption Option, DesignRole Role, IReadOnlyList<Point> Points, double ModelSwitchRpm, double? PeakRpm);
 
     public static TorqueSpeedLines Of(PartEvaluation plate, EvaluatedOption chosen, Problem problem, SolvedGeometries geometries)
     {
@@ -34,11 +34,11 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
         if (!ReferenceEquals(solid, chosen)) designs.Add((solid, DesignRole.SolidCounterpart));
         if (!designs.Any(d => d.Option.Id == plate.Reference.Id)) designs.Add((plate.Reference, DesignRole.Reference));
         var n0 = turning.Rpm;
-        var ends = designs.Select(d => ReynoldsLimitRpm(part, turning, d.Option, problem)).ToList();
-        var maxRpm = Math.Max(Math.Max(2 * n0, part.MinTorque?.Rpm * 1.25 ?? 0), Math.Min(1.25 * ends.Max(), 4 * n0));
+        var ends = designs.Select(d => TurningDiscModel.ModelSwitchRpm(turning, SheetOf(part, (PlateChoice)d.Option.Choice, problem))).ToList();
+        var maxRpm = Math.Max(Math.Max(2 * n0, part.MinBraking?.Speed * 1.25 ?? 0), Math.Min(1.25 * ends.Max(), 4 * n0));
         // a brake (min_torque): on to past the chosen disc's torque peak, which a thin sheet under a compact source shows near the path speed
         // 1.272 w, w the receding-image speed (Reitz, J. Appl. Phys. 41 (1970) 2067, thin-sheet drag), capped at ten times the source's speed
-        if (part.MinTorque is not null)
+        if (part.MinBraking is not null)
         {
             var chosenSheet = SheetOf(part, (PlateChoice)chosen.Choice, problem);
             var peakRpm = RotationalSpeed.RpmFromRadPerS(1.272 * chosenSheet.RecedingImageSpeedMPerS / turning.Source.SourceRadiusM);
@@ -64,13 +64,6 @@ public sealed record TorqueSpeedLines(string PartName, double RunRpm, double Max
             return new Line(d.Option, d.Role, points, ends[k], peak);
         }).ToList();
         return new TorqueSpeedLines(part.Name, n0, maxRpm, lines);
-    }
-
-    /// <summary>The disc speed (rpm) at which this option's sheet reaches the Reynolds-number limit at the magnets' radius: Rm is proportional to speed.</summary>
-    private static double ReynoldsLimitRpm(PlatePart part, PlateExcitation.Turning turning, EvaluatedOption option, Problem problem)
-    {
-        var sheet = SheetOf(part, (PlateChoice)option.Choice, problem);
-        return turning.Rpm * Validity.ReynoldsLimit / Validity.ForMoving(sheet, turning.PathSpeedMPerS).ReynoldsNumber;
     }
 
     private static ConductingSheet SheetOf(PlatePart part, PlateChoice choice, Problem problem)

@@ -30,6 +30,9 @@ public static class Numbers
     /// <summary>A quantity with its unit: "11.13 W".</summary>
     public static string Of(double value, string unit) => Sig(value) + " " + unit;
 
+    /// <summary>A fraction printed as a percentage: 0.0123 as "1.23 %".</summary>
+    public static string Percent(double fraction) => Of(fraction * 100, "%");
+
     public static string Watts(double w) => Of(w, "W");
 
     public static string Newtons(double n) => Of(n, "N");

@@ -47,7 +47,7 @@ public class HotPathIdentityTests
         var steel = MaterialLibrary.BuiltIn.GetSteel("M270-35A", "test");
         var loss = LaminationLossModel.Evaluate(steel, new SineWaveform(1.0, 400));
         var flag = Assert.Single(loss.Flags, f => f.Code == "coefficients-extrapolated");
-        Assert.Equal($"{400.0:0.#} Hz is far from the {steel.CoefficientsFrequencyHz:0.#} Hz data the hysteresis and excess coefficients of {steel.Grade} came from", flag.Message);
+        Assert.Equal($"400 Hz is far from the {SlotOpt.Tables.Numbers.Of(steel.CoefficientsFrequencyHz, "Hz")} data the hysteresis and excess coefficients of {steel.Grade} came from", flag.Message);
         Assert.Same(flag.Message, flag.Message);   // worded once
     }
 }

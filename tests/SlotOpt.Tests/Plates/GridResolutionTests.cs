@@ -34,12 +34,12 @@ public class GridResolutionTests
     }
 
     // The same plate on the 12.5 mm cell the old rule chose (8 across the 100 mm side): the 5 mm cut-outs
-    // get 0.4 cells across and do not cut (loss 5x too high). The grid must say so, naming the cut-out.
+    // get 0.375 cells across (4.688 mm of the cut-out's width over 12.5 mm) and do not cut (loss 5x too high). The grid must say so, naming the cut-out.
     [Fact]
     public void An_explicit_cell_that_under_resolves_a_cutout_is_a_warning_naming_it()
     {
         var grid = PlateGrid.Build(CutoutComb(), new GridOptions { CellSizeM = 0.0125 });
-        Assert.Contains(grid.Notes, n => n.Contains("cut-out 1") && n.Contains("0.4 cells across"));
+        Assert.Contains(grid.Notes, n => n.Contains("cut-out 1") && n.Contains("0.375 cells across"));
     }
 
     // Poles and pole gaps brought by the source: 8 cells across a 12 mm pole (1.5 mm), 4 across a 4 mm gap (1 mm).

@@ -31,4 +31,24 @@ public class NumbersTests
     [Fact]
     public void Temperatures_print_to_a_tenth_of_a_kelvin() =>
         Assert.Equal("95.4 °C", Numbers.Celsius(368.55));   // 0 °C = 273.15 K (BIPM, The International System of Units, 9th ed., 2019, section 2.3.1)
+
+    [Fact]
+    public void Fractions_print_as_percentages_by_the_same_rule()
+    {
+        Assert.Equal("1 %", Numbers.Percent(0.01));
+        Assert.Equal("0.1235 %", Numbers.Percent(0.0012346));
+    }
+
+    // The plates' warnings and model reasons follow the rule too: 1 mm copper (IACS 0.017241 uOhm m, IEC 60028:1925) at 10 m/s has
+    // Rm = mu0 sigma t v / 2 = 0.36443 (W. M. Saslow, Am. J. Phys. 60(8):693-711, 1992: Rm = v / w, w = 2 / (mu0 sigma t)), printed with
+    // four significant figures, not the three of the old G3; the model choice's accuracy of 1 % prints as "1 %". Exact strings.
+    [Fact]
+    public void Plate_warnings_and_model_reasons_print_numbers_by_the_rule()
+    {
+        var copper = new SlotOpt.Plates.Conductors.ConductingSheet(1 / 0.017241e-6, 1e-3);
+        var warning = Assert.Single(SlotOpt.Plates.Conductors.Validity.ForMoving(copper, 10).Warnings);
+        Assert.StartsWith("magnetic Reynolds number 0.3644 > 0.3:", warning);
+        var choice = SlotOpt.Plates.ReactionModelChoice.Choose(0.05, 0.1, 0.01);
+        Assert.Equal("Rm = 0.05 <= 0.1 and t/delta = 0.1 <= " + Numbers.Sig(choice.ThicknessThreshold) + ": the resistance-limited model is within 1 %", choice.Reason);
+    }
 }

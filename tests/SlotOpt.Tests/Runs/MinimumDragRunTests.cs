@@ -79,10 +79,10 @@ public class MinimumDragRunTests
         Assert.Equal(cheapest, chosen.BuildCost, 1e-9);
         // confirmed at the named speed: mu0 sigma t v / 2 is about 0.015 there, so the resistance-limited model runs again and gives the
         // screen's drag scaled to 0.2 m/s (F ~ v; the same solve with its source doubled: 1e-6 relative, the solver's tolerance)
-        var check = r.Confirmation("brake plate")!.MinimumDrag!;
-        Assert.Equal(NamedSpeed, check.SpeedMPerS);
+        var check = r.Confirmation("brake plate")!.Minimum!;
+        Assert.Equal(NamedSpeed, check.Wanted.Speed);
         Assert.Equal(SlotOpt.Plates.SheetModelKind.ResistanceLimited, check.Model);
-        Assert.InRange(check.DragN / (chosen.DragN.Value * NamedSpeed / SourceSpeed) - 1, -1e-6, 1e-6);
+        Assert.InRange(check.Achieved / (chosen.DragN.Value * NamedSpeed / SourceSpeed) - 1, -1e-6, 1e-6);
         Assert.True(check.Reached);
     }
 

@@ -1,4 +1,5 @@
 using SlotOpt.Plates.OwnField;
+using SlotOpt.Plates.Sources.Rotation;
 using SlotOpt.Tables;
 
 namespace SlotOpt.Design.Limits;
@@ -101,11 +102,24 @@ public static class MemoryModel
     /// </summary>
     public const double ReportBytes = 50e6;
 
+    /// <summary>
+    /// A turning disc's source keeps the summed edge moments of each lattice and angle it integrated, one double per lattice node, up to
+    /// <see cref="RotatingSource.KeptRates"/> sets (shared with its copies at other speeds). Measured (RotatingSourceMemoryTests: the managed heap
+    /// after a full collection, a pole over a 100 x 100-cell lattice at 40 angles, 3 Dec 2026): 2.61 MB kept, 8.15 B per cell per kept set, the nodes outnumbering the cells
+    /// by 2 %. On the coupling-cover-disc demo (0.7 mm cells over 160 mm, 52 k cells) a set is 0.42 MB, the 32 at most 13.6 MB.
+    /// </summary>
+    public const double RotatingRateBytesPerCellPerSet = 8.5;
+
+    /// <summary>The turning disc's kept edge moments per cell of one solve, for <paramref name="rateSets"/> lattice-and-angle pairs integrated (0 for other parts).</summary>
+    public static double RotatingRatesBytesPerCell(int rateSets) => Math.Min(Math.Max(rateSets, 0), RotatingSource.KeptRates) * RotatingRateBytesPerCellPerSet;
+
     /// <summary>What the screening of one part holds per cell of one solve: its geometries' kept models and Threads solves at once; with a thermal
-    /// section (<paramref name="thermalOptionsPerGeometry"/> thicknesses x materials, 0 without) each geometry's thermal screen and temperatures too.</summary>
-    public static double ScreeningBytesPerCell(int geometries, int threads, int thermalOptionsPerGeometry = 0) =>
+    /// section (<paramref name="thermalOptionsPerGeometry"/> thicknesses x materials, 0 without) each geometry's thermal screen and temperatures too;
+    /// for a turning disc, its source's kept edge moments of <paramref name="rotatingRateSets"/> lattices and angles.</summary>
+    public static double ScreeningBytesPerCell(int geometries, int threads, int thermalOptionsPerGeometry = 0, int rotatingRateSets = 0) =>
         geometries * (ModelBytesPerCell + ThermalKept(thermalOptionsPerGeometry))
-        + Math.Min(threads, geometries) * (SolveBytesPerCell + (thermalOptionsPerGeometry > 0 ? ThermalSolveBytesPerCell : 0));
+        + Math.Min(threads, geometries) * (SolveBytesPerCell + (thermalOptionsPerGeometry > 0 ? ThermalSolveBytesPerCell : 0))
+        + RotatingRatesBytesPerCell(rotatingRateSets);
 
     /// <summary>
     /// What the coupled ranking of a moving part adds per cell of one solve, with <paramref name="paddedCellsPerCell"/> cells of the padded
@@ -125,8 +139,9 @@ public static class MemoryModel
     public const double OwnFieldBytesPerCellBound = ModelBytesPerCell + SolveBytesPerCell + GmresBytesPerCell + PaddedCellsPerCellBound * OwnFieldBytesPerPaddedCell;
 
     /// <summary>The run's screening of one part (and, for a moving source over <paramref name="travelPositions"/> positions, its coupled ranking).</summary>
-    public static double Screening(long cellsPerSolve, int geometries, int threads, int thermalOptionsPerGeometry = 0, int travelPositions = 0, double paddedCellsPerCell = PaddedCellsPerCellBound) =>
-        WithMargin(cellsPerSolve * (ScreeningBytesPerCell(geometries, threads, thermalOptionsPerGeometry) + RankingBytesPerCell(geometries, threads, travelPositions, paddedCellsPerCell)));
+    public static double Screening(long cellsPerSolve, int geometries, int threads, int thermalOptionsPerGeometry = 0, int travelPositions = 0, double paddedCellsPerCell = PaddedCellsPerCellBound,
+        int rotatingRateSets = 0) =>
+        WithMargin(cellsPerSolve * (ScreeningBytesPerCell(geometries, threads, thermalOptionsPerGeometry, rotatingRateSets) + RankingBytesPerCell(geometries, threads, travelPositions, paddedCellsPerCell)));
 
     /// <summary>What one geometry keeps of its thermal screening per cell (0 without a thermal section).</summary>
     public static double ThermalKept(int thermalOptionsPerGeometry) =>

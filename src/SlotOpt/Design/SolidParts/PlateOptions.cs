@@ -33,7 +33,7 @@ public static class PlateOptions
         using var _ = ownDeadline;
         var deadline = limits.Deadline!;
         var geometries = SlotChoices(part).ToList();
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count, ThermalOptionsPerGeometry(part), TravelPositions(part));
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count, ThermalOptionsPerGeometry(part), TravelPositions(part), RotatingRateSets(part, geometries));
         var solvedGeometries = new SolvedGeometry[geometries.Count];
         var heat = new Dictionary<(double, string), TemperatureBracket.Outcome>[geometries.Count];
         var done = 0;
@@ -68,7 +68,7 @@ public static class PlateOptions
                 screened[g].Add(Scale(part, solvedGeometries[g], thickness, library.GetConductor(materialName, part.Name), shop.Processes[processName], shop,
                     heat[g].GetValueOrDefault((thickness, materialName))));
         }
-        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null && part.MinDrag is null, processCapped);
+        return PlateModelRanking.Rank(part, solvedGeometries, screened, library, shop, heat, limits, mayPrune: part.Thermal is null && part.MinBraking is null, processCapped);
     }
 
     /// <summary>With [parts.thermal]: the temperature verdict of every thickness and material of one solved geometry (the process does not heat the plate).</summary>
@@ -188,6 +188,10 @@ public static class PlateOptions
     /// <summary>The travel positions a moving source's coupled ranking keeps per geometry (0 for other excitations): the memory model's ranking term.</summary>
     private static int TravelPositions(PlatePart part) => part.Excitation is PlateExcitation.Moving moving ? moving.Positions : 0;
 
+    /// <summary>A turning disc: the lattice-and-angle pairs its source integrates, one lattice per slot geometry at its angles (MemoryModel caps the kept ones); 0 for other parts.</summary>
+    private static int RotatingRateSets(PlatePart part, IEnumerable<SlotChoice?> geometries) =>
+        part.Excitation is PlateExcitation.Turning turning ? geometries.Sum(g => turning.Angles(g?.Radial).Count) : 0;
+
     /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
     {
@@ -198,7 +202,8 @@ public static class PlateOptions
             _ => [],
         };
         var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = features };
-        var cap = limits.CellCap(SlotChoices(part).Count(), ThermalOptionsPerGeometry(part), TravelPositions(part));
+        var slotChoices = SlotChoices(part).ToList();
+        var cap = limits.CellCap(slotChoices.Count, ThermalOptionsPerGeometry(part), TravelPositions(part), RotatingRateSets(part, slotChoices));
         if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
         return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };
     }
@@ -215,7 +220,7 @@ public static class PlateOptions
     public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1, ThermalOptionsPerGeometry(part), TravelPositions(part));
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1, ThermalOptionsPerGeometry(part), TravelPositions(part), RotatingRateSets(part, [choice.Slots]));
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits, Screen(part, solved)) : null;
@@ -294,19 +299,16 @@ public static class PlateOptions
             rejection = PlateRules.FirstBroken(slots, solved.Pattern!, thicknessM, material, process, part.MinLigamentM, acField?.FrequencyHz);
         if (rejection is null && part.MaxDragN is { } maxDrag && drag > maxDrag)
             rejection = new(RuleKind.DragAboveLimit, string.Create(ci, $"drag {Numbers.Of(drag!.Value, "N")} exceeds the part's limit of {Numbers.Of(maxDrag, "N")}"));
-        if (rejection is null && part.MinDrag is { } minDrag && drag is { } dragN)
-        {
-            rejection = minDrag.Check(dragN, moving!.SpeedMPerS);
-            if (rejection is null && minDrag.SpeedMPerS != moving.SpeedMPerS)
-                flags.AddRange(Validity.ForMoving(sheet, minDrag.SpeedMPerS).Warnings.Select(w => string.Create(ci, $"at {minDrag.SpeedMPerS:0.###} m/s: {w}")));
-        }
         if (rejection is null && part.MaxTorqueNm is { } maxTorque && torque > maxTorque)
             rejection = new(RuleKind.TorqueAboveLimit, string.Create(ci, $"torque {Numbers.Of(torque!.Value, "N m")} exceeds the part's limit of {Numbers.Of(maxTorque, "N m")}"));
-        if (rejection is null && part.MinTorque is { } minTorque && torque is { } torqueNm)
+        if (rejection is null && part.MinBraking is { } minimum && (minimum.Quantity == BrakingQuantity.Drag ? drag : torque) is { } braking)
         {
-            rejection = minTorque.Check(torqueNm, turning!.Rpm);
-            if (rejection is null && minTorque.Rpm != turning.Rpm)
-                flags.AddRange(Validity.ForMoving(sheet, turning.PathSpeedMPerS * minTorque.Rpm / turning.Rpm).Warnings.Select(w => string.Create(ci, $"at {minTorque.Rpm:0.##} rpm: {w}")));
+            // the source's own speed (m/s, or rpm for a disc) and the plate's path speed at the minimum's speed, for the validity there
+            var (sourceSpeed, pathSpeedMPerS) = minimum.Quantity == BrakingQuantity.Drag ? (moving!.SpeedMPerS, minimum.Speed)
+                : (turning!.Rpm, turning.PathSpeedMPerS * minimum.Speed / turning.Rpm);
+            rejection = minimum.Check(braking, sourceSpeed);
+            if (rejection is null && minimum.Speed != sourceSpeed)
+                flags.AddRange(Validity.ForMoving(sheet, pathSpeedMPerS).Warnings.Select(w => $"at {minimum.SpeedWords}: {w}"));
         }
         if (rejection is null && part.MaxLossW is { } maxLoss && loss.TotalW > maxLoss)
             rejection = new(RuleKind.LossAboveLimit, string.Create(ci, $"loss {Numbers.Watts(loss.TotalW)} exceeds the part's limit of {Numbers.Watts(maxLoss)}"));

@@ -26,10 +26,9 @@ public sealed record PlatePart(
     double? CellSizeM,
     PlateChoice? Current,
     PartThermal? Thermal = null,
-    MinimumDrag? MinDrag = null,
     DiscShape? Disc = null,
     double? MaxTorqueNm = null,
-    MinimumTorque? MinTorque = null) : Part(Name, Line, TemperatureK, MaxLossW)
+    BrakingMinimum? MinBraking = null) : Part(Name, Line, TemperatureK, MaxLossW)
 {
     /// <summary>thickness x material x (solid x processes + every slot option).</summary>
     public long OptionCount => (long)ThicknessesM.Count * Materials.Count * (Processes.Count + SlotFamilies.Sum(f => f.OptionCount));

@@ -54,6 +54,11 @@ public sealed class TurningDiscModel
             lossW, lossW / turning.AngularSpeedRadPerS);   // T = P / omega
     }
 
+    /// <summary>The disc speed (rpm) above which <see cref="ValidityOf"/> leaves the resistance-limited model: the path speed where the slide's
+    /// choice switches (<see cref="ReactionModelChoice.ResistanceLimitedEndSpeed"/>) over the magnets' radius (v = omega r).</summary>
+    public static double ModelSwitchRpm(PlateExcitation.Turning turning, ConductingSheet sheet) =>
+        turning.Rpm * ReactionModelChoice.ResistanceLimitedEndSpeed(sheet, turning.Source.LoopLengthM) / turning.PathSpeedMPerS;
+
     /// <summary>The model the disc's validity figures call for: those of a slide at the magnets' path speed omega r, over the magnets' length along their path.</summary>
     public static ModelChoice ValidityOf(PlateExcitation.Turning turning, ConductingSheet sheet) =>
         ReactionModelChoice.ForMoving(sheet, turning.PathSpeedMPerS, turning.Source.LoopLengthM);

@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 namespace SlotOpt.Plates.Conductors;
 
 /// <summary>
@@ -22,7 +23,7 @@ public sealed record Validity(double ReynoldsNumber, double? ThicknessToSkinDept
         double rm = Mu0 * c.ConductivitySPerM * c.ThicknessM * speedMPerS / 2;   // Rm = mu0 sigma t v / 2
         var w = new List<string>();
         if (rm > ReynoldsLimit)
-            w.Add($"magnetic Reynolds number {rm:G3} > {ReynoldsLimit}: the eddy currents' own field is not negligible; the resistance-limited drag and loss are overstated (by about 6-9 % at 0.3, more above)");
+            w.Add($"magnetic Reynolds number {Numbers.Sig(rm)} > {Numbers.Sig(ReynoldsLimit)}: the eddy currents' own field is not negligible; the resistance-limited drag and loss are overstated (by about 6-9 % at 0.3, more above)");
         return new Validity(rm, null, w);
     }
 
@@ -34,9 +35,9 @@ public sealed record Validity(double ReynoldsNumber, double? ThicknessToSkinDept
         double ratio = c.ThicknessM / delta;
         var w = new List<string>();
         if (rm > ReynoldsLimit)
-            w.Add($"magnetic Reynolds number {rm:G3} > {ReynoldsLimit} (strip width {loopWidthM * 1e3:G4} mm): the eddy currents screen the field; the resistance-limited loss is overstated");
+            w.Add($"magnetic Reynolds number {Numbers.Sig(rm)} > {Numbers.Sig(ReynoldsLimit)} (strip width {Numbers.Of(loopWidthM * 1e3, "mm")}): the eddy currents screen the field; the resistance-limited loss is overstated");
         if (ratio > ThicknessToSkinDepthLimit)
-            w.Add($"thickness/skin depth {ratio:G3} > {ThicknessToSkinDepthLimit} (skin depth {delta * 1e3:G3} mm): the current crowds to the surfaces; the resistance-limited loss is overstated");
+            w.Add($"thickness/skin depth {Numbers.Sig(ratio)} > {Numbers.Sig(ThicknessToSkinDepthLimit)} (skin depth {Numbers.Of(delta * 1e3, "mm")}): the current crowds to the surfaces; the resistance-limited loss is overstated");
         return new Validity(rm, ratio, w);
     }
 }

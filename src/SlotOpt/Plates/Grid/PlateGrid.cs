@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using System.Runtime.CompilerServices;
 using SlotOpt.Plates.Geometry;
 
@@ -78,7 +79,7 @@ public sealed class PlateGrid
                 areaFraction[c] = g > 0 ? (float)f : 0f;
                 thickness[c] = f > 0 ? (float)Math.Clamp(ft / f, 0, 1) : 1f;
             }
-        if (voided > 0) notes.Add($"{voided} cells with less than {VoidThreshold:P0} of a full cell's conductance were treated as empty");
+        if (voided > 0) notes.Add($"{voided} cells with less than {Numbers.Percent(VoidThreshold)} of a full cell's conductance were treated as empty");
         if (Array.TrueForAll(conductance, g => g == 0)) throw new InputException("the plate has no conducting area on this grid (all cells empty): check the outline, cut-outs and slots");
         return new PlateGrid(geometry, lattice, conductance, thickness, areaFraction, notes);
     }
@@ -89,7 +90,7 @@ public sealed class PlateGrid
         double w = max.X - min.X, h = max.Y - min.Y;
         var features = GeometryFeatures.Of(geometry).Concat(options.SourceFeatures).ToList();
         foreach (var f in features)
-            if (!(f.WidthM > 0)) throw new InputException($"{f.Name} has no width left ({f.WidthM * 1e3:G4} mm): check the outline, cut-outs, cuts, slots and poles");
+            if (!(f.WidthM > 0)) throw new InputException($"{f.Name} has no width left ({Numbers.Of(f.WidthM * 1e3, "mm")}): check the outline, cut-outs, cuts, slots and poles");
         double cell;
         if (options.CellSizeM is { } requested)
         {
@@ -99,15 +100,15 @@ public sealed class PlateGrid
             {
                 var worst = kind.MinBy(f => f.WidthM)!;
                 int others = kind.Count() - 1;
-                notes.Add($"{worst.Name} ({worst.WidthM * 1e3:G4} mm) gets only {worst.WidthM / cell:F1} cells across (at least {options.CellsAcross(kind.Key)} recommended)" +
+                notes.Add($"{worst.Name} ({Numbers.Of(worst.WidthM * 1e3, "mm")}) gets only {Numbers.Sig(worst.WidthM / cell)} cells across (at least {options.CellsAcross(kind.Key)} recommended)" +
                     (others > 0 ? $", and {others} more of its kind too few" : "") +
                     ": expect a larger grid error there");
             }
             double count = Math.Ceiling(w / cell) * Math.Ceiling(h / cell);
             if (count > options.MaxCells)
                 throw new InputException(
-                    $"a {cell * 1e3:G4} mm cell needs {count:E2} cells, about {count * GridOptions.BytesPerCellEstimate / 1e9:F1} GB; " +
-                    $"the limit is {options.MaxCells:N0} cells ({options.MaxCells * GridOptions.BytesPerCellEstimate / 1e9:F1} GB): choose a larger cell");
+                    $"a {Numbers.Of(cell * 1e3, "mm")} cell needs {Numbers.Sig(count)} cells, about {Numbers.Of(count * GridOptions.BytesPerCellEstimate / 1e9, "GB")}; " +
+                    $"the limit is {Numbers.Sig(options.MaxCells)} cells ({Numbers.Of(options.MaxCells * GridOptions.BytesPerCellEstimate / 1e9, "GB")}): choose a larger cell");
         }
         else
         {
@@ -118,7 +119,7 @@ public sealed class PlateGrid
             {
                 cell = Math.Sqrt(w * h / options.MaxAutoCells);
                 while (Math.Ceiling(w / cell) * Math.Ceiling(h / cell) > options.MaxAutoCells) cell *= 1.01;
-                notes.Add($"grid capped at {options.MaxAutoCells:N0} cells: {finest.Name} ({finest.WidthM * 1e3:G4} mm) gets only {finest.WidthM / cell:F1} cells across; give a cell size to refine");
+                notes.Add($"grid capped at {Numbers.Sig(options.MaxAutoCells)} cells: {finest.Name} ({Numbers.Of(finest.WidthM * 1e3, "mm")}) gets only {Numbers.Sig(finest.WidthM / cell)} cells across; give a cell size to refine");
             }
         }
         int nx = Math.Max(1, (int)Math.Ceiling(w / cell - 1e-9));

@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using System.Globalization;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
@@ -86,8 +87,8 @@ public static class PlateHeating
             network ??= ThermalNetwork.Assemble(model.Grid, material.ThermalConductivityWPerMK, sheet.ThicknessM, cooling.Edges);
             PlateTemperature temperature;
             try { temperature = PlateTemperatureSolver.Solve(network, cellLoss, cooling, last); }
-            catch (NumericalFailureException e) { throw new NumericalFailureException($"electro-thermal coupling, iteration {iteration} (loss {loss.ToString("G4", c)} W): {e.Message}{Trail(history)}"); }
-            history.Add(string.Create(c, $"{iteration}: loss {loss:G5} W, hottest {temperature.HottestK - 273.15:0.##} degC"));
+            catch (NumericalFailureException e) { throw new NumericalFailureException($"electro-thermal coupling, iteration {iteration} (loss {Numbers.Watts(loss)}): {e.Message}{Trail(history)}"); }
+            history.Add($"{iteration}: loss {Numbers.Watts(loss)}, hottest {Numbers.Celsius(temperature.HottestK, "degC")}");
             last = temperature;   // the next thermal solve starts here
 
             var cellT = temperature.CellTemperatureK();
@@ -102,16 +103,16 @@ public static class PlateHeating
                 try { target[k] = material.ConductivityFactorAtK(cellT[k]); }
                 catch (InputException e)
                 {
-                    throw new NumericalFailureException(string.Create(c,
-                        $"electro-thermal coupling: the plate reached {cellT[k] - 273.15:0.#} degC at iteration {iteration}, beyond the resistivity data ({e.Message}): thermal runaway or a plate far too hot{Trail(history)}"));
+                    throw new NumericalFailureException(
+                        $"electro-thermal coupling: the plate reached {Numbers.Celsius(cellT[k], "degC")} at iteration {iteration}, beyond the resistivity data ({e.Message}): thermal runaway or a plate far too hot{Trail(history)}");
                 }
-                if (!(target[k] > 0) || !double.IsFinite(target[k])) throw new NumericalFailureException($"electro-thermal coupling: the conductivity factor at {cellT[k]:0.#} K is {target[k]}");
+                if (!(target[k] > 0) || !double.IsFinite(target[k])) throw new NumericalFailureException($"electro-thermal coupling: the conductivity factor at {Numbers.Celsius(cellT[k], "degC")} is {target[k]}");
                 mismatch = Math.Max(mismatch, Math.Abs(target[k] - (factors?[k] ?? 1)) / target[k]);
             }
             if (mismatch <= FactorTolerance)
             {
                 var notes = new List<string>();
-                if (relax < 1) notes.Add(string.Create(c, $"the coupling was under-relaxed (factor {relax:G2}) to converge"));
+                if (relax < 1) notes.Add($"the coupling was under-relaxed (factor {Numbers.Sig(relax)}) to converge");
                 return new HeatedPlate(model, ac, sweep, loss, temperature, iteration, FactorTolerance, tMin, tMax, loss > 0 ? weighted / loss : cooling.AmbientK, notes);
             }
             if (iteration >= MaxIterations)

@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using System.Numerics;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
@@ -124,7 +125,7 @@ public static class ThickPlateSolver
             if (!TrySolveAc(LayeredReactionOperator.Build(model, layers, conductor.ThicknessM, plane), source, conductor, criterion, out var full, out failure)) return false;
             double error = Math.Abs(full!.LossW - half!.LossW) / (3 * full.LossW);
             if (error <= accuracy || full.LossW == 0) { solution = full with { LayerError = error }; return true; }
-            if (2 * layers > MaxLayers) { failure = $"layer count not converged: estimated error {error:P2} with {layers} layers (limit {MaxLayers})"; return false; }
+            if (2 * layers > MaxLayers) { failure = $"layer count not converged: estimated error {Numbers.Percent(error)} with {layers} layers (limit {MaxLayers})"; return false; }
             half = full;
             layers *= 2;
         }

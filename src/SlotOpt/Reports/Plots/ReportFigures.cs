@@ -41,7 +41,7 @@ public sealed record ReportFigures(
                 case PlatePart plate when chosen is not null:
                     currentDensity.Add((plate, CurrentDensityPlot.Build(i, plate, r.Figures.CurrentDensityOf(plate.Name))));
                     if (plate.Excitation.IsMoving) dragSpeed.Add((plate, SpeedLinesPlot.Drag(i, evaluation, r.Figures.DragSpeedOf(plate.Name), r.Figures.LowSpeedReynoldsLimit)));
-                    if (plate.Excitation is PlateExcitation.Turning) dragSpeed.Add((plate, SpeedLinesPlot.Torque(i, evaluation, r.Figures.TorqueSpeedOf(plate.Name), r.Figures.LowSpeedReynoldsLimit)));
+                    if (plate.Excitation is PlateExcitation.Turning) dragSpeed.Add((plate, SpeedLinesPlot.Torque(i, evaluation, r.Figures.TorqueSpeedOf(plate.Name))));
                     if (r.Figures.TemperatureOf(plate.Name) is { } maps) temperature.Add((plate, TemperaturePlot.Build(i, plate, maps, evaluation.ReferenceIsCurrent)));
                     if (r.Confirmation(plate.Name) is { SpeedSweep: not null } confirmed) dragSpeed.Add((plate, CoupledSpeedPlot.Build(i, plate, confirmed)));
                     break;

@@ -2,6 +2,7 @@ using SlotOpt.Design.SolidParts;
 using ScottPlot;
 using SlotOpt.Tables;
 using SlotOpt.Design;
+using SlotOpt.Plates;
 using SlotOpt.Runs;
 
 namespace SlotOpt.Reports.Plots;
@@ -9,10 +10,10 @@ namespace SlotOpt.Reports.Plots;
 /// <summary>
 /// A plate part's force against speed, one line a design: the chosen option, the solid sheet of the same kind and the reference, from the
 /// numbers the run computed (reports never solve). Drag of a plate passed by moving poles (<see cref="Drag"/>, <see cref="DragSpeedLines"/>)
-/// and braking torque of a turning disc (<see cref="Torque"/>, <see cref="TorqueSpeedLines"/>) are the same picture in other words: each
-/// line holds while its model's validity lasts (the magnetic Reynolds number reaching the low-speed limit) and is faded beyond; where a
-/// line's model shows a peak it is marked, otherwise the speed where its validity ends is. What differs between the two is data
-/// (<see cref="Words"/>): the quantity, its unit, the speed's unit and the sentences.
+/// and braking torque of a turning disc (<see cref="Torque"/>, <see cref="TorqueSpeedLines"/>) are the same picture in other words: where a
+/// line's model has a validity end (the drag's low-speed model, the magnetic Reynolds number reaching its limit) the line is faded beyond it
+/// and the end is marked unless a peak is; where the line changes model (a disc's points each come from the model its validity calls for)
+/// the switch is marked. What differs between the two is data (<see cref="Words"/>): the quantity, its unit, the speed's unit and the sentences.
 /// </summary>
 public static class SpeedLinesPlot
 {
@@ -45,24 +46,25 @@ public static class SpeedLinesPlot
     }
 
     /// <summary>
-    /// Braking torque against speed for a turning disc, each point labelled with the model that gave it. The resistance-limited line has no
-    /// peak (torque proportional to speed), so the speed where its validity ends (the magnetic Reynolds number at the magnets' radius
-    /// reaching the limit) is marked instead.
+    /// Braking torque against speed for a turning disc, each point from the model its validity calls for at that speed (the run's seam,
+    /// <see cref="TurningDiscModel"/>), so no line is faded; the speed where a line switches from the resistance-limited model to the disc's
+    /// own field (<see cref="TorqueSpeedLines.Line.ModelSwitchRpm"/>) is marked on it, and an own-field peak where one shows.
     /// </summary>
-    public static Figure Torque(int partIndex, PartEvaluation plate, TorqueSpeedLines speedLines, double reynoldsLimit)
+    public static Figure Torque(int partIndex, PartEvaluation plate, TorqueSpeedLines speedLines)
     {
         var part = (PlatePart)plate.Part;
         var n0 = speedLines.RunRpm;
         var nMax = speedLines.MaxRpm;
         var lines = speedLines.Lines.Select(l => new Line(l.Option, l.Role, l.Option.TorqueNm!.Value,
-            l.Points.Select(p => new Point(p.Rpm, p.TorqueNm, p.Model)).ToList(), l.ValidityEndRpm, l.PeakRpm)).ToList();
+            l.Points.Select(p => new Point(p.Rpm, p.TorqueNm, p.Model)).ToList(), double.PositiveInfinity, l.PeakRpm) { ModelSwitch = l.ModelSwitchRpm }).ToList();
         var words = new Words("braking torque", "N m", "rpm", "torque limit", "disc", " at the magnets' radius", "the resistance-limited line holds below, faded above; it shows no peak");
-        var offPlot = lines.Where(l => l.ValidityEnd > nMax).Select(l => l.ValidityEnd).ToList();
-        var caption = $"Braking torque of each disc against its speed, computed in the run from the model named in the legend (dots: the run's {Numbers.Of(n0, "rpm")}). The resistance-limited model neglects the eddy currents' own field: torque rises in proportion to speed and shows no peak. It holds while the magnetic Reynolds number at the magnets' radius, μ0σt(ωr)/2, stays below {Numbers.Sig(reynoldsLimit)}; each line is faded beyond the speed where it reaches it"
+        var rmSwitch = ReactionModelChoice.ReynoldsThreshold(ReactionModelChoice.DefaultAccuracy);   // the seam's model choice at its accuracy
+        var offPlot = lines.Where(l => l.ModelSwitch > nMax).Select(l => l.ModelSwitch!.Value).ToList();
+        var caption = $"Braking torque of each disc against its speed, computed in the run; each point comes from the model its validity figures call for at that speed (within {Numbers.Percent(ReactionModelChoice.DefaultAccuracy)}), named in the legend (dots: the run's {Numbers.Of(n0, "rpm")}). The resistance-limited model neglects the eddy currents' own field: torque rises in proportion to speed and shows no peak. It serves while the magnetic Reynolds number at the magnets' radius, μ0σt(ωr)/2, stays below {Numbers.Sig(rmSwitch)} and the sheet is thin against the field's depth of penetration; a triangle marks the speed where a line switches to the disc's own field"
             + (offPlot.Count > 0 ? $" (for some sheets only above {Numbers.Of(offPlot.Min(), "rpm")}, off the plot)" : "")
-            + ". Above it the real torque is lower, passes a maximum and falls. Not a brake rating.";
+            + ". With its own field the torque is lower than the straight line, passes a maximum and falls. Not a brake rating.";
         var plot = PlotStyle.NewPlot($"{part.Name}: braking torque against speed", "disc speed (rpm)", "braking torque (N m)");
-        Draw(plot, words, lines, n0, nMax, plate.ReferenceIsCurrent, reynoldsLimit, part.MaxTorqueNm, part.MinTorque is { } wanted ? new Point(wanted.Rpm, wanted.TorqueNm, null) : null);
+        Draw(plot, words, lines, n0, nMax, plate.ReferenceIsCurrent, rmSwitch, part.MaxTorqueNm, part.MinBraking is { } wanted ? new Point(wanted.Speed, wanted.Value, null) : null);
         var legendPx = PlotStyle.LegendBelow(plot);
         return PlotStyle.Render(plot, TorqueFileStem(partIndex, part), $"Braking torque against speed: {part.Name}", caption, heightPx: PlotStyle.HeightPx + legendPx);
     }
@@ -74,9 +76,13 @@ public static class SpeedLinesPlot
     private sealed record Point(double Speed, double Value, string? Model);
 
     /// <summary>One design's line: its option and role, its value at the run's speed, its points, the speed where its model's validity ends and its peak (if its model shows one).</summary>
-    private sealed record Line(EvaluatedOption Option, DesignRole Role, double RunValue, IReadOnlyList<Point> Points, double ValidityEnd, double? Peak);
+    private sealed record Line(EvaluatedOption Option, DesignRole Role, double RunValue, IReadOnlyList<Point> Points, double ValidityEnd, double? Peak)
+    {
+        /// <summary>The speed where the line's points change model (a disc's: resistance-limited below, its own field above); null where they never do.</summary>
+        public double? ModelSwitch { get; init; }
+    }
 
-    /// <summary>Every line (solid while valid, faded beyond), its dot at the run's speed, its peak or validity end; the run's speed, the limit and the wanted minimum.</summary>
+    /// <summary>Every line (solid while valid, faded beyond), its dot at the run's speed, its peak or validity end, its model switch; the run's speed, the limit and the wanted minimum.</summary>
     private static void Draw(Plot plot, Words w, IReadOnlyList<Line> lines, double runSpeed, double maxSpeed, bool referenceIsCurrent, double reynoldsLimit, double? limitValue, Point? minimum)
     {
         var marked = new HashSet<double>();
@@ -121,6 +127,13 @@ public static class SpeedLinesPlot
             {
                 var rm = plot.Add.VerticalLine(end, 1, colour);
                 rm.LegendText = $"Rm = {Numbers.Sig(reynoldsLimit)}{w.ReynoldsWhere} at {Numbers.Of(end, w.SpeedUnit)} ({sheetWords}): {w.HoldsBelow}";
+            }
+            if (line.ModelSwitch is { } change && change <= maxSpeed)
+            {
+                var at = Interpolated(line.Points, change);
+                var above = line.Points.FirstOrDefault(p => p.Speed > change)?.Model;
+                var marker = plot.Add.Marker(change, at.Value, MarkerShape.OpenTriangleUp, 12, colour);
+                marker.LegendText = $"{sheetWords}: {at.Model} below {Numbers.Of(change, w.SpeedUnit)}" + (above is null || above == at.Model ? "" : $", {above} above");
             }
         }
         var run = plot.Add.VerticalLine(runSpeed, 1, PlotStyle.Grey);

@@ -1,3 +1,4 @@
+using SlotOpt.Tables;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Grid;
 
@@ -29,11 +30,11 @@ public static class DiscTorque
             var b = model.RightHandSide(node);
             if (!model.TrySolve(b, psi, criterion, out var report))
             {
-                failure = $"turning disc at {anglesRad[k] * 180 / Math.PI:0.##} deg: sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+                failure = $"turning disc at {Numbers.Of(anglesRad[k] * 180 / Math.PI, "deg")}: sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
                 return false;
             }
             losses[k] = model.LossPerSiemens(psi);
-            if (!double.IsFinite(losses[k])) { failure = $"turning disc at {anglesRad[k] * 180 / Math.PI:0.##} deg: the loss is not finite"; return false; }
+            if (!double.IsFinite(losses[k])) { failure = $"turning disc at {Numbers.Of(anglesRad[k] * 180 / Math.PI, "deg")}: the loss is not finite"; return false; }
             iterations += report.Iterations;
             residual = Math.Max(residual, report.RelativeResidual);
             if (peakPsi is null || losses[k] > losses[peak]) { peakPsi = (double[])psi.Clone(); peak = k; }

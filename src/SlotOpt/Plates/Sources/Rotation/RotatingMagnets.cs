@@ -1,4 +1,4 @@
-using System.Globalization;
+using SlotOpt.Tables;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Sources.Magnets;
@@ -55,8 +55,8 @@ public sealed class RotatingMagnets : RotatingSource
     public override RotatingSource AtSpeed(double angularSpeedRadPerS) =>
         SharingRates(new RotatingMagnets(Magnet, RadiusM, Count, PitchRad, Polarity, GapM, Axis, angularSpeedRadPerS, LineQuadratureOrder));
 
-    public override string Words => string.Create(CultureInfo.InvariantCulture,
-        $"{Count} magnet{(Count == 1 ? "" : "s")} at {RadiusM * 1e3:0.##} mm radius, {GapM * 1e3:0.##} mm gap");
+    public override string Words =>
+        $"{Count} magnet{(Count == 1 ? "" : "s")} at {Numbers.Of(RadiusM * 1e3, "mm")} radius, {Numbers.Of(GapM * 1e3, "mm")} gap";
 
     /// <summary>Bz at the disc's top surface at (x, y) from the axis, the ring turned by angleRad.</summary>
     public double FieldZ(double xM, double yM, double angleRad)

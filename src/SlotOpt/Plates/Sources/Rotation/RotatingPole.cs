@@ -1,4 +1,4 @@
-using System.Globalization;
+using SlotOpt.Tables;
 using SlotOpt.Plates.Geometry;
 
 namespace SlotOpt.Plates.Sources.Rotation;
@@ -29,7 +29,7 @@ public sealed class RotatingPole : RotatingSource
 
     public override RotatingSource AtSpeed(double angularSpeedRadPerS) => SharingRates(new RotatingPole(Axis, SourceRadiusM, PoleRadiusM, FluxDensityT, angularSpeedRadPerS));
 
-    public override string Words => string.Create(CultureInfo.InvariantCulture, $"a pole {2 * PoleRadiusM * 1e3:0.##} mm across at {SourceRadiusM * 1e3:0.##} mm radius");
+    public override string Words => $"a pole {Numbers.Of(2 * PoleRadiusM * 1e3, "mm")} across at {Numbers.Of(SourceRadiusM * 1e3, "mm")} radius";
 
     protected override double MomentAlongX(double yM, double x0M, double x1M, double angleRad)
     {
