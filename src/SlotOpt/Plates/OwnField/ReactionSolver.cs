@@ -98,7 +98,6 @@ public static class ReactionSolver
         double g = conductor.SheetConductanceS, v = source.SpeedMPerS;
         var op = CoupledOperator.Moving(model, reaction, v, g);
         int n = model.Unknowns;
-        var gmres = new RecycledGmres(op.Apply, op.Precondition, n);   // one operator for every offset: each solve keeps its search space for the next
         var node = new double[l.NodeCount];
         var liftNode = new double[l.NodeCount];
         var gradient = new double[n];
@@ -125,7 +124,7 @@ public static class ReactionSolver
             double edgeLoss = source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]);
             dragLow[k] = g * (model.LossPerSiemens(low) + edgeLoss) / v;
             if (k == 0) Array.Copy(initialGuess ?? low, u, n);
-            if (!gmres.TrySolve(rhs, u, image, imageHoldsGuess: k > 0, criterion, out var report))
+            if (!Gmres.TrySolve(op.Apply, op.Precondition, rhs, u, image, imageHoldsGuess: k > 0, criterion, ComplexGmres.DefaultRestart, out var report))
             {
                 failure = $"at offset {offsetsXM[k]} m, coupled moving solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
                 return false;
