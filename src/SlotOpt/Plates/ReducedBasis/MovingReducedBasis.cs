@@ -17,7 +17,8 @@ namespace SlotOpt.Plates.ReducedBasis;
 /// The source's rate s scales with its speed (a translating field: dBz/dt = -v dBz/dx), so one basis also serves every speed.
 /// Stopping: the Arnoldi relation gives the residual of the projected solution exactly, (I - c M) V y - u0 = -c h(m+1,m) y_m v(m+1), and
 /// |(I - c M) e|_A &gt;= |e|_A for skew-adjoint M, so the A-norm error of u is at most |c h(m+1,m) y_m| |u0|_A; the basis grows until that
-/// is below the criterion's relative residual times |u|_A. Each step costs one application of S (by FFT) and one multigrid solve with A. Not thread-safe (the reaction operator is not): one per thread.
+/// is below the criterion's relative residual times |u|_A; for loss and drag alone, until the loss's adjoint-weighted bound (the product of that
+/// bound and the adjoint problem's, <see cref="ArnoldiPosition.RelativeLossError"/>) is below the criterion. Each step costs one application of S (by FFT) and one multigrid solve with A. Not thread-safe (the reaction operator is not): one per thread.
 /// </summary>
 public sealed class MovingReducedBasis
 {
@@ -70,29 +71,36 @@ public sealed class MovingReducedBasis
         return new MovingReducedBasis(reaction, source, offsetsXM, criterion, positions);
     }
 
-    /// <param name="withLift">false: loss and drag only (the lift is left 0, saving one FFT convolution a position the first time)</param>
+    /// <param name="withLift">false: loss and drag only (the lift is left 0, saving one FFT convolution a position the first time, and the bases stop on
+    /// the loss's error bound instead of the solution's, which takes about half the steps)</param>
     public ReactionMovingSolution Solve(ConductingSheet conductor, double speedMPerS, bool withLift = true) =>
         TrySolve(conductor, speedMPerS, out var s, out var failure, withLift) ? s! : throw new NumericalFailureException(failure);
 
-    /// <summary>Loss, drag and lift at every offset for one conductor and speed; the bases grow until the error bound meets the criterion.</summary>
+    /// <summary>
+    /// Loss, drag and lift at every offset for one conductor and speed; the bases grow until the error bound meets the criterion: the
+    /// solution's A-norm bound (the lift is linear in u), or without the lift the loss's own bound (<see cref="ArnoldiPosition.RelativeLossError"/>,
+    /// about the square of the solution's, so about half the steps). MaxRelativeResidual reports the bound that stopped it.
+    /// </summary>
     public bool TrySolve(ConductingSheet conductor, double speedMPerS, out ReactionMovingSolution? solution, out string failure, bool withLift = true)
     {
         solution = null;
         if (!(speedMPerS > 0) || !double.IsFinite(speedMPerS)) throw new InputException($"the speed must be positive (got {speedMPerS} m/s)");
         double g = conductor.SheetConductanceS, c = speedMPerS * g, scale = speedMPerS / Source.SpeedMPerS;   // s, u0 and y scale with v
         var projected = new RealProjection?[_positions.Length];
+        var error = new double[_positions.Length];     // the stopping quantity: the solution's bound, or with withLift false the loss's
         while (true)
         {
             var growing = new List<ArnoldiPosition>();
             for (int k = 0; k < _positions.Length; k++)
             {
                 projected[k] = _positions[k].Project(c);
-                if (projected[k]!.RelativeError > _criterion.RelativeResidual && !_positions[k].Exhausted) growing.Add(_positions[k]);
+                error[k] = withLift ? projected[k]!.RelativeError : _positions[k].RelativeLossError(c, projected[k]!);
+                if (error[k] > _criterion.RelativeResidual && !_positions[k].Exhausted) growing.Add(_positions[k]);
             }
             if (growing.Count == 0) break;
             if (growing.Any(p => p.V.Count > MaxSteps))
             {
-                failure = $"the reduced basis did not converge in {MaxSteps} steps at c = v G = {c:G4} (error bound {projected.Max(p => p!.RelativeError):E2})";
+                failure = $"the reduced basis did not converge in {MaxSteps} steps at c = v G = {c:G4} (error bound {error.Max():E2})";
                 return false;
             }
             _criterion.ThrowIfCancelled();
@@ -113,7 +121,7 @@ public sealed class MovingReducedBasis
             if (withLift) lift[k] = -g * beta * y.DotProduct(p.LiftProjection(_reaction, Source, OffsetsXM[k], y.Count));   // lift on the source = -G integral u dBz/dz dA
             dragLow[k] = g * (beta * beta + edge) / speedMPerS;
             steps[k] = p.V.Count - 1;
-            worst = Math.Max(worst, projected[k]!.RelativeError);
+            worst = Math.Max(worst, error[k]);
             if (!double.IsFinite(loss[k]) || !double.IsFinite(lift[k])) { failure = $"at offset {OffsetsXM[k]} m: the force is not finite"; return false; }
         }
         var notes = new List<string>();
