@@ -126,12 +126,14 @@ internal static class BlackBoxCoarsening
     /// A_c(K, L) = phi_K^T A phi_L with phi_K coarse node K's prolongation (support: the 3 x 3 fine
     /// nodes around it); per coarse node A phi_K is formed on the 5 x 5 patch around it and dotted
     /// with the basis functions of K and its west, south, south-west and south-east neighbours
-    /// (each dot product spelled out over the fine nodes the two supports share).
+    /// (each dot product spelled out over the fine nodes the two supports share). The coarse nodes away from the lattice's edges
+    /// take <see cref="InteriorFromFivePoint"/> or <see cref="InteriorFromNinePoint"/>, the same sums without the loop (the first two
+    /// coarsenings are most of the setup).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void GalerkinOperator(StencilLevel f, StencilLevel c)
     {
-        int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx;
+        int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx, fny = f.Ny;
         var phiArray = Bases(c);
         ref float phi = ref MemoryMarshal.GetArrayDataReference(phiArray);
         Span<double> patch = stackalloc double[25];   // A phi_K on K's 5 x 5 patch, row by row from the south-west corner
@@ -144,6 +146,12 @@ internal static class BlackBoxCoarsening
             {
                 int k = J * ncx + I;
                 int p0 = 2 * J * fnx + 2 * I;
+                if (I > 0 && J > 0 && 2 * I + 1 < fnx && 2 * J + 1 < fny)
+                {
+                    if (nine) InteriorFromNinePoint(stencil, ref phi, k, p0, ncx, I, cc, cw, cs, csw, cse);
+                    else InteriorFromFivePoint(stencil, ref phi, k, p0, ncx, I, cc, cw, cs, csw, cse);
+                    continue;
+                }
                 patch.Clear();
                 for (int t = 0; t < 9; t++)
                 {
@@ -187,6 +195,133 @@ internal static class BlackBoxCoarsening
                     }
                 }
             }
+    }
+
+    /// <summary>
+    /// <see cref="GalerkinOperator"/>'s entries for a coarse node whose 3 x 3 support lies inside a 5-point fine level: the same terms
+    /// summed in the same order as the patch loop (so the same bits: a term with a 0 factor left out adds exactly 0), the patch held
+    /// in locals and A's corners (0 on a 5-point level) left out.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void InteriorFromFivePoint(in Stencil stencil, ref float phi, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
+    {
+        int fnx = stencil.Nx, b = 9 * k;
+        int n0 = p0 - fnx - 1;
+        double v0 = Unsafe.Add(ref phi, b + 0), C0 = Unsafe.Add(ref stencil.Centre, n0), W0 = Unsafe.Add(ref stencil.West, n0), E0 = Unsafe.Add(ref stencil.West, n0 + 1), S0 = Unsafe.Add(ref stencil.South, n0), N0 = Unsafe.Add(ref stencil.South, n0 + fnx);
+        int n1 = p0 - fnx;
+        double v1 = Unsafe.Add(ref phi, b + 1), C1 = Unsafe.Add(ref stencil.Centre, n1), W1 = Unsafe.Add(ref stencil.West, n1), E1 = Unsafe.Add(ref stencil.West, n1 + 1), S1 = Unsafe.Add(ref stencil.South, n1), N1 = Unsafe.Add(ref stencil.South, n1 + fnx);
+        int n2 = p0 - fnx + 1;
+        double v2 = Unsafe.Add(ref phi, b + 2), C2 = Unsafe.Add(ref stencil.Centre, n2), W2 = Unsafe.Add(ref stencil.West, n2), E2 = Unsafe.Add(ref stencil.West, n2 + 1), S2 = Unsafe.Add(ref stencil.South, n2), N2 = Unsafe.Add(ref stencil.South, n2 + fnx);
+        int n3 = p0 - 1;
+        double v3 = Unsafe.Add(ref phi, b + 3), C3 = Unsafe.Add(ref stencil.Centre, n3), W3 = Unsafe.Add(ref stencil.West, n3), E3 = Unsafe.Add(ref stencil.West, n3 + 1), S3 = Unsafe.Add(ref stencil.South, n3), N3 = Unsafe.Add(ref stencil.South, n3 + fnx);
+        int n4 = p0;
+        double v4 = Unsafe.Add(ref phi, b + 4), C4 = Unsafe.Add(ref stencil.Centre, n4), W4 = Unsafe.Add(ref stencil.West, n4), E4 = Unsafe.Add(ref stencil.West, n4 + 1), S4 = Unsafe.Add(ref stencil.South, n4), N4 = Unsafe.Add(ref stencil.South, n4 + fnx);
+        int n5 = p0 + 1;
+        double v5 = Unsafe.Add(ref phi, b + 5), C5 = Unsafe.Add(ref stencil.Centre, n5), W5 = Unsafe.Add(ref stencil.West, n5), E5 = Unsafe.Add(ref stencil.West, n5 + 1), S5 = Unsafe.Add(ref stencil.South, n5), N5 = Unsafe.Add(ref stencil.South, n5 + fnx);
+        int n6 = p0 + fnx - 1;
+        double v6 = Unsafe.Add(ref phi, b + 6), C6 = Unsafe.Add(ref stencil.Centre, n6), W6 = Unsafe.Add(ref stencil.West, n6), E6 = Unsafe.Add(ref stencil.West, n6 + 1), S6 = Unsafe.Add(ref stencil.South, n6), N6 = Unsafe.Add(ref stencil.South, n6 + fnx);
+        int n7 = p0 + fnx;
+        double v7 = Unsafe.Add(ref phi, b + 7), C7 = Unsafe.Add(ref stencil.Centre, n7), W7 = Unsafe.Add(ref stencil.West, n7), E7 = Unsafe.Add(ref stencil.West, n7 + 1), S7 = Unsafe.Add(ref stencil.South, n7), N7 = Unsafe.Add(ref stencil.South, n7 + fnx);
+        int n8 = p0 + fnx + 1;
+        double v8 = Unsafe.Add(ref phi, b + 8), C8 = Unsafe.Add(ref stencil.Centre, n8), W8 = Unsafe.Add(ref stencil.West, n8), E8 = Unsafe.Add(ref stencil.West, n8 + 1), S8 = Unsafe.Add(ref stencil.South, n8), N8 = Unsafe.Add(ref stencil.South, n8 + fnx);
+        // a_m = (A phi_K) at patch place m (5 x 5, row by row from the south-west corner, K at 12), each a sum over the support nodes
+        // in the patch loop's order; places 0 and 4 (the patch's lower corners) are 0 on a 5-point level, 14 and up are not needed
+        double a1 = S0 * v0;
+        double a2 = S1 * v1;
+        double a3 = S2 * v2;
+        double a5 = W0 * v0;
+        double a6 = C0 * v0 + W1 * v1 + S3 * v3;
+        double a7 = E0 * v0 + C1 * v1 + W2 * v2 + S4 * v4;
+        double a8 = E1 * v1 + C2 * v2 + S5 * v5;
+        double a9 = E2 * v2;
+        double a10 = W3 * v3;
+        double a11 = N0 * v0 + C3 * v3 + W4 * v4 + S6 * v6;
+        double a12 = N1 * v1 + E3 * v3 + C4 * v4 + W5 * v5 + S7 * v7;
+        double a13 = N2 * v2 + E4 * v4 + C5 * v5 + S8 * v8;
+        double a15 = W6 * v6;
+        double a16 = N3 * v3 + C6 * v6 + W7 * v7;
+        double a17 = N4 * v4 + E6 * v6 + C7 * v7 + W8 * v8;
+        double a18 = N5 * v5 + E7 * v7 + C8 * v8;
+        cc[k] = Unsafe.Add(ref phi, b) * a6 + Unsafe.Add(ref phi, b + 1) * a7 + Unsafe.Add(ref phi, b + 2) * a8 + Unsafe.Add(ref phi, b + 3) * a11 + Unsafe.Add(ref phi, b + 4) * a12
+              + Unsafe.Add(ref phi, b + 5) * a13 + Unsafe.Add(ref phi, b + 6) * a16 + Unsafe.Add(ref phi, b + 7) * a17 + Unsafe.Add(ref phi, b + 8) * a18;
+        b = 9 * (k - 1);
+        cw[k] = Unsafe.Add(ref phi, b + 1) * a5 + Unsafe.Add(ref phi, b + 2) * a6 + Unsafe.Add(ref phi, b + 4) * a10 + Unsafe.Add(ref phi, b + 5) * a11 + Unsafe.Add(ref phi, b + 7) * a15 + Unsafe.Add(ref phi, b + 8) * a16;
+        b = 9 * (k - ncx);
+        cs[k] = Unsafe.Add(ref phi, b + 3) * a1 + Unsafe.Add(ref phi, b + 4) * a2 + Unsafe.Add(ref phi, b + 5) * a3 + Unsafe.Add(ref phi, b + 6) * a6 + Unsafe.Add(ref phi, b + 7) * a7 + Unsafe.Add(ref phi, b + 8) * a8;
+        b = 9 * (k - ncx - 1);
+        csw[k] = Unsafe.Add(ref phi, b + 5) * a1 + Unsafe.Add(ref phi, b + 7) * a5 + Unsafe.Add(ref phi, b + 8) * a6;
+        if (I + 1 < ncx)
+        {
+            b = 9 * (k - ncx + 1);
+            cse[k] = Unsafe.Add(ref phi, b + 3) * a3 + Unsafe.Add(ref phi, b + 6) * a8 + Unsafe.Add(ref phi, b + 7) * a9;
+        }
+    }
+
+    /// <summary>
+    /// <see cref="InteriorFromFivePoint"/> below a 9-point level: the same sums as the patch loop, in its order, with A's corners.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void InteriorFromNinePoint(in Stencil stencil, ref float phi, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
+    {
+        int fnx = stencil.Nx, b = 9 * k;
+        int n0 = p0 - fnx - 1;
+        double v0 = Unsafe.Add(ref phi, b + 0), C0 = Unsafe.Add(ref stencil.Centre, n0), W0 = Unsafe.Add(ref stencil.West, n0), E0 = Unsafe.Add(ref stencil.West, n0 + 1), S0 = Unsafe.Add(ref stencil.South, n0), N0 = Unsafe.Add(ref stencil.South, n0 + fnx),
+            SW0 = Unsafe.Add(ref stencil.SouthWest, n0), NE0 = Unsafe.Add(ref stencil.SouthWest, n0 + fnx + 1), SE0 = Unsafe.Add(ref stencil.SouthEast, n0), NW0 = Unsafe.Add(ref stencil.SouthEast, n0 + fnx - 1);
+        int n1 = p0 - fnx;
+        double v1 = Unsafe.Add(ref phi, b + 1), C1 = Unsafe.Add(ref stencil.Centre, n1), W1 = Unsafe.Add(ref stencil.West, n1), E1 = Unsafe.Add(ref stencil.West, n1 + 1), S1 = Unsafe.Add(ref stencil.South, n1), N1 = Unsafe.Add(ref stencil.South, n1 + fnx),
+            SW1 = Unsafe.Add(ref stencil.SouthWest, n1), NE1 = Unsafe.Add(ref stencil.SouthWest, n1 + fnx + 1), SE1 = Unsafe.Add(ref stencil.SouthEast, n1), NW1 = Unsafe.Add(ref stencil.SouthEast, n1 + fnx - 1);
+        int n2 = p0 - fnx + 1;
+        double v2 = Unsafe.Add(ref phi, b + 2), C2 = Unsafe.Add(ref stencil.Centre, n2), W2 = Unsafe.Add(ref stencil.West, n2), E2 = Unsafe.Add(ref stencil.West, n2 + 1), S2 = Unsafe.Add(ref stencil.South, n2), N2 = Unsafe.Add(ref stencil.South, n2 + fnx),
+            SW2 = Unsafe.Add(ref stencil.SouthWest, n2), NE2 = Unsafe.Add(ref stencil.SouthWest, n2 + fnx + 1), SE2 = Unsafe.Add(ref stencil.SouthEast, n2), NW2 = Unsafe.Add(ref stencil.SouthEast, n2 + fnx - 1);
+        int n3 = p0 - 1;
+        double v3 = Unsafe.Add(ref phi, b + 3), C3 = Unsafe.Add(ref stencil.Centre, n3), W3 = Unsafe.Add(ref stencil.West, n3), E3 = Unsafe.Add(ref stencil.West, n3 + 1), S3 = Unsafe.Add(ref stencil.South, n3), N3 = Unsafe.Add(ref stencil.South, n3 + fnx),
+            SW3 = Unsafe.Add(ref stencil.SouthWest, n3), NE3 = Unsafe.Add(ref stencil.SouthWest, n3 + fnx + 1), SE3 = Unsafe.Add(ref stencil.SouthEast, n3), NW3 = Unsafe.Add(ref stencil.SouthEast, n3 + fnx - 1);
+        int n4 = p0;
+        double v4 = Unsafe.Add(ref phi, b + 4), C4 = Unsafe.Add(ref stencil.Centre, n4), W4 = Unsafe.Add(ref stencil.West, n4), E4 = Unsafe.Add(ref stencil.West, n4 + 1), S4 = Unsafe.Add(ref stencil.South, n4), N4 = Unsafe.Add(ref stencil.South, n4 + fnx),
+            SW4 = Unsafe.Add(ref stencil.SouthWest, n4), NE4 = Unsafe.Add(ref stencil.SouthWest, n4 + fnx + 1), SE4 = Unsafe.Add(ref stencil.SouthEast, n4), NW4 = Unsafe.Add(ref stencil.SouthEast, n4 + fnx - 1);
+        int n5 = p0 + 1;
+        double v5 = Unsafe.Add(ref phi, b + 5), C5 = Unsafe.Add(ref stencil.Centre, n5), W5 = Unsafe.Add(ref stencil.West, n5), E5 = Unsafe.Add(ref stencil.West, n5 + 1), S5 = Unsafe.Add(ref stencil.South, n5), N5 = Unsafe.Add(ref stencil.South, n5 + fnx),
+            SW5 = Unsafe.Add(ref stencil.SouthWest, n5), NE5 = Unsafe.Add(ref stencil.SouthWest, n5 + fnx + 1), SE5 = Unsafe.Add(ref stencil.SouthEast, n5), NW5 = Unsafe.Add(ref stencil.SouthEast, n5 + fnx - 1);
+        int n6 = p0 + fnx - 1;
+        double v6 = Unsafe.Add(ref phi, b + 6), C6 = Unsafe.Add(ref stencil.Centre, n6), W6 = Unsafe.Add(ref stencil.West, n6), E6 = Unsafe.Add(ref stencil.West, n6 + 1), S6 = Unsafe.Add(ref stencil.South, n6), N6 = Unsafe.Add(ref stencil.South, n6 + fnx),
+            SW6 = Unsafe.Add(ref stencil.SouthWest, n6), NE6 = Unsafe.Add(ref stencil.SouthWest, n6 + fnx + 1), SE6 = Unsafe.Add(ref stencil.SouthEast, n6), NW6 = Unsafe.Add(ref stencil.SouthEast, n6 + fnx - 1);
+        int n7 = p0 + fnx;
+        double v7 = Unsafe.Add(ref phi, b + 7), C7 = Unsafe.Add(ref stencil.Centre, n7), W7 = Unsafe.Add(ref stencil.West, n7), E7 = Unsafe.Add(ref stencil.West, n7 + 1), S7 = Unsafe.Add(ref stencil.South, n7), N7 = Unsafe.Add(ref stencil.South, n7 + fnx),
+            SW7 = Unsafe.Add(ref stencil.SouthWest, n7), NE7 = Unsafe.Add(ref stencil.SouthWest, n7 + fnx + 1), SE7 = Unsafe.Add(ref stencil.SouthEast, n7), NW7 = Unsafe.Add(ref stencil.SouthEast, n7 + fnx - 1);
+        int n8 = p0 + fnx + 1;
+        double v8 = Unsafe.Add(ref phi, b + 8), C8 = Unsafe.Add(ref stencil.Centre, n8), W8 = Unsafe.Add(ref stencil.West, n8), E8 = Unsafe.Add(ref stencil.West, n8 + 1), S8 = Unsafe.Add(ref stencil.South, n8), N8 = Unsafe.Add(ref stencil.South, n8 + fnx),
+            SW8 = Unsafe.Add(ref stencil.SouthWest, n8), NE8 = Unsafe.Add(ref stencil.SouthWest, n8 + fnx + 1), SE8 = Unsafe.Add(ref stencil.SouthEast, n8), NW8 = Unsafe.Add(ref stencil.SouthEast, n8 + fnx - 1);
+        double a0 = SW0 * v0;
+        double a1 = S0 * v0 + SW1 * v1;
+        double a2 = SE0 * v0 + S1 * v1 + SW2 * v2;
+        double a3 = SE1 * v1 + S2 * v2;
+        double a4 = SE2 * v2;
+        double a5 = W0 * v0 + SW3 * v3;
+        double a6 = C0 * v0 + W1 * v1 + S3 * v3 + SW4 * v4;
+        double a7 = E0 * v0 + C1 * v1 + W2 * v2 + SE3 * v3 + S4 * v4 + SW5 * v5;
+        double a8 = E1 * v1 + C2 * v2 + SE4 * v4 + S5 * v5;
+        double a9 = E2 * v2 + SE5 * v5;
+        double a10 = NW0 * v0 + W3 * v3 + SW6 * v6;
+        double a11 = N0 * v0 + NW1 * v1 + C3 * v3 + W4 * v4 + S6 * v6 + SW7 * v7;
+        double a12 = NE0 * v0 + N1 * v1 + NW2 * v2 + E3 * v3 + C4 * v4 + W5 * v5 + SE6 * v6 + S7 * v7 + SW8 * v8;
+        double a13 = NE1 * v1 + N2 * v2 + E4 * v4 + C5 * v5 + SE7 * v7 + S8 * v8;
+        double a15 = NW3 * v3 + W6 * v6;
+        double a16 = N3 * v3 + NW4 * v4 + C6 * v6 + W7 * v7;
+        double a17 = NE3 * v3 + N4 * v4 + NW5 * v5 + E6 * v6 + C7 * v7 + W8 * v8;
+        double a18 = NE4 * v4 + N5 * v5 + E7 * v7 + C8 * v8;
+        cc[k] = Unsafe.Add(ref phi, b) * a6 + Unsafe.Add(ref phi, b + 1) * a7 + Unsafe.Add(ref phi, b + 2) * a8 + Unsafe.Add(ref phi, b + 3) * a11 + Unsafe.Add(ref phi, b + 4) * a12
+              + Unsafe.Add(ref phi, b + 5) * a13 + Unsafe.Add(ref phi, b + 6) * a16 + Unsafe.Add(ref phi, b + 7) * a17 + Unsafe.Add(ref phi, b + 8) * a18;
+        b = 9 * (k - 1);
+        cw[k] = Unsafe.Add(ref phi, b + 1) * a5 + Unsafe.Add(ref phi, b + 2) * a6 + Unsafe.Add(ref phi, b + 4) * a10 + Unsafe.Add(ref phi, b + 5) * a11 + Unsafe.Add(ref phi, b + 7) * a15 + Unsafe.Add(ref phi, b + 8) * a16;
+        b = 9 * (k - ncx);
+        cs[k] = Unsafe.Add(ref phi, b + 3) * a1 + Unsafe.Add(ref phi, b + 4) * a2 + Unsafe.Add(ref phi, b + 5) * a3 + Unsafe.Add(ref phi, b + 6) * a6 + Unsafe.Add(ref phi, b + 7) * a7 + Unsafe.Add(ref phi, b + 8) * a8;
+        b = 9 * (k - ncx - 1);
+        csw[k] = Unsafe.Add(ref phi, b + 4) * a0 + Unsafe.Add(ref phi, b + 5) * a1 + Unsafe.Add(ref phi, b + 7) * a5 + Unsafe.Add(ref phi, b + 8) * a6;
+        if (I + 1 < ncx)
+        {
+            b = 9 * (k - ncx + 1);
+            cse[k] = Unsafe.Add(ref phi, b + 3) * a3 + Unsafe.Add(ref phi, b + 4) * a4 + Unsafe.Add(ref phi, b + 6) * a8 + Unsafe.Add(ref phi, b + 7) * a9;
+        }
     }
 
     /// <summary>

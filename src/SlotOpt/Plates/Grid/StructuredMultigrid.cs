@@ -210,20 +210,26 @@ public sealed class StructuredMultigrid : IPreconditioner
         var map = regions.NodeUnknown;
         double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
         var c = level.Centre; var w = level.West; var s = level.South;
-        // 1 / g per cell (0 for an empty cell), then each edge's resistance (as SheetOperator's) into w and s until the couplings replace it
+        // each edge's resistance (as SheetOperator's) into w and s until the couplings replace it, from the inverse conductances
+        // (0 for an empty cell) of the cell rows below and above node row j, two rows kept as j advances
         var g = grid.Conductance;
-        var inverse = new double[g.Length];
-        for (int k = 0; k < g.Length; k++) inverse[k] = g[k] == 0 ? 0 : 1 / g[k];
+        var below = new double[cx];
+        var above = new double[cx];
         double largest = 0;
         for (int j = 0; j < ny; j++)
+        {
+            (below, above) = (above, below);
+            if (j < cy)
+                for (int i = 0; i < cx; i++) { double v = g[j * cx + i]; above[i] = v == 0 ? 0 : 1 / v; }
             for (int i = 0; i < nx; i++)
             {
                 int p = j * nx + i;
                 // edge (i - 1, j)-(i, j) between cells (i - 1, j - 1) and (i - 1, j); edge (i, j - 1)-(i, j) between cells (i - 1, j - 1) and (i, j - 1)
-                w[p] = i > 0 && j > 0 && j < cy ? SheetOperator.EdgeResistance(inverse[(j - 1) * cx + i - 1], inverse[j * cx + i - 1], rx) : 0;
-                s[p] = j > 0 && i > 0 && i < cx ? SheetOperator.EdgeResistance(inverse[(j - 1) * cx + i - 1], inverse[(j - 1) * cx + i], ry) : 0;
+                w[p] = i > 0 && j > 0 && j < cy ? SheetOperator.EdgeResistance(below[i - 1], above[i - 1], rx) : 0;
+                s[p] = j > 0 && i > 0 && i < cx ? SheetOperator.EdgeResistance(below[i - 1], below[i], ry) : 0;
                 largest = Math.Max(largest, Math.Max(w[p], s[p]));
             }
+        }
         double glue = GlueFactor * largest;
         var outside = new double[nx * ny];
         if (regions.UnknownCount == 0) throw SheetOperator.NoFreeNode();
@@ -233,14 +239,15 @@ public sealed class StructuredMultigrid : IPreconditioner
             {
                 int p = j * nx + i;
                 if (map[p] < 0) c[p] += glue;   // outside: a decoupled row on the matrix's scale
-                if (i > 0) w[p] = Couple(p - 1, p, w[p]);
-                if (j > 0) s[p] = Couple(p - nx, p, s[p]);
+                if (i > 0) w[p] = Couple(p - 1, p, w[p], glue, map, c, diagonal, outside);
+                if (j > 0) s[p] = Couple(p - nx, p, s[p], glue, map, c, diagonal, outside);
             }
         for (int u = 0; u < diagonal.Length; u++) if (!(diagonal[u] > 0)) throw SheetOperator.NoConductingCellBeside(u);
         return (level, outside);
 
         // the edge between nodes a and p (p the stored side) with conductance r in the sheet operator: adds to the diagonals, returns the stored coupling
-        double Couple(int a, int p, double r)
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        static double Couple(int a, int p, double r, double glue, int[] map, double[] c, double[] diagonal, double[] outside)
         {
             int ua = map[a], up = map[p];
             if (ua < 0 && up < 0) return 0;
