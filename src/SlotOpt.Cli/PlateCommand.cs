@@ -124,7 +124,7 @@ public static class PlateCommand
             s.AppendLine(c, $"  against speed        (thick-slab, wavenumber quadrature error below {Numbers.Sig(slab.Max(f => f.RelativeErrorEstimate))})");
             foreach (var f in slab) s.AppendLine(c, $"    {Numbers.Of(f.SpeedMPerS, "m/s"),-14} drag {Numbers.Newtons(f.DragN),-12} lift {Numbers.Newtons(f.LiftN),-12} loss {Numbers.Watts(f.LossW)}");
         }
-        if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {Numbers.Sig(grid.Relative * 100)} % of loss{(e.MeanDragN is null ? "" : " and drag")} ({grid.Description})");
+        if (e.GridError is { } grid) s.AppendLine(c, $"  grid error           {Numbers.EstimatePercent(grid.Relative)} of loss{(e.MeanDragN is null ? "" : " and drag")} ({grid.Description})");
         s.AppendLine(c, $"  current density      peak {Numbers.Sig(r.PeakCurrentDensityAPerM2 / 1e6)} A/mm2, rms {Numbers.Sig(r.RmsCurrentDensityAPerM2 / 1e6)} A/mm2");
         s.Append($"  magnetic Reynolds    {Numbers.Sig(r.Validity.ReynoldsNumber)}");
         s.AppendLine(r.Validity.ThicknessToSkinDepth is { } td ? $", thickness/skin depth {Numbers.Sig(td)}" : "");

@@ -133,7 +133,7 @@ public sealed record DiscretisationError(
     };
 
     public string Warning =>
-        $"estimated grid error {Numbers.Percent(Relative)} ({Description}) exceeds {Numbers.Percent(WarningThreshold)}: give a smaller [grid] cell";
+        $"estimated grid error {Numbers.EstimatePercent(Relative)} ({Description}) exceeds {Numbers.Percent(WarningThreshold)}: give a smaller [grid] cell";
 
     private static DiscretisationError Unconfirmed(double relative, double r21, double[] values, double[] cells, double? observed, string why) =>
         new(UnconfirmedOrderSafetyFactor * relative / (Math.Pow(r21, AssumedOrder) - 1), GridErrorMethod.ThreeGridOrderUnconfirmed, values, cells, observed,

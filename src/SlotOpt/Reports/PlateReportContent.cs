@@ -36,7 +36,7 @@ public static class PlateReportContent
 
     /// <summary>"grid error 0.7 % (grid convergence index from 0.5, 1 and 2 mm cells, ...)" or why there is none.</summary>
     private static string GridWords(PlateFigures f) => f.GridErrorRelative is { } g
-        ? $"grid error {N(g * 100)} % ({f.GridErrorWords})"
+        ? $"grid error {Tables.Numbers.EstimatePercent(g)} ({f.GridErrorWords})"
         : "no grid-error estimate (the grid cannot be coarsened to twice its cell, or the plate is solved with its temperature)";
 
     /// <summary>The one line at the top: what the plate does under its source, from which model, with its grid error.</summary>
@@ -74,7 +74,7 @@ public static class PlateReportContent
             Row($"drag (mean over {travel.AveragedOver}; min {Tables.Numbers.Newtons(travel.DragN.Min())}, max {Tables.Numbers.Newtons(travel.DragN.Max())})", Tables.Numbers.Newtons(travel.MeanDragN), f.Model);
         else if (f.Approach is { } approach)
             Row($"damping force at the first gap, {N(approach.Points[0].GapM * 1e3)} mm", Tables.Numbers.Newtons(approach.Points[0].ForceN), f.Model);
-        Row("grid error of loss and force (relative)", f.GridErrorRelative is { } g ? $"{N(g * 100)} %" : "none", f.GridErrorWords ?? "");
+        Row("grid error of loss and force (relative)", f.GridErrorRelative is { } g ? Tables.Numbers.EstimatePercent(g) : "none", f.GridErrorWords ?? "");
         Row("peak current density", Tables.Numbers.CurrentDensity(r.PeakCurrentDensityAPerM2), f.MapModel);
         Row("RMS current density", Tables.Numbers.CurrentDensity(r.RmsCurrentDensityAPerM2), f.MapModel);
         Row("magnetic Reynolds number", N(r.Validity.ReynoldsNumber), "validity figure");

@@ -224,7 +224,7 @@ public static class ReportContent
 
     /// <summary>A chosen plate as confirmed, in the words the report and the console share: which model ran, its loss, drag and lift against the screen, its grid error, and why that model.</summary>
     public static string ConfirmationText(PlateConfirmation c) =>
-        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.TorqueNm is { } t ? $", braking torque {Numbers.Of(t, "N m")}" : "")}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}{(c.TorqueNm is null ? "" : " at the magnets' radius")}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? $"; estimated grid error {N(e.Relative * 100)} % ({e.Description})" : "")}. {c.Reason}";
+        $"{c.ModelWords}: loss {Numbers.Watts(c.LossW)}{(c.TorqueNm is { } t ? $", braking torque {Numbers.Of(t, "N m")}" : "")}{(c.DragN is { } d ? $", drag {Numbers.Newtons(d)}{(c.TorqueNm is null ? "" : " at the magnets' radius")}" : "")}{(c.LiftN is { } l ? $", lift {Numbers.Newtons(l)}" : "")} (resistance-limited screen: {Numbers.Watts(c.ResistanceLimitedLossW)}){(c.GridError is { } e ? $"; estimated grid error {Numbers.EstimatePercent(e.Relative)} ({e.Description})" : "")}. {c.Reason}";
 
     private static string Drag(double? dragN) => dragN is { } d ? N(d) : "";
 
@@ -246,7 +246,7 @@ public static class ReportContent
             {
                 var savedYearly = referenceYearly - chosenYearly;
                 text += $" = {Money(r, savedYearly)} a year";
-                if (extraCost > 0 && savedYearly > 0) text += $" (its extra build cost of {Money(r, extraCost)} is paid back in {N(extraCost / savedYearly)} years, undiscounted)";
+                if (extraCost > 0 && savedYearly > 0) text += $" (its extra build cost of {Money(r, extraCost)} is paid back in {Numbers.Estimate(extraCost / savedYearly)} years, undiscounted)";
             }
             else text += " (the energy price and hours are not given, so no figure per year)";
             text += F($", and {(savedOwning >= 0 ? "saves" : "adds")} {Money(r, Math.Abs(savedOwning))} of owning cost over the life ") + (r.Problem.Economics.SeparatesLoadLoss

@@ -7,22 +7,32 @@ namespace SlotOpt.Tables;
 /// figures, never rounding away a digit before the decimal point (12 345.6 prints as 12346), trailing zeros
 /// dropped (29.60 prints as 29.6), so a loss of 11.131 W and one of 168.035 W read 11.13 and 168. Temperatures
 /// are the exception: a Celsius value has an arbitrary zero, so significant figures mean nothing there; they print
-/// to 0.1 K. Current density prints in A/mm².
+/// to 0.1 K. Estimates whose own accuracy is a factor, not a digit (grid errors, payback times), print to
+/// <see cref="EstimateFigures"/> significant figures. Current density prints in A/mm².
 /// </summary>
 public static class Numbers
 {
     public const int SignificantFigures = 4;
+    public const int EstimateFigures = 2;
 
     private static readonly CultureInfo Ci = CultureInfo.InvariantCulture;
 
     /// <summary>The value to <see cref="SignificantFigures"/> significant figures (all its integer digits kept), invariant culture.</summary>
-    public static string Sig(double value)
+    public static string Sig(double value) => Significant(value, SignificantFigures);
+
+    /// <summary>An estimate to <see cref="EstimateFigures"/> significant figures: a grid error of 0.08358 % prints as 0.084.</summary>
+    public static string Estimate(double value) => Significant(value, EstimateFigures);
+
+    /// <summary>An estimated fraction as a percentage to <see cref="EstimateFigures"/> significant figures: 0.1711 as "17 %".</summary>
+    public static string EstimatePercent(double fraction) => Estimate(fraction * 100) + " %";
+
+    private static string Significant(double value, int figures)
     {
         if (double.IsNaN(value) || double.IsInfinity(value)) return value.ToString(Ci);
         if (value == 0) return "0";
         var magnitude = (int)Math.Floor(Math.Log10(Math.Abs(value)));
         if (magnitude < -6) return value.ToString("0.###e0", Ci);   // below a millionth: 1.235e-7
-        var decimals = Math.Max(0, SignificantFigures - 1 - magnitude);
+        var decimals = Math.Max(0, figures - 1 - magnitude);
         var rounded = Math.Round(value, decimals, MidpointRounding.AwayFromZero);
         return rounded == 0 ? "0" : rounded.ToString("0." + new string('#', Math.Max(decimals, 1)), Ci);
     }

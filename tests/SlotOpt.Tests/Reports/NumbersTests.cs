@@ -24,6 +24,19 @@ public class NumbersTests
     [InlineData(0, "0")]
     public void Four_significant_figures(double value, string expected) => Assert.Equal(expected, Numbers.Sig(value));
 
+    // Estimates (grid errors, payback times) to two significant figures: their own accuracy is a factor, not a digit
+    // (Roache 1997's grid convergence index carries a safety factor of 1.25 to 3), so a third figure would claim what they do not hold.
+    [Theory]
+    [InlineData(0.08358, "0.084")]
+    [InlineData(17.11, "17")]
+    [InlineData(0.4422, "0.44")]
+    [InlineData(123.4, "123")]
+    [InlineData(0, "0")]
+    public void Estimates_print_to_two_significant_figures(double value, string expected) => Assert.Equal(expected, Numbers.Estimate(value));
+
+    [Fact]
+    public void Estimated_fractions_print_as_percentages_to_two_figures() => Assert.Equal("17 %", Numbers.EstimatePercent(0.1711));
+
     [Fact]
     public void Current_density_prints_in_amperes_per_square_millimetre() =>
         Assert.Equal("5.785 A/mm²", Numbers.CurrentDensity(5.7849e6));   // 1 A/mm² = 1e6 A/m² (SI prefix milli, squared)

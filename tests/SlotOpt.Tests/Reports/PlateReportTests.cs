@@ -221,7 +221,7 @@ public sealed class PlateReportTests : IDisposable
         Shown(root.GetProperty("model").GetString()!);
         Shown(Numbers.CurrentDensity(root.GetProperty("peak_current_density_a_per_m2").GetDouble()));
         Shown(Numbers.Sig(root.GetProperty("reynolds_number").GetDouble()));
-        Shown(Numbers.Sig(root.GetProperty("discretisation_error").GetDouble() * 100) + " %");
+        Shown(Numbers.EstimatePercent(root.GetProperty("discretisation_error").GetDouble()));
         if (root.TryGetProperty("approach_force_n", out var forces))
         {
             var gaps = root.GetProperty("approach_gaps_m").EnumerateArray().Select(g => g.GetDouble()).ToList();
