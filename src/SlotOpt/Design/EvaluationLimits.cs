@@ -42,15 +42,14 @@ public sealed record EvaluationLimits
 
     /// <summary>
     /// Cells one solve may have so that the run fits in MaxMemoryBytes (<see cref="MemoryModel"/>): the screening of a part with
-    /// <paramref name="geometries"/> slot geometries (with a thermal section, <paramref name="thermalOptionsPerGeometry"/> thicknesses x
-    /// materials heated on each; for a moving source over <paramref name="travelPositions"/> positions, its coupled ranking), and the
+    /// <paramref name="work"/>'s slot geometries (and its thermal, coupled-ranking and turning-disc terms), and the
     /// own-field confirmation at its largest padded lattice (<see cref="MemoryModel.OwnFieldBytesPerCellBound"/>).
     /// </summary>
-    public long CellCap(int geometries, int thermalOptionsPerGeometry = 0, int travelPositions = 0, int rotatingRateSets = 0)
+    public long CellCap(PartWorkload work)
     {
-        geometries = Math.Max(geometries, 1);
+        var geometries = Math.Max(work.Geometries, 1);
         var screening = MemoryModel.CellsWithin(MaxMemoryBytes,
-            MemoryModel.ScreeningBytesPerCell(geometries, Threads, thermalOptionsPerGeometry, rotatingRateSets) + MemoryModel.RankingBytesPerCell(geometries, Threads, travelPositions));
+            MemoryModel.ScreeningBytesPerCell(geometries, Threads, work.ThermalOptionsPerGeometry, work.RotatingRateSets) + MemoryModel.RankingBytesPerCell(geometries, Threads, work.TravelPositions));
         var ownField = MemoryModel.CellsWithin(MaxMemoryBytes, MemoryModel.OwnFieldBytesPerCellBound);
         return (long)Math.Min(screening, ownField);
     }
@@ -64,18 +63,19 @@ public sealed record EvaluationLimits
     }
 
     /// <summary>
-    /// Throws when an explicit grid of a part with <paramref name="geometries"/> slot geometries would not fit in memory (the screening, the
-    /// ranking of a moving source over <paramref name="travelPositions"/> positions with its actual padded lattice, or the own-field confirmation).
+    /// Throws when an explicit grid of a part with <paramref name="work"/> would not fit in memory (the screening, the ranking of a moving
+    /// source with its actual padded lattice, or the own-field confirmation).
     /// </summary>
-    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, int geometries, int thermalOptionsPerGeometry = 0, int travelPositions = 0, int rotatingRateSets = 0)
+    public void CheckGrid(string partName, Polygon outline, double? cellSizeM, PartWorkload work)
     {
         if (cellSizeM is not { } h) return;
         var (min, max) = outline.Bounds;
         var (nx, ny) = (Math.Ceiling((max.X - min.X) / h), Math.Ceiling((max.Y - min.Y) / h));
         var cells = (long)Math.Min(nx * ny, long.MaxValue / 2);
         var (nodesX, nodesY) = ((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4));
-        geometries = Math.Max(geometries, 1);
-        var screening = MemoryModel.Screening(cells, geometries, Threads, thermalOptionsPerGeometry, travelPositions, MemoryModel.PaddedCells(nodesX, nodesY) / Math.Max(cells, 1), rotatingRateSets);
+        var geometries = Math.Max(work.Geometries, 1);
+        var screening = MemoryModel.Screening(cells, geometries, Threads, work.ThermalOptionsPerGeometry, work.TravelPositions, MemoryModel.PaddedCells(nodesX, nodesY) / Math.Max(cells, 1),
+            work.RotatingRateSets);
         var estimate = Math.Max(screening, MemoryModel.OwnField(nodesX, nodesY));
         CheckMemory($"part {partName}: a {Numbers.Of(h * 1e3, "mm")} grid ({Numbers.Sig(cells)} cells, {geometries} slot geometries kept, {Math.Min(Threads, geometries)} solved at once)",
             estimate, "choose a larger cell, fewer slot choices or fewer threads");

@@ -196,7 +196,7 @@ public sealed record PlateFileEvaluation(
             limits.CheckMemory($"{plate.Path}: [grid] cell: a {h * 1e3:G4} mm grid ({nx * ny:E2} cells) solved with the plate's own field", estimate, "choose a larger cell");
             return plate;
         }
-        return plate with { Grid = plate.Grid with { MaxAutoCells = Math.Min(plate.Grid.MaxAutoCells, limits.CellCap(1)) } };
+        return plate with { Grid = plate.Grid with { MaxAutoCells = Math.Min(plate.Grid.MaxAutoCells, limits.CellCap(new PartWorkload(1))) } };
     }
 
     private static UnitConductanceSolution MapSolution(PlateSolution solution, Func<UnitConductanceSolution> resistanceLimited) =>

@@ -50,7 +50,7 @@ public class MemoryModelTests
     {
         var limits = new EvaluationLimits { Threads = Threads, MaxMemoryBytes = (long)MeasuredPeakWithReportBytes, WritesReport = true };
         // the check adds the report to the estimate: a limit at the measured peak must refuse the run, as its estimate is above it
-        var e = Assert.Throws<ResourceLimitException>(() => limits.CheckGrid("guide rail", Rail().Outline, 0.002, Geometries(Rail()), 0, TravelPositions));
+        var e = Assert.Throws<ResourceLimitException>(() => limits.CheckGrid("guide rail", Rail().Outline, 0.002, new PartWorkload(Geometries(Rail()), 0, TravelPositions)));
         Assert.Contains("the report included", e.Message);
         Assert.True(Estimate(Rail(), Threads) + MemoryModel.Margin * MemoryModel.ReportBytes >= MeasuredPeakWithReportBytes);
     }
@@ -81,7 +81,7 @@ public class MemoryModelTests
     public void The_cap_on_automatic_grids_is_the_estimate_solved_for_the_cells(int geometries, int threads, int thermalOptions, int positions)
     {
         var limits = new EvaluationLimits { Threads = threads, MaxMemoryBytes = 2L << 30 };
-        var cap = limits.CellCap(geometries, thermalOptions, positions);
+        var cap = limits.CellCap(new PartWorkload(geometries, thermalOptions, positions));
         var atCap = Math.Max(MemoryModel.Screening(cap, geometries, threads, thermalOptions, positions),
             MemoryModel.WithMargin(cap * MemoryModel.OwnFieldBytesPerCellBound));
         Assert.InRange(atCap, 0.999 * limits.MaxMemoryBytes, limits.MaxMemoryBytes);

@@ -33,7 +33,7 @@ public static class PlateOptions
         using var _ = ownDeadline;
         var deadline = limits.Deadline!;
         var geometries = SlotChoices(part).ToList();
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, geometries.Count, ThermalOptionsPerGeometry(part), TravelPositions(part), RotatingRateSets(part, geometries));
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, WorkloadOf(part, geometries));
         var solvedGeometries = new SolvedGeometry[geometries.Count];
         var heat = new Dictionary<(double, string), TemperatureBracket.Outcome>[geometries.Count];
         var done = 0;
@@ -182,15 +182,16 @@ public static class PlateOptions
     /// <summary>The solver model of one slot geometry: the part's cell size (automatic: resolving the plate's and the poles' features), automatic grids capped so that the part's run fits the memory limit.</summary>
     public static SheetModel BuildModel(PlatePart part, PlateGeometry geometry, EvaluationLimits limits) => SheetModel.Build(geometry, GridOf(part, limits));
 
-    /// <summary>The thicknesses x materials each slot geometry is heated for (0 without [parts.thermal]): the memory model's thermal terms.</summary>
-    private static int ThermalOptionsPerGeometry(PlatePart part) => part.Thermal is null ? 0 : part.ThicknessesM.Count * part.Materials.Count;
-
-    /// <summary>The travel positions a moving source's coupled ranking keeps per geometry (0 for other excitations): the memory model's ranking term.</summary>
-    private static int TravelPositions(PlatePart part) => part.Excitation is PlateExcitation.Moving moving ? moving.Positions : 0;
-
-    /// <summary>A turning disc: the lattice-and-angle pairs its source integrates, one lattice per slot geometry at its angles (MemoryModel caps the kept ones); 0 for other parts.</summary>
-    private static int RotatingRateSets(PlatePart part, IEnumerable<SlotChoice?> geometries) =>
-        part.Excitation is PlateExcitation.Turning turning ? geometries.Sum(g => turning.Angles(g?.Radial).Count) : 0;
+    /// <summary>
+    /// The part's run in the memory model's counts for these slot geometries: with [parts.thermal] the thicknesses x materials heated on
+    /// each, for a moving source the travel positions its coupled ranking keeps per geometry, for a turning disc one lattice per slot
+    /// geometry at its angles.
+    /// </summary>
+    private static PartWorkload WorkloadOf(PlatePart part, IReadOnlyList<SlotChoice?> geometries) => new(
+        geometries.Count,
+        part.Thermal is null ? 0 : part.ThicknessesM.Count * part.Materials.Count,
+        part.Excitation is PlateExcitation.Moving moving ? moving.Positions : 0,
+        part.Excitation is PlateExcitation.Turning turning ? geometries.Sum(g => turning.Angles(g?.Radial).Count) : 0);
 
     /// <summary>The grid every solve of the part uses: its cell size, automatic grids capped so that the part's run fits the memory limit.</summary>
     public static GridOptions GridOf(PlatePart part, EvaluationLimits limits)
@@ -202,8 +203,7 @@ public static class PlateOptions
             _ => [],
         };
         var grid = new GridOptions { CellSizeM = part.CellSizeM, SourceFeatures = features };
-        var slotChoices = SlotChoices(part).ToList();
-        var cap = limits.CellCap(slotChoices.Count, ThermalOptionsPerGeometry(part), TravelPositions(part), RotatingRateSets(part, slotChoices));
+        var cap = limits.CellCap(WorkloadOf(part, SlotChoices(part).ToList()));
         if (cap < 4) limits.CheckMemory($"part {part.Name}: even the coarsest grid", MemoryModel.RuntimeBytes * MemoryModel.Margin, "raise the limit");
         return grid with { MaxAutoCells = Math.Min(grid.MaxAutoCells, cap) };
     }
@@ -220,7 +220,7 @@ public static class PlateOptions
     public static EvaluatedOption EvaluateOne(PlatePart part, PlateChoice choice, MaterialLibrary library, ManufacturingSettings shop, EvaluationLimits? limits = null)
     {
         limits ??= EvaluationLimits.Default;
-        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, 1, ThermalOptionsPerGeometry(part), TravelPositions(part), RotatingRateSets(part, [choice.Slots]));
+        limits.CheckGrid(part.Name, part.Outline, part.CellSizeM, WorkloadOf(part, [choice.Slots]));
         var solved = Solve(part, choice.Slots, limits);
         var material = library.GetConductor(choice.Material, part.Name);
         var heat = part.Thermal is not null && solved.Failure is null ? Heat(part, solved, choice.ThicknessM, material, limits, Screen(part, solved)) : null;
