@@ -6,6 +6,7 @@ using SlotOpt.Input;
 using SlotOpt.Reports;
 using SlotOpt.Runs;
 using SlotOpt.Selection;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Cli;
 
@@ -49,7 +50,7 @@ public static class CheckCommand
     /// <summary>A part's choices as the problem file lists them, lengths in mm.</summary>
     private static IReadOnlyDictionary<string, IReadOnlyList<string>> Choices(Part part)
     {
-        static string Mm(double m) => (m * 1e3).ToString("G4", System.Globalization.CultureInfo.InvariantCulture);
+        static string Mm(double m) => Numbers.Sig(m * 1e3);
         var choices = new Dictionary<string, IReadOnlyList<string>>();
         switch (part)
         {

@@ -5,6 +5,7 @@ using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Runs;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Input;
 
@@ -93,7 +94,7 @@ public static class PlateFileReader
         var offsets = moving is null ? (IReadOnlyList<double>)[] : moving.Offsets(geometry.Outline, geometry.Patterns.Count > 0 ? geometry.Patterns[0].PitchM : null);
         var over = moving is null ? ""
             : moving.Average == TravelAverage.SlotPitch
-                ? $"one slot pitch ({geometry.Patterns[0].PitchM * 1e3:G4} mm, {moving.Positions} positions)"
+                ? $"one slot pitch ({Numbers.Of(geometry.Patterns[0].PitchM * 1e3, "mm")}, {moving.Positions} positions)"
                 : moving.Positions == 1 ? "one position (offset 0)" : $"the pass over the plate ({moving.Positions} positions)";
         return new PlateCase(path, geometry, grid, conductor, (excitation as PlateExcitation.AcField)?.Source, moving?.Source, offsets, over, thermal);
     }

@@ -149,7 +149,7 @@ public static class PlatePartReader
         var limit = new GridOptions().MaxCells;
         if (cells > limit)
             grid.Error("cell", string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                $"a {h * 1e3:G4} mm cell needs {cells:E2} cells over the plate's {(max.X - min.X) * 1e3:G4} x {(max.Y - min.Y) * 1e3:G4} mm; the limit is {limit:N0} cells: choose a larger cell"));
+                $"a {Numbers.Of(h * 1e3, "mm")} cell needs {cells:N0} cells over the plate's {Numbers.Sig((max.X - min.X) * 1e3)} x {Numbers.Of((max.Y - min.Y) * 1e3, "mm")}; the limit is {limit:N0} cells: choose a larger cell"));
     }
 
     /// <summary>A name listed twice would be evaluated twice and counted twice by the selection: refused where it is written.</summary>

@@ -101,13 +101,13 @@ public static class ThermalReader
             try { rhoReference = conductor.ResistivityAt(referenceK); }
             catch (InputException e) { t.Error("resistivity_temperature", e.Message); return null; }
             return new ThermalMaterial(thermal, temperatureK => rhoReference / conductor.ResistivityAt(temperatureK),
-                string.Create(c, $"{conductor.Name}: k {thermal:G4} W/(m K) ({kSource}), resistivity following {conductor.Name}'s law from {referenceK - 273.15:0.#} degC"));
+                string.Create(c, $"{conductor.Name}: k {Numbers.Of(thermal, "W/(m K)")} ({kSource}), resistivity following {conductor.Name}'s law from {referenceK - 273.15:0.#} degC"));
         }
         if (k is null && !t.Has("thermal_conductivity")) t.Error("material", "missing: a conductor name, or thermal_conductivity and temperature_coefficient");
         if (alpha is null && !t.Has("temperature_coefficient") && k is not null) t.Error("temperature_coefficient", "missing: the resistivity's linear temperature coefficient in 1/K, e.g. 0.001");
         if (k is not { } kv || alpha is not { } av) return null;
         if (!(kv > 0)) { t.Error("thermal_conductivity", "must be positive (W/(m K))"); return null; }
         return ThermalMaterial.Linear(kv, av, referenceK,
-            string.Create(c, $"k {kv:G4} W/(m K), resistivity linear with {av:G3}/K from {referenceK - 273.15:0.#} degC"));
+            string.Create(c, $"k {Numbers.Of(kv, "W/(m K)")}, resistivity linear with {Numbers.Sig(av)}/K from {referenceK - 273.15:0.#} degC"));
     }
 }

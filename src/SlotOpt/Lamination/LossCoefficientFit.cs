@@ -1,6 +1,7 @@
 using System.Globalization;
 using MathNet.Numerics.LinearAlgebra;
 using MathNet.Numerics.Optimization;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Lamination;
 
@@ -47,7 +48,7 @@ public static class LossCoefficientFit
             if (!(m.PeakT > 0 && m.FrequencyHz > 0 && m.LossWPerKg > 0) || !double.IsFinite(m.PeakT + m.FrequencyHz + m.LossWPerKg))
                 throw new InputException(F($"measurement (B {m.PeakT} T, f {m.FrequencyHz} Hz, {m.LossWPerKg} W/kg): all three must be positive and finite"));
             if (m.PeakT > 3) throw new InputException(F($"measurement at {m.PeakT} T: no electrical steel reaches 3 T; is the column in gauss or mT?"));
-            if (m.LossWPerKg < 1e-6 || m.LossWPerKg > 1e6) throw new InputException(F($"measurement of {m.LossWPerKg:G4} W/kg at {m.PeakT} T, {m.FrequencyHz} Hz: outside 1e-6 to 1e6 W/kg; check the unit of w_per_kg"));
+            if (m.LossWPerKg < 1e-6 || m.LossWPerKg > 1e6) throw new InputException(F($"measurement of {Numbers.Of(m.LossWPerKg, "W/kg")} at {m.PeakT} T, {m.FrequencyHz} Hz: outside 1e-6 to 1e6 W/kg; check the unit of w_per_kg"));
         }
         if (data.Select(m => m.PeakT).Distinct().Count() < 2) throw new InputException("the measurements need at least two flux densities to fit the hysteresis exponent");
         foreach (var (value, name) in new[] { (thicknessM, "thickness"), (resistivityOhmM, "resistivity"), (densityKgPerM3, "density") })
@@ -68,11 +69,11 @@ public static class LossCoefficientFit
 
         var exceeding = Enumerable.Range(0, data.Count).Where(i => classical[i] >= data[i].LossWPerKg).ToList();
         if (exceeding.Count * 2 > data.Count)
-            throw new NumericalFailureException(F($"the model cannot explain the table: the classical term alone (from thickness {thicknessM * 1e3:G4} mm and resistivity {resistivityOhmM * 1e6:G4} uOhm m) reaches or exceeds the measured loss at {exceeding.Count} of {data.Count} points; check the resistivity and the thickness") + Also(warnings));
+            throw new NumericalFailureException(F($"the model cannot explain the table: the classical term alone (from thickness {Numbers.Of(thicknessM * 1e3, "mm")} and resistivity {Numbers.Of(resistivityOhmM * 1e6, "uOhm m")}) reaches or exceeds the measured loss at {exceeding.Count} of {data.Count} points; check the resistivity and the thickness") + Also(warnings));
         if (exceeding.Count > 0)
         {
             var worst = exceeding.MaxBy(i => classical[i] / data[i].LossWPerKg);
-            warnings.Add(F($"the classical term alone (from thickness {thicknessM * 1e3:G4} mm and resistivity {resistivityOhmM * 1e6:G4} uOhm m) reaches or exceeds the measured loss at {exceeding.Count} of {data.Count} points (by {(classical[worst] / data[worst].LossWPerKg - 1) * 100:0.#} % at {data[worst].PeakT} T, {data[worst].FrequencyHz} Hz): the resistivity or the thickness is likely wrong, and kh, ke are held at zero or above"));
+            warnings.Add(F($"the classical term alone (from thickness {Numbers.Of(thicknessM * 1e3, "mm")} and resistivity {Numbers.Of(resistivityOhmM * 1e6, "uOhm m")}) reaches or exceeds the measured loss at {exceeding.Count} of {data.Count} points (by {(classical[worst] / data[worst].LossWPerKg - 1) * 100:0.#} % at {data[worst].PeakT} T, {data[worst].FrequencyHz} Hz): the resistivity or the thickness is likely wrong, and kh, ke are held at zero or above"));
         }
         if (data.Select(m => m.FrequencyHz).Distinct().Count() < 2)
             warnings.Add("all measurements are at one frequency: hysteresis (per cycle) and excess (rising as f^1.5) cannot be separated, so kh and ke are not determined individually; add a second frequency");
@@ -169,11 +170,11 @@ public static class LossCoefficientFit
         var warnings = new List<string>();
         // laminations run from about 0.05 mm (thin strip) to 1 mm; electrical steels 0.1 to 0.8 uOhm m; density 7000 to 8000 kg/m3 (common practice, no source)
         if (thicknessM > 5e-3 || thicknessM < 1e-5)
-            warnings.Add(F($"thickness {thicknessM:G4} m is not a lamination gauge (0.05 to 1 mm); was it given without its unit (0.35 read as 0.35 m)? Give e.g. 0.35mm"));
+            warnings.Add(F($"thickness {Numbers.Of(thicknessM, "m")} is not a lamination gauge (0.05 to 1 mm); was it given without its unit (0.35 read as 0.35 m)? Give e.g. 0.35mm"));
         if (resistivityOhmM > 5e-6 || resistivityOhmM < 5e-8)
-            warnings.Add(F($"resistivity {resistivityOhmM:G4} ohm m is far from electrical steel (0.1 to 0.8 uOhm m); give e.g. \"0.52 uOhm m\""));
+            warnings.Add(F($"resistivity {Numbers.Of(resistivityOhmM, "ohm m")} is far from electrical steel (0.1 to 0.8 uOhm m); give e.g. \"0.52 uOhm m\""));
         if (densityKgPerM3 < 5000 || densityKgPerM3 > 10000)
-            warnings.Add(F($"density {densityKgPerM3:G4} kg/m3 is far from steel (7000 to 8000 kg/m3)"));
+            warnings.Add(F($"density {Numbers.Of(densityKgPerM3, "kg/m3")} is far from steel (7000 to 8000 kg/m3)"));
         return warnings;
     }
 

@@ -31,7 +31,7 @@ public sealed class IntrinsicResistivity
     {
         if (!(temperatureK >= MinTemperatureK && temperatureK <= MaxTemperatureK))
             throw new InputException(string.Create(CultureInfo.InvariantCulture,
-                $"temperature {temperatureK:0.##} K is outside the {Metal} resistivity table ({MinTemperatureK:0.##} K to {MaxTemperatureK:0.##} K)"));
+                $"temperature {Numbers.Of(temperatureK, "K")} is outside the {Metal} resistivity table ({Numbers.Of(MinTemperatureK, "K")} to {Numbers.Of(MaxTemperatureK, "K")})"));
         var i = Array.BinarySearch(temperaturesK, temperatureK);
         if (i >= 0) return resistivitiesOhmM[i];
         var upper = ~i;

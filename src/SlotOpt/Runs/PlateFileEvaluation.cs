@@ -9,6 +9,7 @@ using SlotOpt.Plates.Sources;
 using SlotOpt.Plates.Sources.Magnets;
 using SlotOpt.Plates.Thermal;
 using SlotOpt.Plates.Thick;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Runs;
 
@@ -193,7 +194,7 @@ public sealed record PlateFileEvaluation(
             var (min, max) = plate.Geometry.Bounds;
             var (nx, ny) = (Math.Ceiling((max.X - min.X) / h), Math.Ceiling((max.Y - min.Y) / h));
             var estimate = MemoryModel.OwnField((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4));
-            limits.CheckMemory($"{plate.Path}: [grid] cell: a {h * 1e3:G4} mm grid ({nx * ny:E2} cells) solved with the plate's own field", estimate, "choose a larger cell");
+            limits.CheckMemory($"{plate.Path}: [grid] cell: a {Numbers.Of(h * 1e3, "mm")} grid ({nx * ny:N0} cells) solved with the plate's own field", estimate, "choose a larger cell");
             return plate;
         }
         return plate with { Grid = plate.Grid with { MaxAutoCells = Math.Min(plate.Grid.MaxAutoCells, limits.CellCap(new PartWorkload(1))) } };

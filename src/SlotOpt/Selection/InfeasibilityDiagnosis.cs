@@ -1,4 +1,5 @@
 using System.Globalization;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Selection;
 
@@ -27,9 +28,9 @@ public sealed record InfeasibilityDiagnosis(
             FormattableString line = relaxation.Kind switch
             {
                 SharedLimitKind.Budget => $"the {relaxation.Description} binds: the cheapest design within the other limits costs {design.BuildCost:0.00}",
-                SharedLimitKind.TotalLossCap => $"the {relaxation.Description} binds: the lowest-loss design within the other limits loses {design.LossW:0.###} W",
+                SharedLimitKind.TotalLossCap => $"the {relaxation.Description} binds: the lowest-loss design within the other limits loses {Numbers.Watts(design.LossW)}",
                 SharedLimitKind.MaxDistinctProcesses => $"the limit of {relaxation.Description} binds: the fewest within the other limits is {design.DistinctProcesses}",
-                _ => $"{relaxation.Description} binds: without it the best design costs {design.BuildCost:0.00} and loses {design.LossW:0.###} W",
+                _ => $"{relaxation.Description} binds: without it the best design costs {design.BuildCost:0.00} and loses {Numbers.Watts(design.LossW)}",
             };
             lines.Add(line.ToString(CultureInfo.InvariantCulture));
         }

@@ -21,7 +21,7 @@ public sealed class CheckAgreementTests : IDisposable
     [InlineData("frequency = \"50 Hz\"", "frequency = \"1 GHz\"", "frequency: 1E+09 Hz is beyond any sensible")]
     [InlineData("peak_flux_density = \"25 mT\"", "peak_flux_density = \"1e9 T\"", "peak_flux_density: 1E+09 T is beyond any sensible")]
     [InlineData("pitch = [\"30 mm\", \"50 mm\", \"75 mm\", \"110 mm\"]", "pitch = [\"30 mm\", \"1e308 m\"]", "is beyond any sensible")]
-    [InlineData("cell = \"2.5 mm\"", "cell = \"0.02 mm\"", "cell: a 0.02 mm cell needs 3.38E+008 cells")]
+    [InlineData("cell = \"2.5 mm\"", "cell = \"0.02 mm\"", "cell: a 0.02 mm cell needs 337,500,000 cells")]
     [InlineData("[manufacturing]", OverrideTable + "\n[manufacturing]", "alpha_20: must be between 0 and 0.1 per K")]
     public void Check_evaluate_and_run_refuse_the_same_mistake_at_the_same_place(string original, string mistake, string expected)
     {

@@ -58,7 +58,7 @@ public static class CoreOptions
             ["building_factor"] = buildingFactor.ToString("0.###", CultureInfo.InvariantCulture),
             ["cut_edge_loss_factor"] = cutDamage.ToString("0.###", CultureInfo.InvariantCulture),
         };
-        var description = string.Create(CultureInfo.InvariantCulture, $"{steel.Grade} at {steel.ThicknessM * 1e3:0.00} mm, {cost.Sheets} sheets ({cost.SteelMassKg:0.##} kg, {steelFlux.PeakT:0.###} T in the steel), {process.Name}");
+        var description = string.Create(CultureInfo.InvariantCulture, $"{steel.Grade} at {steel.ThicknessM * 1e3:0.00} mm, {cost.Sheets} sheets ({Numbers.Of(cost.SteelMassKg, "kg")}, {Numbers.Of(steelFlux.PeakT, "T")} in the steel), {process.Name}");
         return new EvaluatedOption(part.Name, $"{part.Name}/{steel.Grade}/{process.Name}", new CoreChoice(steel.Grade, process.Name), description, attributes, cost.Total, loss, null,
             specific.Flags.Select(f => $"{f.Code}: {f.Message}").ToList(), rejection);
     }

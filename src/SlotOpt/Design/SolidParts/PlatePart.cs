@@ -2,6 +2,7 @@ using System.Globalization;
 using SlotOpt.Materials;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Thermal;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Design.SolidParts;
 
@@ -51,6 +52,6 @@ public sealed record PartThermal(PlateCooling Cooling, TemperatureLimit Limit)
         var k = ThermalConductivityTable.Of(conductor.Name, where);
         var rhoReference = conductor.ResistivityAt(referenceK);
         return new ThermalMaterial(k, t => rhoReference / conductor.ResistivityAt(t),
-            string.Create(CultureInfo.InvariantCulture, $"{conductor.Name}: k {k:G4} W/(m K) (built-in table), resistivity following {conductor.Name}'s law from {referenceK - 273.15:0.#} degC"));
+            string.Create(CultureInfo.InvariantCulture, $"{conductor.Name}: k {Numbers.Of(k, "W/(m K)")} (built-in table), resistivity following {conductor.Name}'s law from {referenceK - 273.15:0.#} degC"));
     }
 }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Selection.Search;
 
@@ -28,7 +29,7 @@ internal static class InfeasibilityDiagnoser
             Relax(SharedLimitKind.Budget, null, Invariant($"budget {IntegerScale.CentsToMoney(budget):0.00}"),
                 scaled with { BudgetCents = null }, [Criterion.BuildCost, Criterion.Loss]);
         if (scaled.LossCapMilliwatts is { } lossCap)
-            Relax(SharedLimitKind.TotalLossCap, null, Invariant($"total loss cap {IntegerScale.MilliwattsToWatts(lossCap):0.###} W"),
+            Relax(SharedLimitKind.TotalLossCap, null, Invariant($"total loss cap {Numbers.Watts(IntegerScale.MilliwattsToWatts(lossCap))}"),
                 scaled with { LossCapMilliwatts = null }, [Criterion.Loss, Criterion.BuildCost]);
         for (var g = 0; g < scaled.CoilGroups.Length; g++)
         {
