@@ -139,7 +139,7 @@ public static class ReportContent
             + $"; uncut ligament at least {N(p.MinLigamentM * 1e3)} mm"
             + (p.MaxDragN is { } drag ? $"; drag limit {Numbers.Newtons(drag)}" : "")
             + (p.MaxTorqueNm is { } torque ? $"; torque limit {Numbers.Of(torque, "N m")}" : "")
-            + (p.MinBraking is { Quantity: BrakingQuantity.Torque } wanted ? $"; minimum {BrakingWords(wanted)} {Numbers.Of(wanted.Value, wanted.Unit)} at {Numbers.Of(wanted.Speed, wanted.SpeedUnit)}" : "")
+            + (p.MinBraking is { } wanted ? $"; minimum {BrakingWords(wanted)} {Numbers.Of(wanted.Value, wanted.Unit)} at {Numbers.Of(wanted.Speed, wanted.SpeedUnit)}" : "")
             + (p.MaxLossW is { } loss ? $"; loss limit {Numbers.Watts(loss)}" : "")
             + (p.Thermal is { } th ? "; " + CoolingWords(th) : "");
     }

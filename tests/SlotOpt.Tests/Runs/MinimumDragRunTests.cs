@@ -97,4 +97,12 @@ public class MinimumDragRunTests
         var e = Assert.Throws<InputException>(() => ProblemReader.Read(text, "brake.toml"));
         Assert.Contains(expected, e.Message);
     }
+
+    // The report states the wanted braking beside the part's limits, in its own units (the problem file's min_drag at its speed).
+    [Fact]
+    public void The_report_states_the_minimum_drag_with_its_speed()
+    {
+        var text = SlotOpt.Reports.MarkdownRenderer.Render(SlotOpt.Reports.ReportContent.Build(Run.Value, new SlotOpt.Reports.Plots.ReportFigures(null, null, [], [], [], []), "stamp"));
+        Assert.Contains("minimum drag 0.6 N at 0.2 m/s", text);
+    }
 }
