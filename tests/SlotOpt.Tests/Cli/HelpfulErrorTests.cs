@@ -58,7 +58,7 @@ public class HelpfulErrorTests
         var run = SlotOptInProcess.Run("processes", "--json");
         Assert.Equal(0, run.ExitCode);
         using var doc = JsonDocument.Parse(run.Stdout);
-        var names = doc.RootElement.GetProperty("processes").EnumerateArray().Select(p => p.GetProperty("name").GetString()).ToList();
+        var names = doc.RootElement.GetProperty("processes").EnumerateArray().Select(p => p.GetProperty("name").GetString()!).ToList();
         Assert.Equal(SlotOpt.Design.CuttingProcessLibrary.BuiltIn.Keys.Order(StringComparer.Ordinal).ToList(), names);
         Assert.All(doc.RootElement.GetProperty("processes").EnumerateArray(), p => Assert.False(string.IsNullOrWhiteSpace(p.GetProperty("source").GetString())));
     }

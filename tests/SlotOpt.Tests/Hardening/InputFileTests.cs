@@ -17,7 +17,7 @@ public sealed class InputFileTests : IDisposable
     private string PathOf(string name) => Path.Combine(folder, name);
 
     /// <summary>A named pipe with no writer: opening it for reading would block for ever.</summary>
-    public static void MakeFifo(string path)
+    internal static void MakeFifo(string path)
     {
         using var mkfifo = Process.Start("mkfifo", [path]);
         mkfifo.WaitForExit();
@@ -25,7 +25,7 @@ public sealed class InputFileTests : IDisposable
     }
 
     /// <summary>A sparse file of the given length: no disk space, read as zeros.</summary>
-    public static void MakeSparse(string path, long length)
+    internal static void MakeSparse(string path, long length)
     {
         using var stream = File.Create(path);
         stream.SetLength(length);

@@ -20,7 +20,7 @@ public sealed class ReportAgreementTests(ReportRuns runs)
         Assert.True(run.Json.ExitCode == 0, run.Json.Stderr);
         foreach (var file in new[] { ReportWriter.HtmlFile, ReportWriter.MarkdownFile, ReportWriter.CandidatesFile, ReportWriter.JsonFile, "trade-off.png", "trade-off.svg", "loss-breakdown.png", "loss-breakdown.svg" })
             Assert.True(File.Exists(Path.Combine(run.TextDir, file)), $"{problem}: {file} missing");
-        Assert.Empty(Directory.GetDirectories(runs.Root).Where(d => Path.GetFileName(d).StartsWith('.')));   // no temporary folder left beside the reports
+        Assert.DoesNotContain(Directory.GetDirectories(runs.Root), d => Path.GetFileName(d).StartsWith('.'));   // no temporary folder left beside the reports
     }
 
     [Theory]

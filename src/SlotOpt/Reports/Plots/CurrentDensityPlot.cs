@@ -104,7 +104,7 @@ public static class CurrentDensityPlot
         var plot = PlotStyle.NewPlot(title, "x (mm)", "y (mm)");
         plot.Axes.Title.Label.FontSize = 13;
         var heatmap = AddMap(plot, map, drawing, peakAPerMm2);
-        DrawGeometry(plot, drawing);
+        PlateOutlineLayer.Draw(plot, drawing);
         var (xLow, xHigh, yLow, yHigh) = LimitsMm(bounds);
         plot.Axes.SetLimits(xLow, xHigh, yLow, yHigh);
         plot.Layout.Fixed(Margins);
@@ -154,28 +154,5 @@ public static class CurrentDensityPlot
             if ((a.Y > y) != (b.Y > y) && x < (b.X - a.X) * (y - a.Y) / (b.Y - a.Y) + a.X) inside = !inside;
         }
         return inside;
-    }
-
-    private static void DrawGeometry(Plot plot, PlateDrawing drawing)
-    {
-        Coordinates[] Points(IReadOnlyList<Vec2> vertices) => vertices.Select(v => new Coordinates(v.X * 1e3, v.Y * 1e3)).ToArray();
-        var outline = plot.Add.Polygon(Points(drawing.Outline));
-        outline.FillColor = Colors.Transparent;
-        outline.LineColor = PlotStyle.Black;
-        outline.LineWidth = 1.5f;
-        foreach (var slot in drawing.Slots)
-        {
-            var shape = plot.Add.Polygon(Points(slot));
-            shape.FillColor = Colors.White;
-            shape.LineColor = PlotStyle.Black;
-            shape.LineWidth = 0.6f;
-        }
-        foreach (var groove in drawing.Grooves)
-        {
-            var shape = plot.Add.Polygon(Points(groove));
-            shape.FillColor = Colors.Transparent;
-            shape.LineColor = PlotStyle.Grey;
-            shape.LineWidth = 1;
-        }
     }
 }

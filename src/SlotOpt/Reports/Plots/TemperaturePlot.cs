@@ -46,7 +46,7 @@ public static class TemperaturePlot
                 $"{who}: {option.Description}\nhottest {panel.HottestC:0.0} °C (circled) at x {Numbers.Of(panel.HottestXMm, "mm")}, y {Numbers.Of(panel.HottestYMm, "mm")}; mean rise {Numbers.Kelvin(panel.MeanRiseK)}"), "x (mm)", "y (mm)");
             plot.Axes.Title.Label.FontSize = 13;
             var heatmap = AddMap(plot, panel, low, high);
-            DrawGeometry(plot, panel.Drawing);
+            PlateOutlineLayer.Draw(plot, panel.Drawing);
             var marker = plot.Add.Marker(panel.HottestXMm, panel.HottestYMm, MarkerShape.OpenCircle, HottestCircleDiameterPx, PlotStyle.Black);
             marker.LineWidth = 2;
             plot.Axes.SetLimits(xLow, xHigh, yLow, yHigh);
@@ -78,28 +78,5 @@ public static class TemperaturePlot
         heatmap.ManualRange = new ScottPlot.Range(low, high);
         heatmap.NaNCellColor = Colors.Transparent;
         return heatmap;
-    }
-
-    private static void DrawGeometry(Plot plot, PlateDrawing drawing)
-    {
-        Coordinates[] Points(IReadOnlyList<Plates.Geometry.Vec2> vertices) => vertices.Select(v => new Coordinates(v.X * 1e3, v.Y * 1e3)).ToArray();
-        var outline = plot.Add.Polygon(Points(drawing.Outline));
-        outline.FillColor = Colors.Transparent;
-        outline.LineColor = PlotStyle.Black;
-        outline.LineWidth = 1.5f;
-        foreach (var slot in drawing.Slots)
-        {
-            var shape = plot.Add.Polygon(Points(slot));
-            shape.FillColor = Colors.White;
-            shape.LineColor = PlotStyle.Black;
-            shape.LineWidth = 0.6f;
-        }
-        foreach (var groove in drawing.Grooves)
-        {
-            var shape = plot.Add.Polygon(Points(groove));
-            shape.FillColor = Colors.Transparent;
-            shape.LineColor = PlotStyle.Grey;
-            shape.LineWidth = 1;
-        }
     }
 }
