@@ -61,26 +61,27 @@ internal sealed class LatticeTransfer
         }
         _valueShare = count.Select(c => c > 0 ? 1.0 / c : 0).ToArray();
 
-        // P^T by rows: entry (c, u) = sum over u's nodes k of weight(k, c) / (nodes of u)
-        var rows = new Dictionary<int, double>[coarse.Unknowns];
-        for (int c = 0; c < rows.Length; c++) rows[c] = new Dictionary<int, double>();
+        // P^T by rows (counting sort of the nonzero weights by coarse unknown): entry (c, u) = weight(k, c) / (nodes of u) for each
+        // node k of u, a merged unknown's nodes as separate entries of one row (their sum is its entry)
+        _rowStart = new int[coarse.Unknowns + 1];
+        for (int q = 0; q < _weight.Length; q++) if (_weight[q] != 0) _rowStart[_coarseUnknown[q] + 1]++;
+        for (int c = 0; c < coarse.Unknowns; c++) _rowStart[c + 1] += _rowStart[c];
+        _rowFine = new int[_rowStart[^1]];
+        _rowWeight = new double[_rowStart[^1]];
+        var next = _rowStart[..^1];
         for (int k = 0; k < _fineUnknown.Length; k++)
             for (int q = 4 * k; q < 4 * k + 4; q++)
                 if (_weight[q] != 0)
                 {
-                    int u = _fineUnknown[k];
-                    rows[_coarseUnknown[q]][u] = rows[_coarseUnknown[q]].GetValueOrDefault(u) + _weight[q] * _valueShare[u];
+                    int u = _fineUnknown[k], e = next[_coarseUnknown[q]]++;
+                    _rowFine[e] = u;
+                    _rowWeight[e] = _weight[q] * _valueShare[u];
                 }
-        _rowStart = new int[coarse.Unknowns + 1];
-        for (int c = 0; c < rows.Length; c++) _rowStart[c + 1] = _rowStart[c] + rows[c].Count;
-        _rowFine = new int[_rowStart[^1]];
-        _rowWeight = new double[_rowStart[^1]];
         _inverseRowSum = new double[coarse.Unknowns];
-        for (int c = 0; c < rows.Length; c++)
+        for (int c = 0; c < coarse.Unknowns; c++)
         {
-            int e = _rowStart[c];
             double sum = 0;
-            foreach (var (u, w) in rows[c].OrderBy(p => p.Key)) { _rowFine[e] = u; _rowWeight[e++] = w; sum += w; }
+            for (int e = _rowStart[c]; e < _rowStart[c + 1]; e++) sum += _rowWeight[e];
             _inverseRowSum[c] = sum > 0 ? 1 / sum : 0;
         }
     }
