@@ -115,6 +115,7 @@ public static class ComplexGmres
         a = t;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Residual(ComplexMap a, Complex[] b, Complex[] x, Complex[] r, Complex[] work)
     {
         a(x, work);

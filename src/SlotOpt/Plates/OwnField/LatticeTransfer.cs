@@ -115,6 +115,7 @@ internal sealed class LatticeTransfer
         }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void Interpolate(ReadOnlySpan<Complex> coarse, Span<double> fineRe, Span<double> fineIm, Complex factor, bool perValue)
     {
         for (int k = 0; k < _fineUnknown.Length; k++)
