@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 
 namespace SlotOpt.Numerics;
 
@@ -16,7 +17,8 @@ public delegate void ComplexMap(Complex[] x, Complex[] y);
 /// SIAM J. Sci. Comput. 14 (1993) 461-469; with an exact fixed M the same iterate as x += M^-1 (V y)), so the Arnoldi
 /// relation A Z = V H holds for the vectors actually used even when M^-1 is applied in single precision: the true
 /// residual then follows the Arnoldi estimate instead of stalling at the preconditioner's rounding. The basis and the
-/// preconditioned vectors (at most 2 m + 1 vectors) are allocated as the iteration reaches them.
+/// preconditioned vectors (at most 2 m + 1 vectors) are allocated as the iteration reaches them. A zero start takes r0 = b
+/// without applying A (exact); every later residual (at a restart and at the end) is computed with A.
 /// </summary>
 public static class ComplexGmres
 {
@@ -39,9 +41,11 @@ public static class ComplexGmres
         var z = new Complex[restart][];    // z_j = M^-1 v_j, allocated as the iteration reaches them
         var w = new Complex[n];
         int iterations = 0;
+        bool zeroStart = Array.TrueForAll(x, e => e == Complex.Zero);
         while (true)
         {
-            Residual(a, b, x, v[0], w);
+            if (zeroStart) { Array.Copy(b, v[0], n); zeroStart = false; }   // r0 = b - A 0: no product
+            else Residual(a, b, x, v[0], w);
             double beta = Norm(v[0]);
             if (!double.IsFinite(beta)) { report = new SolveReport(SolveStatus.NonFinite, iterations, double.NaN); return false; }
             if (beta <= target) { report = new SolveReport(SolveStatus.Converged, iterations, beta / normB); return true; }
@@ -111,6 +115,7 @@ public static class ComplexGmres
         a = t;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Residual(ComplexMap a, Complex[] b, Complex[] x, Complex[] r, Complex[] work)
     {
         a(x, work);
@@ -118,6 +123,7 @@ public static class ComplexGmres
     }
 
     /// <summary>x^H y.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static Complex Dot(Complex[] x, Complex[] y)
     {
         double re = 0, im = 0;
@@ -129,6 +135,7 @@ public static class ComplexGmres
         return new Complex(re, im);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static double Norm(Complex[] x)
     {
         double s = 0;
@@ -136,11 +143,13 @@ public static class ComplexGmres
         return Math.Sqrt(s);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Scale(Complex[] x, double f)
     {
         for (int i = 0; i < x.Length; i++) x[i] *= f;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Axpy(Complex alpha, Complex[] x, Complex[] y)
     {
         for (int i = 0; i < x.Length; i++) y[i] += alpha * x[i];

@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using SlotOpt.Plates.Grid;
 
 namespace SlotOpt.Plates.OwnField;
@@ -53,6 +54,7 @@ internal sealed class CoupledOperator
     public static ConvectedOperator Moving(SheetModel model, ReactionOperator reaction, double speedMPerS, double sheetConductanceS) =>
         new(model, reaction, -speedMPerS * sheetConductanceS);
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Apply(Complex[] x, Complex[] y)
     {
         _reaction.ApplyR(x, _work);
@@ -63,17 +65,8 @@ internal sealed class CoupledOperator
         for (int i = 0; i < y.Length; i++) y[i] = new Complex(_zRe[i], _zIm[i]) + _coefficient * _work[i];
     }
 
-    /// <summary>y = A x (the resistance-limited part alone, on the real and imaginary parts).</summary>
-    public void ApplySheet(Complex[] x, Complex[] y)
-    {
-        Split(x);
-        var a = _model.Multigrid.Operator;
-        a.Multiply(_re, _zRe);
-        a.Multiply(_im, _zIm);
-        for (int i = 0; i < y.Length; i++) y[i] = new Complex(_zRe[i], _zIm[i]);
-    }
-
     /// <summary>z = M^-1 r: one multigrid V-cycle of A on each of the real and imaginary parts.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Precondition(Complex[] r, Complex[] z)
     {
         Split(r);
@@ -82,6 +75,7 @@ internal sealed class CoupledOperator
         for (int i = 0; i < r.Length; i++) z[i] = new Complex(_zRe[i], _zIm[i]);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void Split(Complex[] x)
     {
         for (int i = 0; i < x.Length; i++) { _re[i] = x[i].Real; _im[i] = x[i].Imaginary; }

@@ -8,24 +8,31 @@ namespace SlotOpt.Plates.OwnField;
 /// Bilinear transfer between the unknowns of two sheet models of one plate, a fine and a coarse lattice (any cell sizes: each
 /// fine node takes the bilinear weights of the four nodes of the coarse cell it lies in, coarse nodes outside the plate
 /// contributing nothing). Values (stream function): <see cref="ProlongAdd"/> is P, a fine unknown being the mean over its nodes
-/// (a merged region's value is the same at all of them); <see cref="Restrict"/> is P^T, the Galerkin restriction of a residual.
+/// (a merged region's value is the same at all of them); P^T (in <see cref="RestrictAndAverage"/>) is the Galerkin restriction of a residual.
 /// Fluxes (R u, one number per basis function): a merged unknown's flux is the sum over its nodes' hats, so
-/// <see cref="ProlongFluxAdd"/> sums its nodes' interpolated values instead of averaging them.
+/// <see cref="ProlongFluxAdd"/> sums its nodes' interpolated values instead of averaging them. Fine vectors are held as their
+/// real and imaginary parts (the form the multigrid and the sheet operator take), coarse ones as complex numbers.
+/// P^T is stored by coarse rows, so the restriction gathers (no scattered adds) and forms a residual's restriction and a
+/// value's weighted mean in one pass.
 /// </summary>
 internal sealed class LatticeTransfer
 {
-    /// <summary>Fine unknown of each plate node taking part, its four coarse unknowns (-1: none) and their bilinear weights.</summary>
+    /// <summary>Fine unknown of each plate node taking part, its four coarse unknowns and their bilinear weights (a coarse node off the plate: unknown 0, weight 0).</summary>
     private readonly int[] _fineUnknown;
     private readonly int[] _coarseUnknown;
     private readonly double[] _weight;
     /// <summary>1 / (nodes of the fine unknown): the mean over a merged region's nodes.</summary>
     private readonly double[] _valueShare;
-    /// <summary>Row sums of P^T (P^T applied to ones): the weights of <see cref="Average"/>.</summary>
-    private readonly double[] _coarseWeight;
+    /// <summary>P^T by coarse rows: row c holds fine unknowns _rowFine[_rowStart[c].._rowStart[c + 1]) with weights _rowWeight.</summary>
+    private readonly int[] _rowStart, _rowFine;
+    private readonly double[] _rowWeight;
+    /// <summary>1 / (row sums of P^T) (P^T applied to ones; 0 where no fine node reaches): the scale of <see cref="RestrictAndAverage"/>'s mean.</summary>
+    private readonly double[] _inverseRowSum;
 
     public int FineUnknowns => _valueShare.Length;
-    public int CoarseUnknowns => _coarseWeight.Length;
-    public long Bytes => 4L * (_fineUnknown.Length + _coarseUnknown.Length) + 8L * (_weight.Length + _valueShare.Length + _coarseWeight.Length);
+    public int CoarseUnknowns => _inverseRowSum.Length;
+    public long Bytes => 4L * (_fineUnknown.Length + _coarseUnknown.Length + _rowStart.Length + _rowFine.Length)
+        + 8L * (_weight.Length + _valueShare.Length + _rowWeight.Length + _inverseRowSum.Length);
 
     public LatticeTransfer(SheetModel fine, SheetModel coarse)
     {
@@ -47,56 +54,78 @@ internal sealed class LatticeTransfer
             double tx = Math.Clamp(gx - i0, 0, 1), ty = Math.Clamp(gy - j0, 0, 1);
             for (int q = 0; q < 4; q++)
             {
-                int di = q & 1, dj = q >> 1;
-                _coarseUnknown[4 * k + q] = mapC[(j0 + dj) * lc.NodesX + i0 + di];
-                _weight[4 * k + q] = (di == 0 ? 1 - tx : tx) * (dj == 0 ? 1 - ty : ty);   // bilinear weight of coarse node (i0 + di, j0 + dj)
+                int di = q & 1, dj = q >> 1, c = mapC[(j0 + dj) * lc.NodesX + i0 + di];
+                _coarseUnknown[4 * k + q] = Math.Max(c, 0);
+                _weight[4 * k + q] = c < 0 ? 0 : (di == 0 ? 1 - tx : tx) * (dj == 0 ? 1 - ty : ty);   // bilinear weight of coarse node (i0 + di, j0 + dj)
             }
         }
         _valueShare = count.Select(c => c > 0 ? 1.0 / c : 0).ToArray();
-        _coarseWeight = new double[coarse.Unknowns];
+
+        // P^T by rows (counting sort of the nonzero weights by coarse unknown): entry (c, u) = weight(k, c) / (nodes of u) for each
+        // node k of u, a merged unknown's nodes as separate entries of one row (their sum is its entry)
+        _rowStart = new int[coarse.Unknowns + 1];
+        for (int q = 0; q < _weight.Length; q++) if (_weight[q] != 0) _rowStart[_coarseUnknown[q] + 1]++;
+        for (int c = 0; c < coarse.Unknowns; c++) _rowStart[c + 1] += _rowStart[c];
+        _rowFine = new int[_rowStart[^1]];
+        _rowWeight = new double[_rowStart[^1]];
+        var next = _rowStart[..^1];
         for (int k = 0; k < _fineUnknown.Length; k++)
-            for (int q = 0; q < 4; q++)
-                if (_coarseUnknown[4 * k + q] is var c && c >= 0) _coarseWeight[c] += _weight[4 * k + q] * _valueShare[_fineUnknown[k]];
+            for (int q = 4 * k; q < 4 * k + 4; q++)
+                if (_weight[q] != 0)
+                {
+                    int u = _fineUnknown[k], e = next[_coarseUnknown[q]]++;
+                    _rowFine[e] = u;
+                    _rowWeight[e] = _weight[q] * _valueShare[u];
+                }
+        _inverseRowSum = new double[coarse.Unknowns];
+        for (int c = 0; c < coarse.Unknowns; c++)
+        {
+            double sum = 0;
+            for (int e = _rowStart[c]; e < _rowStart[c + 1]; e++) sum += _rowWeight[e];
+            _inverseRowSum[c] = sum > 0 ? 1 / sum : 0;
+        }
     }
 
     /// <summary>fine += P coarse (values).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public void ProlongAdd(ReadOnlySpan<Complex> coarse, Span<Complex> fine) => Interpolate(coarse, fine, 1, perValue: true);
+    public void ProlongAdd(ReadOnlySpan<Complex> coarse, Span<double> fineRe, Span<double> fineIm) => Interpolate(coarse, fineRe, fineIm, 1, perValue: true);
 
     /// <summary>fine += factor * (coarse values interpolated to the nodes, summed per unknown): fluxes.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public void ProlongFluxAdd(ReadOnlySpan<Complex> coarse, Span<Complex> fine, Complex factor) => Interpolate(coarse, fine, factor, perValue: false);
+    public void ProlongFluxAdd(ReadOnlySpan<Complex> coarse, Span<double> fineRe, Span<double> fineIm, Complex factor) => Interpolate(coarse, fineRe, fineIm, factor, perValue: false);
 
-    /// <summary>coarse = P^T fine.</summary>
+    /// <summary>
+    /// In one pass: restricted = P^T r, and mean = (P^T z) / (P^T 1), a weighted mean of the fine values z around each coarse node
+    /// (0 where no fine node reaches).
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public void Restrict(ReadOnlySpan<Complex> fine, Span<Complex> coarse)
+    public void RestrictAndAverage(ReadOnlySpan<double> rRe, ReadOnlySpan<double> rIm, ReadOnlySpan<double> zRe, ReadOnlySpan<double> zIm,
+        Span<Complex> restricted, Span<Complex> mean)
     {
-        coarse.Clear();
-        for (int k = 0; k < _fineUnknown.Length; k++)
+        for (int c = 0; c < restricted.Length; c++)
         {
-            int u = _fineUnknown[k];
-            Complex x = fine[u] * _valueShare[u];
-            for (int q = 4 * k; q < 4 * k + 4; q++)
-                if (_coarseUnknown[q] is var c && c >= 0) coarse[c] += _weight[q] * x;
+            double ar = 0, ai = 0, br = 0, bi = 0;
+            for (int e = _rowStart[c]; e < _rowStart[c + 1]; e++)
+            {
+                double w = _rowWeight[e]; int u = _rowFine[e];
+                ar += w * rRe[u]; ai += w * rIm[u]; br += w * zRe[u]; bi += w * zIm[u];
+            }
+            restricted[c] = new Complex(ar, ai);
+            mean[c] = new Complex(br * _inverseRowSum[c], bi * _inverseRowSum[c]);
         }
     }
 
-    /// <summary>coarse = (P^T fine) / (P^T 1): a weighted mean of the fine values around each coarse node (0 where no fine node reaches).</summary>
-    public void Average(ReadOnlySpan<Complex> fine, Span<Complex> coarse)
-    {
-        Restrict(fine, coarse);
-        for (int c = 0; c < coarse.Length; c++) coarse[c] = _coarseWeight[c] > 0 ? coarse[c] / _coarseWeight[c] : Complex.Zero;
-    }
-
-    private void Interpolate(ReadOnlySpan<Complex> coarse, Span<Complex> fine, Complex factor, bool perValue)
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void Interpolate(ReadOnlySpan<Complex> coarse, Span<double> fineRe, Span<double> fineIm, Complex factor, bool perValue)
     {
         for (int k = 0; k < _fineUnknown.Length; k++)
         {
-            Complex s = Complex.Zero;
-            for (int q = 4 * k; q < 4 * k + 4; q++)
-                if (_coarseUnknown[q] is var c && c >= 0) s += _weight[q] * coarse[c];
+            double sr = 0, si = 0;
+            for (int q = 4 * k; q < 4 * k + 4; q++) { double w = _weight[q]; var v = coarse[_coarseUnknown[q]]; sr += w * v.Real; si += w * v.Imaginary; }
             int u = _fineUnknown[k];
-            fine[u] += (perValue ? _valueShare[u] : 1) * factor * s;
+            double share = perValue ? _valueShare[u] : 1;
+            fineRe[u] += share * (factor.Real * sr - factor.Imaginary * si);
+            fineIm[u] += share * (factor.Real * si + factor.Imaginary * sr);
         }
     }
 }

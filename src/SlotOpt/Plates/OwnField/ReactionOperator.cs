@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.CompilerServices;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Grid;
 
@@ -77,6 +78,7 @@ public sealed partial class ReactionOperator
     public static int PaddedLength(int n) => PaddedConvolution.PaddedLength(n);
 
     /// <summary>y = R u (webers per ampere of psi times u): the flux of the layer u through each unknown's basis.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void ApplyR(ReadOnlySpan<Complex> u, Span<Complex> y)
     {
         var c = _convolution;

@@ -109,7 +109,7 @@ public class ReactionDenseReferenceTests
         var level = CoarseOwnFieldLevel.Build(model, 2)!;
         Assert.Contains(true, level.Model.Regions.IsMerged);
         var op = CoupledOperator.Ac(model, reaction, omega, g);
-        var twoGrid = new TwoLevelAcPreconditioner(op, level, omega, g);
+        var twoGrid = new TwoLevelAcPreconditioner(model, level, omega, g);
         var u = new Complex[model.Unknowns];
         var report = ComplexGmres.Solve(op.Apply, twoGrid.Apply, b.ToArray(), u, new ConvergenceCriterion { RelativeResidual = 1e-13, MaxIterations = 500 });
         Assert.True(RelativeDifference(u, expected) < 1e-10, $"two-grid: {RelativeDifference(u, expected):E2} after {report.Iterations} iterations");

@@ -26,7 +26,8 @@ public class TwoLevelAcPreconditionerTests
     /// <summary>
     /// Bilinear interpolation is exact for a field linear in x and y (the definition of the bilinear hat basis), at every fine node whose
     /// coarse cell has all four corners on the plate; rounding only (measured 9e-16 for values up to 5), so 5e-12 is allowed. P^T is the
-    /// transpose of P: x_H . (P^T y) = (P x_H) . y for random vectors, a sum rearranged, so 1e-12 relative.
+    /// transpose of P: x_H . (P^T y) = (P x_H) . y for random vectors, a sum rearranged, so 1e-12 relative; the weighted mean
+    /// (P^T z) / (P^T 1) formed in the same pass returns a constant z unchanged (its definition; rounding only, 1e-12).
     /// </summary>
     [Fact]
     public void Transfer_reproduces_linear_fields_and_restricts_by_its_transpose()
@@ -40,8 +41,8 @@ public class TwoLevelAcPreconditionerTests
         var mapC = coarse.Regions.NodeUnknown;
         for (int n = 0; n < mapC.Length; n++)
             if (mapC[n] >= 0 && !coarse.Regions.IsMerged[mapC[n]]) xH[mapC[n]] = Linear(lc.NodeX(n % lc.NodesX), lc.NodeY(n / lc.NodesX));
-        var xh = new Complex[fine.Unknowns];
-        level.Transfer.ProlongAdd(xH, xh);
+        var xhRe = new double[fine.Unknowns]; var xhIm = new double[fine.Unknowns];
+        level.Transfer.ProlongAdd(xH, xhRe, xhIm);
         var mapF = fine.Regions.NodeUnknown;
         int checkedNodes = 0;
         double worst = 0;
@@ -55,7 +56,7 @@ public class TwoLevelAcPreconditionerTests
                 if (mapC[(j0 + (q >> 1)) * lc.NodesX + i0 + (q & 1)] is var u && (u < 0 || coarse.Regions.IsMerged[u])) inside = false;
             if (!inside) continue;
             checkedNodes++;
-            worst = Math.Max(worst, Math.Abs(xh[mapF[n]].Real - Linear(x, y)));
+            worst = Math.Max(worst, Math.Abs(xhRe[mapF[n]] - Linear(x, y)));
         }
         Assert.True(checkedNodes > fine.Unknowns / 2, $"only {checkedNodes} nodes checked");
         Assert.True(worst < 1e-12 * 5, $"bilinear interpolation of a linear field: {worst:E2}");
@@ -63,11 +64,16 @@ public class TwoLevelAcPreconditionerTests
         var random = new Random(7);
         var a = Enumerable.Range(0, coarse.Unknowns).Select(_ => new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5)).ToArray();
         var b = Enumerable.Range(0, fine.Unknowns).Select(_ => new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5)).ToArray();
-        var pa = new Complex[fine.Unknowns];
-        level.Transfer.ProlongAdd(a, pa);
+        var paRe = new double[fine.Unknowns]; var paIm = new double[fine.Unknowns];
+        level.Transfer.ProlongAdd(a, paRe, paIm);
         var ptb = new Complex[coarse.Unknowns];
-        level.Transfer.Restrict(b, ptb);
-        Complex left = Enumerable.Range(0, fine.Unknowns).Aggregate(Complex.Zero, (s, i) => s + pa[i] * b[i]);
+        var mean = new Complex[coarse.Unknowns];
+        var ones = Enumerable.Repeat(1.0, fine.Unknowns).ToArray();
+        level.Transfer.RestrictAndAverage(b.Select(q => q.Real).ToArray(), b.Select(q => q.Imaginary).ToArray(), ones, new double[fine.Unknowns], ptb, mean);
+        // the weighted mean of a constant is that constant wherever a fine node reaches (rounding only)
+        Assert.All(mean, m => Assert.True(m == Complex.Zero || (m - 1).Magnitude < 1e-12, $"mean of ones: {m}"));
+        Assert.True(mean.Count(m => m != Complex.Zero) > coarse.Unknowns / 2);
+        Complex left = Enumerable.Range(0, fine.Unknowns).Aggregate(Complex.Zero, (s, i) => s + new Complex(paRe[i], paIm[i]) * b[i]);
         Complex right = Enumerable.Range(0, coarse.Unknowns).Aggregate(Complex.Zero, (s, i) => s + a[i] * ptb[i]);
         Assert.True((left - right).Magnitude < 1e-12 * left.Magnitude, $"(P a).b = {left}, a.(P^T b) = {right}");
     }
