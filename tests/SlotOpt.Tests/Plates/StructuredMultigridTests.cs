@@ -174,7 +174,8 @@ public class StructuredMultigridTests
         Assert.InRange(rl.RelativeResidual / rg.RelativeResidual - 1, -1e-6, 1e-6);
     }
 
-    // CG needs a symmetric preconditioner: z1 . r2 = r1 . z2 for z = M^-1 r, to rounding. The cycle runs in single precision
+    // CG needs a symmetric preconditioner: z1 . r2 = r1 . z2 for z = M^-1 r, to rounding (with one sweep a side on the upper
+    // levels and a forward-backward pair a side below, each level's post-smoother must be the transpose of its pre-smoother). The cycle runs in single precision
     // (unit roundoff 6e-8, a few hundred operations per unknown), so asserted 1e-6 relative (measured 2.5e-7 at worst, the
     // enclosed slits; 1e-12 held with the cycle in double). Conjugate gradients tolerate this: the iteration counts and the
     // 1e-10 agreement with the reference above are unchanged (G. H. Golub and Q. Ye, "Inexact preconditioned conjugate gradient
@@ -192,6 +193,7 @@ public class StructuredMultigridTests
         var r2 = Enumerable.Range(0, model.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
         var z1 = new double[model.Unknowns];
         var z2 = new double[model.Unknowns];
+        Assert.True(model.Multigrid.LevelCount >= 4, $"{plate}: {model.Multigrid.LevelCount} levels; the check needs the levels with the symmetric sweep pair (2 and below) and a coarsest below them");
         model.Multigrid.Apply(r1, z1);
         model.Multigrid.Apply(r2, z2);
         double a = ConjugateGradient.Dot(z1, r2), c = ConjugateGradient.Dot(r1, z2);
