@@ -42,9 +42,11 @@ internal static class LatticeConjugateGradient
         var q = new double[length];
         double scale = Math.ScaleB(1, -Math.ILogB(normB));
         mg.Operator.ToLattice(b, bl, scale);
+        bool cold = !psi.ContainsAnyExcept(0.0);
         mg.Operator.ToLattice(psi, x, scale);
         normB *= scale;
-        TrueResidual(mg, bl, x, q, r);
+        if (cold) Array.Copy(bl, r, length);   // r = b - A 0, without applying A
+        else TrueResidual(mg, bl, x, q, r);
         double target = criterion.RelativeResidual * normB;
         double start = Math.Sqrt(Dot(r, r, top.Pad, top.Nodes));
         int iterations = 0;
