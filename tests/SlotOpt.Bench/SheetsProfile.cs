@@ -30,7 +30,7 @@ public static class SheetsProfile
                 best = best is null ? t : best.Zip(t, Math.Min).ToArray();
             }
             Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"| {n} | {best![0]:F3} | {best[1]:F3} | {best[2]:F3} | {best[3]:F3} | {best[4]:F3} | {best[5]} | {best[6]:F3} | {best[7]:F3} | {best[8]:F3} | {best[9]:F3} | {best[7] - best[8] - best[9]:F3} | {best[10]} |"));
+                $"| {n} | {best![0]:F3} | {best[1]:F3} | {best[2]:F3} | {best[3]:F3} | {best[4]:F3} | {best[5]} ({Math.Pow(best[11], 1 / best[5]):F3}) | {best[6]:F3} | {best[7]:F3} | {best[8]:F3} | {best[9]:F3} | {best[7] - best[8] - best[9]:F3} | {best[10]} |"));
         }
         return 0;
     }
@@ -66,7 +66,7 @@ public static class SheetsProfile
         Array.Clear(psi);
         var generic = ConjugateGradient.Solve(a, b, psi, m, ConvergenceCriterion.Default);
         double tCg = clock.Seconds;
-        return [tGrid, tRegions, tMg, tRhs, tSolve, report.Iterations, cpuSeconds, tCg, m.Seconds, a.Seconds, generic.Iterations];
+        return [tGrid, tRegions, tMg, tRhs, tSolve, report.Iterations, cpuSeconds, tCg, m.Seconds, a.Seconds, generic.Iterations, report.RelativeResidual];
     }
 
     private sealed class TimedOperator(ILinearOperator inner) : ILinearOperator

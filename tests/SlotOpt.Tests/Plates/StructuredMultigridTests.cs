@@ -174,7 +174,8 @@ public class StructuredMultigridTests
         Assert.InRange(rl.RelativeResidual / rg.RelativeResidual - 1, -1e-6, 1e-6);
     }
 
-    // CG needs a symmetric preconditioner: z1 . r2 = r1 . z2 for z = M^-1 r, to rounding. The cycle runs in single precision
+    // CG needs a symmetric preconditioner: z1 . r2 = r1 . z2 for z = M^-1 r, to rounding (with one sweep a side on the upper
+    // levels and a forward-backward pair a side below, each level's post-smoother must be the transpose of its pre-smoother). The cycle runs in single precision
     // (unit roundoff 6e-8, a few hundred operations per unknown), so asserted 1e-6 relative (measured 2.5e-7 at worst, the
     // enclosed slits; 1e-12 held with the cycle in double). Conjugate gradients tolerate this: the iteration counts and the
     // 1e-10 agreement with the reference above are unchanged (G. H. Golub and Q. Ye, "Inexact preconditioned conjugate gradient
@@ -192,6 +193,7 @@ public class StructuredMultigridTests
         var r2 = Enumerable.Range(0, model.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
         var z1 = new double[model.Unknowns];
         var z2 = new double[model.Unknowns];
+        Assert.True(model.Multigrid.LevelCount >= 4, $"{plate}: {model.Multigrid.LevelCount} levels; the check needs the levels with the symmetric sweep pair (2 and below) and a coarsest below them");
         model.Multigrid.Apply(r1, z1);
         model.Multigrid.Apply(r2, z2);
         double a = ConjugateGradient.Dot(z1, r2), c = ConjugateGradient.Dot(r1, z2);
@@ -209,23 +211,7 @@ public class StructuredMultigridTests
     [InlineData(12, 10)]
     public void Coarse_stencils_are_the_Galerkin_product_of_the_prolongation(int nx, int ny)
     {
-        var random = new Random(7);
-        var fine = new StencilLevel(nx, ny, ninePoint: false);
-        for (int j = 0; j < ny; j++)
-            for (int i = 0; i < nx; i++)
-            {
-                int p = j * nx + i;
-                fine.Centre[p] += 0.01 * random.NextDouble();
-                foreach (var (q, isWest) in new[] { (p - 1, true), (p - nx, false) })
-                {
-                    if (isWest ? i == 0 : j == 0) continue;
-                    double g = Math.Pow(10, 2 * random.NextDouble() - 1);
-                    if (isWest && i == nx / 2 && j < ny - 3) g = 1e-6;   // the slot: x-edges cut from the bottom up
-                    if (i > 2 * nx / 3) g *= 100;                         // the jump
-                    if (isWest) fine.West[p] = -g; else fine.South[p] = -g;
-                    fine.Centre[p] += g; fine.Centre[q] += g;
-                }
-            }
+        var fine = SlottedLattice(nx, ny);
         var first = BlackBoxCoarsening.Coarsen(fine);
         var second = BlackBoxCoarsening.Coarsen(first);
         AssertGalerkin(fine, first);
@@ -266,6 +252,78 @@ public class StructuredMultigridTests
                     Assert.True(Math.Abs(stored - galerkin[K, L]) <= tolerance,
                         $"{f.Nx} x {f.Ny} -> {c.Nx} x {c.Ny}: entry ({K}, {L}) stored {stored:R}, P^T A P {galerkin[K, L]:R}");
                 }
+        }
+    }
+
+    /// <summary>A 5-point lattice with random couplings over two decades, a slot of couplings 1e-6 from the bottom up and a 100:1 jump (invented test data: the checks against it compare two computations of the same quantity).</summary>
+    private static StencilLevel SlottedLattice(int nx, int ny)
+    {
+        var random = new Random(7);
+        var fine = new StencilLevel(nx, ny, ninePoint: false);
+        for (int j = 0; j < ny; j++)
+            for (int i = 0; i < nx; i++)
+            {
+                int p = j * nx + i;
+                fine.Centre[p] += 0.01 * random.NextDouble();
+                foreach (var (q, isWest) in new[] { (p - 1, true), (p - nx, false) })
+                {
+                    if (isWest ? i == 0 : j == 0) continue;
+                    double g = Math.Pow(10, 2 * random.NextDouble() - 1);
+                    if (isWest && i == nx / 2 && j < ny - 3) g = 1e-6;   // the slot: x-edges cut from the bottom up
+                    if (i > 2 * nx / 3) g *= 100;                         // the jump
+                    if (isWest) fine.West[p] = -g; else fine.South[p] = -g;
+                    fine.Centre[p] += g; fine.Centre[q] += g;
+                }
+            }
+        return fine;
+    }
+
+    // The prolongation weights against Dendy's formulas (J. E. Dendy, "Black box multigrid", J. Comput. Phys. 48 (1982) 366-386,
+    // section 3; spelled out in BlackBoxCoarsening's summary), recomputed here from the stencil entries in double, for the first
+    // (5-point) and second (9-point) coarsening of the slotted lattice, at every fine node whose coarse neighbours all lie on the
+    // lattice. The centre weights take the stored line weights, as the code and the Galerkin check above do. Tolerance: one unit of
+    // single precision (2^-23 relative), the rounding of the stored weight, which the code forms as a product with the reciprocal of
+    // the shared denominator (a double rounding more than the quotient, far below that unit).
+    [Theory]
+    [InlineData(13, 11)]
+    [InlineData(12, 10)]
+    public void Prolongation_weights_follow_Dendys_formulas(int nx, int ny)
+    {
+        var fine = SlottedLattice(nx, ny);
+        var first = BlackBoxCoarsening.Coarsen(fine);
+        AssertWeights(fine, first);
+        var second = BlackBoxCoarsening.Coarsen(first);
+        AssertWeights(first, second);
+
+        static void AssertWeights(StencilLevel f, StencilLevel c)
+        {
+            int checkedNodes = 0;
+            for (int J = 0; J + 1 < c.Ny; J++)
+                for (int I = 0; I + 1 < c.Nx; I++)
+                {
+                    int k = J * c.Nx + I, i = 2 * I + 1, j = 2 * J + 1;
+                    if (i >= f.Nx || j >= f.Ny) continue;
+                    double A(int x, int y, int di, int dj) => f.Entry(x, y, di, dj);
+                    // between coarse nodes in x: fine node (i, 2J)
+                    double d = A(i, 2 * J, 0, 0) + A(i, 2 * J, 0, -1) + A(i, 2 * J, 0, 1);
+                    Near(-(A(i, 2 * J, -1, 0) + A(i, 2 * J, -1, -1) + A(i, 2 * J, -1, 1)) / d, c.XLow![k], "x low");
+                    Near(-(A(i, 2 * J, 1, 0) + A(i, 2 * J, 1, -1) + A(i, 2 * J, 1, 1)) / d, c.XHigh![k], "x high");
+                    // between coarse nodes in y: fine node (2I, j)
+                    d = A(2 * I, j, 0, 0) + A(2 * I, j, -1, 0) + A(2 * I, j, 1, 0);
+                    Near(-(A(2 * I, j, 0, -1) + A(2 * I, j, -1, -1) + A(2 * I, j, 1, -1)) / d, c.YLow![k], "y low");
+                    Near(-(A(2 * I, j, 0, 1) + A(2 * I, j, -1, 1) + A(2 * I, j, 1, 1)) / d, c.YHigh![k], "y high");
+                    // a coarse cell's centre: fine node (i, j), its line neighbours' stored weights towards each corner
+                    double centre = A(i, j, 0, 0);
+                    Near(-(A(i, j, -1, -1) + A(i, j, -1, 0) * c.YLow[k] + A(i, j, 0, -1) * c.XLow[k]) / centre, c.CentreSW![k], "centre SW");
+                    Near(-(A(i, j, 1, -1) + A(i, j, 1, 0) * c.YLow[k + 1] + A(i, j, 0, -1) * c.XHigh[k]) / centre, c.CentreSE![k], "centre SE");
+                    Near(-(A(i, j, -1, 1) + A(i, j, -1, 0) * c.YHigh[k] + A(i, j, 0, 1) * c.XLow[k + c.Nx]) / centre, c.CentreNW![k], "centre NW");
+                    Near(-(A(i, j, 1, 1) + A(i, j, 1, 0) * c.YHigh[k + 1] + A(i, j, 0, 1) * c.XHigh[k + c.Nx]) / centre, c.CentreNE![k], "centre NE");
+                    checkedNodes++;
+                }
+            Assert.True(checkedNodes >= (c.Nx - 2) * (c.Ny - 2), $"{f.Nx} x {f.Ny}: only {checkedNodes} coarse cells checked");
+
+            void Near(double expected, float stored, string kind) =>
+                Assert.True(Math.Abs(stored - expected) <= Math.Pow(2, -23) * Math.Abs(expected) + 1e-30, $"{f.Nx} x {f.Ny}, {kind}: stored {stored:R}, Dendy's formula {expected:R}");
         }
     }
 

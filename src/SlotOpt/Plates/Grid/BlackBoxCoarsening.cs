@@ -31,7 +31,8 @@ internal static class BlackBoxCoarsening
         return c;
     }
 
-    private static float Ratio(double numerator, double denominator) => denominator > 0 ? (float)(-numerator / denominator) : 0f;
+    /// <summary>1 / d, or 0 for a node with no positive denominator (then every weight through it is 0): one division for the two or four weights that share d.</summary>
+    private static double Inverse(double denominator) => denominator > 0 ? 1 / denominator : 0;
 
     /// <summary>The 9 entries of node p's row (0 for the corners of a 5-point level and off the lattice).</summary>
     private readonly struct Row
@@ -87,17 +88,17 @@ internal static class BlackBoxCoarsening
                 if (i < fnx)
                 {
                     var a = new Row(stencil, j * fnx + i);
-                    double d = a.C + a.S + a.N;
-                    xLow[k] = Ratio(a.W + a.SW + a.NW, d);
-                    xHigh[k] = I + 1 < ncx ? Ratio(a.E + a.SE + a.NE, d) : 0;
+                    double inverse = Inverse(a.C + a.S + a.N);
+                    xLow[k] = (float)(-(a.W + a.SW + a.NW) * inverse);
+                    xHigh[k] = I + 1 < ncx ? (float)(-(a.E + a.SE + a.NE) * inverse) : 0;
                 }
                 i = 2 * I; j = 2 * J + 1;
                 if (j < fny)
                 {
                     var a = new Row(stencil, j * fnx + i);
-                    double d = a.C + a.W + a.E;
-                    yLow[k] = Ratio(a.S + a.SW + a.SE, d);
-                    yHigh[k] = J + 1 < ncy ? Ratio(a.N + a.NW + a.NE, d) : 0;
+                    double inverse = Inverse(a.C + a.W + a.E);
+                    yLow[k] = (float)(-(a.S + a.SW + a.SE) * inverse);
+                    yHigh[k] = J + 1 < ncy ? (float)(-(a.N + a.NW + a.NE) * inverse) : 0;
                 }
             }
         for (int J = 0; J < ncy; J++)
@@ -113,10 +114,11 @@ internal static class BlackBoxCoarsening
                 double eSouthLine = east ? yLow[k + 1] : 0, eNorthLine = east ? yHigh[k + 1] : 0; // east neighbour (2I+2, 2J+1)
                 double sWestLine = xLow[k], sEastLine = xHigh[k];                                // south neighbour (2I+1, 2J)
                 double nWest = north ? xLow[k + ncx] : 0, nEast = north ? xHigh[k + ncx] : 0;    // north neighbour (2I+1, 2J+2)
-                cSW[k] = Ratio(a.SW + a.W * wSouthLine + a.S * sWestLine, a.C);
-                cSE[k] = east ? Ratio(a.SE + a.E * eSouthLine + a.S * sEastLine, a.C) : 0;
-                cNW[k] = north ? Ratio(a.NW + a.W * nWestLine + a.N * nWest, a.C) : 0;
-                cNE[k] = east && north ? Ratio(a.NE + a.E * eNorthLine + a.N * nEast, a.C) : 0;
+                double inverse = Inverse(a.C);
+                cSW[k] = (float)(-(a.SW + a.W * wSouthLine + a.S * sWestLine) * inverse);
+                cSE[k] = east ? (float)(-(a.SE + a.E * eSouthLine + a.S * sEastLine) * inverse) : 0;
+                cNW[k] = north ? (float)(-(a.NW + a.W * nWestLine + a.N * nWest) * inverse) : 0;
+                cNE[k] = east && north ? (float)(-(a.NE + a.E * eNorthLine + a.N * nEast) * inverse) : 0;
             }
         c.XLow = xLow; c.XHigh = xHigh; c.YLow = yLow; c.YHigh = yHigh;
         c.CentreSW = cSW; c.CentreSE = cSE; c.CentreNW = cNW; c.CentreNE = cNE;

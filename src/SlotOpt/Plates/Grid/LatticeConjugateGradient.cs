@@ -14,7 +14,8 @@ namespace SlotOpt.Plates.Grid;
 /// unknowns' inner products. The V-cycle reads the residual r where it is and writes the preconditioned
 /// residual z into the finest level's iterate (single precision: the preconditioner's output is rounded
 /// there, see <see cref="StencilLevel"/>; r, x, p, q and every inner product stay double). The next direction
-/// p = z + beta p, the operator and the dot product p.Ap share one pass over the lattice (p updated a row ahead), as do the updates of x and r and |r|. The iteration
+/// p = z + beta p, the operator and the dot product p.Ap share one pass over the lattice (p updated a row ahead), as do the updates of x and r and |r|;
+/// r.z is summed by the cycle's last sweep as it writes z. The iteration
 /// runs on b / |b| and psi / |b| (|b| rounded to a power of two, so the scaling is exact), which keeps the
 /// single-precision cycle within a few decades of 1 whatever the units; the stopping rule is relative.
 /// </summary>
@@ -41,9 +42,11 @@ internal static class LatticeConjugateGradient
         var q = new double[length];
         double scale = Math.ScaleB(1, -Math.ILogB(normB));
         mg.Operator.ToLattice(b, bl, scale);
+        bool cold = !psi.ContainsAnyExcept(0.0);
         mg.Operator.ToLattice(psi, x, scale);
         normB *= scale;
-        TrueResidual(mg, bl, x, q, r);
+        if (cold) Array.Copy(bl, r, length);   // r = b - A 0, without applying A
+        else TrueResidual(mg, bl, x, q, r);
         double target = criterion.RelativeResidual * normB;
         double start = Math.Sqrt(Dot(r, r, top.Pad, top.Nodes));
         int iterations = 0;
@@ -63,8 +66,7 @@ internal static class LatticeConjugateGradient
                     return false;
                 }
                 // (re)start: p = z = M^-1 r (beta 0; p holds zeros or the last finite direction)
-                mg.CycleInPlace(r);
-                double rz = Dot(r, z, top.Pad, top.Nodes);
+                double rz = mg.CycleInPlace(r);
                 double beta = 0;
                 while (iterations < criterion.MaxIterations)
                 {
@@ -89,8 +91,7 @@ internal static class LatticeConjugateGradient
                         return false;
                     }
                     if (rn <= target) break;
-                    mg.CycleInPlace(r);
-                    double rzNew = Dot(r, z, top.Pad, top.Nodes);
+                    double rzNew = mg.CycleInPlace(r);
                     beta = rzNew / rz;
                     rz = rzNew;
                 }
@@ -106,25 +107,6 @@ internal static class LatticeConjugateGradient
         mg.Operator.MultiplyOnLattice(x, q);
         for (int i = 0; i < r.Length; i++) r[i] = b[i] - q[i];
         return Dot(r, r, mg.Finest.Pad, mg.Finest.Nodes);
-    }
-
-    /// <summary>a . b over [from, from + count), b in single precision, in four interleaved partial sums (as the double one).</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static double Dot(double[] a, float[] b, int from, int count)
-    {
-        ref double ar = ref MemoryMarshal.GetArrayDataReference(a);
-        ref float br = ref MemoryMarshal.GetArrayDataReference(b);
-        double s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-        int i = from, end = from + count;
-        for (; i + 3 < end; i += 4)
-        {
-            s0 += Unsafe.Add(ref ar, i) * Unsafe.Add(ref br, i);
-            s1 += Unsafe.Add(ref ar, i + 1) * Unsafe.Add(ref br, i + 1);
-            s2 += Unsafe.Add(ref ar, i + 2) * Unsafe.Add(ref br, i + 2);
-            s3 += Unsafe.Add(ref ar, i + 3) * Unsafe.Add(ref br, i + 3);
-        }
-        for (; i < end; i++) s0 += Unsafe.Add(ref ar, i) * Unsafe.Add(ref br, i);
-        return (s0 + s1) + (s2 + s3);
     }
 
     /// <summary>a . b over [from, from + count), in four interleaved partial sums (so the additions do not wait on one another).</summary>

@@ -221,9 +221,13 @@ internal sealed class StencilLevel
     // (x = rest / a_C - (a_W / a_C) x_prev), carried in a register, so the chain from node to node is one
     // instruction long and the independent terms overlap with the previous node's update instead of waiting for it.
 
-    /// <summary>One backward Gauss–Seidel sweep on the 5-point finest level, right-hand side as in <see cref="SmoothFiveFromZeroThenResidual"/>: the post-smoother, the transpose of the forward pre-smoother.</summary>
+    /// <summary>
+    /// One backward Gauss–Seidel sweep on the 5-point finest level, right-hand side as in <see cref="SmoothFiveFromZeroThenResidual"/>: the
+    /// post-smoother, the transpose of the forward pre-smoother. Returns the sum over the nodes of rhs times the new X (in double, node by
+    /// node in the sweep's order), the conjugate gradients' r.z when X is their z, formed while both are in registers.
+    /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public void SmoothFiveBackward(double[] rhs, double rhsScale)
+    public double SmoothFiveBackward(double[] rhs, double rhsScale)
     {
         ref float c = ref MemoryMarshal.GetArrayDataReference(SingleInverseCentre);
         ref float w = ref MemoryMarshal.GetArrayDataReference(SingleWest);
@@ -231,19 +235,23 @@ internal sealed class StencilLevel
         ref float x = ref MemoryMarshal.GetArrayDataReference(X);
         ref double b = ref MemoryMarshal.GetArrayDataReference(rhs);
         int nx = Nx, o = Pad;
+        double product = 0;
         for (int j = Ny - 1; j >= 0; j--)
         {
             float previous = 0;   // the east neighbour of the row's last node is 0 (no coupling)
             for (int p = j * nx + nx - 1, start = j * nx; p >= start; p--)
             {
                 int q = o + p;
-                float rest = (float)(Unsafe.Add(ref b, q) * rhsScale) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)
+                double given = Unsafe.Add(ref b, q);
+                float rest = (float)(given * rhsScale) - Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1)
                               - (Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) + Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx));
                 float inverse = Unsafe.Add(ref c, p);
                 previous = MathF.FusedMultiplyAdd(-Unsafe.Add(ref w, p + 1) * inverse, previous, rest * inverse);
                 Unsafe.Add(ref x, q) = previous;
+                product += given * previous;
             }
         }
+        return product;
     }
 
     /// <summary>One backward Gauss–Seidel sweep on a 9-point level (right-hand side in B).</summary>
@@ -274,6 +282,61 @@ internal sealed class StencilLevel
                 previous = MathF.FusedMultiplyAdd(-Unsafe.Add(ref w, p + 1) * inverse, previous, rest * inverse);
                 Unsafe.Add(ref x, q) = previous;
             }
+        }
+    }
+
+    /// <summary>One forward Gauss–Seidel sweep on a 9-point level from the current X (right-hand side in B): the post-smoother's first half below <c>StructuredMultigrid.SymmetricSmoothingFrom</c>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void SmoothForward()
+    {
+        ref float c = ref MemoryMarshal.GetArrayDataReference(SingleInverseCentre);
+        ref float w = ref MemoryMarshal.GetArrayDataReference(SingleWest);
+        ref float s = ref MemoryMarshal.GetArrayDataReference(SingleSouth);
+        ref float sw = ref MemoryMarshal.GetArrayDataReference(SingleSouthWest);
+        ref float se = ref MemoryMarshal.GetArrayDataReference(SingleSouthEast);
+        ref float x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref float b = ref MemoryMarshal.GetArrayDataReference(B);
+        int nx = Nx, o = Pad;
+        for (int j = 0; j < Ny; j++)
+        {
+            float previous = 0;
+            for (int p = j * nx, end = p + nx; p < end; p++)
+            {
+                int q = o + p;
+                float below = Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) + Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1)
+                               + Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
+                float above = Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx) + Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1)
+                               + Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
+                float rest = Unsafe.Add(ref b, q) - Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1) - (below + above);
+                float inverse = Unsafe.Add(ref c, p);
+                previous = MathF.FusedMultiplyAdd(-Unsafe.Add(ref w, p) * inverse, previous, rest * inverse);
+                Unsafe.Add(ref x, q) = previous;
+            }
+        }
+    }
+
+    /// <summary>The residual R = B - A X on a 9-point level (after a pre-smoothing of two sweeps, whose residual no sweep forms on the way).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void Residual()
+    {
+        ref float c = ref MemoryMarshal.GetArrayDataReference(SingleInverseCentre);
+        ref float w = ref MemoryMarshal.GetArrayDataReference(SingleWest);
+        ref float s = ref MemoryMarshal.GetArrayDataReference(SingleSouth);
+        ref float sw = ref MemoryMarshal.GetArrayDataReference(SingleSouthWest);
+        ref float se = ref MemoryMarshal.GetArrayDataReference(SingleSouthEast);
+        ref float x = ref MemoryMarshal.GetArrayDataReference(X);
+        ref float b = ref MemoryMarshal.GetArrayDataReference(B);
+        ref float r = ref MemoryMarshal.GetArrayDataReference(R);
+        int nx = Nx, o = Pad;
+        for (int p = 0, end = Nx * Ny; p < end; p++)
+        {
+            int q = o + p;
+            float below = Unsafe.Add(ref s, p) * Unsafe.Add(ref x, q - nx) + Unsafe.Add(ref sw, p) * Unsafe.Add(ref x, q - nx - 1)
+                           + Unsafe.Add(ref se, p) * Unsafe.Add(ref x, q - nx + 1);
+            float above = Unsafe.Add(ref s, p + nx) * Unsafe.Add(ref x, q + nx) + Unsafe.Add(ref sw, p + nx + 1) * Unsafe.Add(ref x, q + nx + 1)
+                           + Unsafe.Add(ref se, p + nx - 1) * Unsafe.Add(ref x, q + nx - 1);
+            float side = Unsafe.Add(ref w, p) * Unsafe.Add(ref x, q - 1) + Unsafe.Add(ref w, p + 1) * Unsafe.Add(ref x, q + 1);
+            Unsafe.Add(ref r, q) = Unsafe.Add(ref b, q) - Unsafe.Add(ref x, q) / Unsafe.Add(ref c, p) - (side + (below + above));
         }
     }
 }
