@@ -85,6 +85,15 @@ internal sealed class PaddedConvolution
         _strip = Math.Min(width, PaddedX);
     }
 
+    /// <summary>The smallest 2^k or 3 x 2^k at least 2 n - 2 (and 2): linear for a kernel even in that direction (see <see cref="Spectrum"/>'s evenInY).</summary>
+    public static int EvenPaddedLength(int n)
+    {
+        int power = 2, three = 3;
+        while (power < 2 * n - 2) power <<= 1;
+        while (three < 2 * n - 2) three <<= 1;
+        return Math.Min(power, three);
+    }
+
     /// <summary>The smallest 2^k or 3 x 2^k at least 2 n (so at least 2 n - 1 for the linear convolution, and at least 2).</summary>
     public static int PaddedLength(int n)
     {
@@ -103,7 +112,9 @@ internal sealed class PaddedConvolution
     /// The kernel k(dx, dy), |dx| &lt;= kx &lt; Nx, |dy| &lt;= ky &lt; Ny, as the spectrum this convolution multiplies by (its
     /// DFT on the padded lattice in the row order of the transforms, scaled by 1 / (PaddedX PaddedY) for the inverse).
     /// </summary>
-    public KernelSpectrum Spectrum(int kx, int ky, Func<int, int, double> kernel)
+    /// <param name="evenInY">the kernel is even in dy (k(dx, -dy) = k(dx, dy)), and a lattice of only 2 ky rows is linear for it: the offsets
+    /// -ky and +ky share one row, which must hold k(dx, ky) once (output i and input p with i - p = +-ky take that row's value either way)</param>
+    public KernelSpectrum Spectrum(int kx, int ky, Func<int, int, double> kernel, bool evenInY = false)
     {
         if (kx >= Nx || ky >= Ny) throw new ArgumentOutOfRangeException(nameof(kx), "the kernel reaches beyond the lattice");
         int mx = PaddedX, my = PaddedY;
@@ -111,7 +122,8 @@ internal sealed class PaddedConvolution
         var im = new double[mx * my];
         for (int dy = -ky; dy <= ky; dy++)
             for (int dx = -kx; dx <= kx; dx++)
-                re[((dy % my + my) % my) * mx + (dx % mx + mx) % mx] += kernel(dx, dy);   // wrapped offsets add up on a circular lattice (none wrap when padded)
+                if (!(evenInY && dy < 0 && dy + my <= ky))   // with evenInY, -dy's row is +dy's own: written once
+                    re[((dy % my + my) % my) * mx + (dx % mx + mx) % mx] += kernel(dx, dy);   // wrapped offsets add up on a circular lattice (none wrap when padded)
         for (int j = 0; j < my; j++)
         {
             ForwardRow(re, im, j * mx, mx);

@@ -9,7 +9,7 @@ namespace SlotOpt.Plates.OwnField;
 /// <see cref="SheetModel"/>: (R psi)_m = flux (Wb) through basis function m of the field of the dipole
 /// layer psi (see <see cref="ReactionKernel"/> for the physics and the sign), and the convected form
 /// (Dx R psi)_m, the central x-difference of R psi (for a source moving along x).
-/// Applied by FFT on a lattice zero-padded to at least 2 n - 1 in each direction (n = interior nodes:
+/// Applied by FFT on a lattice zero-padded to at least 2 n - 1 in each direction (2 n - 2 across the motion for Dx R, whose kernel is even in y; n = interior nodes:
 /// the lattice's border nodes are always outside, psi = 0), so the convolution is linear, not circular
 /// (the finite, slotted plate is exact up to discretisation), O(N log N) per application.
 /// A merged region (hole, cut) is one unknown whose basis is the sum of its nodes' hats: its row
@@ -23,6 +23,8 @@ public sealed partial class ReactionOperator
     /// <summary>Per interior lattice node (in padded-lattice order of the input region): its unknown, or -1 outside.</summary>
     private readonly int[] _interiorUnknown;
     private readonly PaddedConvolution _convolution;
+    /// <summary>The lattice of Dx R's product: the same as R's, or fewer rows where Dx R's kernel, even in y, needs only 2 n - 2 of them.</summary>
+    private readonly PaddedConvolution _convectedConvolution;
     private readonly LatticeSpectra _shared;
     private readonly KernelSpectrum _spectrumR;
 
@@ -35,13 +37,14 @@ public sealed partial class ReactionOperator
     public int PaddedX => _convolution.PaddedX;
     public int PaddedY => _convolution.PaddedY;
     /// <summary>Bytes held: the padded lattice's buffers, the kernel spectra built so far and the AC coarse level once built.</summary>
-    public long Bytes => _convolution.Bytes + (_factorConvolution?.Bytes ?? 0) + _shared.Bytes + 4L * _interiorUnknown.Length + (_coarseLevel?.Bytes ?? 0);
+    public long Bytes => _convolution.Bytes + (ReferenceEquals(_convectedConvolution, _convolution) ? 0 : _convectedConvolution.Bytes) + (_factorConvolution?.Bytes ?? 0) + _shared.Bytes + 4L * _interiorUnknown.Length + (_coarseLevel?.Bytes ?? 0);
 
-    private ReactionOperator(SheetModel model, PaddedConvolution convolution, LatticeSpectra shared)
+    private ReactionOperator(SheetModel model, PaddedConvolution convolution, PaddedConvolution convectedConvolution, LatticeSpectra shared)
     {
         Model = model;
         Kernel = shared.Kernel;
         _convolution = convolution;
+        _convectedConvolution = convectedConvolution;
         _shared = shared;
         _spectrumR = shared.R;
         _nodeUnknown = model.Regions.NodeUnknown;
@@ -58,7 +61,9 @@ public sealed partial class ReactionOperator
         var l = model.Lattice;
         int ix = l.NodesX - 2, iy = l.NodesY - 2;           // interior nodes: the border is outside (NodeRegions)
         var convolution = new PaddedConvolution(ix, iy, threads);
-        return new ReactionOperator(model, convolution, LatticeSpectra.For(l, convolution));
+        int convectedY = PaddedConvolution.EvenPaddedLength(iy);
+        var convected = convectedY == convolution.PaddedY ? convolution : new PaddedConvolution(ix, iy, convolution.PaddedX, convectedY, threads);
+        return new ReactionOperator(model, convolution, convected, LatticeSpectra.For(l, convolution));
     }
 
     /// <summary>
@@ -101,9 +106,9 @@ public sealed partial class ReactionOperator
     public void ApplyR(ReadOnlySpan<double> u, Span<double> y) => ApplyReal(u, y, _spectrumR);
 
     /// <summary>y = Dx R u: the central x-difference (per metre) of R u, the convected reaction flux of a source moving along x (real: R's kernel is real).</summary>
-    public void ApplyDxR(ReadOnlySpan<double> u, Span<double> y) => ApplyReal(u, y, SpectrumDxR());
+    public void ApplyDxR(ReadOnlySpan<double> u, Span<double> y) => ApplyReal(u, y, SpectrumDxR(), _convectedConvolution);
 
-    private KernelSpectrum SpectrumDxR() => _shared.DxR(_convolution);
+    private KernelSpectrum SpectrumDxR() => _shared.DxR(_convectedConvolution);
 
     /// <summary>
     /// The free-lattice factor Phi = A^ / (A^ + c S^) of the coupled operator A + c R (or A + c Dx R when convected),
@@ -248,7 +253,7 @@ internal sealed class LatticeSpectra
         }
     }
 
-    /// <summary>The spectrum of Dx R, (Dx R)(d) = (R(dx + 1, dy) - R(dx - 1, dy)) / (2 hx): odd in dx, so Dx R is skew-symmetric.</summary>
+    /// <summary>The spectrum of Dx R, (Dx R)(d) = (R(dx + 1, dy) - R(dx - 1, dy)) / (2 hx): odd in dx, so Dx R is skew-symmetric; even in dy, so its lattice may have 2 n - 2 rows.</summary>
     public KernelSpectrum DxR(PaddedConvolution convolution)
     {
         lock (_gate)
@@ -257,7 +262,7 @@ internal sealed class LatticeSpectra
             {
                 double h2 = 2 * Kernel.Hx;
                 var kernel = Kernel;
-                _dxR = convolution.Spectrum(convolution.Nx - 1, convolution.Ny - 1, (dx, dy) => (kernel[dx + 1, dy] - kernel[dx - 1, dy]) / h2);
+                _dxR = convolution.Spectrum(convolution.Nx - 1, convolution.Ny - 1, (dx, dy) => (kernel[dx + 1, dy] - kernel[dx - 1, dy]) / h2, evenInY: true);
             }
             return _dxR;
         }
