@@ -6,7 +6,8 @@ namespace SlotOpt.Numerics;
 /// <summary>
 /// Linear 2-D convolution of a field on an Nx x Ny lattice with a kernel of offsets |dx| &lt; Nx, |dy| &lt; Ny, by
 /// FFT on a lattice zero-padded to PaddedX x PaddedY (each the smallest 2^k or 3 x 2^k at least 2 N, so the circular
-/// convolution there is the linear one). The field sits in <see cref="Re"/> (and <see cref="Im"/> for a complex
+/// convolution there is the linear one; or lengths the caller gives, from N up: below 2 N - 1 the convolution is circular,
+/// or linear for a kernel even in that direction at 2 N - 2, see <see cref="Spectrum"/>). The field sits in <see cref="Re"/> (and <see cref="Im"/> for a complex
 /// field), row-major with row stride PaddedX, in rows 0..Ny-1 and columns 0..Nx-1; write that whole region before
 /// each convolution (the rest is never read), read the result from the same region.
 /// <para>
