@@ -36,6 +36,9 @@ public sealed partial class ReactionOperator
     public ReactionKernel Kernel { get; }
     public int PaddedX => _convolution.PaddedX;
     public int PaddedY => _convolution.PaddedY;
+    /// <summary>The FFT lattices of the moving solve: Dx R's exact product and the preconditioner's circular factor (<see cref="FactorConvolution"/>).</summary>
+    public (int X, int Y) ConvectedLattice => (_convectedConvolution.PaddedX, _convectedConvolution.PaddedY);
+    public (int X, int Y) FactorLattice => (FactorConvolution.PaddedX, FactorConvolution.PaddedY);
     /// <summary>Bytes held: the padded lattice's buffers, the kernel spectra built so far and the AC coarse level once built.</summary>
     public long Bytes => _convolution.Bytes + (ReferenceEquals(_convectedConvolution, _convolution) ? 0 : _convectedConvolution.Bytes) + (_factorConvolution?.Bytes ?? 0) + _shared.Bytes + 4L * _interiorUnknown.Length + (_coarseLevel?.Bytes ?? 0);
 
