@@ -39,7 +39,7 @@ public sealed partial class ReactionOperator
     /// <summary>The FFT lattices of the moving solve: Dx R's exact product and the preconditioner's circular factor (<see cref="FactorConvolution"/>).</summary>
     public (int X, int Y) ConvectedLattice => (_convectedConvolution.PaddedX, _convectedConvolution.PaddedY);
     public (int X, int Y) FactorLattice => (FactorConvolution.PaddedX, FactorConvolution.PaddedY);
-    /// <summary>Bytes held: the padded lattice's buffers, the kernel spectra built so far and the AC coarse level once built.</summary>
+    /// <summary>Bytes held: the FFT lattices' buffers (R's; Dx R's where it has fewer rows; the moving preconditioner's, at most half R's area, once built), the kernel spectra built so far and the AC coarse level once built.</summary>
     public long Bytes => _convolution.Bytes + (ReferenceEquals(_convectedConvolution, _convolution) ? 0 : _convectedConvolution.Bytes) + (_factorConvolution?.Bytes ?? 0) + _shared.Bytes + 4L * _interiorUnknown.Length + (_coarseLevel?.Bytes ?? 0);
 
     private ReactionOperator(SheetModel model, PaddedConvolution convolution, PaddedConvolution convectedConvolution, LatticeSpectra shared)
