@@ -18,7 +18,7 @@ namespace SlotOpt.Bench;
 /// level (the plate 4 times coarser) is built in the first AC solve, so the solve time includes it; "next" is a second solve on the same
 /// operator (3 -> 3.5 mm, as a run's next thickness on one geometry), which finds the coarse level built.
 /// Moving: one circular pole (radius 20 mm, 0.5 T) at v = w over a 0.8 m x 0.2 m plate (4 mm cells),
-/// 50 travel offsets in one sweep (each offset warm-started from the last). Thick: a 0.4 m x 0.2 m copper
+/// 50 travel offsets in one sweep (each offset warm-started from the last); its padded FFT column shows Dx R's lattice and the preconditioner's (Phi). Thick: a 0.4 m x 0.2 m copper
 /// plate, 20 mm thick, uniform 50 Hz field (t/delta = 2.1), 128 x 64 cells per layer, layer count chosen and
 /// checked to 1 % (the time includes the L/2 and L solves). Times are wall clock, one run, on whatever cores
 /// the machine gives (2 here, shared), after the same solves on small grids (compiling the code); the AC and moving solves run with 1 and with 2 FFT workers
@@ -67,7 +67,7 @@ public static class ReactionBench
             var cpu = Process.GetCurrentProcess().TotalProcessorTime;
             var s = ReactionSolver.SolveMoving(reaction, poles, conductor, offsets);
             double solve = clock.Elapsed.TotalSeconds, solveCpu = (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSeconds;
-            Console.WriteLine(string.Create(c, $"| moving pole at v = w ({w:F1} m/s), 50 offsets | {model.Lattice.Nx} x {model.Lattice.Ny} | {model.Unknowns} | {reaction.PaddedX} x {reaction.PaddedY} | {threads} | {setup:F2} | {solve:F2} ({solve / 50:F3} per offset) | {solveCpu:F2} ({solveCpu / 50:F3} per offset) | {s.Iterations.Sum()} ({s.Iterations.Average():F1} per offset) | {s.MaxRelativeResidual:E1} | {s.DragRatio:F4} |"));
+            Console.WriteLine(string.Create(c, $"| moving pole at v = w ({w:F1} m/s), 50 offsets | {model.Lattice.Nx} x {model.Lattice.Ny} | {model.Unknowns} | {reaction.ConvectedLattice.X} x {reaction.ConvectedLattice.Y} (Phi {reaction.FactorLattice.X} x {reaction.FactorLattice.Y}) | {threads} | {setup:F2} | {solve:F2} ({solve / 50:F3} per offset) | {solveCpu:F2} ({solveCpu / 50:F3} per offset) | {s.Iterations.Sum()} ({s.Iterations.Average():F1} per offset) | {s.MaxRelativeResidual:E1} | {s.DragRatio:F4} |"));
         }
         {
             var clock = Stopwatch.StartNew();

@@ -6,7 +6,8 @@ namespace SlotOpt.Numerics;
 /// <summary>
 /// Linear 2-D convolution of a field on an Nx x Ny lattice with a kernel of offsets |dx| &lt; Nx, |dy| &lt; Ny, by
 /// FFT on a lattice zero-padded to PaddedX x PaddedY (each the smallest 2^k or 3 x 2^k at least 2 N, so the circular
-/// convolution there is the linear one). The field sits in <see cref="Re"/> (and <see cref="Im"/> for a complex
+/// convolution there is the linear one; or lengths the caller gives, from N up: below 2 N - 1 the convolution is circular,
+/// or linear for a kernel even in that direction at 2 N - 2, see <see cref="Spectrum"/>). The field sits in <see cref="Re"/> (and <see cref="Im"/> for a complex
 /// field), row-major with row stride PaddedX, in rows 0..Ny-1 and columns 0..Nx-1; write that whole region before
 /// each convolution (the rest is never read), read the result from the same region.
 /// <para>
@@ -52,13 +53,21 @@ internal sealed class PaddedConvolution
     public long Bytes => 8L * (Re.Length + Im.Length + 2L * Threads * PaddedX + _stageCos.Length + _stageSin.Length + _thirdCos.Length + _thirdSin.Length
         + _colCos.Length + _colSin.Length) + 4L * (_rowPosition.Length + _rowFrequency.Length + _colFrequency.Length);
 
-    public PaddedConvolution(int nx, int ny, int threads = 1)
+    public PaddedConvolution(int nx, int ny, int threads = 1) : this(nx, ny, PaddedLength(nx), PaddedLength(ny), threads) { }
+
+    /// <summary>
+    /// A convolution on a lattice of the given lengths (each 2^k or 3 x 2^k, at least the input region's): below 2 n - 1 the
+    /// convolution is circular (the kernel's offsets wrap around), which serves multipliers that need not be exact (a preconditioner's).
+    /// </summary>
+    public PaddedConvolution(int nx, int ny, int paddedX, int paddedY, int threads)
     {
         if (nx < 1 || ny < 1) throw new ArgumentOutOfRangeException(nameof(nx), "the lattice needs at least one node each way");
         if (threads < 1) throw new ArgumentOutOfRangeException(nameof(threads), "at least one worker");
+        if (paddedX < Math.Max(nx, 2) || paddedY < Math.Max(ny, 2) || !Transformable(paddedX) || !Transformable(paddedY))
+            throw new ArgumentOutOfRangeException(nameof(paddedX), $"lattice {paddedX} x {paddedY}: each length must be 2^k or 3 x 2^k, at least 2 and the input region's {nx} x {ny}");
         Nx = nx; Ny = ny; Threads = threads;
-        PaddedX = PaddedLength(nx);
-        PaddedY = PaddedLength(ny);
+        PaddedX = paddedX;
+        PaddedY = paddedY;
         (_factorX, _blockX) = Factor(PaddedX);
         (_factorY, _blockY) = Factor(PaddedY);
         Re = new double[PaddedX * PaddedY];
@@ -77,6 +86,15 @@ internal sealed class PaddedConvolution
         _strip = Math.Min(width, PaddedX);
     }
 
+    /// <summary>The smallest 2^k or 3 x 2^k at least 2 n - 2 (and 2): linear for a kernel even in that direction (see <see cref="Spectrum"/>'s evenInY).</summary>
+    public static int EvenPaddedLength(int n)
+    {
+        int power = 2, three = 3;
+        while (power < 2 * n - 2) power <<= 1;
+        while (three < 2 * n - 2) three <<= 1;
+        return Math.Min(power, three);
+    }
+
     /// <summary>The smallest 2^k or 3 x 2^k at least 2 n (so at least 2 n - 1 for the linear convolution, and at least 2).</summary>
     public static int PaddedLength(int n)
     {
@@ -86,6 +104,8 @@ internal sealed class PaddedConvolution
         return Math.Min(power, three);
     }
 
+    private static bool Transformable(int n) => (n & (n - 1)) == 0 || (n % 3 == 0 && ((n / 3) & (n / 3 - 1)) == 0);
+
     /// <summary>(f, m) with n = f m, f = 1 for a power of two and 3 otherwise.</summary>
     private static (int Factor, int Block) Factor(int n) => (n & (n - 1)) == 0 ? (1, n) : (3, n / 3);
 
@@ -93,7 +113,9 @@ internal sealed class PaddedConvolution
     /// The kernel k(dx, dy), |dx| &lt;= kx &lt; Nx, |dy| &lt;= ky &lt; Ny, as the spectrum this convolution multiplies by (its
     /// DFT on the padded lattice in the row order of the transforms, scaled by 1 / (PaddedX PaddedY) for the inverse).
     /// </summary>
-    public KernelSpectrum Spectrum(int kx, int ky, Func<int, int, double> kernel)
+    /// <param name="evenInY">the kernel is even in dy (k(dx, -dy) = k(dx, dy)), and a lattice of only 2 ky rows is linear for it: the offsets
+    /// -ky and +ky share one row, which must hold k(dx, ky) once (output i and input p with i - p = +-ky take that row's value either way)</param>
+    public KernelSpectrum Spectrum(int kx, int ky, Func<int, int, double> kernel, bool evenInY = false)
     {
         if (kx >= Nx || ky >= Ny) throw new ArgumentOutOfRangeException(nameof(kx), "the kernel reaches beyond the lattice");
         int mx = PaddedX, my = PaddedY;
@@ -101,7 +123,8 @@ internal sealed class PaddedConvolution
         var im = new double[mx * my];
         for (int dy = -ky; dy <= ky; dy++)
             for (int dx = -kx; dx <= kx; dx++)
-                re[((dy + my) % my) * mx + (dx + mx) % mx] = kernel(dx, dy);
+                if (!(evenInY && dy < 0 && dy + my <= ky))   // with evenInY, -dy's row is +dy's own: written once
+                    re[((dy % my + my) % my) * mx + (dx % mx + mx) % mx] += kernel(dx, dy);   // wrapped offsets add up on a circular lattice (none wrap when padded)
         for (int j = 0; j < my; j++)
         {
             ForwardRow(re, im, j * mx, mx);
@@ -252,7 +275,7 @@ internal sealed class PaddedConvolution
         }
     }
 
-    /// <summary>Forward DFT of the row at re/im[o .. o + PaddedX), natural in, the transform's order out; entries from <paramref name="nonzero"/> on are taken as zero (nonzero &lt;= N/2 or = N).</summary>
+    /// <summary>Forward DFT of the row at re/im[o .. o + PaddedX), natural in, the transform's order out; entries from <paramref name="nonzero"/> on are taken as zero (any count; below N/2 the first stage is shortened).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ForwardRow(double[] re, double[] im, int o, int nonzero)
     {
@@ -274,10 +297,11 @@ internal sealed class PaddedConvolution
             Array.Clear(re, o + h + nonzero, h - nonzero); Array.Clear(im, o + h + nonzero, h - nonzero);
             h >>= 1;
         }
+        else if (nonzero < n) { Array.Clear(re, o + nonzero, n - nonzero); Array.Clear(im, o + nonzero, n - nonzero); }   // a circular lattice
         DifRowStages(re, im, o, n, h, c, s);
     }
 
-    /// <summary>Inverse DFT (unscaled) of the row at re/im[o ..), the transform's order in, natural out; only entries below <paramref name="needed"/> (&lt;= N/2) are computed in the last stage.</summary>
+    /// <summary>Inverse DFT (unscaled) of the row at re/im[o ..), the transform's order in, natural out; only entries below <paramref name="needed"/> are computed in the last stage when that is at most N/2.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void InverseRow(double[] re, double[] im, int o, int needed)
     {
@@ -290,8 +314,9 @@ internal sealed class PaddedConvolution
             return;
         }
         int last = n / 2;
+        if (needed > last) { DitRowStages(re, im, o, n, n, c, s); return; }   // a circular lattice reads back more than half
         DitRowStages(re, im, o, n, last, c, s);
-        DitRowHalf(re, im, o, o + last, Math.Min(needed, last), c, s, last);
+        DitRowHalf(re, im, o, o + last, needed, c, s, last);
     }
 
     /// <summary>Radix-2 decimation-in-frequency stages h, h/2, .., 1 over the sequence at [o, o + length).</summary>
@@ -491,7 +516,7 @@ internal sealed class PaddedConvolution
 
     /// <summary>
     /// Forward DFT along every column (first <paramref name="columns"/> of each row), decimation in frequency, output rows
-    /// in the transform's order; rows from <paramref name="nonzero"/> on are taken as zero (nonzero &lt;= PaddedY/2 or = PaddedY).
+    /// in the transform's order; rows from <paramref name="nonzero"/> on are taken as zero (any count; below PaddedY/2 the first stage is shortened).
     /// </summary>
     private void ForwardColumns(double[] re, double[] im, int columns, int nonzero) =>
         Split((columns + _strip - 1) / _strip, (from, to, _) => ForwardColumnStrips(re, im, columns, nonzero, from, to));
@@ -528,6 +553,8 @@ internal sealed class PaddedConvolution
                 }
                 h >>= 1;
             }
+            else
+                for (int t = nonzero; t < n; t++) { Array.Clear(re, t * mx + c0, width); Array.Clear(im, t * mx + c0, width); }   // a circular lattice
             DifColumnStages(re, im, c0, width, 0, n, h);
         }
     }
@@ -555,7 +582,7 @@ internal sealed class PaddedConvolution
                 DifButterfly(re, im, g * mx + c0, (g + 1) * mx + c0, width, c[0], -s[0]);
     }
 
-    /// <summary>Inverse DFT (unscaled) along every column from the transform's row order to natural rows; the last stage computes only rows below <paramref name="needed"/> (&lt;= PaddedY/2).</summary>
+    /// <summary>Inverse DFT (unscaled) along every column from the transform's row order to natural rows; the last stage computes only rows below <paramref name="needed"/> when that is at most PaddedY/2.</summary>
     private void InverseColumns(double[] re, double[] im, int columns, int needed) =>
         Split((columns + _strip - 1) / _strip, (from, to, _) => InverseColumnStrips(re, im, columns, needed, from, to));
 
@@ -576,8 +603,9 @@ internal sealed class PaddedConvolution
                 continue;
             }
             int last = n / 2;
+            if (needed > last) { DitColumnStages(re, im, c0, width, 0, n, n); continue; }   // a circular lattice reads back more than half
             DitColumnStages(re, im, c0, width, 0, n, last);
-            for (int t = 0; t < Math.Min(needed, last); t++)
+            for (int t = 0; t < needed; t++)
                 DitHalf(re, im, t * mx + c0, (t + last) * mx + c0, width, c[t], s[t]);
         }
     }

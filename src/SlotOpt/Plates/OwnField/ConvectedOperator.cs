@@ -7,7 +7,8 @@ namespace SlotOpt.Plates.OwnField;
 /// for the equations): real, as A and Dx R are (R's kernel is real and Dx a real difference), so the
 /// moving solve runs in real arithmetic with real FFTs, half the work of a complex one. Its preconditioner is
 /// the free-lattice factor Phi = A^/(A^ + c S^) (<see cref="ReactionOperator.CoupledFactor"/>, Hermitian in the
-/// wavenumber, so real on real fields) followed by one multigrid V-cycle of A.
+/// wavenumber, so real on real fields; applied on the smaller circular lattice <see cref="ReactionOperator.FactorConvolution"/>,
+/// about a third of the exact product's FFT area) followed by one multigrid V-cycle of A.
 /// </summary>
 internal sealed class ConvectedOperator
 {
