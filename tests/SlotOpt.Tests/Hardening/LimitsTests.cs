@@ -82,7 +82,7 @@ public sealed class LimitsTests : IDisposable
     }
 
     // 0.5 mm cells: the memory model's estimate (1.25 x (runtime + 320 k cells x model, solve and both GMRES sets + 2.1 M padded cells x the
-    // operator's 64 B)) is about 1.2 GB since the flexible GMRES keeps its preconditioned vectors (printed in GB, not MB), over
+    // operator's 72 B)) is over 1 GB since the flexible GMRES keeps its preconditioned vectors (printed in GB, not MB), over
     // a 300 MB limit: refused before the grid is built (exit 5, the estimate and the limit in the message), the process never near the limit.
     [Fact]
     [Trait("Category", "Slow")]

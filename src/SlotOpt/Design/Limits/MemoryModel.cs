@@ -55,11 +55,13 @@ public static class MemoryModel
 
     /// <summary>
     /// The own-field operator per cell of its zero-padded lattice, 16 B (a real and an imaginary double) for each of: the
-    /// transform buffer, the reaction spectrum, and for a moving source its x-difference and the preconditioner's spectral
-    /// factor. Measured with the GMRES basis below (before the basis was allocated as used): `slotopt plate` on 80 k and 320 k
+    /// transform buffer and the reaction spectrum, and for a moving source the preconditioner's spectral factor with its own
+    /// buffer (on a circular lattice at most half the padded one: together at most 1 lattice) and the x-difference's spectrum,
+    /// which on a lattice of 2n - 2 rows (ReactionOperator's even-kernel product, at most 3/4 of the padded one) has its own buffer
+    /// too (together at most 1.5): 4.5 lattices at most. Measured with the GMRES basis below (before the basis was allocated as used): `slotopt plate` on 80 k and 320 k
     /// cells (padded 0.5 M and 2.1 M) peaks at 147 MB and 398 MB, 1.05 kB per added cell; this model is above that, as it counts the whole GMRES basis.
     /// </summary>
-    public const double OwnFieldBytesPerPaddedCell = 4 * 16;
+    public const double OwnFieldBytesPerPaddedCell = 4.5 * 16;
 
     /// <summary>
     /// The own-field solve's GMRES vectors per unknown, at most restart + 1 basis vectors and restart preconditioned ones
