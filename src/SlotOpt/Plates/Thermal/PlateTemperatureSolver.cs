@@ -190,7 +190,7 @@ public static class PlateTemperatureSolver
                 if (tight) change = Math.Max(change, Math.Abs(value - previous[n]));
                 weighted += area[n] * value;
                 if (radiates) radiatedNow += area[n] * SurfaceRadiation.HeatFluxWPerM2(emissivity, ambient + value, ambient);
-                edgeNow += network.ConductanceToHeld(u) * value;
+                if (anyHeld) edgeNow += network.ConductanceToHeld(u) * value;
             }
             double meanRise = weighted / totalArea;
             // h off by a fraction e moves the rise by at most e h / (h + q_r'(T_inf)) of the largest rise: d rise = -A^-1 (2 A rise) dh, and the

@@ -1,12 +1,14 @@
 using System.Runtime.CompilerServices;
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Grid;
 
 namespace SlotOpt.Plates.Thermal;
 
 /// <summary>
 /// Preconditioned conjugate gradients (R. Barrett et al., "Templates for the Solution of Linear Systems", SIAM, 1994, section 2.3.1,
-/// Figure 2.5) for the <see cref="ThermalOperator"/> on the node lattice, with the multigrid through its public preconditioner
-/// (<see cref="IPreconditioner.Apply"/> on one unknown per node). The vectors live across the steps of the temperature solver's
+/// Figure 2.5) for the <see cref="ThermalOperator"/> on the node lattice, with the multigrid cycling on the lattice vectors
+/// themselves (<see cref="StructuredMultigrid.ApplyOnLattice"/>: one unknown per node, no copy in or out, r . z from the pass that
+/// writes z). The vectors live across the steps of the temperature solver's
 /// iteration, whose steps change only the diagonal and the right-hand side: the solution <see cref="X"/> and its residual
 /// <see cref="R"/> (= <see cref="B"/> - A X) stay, so a step starts warm from the last rise with the residual updated for the change
 /// (<see cref="Update"/>, one pass without the stencil) instead of recomputed. Operator and p . Ap share one pass, as do the updates
@@ -65,7 +67,7 @@ public sealed class ThermalConjugateGradient
 
     /// <summary>Solves from X and R (R = B - A X on entry) until |R| &lt;= criterion |B|; see the type's summary for <paramref name="confirm"/>.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public bool TrySolve(IPreconditioner m, ConvergenceCriterion criterion, bool confirm, out SolveReport report)
+    public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report)
     {
         var (start, normB) = Norms();
         var x = X; var r = R; var z = _z; var p = _p; var q = _q;
@@ -77,7 +79,6 @@ public sealed class ThermalConjugateGradient
             return true;
         }
         if (!double.IsFinite(normB) || !double.IsFinite(start)) { report = new SolveReport(SolveStatus.NonFinite, 0, double.NaN); return false; }
-        int pad = _a.Pad, nodes = _a.DiagonalWPerK.Length;
         double target = criterion.RelativeResidual * normB;
         double rn = start;
         int iterations = 0;
@@ -96,9 +97,8 @@ public sealed class ThermalConjugateGradient
                 return false;
             }
             // (re)start: p = z = M^-1 r
-            m.Apply(r.AsSpan(pad, nodes), z.AsSpan(pad, nodes));
+            double rz = m.ApplyOnLattice(r, z);
             Array.Copy(z, p, p.Length);
-            double rz = Dot(r, z);
             double pq = _a.Multiply(p, q);
             while (iterations < criterion.MaxIterations)
             {
@@ -114,23 +114,12 @@ public sealed class ThermalConjugateGradient
                     return false;
                 }
                 if (rn <= target) break;
-                m.Apply(r.AsSpan(pad, nodes), z.AsSpan(pad, nodes));
-                double rzNew = Dot(r, z);
+                double rzNew = m.ApplyOnLattice(r, z);
                 double beta = rzNew / rz;
                 rz = rzNew;
                 pq = _a.MultiplyNextDirection(z, beta, p, q);
             }
         }
-    }
-
-    /// <summary>a . b in two interleaved partial sums (so the additions do not all wait on one another).</summary>
-    private static double Dot(double[] a, double[] b)
-    {
-        double s0 = 0, s1 = 0;
-        int i = 0;
-        for (; i + 1 < a.Length; i += 2) { s0 += a[i] * b[i]; s1 += a[i + 1] * b[i + 1]; }
-        if (i < a.Length) s0 += a[i] * b[i];
-        return s0 + s1;
     }
 
     /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2.</summary>
