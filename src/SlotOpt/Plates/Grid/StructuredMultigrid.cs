@@ -502,33 +502,32 @@ public sealed class StructuredMultigrid : IPreconditioner
     }
 
     /// <summary>
-    /// z = M^-1 r for a multigrid of <see cref="ForNodeStencil"/> whose every lattice node is an unknown (node p unknown p), with r and z
-    /// on the padded lattice itself (node p at Pad + p, zeros round it: the finest level's layout): the cycle reads r where it lies
-    /// and only z is written, so the same numbers as <see cref="Apply"/> on the nodes without its copy in and out. Returns r . z
-    /// (conjugate gradients' rho, from the pass that writes z; summed in two partial sums by the parity of the lattice index).
+    /// z = M^-1 r for a multigrid of <see cref="ForNodeStencil"/> whose every lattice node is an unknown (node p unknown p), with r on
+    /// the padded lattice itself (node p at Pad + p, zeros round it: the finest level's layout), so the cycle reads r where it lies.
+    /// z is not copied out: it is <paramref name="zScale"/> times <paramref name="z"/>, the finest level's single-precision iterate in
+    /// the same layout (zeros round it), valid until the next cycle; (double)z[i] * zScale is the number <see cref="Apply"/> gives for
+    /// node i - Pad. <paramref name="largest"/> is max |r| over the nodes (the caller's pass over r has it); it only picks the power of
+    /// two the cycle scales r by. Returns r . z (conjugate gradients' rho; two partial sums by the parity of the lattice index).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    internal double ApplyOnLattice(double[] r, double[] z)
+    internal double ApplyOnLattice(double[] r, double largest, out float[] z, out double zScale)
     {
         var top = _levels[0];
         int o = top.Pad, n = top.Nodes;
         if (_mergedUnknown.Length != 0 || _nodeUnknown.Length != n) throw new InvalidOperationException("the lattice apply needs one unknown per node and no merged regions");
-        if (r.Length != top.X.Length || z.Length != top.X.Length) throw new ArgumentException("one value per node of the padded lattice");
-        double largest = 0;
-        for (int i = o; i < o + n; i++) largest = Math.Max(largest, Math.Abs(r[i]));
-        if (largest == 0) { Array.Clear(z); return 0; }
+        if (r.Length != top.X.Length) throw new ArgumentException("one value per node of the padded lattice", nameof(r));
+        z = top.X;
+        if (largest == 0) { Array.Clear(z); zScale = 0; return 0; }
         double scale = double.IsFinite(largest) ? Math.ScaleB(1, -Math.ILogB(largest)) : 1;   // as Apply: a NaN or infinity goes through to z
         Cycle(r, scale);
-        ref float x = ref MemoryMarshal.GetArrayDataReference(top.X);
+        zScale = _stencilScale / scale;
+        ref float x = ref MemoryMarshal.GetArrayDataReference(z);
         ref double rr = ref MemoryMarshal.GetArrayDataReference(r);
-        ref double zr = ref MemoryMarshal.GetArrayDataReference(z);
-        double back = _stencilScale / scale;
         double s0 = 0, s1 = 0;
         for (int i = o; i < o + n; i++)
         {
-            double v = Unsafe.Add(ref x, i) * back;
-            Unsafe.Add(ref zr, i) = v;
-            if ((i & 1) == 0) s0 += Unsafe.Add(ref rr, i) * v; else s1 += Unsafe.Add(ref rr, i) * v;
+            double term = Unsafe.Add(ref rr, i) * (Unsafe.Add(ref x, i) * zScale);
+            if ((i & 1) == 0) s0 += term; else s1 += term;
         }
         return s0 + s1;
     }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using MathNet.Numerics.RootFinding;
 using SlotOpt.Materials;
 using SlotOpt.Numerics;
@@ -81,6 +82,7 @@ public static class PlateTemperatureSolver
 
     /// <param name="start">A temperature of a similar plate on the same grid (another thickness or material, another loss): its
     /// rise, scaled by the ratio of the heat inputs, starts the iteration. Only the number of iterations depends on it.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
     public static PlateTemperature Solve(ThermalNetwork network, double[] cellLossW, PlateCooling cooling, PlateTemperature? start = null)
     {
         var l = network.Lattice;

@@ -20,7 +20,7 @@ public sealed class ThermalConjugateGradient
 {
     private readonly ThermalOperator _a;
     private readonly int _pad;
-    private readonly double[] _diagonal, _x, _r, _b, _z, _p, _q;
+    private readonly double[] _diagonal, _x, _r, _b, _p, _q;
 
     public ThermalConjugateGradient(ThermalOperator a)
     {
@@ -31,7 +31,6 @@ public sealed class ThermalConjugateGradient
         _x = new double[length];
         _r = new double[length];
         _b = new double[length];
-        _z = new double[length];
         _p = new double[length];
         _q = new double[length];
     }
@@ -58,6 +57,7 @@ public sealed class ThermalConjugateGradient
     }
 
     /// <summary>|R| and |B|.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
     public (double Residual, double RightHandSide) Norms()
     {
         double rr = 0, bb = 0;
@@ -70,7 +70,7 @@ public sealed class ThermalConjugateGradient
     public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report)
     {
         var (start, normB) = Norms();
-        var x = X; var r = R; var z = _z; var p = _p; var q = _q;
+        var x = X; var r = R; var p = _p; var q = _q;
         if (normB == 0)
         {
             Array.Clear(x);
@@ -97,8 +97,8 @@ public sealed class ThermalConjugateGradient
                 return false;
             }
             // (re)start: p = z = M^-1 r
-            double rz = m.ApplyOnLattice(r, z);
-            Array.Copy(z, p, p.Length);
+            double rz = m.ApplyOnLattice(r, LargestMagnitude(r), out var z, out double zScale);
+            for (int i = 0; i < p.Length; i++) p[i] = z[i] * zScale;
             double pq = _a.Multiply(p, q);
             while (iterations < criterion.MaxIterations)
             {
@@ -106,7 +106,8 @@ public sealed class ThermalConjugateGradient
                 if (!double.IsFinite(pq) || !double.IsFinite(rz)) { report = new SolveReport(SolveStatus.NonFinite, iterations, rn / normB); return false; }
                 if (!(pq > 0)) { report = new SolveReport(SolveStatus.NotPositiveDefinite, iterations, rn / normB); return false; }
                 double alpha = rz / pq;
-                rn = Math.Sqrt(UpdateSolutionAndResidual(x, r, p, q, alpha));
+                (double squared, double largest) = UpdateSolutionAndResidual(x, r, p, q, alpha);
+                rn = Math.Sqrt(squared);
                 iterations++;
                 if (!double.IsFinite(rn) || rn > criterion.DivergenceFactor * Math.Max(start, normB))
                 {
@@ -114,26 +115,35 @@ public sealed class ThermalConjugateGradient
                     return false;
                 }
                 if (rn <= target) break;
-                double rzNew = m.ApplyOnLattice(r, z);
+                double rzNew = m.ApplyOnLattice(r, largest, out z, out zScale);
                 double beta = rzNew / rz;
                 rz = rzNew;
-                pq = _a.MultiplyNextDirection(z, beta, p, q);
+                pq = _a.MultiplyNextDirection(z, zScale, beta, p, q);
             }
         }
     }
 
-    /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2.</summary>
+    /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2 and max |r| (the multigrid's scaling of r).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static double UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha)
+    private static (double Squared, double Largest) UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha)
     {
-        double s0 = 0, s1 = 0;
+        double s0 = 0, s1 = 0, largest = 0;
         for (int i = 0; i < x.Length; i++)
         {
             x[i] += alpha * p[i];
             double v = r[i] - alpha * q[i];
             r[i] = v;
             if ((i & 1) == 0) s0 += v * v; else s1 += v * v;
+            largest = Math.Max(largest, Math.Abs(v));
         }
-        return s0 + s1;
+        return (s0 + s1, largest);
+    }
+
+    /// <summary>max |v|.</summary>
+    private static double LargestMagnitude(double[] v)
+    {
+        double largest = 0;
+        foreach (double value in v) largest = Math.Max(largest, Math.Abs(value));
+        return largest;
     }
 }
