@@ -65,11 +65,12 @@ public sealed class ThermalConjugateGradient
         return (Math.Sqrt(rr), Math.Sqrt(bb));
     }
 
-    /// <summary>Solves from X and R (R = B - A X on entry) until |R| &lt;= criterion |B|; see the type's summary for <paramref name="confirm"/>.</summary>
+    /// <summary>Solves from X and R (R = B - A X on entry) until |R| &lt;= criterion |B|; see the type's summary for <paramref name="confirm"/>.
+    /// <paramref name="norms"/>: |R| and |B| as <see cref="Norms"/> gives them, when the caller's pass has them (else computed here).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report)
+    public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report, (double Residual, double RightHandSide)? norms = null)
     {
-        var (start, normB) = Norms();
+        var (start, normB) = norms ?? Norms();
         var x = X; var r = R; var p = _p; var q = _q;
         if (normB == 0)
         {
