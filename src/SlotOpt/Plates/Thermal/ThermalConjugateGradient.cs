@@ -7,8 +7,8 @@ namespace SlotOpt.Plates.Thermal;
 /// <summary>
 /// Preconditioned conjugate gradients (R. Barrett et al., "Templates for the Solution of Linear Systems", SIAM, 1994, section 2.3.1,
 /// Figure 2.5) for the <see cref="ThermalOperator"/> on the node lattice, with the multigrid cycling on the lattice vectors
-/// themselves (<see cref="StructuredMultigrid.ApplyOnLattice"/>: one unknown per node, no copy in or out, r . z from the pass that
-/// writes z). The vectors live across the steps of the temperature solver's
+/// themselves (<see cref="StructuredMultigrid.ApplyOnLattice"/>: one unknown per node, r read in place, z left in the cycle's
+/// single-precision iterate with its scale and read from there, r . z from the cycle's last pass). The vectors live across the steps of the temperature solver's
 /// iteration, whose steps change only the diagonal and the right-hand side: the solution <see cref="X"/> and its residual
 /// <see cref="R"/> (= <see cref="B"/> - A X) stay, so a step starts warm from the last rise with the residual updated for the change
 /// (<see cref="Update"/>, one pass without the stencil) instead of recomputed. Operator and p . Ap share one pass, as do the updates
