@@ -36,7 +36,8 @@ public static class MemoryModel
     /// With a thermal section, what each slot geometry keeps for the screening of its thicknesses and materials: the thermal network with
     /// its cached multigrid (ThermalScreen; the kept temperatures reach them). Measured 2026-12-02 on the tie-plate demo's 21.6 k-cell grid
     /// (ThermalMemoryTests, the managed heap after a full collection): 148 B per cell; 152 B since the multigrid takes one unknown per node (its
-    /// node-to-unknown map, 4 B a node, kept with it; 2 Dec 2026 23:12 UTC).
+    /// node-to-unknown map, 4 B a node, kept with it; 2 Dec 2026 23:12 UTC); 127 B since the V-cycle runs in place on the conjugate
+    /// gradients' vectors (the multigrid no longer makes and keeps a right-hand side of its own; 3 Dec 2026 07:07 UTC).
     /// </summary>
     public const double ThermalKeptBytesPerCell = 160;
 
@@ -46,7 +47,8 @@ public static class MemoryModel
     /// <summary>
     /// One thermal solve at work: everything its first solve on a geometry allocates (network, multigrid, the iteration's vectors, the
     /// answer), a bound on what it holds at once. Measured 307 B per cell (ThermalMemoryTests, GC.GetTotalAllocatedBytes); 267 B since the
-    /// conjugate gradients keep their vectors across the iteration's steps (2 Dec 2026 23:12 UTC). End to end,
+    /// conjugate gradients keep their vectors across the iteration's steps (2 Dec 2026 23:12 UTC); 246 B since the V-cycle runs in place
+    /// (no z vector, no copy of the residual; 3 Dec 2026 07:07 UTC). End to end,
     /// `slotopt run` on the tie-plate demo with --out (13 geometries x 6 thicknesses and materials, two threads, 2026-12-02): the thermal
     /// section raised the peak resident size from 261 to 411 MB at 21.6 k cells and from 592 to 856 MB at 86.4 k cells, 1.8 kB per added
     /// cell, within this model's 13 x (160 + 6 x 9) + 2 x 320 = 3.4 kB.

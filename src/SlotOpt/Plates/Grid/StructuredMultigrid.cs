@@ -141,12 +141,16 @@ public sealed class StructuredMultigrid : IPreconditioner
         if (diagonal.Length == 0) throw SheetOperator.NoFreeNode();
         var fine = new StencilLevel(nodesX, nodesY, ninePoint: false);
         var c = fine.Centre; var w = fine.West; var s = fine.South;
+        var rowSum = new double[nodes];   // the diagonal part no coupling carries, as the operator's outside weight
+        bool anyDecoupled = false;
+        // one pass: each row's couplings from the inputs, its east and north ones read ahead as they will be stored
         for (int p = 0; p < nodes; p++)
         {
             int u = nodeUnknown[p];
-            if (u < 0) continue;   // decoupled; its diagonal below
-            c[p] = diagonal[u];
-            if (!(c[p] > 0)) throw new ArgumentException($"unknown {u} has no positive diagonal", nameof(diagonal));
+            if (u < 0) { anyDecoupled = true; continue; }   // decoupled; its diagonal below
+            double centre = diagonal[u];
+            if (!(centre > 0)) throw new ArgumentException($"unknown {u} has no positive diagonal", nameof(diagonal));
+            c[p] = centre;
             if (westConductance[p] != 0)
             {
                 if (p % nodesX == 0 || nodeUnknown[p - 1] < 0) throw new ArgumentException($"unknown {u} couples west to a node without an unknown", nameof(westConductance));
@@ -157,11 +161,16 @@ public sealed class StructuredMultigrid : IPreconditioner
                 if (p < nodesX || nodeUnknown[p - nodesX] < 0) throw new ArgumentException($"unknown {u} couples south to a node without an unknown", nameof(southConductance));
                 s[p] = -conductanceScale * southConductance[p];
             }
+            int e = p + 1, n = p + nodesX;
+            double east = e < nodes && nodeUnknown[e] >= 0 && westConductance[e] != 0 ? -conductanceScale * westConductance[e] : 0;
+            double north = n < nodes && nodeUnknown[n] >= 0 && southConductance[n] != 0 ? -conductanceScale * southConductance[n] : 0;
+            rowSum[p] = centre + w[p] + east + s[p] + north;
         }
-        double largestDiagonal = diagonal.Max();
-        for (int p = 0; p < nodes; p++) if (nodeUnknown[p] < 0) c[p] = largestDiagonal;
-        var rowSum = new double[nodes];   // the diagonal part no coupling carries, as the operator's outside weight
-        for (int p = 0; p < nodes; p++) if (nodeUnknown[p] >= 0) rowSum[p] = c[p] + w[p] + w[p + 1] + s[p] + s[p + nodesX];
+        if (anyDecoupled)
+        {
+            double largestDiagonal = diagonal.Max();
+            for (int p = 0; p < nodes; p++) if (nodeUnknown[p] < 0) c[p] = largestDiagonal;
+        }
         var (levels, scale, coarsest, columnsFirst) = Hierarchy(fine);
         var op = new LatticeSheetOperator(fine, rowSum, diagonal.Length, nodeUnknown, [], [0], []);
         return new StructuredMultigrid(levels, scale, coarsest, columnsFirst, nodeUnknown, [], [0], [], op);
@@ -511,5 +520,36 @@ public sealed class StructuredMultigrid : IPreconditioner
                 if ((fnx & 1) == 1) { int k = k0 + pairs; xf[row + fnx - 1] += yl[k] * xc[co + k] + yh[k] * xc[co + k + ncx]; }
             }
         }
+    }
+
+    /// <summary>
+    /// z = M^-1 r for a multigrid of <see cref="ForNodeStencil"/> whose every lattice node is an unknown (node p unknown p), with r on
+    /// the padded lattice itself (node p at Pad + p, zeros round it: the finest level's layout), so the cycle reads r where it lies.
+    /// z is not copied out: it is <paramref name="zScale"/> times <paramref name="z"/>, the finest level's single-precision iterate in
+    /// the same layout (zeros round it), valid until the next cycle; (double)z[i] * zScale is the number <see cref="Apply"/> gives for
+    /// node i - Pad. <paramref name="largest"/> is max |r| over the nodes (the caller's pass over r has it); it only picks the power of
+    /// two the cycle scales r by. Returns r . z (conjugate gradients' rho; two partial sums by the parity of the lattice index).
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    internal double ApplyOnLattice(double[] r, double largest, out float[] z, out double zScale)
+    {
+        var top = _levels[0];
+        int o = top.Pad, n = top.Nodes;
+        if (_mergedUnknown.Length != 0 || _nodeUnknown.Length != n) throw new InvalidOperationException("the lattice apply needs one unknown per node and no merged regions");
+        if (r.Length != top.X.Length) throw new ArgumentException("one value per node of the padded lattice", nameof(r));
+        z = top.X;
+        if (largest == 0) { Array.Clear(z); zScale = 0; return 0; }
+        double scale = double.IsFinite(largest) ? Math.ScaleB(1, -Math.ILogB(largest)) : 1;   // as Apply: a NaN or infinity goes through to z
+        Cycle(r, scale);
+        zScale = _stencilScale / scale;
+        ref float x = ref MemoryMarshal.GetArrayDataReference(z);
+        ref double rr = ref MemoryMarshal.GetArrayDataReference(r);
+        double s0 = 0, s1 = 0;
+        for (int i = o; i < o + n; i++)
+        {
+            double term = Unsafe.Add(ref rr, i) * (Unsafe.Add(ref x, i) * zScale);
+            if ((i & 1) == 0) s0 += term; else s1 += term;
+        }
+        return s0 + s1;
     }
 }

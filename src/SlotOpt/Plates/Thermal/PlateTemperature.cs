@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using SlotOpt.Plates.Grid;
 
 namespace SlotOpt.Plates.Thermal;
@@ -8,6 +9,7 @@ namespace SlotOpt.Plates.Thermal;
 /// </summary>
 public sealed class PlateTemperature
 {
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
     internal PlateTemperature(ThermalNetwork network, double[] nodeTemperatureK, double ambientK, double convectionCoefficientWPerM2K,
         double heatInW, double convectedW, double radiatedW, double edgeW, int iterations, int linearIterations, double relativeResidual)
     {

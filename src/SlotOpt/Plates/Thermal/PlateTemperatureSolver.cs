@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Runtime.CompilerServices;
 using MathNet.Numerics.RootFinding;
 using SlotOpt.Materials;
 using SlotOpt.Numerics;
@@ -81,6 +82,7 @@ public static class PlateTemperatureSolver
 
     /// <param name="start">A temperature of a similar plate on the same grid (another thickness or material, another loss): its
     /// rise, scaled by the ratio of the heat inputs, starts the iteration. Only the number of iterations depends on it.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
     public static PlateTemperature Solve(ThermalNetwork network, double[] cellLossW, PlateCooling cooling, PlateTemperature? start = null)
     {
         var l = network.Lattice;
@@ -141,7 +143,7 @@ public static class PlateTemperatureSolver
             // the first steps from a cold start only point the way when more steps follow; only a tight step can end the iteration
             bool tight = !iterates || warm || iterations > EarlyCriteria.Count;
             // the step's diagonal and right-hand side by node; from the second step on, the residual follows the change (cg.Update)
-            double sumH = 0;
+            double sumH = 0, residualSquared = 0, rightHandSideSquared = 0;   // |r|^2 and |b|^2 after the update (nodes in order, as cg.Norms)
             for (int n = 0; n < map.Length; n++)
             {
                 if (map[n] < 0) continue;
@@ -160,7 +162,12 @@ public static class PlateTemperatureSolver
                 sumH += h;
                 double diagonal = network.DiagonalAt(n, h);
                 if (first) { op.DiagonalWPerK[n] = diagonal; cg.B[q] = heat; }
-                else cg.Update(n, diagonal, heat);
+                else
+                {
+                    cg.Update(n, diagonal, heat);
+                    residualSquared += cg.R[q] * cg.R[q];
+                    rightHandSideSquared += cg.B[q] * cg.B[q];
+                }
             }
             if (first) cg.StartResidual();
             var multigrid = network.Preconditioner(op, sumH / unknowns);   // kept while h / (k t) moves little: an SPD preconditioner either way
@@ -169,12 +176,12 @@ public static class PlateTemperatureSolver
             var criterion = tight ? LinearCriterion : EarlyCriteria[iterations - 1];
             if (!first)
             {
-                var (startResidual, normB) = cg.Norms();
+                double startResidual = Math.Sqrt(residualSquared), normB = Math.Sqrt(rightHandSideSquared);
                 double target = Math.Max(StepReduction * startResidual / normB, RoundingResidual);
                 if (target < criterion.RelativeResidual) criterion = criterion with { RelativeResidual = target };
             }
             // only a tight step can end the iteration: it confirms its residual against a fresh b - A x
-            if (!cg.TrySolve(multigrid, criterion, confirm: tight, out var report))
+            if (!cg.TrySolve(multigrid, criterion, confirm: tight, out var report, first ? null : (Math.Sqrt(residualSquared), Math.Sqrt(rightHandSideSquared))))
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
             residual = report.RelativeResidual;
@@ -190,7 +197,7 @@ public static class PlateTemperatureSolver
                 if (tight) change = Math.Max(change, Math.Abs(value - previous[n]));
                 weighted += area[n] * value;
                 if (radiates) radiatedNow += area[n] * SurfaceRadiation.HeatFluxWPerM2(emissivity, ambient + value, ambient);
-                edgeNow += network.ConductanceToHeld(u) * value;
+                if (anyHeld) edgeNow += network.ConductanceToHeld(u) * value;
             }
             double meanRise = weighted / totalArea;
             // h off by a fraction e moves the rise by at most e h / (h + q_r'(T_inf)) of the largest rise: d rise = -A^-1 (2 A rise) dh, and the

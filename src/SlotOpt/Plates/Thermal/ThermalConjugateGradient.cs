@@ -1,12 +1,14 @@
 using System.Runtime.CompilerServices;
 using SlotOpt.Numerics;
+using SlotOpt.Plates.Grid;
 
 namespace SlotOpt.Plates.Thermal;
 
 /// <summary>
 /// Preconditioned conjugate gradients (R. Barrett et al., "Templates for the Solution of Linear Systems", SIAM, 1994, section 2.3.1,
-/// Figure 2.5) for the <see cref="ThermalOperator"/> on the node lattice, with the multigrid through its public preconditioner
-/// (<see cref="IPreconditioner.Apply"/> on one unknown per node). The vectors live across the steps of the temperature solver's
+/// Figure 2.5) for the <see cref="ThermalOperator"/> on the node lattice, with the multigrid cycling on the lattice vectors
+/// themselves (<see cref="StructuredMultigrid.ApplyOnLattice"/>: one unknown per node, r read in place, z left in the cycle's
+/// single-precision iterate with its scale and read from there, r . z from the cycle's last pass). The vectors live across the steps of the temperature solver's
 /// iteration, whose steps change only the diagonal and the right-hand side: the solution <see cref="X"/> and its residual
 /// <see cref="R"/> (= <see cref="B"/> - A X) stay, so a step starts warm from the last rise with the residual updated for the change
 /// (<see cref="Update"/>, one pass without the stencil) instead of recomputed. Operator and p . Ap share one pass, as do the updates
@@ -18,7 +20,7 @@ public sealed class ThermalConjugateGradient
 {
     private readonly ThermalOperator _a;
     private readonly int _pad;
-    private readonly double[] _diagonal, _x, _r, _b, _z, _p, _q;
+    private readonly double[] _diagonal, _x, _r, _b, _p, _q;
 
     public ThermalConjugateGradient(ThermalOperator a)
     {
@@ -29,7 +31,6 @@ public sealed class ThermalConjugateGradient
         _x = new double[length];
         _r = new double[length];
         _b = new double[length];
-        _z = new double[length];
         _p = new double[length];
         _q = new double[length];
     }
@@ -56,6 +57,7 @@ public sealed class ThermalConjugateGradient
     }
 
     /// <summary>|R| and |B|.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
     public (double Residual, double RightHandSide) Norms()
     {
         double rr = 0, bb = 0;
@@ -63,12 +65,13 @@ public sealed class ThermalConjugateGradient
         return (Math.Sqrt(rr), Math.Sqrt(bb));
     }
 
-    /// <summary>Solves from X and R (R = B - A X on entry) until |R| &lt;= criterion |B|; see the type's summary for <paramref name="confirm"/>.</summary>
+    /// <summary>Solves from X and R (R = B - A X on entry) until |R| &lt;= criterion |B|; see the type's summary for <paramref name="confirm"/>.
+    /// <paramref name="norms"/>: |R| and |B| as <see cref="Norms"/> gives them, when the caller's pass has them (else computed here).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public bool TrySolve(IPreconditioner m, ConvergenceCriterion criterion, bool confirm, out SolveReport report)
+    public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report, (double Residual, double RightHandSide)? norms = null)
     {
-        var (start, normB) = Norms();
-        var x = X; var r = R; var z = _z; var p = _p; var q = _q;
+        var (start, normB) = norms ?? Norms();
+        var x = X; var r = R; var p = _p; var q = _q;
         if (normB == 0)
         {
             Array.Clear(x);
@@ -77,7 +80,6 @@ public sealed class ThermalConjugateGradient
             return true;
         }
         if (!double.IsFinite(normB) || !double.IsFinite(start)) { report = new SolveReport(SolveStatus.NonFinite, 0, double.NaN); return false; }
-        int pad = _a.Pad, nodes = _a.DiagonalWPerK.Length;
         double target = criterion.RelativeResidual * normB;
         double rn = start;
         int iterations = 0;
@@ -96,9 +98,8 @@ public sealed class ThermalConjugateGradient
                 return false;
             }
             // (re)start: p = z = M^-1 r
-            m.Apply(r.AsSpan(pad, nodes), z.AsSpan(pad, nodes));
-            Array.Copy(z, p, p.Length);
-            double rz = Dot(r, z);
+            double rz = m.ApplyOnLattice(r, LargestMagnitude(r), out var z, out double zScale);
+            for (int i = 0; i < p.Length; i++) p[i] = z[i] * zScale;
             double pq = _a.Multiply(p, q);
             while (iterations < criterion.MaxIterations)
             {
@@ -106,7 +107,8 @@ public sealed class ThermalConjugateGradient
                 if (!double.IsFinite(pq) || !double.IsFinite(rz)) { report = new SolveReport(SolveStatus.NonFinite, iterations, rn / normB); return false; }
                 if (!(pq > 0)) { report = new SolveReport(SolveStatus.NotPositiveDefinite, iterations, rn / normB); return false; }
                 double alpha = rz / pq;
-                rn = Math.Sqrt(UpdateSolutionAndResidual(x, r, p, q, alpha));
+                (double squared, double largest) = UpdateSolutionAndResidual(x, r, p, q, alpha);
+                rn = Math.Sqrt(squared);
                 iterations++;
                 if (!double.IsFinite(rn) || rn > criterion.DivergenceFactor * Math.Max(start, normB))
                 {
@@ -114,37 +116,35 @@ public sealed class ThermalConjugateGradient
                     return false;
                 }
                 if (rn <= target) break;
-                m.Apply(r.AsSpan(pad, nodes), z.AsSpan(pad, nodes));
-                double rzNew = Dot(r, z);
+                double rzNew = m.ApplyOnLattice(r, largest, out z, out zScale);
                 double beta = rzNew / rz;
                 rz = rzNew;
-                pq = _a.MultiplyNextDirection(z, beta, p, q);
+                pq = _a.MultiplyNextDirection(z, zScale, beta, p, q);
             }
         }
     }
 
-    /// <summary>a . b in two interleaved partial sums (so the additions do not all wait on one another).</summary>
-    private static double Dot(double[] a, double[] b)
-    {
-        double s0 = 0, s1 = 0;
-        int i = 0;
-        for (; i + 1 < a.Length; i += 2) { s0 += a[i] * b[i]; s1 += a[i + 1] * b[i + 1]; }
-        if (i < a.Length) s0 += a[i] * b[i];
-        return s0 + s1;
-    }
-
-    /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2.</summary>
+    /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2 and max |r| (the multigrid's scaling of r).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static double UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha)
+    private static (double Squared, double Largest) UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha)
     {
-        double s0 = 0, s1 = 0;
+        double s0 = 0, s1 = 0, largest = 0;
         for (int i = 0; i < x.Length; i++)
         {
             x[i] += alpha * p[i];
             double v = r[i] - alpha * q[i];
             r[i] = v;
             if ((i & 1) == 0) s0 += v * v; else s1 += v * v;
+            largest = Math.Max(largest, Math.Abs(v));
         }
-        return s0 + s1;
+        return (s0 + s1, largest);
+    }
+
+    /// <summary>max |v|.</summary>
+    private static double LargestMagnitude(double[] v)
+    {
+        double largest = 0;
+        foreach (double value in v) largest = Math.Max(largest, Math.Abs(value));
+        return largest;
     }
 }

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Grid;
 
@@ -71,6 +72,7 @@ public sealed class ThermalNetwork
         return kt;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
     public static ThermalNetwork Assemble(PlateGrid grid, double thermalConductivityWPerMK, double thicknessM, ThermalEdge edges)
     {
         var l = grid.Lattice;
@@ -221,6 +223,7 @@ public sealed class ThermalNetwork
     }
 
     /// <summary>Heat per node from a loss per cell: a quarter of each cell's loss to each of its corners.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
     public double[] NodeHeat(double[] cellLossW)
     {
         var l = Lattice;

@@ -17,6 +17,7 @@ public sealed class ThermalOperator
 {
     private readonly ThermalNetwork _network;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
     public ThermalOperator(ThermalNetwork network)
     {
         _network = network;
@@ -50,19 +51,21 @@ public sealed class ThermalOperator
     /// <summary>r = b - A x on the padded lattice; returns r . r.</summary>
     public double Residual(double[] b, double[] x, double[] r) => Apply(b, x, r, residual: true);
 
-    /// <summary>Conjugate gradients' next direction and its product in one pass: p = z + beta p, q = A p; returns p . q. The pass updates
+    /// <summary>Conjugate gradients' next direction and its product in one pass: p = z + beta p, q = A p, with z = zScale times the
+    /// multigrid's single-precision output (<see cref="StructuredMultigrid.ApplyOnLattice"/>, same layout); returns p . q. The pass updates
     /// p a row ahead of the product, so every neighbour is new when it is read.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public double MultiplyNextDirection(double[] z, double beta, double[] p, double[] q)
+    public double MultiplyNextDirection(float[] z, double zScale, double beta, double[] p, double[] q)
     {
         int nx = _network.Lattice.NodesX, pad = Pad, n = DiagonalWPerK.Length;
-        Check(z); Check(p); Check(q);
-        for (int i = pad; i < pad + Math.Min(nx, n); i++) p[i] = z[i] + beta * p[i];
+        if (z.Length != LatticeLength) throw new ArgumentException("one value per node of the padded lattice", nameof(z));
+        Check(p); Check(q);
+        for (int i = pad; i < pad + Math.Min(nx, n); i++) p[i] = z[i] * zScale + beta * p[i];
         ref double w = ref MemoryMarshal.GetArrayDataReference(_network.UnitWest);
         ref double s = ref MemoryMarshal.GetArrayDataReference(_network.UnitSouth);
         ref double d = ref MemoryMarshal.GetArrayDataReference(DiagonalWPerK);
         ref double v = ref MemoryMarshal.GetArrayDataReference(p);
-        ref double zr = ref MemoryMarshal.GetArrayDataReference(z);
+        ref float zr = ref MemoryMarshal.GetArrayDataReference(z);
         ref double y = ref MemoryMarshal.GetArrayDataReference(q);
         double kt = _network.ConductanceScaleWPerK;
         double s0 = 0, s1 = 0;
@@ -71,7 +74,7 @@ public sealed class ThermalOperator
         for (; k < ahead; k++)
         {
             int i = pad + k, a = i + nx;
-            Unsafe.Add(ref v, a) = Unsafe.Add(ref zr, a) + beta * Unsafe.Add(ref v, a);
+            Unsafe.Add(ref v, a) = Unsafe.Add(ref zr, a) * zScale + beta * Unsafe.Add(ref v, a);
             double value = Row(ref w, ref s, ref d, ref v, kt, nx, k, i);
             Unsafe.Add(ref y, i) = value;
             if ((k & 1) == 0) s0 += Unsafe.Add(ref v, i) * value; else s1 += Unsafe.Add(ref v, i) * value;
