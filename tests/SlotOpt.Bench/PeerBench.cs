@@ -22,6 +22,8 @@ namespace SlotOpt.Bench;
 /// one ("assembled": plate grid, merged regions and right-hand side built before the clock, then multigrid setup plus solve, the span
 /// the peers get), on which the ratios are judged, and end to end beside it (grid from the outline, merged regions, multigrid,
 /// right-hand side, the solve and its post-processing in ResistanceLimitedSolver.SolveAc).
+/// After each row, on standard error (the table on standard output stays whole), the assembled span's minor page faults (first touches of memory the process has not used before: the kernel
+/// zeroes each 4 kB page, a few microseconds apiece) and the bytes it allocates, per repeat (Linux /proc/self/stat field 10, minflt).
 /// Without petsc4py the SlotOpt columns still run and the bench says why the peer columns are missing.
 /// Usage: `SlotOpt.Bench peer [--sizes 256,512,1024] [--repeats 3]`.
 /// </summary>
@@ -61,18 +63,21 @@ public static class PeerBench
                 model = null;
                 GC.Collect();
                 var ours = new Best(); var assembled = new Best(); var hypre = new Best(); var gamg = new Best();
+                var touches = new List<string>();
                 for (int rep = 0; rep < repeats; rep++)
                 {
                     var (seconds, cpuSeconds, iterations) = SlotOptOnce(n);
                     ours.Add(seconds, cpuSeconds, iterations);
-                    (seconds, cpuSeconds, iterations) = SlotOptAssembledOnce(n);
+                    (seconds, cpuSeconds, iterations, long faults, long bytes) = SlotOptAssembledOnce(n);
                     assembled.Add(seconds, cpuSeconds, iterations);
+                    touches.Add(string.Create(c, $"{faults} faults, {bytes / 1e6:F1} MB"));
                     if (!peerReady) continue;
                     hypre.Add(peer!.Solve("hypre"));
                     gamg.Add(peer.Solve("gamg"));
                 }
                 Console.WriteLine(string.Create(c,
                     $"| {n} | {unknowns} | {assembled.Text} | {ours.Text} | {assembled.Iterations} | {hypre.Text} | {hypre.IterationText} | {gamg.Text} | {gamg.IterationText} | {Ratio(hypre, assembled)} | {Ratio(hypre, ours)} | {Ratio(gamg, assembled)} | {assembled.CpuText} | {ours.CpuText} | {hypre.CpuText} | {gamg.CpuText} | {CpuRatio(hypre, assembled)} | {CpuRatio(hypre, ours)} | {CpuRatio(gamg, assembled)} |"));
+                Console.Error.WriteLine($"N = {n}: SlotOpt assembled span, minor page faults and bytes allocated per repeat: {string.Join("; ", touches)}");
             }
         }
         finally { directory.Delete(true); }
@@ -89,6 +94,14 @@ public static class PeerBench
     private static string Ratio(Best peer, Best ours) => peer.Valid ? (peer.Seconds / ours.Seconds).ToString("F2", CultureInfo.InvariantCulture) : "-";
 
     private static string CpuRatio(Best peer, Best ours) => peer.Valid ? (peer.CpuSeconds / ours.CpuSeconds).ToString("F2", CultureInfo.InvariantCulture) : "-";
+
+    /// <summary>The process's minor page faults so far (/proc/self/stat field 10, after the parenthesised command name); -1 where there is no /proc.</summary>
+    private static long MinorFaults()
+    {
+        if (!File.Exists("/proc/self/stat")) return -1;
+        string stat = File.ReadAllText("/proc/self/stat");
+        return long.Parse(stat[(stat.LastIndexOf(')') + 2)..].Split(' ')[7], CultureInfo.InvariantCulture);
+    }
 
     private static string LoadAverage() => File.Exists("/proc/loadavg") ? string.Join(' ', File.ReadAllText("/proc/loadavg").Split(' ').Take(3)) : "unknown";
 
@@ -110,7 +123,7 @@ public static class PeerBench
     /// SlotOpt over the peers' span: the plate grid, its merged regions and the right-hand side (the system the peers load) built
     /// before the clock; timed, the multigrid setup from the grid and the solve, as the peers' preconditioner setup and solve.
     /// </summary>
-    private static (double Seconds, double CpuSeconds, int Iterations) SlotOptAssembledOnce(int n)
+    private static (double Seconds, double CpuSeconds, int Iterations, long MinorFaults, long AllocatedBytes) SlotOptAssembledOnce(int n)
     {
         var grid = PlateGrid.Build(SheetsBench.Plate(), new GridOptions { CellSizeM = 1.0 / n });
         var regions = NodeRegions.Build(grid);
@@ -119,13 +132,16 @@ public static class PeerBench
         GC.Collect();
         var process = Process.GetCurrentProcess();
         var cpu = process.TotalProcessorTime;
+        long faults = MinorFaults(), bytes = GC.GetAllocatedBytesForCurrentThread();
         var clock = Stopwatch.StartNew();
         var mg = StructuredMultigrid.Build(grid, regions);
         bool converged = mg.TrySolve(b, psi, ConvergenceCriterion.Default, out var report);
         double seconds = clock.Elapsed.TotalSeconds;
+        faults = MinorFaults() - faults;
+        bytes = GC.GetAllocatedBytesForCurrentThread() - bytes;
         process.Refresh();
         if (!converged) throw new NumericalFailureException($"N = {n}: {report.Reason}");
-        return (seconds, (process.TotalProcessorTime - cpu).TotalSeconds, report.Iterations);
+        return (seconds, (process.TotalProcessorTime - cpu).TotalSeconds, report.Iterations, faults, bytes);
     }
 
     /// <summary>The right-hand side ResistanceLimitedSolver.SolveAc solves for a uniform field: its phase is uniform, so one real part.</summary>

@@ -22,14 +22,23 @@ namespace SlotOpt.Plates.Grid;
 /// </summary>
 internal static class BlackBoxCoarsening
 {
-    public static StencilLevel Coarsen(StencilLevel f)
+    /// <summary>
+    /// The next coarser level with its prolongation. <paramref name="bases"/>: scratch of at least <see cref="BasesLength"/>(f) entries
+    /// (a hierarchy passes the one it sized for its first coarse level to every level, so the setup touches less fresh memory), or null for one of its own.
+    /// </summary>
+    public static StencilLevel Coarsen(StencilLevel f, float[]? bases = null)
     {
         int ncx = (f.Nx + 1) / 2, ncy = (f.Ny + 1) / 2;
+        bases ??= new float[BasesLength(f)];
+        if (bases.Length < BasesLength(f)) throw new ArgumentException("scratch shorter than 9 entries per coarse node", nameof(bases));
         var c = new StencilLevel(ncx, ncy, ninePoint: true);
         BuildProlongation(f, c);
-        GalerkinOperator(f, c);
+        GalerkinOperator(f, c, bases);
         return c;
     }
+
+    /// <summary>Entries of the scratch <see cref="Coarsen"/> needs below fine level f: 9 per coarse node (see <see cref="Bases"/>).</summary>
+    public static int BasesLength(StencilLevel f) => 9 * ((f.Nx + 1) / 2) * ((f.Ny + 1) / 2);
 
     /// <summary>1 / d, or 0 for a node with no positive denominator (then every weight through it is 0): one division for the two or four weights that share d.</summary>
     private static double Inverse(double denominator) => denominator > 0 ? 1 / denominator : 0;
@@ -133,10 +142,10 @@ internal static class BlackBoxCoarsening
     /// coarsenings are most of the setup).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void GalerkinOperator(StencilLevel f, StencilLevel c)
+    private static void GalerkinOperator(StencilLevel f, StencilLevel c, float[] phiArray)
     {
         int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx, fny = f.Ny;
-        var phiArray = Bases(c);
+        Bases(c, phiArray);
         ref float phi = ref MemoryMarshal.GetArrayDataReference(phiArray);
         Span<double> patch = stackalloc double[25];   // A phi_K on K's 5 x 5 patch, row by row from the south-west corner
         ref double a = ref MemoryMarshal.GetReference(patch);
@@ -328,13 +337,13 @@ internal static class BlackBoxCoarsening
 
     /// <summary>
     /// Every coarse node's prolongation weights at its 3 x 3 fine neighbourhood, phi[9 k + (dj + 1) 3 + di + 1] for offset (di, dj);
-    /// 0 off the lattice (the prolongation arrays hold 0 there, so only the low edges I = 0, J = 0 need a test).
+    /// 0 off the lattice (the prolongation arrays hold 0 there, so only the low edges I = 0, J = 0 need a test); written into the first
+    /// 9 nc entries of <paramref name="phi"/>, every one of them set.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static float[] Bases(StencilLevel c)
+    private static void Bases(StencilLevel c, float[] phi)
     {
         int ncx = c.Nx, ncy = c.Ny;
-        var phi = new float[9 * ncx * ncy];
         var xl = c.XLow!; var xh = c.XHigh!; var yl = c.YLow!; var yh = c.YHigh!;
         var sw = c.CentreSW!; var se = c.CentreSE!; var nw = c.CentreNW!; var ne = c.CentreNE!;
         for (int J = 0; J < ncy; J++)
@@ -352,6 +361,5 @@ internal static class BlackBoxCoarsening
                 phi[b + 2] = south ? nw[k - ncx] : 0;
                 phi[b + 0] = west && south ? ne[k - ncx - 1] : 0;
             }
-        return phi;
     }
 }

@@ -35,18 +35,16 @@ internal static class LatticeConjugateGradient
         var top = mg.Finest;
         int length = top.X.Length;
         var z = top.X;                 // preconditioned residual
-        var r = new double[length];
-        var bl = new double[length];
+        var r = new double[length];   // no vector of its own for the scaled b: the true residual rebuilds it in r (one vector less of fresh memory)
         var x = new double[length];
         var p = new double[length];
         var q = new double[length];
         double scale = Math.ScaleB(1, -Math.ILogB(normB));
-        mg.Operator.ToLattice(b, bl, scale);
         bool cold = !psi.ContainsAnyExcept(0.0);
         mg.Operator.ToLattice(psi, x, scale);
         normB *= scale;
-        if (cold) Array.Copy(bl, r, length);   // r = b - A 0, without applying A
-        else TrueResidual(mg, bl, x, q, r);
+        if (cold) mg.Operator.ToLattice(b, r, scale);   // r = b - A 0, without applying A
+        else TrueResidual(mg, b, scale, x, q, r);
         double target = criterion.RelativeResidual * normB;
         double start = Math.Sqrt(Dot(r, r, top.Pad, top.Nodes));
         int iterations = 0;
@@ -57,12 +55,12 @@ internal static class LatticeConjugateGradient
                 double rel = Math.Sqrt(Dot(r, r, top.Pad, top.Nodes));
                 if (rel <= target)
                 {
-                    double trueNorm = Math.Sqrt(TrueResidual(mg, bl, x, q, r));
+                    double trueNorm = Math.Sqrt(TrueResidual(mg, b, scale, x, q, r));
                     if (trueNorm <= target) { report = new SolveReport(SolveStatus.Converged, iterations, trueNorm / normB); return true; }
                 }
                 if (iterations >= criterion.MaxIterations)
                 {
-                    report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(TrueResidual(mg, bl, x, q, r)) / normB);
+                    report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(TrueResidual(mg, b, scale, x, q, r)) / normB);
                     return false;
                 }
                 // (re)start: p = z = M^-1 r (beta 0; p holds zeros or the last finite direction)
@@ -100,12 +98,13 @@ internal static class LatticeConjugateGradient
         finally { mg.Operator.FromLattice(x, psi, 1 / scale); }
     }
 
-    /// <summary>r = b - A x on the lattice (q as scratch); returns |r|^2.</summary>
+    /// <summary>r = scale b - A x on the lattice (b in the unknowns' numbering, q as scratch); returns |r|^2.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static double TrueResidual(StructuredMultigrid mg, double[] b, double[] x, double[] q, double[] r)
+    private static double TrueResidual(StructuredMultigrid mg, ReadOnlySpan<double> b, double scale, double[] x, double[] q, double[] r)
     {
         mg.Operator.MultiplyOnLattice(x, q);
-        for (int i = 0; i < r.Length; i++) r[i] = b[i] - q[i];
+        mg.Operator.ToLattice(b, r, scale);
+        for (int i = 0; i < r.Length; i++) r[i] -= q[i];
         return Dot(r, r, mg.Finest.Pad, mg.Finest.Nodes);
     }
 

@@ -190,9 +190,11 @@ public sealed class StructuredMultigrid : IPreconditioner
         double scale = Math.ScaleB(1, -Math.ILogB(largest));
         var levels = new List<StencilLevel> { fine };
         var current = fine;
+        float[] bases = [];   // the coarsening's scratch, sized for the first coarse level and reused below it (fewer first touches of fresh memory)
         while (current.Nx >= MinimumSide && current.Ny >= MinimumSide && current.Nodes > CoarsestNodes)
         {
-            var next = BlackBoxCoarsening.Coarsen(current);
+            if (bases.Length == 0) bases = new float[BlackBoxCoarsening.BasesLength(current)];
+            var next = BlackBoxCoarsening.Coarsen(current, bases);
             current.ToSinglePrecision(scale, keepDoubleCouplings: current == fine);
             current = next;
             levels.Add(current);
@@ -252,28 +254,28 @@ public sealed class StructuredMultigrid : IPreconditioner
         double glue = GlueFactor * largest;
         var outside = new double[nx * ny];
         if (regions.UnknownCount == 0) throw SheetOperator.NoFreeNode();
-        var diagonal = new double[regions.UnknownCount];   // A's diagonal, to refuse an unknown with no conducting cell beside it
+        var conducting = new bool[regions.UnknownCount];   // an edge of positive conductance reaches the unknown (A's diagonal > 0), else it is refused
         for (int j = 0; j < ny; j++)
             for (int i = 0; i < nx; i++)
             {
                 int p = j * nx + i;
                 if (map[p] < 0) c[p] += glue;   // outside: a decoupled row on the matrix's scale
-                if (i > 0) w[p] = Couple(p - 1, p, w[p], glue, map, c, diagonal, outside);
-                if (j > 0) s[p] = Couple(p - nx, p, s[p], glue, map, c, diagonal, outside);
+                if (i > 0) w[p] = Couple(p - 1, p, w[p], glue, map, c, conducting, outside);
+                if (j > 0) s[p] = Couple(p - nx, p, s[p], glue, map, c, conducting, outside);
             }
-        for (int u = 0; u < diagonal.Length; u++) if (!(diagonal[u] > 0)) throw SheetOperator.NoConductingCellBeside(u);
+        for (int u = 0; u < conducting.Length; u++) if (!conducting[u]) throw SheetOperator.NoConductingCellBeside(u);
         return (level, outside);
 
         // the edge between nodes a and p (p the stored side) with conductance r in the sheet operator: adds to the diagonals, returns the stored coupling
         [MethodImpl(MethodImplOptions.AggressiveInlining)]
-        static double Couple(int a, int p, double r, double glue, int[] map, double[] c, double[] diagonal, double[] outside)
+        static double Couple(int a, int p, double r, double glue, int[] map, double[] c, bool[] conducting, double[] outside)
         {
             int ua = map[a], up = map[p];
             if (ua < 0 && up < 0) return 0;
             if (ua == up) { c[a] += glue; c[p] += glue; return -glue; }
             if (r == 0) return 0;
-            if (ua >= 0) { c[a] += r; diagonal[ua] += r; }
-            if (up >= 0) { c[p] += r; diagonal[up] += r; }
+            if (ua >= 0) { c[a] += r; conducting[ua] |= r > 0; }
+            if (up >= 0) { c[p] += r; conducting[up] |= r > 0; }
             if (ua >= 0 && up >= 0) return -r;
             if (ua >= 0) outside[a] += r;
             else outside[p] += r;
