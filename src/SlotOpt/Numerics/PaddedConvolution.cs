@@ -87,20 +87,17 @@ internal sealed class PaddedConvolution
     }
 
     /// <summary>The smallest 2^k or 3 x 2^k at least 2 n - 2 (and 2): linear for a kernel even in that direction (see <see cref="Spectrum"/>'s evenInY).</summary>
-    public static int EvenPaddedLength(int n)
-    {
-        int power = 2, three = 3;
-        while (power < 2 * n - 2) power <<= 1;
-        while (three < 2 * n - 2) three <<= 1;
-        return Math.Min(power, three);
-    }
+    public static int EvenPaddedLength(int n) => TransformLength(2 * n - 2);
 
     /// <summary>The smallest 2^k or 3 x 2^k at least 2 n (so at least 2 n - 1 for the linear convolution, and at least 2).</summary>
-    public static int PaddedLength(int n)
+    public static int PaddedLength(int n) => TransformLength(2 * n);
+
+    /// <summary>The smallest length this class transforms, 2^k or 3 x 2^k, that is at least <paramref name="atLeast"/> (and at least 2).</summary>
+    public static int TransformLength(int atLeast)
     {
         int power = 2, three = 3;
-        while (power < 2 * n) power <<= 1;
-        while (three < 2 * n) three <<= 1;
+        while (power < atLeast) power <<= 1;
+        while (three < atLeast) three <<= 1;
         return Math.Min(power, three);
     }
 

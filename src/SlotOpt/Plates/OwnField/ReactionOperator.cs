@@ -153,14 +153,7 @@ public sealed partial class ReactionOperator
     /// the factor on 512 x 128, 256 x 128 and 256 x 96 10.0, on 256 x 64 10.6; 2 mm cells (399 x 99): 1024 x 256, 512 x 256 and 512 x 192 11.1,
     /// 512 x 128 11.8. A wrap-around across the motion costs iterations below about 1.5 n, one along it does not.
     /// </summary>
-    internal static int FactorLength(int n, double margin)
-    {
-        int target = (int)Math.Ceiling(margin * n);
-        int power = 2, three = 3;
-        while (power < target) power <<= 1;
-        while (three < target) three <<= 1;
-        return Math.Min(power, three);
-    }
+    internal static int FactorLength(int n, double margin) => PaddedConvolution.TransformLength((int)Math.Ceiling(margin * n));
 
     private static bool SameLattice(PaddedConvolution a, PaddedConvolution b) => a.Nx == b.Nx && a.Ny == b.Ny && a.PaddedX == b.PaddedX && a.PaddedY == b.PaddedY;
 
