@@ -176,14 +176,14 @@ public static class PlateTemperatureSolver
             // a later step reduces its starting residual at least tenfold, so that a small move of h or of the radiation's linearisation is
             // still resolved (an inexact fixed-point iteration)
             var criterion = tight ? LinearCriterion : EarlyCriteria[iterations - 1];
-            if (!first)
+            (double Residual, double RightHandSide)? norms = first ? null : (Math.Sqrt(residualSquared), Math.Sqrt(rightHandSideSquared));
+            if (norms is var (startResidual, normB))
             {
-                double startResidual = Math.Sqrt(residualSquared), normB = Math.Sqrt(rightHandSideSquared);
                 double target = Math.Max(StepReduction * startResidual / normB, RoundingResidual);
                 if (target < criterion.RelativeResidual) criterion = criterion with { RelativeResidual = target };
             }
             // only a tight step can end the iteration: it confirms its residual against a fresh b - A x
-            if (!cg.TrySolve(multigrid, criterion, confirm: tight, out var report, first ? null : (Math.Sqrt(residualSquared), Math.Sqrt(rightHandSideSquared))))
+            if (!cg.TrySolve(multigrid, criterion, confirm: tight, out var report, norms))
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
             residual = report.RelativeResidual;
