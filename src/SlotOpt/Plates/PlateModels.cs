@@ -112,11 +112,6 @@ public static class PlateModels
         return new DiscSolution(choice, omega, s.AnglesRad, s.LossW, s.ResistanceLimitedLossW, notes, s.Iterations, s.MaxRelativeResidual, s.ResistanceLimited, s.FirstU);
     }
 
-    /// <summary>
-    /// The solution with its grid-error estimate (<see cref="DiscretisationError.Estimate"/>): the same model solved again on cells twice
-    /// and, where that grid resolves the plate, four times as large (solveOn gets each coarser model); the caller shows
-    /// <see cref="DiscretisationError.Warning"/> when it exceeds 1 %. Where no coarser grid exists (fewer than 2 cells across, or nothing conducting left) GridError stays null.
-    /// </summary>
     /// <summary>Edge clearance, in far-face heights, beyond which the fringing field is a few per cent of its peak (common practice, no source: the field of a magnet face falls off as a dipole's beyond about its height).</summary>
     public const double SlabEdgeClearanceInSourceHeights = 3;
 
@@ -164,6 +159,11 @@ public static class PlateModels
             : null;
     }
 
+    /// <summary>
+    /// The solution with its grid-error estimate (<see cref="DiscretisationError.Estimate"/>): the same model solved again on cells twice
+    /// and, where that grid resolves the plate, four times as large (solveOn gets each coarser model); the caller shows
+    /// <see cref="DiscretisationError.Warning"/> when it exceeds 1 %. Where no coarser grid exists (fewer than 2 cells across, or nothing conducting left) GridError stays null.
+    /// </summary>
     public static PlateSolution WithGridError(PlateSolution fine, SheetModel model, Func<SheetModel, PlateSolution> solveOn) =>
         fine with { GridError = DiscretisationError.Estimate(model, fine.MeanLossW, coarse => solveOn(coarse).MeanLossW) };
 
