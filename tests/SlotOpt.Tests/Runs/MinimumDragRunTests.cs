@@ -98,7 +98,8 @@ public class MinimumDragRunTests
         Assert.Contains(expected, e.Message);
     }
 
-    // The report states the wanted braking beside the part's limits, in its own units (the problem file's min_drag at its speed).
+    // The report states the wanted braking beside the part's limits, in its own units (the problem file's min_drag at its speed):
+    // the report's own wording, common practice, no source.
     [Fact]
     public void The_report_states_the_minimum_drag_with_its_speed()
     {
