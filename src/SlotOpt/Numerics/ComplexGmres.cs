@@ -15,5 +15,5 @@ public static class ComplexGmres
 
     public static SolveReport Solve(ComplexMap a, ComplexMap preconditioner, Complex[] b, Complex[] x, ConvergenceCriterion criterion, int restart = DefaultRestart) =>
         TrySolve(a, preconditioner, b, x, criterion, restart, out var report) ? report
-            : throw new NumericalFailureException($"coupled sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
+            : throw new NumericalFailureException($"coupled sheet solver: {report.Description}");
 }

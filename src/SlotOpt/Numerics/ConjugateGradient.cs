@@ -82,7 +82,7 @@ public static class ConjugateGradient
     }
 
     public static SolveReport Solve(ILinearOperator a, ReadOnlySpan<double> b, Span<double> x, IPreconditioner m, ConvergenceCriterion criterion) =>
-        TrySolve(a, b, x, m, criterion, out var report) ? report : throw new NumericalFailureException($"sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
+        TrySolve(a, b, x, m, criterion, out var report) ? report : throw new NumericalFailureException($"sheet solver: {report.Description}");
 
     internal static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
     {

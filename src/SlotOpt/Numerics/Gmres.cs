@@ -17,5 +17,5 @@ public static class Gmres
 
     public static SolveReport Solve(RealMap a, RealMap preconditioner, double[] b, double[] x, ConvergenceCriterion criterion, int restart = ComplexGmres.DefaultRestart) =>
         TrySolve(a, preconditioner, b, x, criterion, restart, out var report) ? report
-            : throw new NumericalFailureException($"GMRES: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
+            : throw new NumericalFailureException($"GMRES: {report.Description}");
 }

@@ -1,3 +1,5 @@
+using System.Globalization;
+
 namespace SlotOpt.Numerics;
 
 /// <summary>How one linear solve went: its status, iterations and the final true relative residual |b - A x| / |b|.</summary>
@@ -14,4 +16,7 @@ public readonly record struct SolveReport(SolveStatus Status, int Iterations, do
         SolveStatus.Diverged => "the residual grew beyond the divergence limit",
         _ => "a value became NaN or infinite (right-hand side, residual or Krylov vector)",
     };
+
+    /// <summary>The status with the residual and iterations, for error messages: "no convergence within the iteration limit (relative residual 3.2e-5 after 400 iterations)".</summary>
+    public string Description => $"{Reason} (relative residual {RelativeResidual.ToString("0.#e0", CultureInfo.InvariantCulture)} after {Iterations} iterations)";
 }

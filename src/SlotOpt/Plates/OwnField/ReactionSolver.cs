@@ -3,6 +3,7 @@ using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Plates.OwnField;
 
@@ -48,7 +49,7 @@ public static class ReactionSolver
         var u0Im = new double[model.Unknowns];
         if (!model.TrySolve(bRe, u0Re, criterion, out var r0) || !model.TrySolve(bIm, u0Im, criterion, out r0))
         {
-            failure = $"resistance-limited start: {r0.Reason} (relative residual {r0.RelativeResidual:E2})";
+            failure = $"resistance-limited start: {r0.Description}";
             return false;
         }
         double lossLow = 0.5 * g * (model.LossPerSiemens(u0Re) + model.LossPerSiemens(u0Im));
@@ -70,7 +71,7 @@ public static class ReactionSolver
         ComplexMap precondition = coarse is not null ? new TwoLevelAcPreconditioner(model, coarse, omega, g).Apply : op.Precondition;
         if (!ComplexGmres.TrySolve(op.Apply, precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
         {
-            failure = $"coupled AC solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+            failure = $"coupled AC solve: {report.Description}";
             return false;
         }
         double loss = 0.5 * g * HermitianForm(model, u);   // <P> = (1/2) Re(psi^H A psi) / G, psi = G u
@@ -132,7 +133,7 @@ public static class ReactionSolver
             var rhs = model.RightHandSide(node);
             if (!model.TrySolve(rhs, low, criterion, out var r0))
             {
-                failure = $"at offset {offsetsXM[k]} m, resistance-limited start: {r0.Reason} (relative residual {r0.RelativeResidual:E2})";
+                failure = $"at offset {Numbers.Of(offsetsXM[k] * 1e3, "mm")}, resistance-limited start: {r0.Description}";
                 return false;
             }
             // the edges' sub-cell loss (a kink of the same strength G q: the eddy currents' own field is smooth at a pole edge)
@@ -141,7 +142,7 @@ public static class ReactionSolver
             if (k == 0) Array.Copy(initialGuess ?? low, u, n);
             if (!Gmres.TrySolve(op.Apply, op.Precondition, rhs, u, image, imageHoldsGuess: k > 0, criterion, ComplexGmres.DefaultRestart, out var report))
             {
-                failure = $"at offset {offsetsXM[k]} m, coupled moving solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+                failure = $"at offset {Numbers.Of(offsetsXM[k] * 1e3, "mm")}, coupled moving solve: {report.Description}";
                 return false;
             }
             if (k == 0) first = (double[])u.Clone();
@@ -153,7 +154,7 @@ public static class ReactionSolver
             double f = 0;
             for (int i = 0; i < n; i++) f += u[i] * gradient[i];
             lift[k] = -g * f;                                       // lift on the source = -integral psi dBz/dz dA
-            if (!double.IsFinite(loss[k]) || !double.IsFinite(lift[k])) { failure = $"at offset {offsetsXM[k]} m: the force is not finite"; return false; }
+            if (!double.IsFinite(loss[k]) || !double.IsFinite(lift[k])) { failure = $"at offset {Numbers.Of(offsetsXM[k] * 1e3, "mm")}: the force is not finite"; return false; }
         }
         var notes = new List<string>();
         if (loss.All(p => p == 0)) notes.Add("the source does not reach the conducting part of the plate: zero drag and lift");

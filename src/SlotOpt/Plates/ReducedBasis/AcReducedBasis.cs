@@ -49,7 +49,7 @@ public sealed class AcReducedBasis
         {
             var u0 = new double[model.Unknowns];
             if (!model.TrySolve(model.RightHandSide(node), u0, criterion, out var report))
-                throw new NumericalFailureException($"resistance-limited start: {report.Reason} (relative residual {report.RelativeResidual:E2})");
+                throw new NumericalFailureException($"resistance-limited start: {report.Description}");
             parts[k++] = new ArnoldiPosition(model, u0, 0);
         }
         return new AcReducedBasis(reaction, source, criterion, parts);

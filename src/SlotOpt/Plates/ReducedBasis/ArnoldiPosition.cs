@@ -49,7 +49,7 @@ internal sealed class ArnoldiPosition
         var z = new double[sv.Length];
         if (!_model.TrySolve(sv, z, criterion, out var report))
         {
-            failure = $"reduced basis step: {report.Reason} (relative residual {report.RelativeResidual:E2})";
+            failure = $"reduced basis step: {report.Description}";
             return false;
         }
         double before = Math.Sqrt(Math.Max(Dot(z, sv), 0));                     // |z|_A before orthogonalisation (A z = S v)

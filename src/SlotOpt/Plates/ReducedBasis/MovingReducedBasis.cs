@@ -4,6 +4,7 @@ using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.OwnField;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Plates.ReducedBasis;
 
@@ -65,7 +66,7 @@ public sealed class MovingReducedBasis
             var rhs = model.RightHandSide(node);
             var u0 = new double[model.Unknowns];
             if (!model.TrySolve(rhs, u0, criterion, out var report))
-                throw new NumericalFailureException($"at offset {offsetsXM[k]} m, resistance-limited start: {report.Reason} (relative residual {report.RelativeResidual:E2})");
+                throw new NumericalFailureException($"at offset {Numbers.Of(offsetsXM[k] * 1e3, "mm")}, resistance-limited start: {report.Description}");
             positions[k] = new ArnoldiPosition(model, u0, source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]));
         }
         return new MovingReducedBasis(reaction, source, offsetsXM, criterion, positions);

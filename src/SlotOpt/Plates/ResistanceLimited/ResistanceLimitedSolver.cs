@@ -1,6 +1,7 @@
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Tables;
 
 namespace SlotOpt.Plates.ResistanceLimited;
 
@@ -74,9 +75,9 @@ public static class ResistanceLimitedSolver
         {
             source.IntegrateRate(l, offsetsXM[k], node);
             var b = model.RightHandSide(node);
-            if (!model.TrySolve(b, psi, criterion, out var report)) { failure = $"at offset {offsetsXM[k]} m: {Describe(report)}"; return false; }
+            if (!model.TrySolve(b, psi, criterion, out var report)) { failure = $"at offset {Numbers.Of(offsetsXM[k] * 1e3, "mm")}: {Describe(report)}"; return false; }
             losses[k] = model.LossPerSiemens(psi) + source.SubCellEdgeLossPerSiemens(model.Grid, offsetsXM[k]);
-            if (!double.IsFinite(losses[k])) { failure = $"at offset {offsetsXM[k]} m: the loss is not finite"; return false; }
+            if (!double.IsFinite(losses[k])) { failure = $"at offset {Numbers.Of(offsetsXM[k] * 1e3, "mm")}: the loss is not finite"; return false; }
             if (losses[k] == 0) offPlate++;
             iterations[k] = report.Iterations;
             if (peakPsi is null || losses[k] > losses[peakIndex])
@@ -112,5 +113,5 @@ public static class ResistanceLimitedSolver
         return misfit <= 1e-24 * bb;
     }
 
-    private static string Describe(SolveReport r) => $"sheet solver: {r.Reason} (relative residual {r.RelativeResidual:E2} after {r.Iterations} iterations)";
+    private static string Describe(SolveReport r) => $"sheet solver: {r.Description}";
 }

@@ -54,7 +54,7 @@ public static class ThickPlateSolver
             Array.Clear(xRe); Array.Clear(xIm);
             if (!model.TrySolve(bRe, xRe, criterion, out var r0) || !model.TrySolve(bIm, xIm, criterion, out r0))
             {
-                failure = $"layer {layer}, resistance-limited start: {r0.Reason} (relative residual {r0.RelativeResidual:E2})";
+                failure = $"layer {layer}, resistance-limited start: {r0.Description}";
                 return false;
             }
             lossLow += 0.5 * g * (model.LossPerSiemens(xRe) + model.LossPerSiemens(xIm));
@@ -91,7 +91,7 @@ public static class ThickPlateSolver
         }
         if (!ComplexGmres.TrySolve(Apply, Precondition, b, u, criterion, ComplexGmres.DefaultRestart, out var report))
         {
-            failure = $"coupled thick-plate solve ({layers} layers): {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+            failure = $"coupled thick-plate solve ({layers} layers): {report.Description}";
             return false;
         }
         double loss = 0;

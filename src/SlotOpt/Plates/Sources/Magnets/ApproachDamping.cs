@@ -27,7 +27,7 @@ public static class ApproachDamping
         var psi = new double[model.Unknowns];
         if (!model.TrySolve(b, psi, criterion, out var report))
         {
-            failure = $"sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+            failure = $"sheet solver: {report.Description}";
             return false;
         }
         double loss = model.LossPerSiemens(psi);

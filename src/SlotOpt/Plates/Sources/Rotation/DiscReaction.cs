@@ -42,7 +42,7 @@ public static class DiscReaction
             var rhs = model.RightHandSide(node);
             if (!model.TrySolve(rhs, low, criterion, out var r0))
             {
-                failure = $"{at}, resistance-limited start: {r0.Reason} (relative residual {r0.RelativeResidual:E2} after {r0.Iterations} iterations)";
+                failure = $"{at}, resistance-limited start: {r0.Description}";
                 return false;
             }
             // the resistance-limited solve of this angle, as DiscTorque.TrySolve makes it (zero start, then the previous angle's): its loss and the map's angle
@@ -53,7 +53,7 @@ public static class DiscReaction
             if (k == 0) Array.Copy(initialGuess ?? low, u, n);
             if (!Gmres.TrySolve(op.Apply, op.Precondition, rhs, u, criterion, ComplexGmres.DefaultRestart, out var report))
             {
-                failure = $"{at}, own-field solve: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+                failure = $"{at}, own-field solve: {report.Description}";
                 return false;
             }
             if (k == 0) first = (double[])u.Clone();

@@ -30,7 +30,7 @@ public static class DiscTorque
             var b = model.RightHandSide(node);
             if (!model.TrySolve(b, psi, criterion, out var report))
             {
-                failure = $"turning disc at {Numbers.Of(anglesRad[k] * 180 / Math.PI, "deg")}: sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)";
+                failure = $"turning disc at {Numbers.Of(anglesRad[k] * 180 / Math.PI, "deg")}: sheet solver: {report.Description}";
                 return false;
             }
             losses[k] = model.LossPerSiemens(psi);
