@@ -427,7 +427,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// (same terms, same grouping).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void Restrict(StencilLevel f, StencilLevel c)
+    internal static void Restrict(StencilLevel f, StencilLevel c)
     {
         int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, ncy = c.Ny, fo = f.Pad, co = c.Pad;
         ref float r = ref MemoryMarshal.GetArrayDataReference(f.R);
@@ -539,7 +539,7 @@ public sealed class StructuredMultigrid : IPreconditioner
 
     /// <summary>x_f += P x_c, row by row of the fine lattice; Vector256&lt;float&gt;.Count coarse columns at a time (the fine row's pairs interleaved), the rest node by node.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void ProlongAdd(StencilLevel c, StencilLevel f)
+    internal static void ProlongAdd(StencilLevel c, StencilLevel f)
     {
         int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, fo = f.Pad, co = c.Pad;
         ref float xc = ref MemoryMarshal.GetArrayDataReference(c.X); ref float xf = ref MemoryMarshal.GetArrayDataReference(f.X);
