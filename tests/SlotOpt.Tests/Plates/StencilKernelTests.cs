@@ -117,6 +117,24 @@ public class StencilKernelTests
         Assert.All(Enumerable.Range(fine.Pad + fine.Nodes, fine.Pad), i => Assert.Equal(0f, fine.X[i]));
     }
 
+    // The single-precision copy refuses a diagonal whose scaled inverse leaves binary32's normal range (IEEE Std 754-2008, section 3.6:
+    // largest finite 2^128 - 2^104, about 3.4e38, smallest normal 2^-126, about 1.2e-38) or is negative, and names the node: in a
+    // vector chunk (node 13 of 40) and in the scalar remainder (node 38), on a 40 x 3 lattice with every other diagonal 1.
+    [Theory]
+    [InlineData(13, 1e-300)]
+    [InlineData(13, 1e300)]
+    [InlineData(13, -1.0)]
+    [InlineData(38, 1e-300)]
+    [InlineData(38, -1.0)]
+    public void Single_precision_copy_refuses_a_diagonal_outside_its_range(int node, double diagonal)
+    {
+        var level = new StencilLevel(40, 3, ninePoint: false);
+        for (int p = 0; p < level.Nodes; p++) level.Centre[p] = 1;
+        level.Centre[node] = diagonal;
+        var error = Assert.Throws<NumericalFailureException>(() => level.ToSinglePrecision(1, keepDoubleCouplings: false));
+        Assert.Contains($"at node {node} ", error.Message);
+    }
+
     /// <summary>The slotted 5-point lattice and its first (9-point) coarse level, both in single precision as the cycle holds them.</summary>
     private static (StencilLevel Fine, StencilLevel Coarse) Levels(int nx, int ny)
     {

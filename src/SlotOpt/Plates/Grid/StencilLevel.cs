@@ -79,7 +79,19 @@ internal sealed class StencilLevel
     {
         int stored = West.Length;
         SingleInverseCentre = new float[Nodes];
-        for (int p = 0; p < Nodes; p++)
+        int p = 0, width = Vector<float>.Count;
+        ref double centre = ref MemoryMarshal.GetArrayDataReference(Centre);
+        ref float inverse = ref MemoryMarshal.GetArrayDataReference(SingleInverseCentre);
+        var smallest = new Vector<float>(MathF.ScaleB(1, -126));   // the smallest normal single
+        for (; p + width <= Nodes; p += width)
+        {
+            // 1 / (scale c) in double, rounded to single precision as the scalar form below rounds it
+            var v = Vector.Narrow(Vector<double>.One / (scale * Vector.LoadUnsafe(ref centre, (nuint)p)),
+                                  Vector<double>.One / (scale * Vector.LoadUnsafe(ref centre, (nuint)(p + Vector<double>.Count))));
+            if (!Vector.GreaterThanOrEqualAll(v, smallest) || !Vector.LessThanOrEqualAll(v, new Vector<float>(float.MaxValue))) break;   // the scalar loop names the node
+            v.StoreUnsafe(ref inverse, (nuint)p);
+        }
+        for (; p < Nodes; p++)
         {
             float v = (float)(1 / (scale * Centre[p]));
             if (!float.IsNormal(v) || v < 0) throw new NumericalFailureException($"multigrid level {Nx} x {Ny}: diagonal {Centre[p]:G3} at node {p} is outside single precision's range after scaling by {scale:G3} (coupling contrast too large)");
@@ -92,10 +104,16 @@ internal sealed class StencilLevel
         SouthWest = null; SouthEast = null;
         if (!keepDoubleCouplings) { West = []; South = []; }
 
+        // scale v rounded to single precision, Vector<float>.Count entries at a time (each rounded as the scalar cast rounds it)
         static float[] Single(double[] v, double scale, int stored)
         {
             var s = new float[stored];
-            for (int p = 0; p < stored; p++) s[p] = (float)(scale * v[p]);
+            ref double from = ref MemoryMarshal.GetArrayDataReference(v);
+            ref float to = ref MemoryMarshal.GetArrayDataReference(s);
+            int p = 0, width = Vector<float>.Count;
+            for (; p + width <= stored; p += width)
+                Vector.Narrow(scale * Vector.LoadUnsafe(ref from, (nuint)p), scale * Vector.LoadUnsafe(ref from, (nuint)(p + Vector<double>.Count))).StoreUnsafe(ref to, (nuint)p);
+            for (; p < stored; p++) s[p] = (float)(scale * v[p]);
             return s;
         }
     }
