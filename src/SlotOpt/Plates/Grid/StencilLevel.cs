@@ -161,9 +161,9 @@ internal sealed class StencilLevel
     // line, whose values are final or still old) and m = -a_W / a_C (or -a_E / a_C backwards); a scalar recurrence then runs
     // x = m x_prev + t through the chunk in one fused multiply-add a node, the neighbour just updated carried in a register. The pre-pass
     // rounds every product and difference as the plain node-by-node sweep does (same operations, same order, lane by lane), so the
-    // sweep's result is the same to the bit (Gauss-Seidel as in Y. Saad, "Iterative Methods for Sparse Linear Systems", 2nd ed., SIAM
-    // 2003, section 4.1; tests/SlotOpt.Tests/Plates/StencilSweepTests.cs compares them). The nodes of a row past the last whole chunk
-    // take the scalar form of the same update.
+    // sweep's result is the same to the bit as before the split (Gauss-Seidel as in Y. Saad, "Iterative Methods for Sparse Linear
+    // Systems", 2nd ed., SIAM 2003, section 4.1; tests/SlotOpt.Tests/Plates/StencilKernelTests.cs compares every kernel with a textbook
+    // sweep in double). The nodes of a row past the last whole chunk take the scalar form of the same update.
 
     /// <summary>
     /// The forward sweep from x = 0 on a 9-point level (right-hand side in B), followed row by row (one row behind, while the rows are
