@@ -227,21 +227,7 @@ public class StructuredMultigridTests
                         for (int di = -1; di <= 1; di++)
                             if (i + di >= 0 && i + di < f.Nx && j + dj >= 0 && j + dj < f.Ny)
                                 a[j * f.Nx + i, (j + dj) * f.Nx + i + di] = f.Entry(i, j, di, dj);
-            var prolongation = build.Dense(f.Nodes, c.Nodes);
-            for (int J = 0; J < c.Ny; J++)
-                for (int I = 0; I < c.Nx; I++)
-                {
-                    int k = J * c.Nx + I;
-                    void Weight(int i, int j, int coarseI, int coarseJ, double w)
-                    {
-                        if (i < f.Nx && j < f.Ny && coarseI < c.Nx && coarseJ < c.Ny) prolongation[j * f.Nx + i, coarseJ * c.Nx + coarseI] = w;
-                    }
-                    Weight(2 * I, 2 * J, I, J, 1);
-                    Weight(2 * I + 1, 2 * J, I, J, c.XLow![k]); Weight(2 * I + 1, 2 * J, I + 1, J, c.XHigh![k]);
-                    Weight(2 * I, 2 * J + 1, I, J, c.YLow![k]); Weight(2 * I, 2 * J + 1, I, J + 1, c.YHigh![k]);
-                    Weight(2 * I + 1, 2 * J + 1, I, J, c.CentreSW![k]); Weight(2 * I + 1, 2 * J + 1, I + 1, J, c.CentreSE![k]);
-                    Weight(2 * I + 1, 2 * J + 1, I, J + 1, c.CentreNW![k]); Weight(2 * I + 1, 2 * J + 1, I + 1, J + 1, c.CentreNE![k]);
-                }
+            var prolongation = Prolongation(f, c);
             var galerkin = prolongation.Transpose() * a * prolongation;
             double tolerance = 1e-12 * galerkin.Enumerate().Max(Math.Abs);
             for (int K = 0; K < c.Nodes; K++)
@@ -255,8 +241,29 @@ public class StructuredMultigridTests
         }
     }
 
+    /// <summary>The prolongation from <paramref name="c"/> to <paramref name="f"/> as a dense matrix of the stored single-precision weights (fine nodes by coarse nodes).</summary>
+    internal static MathNet.Numerics.LinearAlgebra.Matrix<double> Prolongation(StencilLevel f, StencilLevel c)
+    {
+        var prolongation = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(f.Nodes, c.Nodes);
+        for (int J = 0; J < c.Ny; J++)
+            for (int I = 0; I < c.Nx; I++)
+            {
+                int k = J * c.Nx + I;
+                void Weight(int i, int j, int coarseI, int coarseJ, double w)
+                {
+                    if (i < f.Nx && j < f.Ny && coarseI < c.Nx && coarseJ < c.Ny) prolongation[j * f.Nx + i, coarseJ * c.Nx + coarseI] = w;
+                }
+                Weight(2 * I, 2 * J, I, J, 1);
+                Weight(2 * I + 1, 2 * J, I, J, c.XLow![k]); Weight(2 * I + 1, 2 * J, I + 1, J, c.XHigh![k]);
+                Weight(2 * I, 2 * J + 1, I, J, c.YLow![k]); Weight(2 * I, 2 * J + 1, I, J + 1, c.YHigh![k]);
+                Weight(2 * I + 1, 2 * J + 1, I, J, c.CentreSW![k]); Weight(2 * I + 1, 2 * J + 1, I + 1, J, c.CentreSE![k]);
+                Weight(2 * I + 1, 2 * J + 1, I, J + 1, c.CentreNW![k]); Weight(2 * I + 1, 2 * J + 1, I + 1, J + 1, c.CentreNE![k]);
+            }
+        return prolongation;
+    }
+
     /// <summary>A 5-point lattice with random couplings over two decades, a slot of couplings 1e-6 from the bottom up and a 100:1 jump (invented test data: the checks against it compare two computations of the same quantity).</summary>
-    private static StencilLevel SlottedLattice(int nx, int ny)
+    internal static StencilLevel SlottedLattice(int nx, int ny)
     {
         var random = new Random(7);
         var fine = new StencilLevel(nx, ny, ninePoint: false);

@@ -1,4 +1,5 @@
 using System.Runtime.CompilerServices;
+using System.Runtime.Intrinsics;
 using System.Runtime.InteropServices;
 using SlotOpt.Numerics;
 
@@ -426,7 +427,7 @@ public sealed class StructuredMultigrid : IPreconditioner
     /// (same terms, same grouping).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void Restrict(StencilLevel f, StencilLevel c)
+    internal static void Restrict(StencilLevel f, StencilLevel c)
     {
         int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, ncy = c.Ny, fo = f.Pad, co = c.Pad;
         ref float r = ref MemoryMarshal.GetArrayDataReference(f.R);
@@ -436,6 +437,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         ref float sw = ref MemoryMarshal.GetArrayDataReference(c.CentreSW!); ref float se = ref MemoryMarshal.GetArrayDataReference(c.CentreSE!);
         ref float nw = ref MemoryMarshal.GetArrayDataReference(c.CentreNW!); ref float ne = ref MemoryMarshal.GetArrayDataReference(c.CentreNE!);
         int lastInner = (fnx - 2) / 2;   // the last coarse column with a fine column on its right
+        int width = Vector256.IsHardwareAccelerated ? Vector256<float>.Count : int.MaxValue / 4;   // coarse nodes a vector step covers (none without 256-bit vectors)
         for (int J = 0; J < ncy; J++)
         {
             if (J == 0 || 2 * J + 1 >= fny)
@@ -444,7 +446,21 @@ public sealed class StructuredMultigrid : IPreconditioner
                 continue;
             }
             RestrictAtEdge(f, c, 0, J);
-            for (int I = 1; I <= lastInner; I++)
+            int I0 = 1;
+            for (; I0 + width - 1 <= lastInner; I0 += width)
+            {
+                // the same sums as below for Vector256<float>.Count coarse nodes: each fine row's nodes split into those at even
+                // offsets from the coarse column (2I), odd ones (2I + 1) and odd ones one to the left (2I - 1)
+                int k = J * ncx + I0, q = fo + 2 * J * fnx + 2 * I0;
+                var (centre, east, west) = FineRow(ref r, q);
+                var middle = centre + Load(ref xl, k) * east + Load(ref xh, k - 1) * west;
+                (centre, east, west) = FineRow(ref r, q + fnx);
+                var above = Load(ref yl, k) * centre + Load(ref sw, k) * east + Load(ref se, k - 1) * west;
+                (centre, east, west) = FineRow(ref r, q - fnx);
+                var below = Load(ref yh, k - ncx) * centre + Load(ref nw, k - ncx) * east + Load(ref ne, k - ncx - 1) * west;
+                (middle + above + below).StoreUnsafe(ref b, (nuint)(co + k));
+            }
+            for (int I = I0; I <= lastInner; I++)
             {
                 int k = J * ncx + I, q = fo + 2 * J * fnx + 2 * I;
                 // three rows summed apart, so the additions do not wait on one another
@@ -458,6 +474,40 @@ public sealed class StructuredMultigrid : IPreconditioner
             }
             for (int I = lastInner + 1; I < ncx; I++) RestrictAtEdge(f, c, I, J);
         }
+
+        // Vector256<float>.Count floats from index i
+        static Vector256<float> Load(ref float a, int i) => Vector256.LoadUnsafe(ref a, (nuint)i);
+    }
+
+    /// <summary>
+    /// Fine row values at q + 2k (centre), q + 2k + 1 (east) and q + 2k - 1 (west) for k = 0 .. Vector256&lt;float&gt;.Count - 1: the
+    /// fine neighbours of as many consecutive coarse nodes in one fine row.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static (Vector256<float> Centre, Vector256<float> East, Vector256<float> West) FineRow(ref float r, int q)
+    {
+        var (centre, east) = Deinterleave(Vector256.LoadUnsafe(ref r, (nuint)q), Vector256.LoadUnsafe(ref r, (nuint)(q + Vector256<float>.Count)));
+        var (west, _) = Deinterleave(Vector256.LoadUnsafe(ref r, (nuint)(q - 1)), Vector256.LoadUnsafe(ref r, (nuint)(q - 1 + Vector256<float>.Count)));
+        return (centre, east, west);
+    }
+
+    /// <summary>The even- and odd-numbered entries of the 16 floats low, high (low first).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static (Vector256<float> Even, Vector256<float> Odd) Deinterleave(Vector256<float> low, Vector256<float> high)
+    {
+        var order = Vector256.Create(0, 2, 4, 6, 1, 3, 5, 7);   // evens to the lower half, odds to the upper
+        var l = Vector256.Shuffle(low, order);
+        var h = Vector256.Shuffle(high, order);
+        return (Vector256.Create(l.GetLower(), h.GetLower()), Vector256.Create(l.GetUpper(), h.GetUpper()));
+    }
+
+    /// <summary>The 16 floats even_0, odd_0, even_1, odd_1, ... as two vectors (lower eight first): the inverse of <see cref="Deinterleave"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static (Vector256<float> Low, Vector256<float> High) Interleave(Vector256<float> even, Vector256<float> odd)
+    {
+        var order = Vector256.Create(0, 4, 1, 5, 2, 6, 3, 7);
+        return (Vector256.Shuffle(Vector256.Create(even.GetLower(), odd.GetLower()), order),
+                Vector256.Shuffle(Vector256.Create(even.GetUpper(), odd.GetUpper()), order));
     }
 
     /// <summary>One coarse node of <see cref="Restrict"/>, testing which of its fine neighbours lie on the lattice.</summary>
@@ -487,40 +537,72 @@ public sealed class StructuredMultigrid : IPreconditioner
         c.B[c.Pad + k] = v;
     }
 
-    /// <summary>x_f += P x_c, row by row of the fine lattice.</summary>
+    /// <summary>x_f += P x_c, row by row of the fine lattice; Vector256&lt;float&gt;.Count coarse columns at a time (the fine row's pairs interleaved), the rest node by node.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void ProlongAdd(StencilLevel c, StencilLevel f)
+    internal static void ProlongAdd(StencilLevel c, StencilLevel f)
     {
-        var xc = c.X; var xf = f.X;
         int fnx = f.Nx, fny = f.Ny, ncx = c.Nx, fo = f.Pad, co = c.Pad;
-        var xl = c.XLow!; var xh = c.XHigh!; var yl = c.YLow!; var yh = c.YHigh!;
-        var sw = c.CentreSW!; var se = c.CentreSE!; var nw = c.CentreNW!; var ne = c.CentreNE!;
+        ref float xc = ref MemoryMarshal.GetArrayDataReference(c.X); ref float xf = ref MemoryMarshal.GetArrayDataReference(f.X);
+        ref float xl = ref MemoryMarshal.GetArrayDataReference(c.XLow!); ref float xh = ref MemoryMarshal.GetArrayDataReference(c.XHigh!);
+        ref float yl = ref MemoryMarshal.GetArrayDataReference(c.YLow!); ref float yh = ref MemoryMarshal.GetArrayDataReference(c.YHigh!);
+        ref float sw = ref MemoryMarshal.GetArrayDataReference(c.CentreSW!); ref float se = ref MemoryMarshal.GetArrayDataReference(c.CentreSE!);
+        ref float nw = ref MemoryMarshal.GetArrayDataReference(c.CentreNW!); ref float ne = ref MemoryMarshal.GetArrayDataReference(c.CentreNE!);
         int pairs = fnx / 2;                       // fine columns 2I, 2I + 1 for I < pairs; a last even column when fnx is odd
+        int width = Vector256.IsHardwareAccelerated ? Vector256<float>.Count : int.MaxValue / 4;   // coarse columns a vector step covers (none without 256-bit vectors)
         for (int j = 0; j < fny; j++)
         {
             int row = fo + j * fnx, k0 = (j / 2) * ncx;
+            int I = 0;
             if ((j & 1) == 0)
             {
-                for (int I = 0; I < pairs; I++)
+                for (; I + width <= pairs; I += width)
                 {
                     int k = k0 + I;
-                    float low = xc[co + k], high = xc[co + k + 1];
-                    xf[row + 2 * I] += low;
-                    xf[row + 2 * I + 1] += xl[k] * low + xh[k] * high;
+                    var low = Load(ref xc, co + k);
+                    AddPairs(ref xf, row + 2 * I, low, Load(ref xl, k) * low + Load(ref xh, k) * Load(ref xc, co + k + 1));
                 }
-                if ((fnx & 1) == 1) xf[row + fnx - 1] += xc[co + k0 + pairs];
+                for (; I < pairs; I++)
+                {
+                    int k = k0 + I;
+                    float low = Unsafe.Add(ref xc, co + k), high = Unsafe.Add(ref xc, co + k + 1);
+                    Unsafe.Add(ref xf, row + 2 * I) += low;
+                    Unsafe.Add(ref xf, row + 2 * I + 1) += Unsafe.Add(ref xl, k) * low + Unsafe.Add(ref xh, k) * high;
+                }
+                if ((fnx & 1) == 1) Unsafe.Add(ref xf, row + fnx - 1) += Unsafe.Add(ref xc, co + k0 + pairs);
             }
             else
             {
-                for (int I = 0; I < pairs; I++)
+                for (; I + width <= pairs; I += width)
                 {
                     int k = k0 + I;
-                    float a = xc[co + k], b = xc[co + k + 1], d = xc[co + k + ncx], e = xc[co + k + ncx + 1];
-                    xf[row + 2 * I] += yl[k] * a + yh[k] * d;
-                    xf[row + 2 * I + 1] += (sw[k] * a + se[k] * b) + (nw[k] * d + ne[k] * e);
+                    var a = Load(ref xc, co + k); var d = Load(ref xc, co + k + ncx);
+                    AddPairs(ref xf, row + 2 * I, Load(ref yl, k) * a + Load(ref yh, k) * d,
+                        (Load(ref sw, k) * a + Load(ref se, k) * Load(ref xc, co + k + 1)) + (Load(ref nw, k) * d + Load(ref ne, k) * Load(ref xc, co + k + ncx + 1)));
                 }
-                if ((fnx & 1) == 1) { int k = k0 + pairs; xf[row + fnx - 1] += yl[k] * xc[co + k] + yh[k] * xc[co + k + ncx]; }
+                for (; I < pairs; I++)
+                {
+                    int k = k0 + I;
+                    float a = Unsafe.Add(ref xc, co + k), b = Unsafe.Add(ref xc, co + k + 1), d = Unsafe.Add(ref xc, co + k + ncx), e = Unsafe.Add(ref xc, co + k + ncx + 1);
+                    Unsafe.Add(ref xf, row + 2 * I) += Unsafe.Add(ref yl, k) * a + Unsafe.Add(ref yh, k) * d;
+                    Unsafe.Add(ref xf, row + 2 * I + 1) += (Unsafe.Add(ref sw, k) * a + Unsafe.Add(ref se, k) * b) + (Unsafe.Add(ref nw, k) * d + Unsafe.Add(ref ne, k) * e);
+                }
+                if ((fnx & 1) == 1)
+                {
+                    int k = k0 + pairs;
+                    Unsafe.Add(ref xf, row + fnx - 1) += Unsafe.Add(ref yl, k) * Unsafe.Add(ref xc, co + k) + Unsafe.Add(ref yh, k) * Unsafe.Add(ref xc, co + k + ncx);
+                }
             }
+        }
+
+        // Vector256<float>.Count floats from index i
+        static Vector256<float> Load(ref float a, int i) => Vector256.LoadUnsafe(ref a, (nuint)i);
+
+        // x[i + 2k] += even_k, x[i + 2k + 1] += odd_k
+        static void AddPairs(ref float x, int i, Vector256<float> even, Vector256<float> odd)
+        {
+            var (low, high) = Interleave(even, odd);
+            (Vector256.LoadUnsafe(ref x, (nuint)i) + low).StoreUnsafe(ref x, (nuint)i);
+            (Vector256.LoadUnsafe(ref x, (nuint)(i + Vector256<float>.Count)) + high).StoreUnsafe(ref x, (nuint)(i + Vector256<float>.Count));
         }
     }
 
