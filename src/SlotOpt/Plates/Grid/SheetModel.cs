@@ -59,7 +59,7 @@ public sealed class SheetModel
         Multigrid.TrySolve(b, psi, criterion, out report);
 
     public SolveReport Solve(double[] b, double[] psi, ConvergenceCriterion criterion) =>
-        TrySolve(b, psi, criterion, out var report) ? report : throw new NumericalFailureException($"sheet solver: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
+        TrySolve(b, psi, criterion, out var report) ? report : throw new NumericalFailureException($"sheet solver: {report.Description}");
 
     /// <summary>Loss at unit reference sheet conductance, P = psi^T A psi (W per S of reference conductance; instantaneous for this psi).</summary>
     public double LossPerSiemens(double[] psi)
