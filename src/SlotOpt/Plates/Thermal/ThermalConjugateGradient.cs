@@ -42,8 +42,8 @@ public sealed class ThermalConjugateGradient
     /// <summary>The residual B - A X: set by <see cref="StartResidual"/>, kept by the solve and <see cref="Update"/>.</summary>
     public double[] R => _r;
 
-    /// <summary>R = B - A X (one operator pass).</summary>
-    public void StartResidual() => _a.Residual(B, X, R);
+    /// <summary>R = B - A X (one operator pass); returns |R|^2 and max |R|.</summary>
+    public (double Squared, double Largest) StartResidual() => _a.Residual(B, X, R);
 
     /// <summary>Node p's diagonal and right-hand side change to the given values, and R follows: r += (b' - b) - (d' - d) x, exact
     /// as far as rounding goes (the conduction, the rest of the row, did not move).</summary>
@@ -56,21 +56,22 @@ public sealed class ThermalConjugateGradient
         _b[q] = rightHandSide;
     }
 
-    /// <summary>|R| and |B|.</summary>
+    /// <summary>|R|, |B| and max |R| (the multigrid's scaling of R).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
-    public (double Residual, double RightHandSide) Norms()
+    public (double Residual, double RightHandSide, double Largest) Norms()
     {
-        double rr = 0, bb = 0;
-        for (int i = 0; i < R.Length; i++) { rr += R[i] * R[i]; bb += B[i] * B[i]; }
-        return (Math.Sqrt(rr), Math.Sqrt(bb));
+        double rr = 0, bb = 0, largest = 0;
+        for (int i = 0; i < R.Length; i++) { rr += R[i] * R[i]; bb += B[i] * B[i]; largest = Math.Max(largest, Math.Abs(R[i])); }
+        return (Math.Sqrt(rr), Math.Sqrt(bb), largest);
     }
 
     /// <summary>Solves from X and R (R = B - A X on entry) until |R| &lt;= criterion |B|; see the type's summary for <paramref name="confirm"/>.
-    /// <paramref name="norms"/>: |R| and |B| as <see cref="Norms"/> gives them, when the caller's pass has them (else computed here).</summary>
+    /// <paramref name="norms"/>: |R|, |B| and max |R| as <see cref="Norms"/> gives them, when the caller's pass has them (else computed here).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report, (double Residual, double RightHandSide)? norms = null)
+    public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report,
+        (double Residual, double RightHandSide, double Largest)? norms = null)
     {
-        var (start, normB) = norms ?? Norms();
+        var (start, normB, largest) = norms ?? Norms();
         var x = X; var r = R; var p = _p; var q = _q;
         if (normB == 0)
         {
@@ -88,17 +89,18 @@ public sealed class ThermalConjugateGradient
             if (rn <= target)
             {
                 if (!confirm) { report = new SolveReport(SolveStatus.Converged, iterations, rn / normB); return true; }
-                double trueNorm = Math.Sqrt(_a.Residual(B, x, r));
+                (double squared, largest) = _a.Residual(B, x, r);
+                double trueNorm = Math.Sqrt(squared);
                 if (trueNorm <= target) { report = new SolveReport(SolveStatus.Converged, iterations, trueNorm / normB); return true; }
                 rn = trueNorm;
             }
             if (iterations >= criterion.MaxIterations)
             {
-                report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(_a.Residual(B, x, r)) / normB);
+                report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(_a.Residual(B, x, r).Squared) / normB);
                 return false;
             }
             // (re)start: p = z = M^-1 r
-            double rz = m.ApplyOnLattice(r, LargestMagnitude(r), out var z, out double zScale);
+            double rz = m.ApplyOnLattice(r, largest, out var z, out double zScale);
             for (int i = 0; i < p.Length; i++) p[i] = z[i] * zScale;
             double pq = _a.Multiply(p, q);
             while (iterations < criterion.MaxIterations)
@@ -107,7 +109,7 @@ public sealed class ThermalConjugateGradient
                 if (!double.IsFinite(pq) || !double.IsFinite(rz)) { report = new SolveReport(SolveStatus.NonFinite, iterations, rn / normB); return false; }
                 if (!(pq > 0)) { report = new SolveReport(SolveStatus.NotPositiveDefinite, iterations, rn / normB); return false; }
                 double alpha = rz / pq;
-                (double squared, double largest) = UpdateSolutionAndResidual(x, r, p, q, alpha);
+                (double squared, largest) = UpdateSolutionAndResidual(x, r, p, q, alpha);
                 rn = Math.Sqrt(squared);
                 iterations++;
                 if (!double.IsFinite(rn) || rn > criterion.DivergenceFactor * Math.Max(start, normB))
@@ -138,13 +140,5 @@ public sealed class ThermalConjugateGradient
             largest = Math.Max(largest, Math.Abs(v));
         }
         return (s0 + s1, largest);
-    }
-
-    /// <summary>max |v|.</summary>
-    private static double LargestMagnitude(double[] v)
-    {
-        double largest = 0;
-        foreach (double value in v) largest = Math.Max(largest, Math.Abs(value));
-        return largest;
     }
 }

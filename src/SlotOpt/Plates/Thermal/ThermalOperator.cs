@@ -46,10 +46,10 @@ public sealed class ThermalOperator
     }
 
     /// <summary>y = A x on the padded lattice; returns x . y (conjugate gradients' p . A p, in the same pass).</summary>
-    public double Multiply(double[] x, double[] y) => Apply(default, x, y, residual: false);
+    public double Multiply(double[] x, double[] y) => Apply(default, x, y, residual: false).Dot;
 
-    /// <summary>r = b - A x on the padded lattice; returns r . r.</summary>
-    public double Residual(double[] b, double[] x, double[] r) => Apply(b, x, r, residual: true);
+    /// <summary>r = b - A x on the padded lattice; returns r . r and max |r| (the multigrid's scaling of r).</summary>
+    public (double Squared, double Largest) Residual(double[] b, double[] x, double[] r) => Apply(b, x, r, residual: true);
 
     /// <summary>Conjugate gradients' next direction and its product in one pass: p = z + beta p, q = A p, with z = zScale times the
     /// multigrid's single-precision output (<see cref="StructuredMultigrid.ApplyOnLattice"/>, same layout); returns p . q. The pass updates
@@ -104,9 +104,9 @@ public sealed class ThermalOperator
         return down + left + centre + right + up;
     }
 
-    /// <summary>One pass over the nodes: y = A x (returns x . y) or y = b - A x (returns y . y).</summary>
+    /// <summary>One pass over the nodes: y = A x (returns x . y) or y = b - A x (returns y . y and max |y|).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private double Apply(ReadOnlySpan<double> b, double[] x, double[] y, bool residual)
+    private (double Dot, double Largest) Apply(ReadOnlySpan<double> b, double[] x, double[] y, bool residual)
     {
         Check(x); Check(y);
         if (residual && b.Length != LatticeLength) throw new ArgumentException("one value per node of the padded lattice");
@@ -116,7 +116,7 @@ public sealed class ThermalOperator
         ref double v = ref MemoryMarshal.GetArrayDataReference(x);
         int nx = _network.Lattice.NodesX, pad = Pad, n = DiagonalWPerK.Length;
         double kt = _network.ConductanceScaleWPerK;
-        double s0 = 0, s1 = 0;
+        double s0 = 0, s1 = 0, largest = 0;
         for (int k = 0; k < n; k++)
         {
             int i = pad + k;
@@ -125,7 +125,8 @@ public sealed class ThermalOperator
             y[i] = value;
             double term = (residual ? value : Unsafe.Add(ref v, i)) * value;
             if ((k & 1) == 0) s0 += term; else s1 += term;
+            if (residual) largest = Math.Max(largest, Math.Abs(value));
         }
-        return s0 + s1;
+        return (s0 + s1, largest);
     }
 }
