@@ -102,19 +102,11 @@ public static class PlateTemperatureSolver
         var fluid = cooling.Medium switch { CoolingMedium.Air => CoolingFluid.Air, CoolingMedium.Oil => CoolingFluid.MineralOil, _ => null };
         bool radiates = cooling.Emissivity > 0;
         double ambient = cooling.AmbientK;   // a local, not the field the outflow model's closure holds
-        // the radiation law eps sigma (T^4 - T_inf^4) and its slope 4 eps sigma T^3 from one square of T (SurfaceRadiation)
-        double radiationFactor = cooling.Emissivity * SurfaceRadiation.StefanBoltzmann, slopeFactor = 4 * radiationFactor;
-        double ambientFourth = ambient * ambient * (ambient * ambient);
-        var area = network.NodeAreaM2;
-        var unitDiagonal = network.UnitDiagonal;
-        double kt = network.ConductanceScaleWPerK;
+        var radiation = new GreyFaces(cooling.Emissivity, ambient);
 
         var op = new ThermalOperator(network);
         var cg = new ThermalConjugateGradient(op);
         var rise = cg.X;   // the rise by node on the padded lattice: node n at pad + n
-        var residualVector = cg.R;
-        var rightHandSide = cg.B;
-        var diagonalByNode = op.DiagonalWPerK;
         int pad = op.Pad;
         var temperature = new double[map.Length];   // the answer; with radiation, until then each node's rise at the step's linearisation
         var previous = radiates ? temperature : null;
@@ -154,45 +146,11 @@ public static class PlateTemperatureSolver
             bool coldStart = first && !warm;
             // the first steps from a cold start only point the way when more steps are to follow; only a tight step can end the iteration
             bool tight = !iterates || warm || iterations > EarlyCriteria.Count;
-            // the step's diagonal and right-hand side by node; from the second step on, the residual follows the change (cg.Update)
-            // in the same pass, which also forms |r|^2, |b|^2 (nodes in order, as cg.Norms) and max |r| for the solve
-            double sumH = 0, residualSquared = 0, rightHandSideSquared = 0, largestResidual = 0;
-            for (int n = 0; n < map.Length; n++)
-            {
-                int u = map[n];
-                if (u < 0) continue;
-                int q = pad + n;
-                if (coldStart) rise[q] = predictedMean;
-                double h = hConv, heat = nodeHeat[n], a = area[n];
-                if (radiates)
-                {
-                    // Newton step on the radiation of both faces: q_r(r) ~ q_r(r0) + q_r'(r0) (r - r0), q_r' = 4 eps sigma T0^3
-                    double r0 = rise[q];
-                    if (tight) previous![n] = r0;   // what the step moves, for its stopping test
-                    if (r0 < 0) r0 = 0;
-                    double t0 = ambient + r0, t2 = t0 * t0;
-                    double slope = slopeFactor * (t2 * t0);
-                    h += slope;
-                    heat -= 2 * a * (radiationFactor * (t2 * t2 - ambientFourth) - slope * r0);
-                }
-                sumH += h;
-                double diagonal = kt * unitDiagonal[u] + 2 * h * a;   // ThermalNetwork.DiagonalAt
-                if (first) { diagonalByNode[n] = diagonal; rightHandSide[q] = heat; }
-                else
-                {
-                    cg.Update(n, diagonal, heat);
-                    double change = residualVector[q];
-                    residualSquared += change * change;
-                    largestResidual = Math.Max(largestResidual, Math.Abs(change));
-                }
-                rightHandSideSquared += heat * heat;
-            }
-            if (first) (residualSquared, largestResidual) = cg.StartResidual();
+            var (sumH, norms) = SetStep(network, op, cg, nodeHeat, hConv, radiation, first, coldStart ? predictedMean : null, tight ? previous : null);
             var multigrid = network.Preconditioner(op, sumH / unknowns);   // kept while h / (k t) moves little: an SPD preconditioner either way
             // a later step reduces its starting residual at least tenfold, so that a small move of h or of the radiation's linearisation is
             // still resolved (an inexact fixed-point iteration)
             var criterion = tight ? LinearCriterion : EarlyCriteria[iterations - 1];
-            var norms = (Residual: Math.Sqrt(residualSquared), RightHandSide: Math.Sqrt(rightHandSideSquared), Largest: largestResidual);
             if (!first)
             {
                 double target = Math.Max(StepReduction * norms.Residual / norms.RightHandSide, RoundingResidual);
@@ -203,24 +161,9 @@ public static class PlateTemperatureSolver
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
             residual = report.RelativeResidual;
-            // the solve's sums: largest rise, mean rise, radiated heat (the exact law), heat into held edges and, with radiation, the largest move
-            double largest = 0, moved = 0;
-            weighted = 0; radiatedNow = 0; edgeNow = 0;
-            for (int n = 0; n < map.Length; n++)
-            {
-                int u = map[n];
-                if (u < 0) continue;
-                double value = rise[pad + n], a = area[n];
-                largest = Math.Max(largest, Math.Abs(value));
-                weighted += a * value;
-                if (radiates)
-                {
-                    if (tight) moved = Math.Max(moved, Math.Abs(value - previous![n]));
-                    double t = ambient + value, t2 = t * t;
-                    radiatedNow += a * (radiationFactor * (t2 * t2 - ambientFourth));   // SurfaceRadiation.HeatFluxWPerM2
-                }
-                if (anyHeld) edgeNow += network.ConductanceToHeld(u) * value;
-            }
+            var sums = SumRise(network, rise, pad, radiation, tight ? previous : null);
+            double largest = sums.Largest, moved = sums.Moved;
+            weighted = sums.Weighted; radiatedNow = sums.Radiated; edgeNow = sums.Edge;
             // a NaN or an infinite rise at any node makes these sums so (every node with an unknown has an area)
             if (!double.IsFinite(weighted) || !double.IsFinite(largest)) throw new NumericalFailureException("plate temperature: the solution is not finite");
             double meanRise = weighted / totalArea;
@@ -249,5 +192,112 @@ public static class PlateTemperatureSolver
             throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
                 $"plate temperature: the heat balance does not close (in {heatIn:G6} W, out {convected + radiated + edge:G6} W)"));
         return new PlateTemperature(network, temperature, cooling.AmbientK, hConv, heatIn, convected, radiated, edge, iterations, linear, residual);
+    }
+
+    /// <summary>
+    /// The step's pass over the nodes: each unknown's diagonal (conduction plus 2 h A, with radiation h + q_r'(r0), the Newton step
+    /// q_r(r) ~ q_r(r0) + q_r'(r0) (r - r0) about the node's rise r0) and right-hand side (the loss, less 2 A (q_r(r0) - q_r'(r0) r0) with
+    /// radiation). The first step sets them (and the rise to <paramref name="uniformStart"/> from a cold start) and forms R = B - A X after;
+    /// later steps change them in place with the residual following the change (<see cref="ThermalConjugateGradient.Update"/>). Returns the
+    /// sum of the surface coefficients (for the preconditioner) and |r|, |b| and max |r| for the solve (nodes in order, as
+    /// <see cref="ThermalConjugateGradient.Norms"/> forms them). <paramref name="previous"/>: where to keep each rise the step starts from.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static (double SumH, (double Residual, double RightHandSide, double Largest) Norms) SetStep(ThermalNetwork network, ThermalOperator op,
+        ThermalConjugateGradient cg, double[] nodeHeat, double hConv, GreyFaces radiation, bool first, double? uniformStart, double[]? previous)
+    {
+        var map = network.NodeUnknown;
+        var area = network.NodeAreaM2;
+        var unitDiagonal = network.UnitDiagonal;
+        double kt = network.ConductanceScaleWPerK;
+        var rise = cg.X; var residual = cg.R; var rightHandSide = cg.B; var diagonalByNode = op.DiagonalWPerK;
+        int pad = op.Pad;
+        bool radiates = radiation.Radiates, coldStart = uniformStart.HasValue;
+        double start = uniformStart.GetValueOrDefault();
+        double sumH = 0, residualSquared = 0, rightHandSideSquared = 0, largestResidual = 0;
+        for (int n = 0; n < map.Length; n++)
+        {
+            int u = map[n];
+            if (u < 0) continue;
+            int q = pad + n;
+            if (coldStart) rise[q] = start;
+            double h = hConv, heat = nodeHeat[n], a = area[n];
+            if (radiates)
+            {
+                double r0 = rise[q];
+                if (previous is not null) previous[n] = r0;
+                if (r0 < 0) r0 = 0;
+                var (flux, slope) = radiation.FluxAndSlope(r0);
+                h += slope;
+                heat -= 2 * a * (flux - slope * r0);
+            }
+            sumH += h;
+            double diagonal = kt * unitDiagonal[u] + 2 * h * a;   // ThermalNetwork.DiagonalAt
+            if (first) { diagonalByNode[n] = diagonal; rightHandSide[q] = heat; }
+            else
+            {
+                cg.Update(n, diagonal, heat);
+                double r = residual[q];
+                residualSquared += r * r;
+                largestResidual = Math.Max(largestResidual, Math.Abs(r));
+            }
+            rightHandSideSquared += heat * heat;
+        }
+        if (first) (residualSquared, largestResidual) = cg.StartResidual();
+        return (sumH, (Math.Sqrt(residualSquared), Math.Sqrt(rightHandSideSquared), largestResidual));
+    }
+
+    /// <summary>A solve's sums over the unknowns: the largest |rise| (K), sum of A r (m^2 K), sum of A q_r(r) (W, the exact law, one face),
+    /// heat into held edges (W) and the largest move from <paramref name="previous"/> (K; 0 without).</summary>
+    private readonly record struct RiseSums(double Largest, double Weighted, double Radiated, double Edge, double Moved);
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static RiseSums SumRise(ThermalNetwork network, double[] rise, int pad, GreyFaces radiation, double[]? previous)
+    {
+        var map = network.NodeUnknown;
+        var area = network.NodeAreaM2;
+        bool radiates = radiation.Radiates, anyHeld = network.HeldNodes > 0;
+        double largest = 0, weighted = 0, radiated = 0, edge = 0, moved = 0;
+        for (int n = 0; n < map.Length; n++)
+        {
+            int u = map[n];
+            if (u < 0) continue;
+            double value = rise[pad + n], a = area[n];
+            largest = Math.Max(largest, Math.Abs(value));
+            weighted += a * value;
+            if (radiates)
+            {
+                if (previous is not null) moved = Math.Max(moved, Math.Abs(value - previous[n]));
+                radiated += a * radiation.Flux(value);
+            }
+            if (anyHeld) edge += network.ConductanceToHeld(u) * value;
+        }
+        return new RiseSums(largest, weighted, radiated, edge, moved);
+    }
+
+    /// <summary>Grey-body radiation of a face at ambient + rise to surroundings at ambient, eps sigma (T^4 - T_inf^4)
+    /// (<see cref="SurfaceRadiation.HeatFluxWPerM2"/>, the same products), and its slope 4 eps sigma T^3 from the same square of T.</summary>
+    private readonly struct GreyFaces(double emissivity, double ambientK)
+    {
+        private readonly double _factor = emissivity * SurfaceRadiation.StefanBoltzmann, _ambient = ambientK,
+            _ambientFourth = ambientK * ambientK * (ambientK * ambientK);
+
+        public bool Radiates => _factor > 0;
+
+        /// <summary>q_r (W/m^2) at the given rise (K).</summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public double Flux(double rise)
+        {
+            double t = _ambient + rise, t2 = t * t;
+            return _factor * (t2 * t2 - _ambientFourth);
+        }
+
+        /// <summary>q_r (W/m^2) and q_r' (W/m^2K) at the given rise (K).</summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public (double Flux, double Slope) FluxAndSlope(double rise)
+        {
+            double t = _ambient + rise, t2 = t * t;
+            return (_factor * (t2 * t2 - _ambientFourth), 4 * _factor * (t2 * t));
+        }
     }
 }

@@ -65,6 +65,7 @@ public sealed class ThermalNetwork
     private readonly PreconditionerCache _cache;
 
     /// <summary>Conductance summed over the links from unknown u to held nodes (W/K), for the heat the edge takes.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     public double ConductanceToHeld(int u) => HeldNodes == 0 ? 0 : ConductanceScaleWPerK * _unitConductanceToHeld[u];
 
     /// <summary>The same plate and grid with another k t (another material or thickness): shares the grid's arrays and the preconditioner.</summary>
