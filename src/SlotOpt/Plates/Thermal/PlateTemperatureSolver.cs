@@ -199,8 +199,8 @@ public static class PlateTemperatureSolver
     /// q_r(r) ~ q_r(r0) + q_r'(r0) (r - r0) about the node's rise r0) and right-hand side (the loss, less 2 A (q_r(r0) - q_r'(r0) r0) with
     /// radiation). The first step sets them (and the rise to <paramref name="uniformStart"/> from a cold start) and forms R = B - A X after;
     /// later steps change them in place with the residual following the change (<see cref="ThermalConjugateGradient.Update"/>). Returns the
-    /// sum of the surface coefficients (for the preconditioner) and |r|, |b| and max |r| for the solve (nodes in order, as
-    /// <see cref="ThermalConjugateGradient.Norms"/> forms them). <paramref name="previous"/>: where to keep each rise the step starts from.
+    /// sum of the surface coefficients (for the preconditioner) and |r|, |b| and max |r| for the solve (as
+    /// <see cref="ThermalConjugateGradient.Norms"/> gives them; the first step's |r| and max |r| from the residual pass). <paramref name="previous"/>: where to keep each rise the step starts from.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static (double SumH, (double Residual, double RightHandSide, double Largest) Norms) SetStep(ThermalNetwork network, ThermalOperator op,

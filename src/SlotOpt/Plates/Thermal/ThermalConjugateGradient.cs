@@ -103,8 +103,8 @@ public sealed class ThermalConjugateGradient
             }
             // (re)start: p = z = M^-1 r
             double rz = m.ApplyOnLattice(r, largest, out var z, out double zScale);
-            for (int i = 0; i < p.Length; i++) p[i] = z[i] * zScale;
-            double pq = _a.Multiply(p, q);
+            Array.Clear(p);   // then p = zScale z + 0 p with its product in one pass (0 times an old direction that is not finite would not be 0)
+            double pq = _a.MultiplyNextDirection(z, zScale, 0, p, q);
             while (iterations < criterion.MaxIterations)
             {
                 criterion.ThrowIfCancelled();
