@@ -87,9 +87,11 @@ public sealed class ThermalNetwork
         int nx = l.Nx, ny = l.Ny, nxn = l.NodesX, px = nx + 2;
         // per cell, on a lattice padded with one empty cell all round (cell (i, j) at (j + 1) px + i + 1): the conducting
         // cross-section fraction (area fraction x remaining thickness fraction); each conducting cell's area fraction goes to its four
-        // corners, each node's sum taking its cells in the order south-west, south-east, north-west, north-east (cell order)
+        // corners, each node's sum taking its cells in the order south-west, south-east, north-west, north-east (cell order), and the
+        // nodes that get some area are counted
         var f = new double[px * (ny + 2)];
         var area = new double[l.NodeCount];
+        int metalNodes = 0;
         for (int j = 0; j < ny; j++)
             for (int i = 0; i < nx; i++)
             {
@@ -97,44 +99,52 @@ public sealed class ThermalNetwork
                 if (!(grid.Conductance[c] > 0)) continue;
                 double a = grid.AreaFraction[c];
                 f[k] = a * (double)grid.ThicknessFraction[c];
+                if (!(a > 0)) continue;
                 int n = j * nxn + i;
-                area[n] += a; area[n + 1] += a; area[n + nxn] += a; area[n + nxn + 1] += a;
+                if (area[n] == 0) metalNodes++;
+                area[n] += a;
+                if (area[n + 1] == 0) metalNodes++;
+                area[n + 1] += a;
+                if (area[n + nxn] == 0) metalNodes++;
+                area[n + nxn] += a;
+                if (area[n + nxn + 1] == 0) metalNodes++;
+                area[n + nxn + 1] += a;
             }
-        var outside = edges == ThermalEdge.Ambient ? OutsideCells(f, px, ny + 2) : null;
 
+        // with held edges, the metal nodes touching the outside (empty cells connected to the border) are held at ambient
         var held = new bool[l.NodeCount];
+        int heldNodes = 0;
+        if (edges == ThermalEdge.Ambient)
+        {
+            var outside = OutsideCells(f, px, ny + 2);
+            for (int j = 0; j <= ny; j++)
+                for (int i = 0; i < nxn; i++)
+                {
+                    int n = j * nxn + i;
+                    int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;   // the four cells around node (i, j), padded
+                    if (area[n] > 0 && (outside[sw] || outside[se] || outside[nw] || outside[ne])) { held[n] = true; heldNodes++; }
+                }
+        }
+
+        // one pass over the nodes: the dual area, the unknown, and the links at k t = 1 (a node's neighbours below and to the left are
+        // numbered already, those above and to the right are only read for being held)
         var nodeUnknown = new int[l.NodeCount];
+        var west = new double[l.NodeCount + nxn + 2];
+        var south = new double[l.NodeCount + nxn + 2];
+        var diagonal = new double[metalNodes - heldNodes];
+        var toHeld = heldNodes > 0 ? new double[metalNodes - heldNodes] : [];
         double quarter = l.CellAreaM2 / 4, totalArea = 0;
-        int unknowns = 0, heldNodes = 0;
+        double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
+        int unknowns = 0;
         for (int j = 0; j <= ny; j++)
             for (int i = 0; i < nxn; i++)
             {
                 int n = j * nxn + i;
                 area[n] *= quarter;
                 totalArea += area[n];
-                if (area[n] == 0) { nodeUnknown[n] = -1; continue; }
-                int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;   // the four cells around node (i, j), padded
-                if (outside is not null && (outside[sw] || outside[se] || outside[nw] || outside[ne]))
-                {
-                    held[n] = true;
-                    heldNodes++;
-                    nodeUnknown[n] = -1;
-                    continue;
-                }
-                nodeUnknown[n] = unknowns++;
-            }
-
-        var west = new double[l.NodeCount + nxn + 2];
-        var south = new double[l.NodeCount + nxn + 2];
-        var diagonal = new double[unknowns];
-        var toHeld = heldNodes > 0 ? new double[unknowns] : [];
-        double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
-        for (int j = 0; j <= ny; j++)
-            for (int i = 0; i < nxn; i++)
-            {
-                int n = j * nxn + i;
-                int u = nodeUnknown[n];
-                if (u < 0) continue;
+                if (area[n] == 0 || held[n]) { nodeUnknown[n] = -1; continue; }
+                int u = unknowns++;
+                nodeUnknown[n] = u;
                 // links at k t = 1: left/right cross the cells below (j-1) and above (j); down/up the cells left (i-1) and right (i)
                 int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;
                 double down = j > 0 ? ry * (f[sw] + f[se]) / 2 : 0;
@@ -151,6 +161,7 @@ public sealed class ThermalNetwork
                 if (right > 0 && held[n + 1]) toHeld[u] += right;
                 if (up > 0 && held[n + nxn]) toHeld[u] += up;
             }
+        if (unknowns != diagonal.Length) throw new InvalidOperationException($"thermal network: {unknowns} unknowns numbered, {diagonal.Length} counted");
         return new ThermalNetwork(grid, nodeUnknown, unknowns, held, heldNodes, area, totalArea, west, south, diagonal, toHeld,
             Scale(thermalConductivityWPerMK, thicknessM), new PreconditionerCache());
     }
