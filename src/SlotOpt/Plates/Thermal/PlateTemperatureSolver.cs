@@ -98,20 +98,21 @@ public static class PlateTemperatureSolver
         var nodeHeat = network.NodeHeat(cellLossW);
         var map = network.NodeUnknown;
         int unknowns = network.Unknowns;
-        double totalArea = network.NodeAreaM2.Sum();
+        double totalArea = network.TotalAreaM2;
         var fluid = cooling.Medium switch { CoolingMedium.Air => CoolingFluid.Air, CoolingMedium.Oil => CoolingFluid.MineralOil, _ => null };
         bool radiates = cooling.Emissivity > 0;
-        double emissivity = cooling.Emissivity, ambient = cooling.AmbientK;   // locals, not the fields the outflow model's closure holds
-        var area = network.NodeAreaM2;
+        double ambient = cooling.AmbientK;   // a local, not the field the outflow model's closure holds
+        var radiation = new GreyFaces(cooling.Emissivity, ambient);
 
         var op = new ThermalOperator(network);
         var cg = new ThermalConjugateGradient(op);
         var rise = cg.X;   // the rise by node on the padded lattice: node n at pad + n
         int pad = op.Pad;
-        var previous = new double[map.Length];
+        var temperature = new double[map.Length];   // the answer; with radiation, until then each node's rise at the step's linearisation
+        var previous = radiates ? temperature : null;
         double heldHeat = 0;   // the loss put on nodes held at ambient goes straight into the edge
-        bool anyHeld = false;
-        for (int n = 0; n < map.Length; n++) if (network.HeldNode[n]) { heldHeat += nodeHeat[n]; anyHeld = true; }
+        bool anyHeld = network.HeldNodes > 0;
+        if (anyHeld) for (int n = 0; n < map.Length; n++) if (network.HeldNode[n]) heldHeat += nodeHeat[n];
         double perFace = Math.Max(heatIn - heldHeat, 0) / (2 * totalArea);   // W/m^2 each face would shed with no other heat into edges
         double lastMean = 0, lastRadiated = 0, lastEdge = 0;   // the last solve's mean rise and its radiated and edge heat per face (W/m^2)
         double hConv = 0;
@@ -142,44 +143,17 @@ public static class PlateTemperatureSolver
                 predictedMean = perFace > 0 && (radiates || lastEdge > 0) ? Brent.FindRoot(r => (hConv * r + Other(r)) / perFace - 1, 0, perFace / hConv, 1e-13, 200) : perFace / hConv;
             }
             bool first = iterations == 1;
-            // the first steps from a cold start only point the way when more steps follow; only a tight step can end the iteration
+            bool coldStart = first && !warm;
+            // the first steps from a cold start only point the way when more steps are to follow; only a tight step can end the iteration
             bool tight = !iterates || warm || iterations > EarlyCriteria.Count;
-            // the step's diagonal and right-hand side by node; from the second step on, the residual follows the change (cg.Update)
-            double sumH = 0, residualSquared = 0, rightHandSideSquared = 0;   // |r|^2 and |b|^2 after the update (nodes in order, as cg.Norms)
-            for (int n = 0; n < map.Length; n++)
-            {
-                if (map[n] < 0) continue;
-                int q = pad + n;
-                if (first && !warm) rise[q] = predictedMean;
-                if (tight) previous[n] = rise[q];   // what the step moves, for its stopping test
-                double h = hConv, heat = nodeHeat[n];
-                if (radiates)
-                {
-                    // Newton step on the radiation of both faces: q_r(r) ~ q_r(r0) + q_r'(r0) (r - r0), q_r' = 4 eps sigma T0^3
-                    double r0 = Math.Max(rise[q], 0), t0 = ambient + r0;
-                    double slope = 4 * emissivity * SurfaceRadiation.StefanBoltzmann * t0 * t0 * t0;
-                    h += slope;
-                    heat -= 2 * area[n] * (SurfaceRadiation.HeatFluxWPerM2(emissivity, t0, ambient) - slope * r0);
-                }
-                sumH += h;
-                double diagonal = network.DiagonalAt(n, h);
-                if (first) { op.DiagonalWPerK[n] = diagonal; cg.B[q] = heat; }
-                else
-                {
-                    cg.Update(n, diagonal, heat);
-                    residualSquared += cg.R[q] * cg.R[q];
-                    rightHandSideSquared += cg.B[q] * cg.B[q];
-                }
-            }
-            if (first) cg.StartResidual();
+            var (sumH, norms) = SetStep(network, op, cg, nodeHeat, hConv, radiation, first, coldStart ? predictedMean : null, tight ? previous : null);
             var multigrid = network.Preconditioner(op, sumH / unknowns);   // kept while h / (k t) moves little: an SPD preconditioner either way
             // a later step reduces its starting residual at least tenfold, so that a small move of h or of the radiation's linearisation is
             // still resolved (an inexact fixed-point iteration)
             var criterion = tight ? LinearCriterion : EarlyCriteria[iterations - 1];
-            (double Residual, double RightHandSide)? norms = first ? null : (Math.Sqrt(residualSquared), Math.Sqrt(rightHandSideSquared));
-            if (norms is var (startResidual, normB))
+            if (!first)
             {
-                double target = Math.Max(StepReduction * startResidual / normB, RoundingResidual);
+                double target = Math.Max(StepReduction * norms.Residual / norms.RightHandSide, RoundingResidual);
                 if (target < criterion.RelativeResidual) criterion = criterion with { RelativeResidual = target };
             }
             // only a tight step can end the iteration: it confirms its residual against a fresh b - A x
@@ -187,31 +161,22 @@ public static class PlateTemperatureSolver
                 throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
             linear += report.Iterations;
             residual = report.RelativeResidual;
-            double largest = 0, change = 0;
-            weighted = 0; radiatedNow = 0; edgeNow = 0;
-            for (int n = 0; n < map.Length; n++)
-            {
-                int u = map[n];
-                if (u < 0) continue;
-                double value = rise[pad + n];
-                if (!double.IsFinite(value)) throw new NumericalFailureException("plate temperature: the solution is not finite");
-                largest = Math.Max(largest, Math.Abs(value));
-                if (tight) change = Math.Max(change, Math.Abs(value - previous[n]));
-                weighted += area[n] * value;
-                if (radiates) radiatedNow += area[n] * SurfaceRadiation.HeatFluxWPerM2(emissivity, ambient + value, ambient);
-                if (anyHeld) edgeNow += network.ConductanceToHeld(u) * value;
-            }
+            var sums = SumRise(network, rise, pad, radiation, tight ? previous : null);
+            double largest = sums.Largest, moved = sums.Moved;
+            weighted = sums.Weighted; radiatedNow = sums.Radiated; edgeNow = sums.Edge;
+            // a NaN or an infinite rise at any node makes these sums so (every node with an unknown has an area)
+            if (!double.IsFinite(weighted) || !double.IsFinite(largest)) throw new NumericalFailureException("plate temperature: the solution is not finite");
             double meanRise = weighted / totalArea;
             // h off by a fraction e moves the rise by at most e h / (h + q_r'(T_inf)) of the largest rise: d rise = -A^-1 (2 A rise) dh, and the
             // M-matrix bound max |A^-1 v| <= max |v_n| / (2 A_n (h + q_r'(T_n))) with q_r' = 4 eps sigma T^3 no smaller than at ambient
             double riseFromH = fluid is null ? 0 : Math.Abs(NaturalConvection.AverageCoefficient(fluid, cooling.AmbientK, meanRise, cooling.VerticalLengthM) - hConv) / hConv
                 * hConv / (hConv + 4 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * Math.Pow(cooling.AmbientK, 3));
-            double hottest = cooling.AmbientK + largest + change;   // the hottest a node was between its linearisation point and now
-            bool radiationSettled = !radiates || 6 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * hottest * hottest * change * change / hConv <= RelativeTolerance * largest;
+            double hottest = cooling.AmbientK + largest + moved;   // the hottest a node was between its linearisation point and now
+            bool radiationSettled = !radiates || 6 * cooling.Emissivity * SurfaceRadiation.StefanBoltzmann * hottest * hottest * moved * moved / hConv <= RelativeTolerance * largest;
             if (largest == 0 || (tight && riseFromH <= RelativeTolerance && radiationSettled)) break;
             if (iterations >= MaxIterations)
                 throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
-                    $"plate temperature: the surface coefficients did not settle in {MaxIterations} iterations (h moves the rise by up to {riseFromH:G3} of the largest, last change {change:G3} K at a largest rise of {largest:G4} K)"));
+                    $"plate temperature: the surface coefficients did not settle in {MaxIterations} iterations (h moves the rise by up to {riseFromH:G3} of the largest{(radiates ? $", last change {moved:G3} K" : "")} at a largest rise of {largest:G4} K)"));
             lastMean = Math.Max(meanRise, 0);
             lastRadiated = radiatedNow / totalArea;
             lastEdge = edgeNow / (2 * totalArea);
@@ -220,7 +185,6 @@ public static class PlateTemperatureSolver
         // the balance from the last solve's sums: convection 2 h A r and radiation 2 A q_r(r) from both faces (the exact law, not its
         // linearisation), the loss on held nodes and the heat their links take
         double convected = 2 * hConv * weighted, radiated = 2 * radiatedNow, edge = heldHeat + edgeNow;
-        var temperature = new double[map.Length];
         for (int n = 0; n < map.Length; n++)
             temperature[n] = map[n] >= 0 ? ambient + rise[pad + n] : network.HeldNode[n] ? ambient : double.NaN;
         double imbalance = Math.Abs(convected + radiated + edge - heatIn);
@@ -228,5 +192,112 @@ public static class PlateTemperatureSolver
             throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
                 $"plate temperature: the heat balance does not close (in {heatIn:G6} W, out {convected + radiated + edge:G6} W)"));
         return new PlateTemperature(network, temperature, cooling.AmbientK, hConv, heatIn, convected, radiated, edge, iterations, linear, residual);
+    }
+
+    /// <summary>
+    /// The step's pass over the nodes: each unknown's diagonal (conduction plus 2 h A, with radiation h + q_r'(r0), the Newton step
+    /// q_r(r) ~ q_r(r0) + q_r'(r0) (r - r0) about the node's rise r0) and right-hand side (the loss, less 2 A (q_r(r0) - q_r'(r0) r0) with
+    /// radiation). The first step sets them (and the rise to <paramref name="uniformStart"/> from a cold start) and forms R = B - A X after;
+    /// later steps change them in place with the residual following the change (<see cref="ThermalConjugateGradient.Update"/>). Returns the
+    /// sum of the surface coefficients (for the preconditioner) and |r|, |b| and max |r| for the solve (as
+    /// <see cref="ThermalConjugateGradient.Norms"/> gives them; the first step's |r| and max |r| from the residual pass). <paramref name="previous"/>: where to keep each rise the step starts from.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static (double SumH, (double Residual, double RightHandSide, double Largest) Norms) SetStep(ThermalNetwork network, ThermalOperator op,
+        ThermalConjugateGradient cg, double[] nodeHeat, double hConv, GreyFaces radiation, bool first, double? uniformStart, double[]? previous)
+    {
+        var map = network.NodeUnknown;
+        var area = network.NodeAreaM2;
+        var unitDiagonal = network.UnitDiagonal;
+        double kt = network.ConductanceScaleWPerK;
+        var rise = cg.X; var residual = cg.R; var rightHandSide = cg.B; var diagonalByNode = op.DiagonalWPerK;
+        int pad = op.Pad;
+        bool radiates = radiation.Radiates, coldStart = uniformStart.HasValue;
+        double start = uniformStart.GetValueOrDefault();
+        double sumH = 0, residualSquared = 0, rightHandSideSquared = 0, largestResidual = 0;
+        for (int n = 0; n < map.Length; n++)
+        {
+            int u = map[n];
+            if (u < 0) continue;
+            int q = pad + n;
+            if (coldStart) rise[q] = start;
+            double h = hConv, heat = nodeHeat[n], a = area[n];
+            if (radiates)
+            {
+                double r0 = rise[q];
+                if (previous is not null) previous[n] = r0;
+                if (r0 < 0) r0 = 0;
+                var (flux, slope) = radiation.FluxAndSlope(r0);
+                h += slope;
+                heat -= 2 * a * (flux - slope * r0);
+            }
+            sumH += h;
+            double diagonal = kt * unitDiagonal[u] + 2 * h * a;   // ThermalNetwork.DiagonalAt
+            if (first) { diagonalByNode[n] = diagonal; rightHandSide[q] = heat; }
+            else
+            {
+                cg.Update(n, diagonal, heat);
+                double r = residual[q];
+                residualSquared += r * r;
+                largestResidual = Math.Max(largestResidual, Math.Abs(r));
+            }
+            rightHandSideSquared += heat * heat;
+        }
+        if (first) (residualSquared, largestResidual) = cg.StartResidual();
+        return (sumH, (Math.Sqrt(residualSquared), Math.Sqrt(rightHandSideSquared), largestResidual));
+    }
+
+    /// <summary>A solve's sums over the unknowns: the largest |rise| (K), sum of A r (m^2 K), sum of A q_r(r) (W, the exact law, one face),
+    /// heat into held edges (W) and the largest move from <paramref name="previous"/> (K; 0 without).</summary>
+    private readonly record struct RiseSums(double Largest, double Weighted, double Radiated, double Edge, double Moved);
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static RiseSums SumRise(ThermalNetwork network, double[] rise, int pad, GreyFaces radiation, double[]? previous)
+    {
+        var map = network.NodeUnknown;
+        var area = network.NodeAreaM2;
+        bool radiates = radiation.Radiates, anyHeld = network.HeldNodes > 0;
+        double largest = 0, weighted = 0, radiated = 0, edge = 0, moved = 0;
+        for (int n = 0; n < map.Length; n++)
+        {
+            int u = map[n];
+            if (u < 0) continue;
+            double value = rise[pad + n], a = area[n];
+            largest = Math.Max(largest, Math.Abs(value));
+            weighted += a * value;
+            if (radiates)
+            {
+                if (previous is not null) moved = Math.Max(moved, Math.Abs(value - previous[n]));
+                radiated += a * radiation.Flux(value);
+            }
+            if (anyHeld) edge += network.ConductanceToHeld(u) * value;
+        }
+        return new RiseSums(largest, weighted, radiated, edge, moved);
+    }
+
+    /// <summary>Grey-body radiation of a face at ambient + rise to surroundings at ambient, eps sigma (T^4 - T_inf^4)
+    /// (<see cref="SurfaceRadiation.HeatFluxWPerM2"/>, the same products), and its slope 4 eps sigma T^3 from the same square of T.</summary>
+    private readonly struct GreyFaces(double emissivity, double ambientK)
+    {
+        private readonly double _factor = emissivity * SurfaceRadiation.StefanBoltzmann, _ambient = ambientK,
+            _ambientFourth = ambientK * ambientK * (ambientK * ambientK);
+
+        public bool Radiates => _factor > 0;
+
+        /// <summary>q_r (W/m^2) at the given rise (K).</summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public double Flux(double rise)
+        {
+            double t = _ambient + rise, t2 = t * t;
+            return _factor * (t2 * t2 - _ambientFourth);
+        }
+
+        /// <summary>q_r (W/m^2) and q_r' (W/m^2K) at the given rise (K).</summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public (double Flux, double Slope) FluxAndSlope(double rise)
+        {
+            double t = _ambient + rise, t2 = t * t;
+            return (_factor * (t2 * t2 - _ambientFourth), 4 * _factor * (t2 * t));
+        }
     }
 }

@@ -1,4 +1,6 @@
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Grid;
 
@@ -42,8 +44,8 @@ public sealed class ThermalConjugateGradient
     /// <summary>The residual B - A X: set by <see cref="StartResidual"/>, kept by the solve and <see cref="Update"/>.</summary>
     public double[] R => _r;
 
-    /// <summary>R = B - A X (one operator pass).</summary>
-    public void StartResidual() => _a.Residual(B, X, R);
+    /// <summary>R = B - A X (one operator pass); returns |R|^2 and max |R|.</summary>
+    public (double Squared, double Largest) StartResidual() => _a.Residual(B, X, R);
 
     /// <summary>Node p's diagonal and right-hand side change to the given values, and R follows: r += (b' - b) - (d' - d) x, exact
     /// as far as rounding goes (the conduction, the rest of the row, did not move).</summary>
@@ -56,21 +58,22 @@ public sealed class ThermalConjugateGradient
         _b[q] = rightHandSide;
     }
 
-    /// <summary>|R| and |B|.</summary>
+    /// <summary>|R|, |B| and max |R| (the multigrid's scaling of R).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]   // a few calls a run, each with long loops: optimised from the first
-    public (double Residual, double RightHandSide) Norms()
+    public (double Residual, double RightHandSide, double Largest) Norms()
     {
-        double rr = 0, bb = 0;
-        for (int i = 0; i < R.Length; i++) { rr += R[i] * R[i]; bb += B[i] * B[i]; }
-        return (Math.Sqrt(rr), Math.Sqrt(bb));
+        double rr = 0, bb = 0, largest = 0;
+        for (int i = 0; i < R.Length; i++) { rr += R[i] * R[i]; bb += B[i] * B[i]; largest = Math.Max(largest, Math.Abs(R[i])); }
+        return (Math.Sqrt(rr), Math.Sqrt(bb), largest);
     }
 
     /// <summary>Solves from X and R (R = B - A X on entry) until |R| &lt;= criterion |B|; see the type's summary for <paramref name="confirm"/>.
-    /// <paramref name="norms"/>: |R| and |B| as <see cref="Norms"/> gives them, when the caller's pass has them (else computed here).</summary>
+    /// <paramref name="norms"/>: |R|, |B| and max |R| as <see cref="Norms"/> gives them, when the caller's pass has them (else computed here).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report, (double Residual, double RightHandSide)? norms = null)
+    public bool TrySolve(StructuredMultigrid m, ConvergenceCriterion criterion, bool confirm, out SolveReport report,
+        (double Residual, double RightHandSide, double Largest)? norms = null)
     {
-        var (start, normB) = norms ?? Norms();
+        var (start, normB, largest) = norms ?? Norms();
         var x = X; var r = R; var p = _p; var q = _q;
         if (normB == 0)
         {
@@ -88,26 +91,27 @@ public sealed class ThermalConjugateGradient
             if (rn <= target)
             {
                 if (!confirm) { report = new SolveReport(SolveStatus.Converged, iterations, rn / normB); return true; }
-                double trueNorm = Math.Sqrt(_a.Residual(B, x, r));
+                (double squared, largest) = _a.Residual(B, x, r);
+                double trueNorm = Math.Sqrt(squared);
                 if (trueNorm <= target) { report = new SolveReport(SolveStatus.Converged, iterations, trueNorm / normB); return true; }
                 rn = trueNorm;
             }
             if (iterations >= criterion.MaxIterations)
             {
-                report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(_a.Residual(B, x, r)) / normB);
+                report = new SolveReport(SolveStatus.IterationLimit, iterations, Math.Sqrt(_a.Residual(B, x, r).Squared) / normB);
                 return false;
             }
             // (re)start: p = z = M^-1 r
-            double rz = m.ApplyOnLattice(r, LargestMagnitude(r), out var z, out double zScale);
-            for (int i = 0; i < p.Length; i++) p[i] = z[i] * zScale;
-            double pq = _a.Multiply(p, q);
+            double rz = m.ApplyOnLattice(r, largest, out var z, out double zScale);
+            Array.Clear(p);   // then p = zScale z + 0 p with its product in one pass (0 times an old direction that is not finite would not be 0)
+            double pq = _a.MultiplyNextDirection(z, zScale, 0, p, q);
             while (iterations < criterion.MaxIterations)
             {
                 criterion.ThrowIfCancelled();
                 if (!double.IsFinite(pq) || !double.IsFinite(rz)) { report = new SolveReport(SolveStatus.NonFinite, iterations, rn / normB); return false; }
                 if (!(pq > 0)) { report = new SolveReport(SolveStatus.NotPositiveDefinite, iterations, rn / normB); return false; }
                 double alpha = rz / pq;
-                (double squared, double largest) = UpdateSolutionAndResidual(x, r, p, q, alpha);
+                (double squared, largest) = UpdateSolutionAndResidual(x, r, p, q, alpha);
                 rn = Math.Sqrt(squared);
                 iterations++;
                 if (!double.IsFinite(rn) || rn > criterion.DivergenceFactor * Math.Max(start, normB))
@@ -124,27 +128,38 @@ public sealed class ThermalConjugateGradient
         }
     }
 
-    /// <summary>x += alpha p, r -= alpha q in one pass; returns |r|^2 and max |r| (the multigrid's scaling of r).</summary>
+    /// <summary>x += alpha p, r -= alpha q in one pass, four entries at a time; returns |r|^2 and max |r| (the multigrid's scaling of r).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static (double Squared, double Largest) UpdateSolutionAndResidual(double[] x, double[] r, double[] p, double[] q, double alpha)
     {
-        double s0 = 0, s1 = 0, largest = 0;
-        for (int i = 0; i < x.Length; i++)
+        int length = x.Length;
+        if (r.Length != length || p.Length != length || q.Length != length) throw new ArgumentException("vectors of one length");
+        ref double xs = ref MemoryMarshal.GetArrayDataReference(x);
+        ref double rs = ref MemoryMarshal.GetArrayDataReference(r);
+        ref double ps = ref MemoryMarshal.GetArrayDataReference(p);
+        ref double qs = ref MemoryMarshal.GetArrayDataReference(q);
+        var step = Vector256.Create(alpha);
+        var squares = Vector256<double>.Zero;
+        var largestBlock = Vector256<double>.Zero;
+        int i = 0;
+        for (; i + Vector256<double>.Count <= length; i += Vector256<double>.Count)
+        {
+            (Vector256.LoadUnsafe(ref xs, (nuint)i) + step * Vector256.LoadUnsafe(ref ps, (nuint)i)).StoreUnsafe(ref xs, (nuint)i);
+            var v = Vector256.LoadUnsafe(ref rs, (nuint)i) - step * Vector256.LoadUnsafe(ref qs, (nuint)i);
+            v.StoreUnsafe(ref rs, (nuint)i);
+            squares += v * v;
+            largestBlock = Vector256.Max(largestBlock, Vector256.Abs(v));
+        }
+        double squared = Vector256.Sum(squares), largest = 0;
+        for (int e = 0; e < Vector256<double>.Count; e++) largest = Math.Max(largest, largestBlock[e]);
+        for (; i < length; i++)
         {
             x[i] += alpha * p[i];
             double v = r[i] - alpha * q[i];
             r[i] = v;
-            if ((i & 1) == 0) s0 += v * v; else s1 += v * v;
+            squared += v * v;
             largest = Math.Max(largest, Math.Abs(v));
         }
-        return (s0 + s1, largest);
-    }
-
-    /// <summary>max |v|.</summary>
-    private static double LargestMagnitude(double[] v)
-    {
-        double largest = 0;
-        foreach (double value in v) largest = Math.Max(largest, Math.Abs(value));
-        return largest;
+        return (squared, largest);
     }
 }

@@ -21,14 +21,16 @@ namespace SlotOpt.Plates.Thermal;
 /// </summary>
 public sealed class ThermalNetwork
 {
-    private ThermalNetwork(PlateGrid grid, int[] nodeUnknown, int unknowns, bool[] heldNode, double[] nodeAreaM2, double[] unitWest, double[] unitSouth,
-        double[] unitDiagonal, double[] unitConductanceToHeld, double conductanceScale, PreconditionerCache cache)
+    private ThermalNetwork(PlateGrid grid, int[] nodeUnknown, int unknowns, bool[] heldNode, int heldNodes, double[] nodeAreaM2, double totalAreaM2,
+        double[] unitWest, double[] unitSouth, double[] unitDiagonal, double[] unitConductanceToHeld, double conductanceScale, PreconditionerCache cache)
     {
         Grid = grid;
         NodeUnknown = nodeUnknown;
         Unknowns = unknowns;
         HeldNode = heldNode;
+        HeldNodes = heldNodes;
         NodeAreaM2 = nodeAreaM2;
+        TotalAreaM2 = totalAreaM2;
         UnitWest = unitWest;
         UnitSouth = unitSouth;
         UnitDiagonal = unitDiagonal;
@@ -44,8 +46,12 @@ public sealed class ThermalNetwork
     public int Unknowns { get; }
     /// <summary>True for metal nodes held at ambient.</summary>
     public bool[] HeldNode { get; }
+    /// <summary>How many nodes are held at ambient (0 with insulated edges).</summary>
+    public int HeldNodes { get; }
     /// <summary>One face's area of each node's dual cell (m^2): a quarter of each conducting cell around it.</summary>
     public double[] NodeAreaM2 { get; }
+    /// <summary>One face's area of the plate (m^2): <see cref="NodeAreaM2"/> summed in node order.</summary>
+    public double TotalAreaM2 { get; }
     /// <summary>k t of the plate (W/K): every conductance is k t times a factor of the grid alone.</summary>
     public double ConductanceScaleWPerK { get; }
     /// <summary>The conduction stencil at k t = 1 W/K, by node: the link from node p to p - 1 (UnitWest) and to p - NodesX (UnitSouth),
@@ -54,15 +60,17 @@ public sealed class ThermalNetwork
     internal double[] UnitSouth { get; }
     /// <summary>The conduction part of the diagonal at k t = 1 W/K, by unknown: all its links, those to held nodes included.</summary>
     internal double[] UnitDiagonal { get; }
+    /// <summary>By unknown, at k t = 1 W/K; empty when no node is held.</summary>
     private readonly double[] _unitConductanceToHeld;
     private readonly PreconditionerCache _cache;
 
     /// <summary>Conductance summed over the links from unknown u to held nodes (W/K), for the heat the edge takes.</summary>
-    public double ConductanceToHeld(int u) => ConductanceScaleWPerK * _unitConductanceToHeld[u];
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    public double ConductanceToHeld(int u) => HeldNodes == 0 ? 0 : ConductanceScaleWPerK * _unitConductanceToHeld[u];
 
     /// <summary>The same plate and grid with another k t (another material or thickness): shares the grid's arrays and the preconditioner.</summary>
     public ThermalNetwork WithConductivity(double thermalConductivityWPerMK, double thicknessM) =>
-        new(Grid, NodeUnknown, Unknowns, HeldNode, NodeAreaM2, UnitWest, UnitSouth, UnitDiagonal, _unitConductanceToHeld,
+        new(Grid, NodeUnknown, Unknowns, HeldNode, HeldNodes, NodeAreaM2, TotalAreaM2, UnitWest, UnitSouth, UnitDiagonal, _unitConductanceToHeld,
             Scale(thermalConductivityWPerMK, thicknessM), _cache);
 
     private static double Scale(double k, double t)
@@ -78,51 +86,65 @@ public sealed class ThermalNetwork
         var l = grid.Lattice;
         int nx = l.Nx, ny = l.Ny, nxn = l.NodesX, px = nx + 2;
         // per cell, on a lattice padded with one empty cell all round (cell (i, j) at (j + 1) px + i + 1): the conducting
-        // cross-section fraction (area fraction x remaining thickness fraction) and the conducting area fraction
+        // cross-section fraction (area fraction x remaining thickness fraction); each conducting cell's area fraction goes to its four
+        // corners, each node's sum taking its cells in the order south-west, south-east, north-west, north-east (cell order), and the
+        // nodes that get some area are counted
         var f = new double[px * (ny + 2)];
-        var a = new double[px * (ny + 2)];
+        var area = new double[l.NodeCount];
+        int metalNodes = 0;
         for (int j = 0; j < ny; j++)
             for (int i = 0; i < nx; i++)
             {
                 int c = j * nx + i, k = (j + 1) * px + i + 1;
                 if (!(grid.Conductance[c] > 0)) continue;
-                f[k] = grid.AreaFraction[c] * (double)grid.ThicknessFraction[c];
-                a[k] = grid.AreaFraction[c];
+                double a = grid.AreaFraction[c];
+                f[k] = a * (double)grid.ThicknessFraction[c];
+                if (!(a > 0)) continue;
+                int n = j * nxn + i;
+                if (area[n] == 0) metalNodes++;
+                area[n] += a;
+                if (area[n + 1] == 0) metalNodes++;
+                area[n + 1] += a;
+                if (area[n + nxn] == 0) metalNodes++;
+                area[n + nxn] += a;
+                if (area[n + nxn + 1] == 0) metalNodes++;
+                area[n + nxn + 1] += a;
             }
-        var outside = edges == ThermalEdge.Ambient ? OutsideCells(f, px, ny + 2) : null;
 
-        var area = new double[l.NodeCount];
+        // with held edges, the metal nodes touching the outside (empty cells connected to the border) are held at ambient
         var held = new bool[l.NodeCount];
+        int heldNodes = 0;
+        if (edges == ThermalEdge.Ambient)
+        {
+            var outside = OutsideCells(f, px, ny + 2);
+            for (int j = 0; j <= ny; j++)
+                for (int i = 0; i < nxn; i++)
+                {
+                    int n = j * nxn + i;
+                    int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;   // the four cells around node (i, j), padded
+                    if (area[n] > 0 && (outside[sw] || outside[se] || outside[nw] || outside[ne])) { held[n] = true; heldNodes++; }
+                }
+        }
+
+        // one pass over the nodes: the dual area, the unknown, and the links at k t = 1 (a node's neighbours below and to the left are
+        // numbered already, those above and to the right are only read for being held)
         var nodeUnknown = new int[l.NodeCount];
-        double quarter = l.CellAreaM2 / 4;
+        var west = new double[l.NodeCount + nxn + 2];
+        var south = new double[l.NodeCount + nxn + 2];
+        var diagonal = new double[metalNodes - heldNodes];
+        var toHeld = heldNodes > 0 ? new double[metalNodes - heldNodes] : [];
+        double quarter = l.CellAreaM2 / 4, totalArea = 0;
+        double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
         int unknowns = 0;
         for (int j = 0; j <= ny; j++)
             for (int i = 0; i < nxn; i++)
             {
                 int n = j * nxn + i;
-                int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;   // the four cells around node (i, j), padded
-                area[n] = quarter * (a[sw] + a[se] + a[nw] + a[ne]);
-                if (area[n] == 0) { nodeUnknown[n] = -1; continue; }
-                if (outside is not null && (outside[sw] || outside[se] || outside[nw] || outside[ne]))
-                {
-                    held[n] = true;
-                    nodeUnknown[n] = -1;
-                    continue;
-                }
-                nodeUnknown[n] = unknowns++;
-            }
-
-        var west = new double[l.NodeCount + nxn + 2];
-        var south = new double[l.NodeCount + nxn + 2];
-        var diagonal = new double[unknowns];
-        var toHeld = new double[unknowns];
-        double rx = l.Hy / l.Hx, ry = l.Hx / l.Hy;
-        for (int j = 0; j <= ny; j++)
-            for (int i = 0; i < nxn; i++)
-            {
-                int n = j * nxn + i;
-                int u = nodeUnknown[n];
-                if (u < 0) continue;
+                area[n] *= quarter;
+                totalArea += area[n];
+                if (area[n] == 0 || held[n]) { nodeUnknown[n] = -1; continue; }
+                int u = unknowns++;
+                nodeUnknown[n] = u;
                 // links at k t = 1: left/right cross the cells below (j-1) and above (j); down/up the cells left (i-1) and right (i)
                 int sw = j * px + i, se = sw + 1, nw = sw + px, ne = nw + 1;
                 double down = j > 0 ? ry * (f[sw] + f[se]) / 2 : 0;
@@ -131,12 +153,16 @@ public sealed class ThermalNetwork
                 double up = j < ny ? ry * (f[nw] + f[ne]) / 2 : 0;
                 diagonal[u] = down + left + right + up;
                 // a node's left link is its left neighbour's right link (the same two half cells), so the stencil is symmetric
-                if (down > 0) { if (nodeUnknown[n - nxn] >= 0) south[n] = down; else if (held[n - nxn]) toHeld[u] += down; }
-                if (left > 0) { if (nodeUnknown[n - 1] >= 0) west[n] = left; else if (held[n - 1]) toHeld[u] += left; }
+                if (down > 0 && nodeUnknown[n - nxn] >= 0) south[n] = down;
+                if (left > 0 && nodeUnknown[n - 1] >= 0) west[n] = left;
+                if (heldNodes == 0) continue;
+                if (down > 0 && held[n - nxn]) toHeld[u] += down;
+                if (left > 0 && held[n - 1]) toHeld[u] += left;
                 if (right > 0 && held[n + 1]) toHeld[u] += right;
                 if (up > 0 && held[n + nxn]) toHeld[u] += up;
             }
-        return new ThermalNetwork(grid, nodeUnknown, unknowns, held, area, west, south, diagonal, toHeld,
+        if (unknowns != diagonal.Length) throw new InvalidOperationException($"thermal network: {unknowns} unknowns numbered, {diagonal.Length} counted");
+        return new ThermalNetwork(grid, nodeUnknown, unknowns, held, heldNodes, area, totalArea, west, south, diagonal, toHeld,
             Scale(thermalConductivityWPerMK, thicknessM), new PreconditionerCache());
     }
 

@@ -1,5 +1,6 @@
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
+using System.Runtime.Intrinsics;
 
 namespace SlotOpt.Plates.Thermal;
 
@@ -46,10 +47,10 @@ public sealed class ThermalOperator
     }
 
     /// <summary>y = A x on the padded lattice; returns x . y (conjugate gradients' p . A p, in the same pass).</summary>
-    public double Multiply(double[] x, double[] y) => Apply(default, x, y, residual: false);
+    public double Multiply(double[] x, double[] y) => Apply(default, x, y, residual: false).Dot;
 
-    /// <summary>r = b - A x on the padded lattice; returns r . r.</summary>
-    public double Residual(double[] b, double[] x, double[] r) => Apply(b, x, r, residual: true);
+    /// <summary>r = b - A x on the padded lattice; returns r . r and max |r| (the multigrid's scaling of r).</summary>
+    public (double Squared, double Largest) Residual(double[] b, double[] x, double[] r) => Apply(b, x, r, residual: true);
 
     /// <summary>Conjugate gradients' next direction and its product in one pass: p = z + beta p, q = A p, with z = zScale times the
     /// multigrid's single-precision output (<see cref="StructuredMultigrid.ApplyOnLattice"/>, same layout); returns p . q. The pass updates
@@ -68,25 +69,48 @@ public sealed class ThermalOperator
         ref float zr = ref MemoryMarshal.GetArrayDataReference(z);
         ref double y = ref MemoryMarshal.GetArrayDataReference(q);
         double kt = _network.ConductanceScaleWPerK;
-        double s0 = 0, s1 = 0;
+        var rows = new RowBlock(ref w, ref s, ref d, ref v, -kt, nx);
+        var sums = Vector256<double>.Zero;
         int ahead = n - nx;   // nodes whose row above is still to be updated
         int k = 0;
+        if (nx >= Vector256<double>.Count)   // four rows at a time read v up to i + 4, updated a row earlier
+        {
+            var scale = Vector256.Create(zScale);
+            var step = Vector256.Create(beta);
+            for (; k + Vector256<double>.Count <= ahead; k += Vector256<double>.Count)
+            {
+                int i = pad + k, a = i + nx;
+                var z4 = Vector256.WidenLower(Vector256.Create(Vector128.LoadUnsafe(ref zr, (nuint)a), Vector128<float>.Zero));
+                (z4 * scale + step * Vector256.LoadUnsafe(ref v, (nuint)a)).StoreUnsafe(ref v, (nuint)a);
+                var value = rows.At(k, i);
+                value.StoreUnsafe(ref y, (nuint)i);
+                sums += Vector256.LoadUnsafe(ref v, (nuint)i) * value;
+            }
+        }
+        double total = 0;
         for (; k < ahead; k++)
         {
             int i = pad + k, a = i + nx;
             Unsafe.Add(ref v, a) = Unsafe.Add(ref zr, a) * zScale + beta * Unsafe.Add(ref v, a);
             double value = Row(ref w, ref s, ref d, ref v, kt, nx, k, i);
             Unsafe.Add(ref y, i) = value;
-            if ((k & 1) == 0) s0 += Unsafe.Add(ref v, i) * value; else s1 += Unsafe.Add(ref v, i) * value;
+            total += Unsafe.Add(ref v, i) * value;
+        }
+        for (; k + Vector256<double>.Count <= n && nx >= Vector256<double>.Count; k += Vector256<double>.Count)
+        {
+            int i = pad + k;
+            var value = rows.At(k, i);
+            value.StoreUnsafe(ref y, (nuint)i);
+            sums += Vector256.LoadUnsafe(ref v, (nuint)i) * value;
         }
         for (; k < n; k++)
         {
             int i = pad + k;
             double value = Row(ref w, ref s, ref d, ref v, kt, nx, k, i);
             Unsafe.Add(ref y, i) = value;
-            if ((k & 1) == 0) s0 += Unsafe.Add(ref v, i) * value; else s1 += Unsafe.Add(ref v, i) * value;
+            total += Unsafe.Add(ref v, i) * value;
         }
-        return s0 + s1;
+        return Vector256.Sum(sums) + total;
     }
 
     private void Check(double[] v)
@@ -104,9 +128,29 @@ public sealed class ThermalOperator
         return down + left + centre + right + up;
     }
 
-    /// <summary>One pass over the nodes: y = A x (returns x . y) or y = b - A x (returns y . y).</summary>
+    /// <summary>Four consecutive rows at once, each with the same products and sums as <see cref="Row"/> (-(kt c) = (-kt) c exactly).</summary>
+    private readonly ref struct RowBlock(ref double w, ref double s, ref double d, ref double v, double minusKt, int nx)
+    {
+        private readonly ref double _w = ref w, _s = ref s, _d = ref d, _v = ref v;
+        private readonly Vector256<double> _minusKt = Vector256.Create(minusKt);
+        private readonly int _nx = nx;
+
+        /// <summary>Rows of nodes k to k + 3 (at lattice indices i to i + 3) applied to v.</summary>
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public Vector256<double> At(int k, int i)
+        {
+            var down = _minusKt * Vector256.LoadUnsafe(ref _s, (nuint)k) * Vector256.LoadUnsafe(ref _v, (nuint)(i - _nx));
+            var left = _minusKt * Vector256.LoadUnsafe(ref _w, (nuint)k) * Vector256.LoadUnsafe(ref _v, (nuint)(i - 1));
+            var centre = Vector256.LoadUnsafe(ref _d, (nuint)k) * Vector256.LoadUnsafe(ref _v, (nuint)i);
+            var right = _minusKt * Vector256.LoadUnsafe(ref _w, (nuint)(k + 1)) * Vector256.LoadUnsafe(ref _v, (nuint)(i + 1));
+            var up = _minusKt * Vector256.LoadUnsafe(ref _s, (nuint)(k + _nx)) * Vector256.LoadUnsafe(ref _v, (nuint)(i + _nx));
+            return down + left + centre + right + up;
+        }
+    }
+
+    /// <summary>One pass over the nodes: y = A x (returns x . y) or y = b - A x (returns y . y and max |y|).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private double Apply(ReadOnlySpan<double> b, double[] x, double[] y, bool residual)
+    private (double Dot, double Largest) Apply(ReadOnlySpan<double> b, double[] x, double[] y, bool residual)
     {
         Check(x); Check(y);
         if (residual && b.Length != LatticeLength) throw new ArgumentException("one value per node of the padded lattice");
@@ -116,16 +160,41 @@ public sealed class ThermalOperator
         ref double v = ref MemoryMarshal.GetArrayDataReference(x);
         int nx = _network.Lattice.NodesX, pad = Pad, n = DiagonalWPerK.Length;
         double kt = _network.ConductanceScaleWPerK;
-        double s0 = 0, s1 = 0;
-        for (int k = 0; k < n; k++)
+        ref double f = ref MemoryMarshal.GetReference(b);
+        ref double result = ref MemoryMarshal.GetArrayDataReference(y);
+        var rows = new RowBlock(ref w, ref s, ref d, ref v, -kt, nx);
+        var sums = Vector256<double>.Zero;
+        var largestBlock = Vector256<double>.Zero;
+        int k = 0;
+        if (nx >= Vector256<double>.Count)
+            for (; k + Vector256<double>.Count <= n; k += Vector256<double>.Count)
+            {
+                int i = pad + k;
+                var product = rows.At(k, i);
+                if (residual)
+                {
+                    var value = Vector256.LoadUnsafe(ref f, (nuint)i) - product;
+                    value.StoreUnsafe(ref result, (nuint)i);
+                    sums += value * value;
+                    largestBlock = Vector256.Max(largestBlock, Vector256.Abs(value));
+                }
+                else
+                {
+                    product.StoreUnsafe(ref result, (nuint)i);
+                    sums += Vector256.LoadUnsafe(ref v, (nuint)i) * product;
+                }
+            }
+        double total = 0, largest = 0;
+        for (int e = 0; e < Vector256<double>.Count; e++) largest = Math.Max(largest, largestBlock[e]);
+        for (; k < n; k++)
         {
             int i = pad + k;
             double product = Row(ref w, ref s, ref d, ref v, kt, nx, k, i);
             double value = residual ? b[i] - product : product;
             y[i] = value;
-            double term = (residual ? value : Unsafe.Add(ref v, i)) * value;
-            if ((k & 1) == 0) s0 += term; else s1 += term;
+            total += (residual ? value : Unsafe.Add(ref v, i)) * value;
+            if (residual) largest = Math.Max(largest, Math.Abs(value));
         }
-        return s0 + s1;
+        return (Vector256.Sum(sums) + total, largest);
     }
 }

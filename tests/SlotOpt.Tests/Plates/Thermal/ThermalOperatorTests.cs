@@ -11,11 +11,13 @@ namespace SlotOpt.Tests.Plates.Thermal;
 /// </summary>
 public class ThermalOperatorTests
 {
-    private static ThermalNetwork Network(ThermalEdge edges)
+    /// <summary>The plate on 4 mm cells, or on <paramref name="cellSizeM"/> (5 mm: 49 x 19 nodes, a count that is not a multiple of the
+    /// operator's four-row blocks, so the rows after the last block are checked too).</summary>
+    private static ThermalNetwork Network(ThermalEdge edges, double cellSizeM = 0.004)
     {
         var g = PlateGeometry.Rectangle(0.24, 0.09);
         g.AddPattern(SlotPatterns.Comb(g.Outline, PlateEdge.Bottom, 0.05, 0.06, 0.008));
-        return ThermalNetwork.Assemble(PlateGrid.Build(g, new GridOptions { CellSizeM = 0.004 }), 16.2, 0.008, edges);
+        return ThermalNetwork.Assemble(PlateGrid.Build(g, new GridOptions { CellSizeM = cellSizeM }), 16.2, 0.008, edges);
     }
 
     /// <summary>Values by unknown spread on the operator's padded lattice (0 at nodes without an unknown).</summary>
@@ -42,11 +44,14 @@ public class ThermalOperatorTests
     // (the same few products summed in another order); the pass's dot product x . Ax to the same relative tolerance; the nodes
     // without an unknown (identity rows) stay 0.
     [Theory]
-    [InlineData(ThermalEdge.Insulated)]
-    [InlineData(ThermalEdge.Ambient)]
-    public void Lattice_operator_is_the_assembled_matrix(ThermalEdge edges)
+    [InlineData(ThermalEdge.Insulated, 0.004)]
+    [InlineData(ThermalEdge.Ambient, 0.004)]
+    [InlineData(ThermalEdge.Insulated, 0.005)]
+    [InlineData(ThermalEdge.Ambient, 0.005)]
+    public void Lattice_operator_is_the_assembled_matrix(ThermalEdge edges, double cellSizeM)
     {
-        var network = Network(edges);
+        var network = Network(edges, cellSizeM);
+        Assert.True(cellSizeM == 0.004 || network.Lattice.NodeCount % 4 != 0);
         var random = new Random(11);
         var x = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
         var op = new ThermalOperator(network);
@@ -66,6 +71,36 @@ public class ThermalOperatorTests
             double expectedDot = x.Zip(expected, (a, b) => a * b).Sum();
             Assert.Equal(expectedDot, dot, Math.Abs(expectedDot) * 1e-12);
         }
+    }
+
+    // The residual pass (ThermalOperator.Residual: r = b - A x, four rows at a time, with r . r and max |r| in the same pass) against
+    // b - A x from the assembled matrix: 1e-12 of |b| (the same few products summed in another order), r . r and max |r| to 1e-12
+    // relative; the nodes without an unknown keep r = 0.
+    [Theory]
+    [InlineData(ThermalEdge.Insulated, 0.004)]
+    [InlineData(ThermalEdge.Ambient, 0.004)]
+    [InlineData(ThermalEdge.Insulated, 0.005)]
+    [InlineData(ThermalEdge.Ambient, 0.005)]
+    public void Residual_pass_is_b_minus_the_assembled_matrix_times_x(ThermalEdge edges, double cellSizeM)
+    {
+        var network = Network(edges, cellSizeM);
+        var random = new Random(13);
+        var op = new ThermalOperator(network);
+        var h = Enumerable.Range(0, network.Unknowns).Select(u => 20 + 30 * Math.Sin(u)).ToArray();
+        op.SetSurfaceCoefficients(h);
+        var x = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var b = Enumerable.Range(0, network.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var ax = new double[x.Length];
+        network.Matrix(h).Multiply(x, ax);
+        var expected = b.Zip(ax, (p, q) => p - q).ToArray();
+        var r = new double[op.LatticeLength];
+        var (squared, largest) = op.Residual(OnLattice(op, b), OnLattice(op, x), r);
+        var (misfit, elsewhere) = Misfit(op, r, expected);
+        Assert.InRange(misfit, 0, Math.Sqrt(b.Sum(v => v * v)) * 1e-12);
+        Assert.Equal(0, elsewhere);
+        double expectedSquared = expected.Sum(v => v * v), expectedLargest = expected.Max(Math.Abs);
+        Assert.Equal(expectedSquared, squared, expectedSquared * 1e-12);
+        Assert.Equal(expectedLargest, largest, expectedLargest * 1e-12);
     }
 
     // The conjugate gradients' residual kept across a change of diagonal and right-hand side (ThermalConjugateGradient.Update: r += db
@@ -160,11 +195,13 @@ public class ThermalOperatorTests
     // output and s its scale, q = A p, p . q) against the two steps done apart with the assembled matrix: 1e-12 relative (the same few
     // products summed in another order).
     [Theory]
-    [InlineData(ThermalEdge.Insulated)]
-    [InlineData(ThermalEdge.Ambient)]
-    public void Next_direction_and_its_product_in_one_pass(ThermalEdge edges)
+    [InlineData(ThermalEdge.Insulated, 0.004)]
+    [InlineData(ThermalEdge.Ambient, 0.004)]
+    [InlineData(ThermalEdge.Insulated, 0.005)]
+    [InlineData(ThermalEdge.Ambient, 0.005)]
+    public void Next_direction_and_its_product_in_one_pass(ThermalEdge edges, double cellSizeM)
     {
-        var network = Network(edges);
+        var network = Network(edges, cellSizeM);
         var random = new Random(7);
         var op = new ThermalOperator(network);
         var h = Enumerable.Range(0, network.Unknowns).Select(u => 20 + 30 * Math.Sin(u)).ToArray();
