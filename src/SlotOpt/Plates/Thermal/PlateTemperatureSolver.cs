@@ -158,7 +158,7 @@ public static class PlateTemperatureSolver
             }
             // only a tight step can end the iteration: it confirms its residual against a fresh b - A x
             if (!cg.TrySolve(multigrid, criterion, confirm: tight, out var report, norms))
-                throw new NumericalFailureException($"plate temperature: {report.Reason} (relative residual {report.RelativeResidual:E2} after {report.Iterations} iterations)");
+                throw new NumericalFailureException($"plate temperature: {report.Description}");
             linear += report.Iterations;
             residual = report.RelativeResidual;
             var sums = SumRise(network, rise, pad, radiation, tight ? previous : null);
