@@ -238,6 +238,7 @@ internal sealed class PaddedConvolution
     }
 
     /// <summary>Rows 2p and 2p + 1 (p in [from, to)) of a real field transformed as one complex row and split into their Hermitian halves.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void ForwardRowPairs<V>(int from, int to, double[] lr, double[] li) where V : struct, ISimdLanes<V>
     {
         int mx = PaddedX, columns = mx / 2 + 1;
@@ -266,6 +267,7 @@ internal sealed class PaddedConvolution
     }
 
     /// <summary>Rows 2p and 2p + 1 (p in [from, to)) back from their Hermitian halves by one complex inverse row transform.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void InverseRowPairs<V>(int from, int to, double[] lr, double[] li) where V : struct, ISimdLanes<V>
     {
         int mx = PaddedX, half = mx / 2, columns = half + 1;
@@ -378,65 +380,75 @@ internal sealed class PaddedConvolution
     }
 
     /// <summary>Radix-2 decimation-in-frequency stages h, h/2, .., 1 over the sequence at [o, o + length).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void DifRowStages<V>(double[] re, double[] im, int o, int length, int h, double[] c, double[] s) where V : struct, ISimdLanes<V>
     {
-        bool inRegister = FourPointsInRegister<V>() && h >= 2;
-        for (; h >= (inRegister ? 4 : 1); h >>= 1)
+        bool inRegister = EightPointsInRegister<V>() && h >= 4;
+        for (; h >= (inRegister ? 8 : 1); h >>= 1)
             for (int g = o; g < o + length; g += 2 * h) DifRowButterflies<V>(re, im, g, g + h, h, c, s);
-        if (inRegister) DifLastTwoStagesInRegister(re, im, o, length, c, s);
+        if (inRegister) DifLastThreeStagesInRegister(re, im, o, length, c, s);
     }
 
     /// <summary>Radix-2 decimation-in-time stages 1, 2, .., below <paramref name="below"/> over the sequence at [o, o + length).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void DitRowStages<V>(double[] re, double[] im, int o, int length, int below, double[] c, double[] s) where V : struct, ISimdLanes<V>
     {
         int h = 1;
-        if (FourPointsInRegister<V>() && below > 2) { DitFirstTwoStagesInRegister(re, im, o, length, c, s); h = 4; }
+        if (EightPointsInRegister<V>() && below > 4) { DitFirstThreeStagesInRegister(re, im, o, length, c, s); h = 8; }
         for (; h < below; h <<= 1)
             for (int g = o; g < o + length; g += 2 * h) DitRowButterflies<V>(re, im, g, g + h, h, c, s);
     }
 
     /// <summary>
-    /// The wide path (AVX-512, so AVX2 too) takes a row's two radix-2 stages of half-length 2 and 1 together, each group of 4 points in
-    /// one 256-bit register (lanes exchanged by permutes), where the butterfly loops would run them one point at a time.
-    /// </summary>
-    private static bool FourPointsInRegister<V>() where V : struct, ISimdLanes<V> => V.Count >= 8 && Vector256.IsHardwareAccelerated;
-
-    /// <summary>
-    /// The forward stages h = 2 and h = 1 of <see cref="DifRowButterflies"/> on each group of 4 at [o, o + length), in a register: the same
-    /// sums, differences and twiddle products, in the same order, lane by lane (the sums of stage 2 also times w = 1 + 0i, and stage 1's
-    /// differences not times its w = 1 + 0i: both exact, so the numbers are the butterflies', signed zeros aside).
+    /// The wide path (AVX-512) takes a row's three radix-2 stages of half-length 4, 2 and 1 together, each group of 8 points in one 512-bit
+    /// register (lanes exchanged by permutes), where the butterfly loops would run them 4 and then 1 point at a time.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static void DifLastTwoStagesInRegister(double[] re, double[] im, int o, int length, double[] c, double[] s)
+    private static bool EightPointsInRegister<V>() where V : struct, ISimdLanes<V> => V.Count >= 8 && Vector512.IsHardwareAccelerated;
+
+    private static readonly Vector512<long> SwapFours = Vector512.Create(4L, 5, 6, 7, 0, 1, 2, 3), SwapTwos = Vector512.Create(2L, 3, 0, 1, 6, 7, 4, 5),
+        SwapOnes = Vector512.Create(1L, 0, 3, 2, 5, 4, 7, 6);
+    private static readonly Vector512<double> MinusUpperFour = Vector512.Create(1.0, 1, 1, 1, -1, -1, -1, -1), MinusUpperTwos = Vector512.Create(1.0, 1, -1, -1, 1, 1, -1, -1),
+        MinusOdd = Vector512.Create(1.0, -1, 1, -1, 1, -1, 1, -1);
+
+    /// <summary>
+    /// The forward stages h = 4, 2, 1 of <see cref="DifRowButterflies"/> on each group of 8 at [o, o + length), in a register: the same sums,
+    /// differences and twiddle products lane by lane (a = x_t + x_{t+h} as x_{t+h} + x_t, b = x_t - x_{t+h} as x_t + (-1) x_{t+h}, exact;
+    /// the sums also times w = 1 + 0i and stage 1 not times its w = 1 + 0i, exact: so the butterflies' numbers, signed zeros aside).
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void DifLastThreeStagesInRegister(double[] re, double[] im, int o, int length, double[] c, double[] s)
     {
-        var halves = Vector256.Create(2L, 3, 0, 1); var pairs = Vector256.Create(1L, 0, 3, 2);
-        var upper = Vector256.Create(1.0, 1, -1, -1); var odd = Vector256.Create(1.0, -1, 1, -1);
-        var wr = Vector256.Create(1.0, 1, c[2], c[3]); var wi = Vector256.Create(0.0, 0, -s[2], -s[3]);   // stage 2: w_t = e^{-2 pi i t / 4} on the differences
-        for (int g = o; g < o + length; g += 4)
+        var w4r = Vector512.Create(1.0, 1, 1, 1, c[4], c[5], c[6], c[7]); var w4i = Vector512.Create(0.0, 0, 0, 0, -s[4], -s[5], -s[6], -s[7]);   // e^{-2 pi i t / 8}
+        var w2r = Vector512.Create(1.0, 1, c[2], c[3], 1, 1, c[2], c[3]); var w2i = Vector512.Create(0.0, 0, -s[2], -s[3], 0, 0, -s[2], -s[3]); // e^{-2 pi i t / 4}
+        for (int g = o; g < o + length; g += 8)
         {
-            var xr = Vector256.Create(re, g); var xi = Vector256.Create(im, g);
-            var yr = Vector256.Shuffle(xr, halves) + upper * xr; var yi = Vector256.Shuffle(xi, halves) + upper * xi;   // (x0 + x2, x1 + x3, x0 - x2, x1 - x3)
-            var zr = yr * wr - yi * wi; var zi = yr * wi + yi * wr;
-            (Vector256.Shuffle(zr, pairs) + odd * zr).CopyTo(re, g); (Vector256.Shuffle(zi, pairs) + odd * zi).CopyTo(im, g);   // (z0 + z1, z0 - z1, z2 + z3, z2 - z3)
+            var xr = Vector512.Create(re, g); var xi = Vector512.Create(im, g);
+            var yr = Vector512.Shuffle(xr, SwapFours) + MinusUpperFour * xr; var yi = Vector512.Shuffle(xi, SwapFours) + MinusUpperFour * xi;
+            xr = yr * w4r - yi * w4i; xi = yr * w4i + yi * w4r;
+            yr = Vector512.Shuffle(xr, SwapTwos) + MinusUpperTwos * xr; yi = Vector512.Shuffle(xi, SwapTwos) + MinusUpperTwos * xi;
+            xr = yr * w2r - yi * w2i; xi = yr * w2i + yi * w2r;
+            (Vector512.Shuffle(xr, SwapOnes) + MinusOdd * xr).CopyTo(re, g); (Vector512.Shuffle(xi, SwapOnes) + MinusOdd * xi).CopyTo(im, g);
         }
     }
 
     /// <summary>
-    /// The inverse stages h = 1 and h = 2 of <see cref="DitRowButterflies"/> on each group of 4 at [o, o + length), in a register (the mirror of
-    /// <see cref="DifLastTwoStagesInRegister"/>: stage 1's w = 1 + 0i not applied, stage 2's w_t = e^{+2 pi i t / 4} on the upper pair).
+    /// The inverse stages h = 1, 2, 4 of <see cref="DitRowButterflies"/> on each group of 8 at [o, o + length), in a register (the mirror of
+    /// <see cref="DifLastThreeStagesInRegister"/>: stage 1's w = 1 + 0i not applied, stages 2 and 4 twiddle their upper lanes by e^{+2 pi i t / 2h}).
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static void DitFirstTwoStagesInRegister(double[] re, double[] im, int o, int length, double[] c, double[] s)
+    private static void DitFirstThreeStagesInRegister(double[] re, double[] im, int o, int length, double[] c, double[] s)
     {
-        var halves = Vector256.Create(2L, 3, 0, 1); var pairs = Vector256.Create(1L, 0, 3, 2);
-        var upper = Vector256.Create(1.0, 1, -1, -1); var odd = Vector256.Create(1.0, -1, 1, -1);
-        var wr = Vector256.Create(1.0, 1, c[2], c[3]); var wi = Vector256.Create(0.0, 0, s[2], s[3]);
-        for (int g = o; g < o + length; g += 4)
+        var w2r = Vector512.Create(1.0, 1, c[2], c[3], 1, 1, c[2], c[3]); var w2i = Vector512.Create(0.0, 0, s[2], s[3], 0, 0, s[2], s[3]);
+        var w4r = Vector512.Create(1.0, 1, 1, 1, c[4], c[5], c[6], c[7]); var w4i = Vector512.Create(0.0, 0, 0, 0, s[4], s[5], s[6], s[7]);
+        for (int g = o; g < o + length; g += 8)
         {
-            var xr = Vector256.Create(re, g); var xi = Vector256.Create(im, g);
-            var yr = Vector256.Shuffle(xr, pairs) + odd * xr; var yi = Vector256.Shuffle(xi, pairs) + odd * xi;   // (x0 + x1, x0 - x1, x2 + x3, x2 - x3)
-            var tr = yr * wr - yi * wi; var ti = yr * wi + yi * wr;
-            (Vector256.Shuffle(tr, halves) + upper * tr).CopyTo(re, g); (Vector256.Shuffle(ti, halves) + upper * ti).CopyTo(im, g);   // (t0 + t2, t1 + t3, t0 - t2, t1 - t3)
+            var xr = Vector512.Create(re, g); var xi = Vector512.Create(im, g);
+            var yr = Vector512.Shuffle(xr, SwapOnes) + MinusOdd * xr; var yi = Vector512.Shuffle(xi, SwapOnes) + MinusOdd * xi;
+            xr = yr * w2r - yi * w2i; xi = yr * w2i + yi * w2r;
+            yr = Vector512.Shuffle(xr, SwapTwos) + MinusUpperTwos * xr; yi = Vector512.Shuffle(xi, SwapTwos) + MinusUpperTwos * xi;
+            xr = yr * w4r - yi * w4i; xi = yr * w4i + yi * w4r;
+            (Vector512.Shuffle(xr, SwapFours) + MinusUpperFour * xr).CopyTo(re, g); (Vector512.Shuffle(xi, SwapFours) + MinusUpperFour * xi).CopyTo(im, g);
         }
     }
 
@@ -683,6 +695,7 @@ internal sealed class PaddedConvolution
     /// Radix-2 decimation-in-frequency stages h, h/2, .., 1 down the rows [first, first + length) of one column strip, two stages
     /// a pass where two remain (the same butterflies on each element in the same order, so the same numbers, with half the loads and stores).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void DifColumnStages<V>(double[] re, double[] im, int c0, int width, int first, int length, int h) where V : struct, ISimdLanes<V>
     {
         int n = PaddedY, mx = PaddedX;
@@ -734,6 +747,7 @@ internal sealed class PaddedConvolution
     /// Radix-2 decimation-in-time stages 1, 2, .., below <paramref name="below"/> down the rows [first, first + length) of one column
     /// strip, two stages a pass where two remain (the mirror of <see cref="DifColumnStages"/>: the same numbers as one stage a pass).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void DitColumnStages<V>(double[] re, double[] im, int c0, int width, int first, int length, int below) where V : struct, ISimdLanes<V>
     {
         int n = PaddedY, mx = PaddedX;
@@ -759,7 +773,7 @@ internal sealed class PaddedConvolution
     }
 
     /// <summary>The forward radix-3 butterfly over three row segments (as <see cref="ForwardThirdsRow"/>, twiddles w1 on b, w2 on d), SIMD across columns.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveInlining | MethodImplOptions.AggressiveOptimization)]   // too large to inline: compiled optimised at once
     private static void ForwardThirdsSegment<V>(double[] re, double[] im, int a, int b, int d, int width, double w1r, double w1i, double w2r, double w2i) where V : struct, ISimdLanes<V>
     {
         int k = 0, v = V.Count;
@@ -795,7 +809,7 @@ internal sealed class PaddedConvolution
     }
 
     /// <summary>The inverse radix-3 butterfly over three row segments (as <see cref="InverseThirdsRow"/>, twiddles w1 on b, w2 on d), writing b and d only where read back.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveInlining | MethodImplOptions.AggressiveOptimization)]   // too large to inline: compiled optimised at once
     private static void InverseThirdsSegment<V>(double[] re, double[] im, int a, int b, int d, int width, double w1r, double w1i, double w2r, double w2i, bool writeB, bool writeD) where V : struct, ISimdLanes<V>
     {
         int k = 0, v = V.Count;
@@ -855,7 +869,7 @@ internal sealed class PaddedConvolution
     /// Two decimation-in-frequency stages on rows r0..r3 (a quarter of the group apart): (r0, r2) with w1 and (r1, r3) with w2, then
     /// (r0, r1) and (r2, r3) with w3, each pair as <see cref="DifButterfly"/>; SIMD across columns.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveInlining | MethodImplOptions.AggressiveOptimization)]   // too large to inline: compiled optimised at once
     private static void DifButterflyPair<V>(double[] re, double[] im, int r0, int r1, int r2, int r3, int width,
         double w1r, double w1i, double w2r, double w2i, double w3r, double w3i) where V : struct, ISimdLanes<V>
     {
@@ -906,7 +920,7 @@ internal sealed class PaddedConvolution
     /// Two decimation-in-time stages on rows r0..r3 (a quarter of the group apart): (r0, r1) and (r2, r3) with w1, then (r0, r2) with
     /// w2 and (r1, r3) with w3, each pair as <see cref="DitButterfly"/>; SIMD across columns.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveInlining | MethodImplOptions.AggressiveOptimization)]   // too large to inline: compiled optimised at once
     private static void DitButterflyPair<V>(double[] re, double[] im, int r0, int r1, int r2, int r3, int width,
         double w1r, double w1i, double w2r, double w2i, double w3r, double w3i) where V : struct, ISimdLanes<V>
     {
