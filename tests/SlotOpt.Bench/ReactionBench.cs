@@ -23,7 +23,8 @@ namespace SlotOpt.Bench;
 /// plate, 20 mm thick, uniform 50 Hz field (t/delta = 2.1), 128 x 64 cells per layer, layer count chosen and
 /// checked to 1 % (the time includes the L/2 and L solves). Times are wall clock, one run, on whatever cores
 /// the machine gives (2 here, shared), after the same solves on small grids (compiling the code); the AC and moving solves run with 1 and with 2 FFT workers
-/// (<see cref="ReactionOperator.Build"/>'s threads), whose answers are identical. "Solve CPU s" is the process's CPU time over
+/// (<see cref="ReactionOperator.Build"/>'s threads), whose answers are identical. The padded FFT's kernels run 512 bits wide where the
+/// processor has AVX-512; the "fft" case times them against the portable width (DOTNET_EnableAVX512F=0 runs every case portable). "Solve CPU s" is the process's CPU time over
 /// the solve: on a shared machine it shows the work done, which wall clock (waiting for a core) does not.
 /// </summary>
 public static class ReactionBench

@@ -20,7 +20,10 @@ namespace SlotOpt.Numerics;
 /// sits at position r m + bitreverse_m(k). Work saved against a plain 2-D FFT, all exact: the padding is never transformed
 /// (zero inputs skip or shorten the first stage, the last inverse stage computes only the rows and columns read back); a
 /// 3 x 2^k length where a power of two would be 4/3 as long (the padded area falls by up to 44 %); rows are transformed
-/// with SIMD along the row, columns as butterflies over whole row segments (SIMD across columns, in cache-sized column strips).
+/// with SIMD along the row, columns as butterflies over whole row segments (SIMD across columns, in column strips of half the
+/// level-2 cache). The kernels are written once over <see cref="ISimdLanes{TSelf}"/>: 512 bits wide where the processor has AVX-512
+/// (there a row's three short radix-2 stages also run as 8-point DFTs inside one register), else at the portable Vector&lt;T&gt; width;
+/// the two give the same numbers (element-wise IEEE operations, no fused multiply-add), which a test checks bit for bit.
 /// A real field (<see cref="ConvolveReal"/>) transforms its rows two at a time as one complex row z = x_a + i x_b and splits
 /// them by X_a[k] = (Z[k] + conj Z[-k]) / 2, X_b[k] = (Z[k] - conj Z[-k]) / 2i, then transforms only the PaddedX/2 + 1
 /// columns of the Hermitian half (W. H. Press et al., "Numerical Recipes", 3rd ed., 2007, section 12.3): about half the work
@@ -38,6 +41,8 @@ internal sealed class PaddedConvolution
     private readonly double[] _stageCos, _stageSin;   // rows, radix-2 stage h at [h, 2h): e^{-2 pi i t / 2h} = cos - i sin, t < h
     private readonly double[] _thirdCos, _thirdSin;   // rows, radix-3 stage: e^{-2 pi i r t / N} at (r - 1) m + t, r = 1, 2, t < m
     private readonly int[] _rowPosition;              // natural frequency -> its position in a row transform
+    private readonly int[] _rowConjugatePosition;     // natural frequency k -> the position of -k (mod PaddedX) in a row transform
+    private readonly double[] _zeroRow;               // PaddedX / 2 + 1 zeros: the missing partner of a real field's last odd row
     private readonly int[] _rowFrequency;             // position in a row transform -> natural frequency
     private readonly int[] _colFrequency;             // row of a spectrum -> natural frequency
     private readonly double[][] _lineRe, _lineIm;     // one row buffer per worker
@@ -56,7 +61,7 @@ internal sealed class PaddedConvolution
     /// <summary>Doubles in one SIMD register of the kernels (8 with AVX-512 unless turned off, else <see cref="System.Numerics.Vector{T}.Count"/>). Results do not depend on it.</summary>
     public int Lanes => _wide ? WideLanes.Count : PortableLanes.Count;
     public long Bytes => 8L * (Re.Length + Im.Length + 2L * Threads * PaddedX + _stageCos.Length + _stageSin.Length + _thirdCos.Length + _thirdSin.Length
-        + _colCos.Length + _colSin.Length) + 4L * (_rowPosition.Length + _rowFrequency.Length + _colFrequency.Length);
+        + _colCos.Length + _colSin.Length + _zeroRow.Length) + 4L * (_rowPosition.Length + _rowConjugatePosition.Length + _rowFrequency.Length + _colFrequency.Length);
 
     public PaddedConvolution(int nx, int ny, int threads = 1) : this(nx, ny, PaddedLength(nx), PaddedLength(ny), threads) { }
 
@@ -85,6 +90,8 @@ internal sealed class PaddedConvolution
         _rowFrequency = Frequencies(_factorX, _blockX);
         _rowPosition = new int[PaddedX];
         for (int s = 0; s < PaddedX; s++) _rowPosition[_rowFrequency[s]] = s;
+        _rowConjugatePosition = Enumerable.Range(0, PaddedX).Select(k => _rowPosition[(PaddedX - k) % PaddedX]).ToArray();
+        _zeroRow = new double[PaddedX / 2 + 1];
         _colFrequency = Frequencies(_factorY, _blockY);
         _lineRe = Enumerable.Range(0, threads).Select(_ => new double[PaddedX]).ToArray();
         _lineIm = Enumerable.Range(0, threads).Select(_ => new double[PaddedX]).ToArray();
@@ -242,7 +249,7 @@ internal sealed class PaddedConvolution
     private void ForwardRowPairs<V>(int from, int to, double[] lr, double[] li) where V : struct, ISimdLanes<V>
     {
         int mx = PaddedX, columns = mx / 2 + 1;
-        var at = _rowPosition;
+        var at = _rowPosition; var atMinus = _rowConjugatePosition;
         for (int a = 2 * from; a < 2 * to; a += 2)
         {
             int b = a + 1;
@@ -250,19 +257,25 @@ internal sealed class PaddedConvolution
             Array.Copy(Re, a * mx, lr, 0, Nx);
             if (pair) Array.Copy(Re, b * mx, li, 0, Nx); else Array.Clear(li, 0, Nx);
             ForwardRow<V>(lr, li, 0, Nx);
-            // X_a[k] = (Z[k] + conj Z[-k]) / 2, X_b[k] = (Z[k] - conj Z[-k]) / 2i (Z in the transform's order)
-            for (int k = 0; k < columns; k++)
+            // X_a[k] = (Z[k] + conj Z[-k]) / 2, X_b[k] = (Z[k] - conj Z[-k]) / 2i (Z in the transform's order: Z[k] at at[k], Z[-k] at atMinus[k])
+            var ar = Re.AsSpan(a * mx, columns); var ai = Im.AsSpan(a * mx, columns);
+            if (pair)
             {
-                int plus = at[k], minus = at[k == 0 ? 0 : mx - k];
-                double zr = lr[plus], zi = li[plus], wr = lr[minus], wi = li[minus];
-                Re[a * mx + k] = 0.5 * (zr + wr);
-                Im[a * mx + k] = 0.5 * (zi - wi);
-                if (pair)
+                var br = Re.AsSpan(b * mx, columns); var bi = Im.AsSpan(b * mx, columns);
+                for (int k = 0; k < ar.Length; k++)
                 {
-                    Re[b * mx + k] = 0.5 * (zi + wi);
-                    Im[b * mx + k] = -0.5 * (zr - wr);
+                    int plus = at[k], minus = atMinus[k];
+                    double zr = lr[plus], zi = li[plus], wr = lr[minus], wi = li[minus];
+                    ar[k] = 0.5 * (zr + wr); ai[k] = 0.5 * (zi - wi);
+                    br[k] = 0.5 * (zi + wi); bi[k] = -0.5 * (zr - wr);
                 }
             }
+            else
+                for (int k = 0; k < ar.Length; k++)
+                {
+                    int plus = at[k], minus = atMinus[k];
+                    ar[k] = 0.5 * (lr[plus] + lr[minus]); ai[k] = 0.5 * (li[plus] - li[minus]);
+                }
         }
     }
 
@@ -271,19 +284,22 @@ internal sealed class PaddedConvolution
     private void InverseRowPairs<V>(int from, int to, double[] lr, double[] li) where V : struct, ISimdLanes<V>
     {
         int mx = PaddedX, half = mx / 2, columns = half + 1;
-        var at = _rowPosition;
+        var at = _rowPosition; var atMinus = _rowConjugatePosition;
         for (int a = 2 * from; a < 2 * to; a += 2)
         {
             int b = a + 1;
             bool pair = b < Ny;
-            // Z[k] = X_a[k] + i X_b[k], with X[-k] = conj X[k] for the upper half, put in the transform's order
-            for (int k = 0; k < columns; k++)
+            // Z[k] = X_a[k] + i X_b[k], with X[-k] = conj X[k] for the upper half, put in the transform's order (Z[k] at at[k], Z[-k] at atMinus[k])
+            var xa = Re.AsSpan(a * mx, columns); var ya = Im.AsSpan(a * mx, columns);
+            var xb = pair ? Re.AsSpan(b * mx, columns) : _zeroRow; var yb = pair ? Im.AsSpan(b * mx, columns) : _zeroRow;
+            lr[at[0]] = xa[0] - yb[0]; li[at[0]] = ya[0] + xb[0];
+            lr[at[half]] = xa[half] - yb[half]; li[at[half]] = ya[half] + xb[half];
+            for (int k = 1; k < half; k++)
             {
-                double ar = Re[a * mx + k], ai = Im[a * mx + k];
-                double br = pair ? Re[b * mx + k] : 0, bi = pair ? Im[b * mx + k] : 0;
-                int plus = at[k];
+                double ar = xa[k], ai = ya[k], br = xb[k], bi = yb[k];
+                int plus = at[k], minus = atMinus[k];
                 lr[plus] = ar - bi; li[plus] = ai + br;
-                if (k > 0 && k < half) { int minus = at[mx - k]; lr[minus] = ar + bi; li[minus] = br - ai; }
+                lr[minus] = ar + bi; li[minus] = br - ai;
             }
             InverseRow<V>(lr, li, 0, Nx);
             Array.Copy(lr, 0, Re, a * mx, Nx);
