@@ -97,8 +97,8 @@ internal sealed class PaddedConvolution
         _lineIm = Enumerable.Range(0, threads).Select(_ => new double[PaddedX]).ToArray();
         _wide = wideLanes && Vector512.IsHardwareAccelerated && WideLanes.Count > PortableLanes.Count;
         // a column strip of both arrays over all rows in half the level-2 cache, whole SIMD vectors wide, and at least one strip a
-        // worker in a real field's PaddedX / 2 + 1 columns (measured, AC 256^2 on 512 x 512, 2 MB level-2 cache: 1 MB strips 1.5-1.8 times
-        // as fast as 128 kB ones, which ran 16 columns at a time)
+        // worker in a real field's PaddedX / 2 + 1 columns (measured 2026-12-03, load 15-28 on the 2-core machine, 2 MB level-2 cache: the
+        // AC 256^2 convolution on 512 x 512 with 1 MB strips 1.5-1.8 times as fast as with 128 kB ones, which ran 16 columns at a time)
         int width = Math.Max(1, StripBytes / (16 * PaddedY) / Lanes) * Lanes;
         int share = ((PaddedX / 2 + 1 + threads - 1) / threads + Lanes - 1) / Lanes * Lanes;
         _strip = Math.Min(Math.Min(width, share), PaddedX);
