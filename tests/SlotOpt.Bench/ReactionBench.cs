@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
+using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -22,19 +23,25 @@ namespace SlotOpt.Bench;
 /// plate, 20 mm thick, uniform 50 Hz field (t/delta = 2.1), 128 x 64 cells per layer, layer count chosen and
 /// checked to 1 % (the time includes the L/2 and L solves). Times are wall clock, one run, on whatever cores
 /// the machine gives (2 here, shared), after the same solves on small grids (compiling the code); the AC and moving solves run with 1 and with 2 FFT workers
-/// (<see cref="ReactionOperator.Build"/>'s threads), whose answers are identical. "Solve CPU s" is the process's CPU time over
+/// (<see cref="ReactionOperator.Build"/>'s threads), whose answers are identical. The padded FFT's kernels run 512 bits wide where the
+/// processor has AVX-512; the "fft" case times them against the portable width (DOTNET_EnableAVX512F=0 runs every case portable). "Solve CPU s" is the process's CPU time over
 /// the solve: on a shared machine it shows the work done, which wall clock (waiting for a core) does not.
 /// </summary>
 public static class ReactionBench
 {
+    /// <param name="args">the cases to run, any of "ac", "moving", "thick", "fft" (all when none is named), e.g. to time one case against another build</param>
     public static int Run(string[] args)
     {
+        var cases = new[] { "ac", "moving", "thick", "fft" };
+        var unknown = args.Where(a => !cases.Contains(a)).ToArray();
+        if (unknown.Length > 0) { Console.Error.WriteLine($"reaction: unknown case {unknown[0]} (cases: {string.Join(", ", cases)})"); return 2; }
+        bool Runs(string name) => args.Length == 0 || args.Contains(name);
         var c = CultureInfo.InvariantCulture;
         var conductor = new ConductingSheet(35.38e6, 3e-3);
-        WarmUp(conductor);
+        if (Runs("ac") || Runs("moving")) WarmUp(conductor);
         Console.WriteLine("| case | grid | unknowns | padded FFT | FFT threads | setup s | solve s | solve CPU s | iterations | residual | loss or drag ratio (coupled / resistance-limited) |");
         Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|---|");
-        foreach (int n in new[] { 256, 512 })
+        foreach (int n in Runs("ac") ? new[] { 256, 512 } : [])
         foreach (int threads in new[] { 1, 2 })
         {
             var clock = Stopwatch.StartNew();
@@ -54,7 +61,7 @@ public static class ReactionBench
             double nextSolve = clock.Elapsed.TotalSeconds, nextCpu = (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSeconds;
             Console.WriteLine(string.Create(c, $"| AC 50 Hz, slotted 1 m plate | {n} x {n} | {model.Unknowns} | {reaction.PaddedX} x {reaction.PaddedY} | {threads} | {setup:F2} | {solve:F2}; next {nextSolve:F2} | {solveCpu:F2}; next {nextCpu:F2} | {s.Iterations}; next {next.Iterations} | {s.RelativeResidual:E1} | {s.LossRatio:F4} |"));
         }
-        foreach (int threads in new[] { 1, 2 })
+        foreach (int threads in Runs("moving") ? new[] { 1, 2 } : [])
         {
             var clock = Stopwatch.StartNew();
             var model = SheetModel.Build(new PlateGeometry(Polygon.Rectangle(-0.6, -0.1, 0.2, 0.1)), new GridOptions { CellSizeM = 0.004 });
@@ -69,6 +76,7 @@ public static class ReactionBench
             double solve = clock.Elapsed.TotalSeconds, solveCpu = (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSeconds;
             Console.WriteLine(string.Create(c, $"| moving pole at v = w ({w:F1} m/s), 50 offsets | {model.Lattice.Nx} x {model.Lattice.Ny} | {model.Unknowns} | {reaction.ConvectedLattice.X} x {reaction.ConvectedLattice.Y} (Phi {reaction.FactorLattice.X} x {reaction.FactorLattice.Y}) | {threads} | {setup:F2} | {solve:F2} ({solve / 50:F3} per offset) | {solveCpu:F2} ({solveCpu / 50:F3} per offset) | {s.Iterations.Sum()} ({s.Iterations.Average():F1} per offset) | {s.MaxRelativeResidual:E1} | {s.DragRatio:F4} |"));
         }
+        if (Runs("thick"))
         {
             var clock = Stopwatch.StartNew();
             var model = SheetModel.Build(PlateGeometry.Rectangle(0.4, 0.2), new GridOptions { CellSizeM = 0.4 / 128 });
@@ -79,7 +87,50 @@ public static class ReactionBench
             double solve = clock.Elapsed.TotalSeconds, solveCpu = (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSeconds;
             Console.WriteLine(string.Create(c, $"| thick Cu 20 mm, 50 Hz, {s.Layers} layers (error {s.LayerError:P1}) | 128 x 64 x {s.Layers} | {model.Unknowns * s.Layers} | 256 x 128 | 1 | {setup:F2} | {solve:F2} (with kernels, L/2 and L) | {solveCpu:F2} | {s.Iterations} | {s.RelativeResidual:E1} | {s.LossRatio:F4} |"));
         }
+        if (Runs("fft")) FftLanes();
         return 0;
+    }
+
+    /// <summary>
+    /// The padded FFT convolution alone on the lattices of the solves above, one worker, its kernels 512 bits wide (where the processor
+    /// has AVX-512) against the portable Vector&lt;T&gt; width, the two alternating in rounds so that load hits both alike: CPU ms a
+    /// convolution (process CPU time over about 10^7 / lattice points convolutions a round, 0.1-0.5 s, so the clock's 10 ms ticks do not
+    /// matter; best and median of 7 rounds after one that compiles) and their ratio.
+    /// </summary>
+    private static void FftLanes()
+    {
+        var c = CultureInfo.InvariantCulture;
+        Console.WriteLine();
+        Console.WriteLine("| convolution | region | lattice | lanes wide / portable | wide CPU ms (best; median) | portable CPU ms (best; median) | median portable / wide |");
+        Console.WriteLine("|---|---|---|---|---|---|---|");
+        foreach (var (name, nx, ny, mx, my, real) in new[]
+        {
+            ("moving: Dx R, real", 199, 49, 512, 96, true),
+            ("moving: factor Phi, real, circular", 199, 49, 256, 96, true),
+            ("AC 256^2: R, complex", 255, 255, 512, 512, false),
+        })
+        {
+            var lanes = new[] { true, false }.Select(wide => new PaddedConvolution(nx, ny, mx, my, 1, wide)).ToArray();
+            var spectra = lanes.Select(l => l.Spectrum(nx - 1, ny - 1, (dx, dy) => 1 / Math.Sqrt(1 + dx * dx + dy * dy))).ToArray();
+            var random = new Random(1);
+            var field = Enumerable.Range(0, nx * ny).Select(_ => random.NextDouble()).ToArray();
+            var times = new[] { new List<double>(), new List<double>() };
+            int reps = Math.Max(20, 10_000_000 / (mx * my));
+            for (int round = 0; round < 8; round++)
+                for (int w = 0; w < 2; w++)
+                {
+                    var cpu = Process.GetCurrentProcess().TotalProcessorTime;
+                    for (int rep = 0; rep < reps; rep++)
+                    {
+                        var conv = lanes[w];
+                        for (int j = 0; j < ny; j++) { Array.Copy(field, j * nx, conv.Re, j * mx, nx); Array.Copy(field, j * nx, conv.Im, j * mx, nx); }
+                        if (real) conv.ConvolveReal(spectra[w]); else conv.ConvolveComplex(spectra[w]);
+                    }
+                    if (round > 0) times[w].Add((Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalMilliseconds / reps);   // round 0 compiles
+                }
+            double Median(List<double> t) => t.Order().ElementAt(t.Count / 2);
+            Console.WriteLine(string.Create(c, $"| {name} | {nx} x {ny} | {mx} x {my} | {lanes[0].Lanes} / {lanes[1].Lanes} | {times[0].Min():F2}; {Median(times[0]):F2} | {times[1].Min():F2}; {Median(times[1]):F2} | {Median(times[1]) / Median(times[0]):F2} |"));
+        }
     }
 
     /// <summary>The same solves on small grids first, so the timed ones do not pay for compiling the code.</summary>

@@ -1,4 +1,5 @@
 using System.Numerics;
+using System.Runtime.Intrinsics;
 using MathNet.Numerics.IntegralTransforms;
 using SlotOpt.Numerics;
 
@@ -22,12 +23,17 @@ public class PaddedConvolutionTests
     };
 
     [Theory]
-    [InlineData(7, 5, 0)]
-    [InlineData(16, 9, 1)]
-    [InlineData(13, 32, 2)]
-    [InlineData(1, 6, 2)]
-    [InlineData(9, 1, 2)]
-    public void Complex_and_real_fields_match_the_direct_linear_convolution(int nx, int ny, int symmetry)
+    [InlineData(7, 5, 0, true)]
+    [InlineData(7, 5, 0, false)]
+    [InlineData(16, 9, 1, true)]
+    [InlineData(16, 9, 1, false)]
+    [InlineData(13, 32, 2, true)]
+    [InlineData(13, 32, 2, false)]
+    [InlineData(1, 6, 2, true)]
+    [InlineData(1, 6, 2, false)]
+    [InlineData(9, 1, 2, true)]
+    [InlineData(9, 1, 2, false)]
+    public void Complex_and_real_fields_match_the_direct_linear_convolution(int nx, int ny, int symmetry, bool wideLanes)
     {
         var random = new Random(nx * 100 + ny);
         var x = Enumerable.Range(0, nx * ny).Select(_ => new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5)).ToArray();
@@ -39,7 +45,7 @@ public class PaddedConvolutionTests
                         direct[j * nx + i] += Kernel(i - p, j - q, symmetry) * x[q * nx + p];
         double scale = direct.Max(c => c.Magnitude);
 
-        var conv = new PaddedConvolution(nx, ny);
+        var conv = new PaddedConvolution(nx, ny, PaddedConvolution.PaddedLength(nx), PaddedConvolution.PaddedLength(ny), threads: 1, wideLanes);
         var spectrum = conv.Spectrum(nx - 1, ny - 1, (dx, dy) => Kernel(dx, dy, symmetry));
         for (int round = 0; round < 2; round++)   // twice: leftovers of the first convolution in the padding must not leak into the second
         {
@@ -72,12 +78,17 @@ public class PaddedConvolutionTests
     // in two dimensions), for complex and real fields, lengths 2^k and 3 x 2^k, the input region more than half the lattice (the
     // shortened first and last stages are not taken) or all of it. Tolerance 1e-12 relative to the largest term sum, as above.
     [Theory]
-    [InlineData(13, 5, 16, 8, 0)]
-    [InlineData(11, 7, 12, 8, 1)]
-    [InlineData(16, 6, 16, 6, 2)]
-    [InlineData(20, 9, 24, 16, 2)]
-    [InlineData(1, 5, 2, 6, 1)]
-    public void A_short_lattice_gives_the_direct_circular_convolution(int nx, int ny, int mx, int my, int symmetry)
+    [InlineData(13, 5, 16, 8, 0, true)]
+    [InlineData(13, 5, 16, 8, 0, false)]
+    [InlineData(11, 7, 12, 8, 1, true)]
+    [InlineData(11, 7, 12, 8, 1, false)]
+    [InlineData(16, 6, 16, 6, 2, true)]
+    [InlineData(16, 6, 16, 6, 2, false)]
+    [InlineData(20, 9, 24, 16, 2, true)]
+    [InlineData(20, 9, 24, 16, 2, false)]
+    [InlineData(1, 5, 2, 6, 1, true)]
+    [InlineData(1, 5, 2, 6, 1, false)]
+    public void A_short_lattice_gives_the_direct_circular_convolution(int nx, int ny, int mx, int my, int symmetry, bool wideLanes)
     {
         var random = new Random(nx * 100 + ny + mx);
         var x = Enumerable.Range(0, nx * ny).Select(_ => new Complex(random.NextDouble() - 0.5, random.NextDouble() - 0.5)).ToArray();
@@ -92,7 +103,7 @@ public class PaddedConvolutionTests
                         direct[j * nx + i] += wrapped[(i - p + mx) % mx, (j - q + my) % my] * x[q * nx + p];
         double scale = direct.Max(c => c.Magnitude);
 
-        var conv = new PaddedConvolution(nx, ny, mx, my, threads: 1);
+        var conv = new PaddedConvolution(nx, ny, mx, my, threads: 1, wideLanes);
         var spectrum = conv.Spectrum(nx - 1, ny - 1, (dx, dy) => Kernel(dx, dy, symmetry));
         for (int round = 0; round < 2; round++)   // twice: the first convolution's leftovers outside the input region must not leak into the second
         {
@@ -124,10 +135,13 @@ public class PaddedConvolutionTests
     // radix-3 path (ny = 7: 12 rows instead of 16) and the power-of-two path with more than half the rows occupied (ny = 9: 16 instead
     // of 24; ny = 5: 8 instead of 12). Tolerance 1e-12 relative to the largest term sum, as above; a doubled or missing row is off by order 1.
     [Theory]
-    [InlineData(7, 7, 0)]
-    [InlineData(10, 9, 1)]
-    [InlineData(6, 5, 1)]
-    public void A_kernel_even_in_y_is_convolved_linearly_on_two_n_minus_two_rows(int nx, int ny, int symmetry)
+    [InlineData(7, 7, 0, true)]
+    [InlineData(7, 7, 0, false)]
+    [InlineData(10, 9, 1, true)]
+    [InlineData(10, 9, 1, false)]
+    [InlineData(6, 5, 1, true)]
+    [InlineData(6, 5, 1, false)]
+    public void A_kernel_even_in_y_is_convolved_linearly_on_two_n_minus_two_rows(int nx, int ny, int symmetry, bool wideLanes)
     {
         var random = new Random(nx * 10 + ny);
         var x = Enumerable.Range(0, nx * ny).Select(_ => random.NextDouble() - 0.5).ToArray();
@@ -139,7 +153,7 @@ public class PaddedConvolutionTests
         double scale = direct.Max(Math.Abs);
         int mx = PaddedConvolution.PaddedLength(nx), my = PaddedConvolution.EvenPaddedLength(ny);
         Assert.True(my < PaddedConvolution.PaddedLength(ny), $"{my} rows: the case must be shorter than the general padding");
-        var conv = new PaddedConvolution(nx, ny, mx, my, threads: 1);
+        var conv = new PaddedConvolution(nx, ny, mx, my, threads: 1, wideLanes);
         var spectrum = conv.Spectrum(nx - 1, ny - 1, (dx, dy) => Kernel(dx, dy, symmetry), evenInY: true);
         for (int round = 0; round < 2; round++)
         {
@@ -221,6 +235,44 @@ public class PaddedConvolutionTests
                 var got = new Complex(conv.Re[j * mx + i], conv.Im[j * mx + i]);
                 Assert.True((got - want).Magnitude <= 1e-12 * scale, $"inverse {mx} x {my}, ({i}, {j}): {got} against {want}");
             }
+    }
+
+    // The kernels run 512 bits wide where the processor has AVX-512 and at the portable Vector<T> width otherwise; every lane rounds as
+    // the scalar operation would (IEEE 754 element-wise + - *, no fused multiply-add), so both widths must give the same numbers bit for bit
+    // (common practice, no source: the project's rule that results do not depend on the machine's vector width). Lattices where the widths
+    // take different paths: the moving solve's 200 x 50 nodes on 512 x 96 (radix-3 columns, row stages shorter than a wide register), a
+    // 3 x 2^k row of 96 (radix-3 thirds of 32), a row of 24 (thirds of 8: one wide register) and a row of 6 (thirds of 2: below both).
+    [Theory]
+    [InlineData(200, 50)]
+    [InlineData(37, 300)]
+    [InlineData(12, 40)]
+    [InlineData(3, 17)]
+    public void Wide_and_portable_lanes_give_the_same_numbers_bit_for_bit(int nx, int ny)
+    {
+        var random = new Random(nx + 7 * ny);
+        var x = Enumerable.Range(0, nx * ny).Select(_ => (random.NextDouble() - 0.5, random.NextDouble() - 0.5)).ToArray();
+        long[] Run(bool wideLanes, bool real)
+        {
+            var conv = new PaddedConvolution(nx, ny, PaddedConvolution.PaddedLength(nx), PaddedConvolution.PaddedLength(ny), threads: 1, wideLanes);
+            if (wideLanes && Vector512.IsHardwareAccelerated) Assert.Equal(Vector512<double>.Count, conv.Lanes);
+            if (!wideLanes) Assert.Equal(Vector<double>.Count, conv.Lanes);
+            var spectrum = conv.Spectrum(nx - 1, ny - 1, (dx, dy) => Kernel(dx, dy, 2));
+            var values = spectrum.Re.Concat(spectrum.Im).ToList();
+            for (int j = 0; j < ny; j++)
+                for (int i = 0; i < nx; i++) { conv.Re[j * conv.PaddedX + i] = x[j * nx + i].Item1; conv.Im[j * conv.PaddedX + i] = x[j * nx + i].Item2; }
+            if (real) conv.ConvolveReal(spectrum);
+            else
+            {
+                conv.TransformComplex();
+                values.AddRange(conv.Re.Concat(conv.Im));
+                conv.InverseTransformComplex();
+            }
+            for (int j = 0; j < ny; j++)
+                for (int i = 0; i < nx; i++) { values.Add(conv.Re[j * conv.PaddedX + i]); if (!real) values.Add(conv.Im[j * conv.PaddedX + i]); }
+            return values.Select(BitConverter.DoubleToInt64Bits).ToArray();
+        }
+        foreach (bool real in new[] { false, true })
+            Assert.Equal(Run(false, real), Run(true, real));
     }
 
     private static Complex[] Transform2D(Complex[] a, int columns, int rows, bool forward)
