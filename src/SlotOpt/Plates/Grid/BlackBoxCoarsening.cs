@@ -26,9 +26,13 @@ internal static class BlackBoxCoarsening
     public static StencilLevel Coarsen(StencilLevel f)
     {
         int ncx = (f.Nx + 1) / 2, ncy = (f.Ny + 1) / 2;
-        var c = new StencilLevel(ncx, ncy, ninePoint: true);
-        BuildProlongation(f, c);
-        GalerkinOperator(f, c);
+        int nc = ncx * ncy;
+        var c = new StencilLevel(ncx, ncy, ninePoint: true)
+        {
+            XLow = new float[nc], XHigh = new float[nc], YLow = new float[nc], YHigh = new float[nc],
+            CentreSW = new float[nc], CentreSE = new float[nc], CentreNW = new float[nc], CentreNE = new float[nc],
+        };
+        ProlongationAndGalerkinOperator(f, c);
         return c;
     }
 
@@ -74,55 +78,62 @@ internal static class BlackBoxCoarsening
         }
     }
 
+    /// <summary>The prolongation weights of the fine nodes on coarse row J's lines: between coarse nodes in x (fine row 2J) and in y (fine row 2J + 1).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void BuildProlongation(StencilLevel f, StencilLevel c)
+    private static void LineWeights(in Stencil stencil, StencilLevel c, int fny, int J)
     {
-        int ncx = c.Nx, ncy = c.Ny, nc = ncx * ncy, fnx = f.Nx, fny = f.Ny;
-        var xLow = new float[nc]; var xHigh = new float[nc]; var yLow = new float[nc]; var yHigh = new float[nc];
-        var cSW = new float[nc]; var cSE = new float[nc]; var cNW = new float[nc]; var cNE = new float[nc];
-        var stencil = new Stencil(f);
-        for (int J = 0; J < ncy; J++)
-            for (int I = 0; I < ncx; I++)
+        int ncx = c.Nx, ncy = c.Ny, fnx = stencil.Nx;
+        var xLow = c.XLow!; var xHigh = c.XHigh!; var yLow = c.YLow!; var yHigh = c.YHigh!;
+        for (int I = 0; I < ncx; I++)
+        {
+            int k = J * ncx + I;
+            int i = 2 * I + 1, j = 2 * J;
+            if (i < fnx)
             {
-                int k = J * ncx + I;
-                int i = 2 * I + 1, j = 2 * J;
-                if (i < fnx)
-                {
-                    var a = new Row(stencil, j * fnx + i);
-                    double inverse = Inverse(a.C + a.S + a.N);
-                    xLow[k] = (float)(-(a.W + a.SW + a.NW) * inverse);
-                    xHigh[k] = I + 1 < ncx ? (float)(-(a.E + a.SE + a.NE) * inverse) : 0;
-                }
-                i = 2 * I; j = 2 * J + 1;
-                if (j < fny)
-                {
-                    var a = new Row(stencil, j * fnx + i);
-                    double inverse = Inverse(a.C + a.W + a.E);
-                    yLow[k] = (float)(-(a.S + a.SW + a.SE) * inverse);
-                    yHigh[k] = J + 1 < ncy ? (float)(-(a.N + a.NW + a.NE) * inverse) : 0;
-                }
-            }
-        for (int J = 0; J < ncy; J++)
-            for (int I = 0; I < ncx; I++)
-            {
-                int i = 2 * I + 1, j = 2 * J + 1;
-                if (i >= fnx || j >= fny) continue;
-                int k = J * ncx + I;
-                bool east = I + 1 < ncx, north = J + 1 < ncy;
                 var a = new Row(stencil, j * fnx + i);
-                // the x/y-line neighbours' weights towards each corner (0 where that line node or corner is off the lattice)
-                double wSouthLine = yLow[k], nWestLine = yHigh[k];                               // west neighbour (2I, 2J+1)
-                double eSouthLine = east ? yLow[k + 1] : 0, eNorthLine = east ? yHigh[k + 1] : 0; // east neighbour (2I+2, 2J+1)
-                double sWestLine = xLow[k], sEastLine = xHigh[k];                                // south neighbour (2I+1, 2J)
-                double nWest = north ? xLow[k + ncx] : 0, nEast = north ? xHigh[k + ncx] : 0;    // north neighbour (2I+1, 2J+2)
-                double inverse = Inverse(a.C);
-                cSW[k] = (float)(-(a.SW + a.W * wSouthLine + a.S * sWestLine) * inverse);
-                cSE[k] = east ? (float)(-(a.SE + a.E * eSouthLine + a.S * sEastLine) * inverse) : 0;
-                cNW[k] = north ? (float)(-(a.NW + a.W * nWestLine + a.N * nWest) * inverse) : 0;
-                cNE[k] = east && north ? (float)(-(a.NE + a.E * eNorthLine + a.N * nEast) * inverse) : 0;
+                double inverse = Inverse(a.C + a.S + a.N);
+                xLow[k] = (float)(-(a.W + a.SW + a.NW) * inverse);
+                xHigh[k] = I + 1 < ncx ? (float)(-(a.E + a.SE + a.NE) * inverse) : 0;
             }
-        c.XLow = xLow; c.XHigh = xHigh; c.YLow = yLow; c.YHigh = yHigh;
-        c.CentreSW = cSW; c.CentreSE = cSE; c.CentreNW = cNW; c.CentreNE = cNE;
+            i = 2 * I; j = 2 * J + 1;
+            if (j < fny)
+            {
+                var a = new Row(stencil, j * fnx + i);
+                double inverse = Inverse(a.C + a.W + a.E);
+                yLow[k] = (float)(-(a.S + a.SW + a.SE) * inverse);
+                yHigh[k] = J + 1 < ncy ? (float)(-(a.N + a.NW + a.NE) * inverse) : 0;
+            }
+        }
+    }
+
+    /// <summary>The prolongation weights of the fine nodes at the centres of coarse row J's cells (fine row 2J + 1), from the line weights of coarse rows J and J + 1.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void CentreWeights(in Stencil stencil, StencilLevel c, int fny, int J)
+    {
+        int ncx = c.Nx, ncy = c.Ny, fnx = stencil.Nx;
+        var xLow = c.XLow!; var xHigh = c.XHigh!; var yLow = c.YLow!; var yHigh = c.YHigh!;
+        var cSW = c.CentreSW!; var cSE = c.CentreSE!; var cNW = c.CentreNW!; var cNE = c.CentreNE!;
+        int j = 2 * J + 1;
+        if (j >= fny) return;
+        bool north = J + 1 < ncy;
+        for (int I = 0; I < ncx; I++)
+        {
+            int i = 2 * I + 1;
+            if (i >= fnx) continue;
+            int k = J * ncx + I;
+            bool east = I + 1 < ncx;
+            var a = new Row(stencil, j * fnx + i);
+            // the x/y-line neighbours' weights towards each corner (0 where that line node or corner is off the lattice)
+            double wSouthLine = yLow[k], nWestLine = yHigh[k];                               // west neighbour (2I, 2J+1)
+            double eSouthLine = east ? yLow[k + 1] : 0, eNorthLine = east ? yHigh[k + 1] : 0; // east neighbour (2I+2, 2J+1)
+            double sWestLine = xLow[k], sEastLine = xHigh[k];                                // south neighbour (2I+1, 2J)
+            double nWest = north ? xLow[k + ncx] : 0, nEast = north ? xHigh[k + ncx] : 0;    // north neighbour (2I+1, 2J+2)
+            double inverse = Inverse(a.C);
+            cSW[k] = (float)(-(a.SW + a.W * wSouthLine + a.S * sWestLine) * inverse);
+            cSE[k] = east ? (float)(-(a.SE + a.E * eSouthLine + a.S * sEastLine) * inverse) : 0;
+            cNW[k] = north ? (float)(-(a.NW + a.W * nWestLine + a.N * nWest) * inverse) : 0;
+            cNE[k] = east && north ? (float)(-(a.NE + a.E * eNorthLine + a.N * nEast) * inverse) : 0;
+        }
     }
 
     /// <summary>
@@ -132,10 +143,11 @@ internal static class BlackBoxCoarsening
     /// (each dot product spelled out over the fine nodes the two supports share). The basis values are read straight from the
     /// prolongation arrays (see <see cref="Basis"/>), never gathered into a table. The coarse nodes away from the lattice's edges
     /// take <see cref="InteriorFromFivePoint"/> or <see cref="InteriorFromNinePoint"/>, the same sums without the loop (the first two
-    /// coarsenings are most of the setup).
+    /// coarsenings are most of the setup). One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
+    /// row J's coarse operator, while the fine rows they all read (2J - 1 to 2J + 2) are in cache.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void GalerkinOperator(StencilLevel f, StencilLevel c)
+    private static void ProlongationAndGalerkinOperator(StencilLevel f, StencilLevel c)
     {
         int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx, fny = f.Ny;
         var weights = new Weights(c);
@@ -147,7 +159,11 @@ internal static class BlackBoxCoarsening
         var cc = c.Centre; var cw = c.West; var cs = c.South; var csw = c.SouthWest!; var cse = c.SouthEast!;
         var stencil = new Stencil(f);
         bool nine = stencil.NinePoint;
+        LineWeights(stencil, c, fny, 0);
         for (int J = 0; J < ncy; J++)
+        {
+            if (J + 1 < ncy) LineWeights(stencil, c, fny, J + 1);
+            CentreWeights(stencil, c, fny, J);
             for (int I = 0; I < ncx; I++)
             {
                 int k = J * ncx + I;
@@ -202,6 +218,7 @@ internal static class BlackBoxCoarsening
                     }
                 }
             }
+        }
     }
 
     /// <summary>A coarse level's prolongation arrays as references, for the Galerkin product's reads of the basis values.</summary>
