@@ -144,7 +144,7 @@ internal static class BlackBoxCoarsening
     /// prolongation arrays (see <see cref="Basis"/>), never gathered into a table. The coarse nodes away from the lattice's edges
     /// take <see cref="InteriorFromFivePoint"/> or <see cref="InteriorFromNinePoint"/>, the same sums without the loop (the first two
     /// coarsenings are most of the setup). One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
-    /// row J's coarse operator, while the fine rows they all read (2J - 1 to 2J + 2) are in cache.
+    /// row J's coarse operator, while the fine rows they all read (2J - 2 to 2J + 3) are in cache.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void ProlongationAndGalerkinOperator(StencilLevel f, StencilLevel c)
