@@ -11,7 +11,9 @@ namespace SlotOpt.Tests.Plates;
 /// </summary>
 public class BlackBoxCoarseningTests
 {
-    public static TheoryData<int, int> Sides => new() { { 9, 7 }, { 8, 6 }, { 11, 10 } };
+    // odd and even sides; and lattices of few rows or columns, where the coarsening's row pass (prolongation one coarse row ahead of
+    // the Galerkin product) starts, ends and meets the edges within a row or two
+    public static TheoryData<int, int> Sides => new() { { 9, 7 }, { 8, 6 }, { 11, 10 }, { 12, 5 }, { 5, 13 }, { 4, 4 } };
 
     private static StencilLevel RandomFivePoint(int nx, int ny, int seed)
     {

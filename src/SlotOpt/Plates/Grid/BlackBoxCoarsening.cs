@@ -22,23 +22,19 @@ namespace SlotOpt.Plates.Grid;
 /// </summary>
 internal static class BlackBoxCoarsening
 {
-    /// <summary>
-    /// The next coarser level with its prolongation. <paramref name="bases"/>: scratch of at least <see cref="BasesLength"/>(f) entries
-    /// (a hierarchy passes the one it sized for its first coarse level to every level, so the setup touches less fresh memory), or null for one of its own.
-    /// </summary>
-    public static StencilLevel Coarsen(StencilLevel f, float[]? bases = null)
+    /// <summary>The next coarser level with its prolongation.</summary>
+    public static StencilLevel Coarsen(StencilLevel f)
     {
         int ncx = (f.Nx + 1) / 2, ncy = (f.Ny + 1) / 2;
-        bases ??= new float[BasesLength(f)];
-        if (bases.Length < BasesLength(f)) throw new ArgumentException("scratch shorter than 9 entries per coarse node", nameof(bases));
-        var c = new StencilLevel(ncx, ncy, ninePoint: true);
-        BuildProlongation(f, c);
-        GalerkinOperator(f, c, bases);
+        int nc = ncx * ncy;
+        var c = new StencilLevel(ncx, ncy, ninePoint: true)
+        {
+            XLow = new float[nc], XHigh = new float[nc], YLow = new float[nc], YHigh = new float[nc],
+            CentreSW = new float[nc], CentreSE = new float[nc], CentreNW = new float[nc], CentreNE = new float[nc],
+        };
+        ProlongationAndGalerkinOperator(f, c);
         return c;
     }
-
-    /// <summary>Entries of the scratch <see cref="Coarsen"/> needs below fine level f: 9 per coarse node (see <see cref="Bases"/>).</summary>
-    public static int BasesLength(StencilLevel f) => 9 * ((f.Nx + 1) / 2) * ((f.Ny + 1) / 2);
 
     /// <summary>1 / d, or 0 for a node with no positive denominator (then every weight through it is 0): one division for the two or four weights that share d.</summary>
     private static double Inverse(double denominator) => denominator > 0 ? 1 / denominator : 0;
@@ -82,91 +78,107 @@ internal static class BlackBoxCoarsening
         }
     }
 
+    /// <summary>The prolongation weights of the fine nodes on coarse row J's lines: between coarse nodes in x (fine row 2J) and in y (fine row 2J + 1).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void BuildProlongation(StencilLevel f, StencilLevel c)
+    private static void LineWeights(in Stencil stencil, StencilLevel c, int fny, int J)
     {
-        int ncx = c.Nx, ncy = c.Ny, nc = ncx * ncy, fnx = f.Nx, fny = f.Ny;
-        var xLow = new float[nc]; var xHigh = new float[nc]; var yLow = new float[nc]; var yHigh = new float[nc];
-        var cSW = new float[nc]; var cSE = new float[nc]; var cNW = new float[nc]; var cNE = new float[nc];
-        var stencil = new Stencil(f);
-        for (int J = 0; J < ncy; J++)
-            for (int I = 0; I < ncx; I++)
+        int ncx = c.Nx, ncy = c.Ny, fnx = stencil.Nx;
+        var xLow = c.XLow!; var xHigh = c.XHigh!; var yLow = c.YLow!; var yHigh = c.YHigh!;
+        for (int I = 0; I < ncx; I++)
+        {
+            int k = J * ncx + I;
+            int i = 2 * I + 1, j = 2 * J;
+            if (i < fnx)
             {
-                int k = J * ncx + I;
-                int i = 2 * I + 1, j = 2 * J;
-                if (i < fnx)
-                {
-                    var a = new Row(stencil, j * fnx + i);
-                    double inverse = Inverse(a.C + a.S + a.N);
-                    xLow[k] = (float)(-(a.W + a.SW + a.NW) * inverse);
-                    xHigh[k] = I + 1 < ncx ? (float)(-(a.E + a.SE + a.NE) * inverse) : 0;
-                }
-                i = 2 * I; j = 2 * J + 1;
-                if (j < fny)
-                {
-                    var a = new Row(stencil, j * fnx + i);
-                    double inverse = Inverse(a.C + a.W + a.E);
-                    yLow[k] = (float)(-(a.S + a.SW + a.SE) * inverse);
-                    yHigh[k] = J + 1 < ncy ? (float)(-(a.N + a.NW + a.NE) * inverse) : 0;
-                }
-            }
-        for (int J = 0; J < ncy; J++)
-            for (int I = 0; I < ncx; I++)
-            {
-                int i = 2 * I + 1, j = 2 * J + 1;
-                if (i >= fnx || j >= fny) continue;
-                int k = J * ncx + I;
-                bool east = I + 1 < ncx, north = J + 1 < ncy;
                 var a = new Row(stencil, j * fnx + i);
-                // the x/y-line neighbours' weights towards each corner (0 where that line node or corner is off the lattice)
-                double wSouthLine = yLow[k], nWestLine = yHigh[k];                               // west neighbour (2I, 2J+1)
-                double eSouthLine = east ? yLow[k + 1] : 0, eNorthLine = east ? yHigh[k + 1] : 0; // east neighbour (2I+2, 2J+1)
-                double sWestLine = xLow[k], sEastLine = xHigh[k];                                // south neighbour (2I+1, 2J)
-                double nWest = north ? xLow[k + ncx] : 0, nEast = north ? xHigh[k + ncx] : 0;    // north neighbour (2I+1, 2J+2)
-                double inverse = Inverse(a.C);
-                cSW[k] = (float)(-(a.SW + a.W * wSouthLine + a.S * sWestLine) * inverse);
-                cSE[k] = east ? (float)(-(a.SE + a.E * eSouthLine + a.S * sEastLine) * inverse) : 0;
-                cNW[k] = north ? (float)(-(a.NW + a.W * nWestLine + a.N * nWest) * inverse) : 0;
-                cNE[k] = east && north ? (float)(-(a.NE + a.E * eNorthLine + a.N * nEast) * inverse) : 0;
+                double inverse = Inverse(a.C + a.S + a.N);
+                xLow[k] = (float)(-(a.W + a.SW + a.NW) * inverse);
+                xHigh[k] = I + 1 < ncx ? (float)(-(a.E + a.SE + a.NE) * inverse) : 0;
             }
-        c.XLow = xLow; c.XHigh = xHigh; c.YLow = yLow; c.YHigh = yHigh;
-        c.CentreSW = cSW; c.CentreSE = cSE; c.CentreNW = cNW; c.CentreNE = cNE;
+            i = 2 * I; j = 2 * J + 1;
+            if (j < fny)
+            {
+                var a = new Row(stencil, j * fnx + i);
+                double inverse = Inverse(a.C + a.W + a.E);
+                yLow[k] = (float)(-(a.S + a.SW + a.SE) * inverse);
+                yHigh[k] = J + 1 < ncy ? (float)(-(a.N + a.NW + a.NE) * inverse) : 0;
+            }
+        }
+    }
+
+    /// <summary>The prolongation weights of the fine nodes at the centres of coarse row J's cells (fine row 2J + 1), from the line weights of coarse rows J and J + 1.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void CentreWeights(in Stencil stencil, StencilLevel c, int fny, int J)
+    {
+        int ncx = c.Nx, ncy = c.Ny, fnx = stencil.Nx;
+        var xLow = c.XLow!; var xHigh = c.XHigh!; var yLow = c.YLow!; var yHigh = c.YHigh!;
+        var cSW = c.CentreSW!; var cSE = c.CentreSE!; var cNW = c.CentreNW!; var cNE = c.CentreNE!;
+        int j = 2 * J + 1;
+        if (j >= fny) return;
+        bool north = J + 1 < ncy;
+        for (int I = 0; I < ncx; I++)
+        {
+            int i = 2 * I + 1;
+            if (i >= fnx) continue;
+            int k = J * ncx + I;
+            bool east = I + 1 < ncx;
+            var a = new Row(stencil, j * fnx + i);
+            // the x/y-line neighbours' weights towards each corner (0 where that line node or corner is off the lattice)
+            double wSouthLine = yLow[k], nWestLine = yHigh[k];                               // west neighbour (2I, 2J+1)
+            double eSouthLine = east ? yLow[k + 1] : 0, eNorthLine = east ? yHigh[k + 1] : 0; // east neighbour (2I+2, 2J+1)
+            double sWestLine = xLow[k], sEastLine = xHigh[k];                                // south neighbour (2I+1, 2J)
+            double nWest = north ? xLow[k + ncx] : 0, nEast = north ? xHigh[k + ncx] : 0;    // north neighbour (2I+1, 2J+2)
+            double inverse = Inverse(a.C);
+            cSW[k] = (float)(-(a.SW + a.W * wSouthLine + a.S * sWestLine) * inverse);
+            cSE[k] = east ? (float)(-(a.SE + a.E * eSouthLine + a.S * sEastLine) * inverse) : 0;
+            cNW[k] = north ? (float)(-(a.NW + a.W * nWestLine + a.N * nWest) * inverse) : 0;
+            cNE[k] = east && north ? (float)(-(a.NE + a.E * eNorthLine + a.N * nEast) * inverse) : 0;
+        }
     }
 
     /// <summary>
     /// A_c(K, L) = phi_K^T A phi_L with phi_K coarse node K's prolongation (support: the 3 x 3 fine
     /// nodes around it); per coarse node A phi_K is formed on the 5 x 5 patch around it and dotted
     /// with the basis functions of K and its west, south, south-west and south-east neighbours
-    /// (each dot product spelled out over the fine nodes the two supports share). The coarse nodes away from the lattice's edges
+    /// (each dot product spelled out over the fine nodes the two supports share). The basis values are read straight from the
+    /// prolongation arrays (see <see cref="Basis"/>), never gathered into a table. The coarse nodes away from the lattice's edges
     /// take <see cref="InteriorFromFivePoint"/> or <see cref="InteriorFromNinePoint"/>, the same sums without the loop (the first two
-    /// coarsenings are most of the setup).
+    /// coarsenings are most of the setup). One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
+    /// row J's coarse operator, while the fine rows they all read (2J - 2 to 2J + 3) are in cache.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void GalerkinOperator(StencilLevel f, StencilLevel c, float[] phiArray)
+    private static void ProlongationAndGalerkinOperator(StencilLevel f, StencilLevel c)
     {
         int ncx = c.Nx, ncy = c.Ny, fnx = f.Nx, fny = f.Ny;
-        Bases(c, phiArray);
-        ref float phi = ref MemoryMarshal.GetArrayDataReference(phiArray);
+        var weights = new Weights(c);
         Span<double> patch = stackalloc double[25];   // A phi_K on K's 5 x 5 patch, row by row from the south-west corner
         ref double a = ref MemoryMarshal.GetReference(patch);
+        // the bases of K and of its west, south, south-west and south-east neighbours at their 3 x 3 supports (edge nodes only)
+        Span<double> bases = stackalloc double[5 * 9];
+        Span<double> phiK = bases[..9], phiW = bases[9..18], phiS = bases[18..27], phiSW = bases[27..36], phiSE = bases[36..];
         var cc = c.Centre; var cw = c.West; var cs = c.South; var csw = c.SouthWest!; var cse = c.SouthEast!;
         var stencil = new Stencil(f);
         bool nine = stencil.NinePoint;
+        LineWeights(stencil, c, fny, 0);
         for (int J = 0; J < ncy; J++)
+        {
+            if (J + 1 < ncy) LineWeights(stencil, c, fny, J + 1);
+            CentreWeights(stencil, c, fny, J);
             for (int I = 0; I < ncx; I++)
             {
                 int k = J * ncx + I;
                 int p0 = 2 * J * fnx + 2 * I;
                 if (I > 0 && J > 0 && 2 * I + 1 < fnx && 2 * J + 1 < fny)
                 {
-                    if (nine) InteriorFromNinePoint(stencil, ref phi, k, p0, ncx, I, cc, cw, cs, csw, cse);
-                    else InteriorFromFivePoint(stencil, ref phi, k, p0, ncx, I, cc, cw, cs, csw, cse);
+                    if (nine) InteriorFromNinePoint(stencil, weights, k, p0, ncx, I, cc, cw, cs, csw, cse);
+                    else InteriorFromFivePoint(stencil, weights, k, p0, ncx, I, cc, cw, cs, csw, cse);
                     continue;
                 }
+                Basis(weights, k, I, J, ncx, phiK);
                 patch.Clear();
                 for (int t = 0; t < 9; t++)
                 {
-                    double v = Unsafe.Add(ref phi, 9 * k + t);
+                    double v = phiK[t];
                     if (v == 0) continue;   // also every support node off the lattice
                     int mi = t % 3 - 1, mj = t / 3 - 1;
                     var row = new Row(stencil, p0 + mj * fnx + mi);
@@ -182,59 +194,97 @@ internal static class BlackBoxCoarsening
                     Unsafe.Add(ref a, centre - 4) += row.SE * v;
                     Unsafe.Add(ref a, centre + 4) += row.NW * v;
                 }
-                int b = 9 * k;   // phi_K: patch places 6 7 8 / 11 12 13 / 16 17 18
-                cc[k] = phiArray[b] * patch[6] + phiArray[b + 1] * patch[7] + phiArray[b + 2] * patch[8] + phiArray[b + 3] * patch[11] + phiArray[b + 4] * patch[12]
-                      + phiArray[b + 5] * patch[13] + phiArray[b + 6] * patch[16] + phiArray[b + 7] * patch[17] + phiArray[b + 8] * patch[18];
+                // phi_K: patch places 6 7 8 / 11 12 13 / 16 17 18
+                cc[k] = phiK[0] * patch[6] + phiK[1] * patch[7] + phiK[2] * patch[8] + phiK[3] * patch[11] + phiK[4] * patch[12]
+                      + phiK[5] * patch[13] + phiK[6] * patch[16] + phiK[7] * patch[17] + phiK[8] * patch[18];
                 if (I > 0)
                 {
-                    b = 9 * (k - 1);   // the west neighbour's columns 0, 1 over K's patch columns 0, 1 (rows 1 to 3)
-                    cw[k] = phiArray[b + 1] * patch[5] + phiArray[b + 2] * patch[6] + phiArray[b + 4] * patch[10] + phiArray[b + 5] * patch[11] + phiArray[b + 7] * patch[15] + phiArray[b + 8] * patch[16];
+                    Basis(weights, k - 1, I - 1, J, ncx, phiW);   // the west neighbour's columns 1, 2 over K's patch columns 0, 1 (rows 1 to 3)
+                    cw[k] = phiW[1] * patch[5] + phiW[2] * patch[6] + phiW[4] * patch[10] + phiW[5] * patch[11] + phiW[7] * patch[15] + phiW[8] * patch[16];
                 }
                 if (J > 0)
                 {
-                    b = 9 * (k - ncx);   // the south neighbour's rows 1, 2 over K's patch rows 0, 1 (columns 1 to 3)
-                    cs[k] = phiArray[b + 3] * patch[1] + phiArray[b + 4] * patch[2] + phiArray[b + 5] * patch[3] + phiArray[b + 6] * patch[6] + phiArray[b + 7] * patch[7] + phiArray[b + 8] * patch[8];
+                    Basis(weights, k - ncx, I, J - 1, ncx, phiS);   // the south neighbour's rows 1, 2 over K's patch rows 0, 1 (columns 1 to 3)
+                    cs[k] = phiS[3] * patch[1] + phiS[4] * patch[2] + phiS[5] * patch[3] + phiS[6] * patch[6] + phiS[7] * patch[7] + phiS[8] * patch[8];
                     if (I > 0)
                     {
-                        b = 9 * (k - ncx - 1);   // south-west: its north-east 2 x 2 over K's patch corner 0, 1, 5, 6
-                        csw[k] = phiArray[b + 4] * patch[0] + phiArray[b + 5] * patch[1] + phiArray[b + 7] * patch[5] + phiArray[b + 8] * patch[6];
+                        Basis(weights, k - ncx - 1, I - 1, J - 1, ncx, phiSW);   // south-west: its north-east 2 x 2 over K's patch corner 0, 1, 5, 6
+                        csw[k] = phiSW[4] * patch[0] + phiSW[5] * patch[1] + phiSW[7] * patch[5] + phiSW[8] * patch[6];
                     }
                     if (I + 1 < ncx)
                     {
-                        b = 9 * (k - ncx + 1);   // south-east: its north-west 2 x 2 over K's patch corner 3, 4, 8, 9
-                        cse[k] = phiArray[b + 3] * patch[3] + phiArray[b + 4] * patch[4] + phiArray[b + 6] * patch[8] + phiArray[b + 7] * patch[9];
+                        Basis(weights, k - ncx + 1, I + 1, J - 1, ncx, phiSE);   // south-east: its north-west 2 x 2 over K's patch corner 3, 4, 8, 9
+                        cse[k] = phiSE[3] * patch[3] + phiSE[4] * patch[4] + phiSE[6] * patch[8] + phiSE[7] * patch[9];
                     }
                 }
             }
+        }
+    }
+
+    /// <summary>A coarse level's prolongation arrays as references, for the Galerkin product's reads of the basis values.</summary>
+    private readonly ref struct Weights
+    {
+        public readonly ref float XLow, XHigh, YLow, YHigh, CentreSW, CentreSE, CentreNW, CentreNE;
+
+        public Weights(StencilLevel c)
+        {
+            XLow = ref MemoryMarshal.GetArrayDataReference(c.XLow!); XHigh = ref MemoryMarshal.GetArrayDataReference(c.XHigh!);
+            YLow = ref MemoryMarshal.GetArrayDataReference(c.YLow!); YHigh = ref MemoryMarshal.GetArrayDataReference(c.YHigh!);
+            CentreSW = ref MemoryMarshal.GetArrayDataReference(c.CentreSW!); CentreSE = ref MemoryMarshal.GetArrayDataReference(c.CentreSE!);
+            CentreNW = ref MemoryMarshal.GetArrayDataReference(c.CentreNW!); CentreNE = ref MemoryMarshal.GetArrayDataReference(c.CentreNE!);
+        }
+    }
+
+    /// <summary>
+    /// Coarse node k's (at (I, J)) prolongation weights at its 3 x 3 fine neighbourhood, phi[(dj + 1) 3 + di + 1] for offset (di, dj):
+    /// 1 at the node itself, the line and centre weights of the fine nodes around it; 0 off the lattice (the prolongation arrays hold
+    /// 0 there, so only the low edges I = 0, J = 0 need a test).
+    /// </summary>
+    private static void Basis(in Weights w, int k, int I, int J, int ncx, Span<double> phi)
+    {
+        bool west = I > 0, south = J > 0;
+        phi[4] = 1;
+        phi[5] = Unsafe.Add(ref w.XLow, k);
+        phi[3] = west ? Unsafe.Add(ref w.XHigh, k - 1) : 0;
+        phi[7] = Unsafe.Add(ref w.YLow, k);
+        phi[1] = south ? Unsafe.Add(ref w.YHigh, k - ncx) : 0;
+        phi[8] = Unsafe.Add(ref w.CentreSW, k);
+        phi[6] = west ? Unsafe.Add(ref w.CentreSE, k - 1) : 0;
+        phi[2] = south ? Unsafe.Add(ref w.CentreNW, k - ncx) : 0;
+        phi[0] = west && south ? Unsafe.Add(ref w.CentreNE, k - ncx - 1) : 0;
     }
 
     /// <summary>
     /// <see cref="GalerkinOperator"/>'s entries for a coarse node whose 3 x 3 support lies inside a 5-point fine level: the same terms
-    /// summed in the same order as the patch loop (so the same bits: a term with a 0 factor left out adds exactly 0), the patch held
-    /// in locals and A's corners (0 on a 5-point level) left out.
+    /// summed in the same order as the patch loop (so the same bits: a term with a 0 factor left out adds exactly 0, one with the
+    /// basis value 1 is the other factor), the patch held in locals and A's corners (0 on a 5-point level) left out.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static void InteriorFromFivePoint(in Stencil stencil, ref float phi, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
+    private static void InteriorFromFivePoint(in Stencil stencil, in Weights w, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
     {
-        int fnx = stencil.Nx, b = 9 * k;
+        int fnx = stencil.Nx;
+        // phi_K's values (1 at K itself): offsets (-1, -1) ... (1, 1), row by row
+        double v0 = Unsafe.Add(ref w.CentreNE, k - ncx - 1), v1 = Unsafe.Add(ref w.YHigh, k - ncx), v2 = Unsafe.Add(ref w.CentreNW, k - ncx),
+            v3 = Unsafe.Add(ref w.XHigh, k - 1), v4 = 1, v5 = Unsafe.Add(ref w.XLow, k),
+            v6 = Unsafe.Add(ref w.CentreSE, k - 1), v7 = Unsafe.Add(ref w.YLow, k), v8 = Unsafe.Add(ref w.CentreSW, k);
         int n0 = p0 - fnx - 1;
-        double v0 = Unsafe.Add(ref phi, b + 0), C0 = Unsafe.Add(ref stencil.Centre, n0), W0 = Unsafe.Add(ref stencil.West, n0), E0 = Unsafe.Add(ref stencil.West, n0 + 1), S0 = Unsafe.Add(ref stencil.South, n0), N0 = Unsafe.Add(ref stencil.South, n0 + fnx);
+        double C0 = Unsafe.Add(ref stencil.Centre, n0), W0 = Unsafe.Add(ref stencil.West, n0), E0 = Unsafe.Add(ref stencil.West, n0 + 1), S0 = Unsafe.Add(ref stencil.South, n0), N0 = Unsafe.Add(ref stencil.South, n0 + fnx);
         int n1 = p0 - fnx;
-        double v1 = Unsafe.Add(ref phi, b + 1), C1 = Unsafe.Add(ref stencil.Centre, n1), W1 = Unsafe.Add(ref stencil.West, n1), E1 = Unsafe.Add(ref stencil.West, n1 + 1), S1 = Unsafe.Add(ref stencil.South, n1), N1 = Unsafe.Add(ref stencil.South, n1 + fnx);
+        double C1 = Unsafe.Add(ref stencil.Centre, n1), W1 = Unsafe.Add(ref stencil.West, n1), E1 = Unsafe.Add(ref stencil.West, n1 + 1), S1 = Unsafe.Add(ref stencil.South, n1), N1 = Unsafe.Add(ref stencil.South, n1 + fnx);
         int n2 = p0 - fnx + 1;
-        double v2 = Unsafe.Add(ref phi, b + 2), C2 = Unsafe.Add(ref stencil.Centre, n2), W2 = Unsafe.Add(ref stencil.West, n2), E2 = Unsafe.Add(ref stencil.West, n2 + 1), S2 = Unsafe.Add(ref stencil.South, n2), N2 = Unsafe.Add(ref stencil.South, n2 + fnx);
+        double C2 = Unsafe.Add(ref stencil.Centre, n2), W2 = Unsafe.Add(ref stencil.West, n2), E2 = Unsafe.Add(ref stencil.West, n2 + 1), S2 = Unsafe.Add(ref stencil.South, n2), N2 = Unsafe.Add(ref stencil.South, n2 + fnx);
         int n3 = p0 - 1;
-        double v3 = Unsafe.Add(ref phi, b + 3), C3 = Unsafe.Add(ref stencil.Centre, n3), W3 = Unsafe.Add(ref stencil.West, n3), E3 = Unsafe.Add(ref stencil.West, n3 + 1), S3 = Unsafe.Add(ref stencil.South, n3), N3 = Unsafe.Add(ref stencil.South, n3 + fnx);
+        double C3 = Unsafe.Add(ref stencil.Centre, n3), W3 = Unsafe.Add(ref stencil.West, n3), E3 = Unsafe.Add(ref stencil.West, n3 + 1), S3 = Unsafe.Add(ref stencil.South, n3), N3 = Unsafe.Add(ref stencil.South, n3 + fnx);
         int n4 = p0;
-        double v4 = Unsafe.Add(ref phi, b + 4), C4 = Unsafe.Add(ref stencil.Centre, n4), W4 = Unsafe.Add(ref stencil.West, n4), E4 = Unsafe.Add(ref stencil.West, n4 + 1), S4 = Unsafe.Add(ref stencil.South, n4), N4 = Unsafe.Add(ref stencil.South, n4 + fnx);
+        double C4 = Unsafe.Add(ref stencil.Centre, n4), W4 = Unsafe.Add(ref stencil.West, n4), E4 = Unsafe.Add(ref stencil.West, n4 + 1), S4 = Unsafe.Add(ref stencil.South, n4), N4 = Unsafe.Add(ref stencil.South, n4 + fnx);
         int n5 = p0 + 1;
-        double v5 = Unsafe.Add(ref phi, b + 5), C5 = Unsafe.Add(ref stencil.Centre, n5), W5 = Unsafe.Add(ref stencil.West, n5), E5 = Unsafe.Add(ref stencil.West, n5 + 1), S5 = Unsafe.Add(ref stencil.South, n5), N5 = Unsafe.Add(ref stencil.South, n5 + fnx);
+        double C5 = Unsafe.Add(ref stencil.Centre, n5), W5 = Unsafe.Add(ref stencil.West, n5), E5 = Unsafe.Add(ref stencil.West, n5 + 1), S5 = Unsafe.Add(ref stencil.South, n5), N5 = Unsafe.Add(ref stencil.South, n5 + fnx);
         int n6 = p0 + fnx - 1;
-        double v6 = Unsafe.Add(ref phi, b + 6), C6 = Unsafe.Add(ref stencil.Centre, n6), W6 = Unsafe.Add(ref stencil.West, n6), E6 = Unsafe.Add(ref stencil.West, n6 + 1), S6 = Unsafe.Add(ref stencil.South, n6), N6 = Unsafe.Add(ref stencil.South, n6 + fnx);
+        double C6 = Unsafe.Add(ref stencil.Centre, n6), W6 = Unsafe.Add(ref stencil.West, n6), E6 = Unsafe.Add(ref stencil.West, n6 + 1), S6 = Unsafe.Add(ref stencil.South, n6), N6 = Unsafe.Add(ref stencil.South, n6 + fnx);
         int n7 = p0 + fnx;
-        double v7 = Unsafe.Add(ref phi, b + 7), C7 = Unsafe.Add(ref stencil.Centre, n7), W7 = Unsafe.Add(ref stencil.West, n7), E7 = Unsafe.Add(ref stencil.West, n7 + 1), S7 = Unsafe.Add(ref stencil.South, n7), N7 = Unsafe.Add(ref stencil.South, n7 + fnx);
+        double C7 = Unsafe.Add(ref stencil.Centre, n7), W7 = Unsafe.Add(ref stencil.West, n7), E7 = Unsafe.Add(ref stencil.West, n7 + 1), S7 = Unsafe.Add(ref stencil.South, n7), N7 = Unsafe.Add(ref stencil.South, n7 + fnx);
         int n8 = p0 + fnx + 1;
-        double v8 = Unsafe.Add(ref phi, b + 8), C8 = Unsafe.Add(ref stencil.Centre, n8), W8 = Unsafe.Add(ref stencil.West, n8), E8 = Unsafe.Add(ref stencil.West, n8 + 1), S8 = Unsafe.Add(ref stencil.South, n8), N8 = Unsafe.Add(ref stencil.South, n8 + fnx);
+        double C8 = Unsafe.Add(ref stencil.Centre, n8), W8 = Unsafe.Add(ref stencil.West, n8), E8 = Unsafe.Add(ref stencil.West, n8 + 1), S8 = Unsafe.Add(ref stencil.South, n8), N8 = Unsafe.Add(ref stencil.South, n8 + fnx);
         // a_m = (A phi_K) at patch place m (5 x 5, row by row from the south-west corner, K at 12), each a sum over the support nodes
         // in the patch loop's order; places 0 and 4 (the patch's lower corners) are 0 on a 5-point level, 14 and up are not needed
         double a1 = S0 * v0;
@@ -253,54 +303,56 @@ internal static class BlackBoxCoarsening
         double a16 = N3 * v3 + C6 * v6 + W7 * v7;
         double a17 = N4 * v4 + E6 * v6 + C7 * v7 + W8 * v8;
         double a18 = N5 * v5 + E7 * v7 + C8 * v8;
-        cc[k] = Unsafe.Add(ref phi, b) * a6 + Unsafe.Add(ref phi, b + 1) * a7 + Unsafe.Add(ref phi, b + 2) * a8 + Unsafe.Add(ref phi, b + 3) * a11 + Unsafe.Add(ref phi, b + 4) * a12
-              + Unsafe.Add(ref phi, b + 5) * a13 + Unsafe.Add(ref phi, b + 6) * a16 + Unsafe.Add(ref phi, b + 7) * a17 + Unsafe.Add(ref phi, b + 8) * a18;
-        b = 9 * (k - 1);
-        cw[k] = Unsafe.Add(ref phi, b + 1) * a5 + Unsafe.Add(ref phi, b + 2) * a6 + Unsafe.Add(ref phi, b + 4) * a10 + Unsafe.Add(ref phi, b + 5) * a11 + Unsafe.Add(ref phi, b + 7) * a15 + Unsafe.Add(ref phi, b + 8) * a16;
-        b = 9 * (k - ncx);
-        cs[k] = Unsafe.Add(ref phi, b + 3) * a1 + Unsafe.Add(ref phi, b + 4) * a2 + Unsafe.Add(ref phi, b + 5) * a3 + Unsafe.Add(ref phi, b + 6) * a6 + Unsafe.Add(ref phi, b + 7) * a7 + Unsafe.Add(ref phi, b + 8) * a8;
-        b = 9 * (k - ncx - 1);
-        csw[k] = Unsafe.Add(ref phi, b + 5) * a1 + Unsafe.Add(ref phi, b + 7) * a5 + Unsafe.Add(ref phi, b + 8) * a6;
-        if (I + 1 < ncx)
-        {
-            b = 9 * (k - ncx + 1);
-            cse[k] = Unsafe.Add(ref phi, b + 3) * a3 + Unsafe.Add(ref phi, b + 6) * a8 + Unsafe.Add(ref phi, b + 7) * a9;
-        }
+        cc[k] = v0 * a6 + v1 * a7 + v2 * a8 + v3 * a11 + a12 + v5 * a13 + v6 * a16 + v7 * a17 + v8 * a18;
+        // the west neighbour's basis at columns 0, 1 of its support (1 at the neighbour itself)
+        cw[k] = Unsafe.Add(ref w.YHigh, k - 1 - ncx) * a5 + Unsafe.Add(ref w.CentreNW, k - 1 - ncx) * a6 + a10 + Unsafe.Add(ref w.XLow, k - 1) * a11
+              + Unsafe.Add(ref w.YLow, k - 1) * a15 + Unsafe.Add(ref w.CentreSW, k - 1) * a16;
+        // the south neighbour's basis at rows 1, 2 of its support
+        cs[k] = Unsafe.Add(ref w.XHigh, k - ncx - 1) * a1 + a2 + Unsafe.Add(ref w.XLow, k - ncx) * a3 + Unsafe.Add(ref w.CentreSE, k - ncx - 1) * a6
+              + Unsafe.Add(ref w.YLow, k - ncx) * a7 + Unsafe.Add(ref w.CentreSW, k - ncx) * a8;
+        // the south-west neighbour's basis at its north-east 2 x 2 (its 1 meets the patch's corner 0, which is 0 here)
+        csw[k] = Unsafe.Add(ref w.XLow, k - ncx - 1) * a1 + Unsafe.Add(ref w.YLow, k - ncx - 1) * a5 + Unsafe.Add(ref w.CentreSW, k - ncx - 1) * a6;
+        if (I + 1 < ncx)   // the south-east neighbour's basis at its north-west 2 x 2 (patch corner 4 is 0 here)
+            cse[k] = Unsafe.Add(ref w.XHigh, k - ncx) * a3 + Unsafe.Add(ref w.CentreSE, k - ncx) * a8 + Unsafe.Add(ref w.YLow, k - ncx + 1) * a9;
     }
 
     /// <summary>
     /// <see cref="InteriorFromFivePoint"/> below a 9-point level: the same sums as the patch loop, in its order, with A's corners.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
-    private static void InteriorFromNinePoint(in Stencil stencil, ref float phi, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
+    private static void InteriorFromNinePoint(in Stencil stencil, in Weights w, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
     {
-        int fnx = stencil.Nx, b = 9 * k;
+        int fnx = stencil.Nx;
+        // phi_K's values (1 at K itself): offsets (-1, -1) ... (1, 1), row by row
+        double v0 = Unsafe.Add(ref w.CentreNE, k - ncx - 1), v1 = Unsafe.Add(ref w.YHigh, k - ncx), v2 = Unsafe.Add(ref w.CentreNW, k - ncx),
+            v3 = Unsafe.Add(ref w.XHigh, k - 1), v4 = 1, v5 = Unsafe.Add(ref w.XLow, k),
+            v6 = Unsafe.Add(ref w.CentreSE, k - 1), v7 = Unsafe.Add(ref w.YLow, k), v8 = Unsafe.Add(ref w.CentreSW, k);
         int n0 = p0 - fnx - 1;
-        double v0 = Unsafe.Add(ref phi, b + 0), C0 = Unsafe.Add(ref stencil.Centre, n0), W0 = Unsafe.Add(ref stencil.West, n0), E0 = Unsafe.Add(ref stencil.West, n0 + 1), S0 = Unsafe.Add(ref stencil.South, n0), N0 = Unsafe.Add(ref stencil.South, n0 + fnx),
+        double C0 = Unsafe.Add(ref stencil.Centre, n0), W0 = Unsafe.Add(ref stencil.West, n0), E0 = Unsafe.Add(ref stencil.West, n0 + 1), S0 = Unsafe.Add(ref stencil.South, n0), N0 = Unsafe.Add(ref stencil.South, n0 + fnx),
             SW0 = Unsafe.Add(ref stencil.SouthWest, n0), NE0 = Unsafe.Add(ref stencil.SouthWest, n0 + fnx + 1), SE0 = Unsafe.Add(ref stencil.SouthEast, n0), NW0 = Unsafe.Add(ref stencil.SouthEast, n0 + fnx - 1);
         int n1 = p0 - fnx;
-        double v1 = Unsafe.Add(ref phi, b + 1), C1 = Unsafe.Add(ref stencil.Centre, n1), W1 = Unsafe.Add(ref stencil.West, n1), E1 = Unsafe.Add(ref stencil.West, n1 + 1), S1 = Unsafe.Add(ref stencil.South, n1), N1 = Unsafe.Add(ref stencil.South, n1 + fnx),
+        double C1 = Unsafe.Add(ref stencil.Centre, n1), W1 = Unsafe.Add(ref stencil.West, n1), E1 = Unsafe.Add(ref stencil.West, n1 + 1), S1 = Unsafe.Add(ref stencil.South, n1), N1 = Unsafe.Add(ref stencil.South, n1 + fnx),
             SW1 = Unsafe.Add(ref stencil.SouthWest, n1), NE1 = Unsafe.Add(ref stencil.SouthWest, n1 + fnx + 1), SE1 = Unsafe.Add(ref stencil.SouthEast, n1), NW1 = Unsafe.Add(ref stencil.SouthEast, n1 + fnx - 1);
         int n2 = p0 - fnx + 1;
-        double v2 = Unsafe.Add(ref phi, b + 2), C2 = Unsafe.Add(ref stencil.Centre, n2), W2 = Unsafe.Add(ref stencil.West, n2), E2 = Unsafe.Add(ref stencil.West, n2 + 1), S2 = Unsafe.Add(ref stencil.South, n2), N2 = Unsafe.Add(ref stencil.South, n2 + fnx),
+        double C2 = Unsafe.Add(ref stencil.Centre, n2), W2 = Unsafe.Add(ref stencil.West, n2), E2 = Unsafe.Add(ref stencil.West, n2 + 1), S2 = Unsafe.Add(ref stencil.South, n2), N2 = Unsafe.Add(ref stencil.South, n2 + fnx),
             SW2 = Unsafe.Add(ref stencil.SouthWest, n2), NE2 = Unsafe.Add(ref stencil.SouthWest, n2 + fnx + 1), SE2 = Unsafe.Add(ref stencil.SouthEast, n2), NW2 = Unsafe.Add(ref stencil.SouthEast, n2 + fnx - 1);
         int n3 = p0 - 1;
-        double v3 = Unsafe.Add(ref phi, b + 3), C3 = Unsafe.Add(ref stencil.Centre, n3), W3 = Unsafe.Add(ref stencil.West, n3), E3 = Unsafe.Add(ref stencil.West, n3 + 1), S3 = Unsafe.Add(ref stencil.South, n3), N3 = Unsafe.Add(ref stencil.South, n3 + fnx),
+        double C3 = Unsafe.Add(ref stencil.Centre, n3), W3 = Unsafe.Add(ref stencil.West, n3), E3 = Unsafe.Add(ref stencil.West, n3 + 1), S3 = Unsafe.Add(ref stencil.South, n3), N3 = Unsafe.Add(ref stencil.South, n3 + fnx),
             SW3 = Unsafe.Add(ref stencil.SouthWest, n3), NE3 = Unsafe.Add(ref stencil.SouthWest, n3 + fnx + 1), SE3 = Unsafe.Add(ref stencil.SouthEast, n3), NW3 = Unsafe.Add(ref stencil.SouthEast, n3 + fnx - 1);
         int n4 = p0;
-        double v4 = Unsafe.Add(ref phi, b + 4), C4 = Unsafe.Add(ref stencil.Centre, n4), W4 = Unsafe.Add(ref stencil.West, n4), E4 = Unsafe.Add(ref stencil.West, n4 + 1), S4 = Unsafe.Add(ref stencil.South, n4), N4 = Unsafe.Add(ref stencil.South, n4 + fnx),
+        double C4 = Unsafe.Add(ref stencil.Centre, n4), W4 = Unsafe.Add(ref stencil.West, n4), E4 = Unsafe.Add(ref stencil.West, n4 + 1), S4 = Unsafe.Add(ref stencil.South, n4), N4 = Unsafe.Add(ref stencil.South, n4 + fnx),
             SW4 = Unsafe.Add(ref stencil.SouthWest, n4), NE4 = Unsafe.Add(ref stencil.SouthWest, n4 + fnx + 1), SE4 = Unsafe.Add(ref stencil.SouthEast, n4), NW4 = Unsafe.Add(ref stencil.SouthEast, n4 + fnx - 1);
         int n5 = p0 + 1;
-        double v5 = Unsafe.Add(ref phi, b + 5), C5 = Unsafe.Add(ref stencil.Centre, n5), W5 = Unsafe.Add(ref stencil.West, n5), E5 = Unsafe.Add(ref stencil.West, n5 + 1), S5 = Unsafe.Add(ref stencil.South, n5), N5 = Unsafe.Add(ref stencil.South, n5 + fnx),
+        double C5 = Unsafe.Add(ref stencil.Centre, n5), W5 = Unsafe.Add(ref stencil.West, n5), E5 = Unsafe.Add(ref stencil.West, n5 + 1), S5 = Unsafe.Add(ref stencil.South, n5), N5 = Unsafe.Add(ref stencil.South, n5 + fnx),
             SW5 = Unsafe.Add(ref stencil.SouthWest, n5), NE5 = Unsafe.Add(ref stencil.SouthWest, n5 + fnx + 1), SE5 = Unsafe.Add(ref stencil.SouthEast, n5), NW5 = Unsafe.Add(ref stencil.SouthEast, n5 + fnx - 1);
         int n6 = p0 + fnx - 1;
-        double v6 = Unsafe.Add(ref phi, b + 6), C6 = Unsafe.Add(ref stencil.Centre, n6), W6 = Unsafe.Add(ref stencil.West, n6), E6 = Unsafe.Add(ref stencil.West, n6 + 1), S6 = Unsafe.Add(ref stencil.South, n6), N6 = Unsafe.Add(ref stencil.South, n6 + fnx),
+        double C6 = Unsafe.Add(ref stencil.Centre, n6), W6 = Unsafe.Add(ref stencil.West, n6), E6 = Unsafe.Add(ref stencil.West, n6 + 1), S6 = Unsafe.Add(ref stencil.South, n6), N6 = Unsafe.Add(ref stencil.South, n6 + fnx),
             SW6 = Unsafe.Add(ref stencil.SouthWest, n6), NE6 = Unsafe.Add(ref stencil.SouthWest, n6 + fnx + 1), SE6 = Unsafe.Add(ref stencil.SouthEast, n6), NW6 = Unsafe.Add(ref stencil.SouthEast, n6 + fnx - 1);
         int n7 = p0 + fnx;
-        double v7 = Unsafe.Add(ref phi, b + 7), C7 = Unsafe.Add(ref stencil.Centre, n7), W7 = Unsafe.Add(ref stencil.West, n7), E7 = Unsafe.Add(ref stencil.West, n7 + 1), S7 = Unsafe.Add(ref stencil.South, n7), N7 = Unsafe.Add(ref stencil.South, n7 + fnx),
+        double C7 = Unsafe.Add(ref stencil.Centre, n7), W7 = Unsafe.Add(ref stencil.West, n7), E7 = Unsafe.Add(ref stencil.West, n7 + 1), S7 = Unsafe.Add(ref stencil.South, n7), N7 = Unsafe.Add(ref stencil.South, n7 + fnx),
             SW7 = Unsafe.Add(ref stencil.SouthWest, n7), NE7 = Unsafe.Add(ref stencil.SouthWest, n7 + fnx + 1), SE7 = Unsafe.Add(ref stencil.SouthEast, n7), NW7 = Unsafe.Add(ref stencil.SouthEast, n7 + fnx - 1);
         int n8 = p0 + fnx + 1;
-        double v8 = Unsafe.Add(ref phi, b + 8), C8 = Unsafe.Add(ref stencil.Centre, n8), W8 = Unsafe.Add(ref stencil.West, n8), E8 = Unsafe.Add(ref stencil.West, n8 + 1), S8 = Unsafe.Add(ref stencil.South, n8), N8 = Unsafe.Add(ref stencil.South, n8 + fnx),
+        double C8 = Unsafe.Add(ref stencil.Centre, n8), W8 = Unsafe.Add(ref stencil.West, n8), E8 = Unsafe.Add(ref stencil.West, n8 + 1), S8 = Unsafe.Add(ref stencil.South, n8), N8 = Unsafe.Add(ref stencil.South, n8 + fnx),
             SW8 = Unsafe.Add(ref stencil.SouthWest, n8), NE8 = Unsafe.Add(ref stencil.SouthWest, n8 + fnx + 1), SE8 = Unsafe.Add(ref stencil.SouthEast, n8), NW8 = Unsafe.Add(ref stencil.SouthEast, n8 + fnx - 1);
         double a0 = SW0 * v0;
         double a1 = S0 * v0 + SW1 * v1;
@@ -320,46 +372,16 @@ internal static class BlackBoxCoarsening
         double a16 = N3 * v3 + NW4 * v4 + C6 * v6 + W7 * v7;
         double a17 = NE3 * v3 + N4 * v4 + NW5 * v5 + E6 * v6 + C7 * v7 + W8 * v8;
         double a18 = NE4 * v4 + N5 * v5 + E7 * v7 + C8 * v8;
-        cc[k] = Unsafe.Add(ref phi, b) * a6 + Unsafe.Add(ref phi, b + 1) * a7 + Unsafe.Add(ref phi, b + 2) * a8 + Unsafe.Add(ref phi, b + 3) * a11 + Unsafe.Add(ref phi, b + 4) * a12
-              + Unsafe.Add(ref phi, b + 5) * a13 + Unsafe.Add(ref phi, b + 6) * a16 + Unsafe.Add(ref phi, b + 7) * a17 + Unsafe.Add(ref phi, b + 8) * a18;
-        b = 9 * (k - 1);
-        cw[k] = Unsafe.Add(ref phi, b + 1) * a5 + Unsafe.Add(ref phi, b + 2) * a6 + Unsafe.Add(ref phi, b + 4) * a10 + Unsafe.Add(ref phi, b + 5) * a11 + Unsafe.Add(ref phi, b + 7) * a15 + Unsafe.Add(ref phi, b + 8) * a16;
-        b = 9 * (k - ncx);
-        cs[k] = Unsafe.Add(ref phi, b + 3) * a1 + Unsafe.Add(ref phi, b + 4) * a2 + Unsafe.Add(ref phi, b + 5) * a3 + Unsafe.Add(ref phi, b + 6) * a6 + Unsafe.Add(ref phi, b + 7) * a7 + Unsafe.Add(ref phi, b + 8) * a8;
-        b = 9 * (k - ncx - 1);
-        csw[k] = Unsafe.Add(ref phi, b + 4) * a0 + Unsafe.Add(ref phi, b + 5) * a1 + Unsafe.Add(ref phi, b + 7) * a5 + Unsafe.Add(ref phi, b + 8) * a6;
-        if (I + 1 < ncx)
-        {
-            b = 9 * (k - ncx + 1);
-            cse[k] = Unsafe.Add(ref phi, b + 3) * a3 + Unsafe.Add(ref phi, b + 4) * a4 + Unsafe.Add(ref phi, b + 6) * a8 + Unsafe.Add(ref phi, b + 7) * a9;
-        }
-    }
-
-    /// <summary>
-    /// Every coarse node's prolongation weights at its 3 x 3 fine neighbourhood, phi[9 k + (dj + 1) 3 + di + 1] for offset (di, dj);
-    /// 0 off the lattice (the prolongation arrays hold 0 there, so only the low edges I = 0, J = 0 need a test); written into the first
-    /// 9 nc entries of <paramref name="phi"/>, every one of them set.
-    /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private static void Bases(StencilLevel c, float[] phi)
-    {
-        int ncx = c.Nx, ncy = c.Ny;
-        var xl = c.XLow!; var xh = c.XHigh!; var yl = c.YLow!; var yh = c.YHigh!;
-        var sw = c.CentreSW!; var se = c.CentreSE!; var nw = c.CentreNW!; var ne = c.CentreNE!;
-        for (int J = 0; J < ncy; J++)
-            for (int I = 0; I < ncx; I++)
-            {
-                int k = J * ncx + I, b = 9 * k;
-                bool west = I > 0, south = J > 0;
-                phi[b + 4] = 1;
-                phi[b + 5] = xl[k];
-                phi[b + 3] = west ? xh[k - 1] : 0;
-                phi[b + 7] = yl[k];
-                phi[b + 1] = south ? yh[k - ncx] : 0;
-                phi[b + 8] = sw[k];
-                phi[b + 6] = west ? se[k - 1] : 0;
-                phi[b + 2] = south ? nw[k - ncx] : 0;
-                phi[b + 0] = west && south ? ne[k - ncx - 1] : 0;
-            }
+        cc[k] = v0 * a6 + v1 * a7 + v2 * a8 + v3 * a11 + a12 + v5 * a13 + v6 * a16 + v7 * a17 + v8 * a18;
+        // the west neighbour's basis at columns 0, 1 of its support (1 at the neighbour itself)
+        cw[k] = Unsafe.Add(ref w.YHigh, k - 1 - ncx) * a5 + Unsafe.Add(ref w.CentreNW, k - 1 - ncx) * a6 + a10 + Unsafe.Add(ref w.XLow, k - 1) * a11
+              + Unsafe.Add(ref w.YLow, k - 1) * a15 + Unsafe.Add(ref w.CentreSW, k - 1) * a16;
+        // the south neighbour's basis at rows 1, 2 of its support
+        cs[k] = Unsafe.Add(ref w.XHigh, k - ncx - 1) * a1 + a2 + Unsafe.Add(ref w.XLow, k - ncx) * a3 + Unsafe.Add(ref w.CentreSE, k - ncx - 1) * a6
+              + Unsafe.Add(ref w.YLow, k - ncx) * a7 + Unsafe.Add(ref w.CentreSW, k - ncx) * a8;
+        // the south-west neighbour's basis at its north-east 2 x 2
+        csw[k] = a0 + Unsafe.Add(ref w.XLow, k - ncx - 1) * a1 + Unsafe.Add(ref w.YLow, k - ncx - 1) * a5 + Unsafe.Add(ref w.CentreSW, k - ncx - 1) * a6;
+        if (I + 1 < ncx)   // the south-east neighbour's basis at its north-west 2 x 2
+            cse[k] = Unsafe.Add(ref w.XHigh, k - ncx) * a3 + a4 + Unsafe.Add(ref w.CentreSE, k - ncx) * a8 + Unsafe.Add(ref w.YLow, k - ncx + 1) * a9;
     }
 }

@@ -191,11 +191,9 @@ public sealed class StructuredMultigrid : IPreconditioner
         double scale = Math.ScaleB(1, -Math.ILogB(largest));
         var levels = new List<StencilLevel> { fine };
         var current = fine;
-        float[] bases = [];   // the coarsening's scratch, sized for the first coarse level and reused below it (fewer first touches of fresh memory)
         while (current.Nx >= MinimumSide && current.Ny >= MinimumSide && current.Nodes > CoarsestNodes)
         {
-            if (bases.Length == 0) bases = new float[BlackBoxCoarsening.BasesLength(current)];
-            var next = BlackBoxCoarsening.Coarsen(current, bases);
+            var next = BlackBoxCoarsening.Coarsen(current);
             current.ToSinglePrecision(scale, keepDoubleCouplings: current == fine);
             current = next;
             levels.Add(current);
