@@ -40,14 +40,18 @@ public sealed class LatticeSheetOperator : ILinearOperator
         for (int m = 0; m < mergedUnknown.Length; m++)
             for (int k = mergedStart[m]; k < mergedStart[m + 1]; k++) _regionInOrder[k] = m;
         Array.Sort(_mergedNodesInOrder, _regionInOrder);
+        Runs = new UnknownRuns(nodeUnknown, mergedUnknown);
     }
+
+    /// <summary>The unmerged unknowns' nodes as runs (the block copies between the unknowns' numbering and the lattice).</summary>
+    internal UnknownRuns Runs { get; }
 
     /// <summary><see cref="Multiply"/>'s x and L x on the padded lattice, allocated on its first call (the lattice conjugate gradients never make them).</summary>
     private double[]? _latticeX, _latticeProduct;
 
     public int Rows { get; }
 
-    public long Bytes => 8L * (_outsideWeight.Length + (_latticeX?.Length ?? 0) + (_latticeProduct?.Length ?? 0) + _regionDirection.Length) + 4L * (_mergedNodesInOrder.Length + _regionInOrder.Length);
+    public long Bytes => 8L * (_outsideWeight.Length + (_latticeX?.Length ?? 0) + (_latticeProduct?.Length ?? 0) + _regionDirection.Length) + 4L * (_mergedNodesInOrder.Length + _regionInOrder.Length) + Runs.Bytes;
 
     /// <summary>y = A x in the unknowns' numbering: x copied to its nodes (E x), the rows of L formed on the lattice as
     /// <see cref="ProductOfRows"/> forms them, each node's row put into its unknown's entry of y (E^T; a merged region's rows summed in node order).</summary>
@@ -55,10 +59,7 @@ public sealed class LatticeSheetOperator : ILinearOperator
     public void Multiply(ReadOnlySpan<double> x, Span<double> y)
     {
         var product = ProductOnLattice(x);
-        int o = _fine.Pad;
-        ref int mr = ref MemoryMarshal.GetArrayDataReference(_nodeUnknown);
-        ref double qr = ref MemoryMarshal.GetArrayDataReference(product);
-        for (int p = 0; p < _nodeUnknown.Length; p++) { int u = Unsafe.Add(ref mr, p); if (u >= 0) y[u] = Unsafe.Add(ref qr, o + p); }
+        Runs.FromLattice(product, _fine.Pad, y);
         for (int m = 0; m < _mergedUnknown.Length; m++) y[_mergedUnknown[m]] = RegionRowSum(product, m);
     }
 
@@ -67,23 +68,23 @@ public sealed class LatticeSheetOperator : ILinearOperator
     public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r)
     {
         var product = ProductOnLattice(x);
-        int o = _fine.Pad;
-        ref int mr = ref MemoryMarshal.GetArrayDataReference(_nodeUnknown);
-        ref double qr = ref MemoryMarshal.GetArrayDataReference(product);
-        for (int p = 0; p < _nodeUnknown.Length; p++) { int u = Unsafe.Add(ref mr, p); if (u >= 0) r[u] = b[u] - Unsafe.Add(ref qr, o + p); }
+        Runs.DifferenceFromLattice(b, product, _fine.Pad, r);
         for (int m = 0; m < _mergedUnknown.Length; m++) r[_mergedUnknown[m]] = b[_mergedUnknown[m]] - RegionRowSum(product, m);
     }
 
-    /// <summary>L E x on the padded lattice (x at every node of its unknown, 0 outside), into a lattice vector of this operator's own.</summary>
+    /// <summary>L E x on the padded lattice (x at every node of its unknown, 0 outside: no other pass writes the outside of this operator's own lattice x), into a lattice vector of this operator's own.</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private double[] ProductOnLattice(ReadOnlySpan<double> x)
     {
         int o = _fine.Pad, n = _fine.Nodes;
         var xs = _latticeX ??= new double[n + 2 * o];
         var product = _latticeProduct ??= new double[n + 2 * o];
-        ref int mr = ref MemoryMarshal.GetArrayDataReference(_nodeUnknown);
-        ref double xr = ref MemoryMarshal.GetArrayDataReference(xs);
-        for (int p = 0; p < n; p++) { int u = Unsafe.Add(ref mr, p); Unsafe.Add(ref xr, o + p) = u >= 0 ? x[u] : 0; }
+        Runs.ToLattice(x, xs, o);
+        for (int m = 0; m < _mergedUnknown.Length; m++)
+        {
+            double v = x[_mergedUnknown[m]];
+            for (int k = _mergedStart[m]; k < _mergedStart[m + 1]; k++) xs[o + _mergedNodes[k]] = v;
+        }
         RowsOfL(xs, product);
         return product;
     }
