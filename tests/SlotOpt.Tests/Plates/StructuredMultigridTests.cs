@@ -145,6 +145,30 @@ public class StructuredMultigridTests
         for (int i = 0; i < a.Rows; i++) Assert.True(Math.Abs(lattice[i] - csr[i]) <= 1e-13 * absolute[i], $"{plate}: row {i}: {lattice[i]} vs {csr[i]}");
     }
 
+    // The lattice residual r = b - A x against b minus the assembled CSR matrix's product: each entry is b minus a row summed in
+    // another order, so equal to rounding, 1e-13 relative to |b| + |A| |x| (as above; a region's row is its nodes' rows summed).
+    [Theory]
+    [MemberData(nameof(Plates))]
+    public void Lattice_residual_equals_the_assembled_matrix(string plate)
+    {
+        var (geometry, cell) = Plate(plate);
+        var model = SheetModel.Build(geometry, new GridOptions { CellSizeM = cell });
+        var random = new Random(12);
+        var x = Enumerable.Range(0, model.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var b = Enumerable.Range(0, model.Unknowns).Select(_ => random.NextDouble() - 0.5).ToArray();
+        var lattice = new double[model.Unknowns];
+        var csr = new double[model.Unknowns];
+        model.Multigrid.Operator.Residual(b, x, lattice);
+        var a = model.Operator.Matrix;
+        a.Multiply(x, csr);
+        for (int i = 0; i < a.Rows; i++)
+        {
+            double absolute = Math.Abs(b[i]);
+            for (int k = a.RowStart[i]; k < a.RowStart[i + 1]; k++) absolute += Math.Abs(a.Value[k] * x[a.ColumnIndex[k]]);
+            Assert.True(Math.Abs(lattice[i] - (b[i] - csr[i])) <= 1e-13 * absolute, $"{plate}: row {i}: {lattice[i]} vs {b[i] - csr[i]}");
+        }
+    }
+
     // The production solve (conjugate gradients run on the lattice, fused passes, a merged region at its first node) against the
     // generic ConjugateGradient (Barrett et al. 1994, Figure 2.5) with the same operator and V-cycle in the unknowns' numbering:
     // the same iteration in another summation order, so after the same 5 iterations (stopped short of convergence, so every step

@@ -40,41 +40,62 @@ public sealed class LatticeSheetOperator : ILinearOperator
         for (int m = 0; m < mergedUnknown.Length; m++)
             for (int k = mergedStart[m]; k < mergedStart[m + 1]; k++) _regionInOrder[k] = m;
         Array.Sort(_mergedNodesInOrder, _regionInOrder);
+        Runs = new UnknownRuns(nodeUnknown, mergedUnknown);
     }
 
-    /// <summary><see cref="Multiply"/>'s x on the padded lattice, allocated on its first call (the lattice conjugate gradients never make one).</summary>
-    private double[]? _latticeX;
+    /// <summary>The unmerged unknowns' nodes as runs (the block copies between the unknowns' numbering and the lattice).</summary>
+    internal UnknownRuns Runs { get; }
+
+    /// <summary><see cref="Multiply"/>'s x and L x on the padded lattice, allocated on its first call (the lattice conjugate gradients never make them).</summary>
+    private double[]? _latticeX, _latticeProduct;
 
     public int Rows { get; }
 
-    public long Bytes => 8L * (_outsideWeight.Length + (_latticeX?.Length ?? 0) + _regionDirection.Length) + 4L * (_mergedNodesInOrder.Length + _regionInOrder.Length);
+    public long Bytes => 8L * (_outsideWeight.Length + (_latticeX?.Length ?? 0) + (_latticeProduct?.Length ?? 0) + _regionDirection.Length) + 4L * (_mergedNodesInOrder.Length + _regionInOrder.Length) + Runs.Bytes;
 
-    /// <summary>y = A x in the unknowns' numbering: x copied to its nodes, each node's row of L added to its unknown's entry of y (E^T).</summary>
+    /// <summary>y = A x in the unknowns' numbering: x copied to its nodes (E x), the rows of L formed on the lattice as
+    /// <see cref="ProductOfRows"/> forms them, each node's row put into its unknown's entry of y (E^T; a merged region's rows summed in node order).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Multiply(ReadOnlySpan<double> x, Span<double> y)
     {
-        var f = _fine;
-        var map = _nodeUnknown;
-        int o = f.Pad, nx = f.Nx, n = f.Nodes;
+        var product = ProductOnLattice(x);
+        Runs.FromLattice(product, _fine.Pad, y);
+        for (int m = 0; m < _mergedUnknown.Length; m++) y[_mergedUnknown[m]] = RegionRowSum(product, m);
+    }
+
+    /// <summary>r = b - A x (<see cref="Multiply"/>'s product, each entry subtracted as it is put into r).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r)
+    {
+        var product = ProductOnLattice(x);
+        Runs.DifferenceFromLattice(b, product, _fine.Pad, r);
+        for (int m = 0; m < _mergedUnknown.Length; m++) r[_mergedUnknown[m]] = b[_mergedUnknown[m]] - RegionRowSum(product, m);
+    }
+
+    /// <summary>L E x on the padded lattice (x at every node of its unknown, 0 outside: no other pass writes the outside of this operator's own lattice x), into a lattice vector of this operator's own.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private double[] ProductOnLattice(ReadOnlySpan<double> x)
+    {
+        int o = _fine.Pad, n = _fine.Nodes;
         var xs = _latticeX ??= new double[n + 2 * o];
-        for (int p = 0; p < n; p++) { int u = map[p]; xs[o + p] = u >= 0 ? x[u] : 0; }
-        y.Clear();
-        ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
-        ref double w = ref MemoryMarshal.GetArrayDataReference(f.West);
-        ref double s = ref MemoryMarshal.GetArrayDataReference(f.South);
-        ref double xr = ref MemoryMarshal.GetArrayDataReference(xs);
-        ref int mr = ref MemoryMarshal.GetArrayDataReference(map);
-        for (int p = 0; p < n; p++)
+        var product = _latticeProduct ??= new double[n + 2 * o];
+        Runs.ToLattice(x, xs, o);
+        for (int m = 0; m < _mergedUnknown.Length; m++)
         {
-            int u = Unsafe.Add(ref mr, p);
-            if (u < 0) continue;
-            int q = o + p;
-            double v = Unsafe.Add(ref xr, q);
-            // stored couplings are the matrix entries -w; a merged region's rows summed in node order
-            y[u] += Unsafe.Add(ref d, p) * v
-                - Unsafe.Add(ref w, p) * (v - Unsafe.Add(ref xr, q - 1)) - Unsafe.Add(ref w, p + 1) * (v - Unsafe.Add(ref xr, q + 1))
-                - Unsafe.Add(ref s, p) * (v - Unsafe.Add(ref xr, q - nx)) - Unsafe.Add(ref s, p + nx) * (v - Unsafe.Add(ref xr, q + nx));
+            double v = x[_mergedUnknown[m]];
+            for (int k = _mergedStart[m]; k < _mergedStart[m + 1]; k++) xs[o + _mergedNodes[k]] = v;
         }
+        RowsOfL(xs, product);
+        return product;
+    }
+
+    /// <summary>Region m's row of E^T L: its nodes' rows of L summed in node order (its node list is in node order).</summary>
+    private double RegionRowSum(double[] product, int m)
+    {
+        int o = _fine.Pad;
+        double sum = product[o + _mergedNodes[_mergedStart[m]]];
+        for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) sum += product[o + _mergedNodes[k]];
+        return sum;
     }
 
     /// <summary>
@@ -165,28 +186,58 @@ public sealed class LatticeSheetOperator : ILinearOperator
         for (; k + width <= end; k += width)
         {
             int i = o + k;
-            var v = Load(ref xr, i);
-            var y = Load(ref d, k) * v
-                - Load(ref w, k) * (v - Load(ref xr, i - 1)) - Load(ref w, k + 1) * (v - Load(ref xr, i + 1))
-                - Load(ref s, k) * (v - Load(ref xr, i - nx)) - Load(ref s, k + nx) * (v - Load(ref xr, i + nx));
+            var y = RowsAt(ref d, ref w, ref s, ref xr, k, i, nx);
             y.StoreUnsafe(ref yr, (nuint)i);
-            (v * y).StoreUnsafe(ref products);
+            (Vector.LoadUnsafe(ref xr, (nuint)i) * y).StoreUnsafe(ref products);
             for (int m = 0; m < width; m++) dot += Unsafe.Add(ref products, m);
         }
         for (; k < end; k++)
         {
             int i = o + k;
-            double v = Unsafe.Add(ref xr, i);
-            double y = Unsafe.Add(ref d, k) * v
-                - Unsafe.Add(ref w, k) * (v - Unsafe.Add(ref xr, i - 1)) - Unsafe.Add(ref w, k + 1) * (v - Unsafe.Add(ref xr, i + 1))
-                - Unsafe.Add(ref s, k) * (v - Unsafe.Add(ref xr, i - nx)) - Unsafe.Add(ref s, k + nx) * (v - Unsafe.Add(ref xr, i + nx));
+            double y = RowAt(ref d, ref w, ref s, ref xr, k, i, nx);
             Unsafe.Add(ref yr, i) = y;
-            dot += v * y;
+            dot += Unsafe.Add(ref xr, i) * y;
         }
         return dot;
+    }
+
+    /// <summary>q = L p on all lattice rows, formed as <see cref="ProductOfRows"/> forms them, without the dot product.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private void RowsOfL(double[] p, double[] q)
+    {
+        var f = _fine;
+        int o = f.Pad, nx = f.Nx, width = Vector<double>.Count;
+        ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
+        ref double w = ref MemoryMarshal.GetArrayDataReference(f.West);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(f.South);
+        ref double xr = ref MemoryMarshal.GetArrayDataReference(p);
+        ref double yr = ref MemoryMarshal.GetArrayDataReference(q);
+        int k = 0, end = f.Nodes;
+        for (; k + width <= end; k += width) RowsAt(ref d, ref w, ref s, ref xr, k, o + k, nx).StoreUnsafe(ref yr, (nuint)(o + k));
+        for (; k < end; k++) Unsafe.Add(ref yr, o + k) = RowAt(ref d, ref w, ref s, ref xr, k, o + k, nx);
+    }
+
+    /// <summary>Rows k .. k + Vector&lt;double&gt;.Count - 1 of L x (x on the padded lattice, node k at i), each rounded as <see cref="RowAt"/> rounds it.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static Vector<double> RowsAt(ref double d, ref double w, ref double s, ref double xr, int k, int i, int nx)
+    {
+        var v = Load(ref xr, i);
+        return Load(ref d, k) * v
+            - Load(ref w, k) * (v - Load(ref xr, i - 1)) - Load(ref w, k + 1) * (v - Load(ref xr, i + 1))
+            - Load(ref s, k) * (v - Load(ref xr, i - nx)) - Load(ref s, k + nx) * (v - Load(ref xr, i + nx));
 
         // Vector<double>.Count doubles from index i
         static Vector<double> Load(ref double a, int i) => Vector.LoadUnsafe(ref a, (nuint)i);
+    }
+
+    /// <summary>Row k of L x (x on the padded lattice, node k at i): d_k x_k + sum over the 4 neighbours of w (x_k - x_neighbour), the stored couplings being the matrix entries -w.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static double RowAt(ref double d, ref double w, ref double s, ref double xr, int k, int i, int nx)
+    {
+        double v = Unsafe.Add(ref xr, i);
+        return Unsafe.Add(ref d, k) * v
+            - Unsafe.Add(ref w, k) * (v - Unsafe.Add(ref xr, i - 1)) - Unsafe.Add(ref w, k + 1) * (v - Unsafe.Add(ref xr, i + 1))
+            - Unsafe.Add(ref s, k) * (v - Unsafe.Add(ref xr, i - nx)) - Unsafe.Add(ref s, k + nx) * (v - Unsafe.Add(ref xr, i + nx));
     }
 
     /// <summary>E^T: each merged region's rows summed at its first node; p back to its layout (0 at the region's other nodes).</summary>
@@ -228,12 +279,5 @@ public sealed class LatticeSheetOperator : ILinearOperator
         int o = _fine.Pad;
         for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) v[u] = scale * lattice[o + p]; }
         for (int m = 0; m < _mergedUnknown.Length; m++) v[_mergedUnknown[m]] = scale * lattice[o + _mergedNodes[_mergedStart[m]]];
-    }
-
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r)
-    {
-        Multiply(x, r);
-        for (int i = 0; i < r.Length; i++) r[i] = b[i] - r[i];
     }
 }

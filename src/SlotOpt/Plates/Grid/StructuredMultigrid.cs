@@ -292,13 +292,12 @@ public sealed class StructuredMultigrid : IPreconditioner
     {
         var top = _levels[0];
         var b = _applyRightHandSide ??= new double[top.X.Length];
-        var map = _nodeUnknown;
         int o = top.Pad;
         double largest = 0;
         for (int u = 0; u < r.Length; u++) largest = Math.Max(largest, Math.Abs(r[u]));
         if (largest == 0) { z.Clear(); return; }
         double scale = double.IsFinite(largest) ? Math.ScaleB(1, -Math.ILogB(largest)) : 1;   // not finite: the NaN or infinity goes through to z, for the caller to see
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; b[o + p] = u >= 0 ? r[u] : 0; }
+        Operator.Runs.ToLattice(r, b, o);   // the outside of b stays 0: only this pass writes b
         for (int m = 0; m < _mergedUnknown.Length; m++)
         {
             double share = r[_mergedUnknown[m]] / (_mergedStart[m + 1] - _mergedStart[m]);
@@ -307,7 +306,7 @@ public sealed class StructuredMultigrid : IPreconditioner
         Cycle(b, scale);
         var x = top.X;
         double back = _stencilScale / scale;   // x' = scale x / s
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) z[u] = x[o + p] * back; }
+        Operator.Runs.FromLattice(x, o, back, z);
         for (int m = 0; m < _mergedUnknown.Length; m++)
         {
             double sum = 0;

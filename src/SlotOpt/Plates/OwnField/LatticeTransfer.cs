@@ -1,5 +1,6 @@
 using System.Numerics;
 using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using SlotOpt.Plates.Grid;
 
 namespace SlotOpt.Plates.OwnField;
@@ -102,13 +103,20 @@ internal sealed class LatticeTransfer
     public void RestrictAndAverage(ReadOnlySpan<double> rRe, ReadOnlySpan<double> rIm, ReadOnlySpan<double> zRe, ReadOnlySpan<double> zIm,
         Span<Complex> restricted, Span<Complex> mean)
     {
+        int fine = FineUnknowns;
+        if (rRe.Length < fine || rIm.Length < fine || zRe.Length < fine || zIm.Length < fine) throw new ArgumentException("one value per fine unknown");
+        if (restricted.Length != CoarseUnknowns || mean.Length != CoarseUnknowns) throw new ArgumentException("one value per coarse unknown");
+        ref double w = ref MemoryMarshal.GetArrayDataReference(_rowWeight);
+        ref int f = ref MemoryMarshal.GetArrayDataReference(_rowFine);
+        ref double rr = ref MemoryMarshal.GetReference(rRe), ri = ref MemoryMarshal.GetReference(rIm);
+        ref double zr = ref MemoryMarshal.GetReference(zRe), zi = ref MemoryMarshal.GetReference(zIm);
         for (int c = 0; c < restricted.Length; c++)
         {
             double ar = 0, ai = 0, br = 0, bi = 0;
             for (int e = _rowStart[c]; e < _rowStart[c + 1]; e++)
             {
-                double w = _rowWeight[e]; int u = _rowFine[e];
-                ar += w * rRe[u]; ai += w * rIm[u]; br += w * zRe[u]; bi += w * zIm[u];
+                double we = Unsafe.Add(ref w, e); int u = Unsafe.Add(ref f, e);   // u < FineUnknowns by construction
+                ar += we * Unsafe.Add(ref rr, u); ai += we * Unsafe.Add(ref ri, u); br += we * Unsafe.Add(ref zr, u); bi += we * Unsafe.Add(ref zi, u);
             }
             restricted[c] = new Complex(ar, ai);
             mean[c] = new Complex(br * _inverseRowSum[c], bi * _inverseRowSum[c]);
@@ -118,14 +126,27 @@ internal sealed class LatticeTransfer
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void Interpolate(ReadOnlySpan<Complex> coarse, Span<double> fineRe, Span<double> fineIm, Complex factor, bool perValue)
     {
+        if (coarse.Length != CoarseUnknowns) throw new ArgumentException("one value per coarse unknown", nameof(coarse));
+        if (fineRe.Length < FineUnknowns || fineIm.Length < FineUnknowns) throw new ArgumentException("one value per fine unknown");
+        ref double w = ref MemoryMarshal.GetArrayDataReference(_weight);
+        ref int cu = ref MemoryMarshal.GetArrayDataReference(_coarseUnknown);
+        ref int fu = ref MemoryMarshal.GetArrayDataReference(_fineUnknown);
+        ref double share = ref MemoryMarshal.GetArrayDataReference(_valueShare);
+        ref Complex cr = ref MemoryMarshal.GetReference(coarse);
+        ref double fr = ref MemoryMarshal.GetReference(fineRe), fi = ref MemoryMarshal.GetReference(fineIm);
+        double re = factor.Real, im = factor.Imaginary;
         for (int k = 0; k < _fineUnknown.Length; k++)
         {
             double sr = 0, si = 0;
-            for (int q = 4 * k; q < 4 * k + 4; q++) { double w = _weight[q]; var v = coarse[_coarseUnknown[q]]; sr += w * v.Real; si += w * v.Imaginary; }
-            int u = _fineUnknown[k];
-            double share = perValue ? _valueShare[u] : 1;
-            fineRe[u] += share * (factor.Real * sr - factor.Imaginary * si);
-            fineIm[u] += share * (factor.Real * si + factor.Imaginary * sr);
+            for (int q = 4 * k; q < 4 * k + 4; q++)   // the coarse unknowns are < CoarseUnknowns by construction
+            {
+                double wq = Unsafe.Add(ref w, q); var v = Unsafe.Add(ref cr, Unsafe.Add(ref cu, q));
+                sr += wq * v.Real; si += wq * v.Imaginary;
+            }
+            int u = Unsafe.Add(ref fu, k);
+            double s = perValue ? Unsafe.Add(ref share, u) : 1;
+            Unsafe.Add(ref fr, u) += s * (re * sr - im * si);
+            Unsafe.Add(ref fi, u) += s * (re * si + im * sr);
         }
     }
 }
