@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
 
@@ -58,15 +59,42 @@ public sealed class ReactionKernel
         if (!(separationM >= 0)) throw new ArgumentOutOfRangeException(nameof(separationM), "the layer separation must be >= 0");
         var value = new double[(maxOffsetX + 1) * (maxOffsetY + 1)];
         double far = FarFieldRadiusCells * Math.Max(hx, hy);
+        var near = NearTable.For(hy / hx, separationM / hx);
         for (int dy = 0; dy <= maxOffsetY; dy++)
             for (int dx = 0; dx <= maxOffsetX; dx++)
             {
                 double distance = Math.Sqrt(dx * hx * dx * hx + dy * hy * dy * hy + separationM * separationM);
-                double r = distance >= far ? FarField(hx, hy, dx, dy, separationM) : NearField(hx, hy, dx, dy, separationM);
+                double r = distance >= far ? FarField(hx, hy, dx, dy, separationM) : hx * near.At(dx, dy);
                 if (!double.IsFinite(r)) throw new NumericalFailureException($"reaction kernel is not finite at offset ({dx}, {dy}) (cells {hx} m x {hy} m, separation {separationM} m)");
                 value[dy * (maxOffsetX + 1) + dx] = r;
             }
         return new ReactionKernel(hx, hy, maxOffsetX, maxOffsetY, value);
+    }
+
+    /// <summary>
+    /// The near-field values for cells of unit width: every length in Neumann's form scales with hx, so
+    /// NearField(hx, hy, dx, dy, z) = hx NearField(1, hy / hx, dx, dy, z / hx), and one table serves every lattice with the same cell
+    /// aspect and layer gap in cells (a run's fine and coarse lattices, its plates and thicknesses). Each table is computed once a
+    /// process (the quadrature: 2,300 points an offset, some 450 offsets for square cells), its entries on first use; the values do not
+    /// depend on which lattice asked first, so results stay reproducible. At most <see cref="MaxTables"/> tables are kept.
+    /// </summary>
+    private sealed class NearTable
+    {
+        private const int MaxTables = 64;
+        private static readonly ConcurrentDictionary<(double Aspect, double Gap), NearTable> Tables = new();
+        private readonly double _aspect, _gap;
+        private readonly ConcurrentDictionary<(int Dx, int Dy), double> _values = new();
+
+        private NearTable(double aspect, double gap) { _aspect = aspect; _gap = gap; }
+
+        public static NearTable For(double aspect, double gap)
+        {
+            if (Tables.Count >= MaxTables) Tables.Clear();
+            return Tables.GetOrAdd((aspect, gap), key => new NearTable(key.Aspect, key.Gap));
+        }
+
+        /// <summary>NearField(1, aspect, dx, dy, gap).</summary>
+        public double At(int dx, int dy) => _values.GetOrAdd((dx, dy), key => NearField(1, _aspect, key.Dx, key.Dy, _gap));
     }
 
     /// <summary>Neumann form: (mu0/4pi) hx hy sum over unit sub-squares of integral c(s) / sqrt(|D - u(s)|^2 + z^2) ds.</summary>
