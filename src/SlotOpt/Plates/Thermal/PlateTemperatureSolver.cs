@@ -275,29 +275,18 @@ public static class PlateTemperatureSolver
         return new RiseSums(largest, weighted, radiated, edge, moved);
     }
 
-    /// <summary>Grey-body radiation of a face at ambient + rise to surroundings at ambient, eps sigma (T^4 - T_inf^4)
-    /// (<see cref="SurfaceRadiation.HeatFluxWPerM2"/>, the same products), and its slope 4 eps sigma T^3 from the same square of T.</summary>
+    /// <summary>Grey-body radiation of a face at ambient + rise to surroundings at ambient (<see cref="SurfaceRadiation"/>), the rise
+    /// being what the solver carries.</summary>
     private readonly struct GreyFaces(double emissivity, double ambientK)
     {
-        private readonly double _factor = emissivity * SurfaceRadiation.StefanBoltzmann, _ambient = ambientK,
-            _ambientFourth = ambientK * ambientK * (ambientK * ambientK);
-
-        public bool Radiates => _factor > 0;
+        public bool Radiates => emissivity > 0;
 
         /// <summary>q_r (W/m^2) at the given rise (K).</summary>
         [MethodImpl(MethodImplOptions.AggressiveInlining)]
-        public double Flux(double rise)
-        {
-            double t = _ambient + rise, t2 = t * t;
-            return _factor * (t2 * t2 - _ambientFourth);
-        }
+        public double Flux(double rise) => SurfaceRadiation.HeatFluxWPerM2(emissivity, ambientK + rise, ambientK);
 
         /// <summary>q_r (W/m^2) and q_r' (W/m^2K) at the given rise (K).</summary>
         [MethodImpl(MethodImplOptions.AggressiveInlining)]
-        public (double Flux, double Slope) FluxAndSlope(double rise)
-        {
-            double t = _ambient + rise, t2 = t * t;
-            return (_factor * (t2 * t2 - _ambientFourth), 4 * _factor * (t2 * t));
-        }
+        public (double Flux, double Slope) FluxAndSlope(double rise) => SurfaceRadiation.HeatFluxAndSlope(emissivity, ambientK + rise, ambientK);
     }
 }

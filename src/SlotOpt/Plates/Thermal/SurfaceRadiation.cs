@@ -15,4 +15,11 @@ public static class SurfaceRadiation
         double s2 = surfaceK * surfaceK, a2 = ambientK * ambientK;
         return emissivity * StefanBoltzmann * (s2 * s2 - a2 * a2);
     }
+
+    /// <summary><see cref="HeatFluxWPerM2"/> (the same products) and its slope dq/dT = 4 eps sigma T^3, the linearisation's, from one square of T.</summary>
+    public static (double FluxWPerM2, double SlopeWPerM2K) HeatFluxAndSlope(double emissivity, double surfaceK, double ambientK)
+    {
+        double s2 = surfaceK * surfaceK, a2 = ambientK * ambientK, factor = emissivity * StefanBoltzmann;
+        return (factor * (s2 * s2 - a2 * a2), 4 * factor * (s2 * surfaceK));
+    }
 }

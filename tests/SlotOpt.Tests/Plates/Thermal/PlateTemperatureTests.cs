@@ -49,6 +49,20 @@ public class PlateTemperatureTests
         Assert.Equal(q * 0.06, t.ConvectedW + t.RadiatedW, q * 0.06 * 1e-6);
     }
 
+    // The radiation law's slope, used to linearise it: dq/dT = 4 eps sigma T^3 (the derivative of Incropera et al. 2007, eq. 1.7),
+    // against a central difference of the law itself (step 1e-3 K: truncation d^2 q_TTT / (6 q_T) ~ 1e-8 relative), and the flux the
+    // same as HeatFluxWPerM2 to the bit (the same products). Tolerance 1e-7 relative: above the difference's truncation and rounding.
+    [Theory]
+    [InlineData(0.8, 373.15, 313.15)]
+    [InlineData(0.3, 900.0, 293.15)]
+    public void Radiation_slope_is_the_derivative_of_the_law(double eps, double surfaceK, double ambientK)
+    {
+        var (flux, slope) = SurfaceRadiation.HeatFluxAndSlope(eps, surfaceK, ambientK);
+        Assert.Equal(SurfaceRadiation.HeatFluxWPerM2(eps, surfaceK, ambientK), flux);
+        double d = 1e-3, central = (SurfaceRadiation.HeatFluxWPerM2(eps, surfaceK + d, ambientK) - SurfaceRadiation.HeatFluxWPerM2(eps, surfaceK - d, ambientK)) / (2 * d);
+        Assert.Equal(central, slope, 1e-7 * slope);
+    }
+
     /// <summary>
     /// Strip of width W (x) heated uniformly (q W/m^2) with both long edges at ambient, cooled from both faces:
     /// far from the ends the fin equation with a uniform source, theta'' - m^2 theta = -q / (k t), m^2 = 2 h / (k t)
