@@ -1,3 +1,5 @@
+using SlotOpt.Design;
+using SlotOpt.Design.Limits;
 using SlotOpt.Design.SolidParts;
 using SlotOpt.Input;
 using SlotOpt.Plates;
@@ -5,6 +7,7 @@ using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Runs;
 using Xunit.Abstractions;
 
 namespace SlotOpt.Tests.Plates;
@@ -173,6 +176,45 @@ public class DiscretisationErrorTests(ITestOutputHelper output)
         var failed = DiscretisationError.Estimate(model, reported, m => m.Lattice.Hx < 0.0015 ? throw new NumericalFailureException("no convergence in 3 steps") : ValueOn(m))!;
         Assert.Equal(GridErrorMethod.TwoGrid, failed.Method);
         Assert.Contains("the solve on 1 mm cells failed (no convergence in 3 steps)", failed.Description);
+    }
+
+    // The memory guard of the finer grid, end to end through `slotopt plate`'s evaluation: a slotted plate (3 mm slots on 2 mm cells, so the
+    // 4 mm grid does not resolve it) under a memory limit that holds its own solve (MemoryModel.OwnField of its 51 x 21 nodes) but not the
+    // finer grid beside it (EvaluationLimits.RefusesGrid: the 1 mm grid's own-field estimate plus the held one, the runtime once). The estimate
+    // must fall back to the two-grid one and say why, never solve the refused grid; with the default limit the same plate takes the finer grid.
+    // The limit is set halfway between the two estimates, so the check does not rest on rounding (common practice, no source).
+    [Fact]
+    public void A_finer_grid_over_the_memory_limit_falls_back_to_two_grids_with_the_reason()
+    {
+        const string file = """
+            [plate]
+            width = "100 mm"
+            height = "40 mm"
+            thickness = "2 mm"
+            conductivity = "1.4e6"
+            [grid]
+            cell = "2 mm"
+            [[slots]]
+            pattern = "comb"
+            edge = "bottom"
+            pitch = "20 mm"
+            depth = "25 mm"
+            width = "3 mm"
+            [source]
+            kind = "uniform_ac"
+            peak = "25 mT"
+            frequency = "50 Hz"
+            """;
+        var plate = PlateFileReader.Parse(file, "slotted.toml");
+        double held = MemoryModel.OwnField(51, 21), finerAndHeld = MemoryModel.OwnField(101, 41) + held - MemoryModel.WithMargin(0);
+        var limits = new EvaluationLimits { MaxMemoryBytes = (long)((held + finerAndHeld) / 2) };
+
+        var refused = PlateFileEvaluation.Evaluate(plate, limits: limits).GridError!;
+        Assert.Equal(GridErrorMethod.TwoGrid, refused.Method);
+        Assert.Contains("no finer grid: a 1 mm grid", refused.Description);
+        Assert.Contains("the memory limit is", refused.Description);
+
+        Assert.Equal(GridErrorMethod.FinerGrid, PlateFileEvaluation.Evaluate(plate).GridError!.Method);
     }
 
     // The conveyor demo's chosen rail (problems/conveyor-rail.toml: Al-6061-T6 6 mm, comb from the bottom, pitch 10 mm, depth 65 mm,
