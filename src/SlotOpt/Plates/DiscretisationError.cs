@@ -34,8 +34,9 @@ public enum GridErrorMethod
 /// first-order convergence and three times the error at second order. Where even the 2h grid does not resolve the plate, a coarser grid
 /// solves a different plate and its difference is no estimate: the same plate is solved on cells h/2 instead (when that grid resolves it,
 /// fits the run's memory and converges), and the error of the reported h value is the Richardson estimate of the coarser member of the
-/// pair h, h/2: P_ext = P_{h/2} + (P_{h/2} - P_h) / (r^p - 1) (Celik et al. 2008, Eq. 4), so |P_h - P_ext| = |P_h - P_{h/2}| r^p / (r^p - 1),
-/// Roache (1997)'s grid convergence index of the coarser grid with Fs = 1.25, p = 1 (<see cref="FromFinerGrid"/>). The reported number
+/// pair h, h/2: P_ext = P_{h/2} + (P_{h/2} - P_h) / (r^p - 1) (Celik et al. 2008, Eq. 4a, from memory), so |P_h - P_ext| = |P_h - P_{h/2}| r^p / (r^p - 1),
+/// the grid convergence index of the coarser grid (P. J. Roache, "Perspective: a method for uniform reporting of grid refinement studies",
+/// J. Fluids Eng. 116:405-413, 1994, from memory) with Fs = 1.25 and p = 1 (<see cref="FromFinerGrid"/>). The reported number
 /// stays the h grid's, the one the options were ranked with; the words give the finer grid's number so that a reader sees where it heads.
 /// </summary>
 /// <param name="Relative">The estimate, relative to the reported value (the GCI for three grids).</param>
@@ -138,8 +139,8 @@ public sealed record DiscretisationError(
 
     /// <summary>
     /// The reported value on cells cellM against the same plate on finer cells finerCellM, order 1 (the scheme's slowest): the Richardson
-    /// estimate of the coarser member's error, |P_h - P_ext| with P_ext = (r^p P_fine - P_h) / (r^p - 1) (Celik et al. 2008, Eq. 4), times
-    /// <see cref="FinerGridSafetyFactor"/>: Fs r^p |P_h - P_fine| / (r^p - 1) / |P_h|, Roache (1997)'s GCI of the coarser grid. caveat: why no coarser grid served.
+    /// estimate of the coarser member's error, |P_h - P_ext| with P_ext = (r^p P_fine - P_h) / (r^p - 1) (Celik et al. 2008, Eq. 4a), times
+    /// <see cref="FinerGridSafetyFactor"/>: Fs r^p |P_h - P_fine| / (r^p - 1) / |P_h|, Roache (1994)'s GCI of the coarser grid. caveat: why no coarser grid served.
     /// </summary>
     public static DiscretisationError FromFinerGrid(double reported, double finer, double cellM, double finerCellM, string caveat)
     {
@@ -148,7 +149,7 @@ public sealed record DiscretisationError(
         if (!(r > 1)) throw new ArgumentException($"the finer grid must be finer (cells {cellM}, {finerCellM} m)");
         double rp = Math.Pow(r, AssumedOrder);
         return new DiscretisationError(FinerGridSafetyFactor * rp * RelativeChange(reported, finer) / (rp - 1), GridErrorMethod.FinerGrid, [reported, finer], [cellM, finerCellM],
-            null, AssumedOrder, FinerGridSafetyFactor, caveat);                               // GCI_coarse = Fs r^p |eps| / (r^p - 1) (Roache 1997), relative to P_h
+            null, AssumedOrder, FinerGridSafetyFactor, caveat);                               // GCI_coarse = Fs r^p |eps| / (r^p - 1) (Roache 1994), relative to P_h
     }
 
     public bool IsLarge => Relative > WarningThreshold;
@@ -223,6 +224,7 @@ public sealed record DiscretisationError(
         double value;
         try { value = valueOn(finer); }
         catch (NumericalFailureException e) { return (null, $"the solve on {cells} failed ({e.Message})"); }
+        if (!double.IsFinite(value)) return (null, $"the solve on {cells} gave a non-finite value ({value})");
         return (FromFinerGrid(reportedValue, value, CellOf(model), CellOf(finer), caveat), "");
     }
 

@@ -128,10 +128,12 @@ public class DiscretisationErrorTests(ITestOutputHelper output)
         Assert.Contains("25 mm against 50 mm cells, order 1 assumed", estimate.Warning);
         Assert.Contains("100 mm cells cannot be built", estimate.Warning);
     }
+
     // The finer-grid estimate on a sequence of known order, P(h) = P0 + C h^p (Richardson 1927's error model): the extrapolation from the
-    // pair h, h/2 at order 1 (I. B. Celik et al., J. Fluids Eng. 130:078001, 2008, Eq. 4) is exact for p = 1, so the estimate of the h value's
-    // error is Fs = 1.25 times its actual error (Roache 1997's coarse-grid GCI, Fs r^p |eps| / (r^p - 1)); for p = 2 the order-1 assumption
-    // overstates by 2 x (3/4) = 1.5, so 1.875 times. For r = 2 and r = 1.5. Exact algebra: 1e-12.
+    // pair h, h/2 at order 1 (I. B. Celik et al., J. Fluids Eng. 130:078001, 2008, Eq. 4a, from memory) is exact for p = 1, so the estimate of
+    // the h value's error is Fs = 1.25 times its actual error (the coarse-grid GCI, Fs r^p |eps| / (r^p - 1): P. J. Roache, J. Fluids Eng.
+    // 116:405-413, 1994, from memory; Fs from Roache, Annu. Rev. Fluid Mech. 29:123-160, 1997); for p = 2 the order-1 assumption
+    // overstates by r (1 - r^-p) / (r - 1), 2 x (3/4) = 1.5 at r = 2, so 1.875 times. For r = 2 and r = 1.5. Exact algebra: 1e-12.
     [Theory]
     [InlineData(1.0, 2.0, 1.0, 1.25)]
     [InlineData(1.0, 3.0, 2.0, 1.25)]
