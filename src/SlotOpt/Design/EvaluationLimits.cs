@@ -1,5 +1,6 @@
 using SlotOpt.Design.Limits;
 using SlotOpt.Plates.Geometry;
+using SlotOpt.Plates.Grid;
 using SlotOpt.Tables;
 
 namespace SlotOpt.Design;
@@ -57,9 +58,32 @@ public sealed record EvaluationLimits
     /// <summary>Throws, before anything is built, when an estimate (<see cref="MemoryModel"/>, with its margin), and the report's bytes when one is written, is over the limit.</summary>
     public void CheckMemory(string what, double estimateBytes, string remedy)
     {
+        if (OverLimit(what, estimateBytes) is { } over) throw new ResourceLimitException($"{over}: {remedy} or raise the limit");
+    }
+
+    /// <summary>
+    /// Why the plate on cells of cellM, solved with its own field (<see cref="MemoryModel.OwnField"/>, the largest of its models) next to the
+    /// solve already held on the run's grid (held), would not fit the limit, or null: the grid-error estimate's finer grid
+    /// (Plates/DiscretisationError) is checked so before it is built, and falls back with this reason rather than stopping the run.
+    /// </summary>
+    public string? RefusesGrid(SheetModel held, double cellM)
+    {
+        var (min, max) = held.Grid.Geometry.Bounds;
+        double heldCellM = Math.Max(held.Lattice.Hx, held.Lattice.Hy);
+        double Nodes(double side, double h) => Math.Min(Math.Ceiling(side / h) + 1, int.MaxValue / 4);
+        double OwnField(double h) => MemoryModel.OwnField((int)Nodes(max.X - min.X, h), (int)Nodes(max.Y - min.Y, h));
+        var estimate = OwnField(cellM) + OwnField(heldCellM) - MemoryModel.WithMargin(0);     // the runtime once
+        var cells = Math.Ceiling((max.X - min.X) / cellM) * Math.Ceiling((max.Y - min.Y) / cellM);
+        return OverLimit($"a {Numbers.Of(cellM * 1e3, "mm")} grid ({Numbers.Sig(cells)} cells) solved with the plate's own field", estimate);
+    }
+
+    /// <summary>"what needs about ..., the memory limit is ..." when the estimate (and the report's bytes when one is written) is over the limit, else null.</summary>
+    private string? OverLimit(string what, double estimateBytes)
+    {
         var total = estimateBytes + (WritesReport ? MemoryModel.Margin * MemoryModel.ReportBytes : 0);
-        if (total > MaxMemoryBytes)
-            throw new ResourceLimitException($"{what} needs about {MemoryModel.Words(total)} (estimate with margin{(WritesReport ? ", the report included" : "")}); the memory limit is {MemoryModel.Words(MaxMemoryBytes)} (--max-memory): {remedy} or raise the limit");
+        return total > MaxMemoryBytes
+            ? $"{what} needs about {MemoryModel.Words(total)} (estimate with margin{(WritesReport ? ", the report included" : "")}); the memory limit is {MemoryModel.Words(MaxMemoryBytes)} (--max-memory)"
+            : null;
     }
 
     /// <summary>

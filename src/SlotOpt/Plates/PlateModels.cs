@@ -161,11 +161,12 @@ public static class PlateModels
 
     /// <summary>
     /// The solution with its grid-error estimate (<see cref="DiscretisationError.Estimate"/>): the same model solved again on cells twice
-    /// and, where that grid resolves the plate, four times as large (solveOn gets each coarser model); the caller shows
+    /// and, where that grid resolves the plate, four times as large, or, where it does not, half as large (solveOn gets each other model;
+    /// refusesCell says why a grid of a cell would not fit the run's memory, or null); the caller shows
     /// <see cref="DiscretisationError.Warning"/> when it exceeds 1 %. Where no coarser grid exists (fewer than 2 cells across, or nothing conducting left) GridError stays null.
     /// </summary>
-    public static PlateSolution WithGridError(PlateSolution fine, SheetModel model, Func<SheetModel, PlateSolution> solveOn) =>
-        fine with { GridError = DiscretisationError.Estimate(model, fine.MeanLossW, coarse => solveOn(coarse).MeanLossW) };
+    public static PlateSolution WithGridError(PlateSolution fine, SheetModel model, Func<SheetModel, PlateSolution> solveOn, Func<double, string?>? refusesCell = null) =>
+        fine with { GridError = DiscretisationError.Estimate(model, fine.MeanLossW, other => solveOn(other).MeanLossW, refusesCell) };
 
     private static void CheckOperator(SheetModel model, ReactionOperator? reaction)
     {

@@ -13,7 +13,7 @@ namespace SlotOpt.Runs;
 /// <summary>
 /// A chosen plate design with what the report shows beyond its ranked number: the model its validity figures call for
 /// (the same model, and the same loss and drag, the ranking gave it: <see cref="PlateModelRanking"/>), its lift, its grid error
-/// (from the solves on cells twice and four times as large, <see cref="DiscretisationError"/>), and under moving poles drag and lift
+/// (from the solves on cells twice and four times as large, or half as large where twice does not resolve the plate: <see cref="DiscretisationError"/>), and under moving poles drag and lift
 /// against speed with the plate's own field. ResistanceLimitedLossW is the screen's number of the same plate.
 /// </summary>
 public sealed record PlateConfirmation(
@@ -39,7 +39,7 @@ public sealed record PlateConfirmation(
     public const int SweepPositions = 2;
     /// <summary>
     /// Solves the chosen option with the model its validity figures call for (accuracy 1 %, ReactionModelChoice), on the part's grid and on coarser
-    /// ones for its grid error. A turning disc's geometry comes from (and stays in) geometries, and its number at the run's speed is the ranking's, not solved again.
+    /// (or finer) ones for its grid error. A turning disc's geometry comes from (and stays in) geometries, and its number at the run's speed is the ranking's, not solved again.
     /// </summary>
     public static PlateConfirmation Confirm(PlatePart part, EvaluatedOption chosen, MaterialLibrary library, SolvedGeometries geometries)
     {
@@ -60,14 +60,14 @@ public sealed record PlateConfirmation(
             var reaction = ReactionOperator.Build(model, limits.Threads);
             PlateSolution SolveOn(SheetModel m, ReactionOperator r) =>
                 PlateModels.SolveMoving(m, source, conductor, offsets, source.LoopLengthXM, reaction: r, basis: MovingReducedBasis.Start(r, source, offsets));
-            solution = PlateModels.WithGridError(SolveOn(model, reaction), model, coarse => SolveOn(coarse, ReactionOperator.Build(coarse, limits.Threads)));
+            solution = PlateModels.WithGridError(SolveOn(model, reaction), model, other => SolveOn(other, ReactionOperator.Build(other, limits.Threads)), cell => limits.RefusesGrid(model, cell));
             sweep = Sweep(reaction, source, conductor, offsets);
             if (part.MinBraking is { } wanted) minimum = CheckMinimumDrag(wanted, model, reaction, source, conductor, offsets, solution);
         }
         else if (part.Excitation is PlateExcitation.AcField field)
         {
             solution = PlateModels.WithGridError(PlateModels.SolveAc(model, field.Source, conductor, fftThreads: limits.Threads), model,
-                m => PlateModels.SolveAc(m, field.Source, conductor, fftThreads: limits.Threads));
+                m => PlateModels.SolveAc(m, field.Source, conductor, fftThreads: limits.Threads), cell => limits.RefusesGrid(model, cell));
         }
         else throw new ArgumentOutOfRangeException(nameof(part), part.Excitation.GetType().Name, "unknown plate excitation");
         var ranked = PlateModelRanking.ModelOf(solution.Choice, part.Excitation.IsMoving);
@@ -79,7 +79,7 @@ public sealed record PlateConfirmation(
 
     /// <summary>
     /// A turning disc: its number through the one seam (<see cref="TurningDiscModel"/>: the ranking's number, which the chosen option carries),
-    /// the tangential force at the magnets' radius as its drag, and the grid error from the same disc solved on coarser cells (<see cref="DiscretisationError.Estimate"/>); with
+    /// the tangential force at the magnets' radius as its drag, and the grid error from the same disc solved on coarser (or finer) cells (<see cref="DiscretisationError.Estimate"/>); with
     /// min_torque, the torque at its speed.
     /// </summary>
     private static PlateConfirmation ConfirmDisc(PlatePart part, EvaluatedOption chosen, PlateChoice choice, PlateExcitation.Turning turning, ConductingSheet conductor,
@@ -93,7 +93,8 @@ public sealed record PlateConfirmation(
             chosen.TorqueNm ?? throw new InvalidOperationException($"{part.Name}: the chosen disc carries no torque"));
         var notes = new List<string>();
         var gridError = DiscretisationError.Estimate(model, number.LossW,
-            coarse => new TurningDiscModel(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, coarse), threads).Evaluate(conductor).LossW);
+            other => new TurningDiscModel(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, other), threads).Evaluate(conductor).LossW,
+            cell => geometries.Limits.RefusesGrid(model, cell));
         if (gridError is null) notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell");
         else if (gridError.IsLarge) notes.Add(gridError.Warning);
         // min_torque: the disc solved at the minimum's own speed by the model its validity calls for there (the screen scaled linearly,

@@ -37,7 +37,7 @@ public sealed record PlateFileEvaluation(
     double SolveSeconds,
     HeatedPlate? Heating = null)
 {
-    /// <summary>The grid-error estimate of the loss and mean drag (DiscretisationError.Estimate: cells of 2h and 4h); null with [thermal].</summary>
+    /// <summary>The grid-error estimate of the loss and mean drag (DiscretisationError.Estimate: cells of 2h and 4h, or h/2 where 2h does not resolve the plate); null with [thermal].</summary>
     public DiscretisationError? GridError { get; init; }
 
     /// <summary>A turning disc: the mean braking torque (N m); MeanDragN is then the torque over the magnets' radius, the force along their path.</summary>
@@ -63,8 +63,8 @@ public sealed record PlateFileEvaluation(
         if (forcedKind == SheetModelKind.ThickSlab && plate.MovingSource is null)
             throw new InputException($"{plate.Path}: --model thick-slab is for magnets sliding over a block; this plate's source is not a sliding one");
         if (discSweep is not null && plate.Rotation is null) throw new InputException($"{plate.Path}: a torque-speed sweep (--speeds) is for a turning disc (motion = \"rotation\")");
-        if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind, discSweep, limits.Threads);
-        if (plate.Approach is { } approach) return EvaluateApproach(plate, approach, criterion, forcedKind);
+        if (plate.Rotation is { } rotation) return EvaluateRotation(plate, rotation, criterion, forcedKind, discSweep, limits);
+        if (plate.Approach is { } approach) return EvaluateApproach(plate, approach, criterion, forcedKind, limits);
         if (plate.Thermal is not null)
         {
             if (forcedKind is { } k && k != SheetModelKind.ResistanceLimited)
@@ -76,7 +76,8 @@ public sealed record PlateFileEvaluation(
         if (plate.AcSource is { } ac)
         {
             var solution = PlateModels.SolveAc(model, ac, plate.Sheet, criterion: criterion, forcedKind: forcedKind, fftThreads: limits.Threads);
-            solution = PlateModels.WithGridError(solution, model, m => PlateModels.SolveAc(m, ac, plate.Sheet, criterion: criterion, forcedKind: solution.Choice.Kind, fftThreads: limits.Threads));
+            solution = PlateModels.WithGridError(solution, model, m => PlateModels.SolveAc(m, ac, plate.Sheet, criterion: criterion, forcedKind: solution.Choice.Kind, fftThreads: limits.Threads),
+                cell => limits.RefusesGrid(model, cell));
             var result = MapSolution(solution, () => ResistanceLimitedSolver.SolveAc(model, ac, criterion)).ScaleTo(plate.Sheet);
             return new PlateFileEvaluation(plate, solution.Choice, WithSolutionNotes(result, solution), solution.MeanLossW, null,
                 Array.Empty<double>(), Array.Empty<double>(), Array.Empty<double>(), solution.Iterations, solution.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
@@ -85,7 +86,8 @@ public sealed record PlateFileEvaluation(
         var source = plate.MovingSource ?? throw new InputException($"{plate.Path}: [source] defines neither an AC field nor a moving source");
         if (PlateThickSlab.Wanted(plate, forcedKind) is { } slab) return PlateThickSlab.Evaluate(plate, slab, model, criterion);
         var moving = PlateModels.SolveMoving(model, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: forcedKind, fftThreads: limits.Threads);
-        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: moving.Choice.Kind, fftThreads: limits.Threads));
+        moving = PlateModels.WithGridError(moving, model, m => PlateModels.SolveMoving(m, source, plate.Sheet, plate.OffsetsXM, source.LoopLengthXM, criterion: criterion, forcedKind: moving.Choice.Kind, fftThreads: limits.Threads),
+            cell => limits.RefusesGrid(model, cell));
         var peak = MapSolution(moving, () => ResistanceLimitedSolver.SolveMoving(model, source, plate.OffsetsXM, criterion).Peak).ScaleTo(plate.Sheet);
         return new PlateFileEvaluation(plate, moving.Choice, WithSolutionNotes(peak, moving), moving.MeanLossW, moving.MeanDragN, moving.OffsetsXM, moving.DragN!,
             moving.LossW, moving.Iterations, moving.RelativeResidual, model.SetupSeconds, clock.Elapsed.TotalSeconds)
@@ -96,11 +98,13 @@ public sealed record PlateFileEvaluation(
     /// A disc turning under fixed magnets (<see cref="PlateModels.SolveDisc"/>: resistance-limited or own-field, as the validity figures of a slide at the
     /// magnets' path speed omega R call for, or as asked): torque, the force along the magnets' path (torque over their radius), loss, and the map at the
     /// angle with the most loss (resistance-limited: the own-field solve's starts when that model ran, and a note says so). With a sweep, torque against
-    /// speed and its peak (<see cref="DiscSpeedCurve"/>). fftThreads: the reaction operators' FFT workers (--threads; answers are the same for any count).
+    /// speed and its peak (<see cref="DiscSpeedCurve"/>). The limits' threads are the reaction operators' FFT workers (--threads; answers are the same for any count);
+    /// its memory limit bounds the grid-error estimate's finer grid.
     /// </summary>
     private static PlateFileEvaluation EvaluateRotation(PlateCase plate, DiscRotation rotation, ConvergenceCriterion? criterion, SheetModelKind? forcedKind, DiscSweep? sweep,
-        int fftThreads)
+        EvaluationLimits limits)
     {
+        var fftThreads = limits.Threads;
         if (plate.Thermal is not null) throw new InputException($"{plate.Path}: [thermal] is for plates under sliding sources and AC fields; a turning disc has no temperature coupling");
         if (forcedKind == SheetModelKind.BeyondThinSheet) throw new InputException($"{plate.Path}: --model thick is for AC fields only: there is no layered rotating solver (use auto, resistance-limited or own-field)");
         var source = rotation.Source;
@@ -109,7 +113,8 @@ public sealed record PlateFileEvaluation(
         double g = plate.Sheet.SheetConductanceS, pathSpeed = source.AngularSpeedRadPerS * source.SourceRadiusM;
         var disc = PlateModels.SolveDisc(model, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: forcedKind, fftThreads: fftThreads);
         var gridError = DiscretisationError.Estimate(model, disc.MeanLossW,
-            m => PlateModels.SolveDisc(m, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: disc.Choice.Kind, fftThreads: fftThreads).MeanLossW);
+            m => PlateModels.SolveDisc(m, source, plate.Sheet, rotation.AnglesRad, criterion: criterion, forcedKind: disc.Choice.Kind, fftThreads: fftThreads).MeanLossW,
+            cell => limits.RefusesGrid(model, cell));
         var low = disc.ResistanceLimited;
         var notes = disc.Notes.Skip(1).ToList();
         if (disc.Choice.Kind != SheetModelKind.ResistanceLimited) notes.Add("the current-density map and its peak and RMS are from the resistance-limited model, which overstates them here; torque and loss are from the model that ran");
@@ -129,7 +134,7 @@ public sealed record PlateFileEvaluation(
     /// Magnets approaching the plate, resistance-limited (<see cref="ApproachDamping"/>): the damping force F = P / v at each gap of the case; the
     /// map is the one at the first gap. Where the validity figures at the approach speed call for the plate's own field, a note says the force is overstated.
     /// </summary>
-    private static PlateFileEvaluation EvaluateApproach(PlateCase plate, MagnetApproach approach, ConvergenceCriterion? criterion, SheetModelKind? forcedKind)
+    private static PlateFileEvaluation EvaluateApproach(PlateCase plate, MagnetApproach approach, ConvergenceCriterion? criterion, SheetModelKind? forcedKind, EvaluationLimits limits)
     {
         ResistanceLimitedOnly(plate, forcedKind, "an approaching magnet");
         var first = approach.Magnets;
@@ -149,7 +154,7 @@ public sealed record PlateFileEvaluation(
             residual = Math.Max(residual, s.RelativeResidual);
             curve.Add(new GapPoint(gap, s.DampingForceN(g), g * s.LossPerSiemensW));
         }
-        var gridError = DiscretisationError.Estimate(model, curve[0].LossW, m => g * ApproachDamping.Solve(m, first, v, criterion).LossPerSiemensW);
+        var gridError = DiscretisationError.Estimate(model, curve[0].LossW, m => g * ApproachDamping.Solve(m, first, v, criterion).LossPerSiemensW, cell => limits.RefusesGrid(model, cell));
         var notes = new List<string> { "the damping force is normal to the plate: it pushes the magnets back as they approach" };
         if (wanted.Kind != SheetModelKind.ResistanceLimited)
             notes.Add($"the approach is solved resistance-limited (there is no own-field model for it), but at this speed the validity calls for another ({wanted.Reason}): the force is overstated");

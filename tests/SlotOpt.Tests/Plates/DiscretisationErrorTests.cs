@@ -1,3 +1,5 @@
+using SlotOpt.Design;
+using SlotOpt.Design.Limits;
 using SlotOpt.Design.SolidParts;
 using SlotOpt.Input;
 using SlotOpt.Plates;
@@ -5,6 +7,7 @@ using SlotOpt.Plates.Conductors;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
 using SlotOpt.Plates.Sources;
+using SlotOpt.Runs;
 using Xunit.Abstractions;
 
 namespace SlotOpt.Tests.Plates;
@@ -125,17 +128,100 @@ public class DiscretisationErrorTests(ITestOutputHelper output)
         Assert.Contains("25 mm against 50 mm cells, order 1 assumed", estimate.Warning);
         Assert.Contains("100 mm cells cannot be built", estimate.Warning);
     }
-    // The conveyor demo's chosen rail (problems/conveyor-rail.toml: Al-6061-T6 6 mm, comb from the bottom, pitch 10 mm, depth 65 mm,
-    // width 3 mm, 2 mm cells, own-field model), reduced to a 300 mm section under the same four poles to keep the test fast. Its 3 mm
-    // slots get 0.75 cells on the 4 mm grid and 0.375 on the 8 mm one: the coarser grids bridge them, so the estimate is the two-grid
-    // one and says the grids solve different plates. The actual error is against the same section on 0.5 mm cells, whose grid lines
-    // hold the slot edges (on the full 600 mm rail the 0.5 mm solve is within 0.19 % of a 0.25 mm one, measured: 10.211 and
-    // 10.192 W, against 11.110 W at 2 mm, an actual error of 9.0 % where the estimate says 17.1 %). The estimate must not fall below
-    // the actual error, and must stay within about twice it (a bar twice too wide cannot be signed): tolerance [1, 2.2], 2.2 for the
-    // 0.5 mm reference's own error (under 0.2 %) on a ratio near 1.9.
+
+    // The finer-grid estimate on a sequence of known order, P(h) = P0 + C h^p (Richardson 1927's error model): the extrapolation from the
+    // pair h, h/2 at order 1 (I. B. Celik et al., J. Fluids Eng. 130:078001, 2008, Eq. 4a, from memory) is exact for p = 1, so the estimate of
+    // the h value's error is Fs = 1.25 times its actual error (the coarse-grid GCI, Fs r^p |eps| / (r^p - 1): P. J. Roache, J. Fluids Eng.
+    // 116:405-413, 1994, from memory; Fs from Roache, Annu. Rev. Fluid Mech. 29:123-160, 1997); for p = 2 the order-1 assumption
+    // overstates by r (1 - r^-p) / (r - 1), 2 x (3/4) = 1.5 at r = 2, so 1.875 times. For r = 2 and r = 1.5. Exact algebra: 1e-12.
+    [Theory]
+    [InlineData(1.0, 2.0, 1.0, 1.25)]
+    [InlineData(1.0, 3.0, 2.0, 1.25)]
+    [InlineData(2.0, 2.0, 1.0, 1.875)]
+    public void Finer_grid_estimate_of_a_sequence_of_known_order(double p, double h, double hFine, double timesActual)
+    {
+        double P(double cell) => 10.0 + 0.3 * Math.Pow(cell, p);
+        var e = DiscretisationError.FromFinerGrid(P(h), P(hFine), h, hFine, "why");
+        double actual = Math.Abs(P(h) - 10.0) / P(h);
+        double r = h / hFine, expected = p == 1 ? 1.25 : 1.25 * r / (r - 1) * (1 - Math.Pow(hFine / h, p));
+        Assert.Equal(expected, e.Relative / actual, 1e-12);
+        if (h / hFine == 2) Assert.Equal(timesActual, e.Relative / actual, 1e-12);
+        Assert.Equal(GridErrorMethod.FinerGrid, e.Method);
+        Assert.Equal("finer-grid", e.MethodName);
+        Assert.Equal([P(h), P(hFine)], e.Values);
+    }
+
+    // Where the 2h grid does not resolve the plate, Estimate solves h/2 (the finer grid's value in the words), and where that grid is refused
+    // (memory) or its solve fails it falls back to the two-grid estimate naming why, never a number from the refused grid. The plate: the
+    // conveyor section below on 2 mm cells (3 mm slots: 0.75 cells on 4 mm). Values are an invented P(h) = 10 W + 100 W/m x h (first order),
+    // so no solve runs: the routing is checked, and the finer-grid number follows from FromFinerGrid exactly (1e-12).
     [Fact]
-    [Trait("Category", "Slow")]
-    public void Conveyor_rail_estimate_is_neither_below_nor_twice_above_the_error_against_a_fine_solve()
+    public void Estimate_refines_where_the_coarser_grid_does_not_resolve_and_falls_back_with_the_reason()
+    {
+        var (geometry, _, _, _) = ConveyorSection();
+        var model = SheetModel.Build(geometry, new GridOptions { CellSizeM = 0.002 });
+        double ValueOn(SheetModel m) => 10 + 100 * Math.Sqrt(m.Lattice.Hx * m.Lattice.Hy);
+        double reported = ValueOn(model);
+
+        var finer = DiscretisationError.Estimate(model, reported, ValueOn)!;
+        Assert.Equal(GridErrorMethod.FinerGrid, finer.Method);
+        Assert.Equal(0.001, finer.CellsM[1], 1e-12);
+        Assert.Equal(1.25 * 2 * Math.Abs(reported - ValueOn(SheetModel.Build(geometry, new GridOptions { CellSizeM = 0.001 }))) / reported, finer.Relative, 1e-12);
+        Assert.Contains("on 1 mm cells: 10.1 W", finer.Description);
+        Assert.Contains("4 mm cells put 0.75 across slot 1 (3 mm)", finer.Description);
+
+        var refused = DiscretisationError.Estimate(model, reported, ValueOn, cell => cell < 0.002 ? "too large for the test's limit" : null)!;
+        Assert.Equal(GridErrorMethod.TwoGrid, refused.Method);
+        Assert.Equal(0.004, refused.CellsM[1], 1e-12);
+        Assert.Contains("no finer grid: too large for the test's limit", refused.Description);
+
+        var failed = DiscretisationError.Estimate(model, reported, m => m.Lattice.Hx < 0.0015 ? throw new NumericalFailureException("no convergence in 3 steps") : ValueOn(m))!;
+        Assert.Equal(GridErrorMethod.TwoGrid, failed.Method);
+        Assert.Contains("the solve on 1 mm cells failed (no convergence in 3 steps)", failed.Description);
+    }
+
+    // The memory guard of the finer grid, end to end through `slotopt plate`'s evaluation: a slotted plate (3 mm slots on 2 mm cells, so the
+    // 4 mm grid does not resolve it) under a memory limit that holds its own solve (MemoryModel.OwnField of its 51 x 21 nodes) but not the
+    // finer grid beside it (EvaluationLimits.RefusesGrid: the 1 mm grid's own-field estimate plus the held one, the runtime once). The estimate
+    // must fall back to the two-grid one and say why, never solve the refused grid; with the default limit the same plate takes the finer grid.
+    // The limit is set halfway between the two estimates, so the check does not rest on rounding (common practice, no source).
+    [Fact]
+    public void A_finer_grid_over_the_memory_limit_falls_back_to_two_grids_with_the_reason()
+    {
+        const string file = """
+            [plate]
+            width = "100 mm"
+            height = "40 mm"
+            thickness = "2 mm"
+            conductivity = "1.4e6"
+            [grid]
+            cell = "2 mm"
+            [[slots]]
+            pattern = "comb"
+            edge = "bottom"
+            pitch = "20 mm"
+            depth = "25 mm"
+            width = "3 mm"
+            [source]
+            kind = "uniform_ac"
+            peak = "25 mT"
+            frequency = "50 Hz"
+            """;
+        var plate = PlateFileReader.Parse(file, "slotted.toml");
+        double held = MemoryModel.OwnField(51, 21), finerAndHeld = MemoryModel.OwnField(101, 41) + held - MemoryModel.WithMargin(0);
+        var limits = new EvaluationLimits { MaxMemoryBytes = (long)((held + finerAndHeld) / 2) };
+
+        var refused = PlateFileEvaluation.Evaluate(plate, limits: limits).GridError!;
+        Assert.Equal(GridErrorMethod.TwoGrid, refused.Method);
+        Assert.Contains("no finer grid: a 1 mm grid", refused.Description);
+        Assert.Contains("the memory limit is", refused.Description);
+
+        Assert.Equal(GridErrorMethod.FinerGrid, PlateFileEvaluation.Evaluate(plate).GridError!.Method);
+    }
+
+    // The conveyor demo's chosen rail (problems/conveyor-rail.toml: Al-6061-T6 6 mm, comb from the bottom, pitch 10 mm, depth 65 mm,
+    // width 3 mm), reduced to a 300 mm section under the same four poles to keep the test fast.
+    private static (PlateGeometry Geometry, ConductingSheet Sheet, ITravellingSource Source, IReadOnlyList<double> Offsets) ConveyorSection()
     {
         var problem = ProblemReader.ReadFile(Path.Combine(AppContext.BaseDirectory, "problems", "conveyor-rail.toml"));
         var part = Assert.IsType<PlatePart>(problem.Parts[0]);
@@ -145,7 +231,21 @@ public class DiscretisationErrorTests(ITestOutputHelper output)
         var material = problem.Library.GetConductor("Al-6061-T6", part.Name);
         var sheet = new ConductingSheet(material.ConductivityAt(part.TemperatureK), 0.006, material.RelativePermeability);
         var source = Assert.IsType<PlateExcitation.Moving>(part.Excitation).Source;
-        var offsets = PlateOptions.TravelOffsets(part, slots);
+        return (geometry, sheet, source, PlateOptions.TravelOffsets(part, slots));
+    }
+
+    // The conveyor section on the demo's 2 mm cells, own-field model. Its 3 mm slots get 0.75 cells on the 4 mm grid: a coarser grid bridges
+    // them and solves a different plate, so the estimate comes from the finer grid (1 mm, 3 cells across). The actual error is against the
+    // same section on 0.5 mm cells, whose grid lines hold the slot edges (on the full 600 mm rail the 0.5 mm solve is within 0.19 % of a
+    // 0.25 mm one, measured: 10.211 and 10.192 W, against 11.110 W at 2 mm). Measured here: 11.110 W at 2 mm, 10.64 W at 1 mm, 10.211 W at
+    // 0.5 mm: actual 8.8 %, estimate 10.5 % (the two-grid coarsening it replaces said 17 %). The estimate must not fall below the actual error
+    // and must stay within 3 times it (the brief's bound: a bar three times too wide is no longer a designer's estimate); the 0.5 mm
+    // reference's own error (under 0.2 % of 8.8 %) moves the ratio by about 2 %, inside both ends.
+    [Fact]
+    [Trait("Category", "Slow")]
+    public void Conveyor_rail_finer_grid_estimate_is_neither_below_nor_three_times_above_the_error_against_a_fine_solve()
+    {
+        var (geometry, sheet, source, offsets) = ConveyorSection();
         PlateSolution Solve(SheetModel m, SheetModelKind? kind = null) => PlateModels.SolveMoving(m, source, sheet, offsets, source.LoopLengthXM, forcedKind: kind);
 
         var model = SheetModel.Build(geometry, new GridOptions { CellSizeM = 0.002 });
@@ -156,9 +256,9 @@ public class DiscretisationErrorTests(ITestOutputHelper output)
         double actual = Math.Abs(demo.MeanLossW / fine.MeanLossW - 1);
         var estimate = demo.GridError!;
         output.WriteLine($"2 mm {demo.MeanLossW} W, 0.5 mm {fine.MeanLossW} W: actual {actual:P2}, estimate {estimate.Relative:P2} ({estimate.Description})");
-        Assert.Equal(GridErrorMethod.TwoGrid, estimate.Method);
-        Assert.Contains("solve different plates", estimate.Description);
-        Assert.InRange(estimate.Relative / actual, 1, 2.2);
+        Assert.Equal(GridErrorMethod.FinerGrid, estimate.Method);
+        Assert.Contains("on 1 mm cells: ", estimate.Description);
+        Assert.InRange(estimate.Relative / actual, 1, 3);
     }
 
     // The cryogenic demo's warm damper plate (problems/cryogenic-damper.toml: Al-1350 5 mm, solid, 2 mm cells, four magnets sliding at

@@ -6,7 +6,7 @@ namespace SlotOpt.Reports.Json;
 
 /// <summary>
 /// The machine-readable form of one plate (`slotopt plate --json` prints it; the plate report's result.json is the same document): the model and why, loss and drag (per source position when it moves), current density,
-/// the grid-error estimate (relative) and its method (three-grid, three-grid-order-unconfirmed or two-grid: Plates/DiscretisationError), validity figures, the solver's reproducible effort (no wall times), and the temperature keys when the file has [thermal]
+/// the grid-error estimate (relative) and its method (three-grid, three-grid-order-unconfirmed, two-grid or finer-grid: Plates/DiscretisationError), validity figures, the solver's reproducible effort (no wall times), and the temperature keys when the file has [thermal]
 /// (temperature_limit_exceeded only when it sets a limit).
 /// Absent values are left out, never written as null.
 /// </summary>

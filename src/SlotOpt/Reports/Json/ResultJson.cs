@@ -93,7 +93,7 @@ public sealed record ResultJson(
         }
     }
 
-    /// <summary>A chosen plate solved with the model its validity calls for (its name as `plate --model` spells it), with its lift and its grid-error estimate (relative) and the method that made it (three-grid, three-grid-order-unconfirmed or two-grid: Plates/DiscretisationError).</summary>
+    /// <summary>A chosen plate solved with the model its validity calls for (its name as `plate --model` spells it), with its lift and its grid-error estimate (relative) and the method that made it (three-grid, three-grid-order-unconfirmed, two-grid or finer-grid: Plates/DiscretisationError).</summary>
     public sealed record Confirmation(string Model, string Reason, double LossW, double? DragN, double? LiftN, double ResistanceLimitedLossW, double? DiscretisationError)
     {
         /// <summary>How DiscretisationError was estimated; absent with it.</summary>
