@@ -57,6 +57,7 @@ public sealed class LatticeSheetOperator : ILinearOperator
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Multiply(ReadOnlySpan<double> x, Span<double> y)
     {
+        if (y.Length < Rows) throw new ArgumentException($"the product needs {Rows} entries (got {y.Length})", nameof(y));   // the run loops store unchecked
         var xs = BorrowSpread(x);
         try
         {
@@ -82,6 +83,7 @@ public sealed class LatticeSheetOperator : ILinearOperator
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r)
     {
+        if (b.Length < Rows || r.Length < Rows) throw new ArgumentException($"the residual needs b and r of {Rows} entries (got {b.Length} and {r.Length})");   // the run loops read and store unchecked
         var xs = BorrowSpread(x);
         try
         {
