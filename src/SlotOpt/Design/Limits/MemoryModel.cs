@@ -24,12 +24,15 @@ public static class MemoryModel
     /// A solved model kept per slot geometry: grid, node regions, structured multigrid with its lattice operator, solution. Measured
     /// 2026-12-02 (`slotopt run`, tie-plate demo without its [parts.thermal] section, 13 geometries, one thread): peaks of 175 MB
     /// on 21.6 k cells and 358 MB on 86.4 k cells, 2.83 kB per added cell, of which 13 kept models take all but one solve's work:
-    /// (2830 - 150) / 13 = about 210 B (was 400 B before the structured multigrid stopped storing the CSR matrix). The plate
+    /// (2830 - 150) / 13 = about 210 B (was 400 B before the structured multigrid stopped storing the CSR matrix). Since 3 Dec 2026 the
+    /// lattice sheet operator keeps no lattice vector of its own (its products borrow one from the shared array pool, counted in
+    /// <see cref="SolveBytesPerCell"/>): the sheets bench's retained bytes fell by 19 B per unknown, so 210 B is still a bound. The plate
     /// temperature solves have their own terms (<see cref="ThermalKeptBytesPerCell"/> and the two after it).
     /// </summary>
     public const double ModelBytesPerCell = 210;
 
-    /// <summary>One solve at work beyond the model it keeps: the four CG vectors and the right-hand sides (8 B each, a few more for the sweep).</summary>
+    /// <summary>One solve at work beyond the model it keeps: the four CG vectors and the right-hand sides (8 B each, a few more for the sweep;
+    /// among them the lattice vector the sheet operator's product borrows from the shared array pool, one a thread).</summary>
     public const double SolveBytesPerCell = 150;
 
     /// <summary>

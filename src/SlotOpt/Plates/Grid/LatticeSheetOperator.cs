@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Numerics;
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
@@ -13,13 +14,15 @@ namespace SlotOpt.Plates.Grid;
 /// the outside. An edge inside a merged region joins two copies of the same value, so it adds exactly
 /// 0 however strongly the multigrid glues it; E^T sums a region's node rows into its Faraday-law row.
 /// Same matrix as the CSR assembly (each row summed in another order), without storing it: 16 bytes an
-/// unknown instead of about 64 (and a lattice vector of its own once <see cref="Multiply"/> is first called).
+/// unknown instead of about 64. <see cref="Multiply"/> and <see cref="Residual"/> borrow the lattice vector E x from the
+/// shared array pool for the length of one product (none is kept per operator; after a thread's first product the pool hands
+/// the same array back, so a solve loop allocates nothing) and write each row of E^T L E x straight into its unknown.
+/// Vectors move between the unknowns' numbering and the lattice by <see cref="UnknownRuns"/> alone.
 /// </summary>
 public sealed class LatticeSheetOperator : ILinearOperator
 {
     private readonly StencilLevel _fine;
     private readonly double[] _outsideWeight;
-    private readonly int[] _nodeUnknown;
     private readonly int[] _mergedNodes, _mergedStart, _mergedUnknown;
     /// <summary>The merged regions' nodes in node order with the region of each, and each region's new direction (<see cref="NextDirectionAndMultiply"/>).</summary>
     private readonly int[] _mergedNodesInOrder, _regionInOrder;
@@ -30,7 +33,6 @@ public sealed class LatticeSheetOperator : ILinearOperator
         _fine = fine;
         _outsideWeight = outsideWeight;
         Rows = unknowns;
-        _nodeUnknown = nodeUnknown;
         _mergedNodes = mergedNodes;
         _mergedStart = mergedStart;
         _mergedUnknown = mergedUnknown;
@@ -46,55 +48,90 @@ public sealed class LatticeSheetOperator : ILinearOperator
     /// <summary>The unmerged unknowns' nodes as runs (the block copies between the unknowns' numbering and the lattice).</summary>
     internal UnknownRuns Runs { get; }
 
-    /// <summary><see cref="Multiply"/>'s x and L x on the padded lattice, allocated on its first call (the lattice conjugate gradients never make them).</summary>
-    private double[]? _latticeX, _latticeProduct;
-
     public int Rows { get; }
 
-    public long Bytes => 8L * (_outsideWeight.Length + (_latticeX?.Length ?? 0) + (_latticeProduct?.Length ?? 0) + _regionDirection.Length) + 4L * (_mergedNodesInOrder.Length + _regionInOrder.Length) + Runs.Bytes;
+    public long Bytes => 8L * (_outsideWeight.Length + _regionDirection.Length) + 4L * (_mergedNodesInOrder.Length + _regionInOrder.Length) + Runs.Bytes;
 
-    /// <summary>y = A x in the unknowns' numbering: x copied to its nodes (E x), the rows of L formed on the lattice as
-    /// <see cref="ProductOfRows"/> forms them, each node's row put into its unknown's entry of y (E^T; a merged region's rows summed in node order).</summary>
+    /// <summary>y = A x in the unknowns' numbering: x copied to its nodes (E x), the rows of L formed at a run's nodes as
+    /// <see cref="ProductOfRows"/> forms them and written into the run's unknowns, a merged region's rows summed in node order into its unknown (E^T).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Multiply(ReadOnlySpan<double> x, Span<double> y)
     {
-        var product = ProductOnLattice(x);
-        Runs.FromLattice(product, _fine.Pad, y);
-        for (int m = 0; m < _mergedUnknown.Length; m++) y[_mergedUnknown[m]] = RegionRowSum(product, m);
+        if (y.Length < Rows) throw new ArgumentException($"the product needs {Rows} entries (got {y.Length})", nameof(y));   // the run loops store unchecked
+        var xs = BorrowSpread(x);
+        try
+        {
+            ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
+            ref double w = ref MemoryMarshal.GetArrayDataReference(_fine.West);
+            ref double s = ref MemoryMarshal.GetArrayDataReference(_fine.South);
+            ref double xr = ref MemoryMarshal.GetArrayDataReference(xs);
+            ref double yr = ref MemoryMarshal.GetReference(y);
+            int o = _fine.Pad, nx = _fine.Nx, width = Vector<double>.Count;
+            for (int run = 0; run < Runs.Count; run++)
+            {
+                Runs.Run(run, out int k, out int u, out int length);
+                int end = k + length;
+                for (; k + width <= end; k += width, u += width) RowsAt(ref d, ref w, ref s, ref xr, k, o + k, nx).StoreUnsafe(ref yr, (nuint)u);
+                for (; k < end; k++, u++) Unsafe.Add(ref yr, u) = RowAt(ref d, ref w, ref s, ref xr, k, o + k, nx);
+            }
+            for (int m = 0; m < _mergedUnknown.Length; m++) y[_mergedUnknown[m]] = RegionRowSum(xs, m);
+        }
+        finally { ArrayPool<double>.Shared.Return(xs); }
     }
 
-    /// <summary>r = b - A x (<see cref="Multiply"/>'s product, each entry subtracted as it is put into r).</summary>
+    /// <summary>r = b - A x (<see cref="Multiply"/>'s rows, each subtracted from b as it is formed).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public void Residual(ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> r)
     {
-        var product = ProductOnLattice(x);
-        Runs.DifferenceFromLattice(b, product, _fine.Pad, r);
-        for (int m = 0; m < _mergedUnknown.Length; m++) r[_mergedUnknown[m]] = b[_mergedUnknown[m]] - RegionRowSum(product, m);
+        if (b.Length < Rows || r.Length < Rows) throw new ArgumentException($"the residual needs b and r of {Rows} entries (got {b.Length} and {r.Length})");   // the run loops read and store unchecked
+        var xs = BorrowSpread(x);
+        try
+        {
+            ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
+            ref double w = ref MemoryMarshal.GetArrayDataReference(_fine.West);
+            ref double s = ref MemoryMarshal.GetArrayDataReference(_fine.South);
+            ref double xr = ref MemoryMarshal.GetArrayDataReference(xs);
+            ref double br = ref MemoryMarshal.GetReference(b);
+            ref double rr = ref MemoryMarshal.GetReference(r);
+            int o = _fine.Pad, nx = _fine.Nx, width = Vector<double>.Count;
+            for (int run = 0; run < Runs.Count; run++)
+            {
+                Runs.Run(run, out int k, out int u, out int length);
+                int end = k + length;
+                for (; k + width <= end; k += width, u += width)
+                    (Vector.LoadUnsafe(ref br, (nuint)u) - RowsAt(ref d, ref w, ref s, ref xr, k, o + k, nx)).StoreUnsafe(ref rr, (nuint)u);
+                for (; k < end; k++, u++) Unsafe.Add(ref rr, u) = Unsafe.Add(ref br, u) - RowAt(ref d, ref w, ref s, ref xr, k, o + k, nx);
+            }
+            for (int m = 0; m < _mergedUnknown.Length; m++) r[_mergedUnknown[m]] = b[_mergedUnknown[m]] - RegionRowSum(xs, m);
+        }
+        finally { ArrayPool<double>.Shared.Return(xs); }
     }
 
-    /// <summary>L E x on the padded lattice (x at every node of its unknown, 0 outside: no other pass writes the outside of this operator's own lattice x), into a lattice vector of this operator's own.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private double[] ProductOnLattice(ReadOnlySpan<double> x)
+    /// <summary>E x on the padded lattice (x at every node of its unknown, 0 outside and on the pads) in a lattice vector borrowed from the
+    /// shared array pool (at least the lattice's length; the caller returns it).</summary>
+    private double[] BorrowSpread(ReadOnlySpan<double> x)
     {
-        int o = _fine.Pad, n = _fine.Nodes;
-        var xs = _latticeX ??= new double[n + 2 * o];
-        var product = _latticeProduct ??= new double[n + 2 * o];
-        Runs.ToLattice(x, xs, o);
+        int o = _fine.Pad;
+        var xs = ArrayPool<double>.Shared.Rent(_fine.Nodes + 2 * o);
+        Runs.ToLattice(x, xs.AsSpan(0, _fine.Nodes + 2 * o), o);
         for (int m = 0; m < _mergedUnknown.Length; m++)
         {
             double v = x[_mergedUnknown[m]];
             for (int k = _mergedStart[m]; k < _mergedStart[m + 1]; k++) xs[o + _mergedNodes[k]] = v;
         }
-        RowsOfL(xs, product);
-        return product;
+        return xs;
     }
 
-    /// <summary>Region m's row of E^T L: its nodes' rows of L summed in node order (its node list is in node order).</summary>
-    private double RegionRowSum(double[] product, int m)
+    /// <summary>Region m's row of E^T L E x (xs = E x on the padded lattice): its nodes' rows of L, each formed as <see cref="RowAt"/> forms it, summed in node order (its node list is in node order).</summary>
+    private double RegionRowSum(double[] xs, int m)
     {
-        int o = _fine.Pad;
-        double sum = product[o + _mergedNodes[_mergedStart[m]]];
-        for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) sum += product[o + _mergedNodes[k]];
+        ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
+        ref double w = ref MemoryMarshal.GetArrayDataReference(_fine.West);
+        ref double s = ref MemoryMarshal.GetArrayDataReference(_fine.South);
+        ref double xr = ref MemoryMarshal.GetArrayDataReference(xs);
+        int o = _fine.Pad, nx = _fine.Nx, first = _mergedNodes[_mergedStart[m]];
+        double sum = RowAt(ref d, ref w, ref s, ref xr, first, o + first, nx);
+        for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) sum += RowAt(ref d, ref w, ref s, ref xr, _mergedNodes[k], o + _mergedNodes[k], nx);
         return sum;
     }
 
@@ -201,22 +238,6 @@ public sealed class LatticeSheetOperator : ILinearOperator
         return dot;
     }
 
-    /// <summary>q = L p on all lattice rows, formed as <see cref="ProductOfRows"/> forms them, without the dot product.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
-    private void RowsOfL(double[] p, double[] q)
-    {
-        var f = _fine;
-        int o = f.Pad, nx = f.Nx, width = Vector<double>.Count;
-        ref double d = ref MemoryMarshal.GetArrayDataReference(_outsideWeight);
-        ref double w = ref MemoryMarshal.GetArrayDataReference(f.West);
-        ref double s = ref MemoryMarshal.GetArrayDataReference(f.South);
-        ref double xr = ref MemoryMarshal.GetArrayDataReference(p);
-        ref double yr = ref MemoryMarshal.GetArrayDataReference(q);
-        int k = 0, end = f.Nodes;
-        for (; k + width <= end; k += width) RowsAt(ref d, ref w, ref s, ref xr, k, o + k, nx).StoreUnsafe(ref yr, (nuint)(o + k));
-        for (; k < end; k++) Unsafe.Add(ref yr, o + k) = RowAt(ref d, ref w, ref s, ref xr, k, o + k, nx);
-    }
-
     /// <summary>Rows k .. k + Vector&lt;double&gt;.Count - 1 of L x (x on the padded lattice, node k at i), each rounded as <see cref="RowAt"/> rounds it.</summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static Vector<double> RowsAt(ref double d, ref double w, ref double s, ref double xr, int k, int i, int nx)
@@ -259,25 +280,22 @@ public sealed class LatticeSheetOperator : ILinearOperator
         }
     }
 
-    /// <summary>Unknowns times <paramref name="scale"/> to <see cref="MultiplyOnLattice"/>'s layout on the padded lattice.</summary>
+    /// <summary>Unknowns times <paramref name="scale"/> to <see cref="MultiplyOnLattice"/>'s layout on the padded lattice (the runs' block copies; a merged
+    /// region's value at its first node; 0 at the region's other nodes, the outside and the pads).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal void ToLattice(ReadOnlySpan<double> v, double[] lattice, double scale)
     {
-        var map = _nodeUnknown;
         int o = _fine.Pad;
-        Array.Clear(lattice);
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) lattice[o + p] = scale * v[u]; }
-        for (int m = 0; m < _mergedUnknown.Length; m++)
-            for (int k = _mergedStart[m] + 1; k < _mergedStart[m + 1]; k++) lattice[o + _mergedNodes[k]] = 0;
+        Runs.ToLattice(v, lattice, o, scale);
+        for (int m = 0; m < _mergedUnknown.Length; m++) lattice[o + _mergedNodes[_mergedStart[m]]] = scale * v[_mergedUnknown[m]];
     }
 
-    /// <summary>Back from <see cref="MultiplyOnLattice"/>'s layout to unknowns, times <paramref name="scale"/>.</summary>
+    /// <summary>Back from <see cref="MultiplyOnLattice"/>'s layout to unknowns, times <paramref name="scale"/> (the runs' block copies; a merged region's value from its first node).</summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal void FromLattice(double[] lattice, Span<double> v, double scale)
     {
-        var map = _nodeUnknown;
         int o = _fine.Pad;
-        for (int p = 0; p < map.Length; p++) { int u = map[p]; if (u >= 0) v[u] = scale * lattice[o + p]; }
+        Runs.FromLattice(lattice, o, scale, v);
         for (int m = 0; m < _mergedUnknown.Length; m++) v[_mergedUnknown[m]] = scale * lattice[o + _mergedNodes[_mergedStart[m]]];
     }
 }
