@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
+using System.Runtime;
 using System.Text.Json;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -28,9 +29,13 @@ public static class SheetsBench
             return SheetsProfile.Run(at >= 0 && at + 1 < args.Length ? args[at + 1].Split(',').Select(s => int.Parse(s, CultureInfo.InvariantCulture)).ToArray() : [256, 1024]);
         }
         bool json = args.Contains("--json");
-        var sizes = new[] { 128, 256, 512, 1024, 2048 };
-        Measure(64);   // JIT warm-up
+        int sizesAt = Array.IndexOf(args, "--sizes");
+        var sizes = sizesAt >= 0 && sizesAt + 1 < args.Length ? args[sizesAt + 1].Split(',').Select(s => int.Parse(s, CultureInfo.InvariantCulture)).ToArray() : [128, 256, 512, 1024, 2048];
+        WarmUp(n => Once(n));
+        var (jitTime, jitMethods) = (JitInfo.GetCompilationTime(), JitInfo.GetCompiledMethodCount());
         var rows = sizes.Select(Measure).ToList();
+        string jitLeft = string.Create(CultureInfo.InvariantCulture,
+            $"JIT after the warm-up, inside the timed sizes: {(JitInfo.GetCompilationTime() - jitTime).TotalMilliseconds:F0} ms compiling {JitInfo.GetCompiledMethodCount() - jitMethods} methods");
         var c = CultureInfo.InvariantCulture;
         if (json)
         {
@@ -41,6 +46,7 @@ public static class SheetsBench
                     solve_seconds = r.SolveSeconds, iterations = r.Iterations, loss_w = r.LossW, retained_bytes_per_unknown = r.RetainedBytes / (double)r.Unknowns, levels = r.Levels,
                     peak_working_set_growth_bytes = r.PeakGrowthBytes,
                 }));
+            Console.Error.WriteLine(jitLeft);
             return 0;
         }
         Console.WriteLine("| N | unknowns | levels | setup s | solve s | iterations | residual | us per unknown (setup+solve) | retained B/unknown (GC heap) | of which operator + multigrid (lattice) | peak working set growth MB | loss W (G = 1 S) |");
@@ -48,7 +54,36 @@ public static class SheetsBench
         foreach (var r in rows)
             Console.WriteLine(string.Create(c,
                 $"| {r.N} | {r.Unknowns} | {r.Levels} | {r.SetupSeconds:F3} | {r.SolveSeconds:F3} | {r.Iterations} | {r.Residual:E1} | {(r.SetupSeconds + r.SolveSeconds) / r.Unknowns * 1e6:F2} | {r.RetainedBytes / (double)r.Unknowns:F0} | {r.OperatorAndMultigridBytes / (double)r.Unknowns:F0} | {r.PeakGrowthBytes / 1e6:F0} | {r.LossW:G6} |"));
+        Console.WriteLine(jitLeft);
         return 0;
+    }
+
+    /// <summary>Warm-up rounds at most (a round: the small solves once). On this plate the count of compiled methods stops growing after 2-4 rounds.</summary>
+    private const int WarmUpRounds = 8;
+
+    /// <summary>
+    /// The warm-up's plates: 64² and 100², the smallest of the bench's plate with a level below the first two coarse ones and above the
+    /// coarsest (the levels whose sweeps come in symmetric pairs), so every kernel of the timed solves has run.
+    /// </summary>
+    private static readonly int[] WarmUpSizes = [64, 100];
+
+    /// <summary>
+    /// Solves the small plates of <see cref="WarmUpSizes"/> with <paramref name="solve"/>, round after round until one compiles no new method
+    /// (<see cref="JitInfo.GetCompiledMethodCount"/>) after a pause longer than the runtime's tiering delay (100 ms: a method called 30
+    /// times is recompiled optimised in the background once no new method has been compiled for that long; common practice, no source),
+    /// at most <see cref="WarmUpRounds"/> rounds. One 64² solve alone left the grid and region builders to tier-0 code and on-stack
+    /// replacement inside the timed 128² and 256² runs (128²: 14 ms CPU against 9 ms with tiering off, 2026-12-03), and never ran the
+    /// symmetric sweeps: a process pays that once, on its first plates.
+    /// </summary>
+    internal static void WarmUp(Action<int> solve)
+    {
+        for (int r = 0; r < WarmUpRounds; r++)
+        {
+            long compiled = JitInfo.GetCompiledMethodCount();
+            foreach (int n in WarmUpSizes) solve(n);
+            Thread.Sleep(250);
+            if (r > 0 && JitInfo.GetCompiledMethodCount() == compiled) return;
+        }
     }
 
     private sealed record Row(int N, int Unknowns, double SetupSeconds, double SolveSeconds, int Iterations, double Residual, long RetainedBytes, long OperatorAndMultigridBytes, int Levels, long PeakGrowthBytes, double LossW);
