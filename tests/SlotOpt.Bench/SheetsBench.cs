@@ -59,8 +59,11 @@ public static class SheetsBench
         return 0;
     }
 
-    /// <summary>Warm-up rounds at most (a round: the small solves once). On this plate the count of compiled methods stops growing after 2-4 rounds.</summary>
-    private const int WarmUpRounds = 8;
+    /// <summary>Warm-up rounds at most. On this plate the count of compiled methods stops growing after 4-6 rounds.</summary>
+    private const int WarmUpRounds = 10;
+
+    /// <summary>Solves of each warm-up plate a round: three rounds of call counting take a method called once a solve past the runtime's 30 calls.</summary>
+    private const int SolvesPerRound = 10;
 
     /// <summary>
     /// The warm-up's plates: 64² and 100², the smallest of the bench's plate with a level below the first two coarse ones and above the
@@ -69,19 +72,21 @@ public static class SheetsBench
     private static readonly int[] WarmUpSizes = [64, 100];
 
     /// <summary>
-    /// Solves the small plates of <see cref="WarmUpSizes"/> with <paramref name="solve"/>, round after round until one compiles no new method
-    /// (<see cref="JitInfo.GetCompiledMethodCount"/>) after a pause longer than the runtime's tiering delay (100 ms: a method called 30
-    /// times is recompiled optimised in the background once no new method has been compiled for that long; common practice, no source),
-    /// at most <see cref="WarmUpRounds"/> rounds. One 64² solve alone left the grid and region builders to tier-0 code and on-stack
-    /// replacement inside the timed 128² and 256² runs (128²: 14 ms CPU against 9 ms with tiering off, 2026-12-03), and never ran the
-    /// symmetric sweeps: a process pays that once, on its first plates.
+    /// Solves the small plates of <see cref="WarmUpSizes"/> with <paramref name="solve"/>, <see cref="SolvesPerRound"/> times a round, round
+    /// after round until one compiles no new method (<see cref="JitInfo.GetCompiledMethodCount"/>) after a pause longer than the runtime's
+    /// tiering delay (100 ms: calls are counted only once no method has been compiled for that long, and a method called 30 times is then
+    /// recompiled optimised in the background; common practice, no source), at most <see cref="WarmUpRounds"/> rounds. One 64² solve alone
+    /// left the grid and region builders to tier-0 code and on-stack replacement inside the timed 128² and 256² runs (128²: 14 ms CPU against
+    /// 9 ms with tiering off, 2026-12-03) and never ran the symmetric sweeps; one solve a round stopped after two rounds with a few hundred
+    /// small methods still to be recompiled inside the timed sizes: a process pays that once, on its first plates.
     /// </summary>
     internal static void WarmUp(Action<int> solve)
     {
         for (int r = 0; r < WarmUpRounds; r++)
         {
             long compiled = JitInfo.GetCompiledMethodCount();
-            foreach (int n in WarmUpSizes) solve(n);
+            for (int k = 0; k < SolvesPerRound; k++)
+                foreach (int n in WarmUpSizes) solve(n);
             Thread.Sleep(250);
             if (r > 0 && JitInfo.GetCompiledMethodCount() == compiled) return;
         }
