@@ -145,7 +145,7 @@ internal static class BlackBoxCoarsening
     /// (each dot product spelled out over the fine nodes the two supports share). The basis values are read straight from the
     /// prolongation arrays (see <see cref="Basis"/>), never gathered into a table. The coarse nodes away from the lattice's edges
     /// take <see cref="InteriorFromFivePoint"/> or <see cref="InteriorFromNinePoint"/>, the same sums without the loop (the first two
-    /// coarsenings are most of the setup), four nodes at a time where the processor has AVX (<see cref="InteriorFromFivePointVector"/>). One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
+    /// coarsenings are most of the setup), four nodes at a time where the processor has AVX (<see cref="InteriorFromFivePointVector"/>, <see cref="InteriorFromNinePointVector"/>). One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
     /// row J's coarse operator, while the fine rows they all read (2J - 2 to 2J + 3) are in cache.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -163,7 +163,7 @@ internal static class BlackBoxCoarsening
         bool nine = stencil.NinePoint;
         // the last coarse column whose support lies inside the fine lattice and which has an east neighbour: the vector steps' end
         int lastVectorColumn = Math.Min((fnx - 2) / 2, ncx - 2);
-        int width = Avx.IsSupported && !nine ? Vector256<double>.Count : int.MaxValue / 4;   // coarse nodes a vector step covers (none without AVX)
+        int width = Avx.IsSupported ? Vector256<double>.Count : int.MaxValue / 4;   // coarse nodes a vector step covers (none without AVX)
         LineWeights(stencil, c, fny, 0);
         for (int J = 0; J < ncy; J++)
         {
@@ -176,7 +176,8 @@ internal static class BlackBoxCoarsening
                 int p0 = 2 * J * fnx + 2 * I;
                 if (innerRow && I > 0 && I + width - 1 <= lastVectorColumn)
                 {
-                    InteriorFromFivePointVector(stencil, weights, k, p0, ncx, cc, cw, cs, csw, cse);
+                    if (nine) InteriorFromNinePointVector(stencil, weights, k, p0, ncx, cc, cw, cs, csw, cse);
+                    else InteriorFromFivePointVector(stencil, weights, k, p0, ncx, cc, cw, cs, csw, cse);
                     I += width - 1;
                     continue;
                 }
@@ -379,6 +380,64 @@ internal static class BlackBoxCoarsening
             + Widen(ref w.YLow, k - ncx) * a7 + Widen(ref w.CentreSW, k - ncx) * a8).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(cs), (nuint)k);
         (Widen(ref w.XLow, k - ncx - 1) * a1 + Widen(ref w.YLow, k - ncx - 1) * a5 + Widen(ref w.CentreSW, k - ncx - 1) * a6).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(csw), (nuint)k);
         (Widen(ref w.XHigh, k - ncx) * a3 + Widen(ref w.CentreSE, k - ncx) * a8 + Widen(ref w.YLow, k - ncx + 1) * a9).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(cse), (nuint)k);
+    }
+
+    /// <summary><see cref="InteriorFromNinePoint"/> for four coarse nodes of one row, as <see cref="InteriorFromFivePointVector"/> does it for a 5-point level.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void InteriorFromNinePointVector(in Stencil stencil, in Weights w, int k, int p0, int ncx, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
+    {
+        int fnx = stencil.Nx;
+        var v0 = Widen(ref w.CentreNE, k - ncx - 1); var v1 = Widen(ref w.YHigh, k - ncx); var v2 = Widen(ref w.CentreNW, k - ncx);
+        var v3 = Widen(ref w.XHigh, k - 1); var v5 = Widen(ref w.XLow, k);
+        var v6 = Widen(ref w.CentreSE, k - 1); var v7 = Widen(ref w.YLow, k); var v8 = Widen(ref w.CentreSW, k);
+        int q0 = p0 - fnx, q1 = p0, q2 = p0 + fnx;
+        var (C0, C1) = Pair(ref stencil.Centre, q0 - 1); var (C2, _) = Pair(ref stencil.Centre, q0 + 1);
+        var (C3, C4) = Pair(ref stencil.Centre, q1 - 1); var (C5, _) = Pair(ref stencil.Centre, q1 + 1);
+        var (C6, C7) = Pair(ref stencil.Centre, q2 - 1); var (C8, _) = Pair(ref stencil.Centre, q2 + 1);
+        var (W0, W1) = Pair(ref stencil.West, q0 - 1); var (W2, E2) = Pair(ref stencil.West, q0 + 1);
+        var (W3, W4) = Pair(ref stencil.West, q1 - 1); var (W5, _) = Pair(ref stencil.West, q1 + 1);
+        var (W6, W7) = Pair(ref stencil.West, q2 - 1); var (W8, _) = Pair(ref stencil.West, q2 + 1);
+        Vector256<double> E0 = W1, E1 = W2, E3 = W4, E4 = W5, E6 = W7, E7 = W8;
+        var (S0, S1) = Pair(ref stencil.South, q0 - 1); var (S2, _) = Pair(ref stencil.South, q0 + 1);
+        var (S3, S4) = Pair(ref stencil.South, q1 - 1); var (S5, _) = Pair(ref stencil.South, q1 + 1);
+        var (S6, S7) = Pair(ref stencil.South, q2 - 1); var (S8, _) = Pair(ref stencil.South, q2 + 1);
+        Vector256<double> N0 = S3, N1 = S4, N2 = S5, N3 = S6, N4 = S7, N5 = S8;
+        // south-west couplings of support rows 0 to 2; the north-east ones are the south-west ones a row up and a column right
+        var (SW0, SW1) = Pair(ref stencil.SouthWest, q0 - 1); var (SW2, _) = Pair(ref stencil.SouthWest, q0 + 1);
+        var (SW3, SW4) = Pair(ref stencil.SouthWest, q1 - 1); var (SW5, _) = Pair(ref stencil.SouthWest, q1 + 1);
+        var (SW6, SW7) = Pair(ref stencil.SouthWest, q2 - 1); var (SW8, _) = Pair(ref stencil.SouthWest, q2 + 1);
+        Vector256<double> NE0 = SW4, NE1 = SW5, NE3 = SW7, NE4 = SW8;
+        // south-east couplings; the north-west ones are the south-east ones a row up and a column left (column 2I - 2 for support column 0)
+        var (SE0, SE1) = Pair(ref stencil.SouthEast, q0 - 1); var (SE2, _) = Pair(ref stencil.SouthEast, q0 + 1);
+        var (NW0, SE3) = Pair(ref stencil.SouthEast, q1 - 2); var (SE4, SE5) = Pair(ref stencil.SouthEast, q1);
+        var (NW3, SE6) = Pair(ref stencil.SouthEast, q2 - 2); var (SE7, _) = Pair(ref stencil.SouthEast, q2);
+        Vector256<double> NW1 = SE3, NW2 = SE4, NW4 = SE6, NW5 = SE7;
+        // as in InteriorFromNinePoint, each term with v4 = 1 is its other factor
+        var a0 = SW0 * v0;
+        var a1 = S0 * v0 + SW1 * v1;
+        var a2 = SE0 * v0 + S1 * v1 + SW2 * v2;
+        var a3 = SE1 * v1 + S2 * v2;
+        var a4 = SE2 * v2;
+        var a5 = W0 * v0 + SW3 * v3;
+        var a6 = C0 * v0 + W1 * v1 + S3 * v3 + SW4;
+        var a7 = E0 * v0 + C1 * v1 + W2 * v2 + SE3 * v3 + S4 + SW5 * v5;
+        var a8 = E1 * v1 + C2 * v2 + SE4 + S5 * v5;
+        var a9 = E2 * v2 + SE5 * v5;
+        var a10 = NW0 * v0 + W3 * v3 + SW6 * v6;
+        var a11 = N0 * v0 + NW1 * v1 + C3 * v3 + W4 + S6 * v6 + SW7 * v7;
+        var a12 = NE0 * v0 + N1 * v1 + NW2 * v2 + E3 * v3 + C4 + W5 * v5 + SE6 * v6 + S7 * v7 + SW8 * v8;
+        var a13 = NE1 * v1 + N2 * v2 + E4 + C5 * v5 + SE7 * v7 + S8 * v8;
+        var a15 = NW3 * v3 + W6 * v6;
+        var a16 = N3 * v3 + NW4 + C6 * v6 + W7 * v7;
+        var a17 = NE3 * v3 + N4 + NW5 * v5 + E6 * v6 + C7 * v7 + W8 * v8;
+        var a18 = NE4 + N5 * v5 + E7 * v7 + C8 * v8;
+        (v0 * a6 + v1 * a7 + v2 * a8 + v3 * a11 + a12 + v5 * a13 + v6 * a16 + v7 * a17 + v8 * a18).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(cc), (nuint)k);
+        (Widen(ref w.YHigh, k - 1 - ncx) * a5 + Widen(ref w.CentreNW, k - 1 - ncx) * a6 + a10 + Widen(ref w.XLow, k - 1) * a11
+            + Widen(ref w.YLow, k - 1) * a15 + Widen(ref w.CentreSW, k - 1) * a16).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(cw), (nuint)k);
+        (Widen(ref w.XHigh, k - ncx - 1) * a1 + a2 + Widen(ref w.XLow, k - ncx) * a3 + Widen(ref w.CentreSE, k - ncx - 1) * a6
+            + Widen(ref w.YLow, k - ncx) * a7 + Widen(ref w.CentreSW, k - ncx) * a8).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(cs), (nuint)k);
+        (a0 + Widen(ref w.XLow, k - ncx - 1) * a1 + Widen(ref w.YLow, k - ncx - 1) * a5 + Widen(ref w.CentreSW, k - ncx - 1) * a6).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(csw), (nuint)k);
+        (Widen(ref w.XHigh, k - ncx) * a3 + a4 + Widen(ref w.CentreSE, k - ncx) * a8 + Widen(ref w.YLow, k - ncx + 1) * a9).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(cse), (nuint)k);
     }
 
     /// <summary>The four single-precision weights from index i, widened to double (exactly).</summary>
