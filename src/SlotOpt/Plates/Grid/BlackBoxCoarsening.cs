@@ -86,9 +86,17 @@ internal static class BlackBoxCoarsening
     {
         int ncx = c.Nx, ncy = c.Ny, fnx = stencil.Nx;
         var xLow = c.XLow!; var xHigh = c.XHigh!; var yLow = c.YLow!; var yHigh = c.YHigh!;
+        // four coarse nodes a vector step where both their lines and every weight's far node lie on the lattice
+        int lastVector = Avx.IsSupported && 2 * J + 1 < fny && J + 1 < ncy ? Math.Min((fnx - 2) / 2, ncx - 2) : -1;
         for (int I = 0; I < ncx; I++)
         {
             int k = J * ncx + I;
+            if (I + Vector256<double>.Count - 1 <= lastVector)
+            {
+                LineWeightsVector(stencil, c, k, 2 * J * fnx + 2 * I + 1, (2 * J + 1) * fnx + 2 * I);
+                I += Vector256<double>.Count - 1;
+                continue;
+            }
             int i = 2 * I + 1, j = 2 * J;
             if (i < fnx)
             {
@@ -118,11 +126,18 @@ internal static class BlackBoxCoarsening
         int j = 2 * J + 1;
         if (j >= fny) return;
         bool north = J + 1 < ncy;
+        int lastVector = Avx.IsSupported && north ? Math.Min((fnx - 2) / 2, ncx - 2) : -1;   // as in LineWeights
         for (int I = 0; I < ncx; I++)
         {
             int i = 2 * I + 1;
             if (i >= fnx) continue;
             int k = J * ncx + I;
+            if (I + Vector256<double>.Count - 1 <= lastVector)
+            {
+                CentreWeightsVector(stencil, c, k, j * fnx + i);
+                I += Vector256<double>.Count - 1;
+                continue;
+            }
             bool east = I + 1 < ncx;
             var a = new Row(stencil, j * fnx + i);
             // the x/y-line neighbours' weights towards each corner (0 where that line node or corner is off the lattice)
@@ -136,6 +151,75 @@ internal static class BlackBoxCoarsening
             cNW[k] = north ? (float)(-(a.NW + a.W * nWestLine + a.N * nWest) * inverse) : 0;
             cNE[k] = east && north ? (float)(-(a.NE + a.E * eNorthLine + a.N * nEast) * inverse) : 0;
         }
+    }
+
+    /// <summary>
+    /// The rows of the four fine nodes p, p + 2, p + 4, p + 6 as vectors (a lane a node; the corners 0 on a 5-point level, as
+    /// <see cref="Row"/> has them), for the weights' vector steps.
+    /// </summary>
+    private readonly struct FourRows
+    {
+        public readonly Vector256<double> C, W, E, S, N, SW, SE, NW, NE;
+
+        [MethodImpl(MethodImplOptions.AggressiveInlining)]
+        public FourRows(in Stencil f, int p)
+        {
+            int nx = f.Nx;
+            (C, _) = Pair(ref f.Centre, p);
+            (W, E) = Pair(ref f.West, p);
+            (S, _) = Pair(ref f.South, p);
+            (N, _) = Pair(ref f.South, p + nx);
+            if (f.NinePoint)
+            {
+                (SW, _) = Pair(ref f.SouthWest, p); (NE, _) = Pair(ref f.SouthWest, p + nx + 1);
+                (SE, _) = Pair(ref f.SouthEast, p); (NW, _) = Pair(ref f.SouthEast, p + nx - 1);
+            }
+            else { SW = default; NE = default; SE = default; NW = default; }
+        }
+    }
+
+    /// <summary><see cref="Inverse"/> lane by lane.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static Vector256<double> Inverse(Vector256<double> denominator) =>
+        Vector256.ConditionalSelect(Vector256.GreaterThan(denominator, Vector256<double>.Zero), Vector256<double>.One / denominator, Vector256<double>.Zero);
+
+    /// <summary>value rounded to single precision (as the scalar cast rounds it) into a[i .. i + 3].</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void StoreSingle(Vector256<double> value, float[] a, int i) =>
+        Avx.ConvertToVector128Single(value).StoreUnsafe(ref MemoryMarshal.GetArrayDataReference(a), (nuint)i);
+
+    /// <summary>
+    /// <see cref="LineWeights"/> for the four coarse nodes k .. k + 3 of a row whose x-line fine nodes start at xNode and y-line ones at
+    /// yNode (each with both neighbours on the lattice): the same sums and products in the same order, each lane rounded as the scalar form.
+    /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void LineWeightsVector(in Stencil stencil, StencilLevel c, int k, int xNode, int yNode)
+    {
+        var a = new FourRows(stencil, xNode);
+        var inverse = Inverse(a.C + a.S + a.N);
+        StoreSingle(-(a.W + a.SW + a.NW) * inverse, c.XLow!, k);
+        StoreSingle(-(a.E + a.SE + a.NE) * inverse, c.XHigh!, k);
+        a = new FourRows(stencil, yNode);
+        inverse = Inverse(a.C + a.W + a.E);
+        StoreSingle(-(a.S + a.SW + a.SE) * inverse, c.YLow!, k);
+        StoreSingle(-(a.N + a.NW + a.NE) * inverse, c.YHigh!, k);
+    }
+
+    /// <summary><see cref="CentreWeights"/> for the four coarse nodes k .. k + 3 of a row with a row above, their centre fine nodes from node.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static void CentreWeightsVector(in Stencil stencil, StencilLevel c, int k, int node)
+    {
+        var a = new FourRows(stencil, node);
+        int ncx = c.Nx;
+        var wSouthLine = Widen(ref MemoryMarshal.GetArrayDataReference(c.YLow!), k); var nWestLine = Widen(ref MemoryMarshal.GetArrayDataReference(c.YHigh!), k);
+        var eSouthLine = Widen(ref MemoryMarshal.GetArrayDataReference(c.YLow!), k + 1); var eNorthLine = Widen(ref MemoryMarshal.GetArrayDataReference(c.YHigh!), k + 1);
+        var sWestLine = Widen(ref MemoryMarshal.GetArrayDataReference(c.XLow!), k); var sEastLine = Widen(ref MemoryMarshal.GetArrayDataReference(c.XHigh!), k);
+        var nWest = Widen(ref MemoryMarshal.GetArrayDataReference(c.XLow!), k + ncx); var nEast = Widen(ref MemoryMarshal.GetArrayDataReference(c.XHigh!), k + ncx);
+        var inverse = Inverse(a.C);
+        StoreSingle(-(a.SW + a.W * wSouthLine + a.S * sWestLine) * inverse, c.CentreSW!, k);
+        StoreSingle(-(a.SE + a.E * eSouthLine + a.S * sEastLine) * inverse, c.CentreSE!, k);
+        StoreSingle(-(a.NW + a.W * nWestLine + a.N * nWest) * inverse, c.CentreNW!, k);
+        StoreSingle(-(a.NE + a.E * eNorthLine + a.N * nEast) * inverse, c.CentreNE!, k);
     }
 
     /// <summary>
