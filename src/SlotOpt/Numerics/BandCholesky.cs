@@ -36,6 +36,7 @@ internal sealed class BandCholesky
             }
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private double At(int i, int j) => j < i - _w ? 0 : _l[i * (_w + 1) + j - i + _w];
 
     public long Bytes => 8L * _l.Length;

@@ -39,6 +39,7 @@ internal static class BlackBoxCoarsening
     }
 
     /// <summary>1 / d, or 0 for a node with no positive denominator (then every weight through it is 0): one division for the two or four weights that share d.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static double Inverse(double denominator) => denominator > 0 ? 1 / denominator : 0;
 
     /// <summary>The 9 entries of node p's row (0 for the corners of a 5-point level and off the lattice).</summary>
@@ -229,7 +230,9 @@ internal static class BlackBoxCoarsening
     /// (each dot product spelled out over the fine nodes the two supports share). The basis values are read straight from the
     /// prolongation arrays (see <see cref="Basis"/>), never gathered into a table. The coarse nodes away from the lattice's edges
     /// take <see cref="InteriorFromFivePoint"/> or <see cref="InteriorFromNinePoint"/>, the same sums without the loop (the first two
-    /// coarsenings are most of the setup), four nodes at a time where the processor has AVX (<see cref="InteriorFromFivePointVector"/>, <see cref="InteriorFromNinePointVector"/>). One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
+    /// coarsenings are most of the setup), four nodes at a time where the processor has AVX (<see cref="InteriorFromFivePointVector"/>, <see cref="InteriorFromNinePointVector"/>).
+    /// Those are too large for the caller's inlining budget: they are calls, compiled optimised on their first one (as tier-0 code they
+    /// ran a process's first plates several times slower: the 128² set-up 2.2 ms against 0.95 ms once tiered up). One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
     /// row J's coarse operator, while the fine rows they all read (2J - 2 to 2J + 3) are in cache.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -337,6 +340,7 @@ internal static class BlackBoxCoarsening
     /// 1 at the node itself, the line and centre weights of the fine nodes around it; 0 off the lattice (the prolongation arrays hold
     /// 0 there, so only the low edges I = 0, J = 0 need a test).
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void Basis(in Weights w, int k, int I, int J, int ncx, Span<double> phi)
     {
         bool west = I > 0, south = J > 0;
@@ -356,7 +360,7 @@ internal static class BlackBoxCoarsening
     /// summed in the same order as the patch loop (so the same bits: a term with a 0 factor left out adds exactly 0, one with the
     /// basis value 1 is the other factor), the patch held in locals and A's corners (0 on a 5-point level) left out.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void InteriorFromFivePoint(in Stencil stencil, in Weights w, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
     {
         int fnx = stencil.Nx;
@@ -419,7 +423,7 @@ internal static class BlackBoxCoarsening
     /// weights widened from single precision, and every sum formed with the scalar form's products in its order (no fused multiply-add), so
     /// each lane rounds as <see cref="InteriorFromFivePoint"/> does and the coarse operator is the same to the bit.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void InteriorFromFivePointVector(in Stencil stencil, in Weights w, int k, int p0, int ncx, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
     {
         int fnx = stencil.Nx;
@@ -467,7 +471,7 @@ internal static class BlackBoxCoarsening
     }
 
     /// <summary><see cref="InteriorFromNinePoint"/> for four coarse nodes of one row, as <see cref="InteriorFromFivePointVector"/> does it for a 5-point level.</summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void InteriorFromNinePointVector(in Stencil stencil, in Weights w, int k, int p0, int ncx, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
     {
         int fnx = stencil.Nx;
@@ -543,7 +547,7 @@ internal static class BlackBoxCoarsening
     /// <summary>
     /// <see cref="InteriorFromFivePoint"/> below a 9-point level: the same sums as the patch loop, in its order, with A's corners.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void InteriorFromNinePoint(in Stencil stencil, in Weights w, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
     {
         int fnx = stencil.Nx;
