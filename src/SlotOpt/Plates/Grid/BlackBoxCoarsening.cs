@@ -231,8 +231,9 @@ internal static class BlackBoxCoarsening
     /// prolongation arrays (see <see cref="Basis"/>), never gathered into a table. The coarse nodes away from the lattice's edges
     /// take <see cref="InteriorFromFivePoint"/> or <see cref="InteriorFromNinePoint"/>, the same sums without the loop (the first two
     /// coarsenings are most of the setup), four nodes at a time where the processor has AVX (<see cref="InteriorFromFivePointVector"/>, <see cref="InteriorFromNinePointVector"/>).
-    /// Those are too large for the caller's inlining budget: they are calls, compiled optimised on their first one (as tier-0 code they
-    /// ran a process's first plates several times slower: the 128² set-up 2.2 ms against 0.95 ms once tiered up). One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
+    /// The vector ones are too large for the caller's inlining budget: they are calls, compiled optimised on their first one (as tier-0
+    /// code they ran a process's second 128² plate in 36-39 ms against 15-18 for the scalar form's, 2026-12-03); the scalar ones, which
+    /// only take the few nodes left at a row's end, are left to tiered compilation. One pass over the coarse rows: row J + 1's line weights and row J's centre weights, then
     /// row J's coarse operator, while the fine rows they all read (2J - 2 to 2J + 3) are in cache.
     /// </summary>
     [MethodImpl(MethodImplOptions.AggressiveOptimization)]
@@ -360,7 +361,7 @@ internal static class BlackBoxCoarsening
     /// summed in the same order as the patch loop (so the same bits: a term with a 0 factor left out adds exactly 0, one with the
     /// basis value 1 is the other factor), the patch held in locals and A's corners (0 on a 5-point level) left out.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static void InteriorFromFivePoint(in Stencil stencil, in Weights w, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
     {
         int fnx = stencil.Nx;
@@ -547,7 +548,7 @@ internal static class BlackBoxCoarsening
     /// <summary>
     /// <see cref="InteriorFromFivePoint"/> below a 9-point level: the same sums as the patch loop, in its order, with A's corners.
     /// </summary>
-    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static void InteriorFromNinePoint(in Stencil stencil, in Weights w, int k, int p0, int ncx, int I, double[] cc, double[] cw, double[] cs, double[] csw, double[] cse)
     {
         int fnx = stencil.Nx;
