@@ -35,7 +35,7 @@ public static class PeerBench
         int repeats = int.Parse(Option(args, "--repeats") ?? "3", CultureInfo.InvariantCulture);
         using var peer = PeerProcess.TryStart(out string whyNot);
         if (peer is null) Console.WriteLine($"peer columns left out: {whyNot}");
-        SlotOptOnce(64);   // JIT warm-up
+        SheetsBench.WarmUp(n => { SlotOptOnce(n); SlotOptAssembledOnce(n); });
         var c = CultureInfo.InvariantCulture;
         Console.WriteLine($"load average at start: {LoadAverage()}");
         Console.WriteLine("| N | unknowns | SlotOpt assembled s | SlotOpt end to end s | SlotOpt iterations | hypre BoomerAMG + CG s | hypre iterations | PETSc GAMG + CG s | GAMG iterations | hypre / SlotOpt assembled | hypre / SlotOpt end to end | GAMG / SlotOpt assembled | SlotOpt assembled CPU s | SlotOpt end to end CPU s | hypre CPU s | GAMG CPU s | hypre / SlotOpt assembled CPU | hypre / SlotOpt end to end CPU | GAMG / SlotOpt assembled CPU |");

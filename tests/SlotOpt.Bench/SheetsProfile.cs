@@ -18,7 +18,7 @@ public static class SheetsProfile
 {
     public static int Run(int[] sizes)
     {
-        Once(64);
+        SheetsBench.WarmUp(n => Once(n));
         Console.WriteLine("| N | grid s | regions s | multigrid s | rhs s | lattice CG s | iterations | CPU s (all before) | generic CG s | of which preconditioner s | operator s | vector work s | iterations |");
         Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|---|---|---|");
         foreach (int n in sizes)

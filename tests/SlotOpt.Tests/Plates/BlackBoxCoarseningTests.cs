@@ -12,8 +12,9 @@ namespace SlotOpt.Tests.Plates;
 public class BlackBoxCoarseningTests
 {
     // odd and even sides; and lattices of few rows or columns, where the coarsening's row pass (prolongation one coarse row ahead of
-    // the Galerkin product) starts, ends and meets the edges within a row or two
-    public static TheoryData<int, int> Sides => new() { { 9, 7 }, { 8, 6 }, { 11, 10 }, { 12, 5 }, { 5, 13 }, { 4, 4 } };
+    // the Galerkin product) starts, ends and meets the edges within a row or two; rows wide enough for the vector steps (four coarse
+    // nodes a step) in both coarsenings, with scalar nodes left over at the row's end (26: 13 coarse columns, 11 inner; 21: 11, 9)
+    public static TheoryData<int, int> Sides => new() { { 9, 7 }, { 8, 6 }, { 11, 10 }, { 12, 5 }, { 5, 13 }, { 4, 4 }, { 26, 11 }, { 21, 9 } };
 
     private static StencilLevel RandomFivePoint(int nx, int ny, int seed)
     {

@@ -71,7 +71,9 @@ public sealed class NodeRegions
         return new NodeRegions(nodeUnknown, next, merged.ToArray());
     }
 
-    /// <summary>Merges the 4-connected chain of nodes nearest the segment (end points rounded to the nearest node).</summary>
+    /// <summary>Merges the 4-connected chain of nodes nearest the segment (end points rounded to the nearest node); compiled optimised on its
+    /// first call (a call a slot or cut: tiered compilation would leave a process's first plates to tier-0 code).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static void MergeAlong(CutLine cut, CellLattice l, UnionFind sets)
     {
         int Ix(double x) => Math.Clamp((int)Math.Round((x - l.X0) / l.Hx), 0, l.Nx);

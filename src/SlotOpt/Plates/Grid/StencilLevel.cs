@@ -104,7 +104,9 @@ internal sealed class StencilLevel
         SouthWest = null; SouthEast = null;
         if (!keepDoubleCouplings) { West = []; South = []; }
 
-        // scale v rounded to single precision, Vector<float>.Count entries at a time (each rounded as the scalar cast rounds it)
+        // scale v rounded to single precision, Vector<float>.Count entries at a time (each rounded as the scalar cast rounds it); a local
+        // function does not take its method's attribute, and a few calls a plate leave it to tier-0 code and on-stack replacement
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         static float[] Single(double[] v, double scale, int stored)
         {
             var s = new float[stored];
