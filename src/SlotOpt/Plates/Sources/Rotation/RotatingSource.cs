@@ -90,7 +90,22 @@ public abstract class RotatingSource
         int nx = l.NodesX, ny = l.NodesY;
         var vertical = new double[(nx + 1) * ny];     // along x = x_k - hx/2, for node row j
         var horizontal = new double[nx * (ny + 1)];   // along y = y_k - hy/2, for node column i
+        // a field that cannot be evaluated (NumericalFailureException) reaches the caller as itself, the first row's, whatever the thread count
+        var failures = new NumericalFailureException?[ny + 1];
         Parallel.For(0, ny + 1, new ParallelOptions { MaxDegreeOfParallelism = threads }, j =>
+        {
+            try { EdgeRow(j); }
+            catch (NumericalFailureException e) { failures[j] = e; }
+        });
+        if (Array.Find(failures, f => f is not null) is { } failure) throw failure;
+        var unit = new double[nx * ny];
+        for (int j = 0; j < ny; j++)
+            for (int i = 0; i < nx; i++)
+                unit[j * nx + i] = horizontal[(j + 1) * nx + i] - horizontal[j * nx + i] - vertical[j * (nx + 1) + i + 1] + vertical[j * (nx + 1) + i];
+        return unit;
+
+        // row j's vertical edges (j < NodesY) and its lower horizontal edges: each entry written by one worker
+        void EdgeRow(int j)
         {
             double y0 = l.NodeY(j) - l.Hy / 2 - Axis.Y;    // row j's lower horizontal edge line, and the start of its vertical edges
             if (j < ny)
@@ -100,11 +115,6 @@ public abstract class RotatingSource
                 double x0 = l.NodeX(i) - l.Hx / 2 - Axis.X;
                 horizontal[j * nx + i] = turned.MomentAlongX(y0, x0, x0 + l.Hx);
             }
-        });
-        var unit = new double[nx * ny];
-        for (int j = 0; j < ny; j++)
-            for (int i = 0; i < nx; i++)
-                unit[j * nx + i] = horizontal[(j + 1) * nx + i] - horizontal[j * nx + i] - vertical[j * (nx + 1) + i + 1] + vertical[j * (nx + 1) + i];
-        return unit;
+        }
     }
 }
