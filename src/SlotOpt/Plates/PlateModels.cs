@@ -91,7 +91,7 @@ public static class PlateModels
     /// Beyond the thin sheet the own-field answer comes with a warning (no layered rotating solver).
     /// </summary>
     /// <param name="initialGuess">u = psi / G at the first angle for the own-field solve (<see cref="DiscSolution.OwnFieldU"/> of a nearby speed); ignored resistance-limited</param>
-    /// <param name="fftThreads">FFT workers of the reaction operator built here when none is given (the run's --threads; answers are the same for any count)</param>
+    /// <param name="fftThreads">FFT workers of the reaction operator built here when none is given, and of the source's edge moments (the run's --threads where one disc is solved at a time; answers are the same for any count)</param>
     public static DiscSolution SolveDisc(SheetModel model, RotatingSource source, ConductingSheet conductor, IReadOnlyList<double> anglesRad,
         double accuracy = ReactionModelChoice.DefaultAccuracy, ReactionOperator? reaction = null, ConvergenceCriterion? criterion = null, SheetModelKind? forcedKind = null,
         double[]? initialGuess = null, int fftThreads = 1)
@@ -103,11 +103,11 @@ public static class PlateModels
         var notes = new List<string> { choice.Reason };
         if (choice.Kind == SheetModelKind.ResistanceLimited)
         {
-            var low = DiscTorque.Solve(model, source, anglesRad, criterion);
+            var low = DiscTorque.Solve(model, source, anglesRad, criterion, fftThreads);
             var loss = low.LossPerSiemensW.Select(p => g * p).ToArray();       // P = G P_unit (resistance-limited scaling)
             return new DiscSolution(choice, omega, anglesRad.ToArray(), loss, loss, notes, low.Iterations, low.MaxRelativeResidual, low, null);
         }
-        var s = DiscReaction.Solve(reaction ?? ReactionOperator.Build(model, fftThreads), source, conductor, anglesRad, criterion, initialGuess);
+        var s = DiscReaction.Solve(reaction ?? ReactionOperator.Build(model, fftThreads), source, conductor, anglesRad, criterion, initialGuess, fftThreads);
         if (choice.Kind == SheetModelKind.BeyondThinSheet) notes.Add("thick against the moving skin depth: the thin-sheet answer is outside its validity (no layered rotating solver)");
         return new DiscSolution(choice, omega, s.AnglesRad, s.LossW, s.ResistanceLimitedLossW, notes, s.Iterations, s.MaxRelativeResidual, s.ResistanceLimited, s.FirstU);
     }

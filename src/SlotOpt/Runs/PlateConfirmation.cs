@@ -93,7 +93,7 @@ public sealed record PlateConfirmation(
             chosen.TorqueNm ?? throw new InvalidOperationException($"{part.Name}: the chosen disc carries no torque"));
         var notes = new List<string>();
         var gridError = DiscretisationError.Estimate(model, number.LossW,
-            other => new TurningDiscModel(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, other), threads).Evaluate(conductor).LossW,
+            other => new TurningDiscModel(part, PlateOptions.SolveTurning(turning, choice.Slots, solved.Pattern, solved.Geometry!, other, threads), threads).Evaluate(conductor).LossW,
             cell => geometries.Limits.RefusesGrid(model, cell));
         if (gridError is null) notes.Add("no grid error estimate: the grid cannot be coarsened to twice its cell");
         else if (gridError.IsLarge) notes.Add(gridError.Warning);

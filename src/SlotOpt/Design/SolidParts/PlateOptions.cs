@@ -169,11 +169,12 @@ public static class PlateOptions
     /// <summary>
     /// A disc under its turning magnets at unit sheet conductance (<see cref="DiscTorque"/>, resistance-limited): the mean loss over the disc's
     /// angles, and as Peak the angle with the most loss (its travel offset the arc the magnets' centre moved, as `slotopt plate` reports it).
+    /// threads: workers for the source's edge moments, where the caller solves one disc at a time (the screen solves geometries in parallel: 1 there).
     /// </summary>
-    public static SolvedGeometry SolveTurning(PlateExcitation.Turning turning, SlotChoice? slots, SlotPattern? pattern, PlateGeometry geometry, SheetModel model)
+    public static SolvedGeometry SolveTurning(PlateExcitation.Turning turning, SlotChoice? slots, SlotPattern? pattern, PlateGeometry geometry, SheetModel model, int threads = 1)
     {
         var angles = turning.Angles(slots?.Radial);
-        var disc = DiscTorque.Solve(model, turning.Source, angles);
+        var disc = DiscTorque.Solve(model, turning.Source, angles, threads: threads);
         var peak = new UnitConductanceSolution(model, SourceKind.Moving, disc.PeakPsiPerSiemens, null, disc.LossPerSiemensW[disc.PeakIndex], 0, turning.PathSpeedMPerS,
             angles[disc.PeakIndex] * turning.Source.SourceRadiusM, disc.Iterations, disc.MaxRelativeResidual, []);
         return new SolvedGeometry(slots, pattern, geometry, disc.LossPerSiemensW.Average(), peak, disc.Iterations, model.Unknowns, null);

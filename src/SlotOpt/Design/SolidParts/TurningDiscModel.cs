@@ -27,7 +27,7 @@ public sealed class TurningDiscModel
     private ReactionOperator? _reaction;
 
     /// <param name="solved">the disc geometry solved at unit conductance (<see cref="PlateOptions.Solve"/>)</param>
-    /// <param name="fftThreads">FFT workers of the reaction operator (the run's --threads where one disc is solved at a time; answers are the same for any count)</param>
+    /// <param name="fftThreads">FFT workers of the reaction operator and of the source's edge moments (the run's --threads where one disc is solved at a time; answers are the same for any count)</param>
     public TurningDiscModel(PlatePart part, PlateOptions.SolvedGeometry solved, int fftThreads = 1)
     {
         _atSource = part.Excitation as PlateExcitation.Turning ?? throw new InvalidOperationException($"part {part.Name} is not a turning disc");
@@ -45,7 +45,7 @@ public sealed class TurningDiscModel
         {
             var model = _solved.Peak?.Model ?? throw new InvalidOperationException($"part {_part.Name}: no solved disc geometry");
             _reaction ??= ReactionOperator.Build(model, _fftThreads);
-            var disc = PlateModels.SolveDisc(model, turning.Source, sheet, turning.Angles(_solved.Slots?.Radial), reaction: _reaction);
+            var disc = PlateModels.SolveDisc(model, turning.Source, sheet, turning.Angles(_solved.Slots?.Radial), reaction: _reaction, fftThreads: _fftThreads);
             return new DiscNumber(new OptionModel(disc.Choice.Kind, string.Join("; ", disc.Notes)), disc.MeanLossW, disc.MeanTorqueNm);
         }
         var ratio = turning.AngularSpeedRadPerS / _atSource.AngularSpeedRadPerS;

@@ -169,4 +169,26 @@ public class MagnetFieldTests
         Assert.InRange(b.Y - dipole.Y, -tol, tol);
         Assert.InRange(b.Z - dipole.Z, -tol, tol);
     }
+
+    // Bz alone (FluxDensityZAt, for the sources that use only Bz) is the full vector's Z bit for bit: the same operations in the same
+    // order. The full vector itself is checked above against published closed forms (solenoid and block on axis), the surface-charge
+    // integral, Maxwell's div/curl and the dipole far field. Points inside, beside the rim, level with a face (the cuboid's w = 0 branch),
+    // on the axis, below the magnet and far away. Tolerance: none (bit-identical), since the disc's reports must not change.
+    [Theory]
+    [InlineData("cuboid")]
+    [InlineData("cylinder")]
+    public void Z_alone_is_the_full_vectors_Z_bit_for_bit(string shape)
+    {
+        IPermanentMagnet magnet = shape == "cuboid" ? new CuboidMagnet(0.02, 0.012, 0.008, Br) : new CylinderMagnet(0.02, 0.008, Br);
+        double[][] points =
+        [
+            [0.002, -0.001, 0.001], [0.0101, 0.0003, -0.004], [0.013, -0.004, -0.002], [0.004, 0.003, -0.009], [0, 0, -0.007],
+            [0.011, 0.006, 0.004], [-0.007, 0.0059, 0.0001], [0.25, -0.13, -0.4], [-1.5, 2.0, 0.8], [0.003, 0.002, 0.012],
+        ];
+        foreach (var p in points)
+        {
+            double full = magnet.FluxDensityAt(p[0], p[1], p[2]).Z, alone = magnet.FluxDensityZAt(p[0], p[1], p[2]);
+            Assert.True(BitConverter.DoubleToInt64Bits(full) == BitConverter.DoubleToInt64Bits(alone), $"{shape} at ({p[0]}, {p[1]}, {p[2]}): Z {full:R}, alone {alone:R}");
+        }
+    }
 }

@@ -44,10 +44,19 @@ public sealed class CuboidMagnet : IPermanentMagnet
         return new FluxDensityVector(k * (top.X - bottom.X), k * (top.Y - bottom.Y), k * (top.Z - bottom.Z) + inside);
     }
 
+    public double FluxDensityZAt(double x, double y, double z)
+    {
+        double a = LengthXM / 2, b = WidthYM / 2, c = HeightM / 2;
+        double top = FaceIntegralZ(x, y, z - c, a, b), bottom = FaceIntegralZ(x, y, z + c, a, b);
+        double k = RemanenceT / (4 * Math.PI);
+        double inside = Math.Abs(x) < a && Math.Abs(y) < b && Math.Abs(z) < c ? RemanenceT : 0;   // B = mu0 (H + M) inside
+        return k * (top - bottom) + inside;
+    }
+
     /// <summary>The integral over the face [-a, a] x [-b, b] at height w below the point of (r - r') / |r - r'|^3 dA'.</summary>
     private static FluxDensityVector FaceIntegral(double x, double y, double w, double a, double b)
     {
-        double sx = 0, sy = 0, sz = 0;
+        double sx = 0, sy = 0;
         for (int i = 0; i < 2; i++)
         {
             double u = i == 0 ? x + a : x - a;   // u = x - x' at x' = -a, then x' = +a
@@ -58,10 +67,28 @@ public sealed class CuboidMagnet : IPermanentMagnet
                 double r = Math.Sqrt(u * u + v * v + w * w);
                 sx -= sign * LogOfSumWithDistance(v, u * u + w * w, r);
                 sy -= sign * LogOfSumWithDistance(u, v * v + w * w, r);
-                if (w != 0) sz += sign * Math.Atan(u * v / (w * r));   // in the face's own plane the corner terms cancel outside the face
             }
         }
-        return new FluxDensityVector(sx, sy, sz);
+        return new FluxDensityVector(sx, sy, FaceIntegralZ(x, y, w, a, b));
+    }
+
+    /// <summary>The z part of <see cref="FaceIntegral"/>: the corner sum of atan(u v / (w R)).</summary>
+    private static double FaceIntegralZ(double x, double y, double w, double a, double b)
+    {
+        double sz = 0;
+        if (w == 0) return sz;   // in the face's own plane the corner terms cancel outside the face
+        for (int i = 0; i < 2; i++)
+        {
+            double u = i == 0 ? x + a : x - a;
+            for (int j = 0; j < 2; j++)
+            {
+                double v = j == 0 ? y + b : y - b;
+                double sign = i == j ? 1 : -1;
+                double r = Math.Sqrt(u * u + v * v + w * w);
+                sz += sign * Math.Atan(u * v / (w * r));
+            }
+        }
+        return sz;
     }
 
     /// <summary>ln(s + R) with R^2 = s^2 + q, without cancellation for negative s: ln(q / (R - s)).</summary>

@@ -37,19 +37,33 @@ public sealed class CylinderMagnet : IPermanentMagnet
     {
         double a = DiameterM / 2, b = HeightM / 2, b0 = RemanenceT / Math.PI;
         double rho = Math.Sqrt(x * x + y * y);
-        double gamma = (a - rho) / (a + rho);
-        double bRho = 0, bZ = 0;
+        double bZ = FluxDensityZAt(x, y, z);
+        if (rho < 1e-12 * a) return new FluxDensityVector(0, 0, bZ);   // on the axis B_rho = 0 (x / rho undefined)
+        double bRho = 0;
         for (int side = 0; side < 2; side++)
         {
             double zs = side == 0 ? z + b : z - b, sign = side == 0 ? 1 : -1;
             double d = Math.Sqrt(zs * zs + (rho + a) * (rho + a));
             double kc = Math.Sqrt((zs * zs + (a - rho) * (a - rho)) / (zs * zs + (a + rho) * (a + rho)));
-            bRho += sign * (a / d) * EllipticIntegral.Cel(kc, 1, 1, -1);
-            bZ += sign * (zs / d) * EllipticIntegral.Cel(kc, gamma * gamma, 1, gamma);
+            bRho += sign * (a / d) * EllipticIntegral.Cel(kc, 1, 1, -1);      // B_rho = B0 [alpha_+ C(k_+, 1, 1, -1) - alpha_- C(k_-, 1, 1, -1)]
         }
         bRho *= b0;
-        bZ *= b0 * a / (a + rho);
-        if (rho < 1e-12 * a) return new FluxDensityVector(0, 0, bZ);   // on the axis B_rho = 0 (x / rho undefined)
         return new FluxDensityVector(bRho * x / rho, bRho * y / rho, bZ);
+    }
+
+    public double FluxDensityZAt(double x, double y, double z)
+    {
+        double a = DiameterM / 2, b = HeightM / 2, b0 = RemanenceT / Math.PI;
+        double rho = Math.Sqrt(x * x + y * y);
+        double gamma = (a - rho) / (a + rho);
+        double bZ = 0;
+        for (int side = 0; side < 2; side++)
+        {
+            double zs = side == 0 ? z + b : z - b, sign = side == 0 ? 1 : -1;
+            double d = Math.Sqrt(zs * zs + (rho + a) * (rho + a));
+            double kc = Math.Sqrt((zs * zs + (a - rho) * (a - rho)) / (zs * zs + (a + rho) * (a + rho)));
+            bZ += sign * (zs / d) * EllipticIntegral.Cel(kc, gamma * gamma, 1, gamma);   // B_z = B0 a / (a + rho) [beta_+ C(k_+, gamma^2, 1, gamma) - beta_- C(...)]
+        }
+        return bZ * (b0 * a / (a + rho));
     }
 }

@@ -18,4 +18,7 @@ public interface IPermanentMagnet
 
     /// <summary>The flux density at (x, y, z) relative to the magnet's centre (tesla), inside the magnet included.</summary>
     FluxDensityVector FluxDensityAt(double x, double y, double z);
+
+    /// <summary>Bz alone at (x, y, z) relative to the magnet's centre (tesla): bit for bit the Z of <see cref="FluxDensityAt"/>, for the sources that use only Bz.</summary>
+    double FluxDensityZAt(double x, double y, double z);
 }

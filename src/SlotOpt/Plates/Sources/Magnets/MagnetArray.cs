@@ -67,11 +67,20 @@ public sealed class MagnetArray
         return sum;
     }
 
+    /// <summary>Bz alone at (x, y, z) (as <see cref="FluxDensityAt"/>, bit for bit its Z), for the integrals that use only Bz.</summary>
+    public double FluxDensityZAt(double x, double y, double z, double offsetXM = 0)
+    {
+        double sum = 0;
+        foreach (var m in Magnets)
+            sum += m.Sign * m.Magnet.FluxDensityZAt(x - m.Centre.X - offsetXM, y - m.Centre.Y, z - CentreHeightM(m));
+        return sum;
+    }
+
     /// <summary>Per lattice node, the integral of dBz/dx over its dual cell at the given depth (T m = Wb/m), magnets displaced by offsetXM.</summary>
     public void IntegrateSlope(CellLattice lattice, double offsetXM, double depthM, double[] node)
     {
         CheckDepth(depthM);
-        var (_, verticalZ) = VerticalEdgeIntegrals(lattice, offsetXM, -depthM);
+        var verticalZ = VerticalEdgeIntegrals(lattice, (x, y) => FluxDensityZAt(x, y, -depthM, offsetXM));
         int n = lattice.NodesX;
         for (int j = 0; j < lattice.NodesY; j++)
             for (int i = 0; i < n; i++)
@@ -82,7 +91,7 @@ public sealed class MagnetArray
     public void IntegrateNormalGradient(CellLattice lattice, double offsetXM, double depthM, double[] node)
     {
         CheckDepth(depthM);
-        var (verticalX, _) = VerticalEdgeIntegrals(lattice, offsetXM, -depthM);
+        var verticalX = VerticalEdgeIntegrals(lattice, (x, y) => FluxDensityAt(x, y, -depthM, offsetXM).X);
         var horizontalY = HorizontalEdgeIntegralsOfBy(lattice, offsetXM, -depthM);
         int n = lattice.NodesX;
         for (int j = 0; j < lattice.NodesY; j++)
@@ -96,32 +105,25 @@ public sealed class MagnetArray
     }
 
     /// <summary>
-    /// Integrals over y of Bx and Bz along the vertical dual-cell edges x = x_k - hx/2 (k = 0..NodesX), one per node row j
+    /// Integrals over y of one field component along the vertical dual-cell edges x = x_k - hx/2 (k = 0..NodesX), one per node row j
     /// from y_j - hy/2 to y_j + hy/2; index j (NodesX + 1) + k.
     /// </summary>
-    private (double[] Bx, double[] Bz) VerticalEdgeIntegrals(CellLattice l, double offsetXM, double z)
+    private double[] VerticalEdgeIntegrals(CellLattice l, Func<double, double, double> component)
     {
         var (t, w) = Quadrature.GaussLegendre01(LineQuadratureOrder);
         int lines = l.NodesX + 1;
-        var ix = new double[lines * l.NodesY];
-        var iz = new double[lines * l.NodesY];
+        var integrals = new double[lines * l.NodesY];
         for (int j = 0; j < l.NodesY; j++)
         {
             double y0 = l.NodeY(j) - l.Hy / 2;
             for (int k = 0; k < lines; k++)
             {
-                double x = l.NodeX(k) - l.Hx / 2, sx = 0, sz = 0;
-                for (int q = 0; q < t.Length; q++)
-                {
-                    var b = FluxDensityAt(x, y0 + t[q] * l.Hy, z, offsetXM);
-                    sx += w[q] * b.X;
-                    sz += w[q] * b.Z;
-                }
-                ix[j * lines + k] = sx * l.Hy;
-                iz[j * lines + k] = sz * l.Hy;
+                double x = l.NodeX(k) - l.Hx / 2, s = 0;
+                for (int q = 0; q < t.Length; q++) s += w[q] * component(x, y0 + t[q] * l.Hy);
+                integrals[j * lines + k] = s * l.Hy;
             }
         }
-        return (ix, iz);
+        return integrals;
     }
 
     /// <summary>Integrals over x of By along the horizontal dual-cell edges y = y_j - hy/2 (j = 0..NodesY), one per node column i; index j NodesX + i.</summary>

@@ -15,8 +15,9 @@ namespace SlotOpt.Plates.Sources.Rotation;
 public static class DiscReaction
 {
     /// <param name="initialGuess">u = psi / G to start the first angle from (e.g. <see cref="DiscReactionSolution.FirstU"/> of a nearby speed); null starts from the resistance-limited solution</param>
+    /// <param name="threads">workers for the source's edge moments (<see cref="RotatingSource.IntegrateRate"/>) where the caller solves one disc at a time; the same bits for any count</param>
     public static bool TrySolve(ReactionOperator reaction, RotatingSource source, ConductingSheet conductor, IReadOnlyList<double> anglesRad,
-        ConvergenceCriterion? criterion, double[]? initialGuess, out DiscReactionSolution? solution, out string failure)
+        ConvergenceCriterion? criterion, double[]? initialGuess, out DiscReactionSolution? solution, out string failure, int threads = 1)
     {
         if (anglesRad.Count == 0) throw new InputException("a turning disc needs at least one angle");
         criterion ??= ConvergenceCriterion.Default;
@@ -38,7 +39,7 @@ public static class DiscReaction
         for (int k = 0; k < anglesRad.Count; k++)
         {
             string at = $"turning disc at {anglesRad[k] * 180 / Math.PI:0.##} deg, {omega:G4} rad/s";
-            source.IntegrateRate(model.Lattice, anglesRad[k], node);
+            source.IntegrateRate(model.Lattice, anglesRad[k], node, threads);
             var rhs = model.RightHandSide(node);
             if (!model.TrySolve(rhs, low, criterion, out var r0))
             {
@@ -69,8 +70,8 @@ public static class DiscReaction
     }
 
     public static DiscReactionSolution Solve(ReactionOperator reaction, RotatingSource source, ConductingSheet conductor, IReadOnlyList<double> anglesRad,
-        ConvergenceCriterion? criterion = null, double[]? initialGuess = null) =>
-        TrySolve(reaction, source, conductor, anglesRad, criterion, initialGuess, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+        ConvergenceCriterion? criterion = null, double[]? initialGuess = null, int threads = 1) =>
+        TrySolve(reaction, source, conductor, anglesRad, criterion, initialGuess, out var s, out var failure, threads) ? s! : throw new NumericalFailureException(failure);
 }
 
 /// <summary>

@@ -8,11 +8,12 @@ namespace SlotOpt.Plates.Sources.Rotation;
 /// The braking torque on a thin disc turning under a fixed source, resistance-limited (the eddy currents' own field neglected):
 /// per angle, one solve of div(grad(psi) / G) = omega dBz/dtheta (<see cref="RotatingSource"/>) at unit sheet conductance; the loss P
 /// is the mechanical power the drive supplies, so the torque is T = P / omega (power balance of a steady rotation, common practice, no source).
+/// threads: workers for the source's edge moments (<see cref="RotatingSource.IntegrateRate"/>) where the caller solves one disc at a time; the same bits for any count.
 /// </summary>
 public static class DiscTorque
 {
     public static bool TrySolve(SheetModel model, RotatingSource source, IReadOnlyList<double> anglesRad, ConvergenceCriterion? criterion,
-        out DiscTorqueSolution? solution, out string failure)
+        out DiscTorqueSolution? solution, out string failure, int threads = 1)
     {
         if (anglesRad.Count == 0) throw new InputException("a turning disc needs at least one angle");
         criterion ??= ConvergenceCriterion.Default;
@@ -26,7 +27,7 @@ public static class DiscTorque
         double[]? peakPsi = null;
         for (int k = 0; k < anglesRad.Count; k++)
         {
-            source.IntegrateRate(l, anglesRad[k], node);
+            source.IntegrateRate(l, anglesRad[k], node, threads);
             var b = model.RightHandSide(node);
             if (!model.TrySolve(b, psi, criterion, out var report))
             {
@@ -44,8 +45,8 @@ public static class DiscTorque
         return true;
     }
 
-    public static DiscTorqueSolution Solve(SheetModel model, RotatingSource source, IReadOnlyList<double> anglesRad, ConvergenceCriterion? criterion = null) =>
-        TrySolve(model, source, anglesRad, criterion, out var s, out var failure) ? s! : throw new NumericalFailureException(failure);
+    public static DiscTorqueSolution Solve(SheetModel model, RotatingSource source, IReadOnlyList<double> anglesRad, ConvergenceCriterion? criterion = null, int threads = 1) =>
+        TrySolve(model, source, anglesRad, criterion, out var s, out var failure, threads) ? s! : throw new NumericalFailureException(failure);
 }
 
 /// <summary>

@@ -58,33 +58,61 @@ public sealed class RotatingMagnets : RotatingSource
     public override string Words =>
         $"{Count} magnet{(Count == 1 ? "" : "s")} at {Numbers.Of(RadiusM * 1e3, "mm")} radius, {Numbers.Of(GapM * 1e3, "mm")} gap";
 
-    /// <summary>Bz at the disc's top surface at (x, y) from the axis, the ring turned by angleRad.</summary>
-    public double FieldZ(double xM, double yM, double angleRad)
+    protected override IEdgeMoments TurnedBy(double angleRad) => new TurnedRing(this, angleRad);
+
+    /// <summary>
+    /// The ring turned by one angle: each magnet's cos, sin and sign, the Gauss-Legendre table and the disc's surface height in the
+    /// magnets' frame, computed once for all the lattice's edges. Read-only, so the edges may be integrated on several threads.
+    /// </summary>
+    private sealed class TurnedRing : IEdgeMoments
     {
-        double z = -(GapM + Magnet.HeightM / 2), sum = 0;
-        for (int k = 0; k < Count; k++)
+        private readonly IPermanentMagnet _magnet;
+        private readonly double _radiusM, _surfaceZ;
+        private readonly double[] _cos, _sin, _sign, _t, _w;
+
+        public TurnedRing(RotatingMagnets ring, double angleRad)
         {
-            double phi = angleRad + k * PitchRad, c = Math.Cos(phi), s = Math.Sin(phi);
-            double radial = xM * c + yM * s - RadiusM, tangential = -xM * s + yM * c;    // the point in the magnet's frame (rotated by -phi)
-            double sign = Polarity == MagnetPolarity.Alternating && k % 2 == 1 ? -1 : 1;
-            sum += sign * Magnet.FluxDensityAt(tangential, radial, z).Z;               // the magnet's length (its x) lies along the path
+            _magnet = ring.Magnet;
+            _radiusM = ring.RadiusM;
+            _surfaceZ = -(ring.GapM + ring.Magnet.HeightM / 2);
+            _cos = new double[ring.Count];
+            _sin = new double[ring.Count];
+            _sign = new double[ring.Count];
+            for (int k = 0; k < ring.Count; k++)
+            {
+                double phi = angleRad + k * ring.PitchRad;
+                _cos[k] = Math.Cos(phi);
+                _sin[k] = Math.Sin(phi);
+                _sign[k] = ring.Polarity == MagnetPolarity.Alternating && k % 2 == 1 ? -1 : 1;
+            }
+            (_t, _w) = Quadrature.GaussLegendre01(ring.LineQuadratureOrder);
         }
-        return sum;
-    }
 
-    protected override double MomentAlongX(double yM, double x0M, double x1M, double angleRad)
-    {
-        var (t, w) = Quadrature.GaussLegendre01(LineQuadratureOrder);
-        double sum = 0, d = x1M - x0M;
-        for (int q = 0; q < t.Length; q++) { double x = x0M + t[q] * d; sum += w[q] * x * FieldZ(x, yM, angleRad); }
-        return sum * d;
-    }
+        /// <summary>Bz at the disc's top surface at (x, y) from the axis.</summary>
+        private double FieldZ(double xM, double yM)
+        {
+            double sum = 0;
+            for (int k = 0; k < _cos.Length; k++)
+            {
+                double c = _cos[k], s = _sin[k];
+                double radial = xM * c + yM * s - _radiusM, tangential = -xM * s + yM * c;    // the point in the magnet's frame (rotated by -phi)
+                sum += _sign[k] * _magnet.FluxDensityZAt(tangential, radial, _surfaceZ);     // the magnet's length (its x) lies along the path
+            }
+            return sum;
+        }
 
-    protected override double MomentAlongY(double xM, double y0M, double y1M, double angleRad)
-    {
-        var (t, w) = Quadrature.GaussLegendre01(LineQuadratureOrder);
-        double sum = 0, d = y1M - y0M;
-        for (int q = 0; q < t.Length; q++) { double y = y0M + t[q] * d; sum += w[q] * y * FieldZ(xM, y, angleRad); }
-        return sum * d;
+        public double MomentAlongX(double yM, double x0M, double x1M)
+        {
+            double sum = 0, d = x1M - x0M;
+            for (int q = 0; q < _t.Length; q++) { double x = x0M + _t[q] * d; sum += _w[q] * x * FieldZ(x, yM); }
+            return sum * d;
+        }
+
+        public double MomentAlongY(double xM, double y0M, double y1M)
+        {
+            double sum = 0, d = y1M - y0M;
+            for (int q = 0; q < _t.Length; q++) { double y = y0M + _t[q] * d; sum += _w[q] * y * FieldZ(xM, y); }
+            return sum * d;
+        }
     }
 }

@@ -31,19 +31,14 @@ public sealed class RotatingPole : RotatingSource
 
     public override string Words => $"a pole {Numbers.Of(2 * PoleRadiusM * 1e3, "mm")} across at {Numbers.Of(SourceRadiusM * 1e3, "mm")} radius";
 
-    protected override double MomentAlongX(double yM, double x0M, double x1M, double angleRad)
-    {
-        var (cx, cy) = Centre(angleRad);
-        return Chord(yM - cy, cx, x0M, x1M);
-    }
+    protected override IEdgeMoments TurnedBy(double angleRad) => new TurnedPole(this, SourceRadiusM * Math.Cos(angleRad), SourceRadiusM * Math.Sin(angleRad));
 
-    protected override double MomentAlongY(double xM, double y0M, double y1M, double angleRad)
+    /// <summary>The pole turned by one angle: its centre (cx, cy) from the axis, computed once for all the lattice's edges.</summary>
+    private sealed class TurnedPole(RotatingPole pole, double cx, double cy) : IEdgeMoments
     {
-        var (cx, cy) = Centre(angleRad);
-        return Chord(xM - cx, cy, y0M, y1M);
+        public double MomentAlongX(double yM, double x0M, double x1M) => pole.Chord(yM - cy, cx, x0M, x1M);
+        public double MomentAlongY(double xM, double y0M, double y1M) => pole.Chord(xM - cx, cy, y0M, y1M);
     }
-
-    private (double X, double Y) Centre(double angleRad) => (SourceRadiusM * Math.Cos(angleRad), SourceRadiusM * Math.Sin(angleRad));
 
     /// <summary>B times the integral of s ds over the part of [s0, s1] inside the circle, on a line at distance d from its centre c along the line.</summary>
     private double Chord(double d, double c, double s0, double s1)

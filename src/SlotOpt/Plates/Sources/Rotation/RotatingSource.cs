@@ -34,7 +34,7 @@ public abstract class RotatingSource
     public const int KeptRates = 32;
 
     /// <summary>The summed edge moments per node (the rate at 1 rad/s) by lattice and angle, shared with the AtSpeed copies; thread-safe.</summary>
-    private System.Collections.Concurrent.ConcurrentDictionary<(CellLattice Lattice, double AngleRad), double[]> _unitRates = new();
+    private System.Collections.Concurrent.ConcurrentDictionary<(CellLattice Lattice, double AngleRad), Lazy<double[]>> _unitRates = new();
 
     /// <summary>For <see cref="AtSpeed"/>: the copy at another speed shares this source's kept rates (the same field, so the same moments).</summary>
     protected T SharingRates<T>(T copy) where T : RotatingSource
@@ -55,47 +55,66 @@ public abstract class RotatingSource
     public abstract RotatingSource AtSpeed(double angularSpeedRadPerS);
     public abstract string Words { get; }
 
-    /// <summary>Integral of x Bz dx along y = yM from x0 to x1 (x, y from the axis; tesla m^2), the source turned by angleRad.</summary>
-    protected abstract double MomentAlongX(double yM, double x0M, double x1M, double angleRad);
-    /// <summary>Integral of y Bz dy along x = xM from y0 to y1 (x, y from the axis; tesla m^2), the source turned by angleRad.</summary>
-    protected abstract double MomentAlongY(double xM, double y0M, double y1M, double angleRad);
+    /// <summary>The source turned by angleRad about the axis, as its edge moments (what depends only on the angle computed once).</summary>
+    protected abstract IEdgeMoments TurnedBy(double angleRad);
 
-    /// <summary>Per lattice node, the dual-cell integral of dBz/dt = omega dBz/dtheta (volts) with the source turned by angleRad about the axis.</summary>
-    public void IntegrateRate(CellLattice l, double angleRad, double[] node)
+    /// <summary>The edge moments of the source at one angle; read-only, so one instance may serve several threads.</summary>
+    protected interface IEdgeMoments
     {
-        if (!_unitRates.TryGetValue((l, angleRad), out var unit))
-        {
-            unit = UnitRate(l, angleRad);
-            if (_unitRates.Count < KeptRates) _unitRates.TryAdd((l, angleRad), unit);
-        }
+        /// <summary>Integral of x Bz dx along y = yM from x0 to x1 (x, y from the axis; tesla m^2).</summary>
+        double MomentAlongX(double yM, double x0M, double x1M);
+        /// <summary>Integral of y Bz dy along x = xM from y0 to y1 (x, y from the axis; tesla m^2).</summary>
+        double MomentAlongY(double xM, double y0M, double y1M);
+    }
+
+    /// <summary>
+    /// Per lattice node, the dual-cell integral of dBz/dt = omega dBz/dtheta (volts) with the source turned by angleRad about the axis.
+    /// threads: workers for the edge moments where the caller solves one disc at a time (each edge is independent: the same bits for any count).
+    /// </summary>
+    public void IntegrateRate(CellLattice l, double angleRad, double[] node, int threads = 1)
+    {
+        if (threads < 1) throw new ArgumentOutOfRangeException(nameof(threads), "at least one thread");
+        var key = (l, angleRad);
+        // kept while there is room; Lazy so that two solves wanting the same rate at once integrate it once
+        var unit = _unitRates.Count < KeptRates || _unitRates.ContainsKey(key)
+            ? _unitRates.GetOrAdd(key, _ => new Lazy<double[]>(() => UnitRate(l, angleRad, threads))).Value
+            : UnitRate(l, angleRad, threads);
         double w = AngularSpeedRadPerS;
         for (int n = 0; n < unit.Length; n++) node[n] = w * unit[n];
     }
 
-    /// <summary>Per lattice node, the summed edge moments of its dual cell (the rate at 1 rad/s, tesla m^2 per radian).</summary>
-    private double[] UnitRate(CellLattice l, double angleRad)
+    /// <summary>Per lattice node, the summed edge moments of its dual cell (the rate at 1 rad/s, tesla m^2 per radian); rows of edges on up to threads workers.</summary>
+    private double[] UnitRate(CellLattice l, double angleRad, int threads)
     {
+        var turned = TurnedBy(angleRad);
         int nx = l.NodesX, ny = l.NodesY;
         var vertical = new double[(nx + 1) * ny];     // along x = x_k - hx/2, for node row j
         var horizontal = new double[nx * (ny + 1)];   // along y = y_k - hy/2, for node column i
-        for (int j = 0; j < ny; j++)
+        // a field that cannot be evaluated (NumericalFailureException) reaches the caller as itself, the first row's, whatever the thread count
+        var failures = new NumericalFailureException?[ny + 1];
+        Parallel.For(0, ny + 1, new ParallelOptions { MaxDegreeOfParallelism = threads }, j =>
         {
-            double y0 = l.NodeY(j) - l.Hy / 2 - Axis.Y;
-            for (int k = 0; k <= nx; k++) vertical[j * (nx + 1) + k] = MomentAlongY(l.NodeX(k) - l.Hx / 2 - Axis.X, y0, y0 + l.Hy, angleRad);
-        }
-        for (int k = 0; k <= ny; k++)
-        {
-            double y = l.NodeY(k) - l.Hy / 2 - Axis.Y;
-            for (int i = 0; i < nx; i++)
-            {
-                double x0 = l.NodeX(i) - l.Hx / 2 - Axis.X;
-                horizontal[k * nx + i] = MomentAlongX(y, x0, x0 + l.Hx, angleRad);
-            }
-        }
+            try { EdgeRow(j); }
+            catch (NumericalFailureException e) { failures[j] = e; }
+        });
+        if (Array.Find(failures, f => f is not null) is { } failure) throw failure;
         var unit = new double[nx * ny];
         for (int j = 0; j < ny; j++)
             for (int i = 0; i < nx; i++)
                 unit[j * nx + i] = horizontal[(j + 1) * nx + i] - horizontal[j * nx + i] - vertical[j * (nx + 1) + i + 1] + vertical[j * (nx + 1) + i];
         return unit;
+
+        // row j's vertical edges (j < NodesY) and its lower horizontal edges: each entry written by one worker
+        void EdgeRow(int j)
+        {
+            double y0 = l.NodeY(j) - l.Hy / 2 - Axis.Y;    // row j's lower horizontal edge line, and the start of its vertical edges
+            if (j < ny)
+                for (int k = 0; k <= nx; k++) vertical[j * (nx + 1) + k] = turned.MomentAlongY(l.NodeX(k) - l.Hx / 2 - Axis.X, y0, y0 + l.Hy);
+            for (int i = 0; i < nx; i++)
+            {
+                double x0 = l.NodeX(i) - l.Hx / 2 - Axis.X;
+                horizontal[j * nx + i] = turned.MomentAlongX(y0, x0, x0 + l.Hx);
+            }
+        }
     }
 }
