@@ -1,5 +1,4 @@
 using System.Diagnostics;
-using System.Runtime;
 using System.Globalization;
 using SlotOpt.Numerics;
 using SlotOpt.Plates.Conductors;
@@ -40,7 +39,7 @@ public static class ReactionBench
         var c = CultureInfo.InvariantCulture;
         var conductor = new ConductingSheet(35.38e6, 3e-3);
         if (Runs("ac") || Runs("moving")) WarmUp(conductor);
-        var (jitTime, jitMethods) = (JitInfo.GetCompilationTime(), JitInfo.GetCompiledMethodCount());
+        var jit = JitWarmUp.Start();
         Console.WriteLine("| case | grid | unknowns | padded FFT | FFT threads | setup s | solve s | solve CPU s | iterations | residual | loss or drag ratio (coupled / resistance-limited) |");
         Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|---|");
         foreach (int n in Runs("ac") ? new[] { 256, 512 } : [])
@@ -89,7 +88,7 @@ public static class ReactionBench
             double solve = clock.Elapsed.TotalSeconds, solveCpu = (Process.GetCurrentProcess().TotalProcessorTime - cpu).TotalSeconds;
             Console.WriteLine(string.Create(c, $"| thick Cu 20 mm, 50 Hz, {s.Layers} layers (error {s.LayerError:P1}) | 128 x 64 x {s.Layers} | {model.Unknowns * s.Layers} | 256 x 128 | 1 | {setup:F2} | {solve:F2} (with kernels, L/2 and L) | {solveCpu:F2} | {s.Iterations} | {s.RelativeResidual:E1} | {s.LossRatio:F4} |"));
         }
-        Console.WriteLine(string.Create(c, $"JIT after the warm-up, inside the timed cases: {(JitInfo.GetCompilationTime() - jitTime).TotalMilliseconds:F0} ms compiling {JitInfo.GetCompiledMethodCount() - jitMethods} methods"));
+        Console.WriteLine(jit.Since("cases"));
         if (Runs("fft")) FftLanes();
         return 0;
     }
@@ -140,19 +139,16 @@ public static class ReactionBench
     private const int WarmUpRounds = 8;
 
     /// <summary>
-    /// The same solves on small grids first, so the timed ones do not pay for compiling the code: round after round until one compiles no
-    /// new method (<see cref="JitInfo.GetCompiledMethodCount"/>) after a pause longer than the runtime's tiering delay (100 ms: a method called
-    /// 30 times is recompiled optimised in the background once no new method has been compiled for that long; common practice, no source),
-    /// at most <see cref="WarmUpRounds"/>. A one-round warm-up left the loops of the FFT and the cycle to on-stack replacement inside the first
-    /// timed solve (about 0.1 s of a 0.3 s solve at 256²): a process pays that once, the bench reports it as "JIT in solves".
+    /// The same solves on small grids first, round after round until a round compiles nothing new (<see cref="JitWarmUp"/>). A one-round
+    /// warm-up left the loops of the FFT and the cycle to on-stack replacement inside the first timed solve (about 0.1 s of a 0.3 s solve
+    /// at 256²): a process pays that once.
     /// </summary>
     private static void WarmUp(ConductingSheet conductor)
     {
         var plate = PlateGeometry.Rectangle(1, 1);
         plate.AddPattern(SlotPatterns.Comb(plate.Outline, PlateEdge.Bottom, 0.1, 0.7, 0.02));
-        for (int round = 0; round < WarmUpRounds; round++)
+        JitWarmUp.UntilSettled(() =>
         {
-            long compiled = JitInfo.GetCompiledMethodCount();
             foreach (int threads in new[] { 1, 2 })
             {
                 ReactionSolver.SolveAc(ReactionOperator.Build(SheetModel.Build(plate, new GridOptions { CellSizeM = 1.0 / 64 }), threads), new UniformAcField(0.01, 50), conductor);
@@ -160,8 +156,6 @@ public static class ReactionBench
                 var poles = new MovingPoles(new[] { new Pole(PoleFace.Circle(0.02), new Vec2(0, 0), 0.5) }, 2 / (Validity.Mu0 * conductor.SheetConductanceS));
                 ReactionSolver.SolveMoving(ReactionOperator.Build(model, threads), poles, conductor, new[] { 0.0, 0.002 });
             }
-            Thread.Sleep(250);
-            if (round > 0 && JitInfo.GetCompiledMethodCount() == compiled) return;
-        }
+        }, WarmUpRounds);
     }
 }

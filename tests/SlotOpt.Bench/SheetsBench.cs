@@ -1,6 +1,5 @@
 using System.Diagnostics;
 using System.Globalization;
-using System.Runtime;
 using System.Text.Json;
 using SlotOpt.Plates.Geometry;
 using SlotOpt.Plates.Grid;
@@ -33,10 +32,9 @@ public static class SheetsBench
         int sizesAt = Array.IndexOf(args, "--sizes");
         var sizes = sizesAt >= 0 && sizesAt + 1 < args.Length ? args[sizesAt + 1].Split(',').Select(s => int.Parse(s, CultureInfo.InvariantCulture)).ToArray() : [128, 256, 512, 1024, 2048];
         WarmUp(n => Once(n));
-        var (jitTime, jitMethods) = (JitInfo.GetCompilationTime(), JitInfo.GetCompiledMethodCount());
+        var jit = JitWarmUp.Start();
         var rows = sizes.Select(Measure).ToList();
-        string jitLeft = string.Create(CultureInfo.InvariantCulture,
-            $"JIT after the warm-up, inside the timed sizes: {(JitInfo.GetCompilationTime() - jitTime).TotalMilliseconds:F0} ms compiling {JitInfo.GetCompiledMethodCount() - jitMethods} methods");
+        string jitLeft = jit.Since("sizes");
         var c = CultureInfo.InvariantCulture;
         if (json)
         {
@@ -72,25 +70,16 @@ public static class SheetsBench
     private static readonly int[] WarmUpSizes = [64, 100];
 
     /// <summary>
-    /// Solves the small plates of <see cref="WarmUpSizes"/> with <paramref name="solve"/>, <see cref="SolvesPerRound"/> times a round, round
-    /// after round until one compiles no new method (<see cref="JitInfo.GetCompiledMethodCount"/>) after a pause longer than the runtime's
-    /// tiering delay (100 ms: calls are counted only once no method has been compiled for that long, and a method called 30 times is then
-    /// recompiled optimised in the background; common practice, no source), at most <see cref="WarmUpRounds"/> rounds. One 64² solve alone
-    /// left the grid and region builders to tier-0 code and on-stack replacement inside the timed 128² and 256² runs (128²: 14 ms CPU against
-    /// 9 ms with tiering off, 2026-12-03) and never ran the symmetric sweeps; one solve a round stopped after two rounds with a few hundred
-    /// small methods still to be recompiled inside the timed sizes: a process pays that once, on its first plates.
+    /// Solves the small plates of <see cref="WarmUpSizes"/> with <paramref name="solve"/>, <see cref="SolvesPerRound"/> times a round, until a
+    /// round compiles nothing new (<see cref="JitWarmUp"/>). One 64² solve alone left the grid and region builders to tier-0 code and on-stack
+    /// replacement inside the timed 128² and 256² runs (128²: 14 ms CPU against 9 ms with tiering off, 2026-12-03) and never ran the symmetric
+    /// sweeps; one solve a round stopped after two rounds with a few hundred small methods still to be recompiled inside the timed sizes.
     /// </summary>
-    internal static void WarmUp(Action<int> solve)
+    internal static void WarmUp(Action<int> solve) => JitWarmUp.UntilSettled(() =>
     {
-        for (int r = 0; r < WarmUpRounds; r++)
-        {
-            long compiled = JitInfo.GetCompiledMethodCount();
-            for (int k = 0; k < SolvesPerRound; k++)
-                foreach (int n in WarmUpSizes) solve(n);
-            Thread.Sleep(250);
-            if (r > 0 && JitInfo.GetCompiledMethodCount() == compiled) return;
-        }
-    }
+        for (int k = 0; k < SolvesPerRound; k++)
+            foreach (int n in WarmUpSizes) solve(n);
+    }, WarmUpRounds);
 
     private sealed record Row(int N, int Unknowns, double SetupSeconds, double SolveSeconds, double CpuSeconds, int Iterations, double Residual, long RetainedBytes, long OperatorAndMultigridBytes, int Levels, long PeakGrowthBytes, double LossW);
 
