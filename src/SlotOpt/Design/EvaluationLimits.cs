@@ -68,13 +68,10 @@ public sealed record EvaluationLimits
     /// </summary>
     public string? RefusesGrid(SheetModel held, double cellM)
     {
-        var (min, max) = held.Grid.Geometry.Bounds;
-        double heldCellM = Math.Max(held.Lattice.Hx, held.Lattice.Hy);
-        double Nodes(double side, double h) => Math.Min(Math.Ceiling(side / h) + 1, int.MaxValue / 4);
-        double OwnField(double h) => MemoryModel.OwnField((int)Nodes(max.X - min.X, h), (int)Nodes(max.Y - min.Y, h));
-        var estimate = OwnField(cellM) + OwnField(heldCellM) - MemoryModel.WithMargin(0);     // the runtime once
-        var cells = Math.Ceiling((max.X - min.X) / cellM) * Math.Ceiling((max.Y - min.Y) / cellM);
-        return OverLimit($"a {Numbers.Of(cellM * 1e3, "mm")} grid ({Numbers.Sig(cells)} cells) solved with the plate's own field", estimate);
+        var outline = held.Grid.Geometry.Outline;
+        var finer = GridSize.Over(outline, cellM);
+        var estimate = finer.OwnFieldBytes + GridSize.Over(outline, Math.Max(held.Lattice.Hx, held.Lattice.Hy)).OwnFieldBytes - MemoryModel.WithMargin(0);     // the runtime once
+        return OverLimit($"a {Numbers.Of(cellM * 1e3, "mm")} grid ({Numbers.Sig(finer.Cells)} cells) solved with the plate's own field", estimate);
     }
 
     /// <summary>"what needs about ..., the memory limit is ..." when the estimate (and the report's bytes when one is written) is over the limit, else null.</summary>
@@ -93,10 +90,7 @@ public sealed record EvaluationLimits
     public void CheckGrid(string partName, Polygon outline, double? cellSizeM, PartWorkload work)
     {
         if (cellSizeM is not { } h) return;
-        var (min, max) = outline.Bounds;
-        var (nx, ny) = (Math.Ceiling((max.X - min.X) / h), Math.Ceiling((max.Y - min.Y) / h));
-        var cells = (long)Math.Min(nx * ny, long.MaxValue / 2);
-        var (nodesX, nodesY) = ((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4));
+        var (cells, nodesX, nodesY) = GridSize.Over(outline, h);
         var geometries = Math.Max(work.Geometries, 1);
         var screening = MemoryModel.Screening(cells, geometries, Threads, work.ThermalOptionsPerGeometry, work.TravelPositions, MemoryModel.PaddedCells(nodesX, nodesY) / Math.Max(cells, 1),
             work.RotatingRateSets);

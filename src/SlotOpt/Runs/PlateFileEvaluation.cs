@@ -196,10 +196,8 @@ public sealed record PlateFileEvaluation(
     {
         if (plate.Grid.CellSizeM is { } h)
         {
-            var (min, max) = plate.Geometry.Bounds;
-            var (nx, ny) = (Math.Ceiling((max.X - min.X) / h), Math.Ceiling((max.Y - min.Y) / h));
-            var estimate = MemoryModel.OwnField((int)Math.Min(nx + 1, int.MaxValue / 4), (int)Math.Min(ny + 1, int.MaxValue / 4));
-            limits.CheckMemory($"{plate.Path}: [grid] cell: a {Numbers.Of(h * 1e3, "mm")} grid ({nx * ny:N0} cells) solved with the plate's own field", estimate, "choose a larger cell");
+            var grid = GridSize.Over(plate.Geometry.Outline, h);
+            limits.CheckMemory($"{plate.Path}: [grid] cell: a {Numbers.Of(h * 1e3, "mm")} grid ({grid.Cells:N0} cells) solved with the plate's own field", grid.OwnFieldBytes, "choose a larger cell");
             return plate;
         }
         return plate with { Grid = plate.Grid with { MaxAutoCells = Math.Min(plate.Grid.MaxAutoCells, limits.CellCap(new PartWorkload(1))) } };
